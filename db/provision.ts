@@ -1,0 +1,26 @@
+// Shared by `npm start` and `npm test`: the project's MariaDB up, the database created (fresh
+// when asked), migrations applied, the demo lab seeded.
+import type { Env } from "@/lib/env";
+import * as local from "./local-server";
+
+export async function provision(env: Env, opts: { fresh?: boolean; log?: (msg: string) => void } = {}) {
+  const log = opts.log ?? (() => {});
+  const t0 = Date.now();
+  const server = local.localServer({ port: env.DB_PORT });
+  const state = await local.start(server);
+  log(`MariaDB ${state} on 127.0.0.1:${env.DB_PORT} (data in ${server.dataDir})`);
+  await local.ensureDatabase(server, { database: env.DB_NAME, user: env.DB_USER, password: env.DB_PASSWORD, fresh: opts.fresh });
+  const { createPool, createDb } = await import("./index");
+  const { runMigrations } = await import("./migrate");
+  const { seedDemo } = await import("./seed");
+  const pool = createPool(env.DATABASE_URL);
+  try {
+    const db = createDb(pool);
+    await runMigrations(db);
+    await seedDemo(db);
+  } finally {
+    await pool.end();
+  }
+  log(`database ${env.DB_NAME} migrated and seeded in ${Date.now() - t0} ms`);
+  return { server, startedHere: state === "started" };
+}

@@ -1,0 +1,45 @@
+import { z } from "zod";
+
+// The one place that reads process.env; everything else imports `env`.
+const port = z.coerce.number().int().min(1).max(65535);
+
+const schema = z
+  .object({
+    NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+    PORT: port.default(3000),
+    APP_URL: z.url().optional(),
+    DB_HOST: z.string().default("127.0.0.1"),
+    DB_PORT: port.default(3307),
+    DB_NAME: z
+      .string()
+      .regex(/^[a-z][a-z0-9_]{0,62}$/, "lower-case letters, digits and _ only")
+      .default("forkwall"),
+    DB_USER: z.string().default("forkwall"),
+    DB_PASSWORD: z.string().default("forkwall-local"),
+    DATABASE_URL: z.string().optional(),
+    AUTH_SECRET: z.string().min(32).optional(),
+    SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
+    MAIL_FROM: z.string().default("Forkwall <no-reply@forkwall.test>"),
+    MAIL_FAKE_URL: z.url().optional(),
+    LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  })
+  .transform((e) => ({
+    ...e,
+    APP_URL: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, ""),
+    DATABASE_URL:
+      e.DATABASE_URL ??
+      `mysql://${encodeURIComponent(e.DB_USER)}:${encodeURIComponent(e.DB_PASSWORD)}@${e.DB_HOST}:${e.DB_PORT}/${e.DB_NAME}`,
+  }));
+
+export type Env = z.infer<typeof schema>;
+
+function load(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+  }
+  return parsed.data;
+}
+
+export const env = load();

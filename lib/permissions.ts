@@ -1,0 +1,37 @@
+export const ROLES = ["manager", "lead", "educator", "operator"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  manager: "Manager",
+  lead: "Medical lead",
+  educator: "Educator",
+  operator: "Operator",
+};
+
+// What each role may do inside one lab (PRODUCT.md, "Who uses it").
+export const CAPABILITIES = {
+  "lab:read": ["manager", "lead", "educator", "operator"],
+  "stock:edit": ["manager"],
+  "members:manage": ["manager"],
+  "rooms:manage": ["manager"],
+  "audit:read": ["manager"],
+  "chart:design": ["manager", "educator"],
+  "edition:create": ["manager", "educator"],
+  "edition:approve": ["manager", "lead"],
+  "edition:withdraw": ["manager"],
+  "posting:record": ["manager", "lead", "educator", "operator"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Capability = keyof typeof CAPABILITIES;
+
+export function can(role: Role, capability: Capability): boolean {
+  return (CAPABILITIES[capability] as readonly Role[]).includes(role);
+}
+
+export function rolesWith(capability: Capability): readonly Role[] {
+  return CAPABILITIES[capability];
+}
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
+}

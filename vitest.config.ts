@@ -1,0 +1,31 @@
+import path from "node:path";
+import { defineConfig } from "vitest/config";
+
+const alias = {
+  "@": path.resolve(import.meta.dirname),
+  "server-only": path.resolve(import.meta.dirname, "tests/support/server-only.ts"),
+};
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", environment: "node", include: ["tests/unit/**/*.test.ts"] },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          environment: "node",
+          include: ["tests/integration/**/*.test.ts"],
+          setupFiles: ["tests/integration/setup.ts"],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+});
