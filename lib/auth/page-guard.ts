@@ -1,5 +1,6 @@
 import "server-only";
 import { notFound, redirect } from "next/navigation";
+import { cache } from "react";
 import { AppError } from "@/lib/errors";
 import type { Capability } from "@/lib/permissions";
 import { requireMember, type Member } from "./guard";
@@ -8,7 +9,11 @@ import { requireMember, type Member } from "./guard";
  * The page-side twin of requireMember: anonymous -> sign-in, not a member -> 404 page,
  * role too low -> "forbidden" for the page to render its own explanation.
  */
-export async function memberForPage(slug: string, capability: Capability, returnTo: string): Promise<Member | "forbidden"> {
+export const memberForPage = cache(async function memberForPage(
+  slug: string,
+  capability: Capability,
+  returnTo: string,
+): Promise<Member | "forbidden"> {
   try {
     return await requireMember({ slug }, capability);
   } catch (err) {
@@ -17,4 +22,4 @@ export async function memberForPage(slug: string, capability: Capability, return
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   }
-}
+});

@@ -1,6 +1,5 @@
 import { EmptyState } from "@/components/ui/empty-state";
 import { memberForPage } from "@/lib/auth/page-guard";
-import { ROLE_LABELS } from "@/lib/permissions";
 
 export default async function LabPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
@@ -8,13 +7,10 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
   if (member === "forbidden") return null;
   return (
     <div>
-      <p className="text-sm text-ink-faint">Your role: {ROLE_LABELS[member.role]}</p>
-      <h1 className="text-2xl font-bold">{member.lab.name}</h1>
-      <div className="mt-6">
-        <EmptyState title="No wall charts yet">
-          Charts built from this lab&apos;s stock and chosen law will be listed here, with the status of every printed copy.
-        </EmptyState>
-      </div>
+      <h1 className="sr-only">{member.lab.name}: overview</h1>
+      <EmptyState title="No wall charts yet">
+        Charts built from this lab&apos;s stock and chosen law will be listed here, with the status of every printed copy.
+      </EmptyState>
     </div>
   );
 }

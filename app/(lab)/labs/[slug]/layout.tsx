@@ -1,0 +1,19 @@
+import { LabNav } from "@/components/lab/lab-nav";
+import { memberForPage } from "@/lib/auth/page-guard";
+import { ROLE_LABELS } from "@/lib/permissions";
+
+export default async function LabLayout({ children, params }: { children: React.ReactNode; params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const member = await memberForPage(slug, "lab:read", `/labs/${slug}`);
+  if (member === "forbidden") return children;
+  return (
+    <div>
+      <div className="mb-4">
+        <p className="text-sm text-ink-faint">Your role: {ROLE_LABELS[member.role]}</p>
+        <p className="text-xl font-bold">{member.lab.name}</p>
+      </div>
+      <LabNav slug={slug} role={member.role} />
+      <div className="pt-6">{children}</div>
+    </div>
+  );
+}
