@@ -1,0 +1,151 @@
+import { CAUTION_TEXT } from "@/lib/cautions";
+import type { Orientation, PaperId } from "@/lib/poster/paper";
+import {
+  buildGrid,
+  STOCK_TOLERANCE_MM,
+  type BalloonFamilyStock,
+  type Grid,
+  type LawSpec,
+  type LookupKind,
+  type RoundingRule,
+  type StentSize,
+} from "@/lib/sizing";
+import type { ChartDefinition } from "@/lib/validation/chart";
+
+/** The lab's stock as the stock API returns it. */
+export type StockFamily = {
+  id: number;
+  name: string;
+  compliance: "nc" | "sc";
+  nominalAtm: number;
+  rbpAtm: number;
+  growthAtRbpMm: number | null;
+  balloons: { diameterMm: number; inStock: boolean }[];
+};
+export type StockPlatform = { id: number; name: string; sizes: StentSize[] };
+export type LabStock = { balloonFamilies: StockFamily[]; stentPlatforms: StockPlatform[] };
+
+export type SnapshotLookup = {
+  kind: LookupKind;
+  rows: number[];
+  cols: number[];
+  rounding: RoundingRule;
+  /** Only the in-stock sizes that can decide a cell of this grid; null when the family is gone. */
+  family: BalloonFamilyStock | null;
+};
+
+/** Everything that decides a poster's printed numbers and texts, frozen into an edition. */
+export type Snapshot = {
+  format: 1;
+  lab: { name: string };
+  title: string;
+  notes: string;
+  paper: PaperId;
+  orientation: Orientation;
+  readingDistanceM: number;
+  law: LawSpec;
+  lookups: SnapshotLookup[];
+  stent: { name: string; sizes: StentSize[] } | null;
+  logoSha256: string | null;
+  caution: string;
+};
+
+const round2 = (x: number) => Math.round(x * 100) / 100;
+
+/**
+ * The stocked sizes that can decide any cell whose exact targets lie in [min, max]: every size
+ * in that span, plus the nearest size beyond each end (what `up`, `down` and `nearest` reach
+ * for) and the sizes a `reach` pick could push up by its growth. A size outside this span
+ * cannot change a printed cell, so its stock status must not make a poster stale.
+ */
+export function relevantDiameters(inStock: readonly number[], targets: readonly number[], growthMm: number | null): number[] {
+  const sizes = [...new Set(inStock)].sort((a, b) => a - b);
+  if (targets.length === 0 || sizes.length === 0) return [];
+  const tol = STOCK_TOLERANCE_MM + 1e-9;
+  const min = Math.min(...targets) - Math.max(0, growthMm ?? 0) - tol;
+  const max = Math.max(...targets) + tol;
+  const lo = sizes.filter((d) => d <= min).pop() ?? -Infinity;
+  const hi = sizes.find((d) => d >= max) ?? Infinity;
+  return sizes.filter((d) => d >= lo && d <= hi);
+}
+
+function exactTargets(lookup: ChartDefinition["lookups"][number], law: LawSpec): number[] {
+  const grid = buildGrid({ kind: lookup.kind, rows: lookup.rows, cols: lookup.cols, law, rounding: lookup.rounding, family: null });
+  return grid.cells.flat().flatMap((c) => (c.exact.ok ? [c.exact.diameterMm] : []));
+}
+
+/** Resolves a chart definition against the lab's stock today. Pure: same inputs, same snapshot. */
+export function buildSnapshot(input: {
+  labName: string;
+  definition: ChartDefinition;
+  stock: LabStock;
+  logoSha256: string | null;
+}): Snapshot {
+  const { definition: def, stock } = input;
+  const lookups = def.lookups.map((l): SnapshotLookup => {
+    const grid = buildGrid({ kind: l.kind, rows: l.rows, cols: l.cols, law: def.law, rounding: l.rounding, family: null });
+    const fam = stock.balloonFamilies.find((f) => f.id === l.familyId);
+    const family: BalloonFamilyStock | null = fam
+      ? {
+          name: fam.name,
+          compliance: fam.compliance,
+          nominalAtm: fam.nominalAtm,
+          rbpAtm: fam.rbpAtm,
+          growthAtRbpMm: fam.growthAtRbpMm,
+          diameters: relevantDiameters(
+            fam.balloons.filter((b) => b.inStock).map((b) => round2(b.diameterMm)),
+            exactTargets(l, def.law),
+            l.rounding === "reach" ? fam.growthAtRbpMm : null,
+          ),
+        }
+      : null;
+    return { kind: l.kind, rows: grid.rowAxis.values, cols: grid.colAxis.values, rounding: l.rounding, family };
+  });
+  const platform = def.stentPlatformId ? stock.stentPlatforms.find((p) => p.id === def.stentPlatformId) : undefined;
+  return {
+    format: 1,
+    lab: { name: input.labName },
+    title: def.title,
+    notes: def.notes,
+    paper: def.paper,
+    orientation: def.orientation,
+    readingDistanceM: def.readingDistanceM,
+    law: def.law,
+    lookups,
+    stent: platform
+      ? {
+          name: platform.name,
+          sizes: [...platform.sizes]
+            .map((s) => ({ nominalMm: round2(s.nominalMm), maxPostDilatationMm: round2(s.maxPostDilatationMm) }))
+            .sort((a, b) => a.nominalMm - b.nominalMm),
+        }
+      : null,
+    logoSha256: input.logoSha256,
+    caution: CAUTION_TEXT,
+  };
+}
+
+/** Why a snapshot cannot become an edition (empty when it can). */
+export function snapshotProblems(snapshot: Snapshot, definition: ChartDefinition): string[] {
+  const problems: string[] = [];
+  snapshot.lookups.forEach((l, i) => {
+    if (!l.family) problems.push(`Lookup ${i + 1} (${l.kind}) uses a balloon family that no longer exists: choose another.`);
+  });
+  if (definition.stentPlatformId && !snapshot.stent) problems.push("The chosen stent platform no longer exists: choose another or none.");
+  return problems;
+}
+
+/** The grids a snapshot prints: the one grid model, never recomputed elsewhere. */
+export function snapshotGrids(snapshot: Snapshot): Grid[] {
+  return snapshot.lookups.map((l) =>
+    buildGrid({
+      kind: l.kind,
+      rows: l.rows,
+      cols: l.cols,
+      law: snapshot.law,
+      rounding: l.rounding,
+      family: l.family,
+      stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
+    }),
+  );
+}

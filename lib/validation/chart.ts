@@ -1,0 +1,90 @@
+import { z } from "zod";
+import { ORIENTATIONS, PAPER_IDS } from "@/lib/poster/paper";
+import {
+  FINET_DEFAULT_RATIO,
+  FINET_RATIO_MAX,
+  FINET_RATIO_MIN,
+  POWER_N_MAX,
+  POWER_N_MIN,
+  resolveAxis,
+  type AxisInput,
+} from "@/lib/sizing";
+
+export const LOOKUP_KINDS = ["proximal", "side", "main"] as const;
+export const ROUNDING_RULES = ["up", "down", "nearest", "reach"] as const;
+export const READING_DISTANCE_MIN_M = 0.5;
+export const READING_DISTANCE_MAX_M = 10;
+
+export const lawSpecSchema = z.discriminatedUnion(
+  "law",
+  [
+    z.object({
+      law: z.literal("finet"),
+      ratio: z
+        .number()
+        .min(FINET_RATIO_MIN, `The Finet ratio must be at least ${FINET_RATIO_MIN}`)
+        .max(FINET_RATIO_MAX, `The Finet ratio must be at most ${FINET_RATIO_MAX}`)
+        .default(FINET_DEFAULT_RATIO),
+    }),
+    z.object({ law: z.literal("murray") }),
+    z.object({ law: z.literal("huo-kassab") }),
+    z.object({ law: z.literal("square") }),
+    z.object({
+      law: z.literal("power"),
+      n: z.number().min(POWER_N_MIN, `n must be at least ${POWER_N_MIN}`).max(POWER_N_MAX, `n must be at most ${POWER_N_MAX}`),
+    }),
+  ],
+  { error: "Choose a law: finet, murray, huo-kassab, square or power" },
+);
+
+const axisSchema = z
+  .union([
+    z.array(z.number()).min(1, "Give at least one value").max(30),
+    z.object({ from: z.number(), to: z.number(), step: z.number() }).strict(),
+  ])
+  .superRefine((axis, ctx) => {
+    const resolved = resolveAxis(axis as AxisInput);
+    if (!resolved.ok) ctx.addIssue({ code: "custom", message: resolved.reason });
+  });
+
+export const lookupSchema = z
+  .object({
+    kind: z.enum(LOOKUP_KINDS, { error: "Lookup kind must be proximal, side or main" }),
+    rows: axisSchema,
+    cols: axisSchema,
+    rounding: z.enum(ROUNDING_RULES, { error: "Rounding must be up, down, nearest or reach" }),
+    familyId: z.number().int().positive("Choose a balloon family"),
+  })
+  .strict();
+
+export const chartDefinitionSchema = z
+  .object({
+    title: z.string().trim().min(1, "Give the chart a title").max(120, "Keep the title under 120 characters"),
+    law: lawSpecSchema,
+    lookups: z
+      .array(lookupSchema)
+      .min(1, "A chart has at least one lookup")
+      .max(3, "A chart has at most three lookups")
+      .superRefine((lookups, ctx) => {
+        const seen = new Set<string>();
+        lookups.forEach((l, i) => {
+          if (seen.has(l.kind)) ctx.addIssue({ code: "custom", path: [i, "kind"], message: `The ${l.kind} lookup appears twice` });
+          seen.add(l.kind);
+        });
+      }),
+    stentPlatformId: z.number().int().positive().nullable().default(null),
+    paper: z.enum(PAPER_IDS, { error: `Paper must be one of ${PAPER_IDS.join(", ")}` }),
+    orientation: z.enum(ORIENTATIONS, { error: "Orientation must be portrait or landscape" }),
+    readingDistanceM: z
+      .number()
+      .min(READING_DISTANCE_MIN_M, `Reading distance must be at least ${READING_DISTANCE_MIN_M} m`)
+      .max(READING_DISTANCE_MAX_M, `Reading distance must be at most ${READING_DISTANCE_MAX_M} m`),
+    notes: z.string().trim().max(600, "Keep notes under 600 characters").default(""),
+  })
+  .strict();
+
+export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
+export type LookupDefinition = z.infer<typeof lookupSchema>;
+
+/** PATCH accepts any subset of the definition; the merged result is validated whole. */
+export const chartPatchSchema = chartDefinitionSchema.partial().strict();
