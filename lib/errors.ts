@@ -49,8 +49,9 @@ export const notFound = (what = "That") => new AppError("not_found", `${what} wa
 /** zod-style issues -> a 400 that names each field and why. */
 export function invalidInput(issues: { path: readonly PropertyKey[]; message: string }[], message?: string): AppError {
   const list = issues.map((i) => ({ path: i.path.map((p) => (typeof p === "number" ? p : String(p))), message: i.message }));
-  const first = list[0];
-  const summary = message ?? (first ? `${first.path.length ? first.path.join(".") + ": " : ""}${first.message}` : "Invalid input.");
+  const describe = (i: FieldIssue) => `${i.path.length ? i.path.join(".") + ": " : ""}${i.message}`;
+  const summary =
+    message ?? (list.length === 0 ? "Invalid input." : list.length === 1 ? describe(list[0]!) : `${list.length} problems; first, ${describe(list[0]!)}`);
   return new AppError("invalid_input", summary, list);
 }
 

@@ -149,14 +149,3 @@ export function queryRecord(params: URLSearchParams): QueryRecord {
   }
   return out;
 }
-
-/** The HTTP 400 body for a rejected solve query. */
-export function invalidInputBody(issues: QueryIssue[]): {
-  error: { code: "invalid_input"; message: string; issues: QueryIssue[] };
-} {
-  const message =
-    issues.length === 1 && issues[0]
-      ? issues[0].message
-      : `The query has ${issues.length} problems`;
-  return { error: { code: "invalid_input", message, issues } };
-}

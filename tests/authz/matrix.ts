@@ -44,6 +44,7 @@ export function statuses(allowed: readonly Actor[], ok: number, denied = 403, an
 
 export const ROUTES: RouteRow[] = [
   { kind: "route", method: "GET", route: "/api/health", url: "/api/health", expect: statuses(["anonymous", ...ALL_ROLES], 200) },
+  { kind: "route", method: "GET", route: "/api/v1/solve", url: "/api/v1/solve?law=murray&mb=3&sb=2", expect: statuses(["anonymous", ...ALL_ROLES], 200), note: "public: holds no lab data" },
 ];
 
 export const ACTIONS: ActionRow[] = [];

@@ -1,6 +1,6 @@
+import { errorBody, invalidInput } from "@/lib/errors";
 import { describe, expect, it } from "vitest";
 import {
-  invalidInputBody,
   parseSolveQuery,
   queryRecord,
   solveQuerySchema,
@@ -156,17 +156,15 @@ describe("400 cases", () => {
 });
 
 describe("HTTP 400 body", () => {
-  it("has the error code, a message and the issues", () => {
+  it("has the error code, a message naming the field, and the issues", () => {
     const list = issues("law=murray&mb=0&sb=2");
-    expect(invalidInputBody(list)).toEqual({
+    expect(errorBody(invalidInput(list))).toEqual({
       error: {
         code: "invalid_input",
-        message: "Must be greater than 0 mm",
+        message: "mb: Must be greater than 0 mm",
         issues: [{ path: ["mb"], message: "Must be greater than 0 mm" }],
       },
     });
-    expect(invalidInputBody(issues("law=cube&mb=0&sb=2")).error.message).toBe(
-      "The query has 2 problems",
-    );
+    expect(errorBody(invalidInput(issues("law=cube&mb=0&sb=2"))).error.message).toMatch(/^2 problems; first, /);
   });
 });

@@ -1,0 +1,75 @@
+import { describe, expect, it } from "vitest";
+import { GET } from "@/app/api/v1/solve/route";
+
+const call = async (query: string) => {
+  const res = await GET(new Request(`http://localhost/api/v1/solve?${query}`), { params: Promise.resolve({}) });
+  return { status: res.status, body: await res.json() };
+};
+
+describe("GET /api/v1/solve", () => {
+  it("solves the parent with Finet: 0.678 x (3.5 + 2.5) = 4.068 (Finet et al., EuroIntervention 2008)", async () => {
+    const { status, body } = await call("law=finet&mb=3.5&sb=2.5");
+    expect(status).toBe(200);
+    expect(body).toMatchObject({ law: "finet", solved: "parent" });
+    expect(body.diameterMm).toBeCloseTo(4.068, 12);
+    expect(body.formula).toContain("0.678");
+    // SB/MB = 0.71, below the 0.75 where Finet's ratio fitted best (Huo et al. 2012).
+    expect(body.warnings.join(" ")).toMatch(/fit/i);
+  });
+
+  it("has no warning inside Finet's published fit: 0.678 x (3.5 + 3.0) = 4.407", async () => {
+    const { body } = await call("law=finet&mb=3.5&sb=3");
+    expect(body.diameterMm).toBeCloseTo(4.407, 12);
+    expect(body.warnings).toEqual([]);
+  });
+
+  it("solves the side branch with Murray: (4^3 - 3.5^3)^(1/3) (Murray, PNAS 1926)", async () => {
+    const { status, body } = await call("law=murray&parent=4&mb=3.5");
+    expect(status).toBe(200);
+    expect(body.solved).toBe("sb");
+    expect(body.diameterMm).toBeCloseTo(Math.cbrt(64 - 42.875), 12);
+  });
+
+  it("a power law needs n within 1.5..3.5", async () => {
+    expect((await call("law=power&n=2.3&mb=3&sb=2")).status).toBe(200);
+    const missing = await call("law=power&mb=3&sb=2");
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.issues.map((i: { path: string[] }) => i.path[0])).toContain("n");
+    expect((await call("law=power&n=4&mb=3&sb=2")).status).toBe(400);
+  });
+
+  it.each([
+    ["missing a diameter", "law=murray&mb=3", ""],
+    ["three diameters", "law=murray&parent=4&mb=3&sb=2", ""],
+    ["a non-number", "law=murray&mb=abc&sb=2", "mb"],
+    ["NaN", "law=murray&mb=NaN&sb=2", "mb"],
+    ["Infinity", "law=murray&mb=Infinity&sb=2", "mb"],
+    ["zero", "law=murray&mb=0&sb=2", "mb"],
+    ["negative", "law=murray&mb=-3&sb=2", "mb"],
+    ["over 10 mm", "law=murray&mb=10.5&sb=2", "mb"],
+    ["an unknown law", "law=cube&mb=3&sb=2", "law"],
+    ["a ratio out of range", "law=finet&ratio=0.9&mb=3&sb=2", "ratio"],
+    ["a ratio on a law without one", "law=murray&ratio=0.7&mb=3&sb=2", "ratio"],
+    ["an over-long value", `law=murray&mb=3.${"0".repeat(30)}&sb=2`, "mb"],
+    ["an unknown key", "law=murray&mb=3&sb=2&x=1", "x"],
+  ])("400 for %s, naming the field", async (_name, query, field) => {
+    const { status, body } = await call(query);
+    expect(status).toBe(400);
+    expect(body.error.code).toBe("invalid_input");
+    expect(body.error.message.length).toBeGreaterThan(0);
+    expect(body.error.issues.length).toBeGreaterThan(0);
+    if (field) expect(body.error.issues.map((i: { path: string[] }) => i.path[0])).toContain(field);
+  });
+
+  it.each([
+    ["Finet parent below the main branch (side branch under 0.47 of it)", "law=finet&mb=4&sb=1"],
+    ["a side branch larger than the main branch", "law=square&mb=2&sb=3"],
+    ["a main branch at or above the parent", "law=murray&parent=3&mb=3.2"],
+  ])("422 no_solution for %s, never a number", async (_name, query) => {
+    const { status, body } = await call(query);
+    expect(status).toBe(422);
+    expect(body.error.code).toBe("no_solution");
+    expect(body.error.message).toMatch(/\w/);
+    expect(body.diameterMm).toBeUndefined();
+  });
+});
