@@ -13,6 +13,7 @@ const COMMANDS = {
   start: { entry: "db/start.ts", args: ["serve"], packages: ["server"] },
   dev: { entry: "db/start.ts", args: ["dev"], packages: ["server"] },
   "db:stop": { entry: "db/start.ts", args: ["stop"], packages: [] },
+  "db:up": { entry: "db/start.ts", args: ["up"], packages: ["server"] },
   test: { entry: "tests/run.ts", args: [], packages: ["server", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
 };

@@ -44,6 +44,12 @@ async function shutdown(code: number) {
 }
 for (const sig of ["SIGINT", "SIGTERM", "SIGHUP"] as const) process.on(sig, () => void shutdown(0));
 
+if (mode === "up") {
+  await provision(env, { log: say });
+  say("database left running; `npm run db:stop` stops it");
+  process.exit(0);
+}
+
 try {
   await provision(env, { log: say });
   if (env.MAIL_FAKE_URL) {

@@ -11,7 +11,8 @@ export type Member = {
   role: Role;
 };
 
-type LabRef = { slug: string } | { labId: number };
+/** Which lab: by slug, by id, or through a resource that belongs to one (null when it does not exist). */
+type LabRef = { slug: string } | { labId: number } | { via: () => Promise<number | null>; what: string };
 
 /**
  * Resolves the signed-in member's role in a lab and checks a capability, in this order:
@@ -20,8 +21,15 @@ type LabRef = { slug: string } | { labId: number };
 export async function requireMember(ref: LabRef, capability: Capability): Promise<Member> {
   const user = await currentUser();
   if (!user) throw unauthenticated();
-  const lab = "slug" in ref ? await findLabWithRole({ slug: ref.slug, userId: user.id }) : await findLabByIdWithRole({ labId: ref.labId, userId: user.id });
-  if (!lab || !lab.role) throw notFound("Lab");
+  let lab;
+  if ("slug" in ref) lab = await findLabWithRole({ slug: ref.slug, userId: user.id });
+  else {
+    const labId = "labId" in ref ? ref.labId : await ref.via();
+    if (labId === null) throw notFound("via" in ref ? ref.what : "Lab");
+    lab = await findLabByIdWithRole({ labId, userId: user.id });
+  }
+  // A lab the person is not in answers exactly like one that does not exist.
+  if (!lab || !lab.role) throw notFound("via" in ref ? ref.what : "Lab");
   if (!can(lab.role, capability)) throw forbidden();
   const { role, ...rest } = lab;
   return { user, lab: rest, role };
@@ -39,10 +47,12 @@ export function parseWith<S extends z.ZodType>(schema: S, input: unknown): z.inf
   return parsed.data;
 }
 
-export async function readJson(req: Request): Promise<unknown> {
+/** The request's JSON body; with `optional`, an empty body reads as {}. */
+export async function readJson(req: Request, opts: { optional?: boolean } = {}): Promise<unknown> {
+  const text = await req.text();
+  if (opts.optional && text.trim() === "") return {};
   const type = req.headers.get("content-type") ?? "";
   if (!type.includes("application/json")) throw new AppError("invalid_input", "Send a JSON body (Content-Type: application/json).");
-  const text = await req.text();
   if (text.length > 256 * 1024) throw new AppError("payload_too_large", "The JSON body is larger than 256 KB.");
   try {
     return JSON.parse(text);

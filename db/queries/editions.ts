@@ -1,0 +1,160 @@
+import "server-only";
+import { randomBytes } from "node:crypto";
+import { and, desc, eq, max, ne } from "drizzle-orm";
+import { describeChanges } from "@/lib/charts/changes";
+import { fingerprintOf } from "@/lib/charts/fingerprint";
+import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
+import { canTransition, type EditionStatus } from "@/lib/editions/states";
+import { AppError, notFound } from "@/lib/errors";
+import { db } from "../index";
+import { charts, editions, logos, users } from "../schema";
+import { recordAudit, type Tx } from "./audit";
+import { loadLabStock, lockLab, parseDefinition, refreshLiveSnapshots } from "./charts";
+
+type Actor = { id: number; name: string };
+
+/** 144 random bits, URL-safe: the edition's check-page token. */
+const newCheckToken = () => randomBytes(18).toString("base64url");
+
+export async function findEditionLab({ editionId }: { editionId: number }) {
+  const [row] = await db.select({ labId: editions.labId }).from(editions).where(eq(editions.id, editionId));
+  return row?.labId ?? null;
+}
+
+export async function getEdition({ labId, editionId }: { labId: number; editionId: number }) {
+  const [row] = await db
+    .select({ edition: editions, chartTitle: charts.title, createdByName: users.name })
+    .from(editions)
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .leftJoin(users, eq(users.id, editions.createdBy))
+    .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
+  if (!row) return null;
+  return { ...row.edition, snapshot: row.edition.snapshot as Snapshot, chartTitle: row.chartTitle, createdByName: row.createdByName };
+}
+
+export async function listEditions({ labId, chartId }: { labId: number; chartId: number }) {
+  return db
+    .select({
+      id: editions.id,
+      number: editions.number,
+      status: editions.status,
+      fingerprint: editions.fingerprint,
+      checkToken: editions.checkToken,
+      createdAt: editions.createdAt,
+      createdBy: editions.createdBy,
+      createdByName: users.name,
+      approvedAt: editions.approvedAt,
+      approvedByName: editions.approvedByName,
+      rejectedAt: editions.rejectedAt,
+      rejectionReason: editions.rejectionReason,
+      withdrawnAt: editions.withdrawnAt,
+    })
+    .from(editions)
+    .leftJoin(users, eq(users.id, editions.createdBy))
+    .where(and(eq(editions.labId, labId), eq(editions.chartId, chartId)))
+    .orderBy(desc(editions.number));
+}
+
+/** Freezes what the chart prints today into a new numbered draft. */
+export async function createEdition({ labId, chartId, actor }: { labId: number; chartId: number; actor: Actor }) {
+  return db.transaction(async (tx) => {
+    const lab = await lockLab(tx, labId);
+    const [chart] = await tx
+      .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
+      .from(charts)
+      .leftJoin(logos, eq(logos.id, charts.logoId))
+      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    if (!chart) throw notFound("Chart");
+    const definition = parseDefinition(chart.definition);
+    const snapshot = buildSnapshot({ labName: lab.name, definition, stock: await loadLabStock(tx, labId), logoSha256: chart.logoSha256 ?? null });
+    const problems = snapshotProblems(snapshot, definition);
+    if (problems.length) throw new AppError("unprocessable", problems.join(" "));
+    const fingerprint = fingerprintOf(snapshot);
+    const [last] = await tx.select({ n: max(editions.number) }).from(editions).where(eq(editions.chartId, chartId));
+    const number = (last?.n ?? 0) + 1;
+    const checkToken = newCheckToken();
+    const [row] = await tx.insert(editions).values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id }).$returningId();
+    await refreshLiveSnapshots(tx, labId);
+    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.created", targetType: "edition", targetId: row!.id, detail: { chartId, number, fingerprint } });
+    return { id: row!.id, number, fingerprint, checkToken };
+  });
+}
+
+/** The one guarded path for every edition state change; the database triggers agree with it. */
+async function transition(
+  tx: Tx,
+  { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus | "rejected" },
+) {
+  const [ed] = await tx.select().from(editions).where(and(eq(editions.id, editionId), eq(editions.labId, labId))).for("update");
+  if (!ed) throw notFound("Edition");
+  const target: EditionStatus = to === "rejected" ? "draft" : to;
+  if (to === "rejected" ? ed.status !== "draft" : !canTransition(ed.status, target)) {
+    throw new AppError("conflict", `Edition ${ed.number} is ${ed.status}; it cannot be ${to === "rejected" ? "rejected" : `made ${to}`}.`);
+  }
+  return ed;
+}
+
+export async function approveEdition({ labId, editionId, actor }: { labId: number; editionId: number; actor: Actor }) {
+  return db.transaction(async (tx) => {
+    await lockLab(tx, labId);
+    const ed = await transition(tx, { labId, editionId, to: "approved" });
+    if (ed.createdBy === actor.id) {
+      throw new AppError("forbidden", "You drafted this edition, so someone else (a manager or the medical lead) must approve it.");
+    }
+    const [chart] = await tx.select({ liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot }).from(charts).where(eq(charts.id, ed.chartId));
+    if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
+      const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
+      throw new AppError(
+        "conflict",
+        `This draft no longer matches the lab's stock and settings${changes.length ? ` (${changes.slice(0, 3).join("; ")})` : ""}. Create a new edition and approve that.`,
+      );
+    }
+    const now = new Date();
+    const previous = await tx
+      .select({ id: editions.id, number: editions.number })
+      .from(editions)
+      .where(and(eq(editions.chartId, ed.chartId), eq(editions.status, "approved"), ne(editions.id, ed.id)));
+    for (const p of previous) {
+      await tx.update(editions).set({ status: "superseded", supersededAt: now }).where(and(eq(editions.id, p.id), eq(editions.labId, labId)));
+    }
+    await tx
+      .update(editions)
+      .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
+      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "edition.approved",
+      targetType: "edition",
+      targetId: ed.id,
+      detail: { chartId: ed.chartId, number: ed.number, fingerprint: ed.fingerprint, superseded: previous.map((p) => p.number) },
+    });
+    return { id: ed.id, number: ed.number, superseded: previous };
+  });
+}
+
+export async function rejectEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string }) {
+  return db.transaction(async (tx) => {
+    const ed = await transition(tx, { labId, editionId, to: "rejected" });
+    await tx
+      .update(editions)
+      .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
+      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.rejected", targetType: "edition", targetId: ed.id, detail: { number: ed.number, reason } });
+    return { id: ed.id, number: ed.number };
+  });
+}
+
+export async function withdrawEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string | null }) {
+  return db.transaction(async (tx) => {
+    await lockLab(tx, labId);
+    const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
+    await tx
+      .update(editions)
+      .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
+      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.withdrawn", targetType: "edition", targetId: ed.id, detail: { number: ed.number, was: ed.status, reason } });
+    return { id: ed.id, number: ed.number, was: ed.status };
+  });
+}
