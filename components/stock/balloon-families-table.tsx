@@ -65,7 +65,7 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
         cell: ({ row }) => {
           const f = row.original;
           return (
-            <div className="flex flex-wrap justify-end gap-1">
+            <div className="flex justify-end gap-1 whitespace-nowrap">
               <Button type="button" variant="ghost" className="px-2 py-1" aria-expanded={row.getIsExpanded()} onClick={row.getToggleExpandedHandler()}>
                 {row.getIsExpanded() ? "Hide sizes" : "Show sizes"}
                 <span className="sr-only"> of {f.name}</span>
@@ -224,7 +224,7 @@ function BalloonSizes({
               header: () => <span className="sr-only">Actions</span>,
               enableSorting: false,
               cell: ({ row }) => (
-                <div className="flex justify-end gap-1">
+                <div className="flex justify-end gap-1 whitespace-nowrap">
                   <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => onDialog({ kind: "balloon", family, balloon: row.original })}>
                     Edit<span className="sr-only"> {formatMm(row.original.diameterMm)} mm</span>
                   </Button>
@@ -264,7 +264,7 @@ function BalloonSizes({
         <p className="text-sm text-ink-soft">No sizes recorded for this family yet.</p>
       ) : (
         <div className="max-w-xl">
-          <StockTable table={table} caption={`Sizes of ${family.name}`} testId={`sizes-${family.id}`} />
+          <StockTable dense table={table} caption={`Sizes of ${family.name}`} testId={`sizes-${family.id}`} />
         </div>
       )}
     </div>

@@ -47,7 +47,7 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
         cell: ({ row }) => {
           const p = row.original;
           return (
-            <div className="flex flex-wrap justify-end gap-1">
+            <div className="flex justify-end gap-1 whitespace-nowrap">
               <Button type="button" variant="ghost" className="px-2 py-1" aria-expanded={row.getIsExpanded()} onClick={row.getToggleExpandedHandler()}>
                 {row.getIsExpanded() ? "Hide sizes" : "Show sizes"}
                 <span className="sr-only"> of {p.name}</span>
@@ -164,7 +164,7 @@ function PlatformSizes({ platform, canEdit, onDialog }: { platform: StentPlatfor
               header: () => <span className="sr-only">Actions</span>,
               enableSorting: false,
               cell: ({ row }) => (
-                <div className="flex justify-end gap-1">
+                <div className="flex justify-end gap-1 whitespace-nowrap">
                   <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => onDialog({ kind: "size", platform, size: row.original })}>
                     Edit<span className="sr-only"> {formatMm(row.original.nominalMm)} mm</span>
                   </Button>
@@ -204,7 +204,7 @@ function PlatformSizes({ platform, canEdit, onDialog }: { platform: StentPlatfor
         <p className="text-sm text-ink-soft">No sizes recorded for this platform yet.</p>
       ) : (
         <div className="max-w-xl">
-          <StockTable table={table} caption={`Sizes of ${platform.name}`} testId={`stent-sizes-${platform.id}`} />
+          <StockTable dense table={table} caption={`Sizes of ${platform.name}`} testId={`stent-sizes-${platform.id}`} />
         </div>
       )}
     </div>

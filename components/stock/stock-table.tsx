@@ -4,8 +4,21 @@ import { flexRender, type Row, type Table } from "@tanstack/react-table";
 import { Fragment, type ReactNode } from "react";
 
 /** Renders a TanStack table with sortable headers (buttons, aria-sort) and optional detail rows. */
-export function StockTable<T>({ table, caption, renderDetail, testId }: { table: Table<T>; caption: string; renderDetail?: (row: Row<T>) => ReactNode; testId?: string }) {
+export function StockTable<T>({
+  table,
+  caption,
+  renderDetail,
+  testId,
+  dense = false,
+}: {
+  table: Table<T>;
+  caption: string;
+  renderDetail?: (row: Row<T>) => ReactNode;
+  testId?: string;
+  dense?: boolean;
+}) {
   const columns = table.getVisibleLeafColumns().length;
+  const pad = dense ? "px-3 py-1" : "px-3 py-2";
   return (
     <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full border-collapse text-sm" data-testid={testId}>
@@ -45,11 +58,11 @@ export function StockTable<T>({ table, caption, renderDetail, testId }: { table:
               <tr className="border-t border-line align-middle">
                 {row.getVisibleCells().map((cell, i) =>
                   i === 0 ? (
-                    <th key={cell.id} scope="row" className="px-3 py-2 text-left font-medium">
+                    <th key={cell.id} scope="row" className={`${pad} text-left font-medium`}>
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </th>
                   ) : (
-                    <td key={cell.id} className="px-3 py-2">
+                    <td key={cell.id} className={pad}>
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   ),

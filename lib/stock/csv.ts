@@ -35,6 +35,12 @@ export type ParsedCsv = {
   issues: LineIssue[];
 };
 
+// Built once: zod schemas are costly to construct and are reused for every line.
+const familyName = stockName("Family");
+const diameter = diameterMm();
+const nominalPressure = pressureAtm("Nominal pressure");
+const burstPressure = pressureAtm("Rated burst pressure");
+
 const COLUMN_LIST = `${REQUIRED_COLUMNS.join(", ")} and optionally ${OPTIONAL_COLUMNS.join(", ")}`;
 
 /** A header with a semicolon means a semicolon file (as spreadsheets write where the decimal mark is a comma). */
@@ -125,7 +131,9 @@ function readHeader(fields: string[], line: number, issues: LineIssue[]): Column
 
 function readRow(fields: string[], columns: Column[], delimiter: string, line: number, issues: LineIssue[]): CsvRow | null {
   const extra = fields.slice(columns.length);
-  if (fields.length < columns.length || extra.some((f) => f.trim() !== "")) {
+  // Missing trailing optional fields read as empty; a missing required one or extra content is an error.
+  const missingRequired = columns.slice(fields.length).some((c) => (REQUIRED_COLUMNS as readonly string[]).includes(c));
+  if (missingRequired || extra.some((f) => f.trim() !== "")) {
     const hint =
       delimiter === "," && fields.length > columns.length
         ? ' A decimal comma in a comma-separated file must be quoted ("2,75"), or use a decimal point (2.75).'
@@ -140,14 +148,14 @@ function readRow(fields: string[], columns: Column[], delimiter: string, line: n
   const before = issues.length;
   const fail = (column: Column, message: string) => issues.push({ line, column, message: `${column}: ${message}` });
 
-  const family = stockName("Family").safeParse(value("family"));
+  const family = familyName.safeParse(value("family"));
   if (!family.success) fail("family", value("family") === "" ? "is empty." : firstMessage(family));
 
   const rawCompliance = value("compliance").toLowerCase();
   const comp = compliance.safeParse(rawCompliance);
   if (!comp.success) fail("compliance", rawCompliance === "" ? 'is empty: write "nc" (non-compliant) or "sc" (semi-compliant).' : `"${value("compliance")}" is not "nc" or "sc".`);
 
-  const diameter = number(value("diameter_mm"), "diameter_mm", true, (n) => diameterMm().safeParse(n), fail);
+  const diameterValue = number(value("diameter_mm"), "diameter_mm", true, (n) => diameter.safeParse(n), fail);
 
   const rawStock = value("in_stock").toLowerCase();
   const stock = IN_STOCK_WORDS[rawStock];
@@ -155,17 +163,17 @@ function readRow(fields: string[], columns: Column[], delimiter: string, line: n
     fail("in_stock", rawStock === "" ? "is empty: write yes or no." : `"${value("in_stock")}" is not one of yes, no, y, n, true, false, 1, 0.`);
   }
 
-  const nominal = number(value("nominal_atm"), "nominal_atm", false, (n) => pressureAtm("Nominal pressure").safeParse(n), fail);
-  const rbp = number(value("rbp_atm"), "rbp_atm", false, (n) => pressureAtm("Rated burst pressure").safeParse(n), fail);
+  const nominal = number(value("nominal_atm"), "nominal_atm", false, (n) => nominalPressure.safeParse(n), fail);
+  const rbp = number(value("rbp_atm"), "rbp_atm", false, (n) => burstPressure.safeParse(n), fail);
   const growth = number(value("growth_at_rbp_mm"), "growth_at_rbp_mm", false, (n) => growthMm.safeParse(n), fail);
   if (nominal !== undefined && rbp !== undefined && nominal >= rbp) fail("rbp_atm", `the rated burst pressure (${rbp} atm) must be above the nominal pressure (${nominal} atm).`);
 
-  if (issues.length > before || !family.success || !comp.success || diameter === undefined || stock === undefined) return null;
+  if (issues.length > before || !family.success || !comp.success || diameterValue === undefined || stock === undefined) return null;
   return {
     line,
     family: family.data,
     compliance: comp.data,
-    diameterMm: diameter,
+    diameterMm: diameterValue,
     inStock: stock,
     ...(nominal !== undefined ? { nominalAtm: nominal } : {}),
     ...(rbp !== undefined ? { rbpAtm: rbp } : {}),
