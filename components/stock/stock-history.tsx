@@ -10,6 +10,9 @@ export type StockHistoryEvent = {
   actorName: string | null;
 };
 
+// A big import can touch thousands of sizes; the page lists the first of them.
+const ROWS_SHOWN = 200;
+
 const when = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 const summaryOf = (detail: unknown) => (typeof detail === "object" && detail && "summary" in detail ? String((detail as { summary: unknown }).summary) : "");
 const revisionOf = (detail: unknown) => (typeof detail === "object" && detail && "revision" in detail ? Number((detail as { revision: unknown }).revision) : null);
@@ -46,7 +49,7 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
                 {rows.length ? (
                   <details className="mt-1 text-sm">
                     <summary className="cursor-pointer text-brand-700">Before and after ({rows.length})</summary>
-                    <div className="mt-2 max-h-80 overflow-auto">
+                    <div className="relative mt-2 max-h-80 overflow-auto">
                       <table className="w-full text-left">
                         <caption className="sr-only">Before and after</caption>
                         <thead className="text-ink-soft">
@@ -63,7 +66,7 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
                           </tr>
                         </thead>
                         <tbody>
-                          {rows.map((r, i) => (
+                          {rows.slice(0, ROWS_SHOWN).map((r, i) => (
                             <tr key={i} className="border-t border-line align-top">
                               <th scope="row" className="py-1 pr-4 font-normal">
                                 {r.label}
@@ -74,6 +77,7 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
                           ))}
                         </tbody>
                       </table>
+                      {rows.length > ROWS_SHOWN ? <p className="mt-1 text-ink-faint">and {rows.length - ROWS_SHOWN} more changes not listed here.</p> : null}
                     </div>
                   </details>
                 ) : null}

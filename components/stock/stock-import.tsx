@@ -14,7 +14,7 @@ import { stockUrl } from "./stock-api";
 
 type Phase =
   | { step: "idle" }
-  | { step: "sending"; file: File; verb: "Checking" | "Applying"; percent: number; preview?: ImportResult }
+  | { step: "sending"; file: File; verb: "Checking" | "Applying"; percent: number }
   | { step: "preview"; file: File; result: ImportResult }
   | { step: "failed"; file?: File; message: string; issues: FieldIssue[] }
   | { step: "applied"; file: File; result: ImportResult };
@@ -63,8 +63,8 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
   };
 
   const apply = async (file: File, preview: ImportResult) => {
-    setPhase({ step: "sending", file, verb: "Applying", percent: 0, preview });
-    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) => setPhase({ step: "sending", file, verb: "Applying", percent, preview }));
+    setPhase({ step: "sending", file, verb: "Applying", percent: 0 });
+    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) => setPhase({ step: "sending", file, verb: "Applying", percent }));
     if (answer.status !== 200) return setPhase(failed(answer, file));
     setPhase({ step: "applied", file, result: answer.body as ImportResult });
     router.refresh();
@@ -252,7 +252,7 @@ function PreviewTable({ title, head, rows }: { title: string; head: string[]; ro
       <h4 className="font-semibold">
         {title} ({rows.length})
       </h4>
-      <div className="mt-1 max-h-64 overflow-auto rounded-md border border-line">
+      <div className="relative mt-1 max-h-64 overflow-auto rounded-md border border-line">
         <table className="w-full text-sm">
           <caption className="sr-only">{title}</caption>
           <thead className="sticky top-0 bg-paper-sunk text-left">

@@ -20,7 +20,7 @@ export function StockTable<T>({
   const columns = table.getVisibleLeafColumns().length;
   const pad = dense ? "px-3 py-1" : "px-3 py-2";
   return (
-    <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full border-collapse text-sm" data-testid={testId}>
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-paper-sunk text-left">
