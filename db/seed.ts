@@ -4,6 +4,7 @@ import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import type { Role } from "@/lib/permissions";
 import type { Database } from "./index";
 import { labs, memberships, users } from "./schema";
+import { seedDemoStock } from "./seed-stock";
 
 export const DEMO_PASSWORD = "forkwall-demo-2026";
 
@@ -53,6 +54,7 @@ export async function seedDemo(db: Database): Promise<void> {
       if (!m) await db.insert(memberships).values({ labId, userId, role: role!, notifyStale: role === "educator" });
     }
   }
+  await seedDemoStock(db, labIds);
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

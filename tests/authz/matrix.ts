@@ -42,9 +42,35 @@ export function statuses(allowed: readonly Actor[], ok: number, denied = 403, an
   return out;
 }
 
+const STOCK = "/api/v1/labs/[slug]/stock";
+const demoStock = "/api/v1/labs/demo/stock";
+// Writes: managers get 400 (empty body, id 0 or no file), so walking the table changes nothing.
+const stockWrite = (method: HttpMethod, path: string, url: string, body?: unknown): RouteRow => ({
+  kind: "route",
+  method,
+  route: `${STOCK}${path}`,
+  url: `${demoStock}${url}`,
+  ...(body === undefined ? {} : { body }),
+  expect: statuses(["manager"], 400),
+});
+
 export const ROUTES: RouteRow[] = [
   { kind: "route", method: "GET", route: "/api/health", url: "/api/health", expect: statuses(["anonymous", ...ALL_ROLES], 200) },
   { kind: "route", method: "GET", route: "/api/v1/solve", url: "/api/v1/solve?law=murray&mb=3&sb=2", expect: statuses(["anonymous", ...ALL_ROLES], 200), note: "public: holds no lab data" },
+  { kind: "route", method: "GET", route: STOCK, url: demoStock, expect: statuses(ALL_ROLES, 200) },
+  stockWrite("POST", "/families", "/families", {}),
+  stockWrite("PATCH", "/families/[id]", "/families/0", {}),
+  stockWrite("DELETE", "/families/[id]", "/families/0"),
+  stockWrite("POST", "/families/[id]/balloons", "/families/0/balloons", {}),
+  stockWrite("PATCH", "/balloons/[id]", "/balloons/0", {}),
+  stockWrite("DELETE", "/balloons/[id]", "/balloons/0"),
+  stockWrite("POST", "/platforms", "/platforms", {}),
+  stockWrite("PATCH", "/platforms/[id]", "/platforms/0", {}),
+  stockWrite("DELETE", "/platforms/[id]", "/platforms/0"),
+  stockWrite("POST", "/platforms/[id]/sizes", "/platforms/0/sizes", {}),
+  stockWrite("PATCH", "/sizes/[id]", "/sizes/0", {}),
+  stockWrite("DELETE", "/sizes/[id]", "/sizes/0"),
+  { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
 ];
 
 export const ACTIONS: ActionRow[] = [];

@@ -1,0 +1,9 @@
+import { createStentPlatform } from "@/db/queries/stock";
+import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
+import { stentPlatformInput } from "@/lib/validation/stock";
+
+export const POST = labRoute("stock:edit", async (req, member) => {
+  const input = parseWith(stentPlatformInput, await readJson(req));
+  const result = await createStentPlatform({ labId: member.lab.id, actorUserId: member.user.id, input });
+  return Response.json(result, { status: 201 });
+});

@@ -1,0 +1,65 @@
+"use client";
+
+import { useState } from "react";
+import { formatMm } from "@/lib/stock/format";
+import type { BalloonView } from "@/lib/stock/types";
+import { StockApiError, stockRequest, stockUrl } from "./stock-api";
+
+/** Read-only roles see the word and a mark; managers get a switch that saves at once. */
+export function InStockToggle({
+  slug,
+  family,
+  balloon,
+  canEdit,
+  onSaved,
+  onError,
+}: {
+  slug: string;
+  family: string;
+  balloon: BalloonView;
+  canEdit: boolean;
+  onSaved: (message: string) => void;
+  onError: (message: string) => void;
+}) {
+  const [shown, setShown] = useState(balloon.inStock);
+  const [pending, setPending] = useState(false);
+  const label = (on: boolean) => (
+    <>
+      <span aria-hidden className="inline-block w-4 text-center font-bold">
+        {on ? "✓" : "✕"}
+      </span>
+      {on ? "In stock" : "Out of stock"}
+    </>
+  );
+  if (!canEdit) return <span className={`inline-flex items-center gap-1 ${shown ? "text-ok" : "text-ink-faint"}`}>{label(shown)}</span>;
+
+  const toggle = async () => {
+    const next = !shown;
+    setShown(next);
+    setPending(true);
+    try {
+      await stockRequest("PATCH", stockUrl(slug, `/balloons/${balloon.id}`), { inStock: next });
+      onSaved(`${family} ${formatMm(balloon.diameterMm)} mm marked ${next ? "in stock" : "out of stock"}.`);
+    } catch (err) {
+      setShown(!next);
+      onError(err instanceof StockApiError ? err.message : "The change was not saved.");
+    } finally {
+      setPending(false);
+    }
+  };
+  return (
+    <button
+      type="button"
+      role="switch"
+      aria-checked={shown}
+      aria-label={`${family} ${formatMm(balloon.diameterMm)} mm in stock`}
+      onClick={toggle}
+      disabled={pending}
+      className={`inline-flex min-w-32 items-center gap-1 rounded-full border px-3 py-1 text-sm font-medium ${
+        shown ? "border-ok/50 bg-ok-soft text-ok" : "border-line-strong bg-paper-sunk text-ink-soft"
+      } disabled:opacity-60`}
+    >
+      {label(shown)}
+    </button>
+  );
+}

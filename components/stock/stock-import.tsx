@@ -1,0 +1,282 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useId, useRef, useState, type DragEvent } from "react";
+import { Button } from "@/components/ui/button";
+import type { FieldIssue } from "@/lib/errors";
+import { balloonStockCsv } from "@/lib/stock/export";
+import { formatAtm, formatMm } from "@/lib/stock/format";
+import { FIELD_LABELS, formatStockValue } from "@/lib/stock/history";
+import type { ImportResult } from "@/lib/stock/import-plan";
+import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
+import type { BalloonFamilyView } from "@/lib/stock/types";
+import { stockUrl } from "./stock-api";
+
+type Phase =
+  | { step: "idle" }
+  | { step: "sending"; file: File; verb: "Checking" | "Applying"; percent: number }
+  | { step: "preview"; file: File; result: ImportResult }
+  | { step: "failed"; file?: File; message: string; issues: FieldIssue[] }
+  | { step: "applied"; file: File; result: ImportResult };
+
+type Answer = { status: number; body: unknown };
+
+/** multipart upload with progress; XHR because fetch cannot report upload progress. */
+function upload(url: string, file: File, onProgress: (percent: number) => void): Promise<Answer> {
+  return new Promise((resolve) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open("POST", url);
+    xhr.responseType = "json";
+    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(Math.round((e.loaded / e.total) * 100));
+    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
+    xhr.onerror = () => resolve({ status: 0, body: null });
+    const form = new FormData();
+    form.append("file", file);
+    xhr.send(form);
+  });
+}
+
+export function StockImport({ slug, families }: { slug: string; families: BalloonFamilyView[] }) {
+  const router = useRouter();
+  const inputId = useId();
+  const input = useRef<HTMLInputElement>(null);
+  const [phase, setPhase] = useState<Phase>({ step: "idle" });
+  const [dragging, setDragging] = useState(false);
+
+  const failed = (answer: Answer, file: File): Phase => {
+    const error = (answer.body as { error?: { message?: string; issues?: FieldIssue[] } } | null)?.error;
+    const message =
+      answer.status === 0
+        ? "Could not reach the server. Check your connection and try again; nothing was changed."
+        : (error?.message ?? `The server answered ${answer.status}; nothing was changed.`);
+    return { step: "failed", file, message, issues: error?.issues ?? [] };
+  };
+
+  const check = async (file: File) => {
+    if (file.size > MAX_IMPORT_BYTES) {
+      setPhase({ step: "failed", file, message: `${file.name} is ${(file.size / 1024 / 1024).toFixed(2)} MB; the limit is 1 MB. Split it into smaller files.`, issues: [] });
+      return;
+    }
+    setPhase({ step: "sending", file, verb: "Checking", percent: 0 });
+    const answer = await upload(`${stockUrl(slug, "/import")}?dryRun=1`, file, (percent) => setPhase({ step: "sending", file, verb: "Checking", percent }));
+    setPhase(answer.status === 200 ? { step: "preview", file, result: answer.body as ImportResult } : failed(answer, file));
+  };
+
+  const apply = async (file: File, preview: ImportResult) => {
+    setPhase({ step: "sending", file, verb: "Applying", percent: 0 });
+    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) => setPhase({ step: "sending", file, verb: "Applying", percent }));
+    if (answer.status !== 200) return setPhase(failed(answer, file));
+    setPhase({ step: "applied", file, result: answer.body as ImportResult });
+    router.refresh();
+  };
+
+  const reset = () => {
+    setPhase({ step: "idle" });
+    if (input.current) input.current.value = "";
+  };
+
+  const onDrop = (e: DragEvent) => {
+    e.preventDefault();
+    setDragging(false);
+    const file = e.dataTransfer.files[0];
+    if (file) void check(file);
+  };
+
+  const download = () => {
+    const url = URL.createObjectURL(new Blob([`\uFEFF${balloonStockCsv(families)}`], { type: "text/csv;charset=utf-8" }));
+    const a = document.createElement("a");
+    a.href = url;
+    a.download = `${slug}-balloon-stock.csv`;
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(url), 1000);
+  };
+
+  const busy = phase.step === "sending";
+  return (
+    <section aria-labelledby="stock-import-heading" className="space-y-3">
+      <div className="flex flex-wrap items-end justify-between gap-2">
+        <div>
+          <h2 id="stock-import-heading" className="text-xl font-semibold">
+            Import balloons from a CSV file
+          </h2>
+          <p className="max-w-prose text-sm text-ink-soft">
+            Check the file first: you see every change before anything is saved. A file lists each of its families&apos; whole range; sizes of those families that the file leaves out are
+            marked out of stock. Families the file does not mention stay as they are.
+          </p>
+        </div>
+        <Button type="button" variant="secondary" onClick={download} disabled={families.length === 0}>
+          Download current balloons as CSV
+        </Button>
+      </div>
+
+      <div
+        onDragOver={(e) => {
+          e.preventDefault();
+          setDragging(true);
+        }}
+        onDragLeave={() => setDragging(false)}
+        onDrop={onDrop}
+        className={`rounded-card border-2 border-dashed px-6 py-8 text-center ${dragging ? "border-brand-500 bg-brand-50" : "border-line-strong bg-paper-raised"}`}
+      >
+        <label htmlFor={inputId} className="block font-medium">
+          Drop a CSV file here, or choose one
+        </label>
+        <input
+          ref={input}
+          id={inputId}
+          type="file"
+          accept=".csv,text/csv,text/plain"
+          disabled={busy}
+          onChange={(e) => {
+            const file = e.target.files?.[0];
+            if (file) void check(file);
+          }}
+          className="mx-auto mt-3 block text-sm file:mr-3 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5 file:font-semibold"
+        />
+        <p className="mt-2 text-xs text-ink-faint">UTF-8 text, up to 1 MB and 5,000 lines.</p>
+      </div>
+
+      <details className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm">
+        <summary className="cursor-pointer font-medium">What the file looks like</summary>
+        <div className="mt-2 space-y-2 text-ink-soft">
+          <p>
+            First line: the column names <code>family,compliance,diameter_mm,in_stock</code>, optionally followed by <code>nominal_atm,rbp_atm,growth_at_rbp_mm</code>. Then one line per
+            balloon size. Commas or semicolons separate the fields; a decimal comma (2,75) works in semicolon files, and in comma files when the number is quoted (&quot;2,75&quot;).
+          </p>
+          <ul className="list-disc pl-5">
+            <li>
+              <code>compliance</code>: <code>nc</code> (non-compliant) or <code>sc</code> (semi-compliant).
+            </li>
+            <li>
+              <code>diameter_mm</code>: 1.00 to 7.00 in steps of 0.05; each diameter once per family.
+            </li>
+            <li>
+              <code>in_stock</code>: yes, no, y, n, true, false, 1 or 0 (any letter case).
+            </li>
+            <li>A new family needs its nominal and rated burst pressures (atm) on at least one of its lines; existing families may leave them empty to keep what is recorded.</li>
+          </ul>
+          <pre className="overflow-x-auto rounded bg-paper-sunk p-2 text-xs">
+            {"family;compliance;diameter_mm;in_stock;nominal_atm;rbp_atm;growth_at_rbp_mm\nNC family A (illustrative);nc;2,50;yes;12;20;0,20\nNC family A (illustrative);nc;2,75;no;;;"}
+          </pre>
+        </div>
+      </details>
+
+      <div aria-live="polite" className="space-y-3">
+        {phase.step === "sending" ? (
+          <div role="status" className="rounded-md border border-line bg-paper-raised px-4 py-3">
+            <p className="font-medium">
+              {phase.verb} {phase.file.name}… {phase.percent < 100 ? `uploading ${phase.percent}%` : phase.verb === "Checking" ? "comparing with the current stock" : "saving"}
+            </p>
+            <progress className="mt-2 w-full" max={100} value={phase.percent < 100 ? phase.percent : undefined} aria-label={`${phase.verb} ${phase.file.name}`} />
+          </div>
+        ) : null}
+
+        {phase.step === "failed" ? (
+          <div role="alert" className="rounded-md border border-danger/40 bg-danger-soft px-4 py-3 text-sm">
+            <p className="font-semibold text-danger">
+              <span aria-hidden>⚠ </span>
+              {phase.file ? `${phase.file.name}: ` : ""}
+              {phase.message}
+            </p>
+            {phase.issues.length ? (
+              <ul className="mt-2 max-h-72 list-disc space-y-1 overflow-y-auto pl-5 text-ink" aria-label="Problems in the file">
+                {phase.issues.map((issue, i) => (
+                  <li key={i}>{issue.message}</li>
+                ))}
+              </ul>
+            ) : null}
+            <Button type="button" variant="secondary" className="mt-3" onClick={reset}>
+              Choose another file
+            </Button>
+          </div>
+        ) : null}
+
+        {phase.step === "preview" ? <ImportPreview result={phase.result} fileName={phase.file.name} onApply={() => apply(phase.file, phase.result)} onCancel={reset} /> : null}
+
+        {phase.step === "applied" ? (
+          <div role="status" className="rounded-md border border-ok/40 bg-ok-soft px-4 py-3 text-sm">
+            <p className="font-semibold text-ok">
+              <span aria-hidden>✓ </span>
+              {phase.result.applied ? `Imported ${phase.file.name}: ${phase.result.summary}. Stock revision ${phase.result.revision}.` : `${phase.file.name} matches the current stock; nothing was changed.`}
+            </p>
+            <Button type="button" variant="secondary" className="mt-3" onClick={reset}>
+              Import another file
+            </Button>
+          </div>
+        ) : null}
+      </div>
+    </section>
+  );
+}
+
+function ImportPreview({ result, fileName, onApply, onCancel }: { result: ImportResult; fileName: string; onApply: () => void; onCancel: () => void }) {
+  const { plan } = result;
+  const empty = plan.familiesToAdd.length + plan.familiesToChange.length + plan.balloonsToAdd.length + plan.balloonsToChange.length + plan.balloonsToMarkOutOfStock.length === 0;
+  const stock = (v: boolean) => (v ? "in stock" : "out of stock");
+  return (
+    <div className="space-y-4 rounded-card border border-brand-200 bg-paper-raised p-4" data-testid="import-preview">
+      <div>
+        <h3 className="text-lg font-semibold">Preview of {fileName}</h3>
+        <p className="text-sm text-ink-soft">
+          {plan.rowsInFile} lines, {plan.familiesInFile} {plan.familiesInFile === 1 ? "family" : "families"}. Compared with stock revision {result.revision}. Nothing has been saved yet.
+        </p>
+        <p className="mt-1 font-medium">{empty ? "The file matches the current stock: nothing would change." : `This import would make: ${result.summary}.`}</p>
+      </div>
+      <PreviewTable title="Families to add" head={["Family", "Compliance", "Nominal / rated burst (atm)", "Growth at RBP (mm)", "Sizes"]}
+        rows={plan.familiesToAdd.map((f) => [f.name, f.compliance, `${formatAtm(f.nominalAtm)} / ${formatAtm(f.rbpAtm)}`, f.growthAtRbpMm === null ? "not recorded" : formatMm(f.growthAtRbpMm), String(f.sizes)])} />
+      <PreviewTable title="Families to change" head={["Family", "Field", "Now", "After import"]}
+        rows={plan.familiesToChange.flatMap((c) => c.fields.map((f) => [c.name, FIELD_LABELS[f] ?? f, formatStockValue(f, c.before[f]), formatStockValue(f, c.after[f])]))} />
+      <PreviewTable title="Sizes to add" head={["Family", "Diameter (mm)", "In stock", "Line"]}
+        rows={plan.balloonsToAdd.map((b) => [b.family, formatMm(b.diameterMm), stock(b.inStock), String(b.line)])} />
+      <PreviewTable title="Sizes to change" head={["Family", "Diameter (mm)", "Now", "After import", "Line"]}
+        rows={plan.balloonsToChange.map((b) => [b.family, formatMm(b.diameterMm), stock(b.before.inStock), stock(b.after.inStock), String(b.line)])} />
+      <PreviewTable title="Sizes to mark out of stock (not in the file)" head={["Family", "Diameter (mm)"]}
+        rows={plan.balloonsToMarkOutOfStock.map((b) => [b.family, formatMm(b.diameterMm)])} />
+      {plan.unchangedBalloons ? <p className="text-sm text-ink-soft">{plan.unchangedBalloons} sizes of the listed families stay as they are.</p> : null}
+      <div className="flex flex-wrap justify-end gap-2">
+        <Button type="button" variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+        <Button type="button" onClick={onApply} disabled={empty}>
+          Apply import
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function PreviewTable({ title, head, rows }: { title: string; head: string[]; rows: string[][] }) {
+  if (rows.length === 0) return null;
+  return (
+    <div>
+      <h4 className="font-semibold">
+        {title} ({rows.length})
+      </h4>
+      <div className="relative mt-1 max-h-64 overflow-auto rounded-md border border-line">
+        <table className="w-full text-sm">
+          <caption className="sr-only">{title}</caption>
+          <thead className="sticky top-0 bg-paper-sunk text-left">
+            <tr>
+              {head.map((h) => (
+                <th key={h} scope="col" className="px-3 py-1.5 font-semibold text-ink-soft">
+                  {h}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r, i) => (
+              <tr key={i} className="border-t border-line">
+                {r.map((cell, j) => (
+                  <td key={j} className="px-3 py-1.5">
+                    {cell}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,46 @@
+// Reads one file from a multipart request without ever holding more than the limit in memory.
+import { AppError } from "@/lib/errors";
+import { tooLarge } from "./file";
+import { MAX_IMPORT_BYTES } from "./limits";
+
+// Room for the multipart boundaries and part headers around a file at the limit.
+const ENVELOPE_BYTES = 64 * 1024;
+
+export type UploadedFile = { name: string; bytes: Uint8Array };
+
+export async function readUploadedFile(req: Request, field = "file", maxBytes = MAX_IMPORT_BYTES): Promise<UploadedFile> {
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.toLowerCase().startsWith("multipart/form-data")) {
+    throw new AppError("invalid_input", `Send the file as multipart/form-data in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+  }
+  const cap = maxBytes + ENVELOPE_BYTES;
+  const declared = Number(req.headers.get("content-length"));
+  if (Number.isFinite(declared) && declared > cap) throw tooLarge(declared);
+  if (!req.body) throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  const reader = req.body.getReader();
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > cap) {
+      await reader.cancel();
+      throw tooLarge(total);
+    }
+    chunks.push(value);
+  }
+  let form: FormData;
+  try {
+    form = await new Response(Buffer.concat(chunks), { headers: { "content-type": type } }).formData();
+  } catch {
+    throw new AppError("invalid_input", "The upload could not be read as multipart/form-data.");
+  }
+  const file = form.get(field);
+  if (!file || typeof file === "string") {
+    throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+  }
+  if (file.size > maxBytes) throw tooLarge(file.size);
+  return { name: file.name.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
+}
