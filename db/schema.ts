@@ -228,6 +228,7 @@ export const charts = mysqlTable(
     // What an edition made now would freeze: recomputed in the same transaction as any change.
     liveFingerprint: char("live_fingerprint", { length: 64 }),
     liveSnapshot: jsonText<unknown>("live_snapshot"),
+    liveChangedAt: when("live_changed_at"),
     createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: when("updated_at"),
@@ -312,6 +313,8 @@ export const postings = mysqlTable(
     postedAt: createdAt(),
     removedBy: ref("removed_by").references(() => users.id, { onDelete: "set null" }),
     removedAt: when("removed_at"),
+    // The status last seen by the stale-copy pass, so each change to it is noticed once.
+    lastStatus: mysqlEnum("last_status", ["current", "outdated", "superseded", "withdrawn", "draft"]).notNull().default("current"),
   },
   (t) => [index("postings_lab_idx").on(t.labId, t.removedAt), index("postings_edition_idx").on(t.editionId)],
 );

@@ -1,86 +1,25 @@
 import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
-import { fingerprintOf } from "@/lib/charts/fingerprint";
-import { buildSnapshot, type LabStock, type Snapshot } from "@/lib/charts/snapshot";
+import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
-import { chartDefinitionSchema, type ChartDefinition } from "@/lib/validation/chart";
-import { db, type Database } from "../index";
-import { balloonFamilies, balloons, charts, editions, labs, logos, stentPlatforms, stentSizes, users } from "../schema";
+import { parseStoredDefinition, type ChartDefinition } from "@/lib/validation/chart";
+import { db } from "../index";
+import { balloonFamilies, charts, editions, stentPlatforms, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-
-type Conn = Tx | Database;
-
-/** Serialises writes that change what a lab's charts would print (stock, charts, editions). */
-export async function lockLab(tx: Tx, labId: number): Promise<{ name: string; stockRevision: number }> {
-  const [row] = await tx.select({ name: labs.name, stockRevision: labs.stockRevision }).from(labs).where(eq(labs.id, labId)).for("update");
-  if (!row) throw notFound("Lab");
-  return row;
-}
-
-export async function loadLabStock(conn: Conn, labId: number): Promise<LabStock> {
-  const fams = await conn.select().from(balloonFamilies).where(eq(balloonFamilies.labId, labId)).orderBy(asc(balloonFamilies.name));
-  const bals = await conn.select().from(balloons).where(eq(balloons.labId, labId)).orderBy(asc(balloons.diameterMm));
-  const plats = await conn.select().from(stentPlatforms).where(eq(stentPlatforms.labId, labId)).orderBy(asc(stentPlatforms.name));
-  const sizes = await conn.select().from(stentSizes).where(eq(stentSizes.labId, labId)).orderBy(asc(stentSizes.nominalMm));
-  return {
-    balloonFamilies: fams.map((f) => ({
-      id: f.id,
-      name: f.name,
-      compliance: f.compliance,
-      nominalAtm: f.nominalAtm,
-      rbpAtm: f.rbpAtm,
-      growthAtRbpMm: f.growthAtRbpMm,
-      balloons: bals.filter((b) => b.familyId === f.id).map((b) => ({ id: b.id, diameterMm: b.diameterMm, inStock: b.inStock })),
-    })),
-    stentPlatforms: plats.map((p) => ({
-      id: p.id,
-      name: p.name,
-      sizes: sizes.filter((s) => s.platformId === p.id).map((s) => ({ id: s.id, nominalMm: s.nominalMm, maxPostDilatationMm: s.maxPostDilatationMm })),
-    })),
-  };
-}
-
-export function parseDefinition(raw: unknown): ChartDefinition {
-  const parsed = chartDefinitionSchema.safeParse(raw);
-  if (!parsed.success) throw new AppError("internal", "A stored chart definition no longer validates.");
-  return parsed.data;
-}
-
-export type LiveChange = { chartId: number; before: string | null; after: string };
-
-/**
- * The one pass per lab: resolves every chart of the lab against today's stock and settings and
- * stores what an edition made now would freeze. Runs inside the transaction of the change that
- * caused it, so every app instance reads a consistent answer from the database.
- */
-export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveChange[]> {
-  const lab = await lockLab(tx, labId);
-  const stock = await loadLabStock(tx, labId);
-  const rows = await tx
-    .select({ id: charts.id, definition: charts.definition, liveFingerprint: charts.liveFingerprint, logoSha256: logos.sha256 })
-    .from(charts)
-    .leftJoin(logos, eq(logos.id, charts.logoId))
-    .where(eq(charts.labId, labId));
-  const changed: LiveChange[] = [];
-  for (const row of rows) {
-    const snapshot = buildSnapshot({ labName: lab.name, definition: parseDefinition(row.definition), stock, logoSha256: row.logoSha256 ?? null });
-    const fingerprint = fingerprintOf(snapshot);
-    if (fingerprint === row.liveFingerprint) continue;
-    await tx.update(charts).set({ liveFingerprint: fingerprint, liveSnapshot: snapshot }).where(and(eq(charts.id, row.id), eq(charts.labId, labId)));
-    changed.push({ chartId: row.id, before: row.liveFingerprint, after: fingerprint });
-  }
-  return changed;
-}
+import { afterLabChange, lockLab } from "./lab-changes";
+import { deliverPendingNotices } from "./notices";
 
 export async function createChart({ labId, userId, definition, logoId = null }: { labId: number; userId: number; definition: ChartDefinition; logoId?: number | null }) {
-  return db.transaction(async (tx) => {
+  const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     await assertStockRefs(tx, labId, definition);
     const [row] = await tx.insert(charts).values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() }).$returningId();
-    const changes = await refreshLiveSnapshots(tx, labId);
+    const changes = await afterLabChange(tx, { labId, changeKey: `chart:${row!.id}:created`, cause: `Chart "${definition.title}" was created` });
     await recordAudit({ tx, labId, actorUserId: userId, action: "chart.created", targetType: "chart", targetId: row!.id, detail: { after: definition } });
     return { id: row!.id, changes };
   });
+  await deliverPendingNotices({ labId });
+  return result;
 }
 
 export async function updateChart({
@@ -96,7 +35,7 @@ export async function updateChart({
   definition: ChartDefinition;
   logoId?: number | null;
 }) {
-  return db.transaction(async (tx) => {
+  const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const [before] = await tx.select().from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
     if (!before) throw notFound("Chart");
@@ -105,10 +44,12 @@ export async function updateChart({
       .update(charts)
       .set({ title: definition.title, definition, updatedAt: new Date(), ...(logoId !== undefined ? { logoId } : {}) })
       .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    const changes = await refreshLiveSnapshots(tx, labId);
+    const changes = await afterLabChange(tx, { labId, changeKey: `chart:${chartId}:${Date.now()}`, cause: `Chart "${definition.title}" settings were changed` });
     await recordAudit({ tx, labId, actorUserId: userId, action: "chart.updated", targetType: "chart", targetId: chartId, detail: { before: before.definition, after: definition } });
     return { changes };
   });
+  await deliverPendingNotices({ labId });
+  return result;
 }
 
 /** A chart may only point at this lab's own balloon families and stent platforms. */
@@ -134,7 +75,7 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
 export async function getChart({ labId, chartId }: { labId: number; chartId: number }) {
   const [row] = await db.select().from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!row) return null;
-  return { ...row, definition: parseDefinition(row.definition), liveSnapshot: row.liveSnapshot as Snapshot | null };
+  return { ...row, definition: parseStoredDefinition(row.definition), liveSnapshot: row.liveSnapshot as Snapshot | null };
 }
 
 /** A chart's lab, for routes addressed by chart id (the guard then checks membership). */
@@ -166,6 +107,6 @@ export async function listCharts({ labId }: { labId: number }) {
   return chartRows.map((c) => {
     const mine = eds.filter((e) => e.chartId === c.id);
     const current = mine.find((e) => e.status === "approved") ?? mine.find((e) => e.status === "draft") ?? null;
-    return { chart: { ...c, definition: parseDefinition(c.definition) }, current, editions: mine };
+    return { chart: { ...c, definition: parseStoredDefinition(c.definition) }, current, editions: mine };
   });
 }

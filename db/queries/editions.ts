@@ -5,11 +5,14 @@ import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
+import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
 import { charts, editions, logos, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { loadLabStock, lockLab, parseDefinition, refreshLiveSnapshots } from "./charts";
+import { afterLabChange, lockLab, refreshLiveSnapshots } from "./lab-changes";
+import { deliverPendingNotices } from "./notices";
+import { readStock } from "./stock-read";
 
 type Actor = { id: number; name: string };
 
@@ -65,8 +68,8 @@ export async function createEdition({ labId, chartId, actor }: { labId: number; 
       .leftJoin(logos, eq(logos.id, charts.logoId))
       .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
     if (!chart) throw notFound("Chart");
-    const definition = parseDefinition(chart.definition);
-    const snapshot = buildSnapshot({ labName: lab.name, definition, stock: await loadLabStock(tx, labId), logoSha256: chart.logoSha256 ?? null });
+    const definition = parseStoredDefinition(chart.definition);
+    const snapshot = buildSnapshot({ labName: lab.name, definition, stock: await readStock(tx, labId), logoSha256: chart.logoSha256 ?? null });
     const problems = snapshotProblems(snapshot, definition);
     if (problems.length) throw new AppError("unprocessable", problems.join(" "));
     const fingerprint = fingerprintOf(snapshot);
@@ -95,13 +98,13 @@ async function transition(
 }
 
 export async function approveEdition({ labId, editionId, actor }: { labId: number; editionId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
+  const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "approved" });
     if (ed.createdBy === actor.id) {
       throw new AppError("forbidden", "You drafted this edition, so someone else (a manager or the medical lead) must approve it.");
     }
-    const [chart] = await tx.select({ liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot }).from(charts).where(eq(charts.id, ed.chartId));
+    const [chart] = await tx.select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot }).from(charts).where(eq(charts.id, ed.chartId));
     if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
       const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
       throw new AppError(
@@ -121,6 +124,7 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
       .update(editions)
       .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
       .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+    await afterLabChange(tx, { labId, changeKey: `edition:${ed.id}:approved`, cause: `Edition ${ed.number} of "${chart?.title}" was approved by ${actor.name}` });
     await recordAudit({
       tx,
       labId,
@@ -132,6 +136,8 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
     });
     return { id: ed.id, number: ed.number, superseded: previous };
   });
+  await deliverPendingNotices({ labId });
+  return result;
 }
 
 export async function rejectEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string }) {
@@ -147,14 +153,17 @@ export async function rejectEdition({ labId, editionId, actor, reason }: { labId
 }
 
 export async function withdrawEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string | null }) {
-  return db.transaction(async (tx) => {
+  const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
     await tx
       .update(editions)
       .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
       .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+    await afterLabChange(tx, { labId, changeKey: `edition:${ed.id}:withdrawn`, cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}` });
     await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.withdrawn", targetType: "edition", targetId: ed.id, detail: { number: ed.number, was: ed.status, reason } });
     return { id: ed.id, number: ed.number, was: ed.status };
   });
+  await deliverPendingNotices({ labId });
+  return result;
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, like, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, like, lt, ne, sql } from "drizzle-orm";
 import { AppError, invalidInput, notFound } from "@/lib/errors";
 import { csvIssuesError, type CsvRow } from "@/lib/stock/csv";
 import { isEmptyPlan, planBalloonImport, summarisePlan, type ImportResult } from "@/lib/stock/import-plan";
@@ -16,11 +16,13 @@ import {
   type StentSizeInput,
   type StentSizePatch,
 } from "@/lib/validation/stock";
-import { db, type Database } from "../index";
+import { db } from "../index";
 import { auditEvents, balloonFamilies, balloons, labs, stentPlatforms, stentSizes, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
+import { afterLabChange } from "./lab-changes";
+import { deliverPendingNotices } from "./notices";
+import { readFamilies, readPlatforms } from "./stock-read";
 
-type Reader = Tx | Database;
 type Actor = { labId: number; actorUserId: number | null };
 
 export type StockChange = { labId: number; actorUserId: number | null; summary: string };
@@ -37,44 +39,11 @@ export async function afterStockChange(tx: Tx, change: StockChange): Promise<num
     .where(eq(labs.id, change.labId));
   const [row] = await tx.select({ revision: labs.stockRevision }).from(labs).where(eq(labs.id, change.labId));
   if (!row) throw notFound("Lab");
+  await afterLabChange(tx, { labId: change.labId, changeKey: `stock:${row.revision}`, cause: change.summary });
   return row.revision;
 }
 
 // ---------- reading ----------
-
-async function readFamilies(reader: Reader, labId: number, ids?: number[]): Promise<BalloonFamilyView[]> {
-  if (ids && ids.length === 0) return [];
-  const famWhere = ids ? and(eq(balloonFamilies.labId, labId), inArray(balloonFamilies.id, ids)) : eq(balloonFamilies.labId, labId);
-  const balWhere = ids ? and(eq(balloons.labId, labId), inArray(balloons.familyId, ids)) : eq(balloons.labId, labId);
-  const [fams, bals] = await Promise.all([
-    reader.select().from(balloonFamilies).where(famWhere).orderBy(asc(balloonFamilies.name), asc(balloonFamilies.id)),
-    reader.select().from(balloons).where(balWhere).orderBy(asc(balloons.diameterMm)),
-  ]);
-  return fams.map((f) => ({
-    id: f.id,
-    name: f.name,
-    compliance: f.compliance,
-    nominalAtm: f.nominalAtm,
-    rbpAtm: f.rbpAtm,
-    growthAtRbpMm: f.growthAtRbpMm ?? null,
-    balloons: bals.filter((b) => b.familyId === f.id).map((b) => ({ id: b.id, diameterMm: b.diameterMm, inStock: b.inStock })),
-  }));
-}
-
-async function readPlatforms(reader: Reader, labId: number, ids?: number[]): Promise<StentPlatformView[]> {
-  if (ids && ids.length === 0) return [];
-  const platWhere = ids ? and(eq(stentPlatforms.labId, labId), inArray(stentPlatforms.id, ids)) : eq(stentPlatforms.labId, labId);
-  const sizeWhere = ids ? and(eq(stentSizes.labId, labId), inArray(stentSizes.platformId, ids)) : eq(stentSizes.labId, labId);
-  const [plats, sizes] = await Promise.all([
-    reader.select().from(stentPlatforms).where(platWhere).orderBy(asc(stentPlatforms.name), asc(stentPlatforms.id)),
-    reader.select().from(stentSizes).where(sizeWhere).orderBy(asc(stentSizes.nominalMm)),
-  ]);
-  return plats.map((p) => ({
-    id: p.id,
-    name: p.name,
-    sizes: sizes.filter((s) => s.platformId === p.id).map((s) => ({ id: s.id, nominalMm: s.nominalMm, maxPostDilatationMm: s.maxPostDilatationMm })),
-  }));
-}
 
 /** The lab's whole stock: families by name with balloons by diameter, platforms by name with sizes by nominal. */
 export async function getStock({ labId }: { labId: number }): Promise<StockView> {
@@ -118,11 +87,13 @@ function isDuplicateKey(err: unknown): boolean {
 /** One transaction per change, serialised per lab by locking the lab row first. */
 async function stockWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise<T> {
   try {
-    return await db.transaction(async (tx) => {
+    const result = await db.transaction(async (tx) => {
       const [lab] = await tx.select({ id: labs.id }).from(labs).where(eq(labs.id, labId)).for("update");
       if (!lab) throw notFound("Lab");
       return fn(tx);
     });
+    await deliverPendingNotices({ labId });
+    return result;
   } catch (err) {
     if (isDuplicateKey(err)) throw new AppError("conflict", "That would duplicate a name or size this lab already has. Reload the stock and try again.");
     throw err;

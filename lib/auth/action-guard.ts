@@ -10,6 +10,8 @@ export type ActionState = {
   message?: string;
   fieldErrors?: Record<string, string>;
   values?: Record<string, unknown>;
+  /** The id of what the action created, when it created something. */
+  id?: number;
 };
 
 export function formValues(form: FormData): Record<string, unknown> {

@@ -1,8 +1,11 @@
 import type { EditionStatus } from "@/lib/editions/states";
 
+export const checkUrlFor = (appUrl: string, token: string) => `${appUrl}/v/${token}`;
+export const pdfUrlFor = (appUrl: string, editionId: number) => `${appUrl}/api/v1/editions/${editionId}/pdf`;
+
 /** URLs of an edition, built from the configured APP_URL (the QR code encodes checkUrl). */
 export function editionUrls(appUrl: string, edition: { id: number; checkToken: string }) {
-  return { checkUrl: `${appUrl}/v/${edition.checkToken}`, pdfUrl: `${appUrl}/api/v1/editions/${edition.id}/pdf` };
+  return { checkUrl: checkUrlFor(appUrl, edition.checkToken), pdfUrl: pdfUrlFor(appUrl, edition.id) };
 }
 
 export type EditionSummary = {

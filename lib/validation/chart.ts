@@ -88,3 +88,10 @@ export type LookupDefinition = z.infer<typeof lookupSchema>;
 
 /** PATCH accepts any subset of the definition; the merged result is validated whole. */
 export const chartPatchSchema = chartDefinitionSchema.partial().strict();
+
+/** A definition read back from the database; one that no longer validates is a server fault. */
+export function parseStoredDefinition(raw: unknown): ChartDefinition {
+  const parsed = chartDefinitionSchema.safeParse(raw);
+  if (!parsed.success) throw new Error(`A stored chart definition no longer validates: ${parsed.error.issues[0]?.message}`);
+  return parsed.data;
+}

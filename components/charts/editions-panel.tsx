@@ -1,0 +1,151 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import { approveEditionAction, createEditionAction, rejectEditionAction, withdrawEditionAction } from "@/app/(lab)/labs/[slug]/charts/actions";
+import { Button, buttonClass } from "@/components/ui/button";
+import { StatusBadge } from "@/components/ui/status-badge";
+import type { ActionState } from "@/lib/auth/action-guard";
+import type { EditionStatus } from "@/lib/editions/states";
+
+export type EditionRow = {
+  id: number;
+  number: number;
+  status: EditionStatus;
+  fingerprint: string;
+  createdByName: string | null;
+  createdByMe: boolean;
+  createdAt: string;
+  approvedAt: string | null;
+  approvedByName: string | null;
+  rejectionReason: string | null;
+  checkUrl: string;
+  pdfUrl: string;
+  matchesToday: boolean;
+};
+
+const date = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC";
+
+export function EditionsPanel({
+  slug,
+  chartId,
+  editions,
+  can,
+}: {
+  slug: string;
+  chartId: number;
+  editions: EditionRow[];
+  can: { create: boolean; approve: boolean; withdraw: boolean };
+}) {
+  const router = useRouter();
+  const [pending, start] = useTransition();
+  const [notice, setNotice] = useState<ActionState | null>(null);
+  const [rejecting, setRejecting] = useState<number | null>(null);
+  const [reason, setReason] = useState("");
+
+  const run = (fn: () => Promise<ActionState>) =>
+    start(async () => {
+      const res = await fn();
+      setNotice(res);
+      if (res.ok) {
+        setRejecting(null);
+        setReason("");
+        router.refresh();
+      }
+    });
+
+  return (
+    <section aria-labelledby="editions-h" className="mt-10">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h2 id="editions-h" className="text-xl font-semibold">
+          Editions
+        </h2>
+        {can.create ? (
+          <Button onClick={() => run(() => createEditionAction(slug, chartId))} disabled={pending}>
+            {pending ? "Working…" : "Create edition"}
+          </Button>
+        ) : null}
+      </div>
+      <p className="mt-1 text-sm text-ink-soft">An edition freezes the chart with today&apos;s stock. Someone other than its author approves it before it is printed for the wall.</p>
+      {notice?.message ? (
+        <p role={notice.ok ? "status" : "alert"} className={`mt-3 rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}>
+          {notice.message}
+          {notice.fieldErrors?.reason ? ` ${notice.fieldErrors.reason}` : ""}
+        </p>
+      ) : null}
+      {editions.length === 0 ? (
+        <p className="mt-4 rounded-md border border-dashed border-line-strong p-4 text-ink-soft">No editions yet.</p>
+      ) : (
+        <ul className="mt-4 space-y-3">
+          {editions.map((e) => (
+            <li key={e.id} className="rounded-card border border-line bg-paper-raised p-4" data-testid={`edition-${e.number}`}>
+              <div className="flex flex-wrap items-center gap-3">
+                <span className="text-lg font-semibold">Edition {e.number}</span>
+                <StatusBadge status={e.status} />
+                {e.status === "approved" && !e.matchesToday ? <StatusBadge status="outdated" label="Stock or settings changed since" /> : null}
+                <span className="font-mono text-xs text-ink-faint" title={e.fingerprint}>
+                  {e.fingerprint.slice(0, 12)}
+                </span>
+              </div>
+              <p className="mt-1 text-sm text-ink-soft">
+                Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
+                {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
+              </p>
+              {e.rejectionReason && e.status === "draft" ? <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p> : null}
+              <div className="mt-3 flex flex-wrap gap-2">
+                <a href={e.pdfUrl} className={buttonClass("secondary", "py-1.5")} download>
+                  Download PDF
+                </a>
+                {e.status !== "draft" ? (
+                  <a href={e.checkUrl} className={buttonClass("ghost", "py-1.5")}>
+                    Check page
+                  </a>
+                ) : null}
+                {can.approve && e.status === "draft" && !e.createdByMe ? (
+                  <>
+                    <Button onClick={() => run(() => approveEditionAction(slug, e.id))} disabled={pending} className="py-1.5">
+                      Approve edition {e.number}
+                    </Button>
+                    <Button variant="secondary" onClick={() => setRejecting(rejecting === e.id ? null : e.id)} disabled={pending} className="py-1.5">
+                      Send back…
+                    </Button>
+                  </>
+                ) : null}
+                {can.approve && e.status === "draft" && e.createdByMe ? <span className="self-center text-sm text-ink-faint">You drafted this; another manager or the lead approves it.</span> : null}
+                {can.withdraw && e.status !== "withdrawn" ? (
+                  <Button
+                    variant="ghost"
+                    className="py-1.5 text-danger"
+                    disabled={pending}
+                    onClick={() => {
+                      if (window.confirm(`Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`)) run(() => withdrawEditionAction(slug, e.id, ""));
+                    }}
+                  >
+                    Withdraw
+                  </Button>
+                ) : null}
+              </div>
+              {rejecting === e.id ? (
+                <form
+                  className="mt-3 flex flex-wrap items-end gap-2"
+                  onSubmit={(ev) => {
+                    ev.preventDefault();
+                    run(() => rejectEditionAction(slug, e.id, reason));
+                  }}
+                >
+                  <label className="min-w-64 flex-1 text-sm font-medium">
+                    Reason for sending it back
+                    <input value={reason} onChange={(ev) => setReason(ev.target.value)} className="mt-1 w-full rounded-md border border-line-strong px-3 py-2" required minLength={3} maxLength={500} />
+                  </label>
+                  <Button type="submit" variant="secondary" disabled={pending}>
+                    Send back to draft
+                  </Button>
+                </form>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,58 @@
+import { CHECK_ADVICE, CHECK_HEADLINES, type CheckStatus } from "@/lib/editions/check";
+import type { CheckJson } from "@/lib/editions/check-json";
+
+// A symbol and a word for every status: colour is never the only signal.
+const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
+  current: { symbol: "✓", cls: "border-ok bg-ok-soft text-ok" },
+  outdated: { symbol: "!", cls: "border-warn bg-warn-soft text-warn" },
+  superseded: { symbol: "↻", cls: "border-warn bg-warn-soft text-warn" },
+  withdrawn: { symbol: "✕", cls: "border-danger bg-danger-soft text-danger" },
+  draft: { symbol: "✎", cls: "border-danger bg-danger-soft text-danger" },
+};
+
+const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }) : null);
+
+/** The status block of the check page: plain server HTML, readable without JavaScript. */
+export function CheckStatusView({ check }: { check: CheckJson }) {
+  const look = LOOK[check.status];
+  const since = day(check.since);
+  return (
+    <div>
+      <p className="text-sm text-ink-soft">
+        {check.lab.name} · {check.chart.title} · edition {check.edition.number}
+      </p>
+      <div className={`mt-3 rounded-card border-4 px-5 py-6 ${look.cls}`} data-testid="check-status" data-status={check.status}>
+        <p className="flex items-center gap-3 text-5xl font-bold leading-none sm:text-6xl">
+          <span aria-hidden className="inline-flex h-14 w-14 shrink-0 items-center justify-center rounded-full border-4 border-current text-4xl">
+            {look.symbol}
+          </span>
+          {CHECK_HEADLINES[check.status]}
+        </p>
+        {since ? (
+          <p className="mt-3 text-base font-medium text-ink">
+            {check.status === "current" ? "Approved" : check.status === "outdated" ? "Stock or settings last changed" : check.status === "draft" ? "Drafted" : "Since"} {since}
+          </p>
+        ) : null}
+      </div>
+      <p className="mt-4 text-lg font-semibold">{CHECK_ADVICE[check.status]}</p>
+      {check.changes.length ? (
+        <section className="mt-4" aria-labelledby="changes-h">
+          <h2 id="changes-h" className="text-base font-semibold">
+            What changed
+          </h2>
+          <ul className="mt-2 list-disc space-y-1 pl-5" data-testid="check-changes">
+            {check.changes.map((c, i) => (
+              <li key={i}>{c.detail}</li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+      {check.currentEdition ? (
+        <p className="mt-4 text-ink-soft">
+          The current edition of this chart is edition {check.currentEdition.number}
+          {check.currentEdition.approvedAt ? `, approved ${day(check.currentEdition.approvedAt)}` : ""}.
+        </p>
+      ) : null}
+    </div>
+  );
+}

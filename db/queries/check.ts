@@ -1,0 +1,62 @@
+import "server-only";
+import { and, desc, eq, ne } from "drizzle-orm";
+import type { Snapshot } from "@/lib/charts/snapshot";
+import { checkEdition, type CheckStatus } from "@/lib/editions/check";
+import type { Change } from "@/lib/charts/changes";
+import { db } from "../index";
+import { charts, editions, labs } from "../schema";
+
+export type CheckView = {
+  status: CheckStatus;
+  since: Date | null;
+  edition: { id: number; number: number; approvedAt: Date | null };
+  chart: { id: number; title: string };
+  lab: { id: number; slug: string; name: string };
+  changes: Change[];
+  currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
+};
+
+/** Everything the public check page shows for one QR token: no personal data. */
+export async function getCheckByToken({ token }: { token: string }): Promise<CheckView | null> {
+  const [row] = await db
+    .select({
+      edition: editions,
+      chart: { id: charts.id, title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot, liveChangedAt: charts.liveChangedAt },
+      lab: { id: labs.id, slug: labs.slug, name: labs.name },
+    })
+    .from(editions)
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .innerJoin(labs, eq(labs.id, editions.labId))
+    .where(eq(editions.checkToken, token));
+  if (!row) return null;
+  const [current] = await db
+    .select({ id: editions.id, number: editions.number, approvedAt: editions.approvedAt })
+    .from(editions)
+    .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
+    .orderBy(desc(editions.number))
+    .limit(1);
+  const result = checkEdition(
+    { ...row.edition, snapshot: row.edition.snapshot as Snapshot },
+    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot: row.chart.liveSnapshot as Snapshot | null },
+    current ?? null,
+  );
+  const since =
+    result.status === "withdrawn"
+      ? row.edition.withdrawnAt
+      : result.status === "superseded"
+        ? row.edition.supersededAt
+        : result.status === "outdated"
+          ? row.chart.liveChangedAt
+          : result.status === "current"
+            ? row.edition.approvedAt
+            : row.edition.createdAt;
+  return {
+    status: result.status,
+    since,
+    edition: { id: row.edition.id, number: row.edition.number, approvedAt: row.edition.approvedAt },
+    chart: { id: row.chart.id, title: row.chart.title },
+    lab: row.lab,
+    changes: result.changes,
+    currentEdition: current ?? null,
+  };
+}

@@ -1,0 +1,2 @@
+ALTER TABLE `charts` ADD `live_changed_at` datetime(3);--> statement-breakpoint
+ALTER TABLE `postings` ADD `last_status` enum('current','outdated','superseded','withdrawn','draft') DEFAULT 'current' NOT NULL;
