@@ -73,7 +73,9 @@ function ensureNodeModules() {
 ensureDebianPackages(spec.packages);
 ensureNodeModules();
 
-const child = spawn(process.execPath, ["--import", "tsx", spec.entry, ...spec.args, ...rest], {
+// Database code is marked server-only (react-server); the bench renders React, so it is not.
+const conditions = command === "bench" ? [] : ["--conditions=react-server"];
+const child = spawn(process.execPath, [...conditions, "--import", "tsx", spec.entry, ...spec.args, ...rest], {
   stdio: "inherit",
   env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: "1" },
 });

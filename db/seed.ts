@@ -4,6 +4,7 @@ import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import type { Role } from "@/lib/permissions";
 import type { Database } from "./index";
 import { labs, memberships, users } from "./schema";
+import { seedDemoCharts } from "./seed-charts";
 import { seedDemoStock } from "./seed-stock";
 
 export const DEMO_PASSWORD = "forkwall-demo-2026";
@@ -55,6 +56,7 @@ export async function seedDemo(db: Database): Promise<void> {
     }
   }
   await seedDemoStock(db, labIds);
+  await seedDemoCharts(db);
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
