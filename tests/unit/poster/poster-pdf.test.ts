@@ -1,0 +1,178 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { renderPosterPdf } from "@/components/poster/render";
+import { shortFingerprint } from "@/lib/charts/fingerprint";
+import { snapshotGrids } from "@/lib/charts/snapshot";
+import { CAUTION_TEXT } from "@/lib/cautions";
+import { pickBalloon, type Grid } from "@/lib/sizing";
+import { pdfText } from "@/tests/support/pdf-tools";
+import { kissingDefinition, posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
+
+const squash = (s: string) => s.replace(/\s+/g, " ");
+
+/** Shelf labels as printed: at least one decimal, at most two (written here independently). */
+const shelf = (mm: number) => {
+  const s = String(Number(mm.toFixed(2)));
+  return s.includes(".") ? s : `${s}.0`;
+};
+
+type ParsedCell = { exact: string | null; corner: string; primary: string; pressure: string | null };
+
+/**
+ * Reads one grid back from the text: after the corner heading's "↓" come the column headings,
+ * then the row headings, then each cell in reading order: "(exact)", corner marks, the large
+ * figure and, for pushed balloons, "@ N atm".
+ */
+function readGrid(text: string, rows: number, cols: number) {
+  const tokens = text.split(/\s+/).filter(Boolean);
+  let i = tokens.indexOf("↓") + 1;
+  const colHeads = tokens.slice(i, i + cols);
+  i += cols;
+  const rowHeads = tokens.slice(i, i + rows);
+  i += rows;
+  const cells: ParsedCell[][] = [];
+  for (let r = 0; r < rows; r++) {
+    const row: ParsedCell[] = [];
+    for (let c = 0; c < cols; c++) {
+      let exact: string | null = null;
+      let corner = "";
+      if (/^\(\d+\.\d\d\)$/.test(tokens[i] ?? "")) exact = tokens[i++] as string;
+      if (/^[⚠◇]+$/u.test(tokens[i] ?? "")) corner = tokens[i++] as string;
+      const primary = tokens[i++] as string;
+      let pressure: string | null = null;
+      if (tokens[i] === "@") {
+        pressure = `@ ${tokens[i + 1]} ${tokens[i + 2]}`;
+        i += 3;
+      }
+      row.push({ exact, corner, primary, pressure });
+    }
+    cells.push(row);
+  }
+  return { colHeads, rowHeads, cells, next: tokens[i] };
+}
+
+/** What the grid model says each cell must print. */
+function expectedCells(grid: Grid): ParsedCell[][] {
+  return grid.cells.map((row) =>
+    row.map((cell) => {
+      if (!cell.exact.ok) return { exact: null, corner: "", primary: "—", pressure: null };
+      const corner = (cell.flags.hazard ? "⚠" : "") + (cell.flags.outsideFit ? "◇" : "");
+      const b = cell.balloon;
+      const primary = !b ? cell.exact.diameterMm.toFixed(2) : b.ok ? shelf(b.diameterMm) : { above_stock: "▲", below_stock: "▼", no_stock: "○" }[b.code];
+      return {
+        exact: b ? `(${cell.exact.diameterMm.toFixed(2)})` : null,
+        corner,
+        primary,
+        pressure: b && b.ok && b.pressureAtm !== null ? `@ ${b.pressureAtm} atm` : null,
+      };
+    }),
+  );
+}
+
+describe("the POT poster read back (Finet, A2 portrait)", () => {
+  const snapshot = snapshotOf(potDefinition);
+  const input = posterInput(snapshot);
+  const [grid] = snapshotGrids(snapshot) as [Grid];
+  let text = "";
+  let flat = "";
+  let info: Record<string, unknown> = {};
+  beforeAll(async () => {
+    ({ text, info } = await pdfText(await renderPosterPdf(input)));
+    flat = squash(text);
+  }, 60_000);
+
+  it("carries its metadata: title, author, subject, keywords, fixed dates", () => {
+    expect(info.Title).toBe("POT balloon chart (illustrative)");
+    expect(info.Author).toBe("Illustrative Cath Lab (demo)");
+    expect(info.Subject).toBe("Edition 3");
+    expect(String(info.Keywords)).toContain("Finet (ratio 0.678)");
+    expect(info.CreationDate).toBe("D:20260302093000Z");
+  });
+
+  it("prints lab, title, law with formula and source, edition, approval, fingerprint, notes and the cautions", () => {
+    for (const s of [
+      "Illustrative Cath Lab (demo)",
+      "POT balloon chart (illustrative)",
+      "Law: Finet (ratio 0.678)",
+      "Dp = 0.678 × (Dmb + Dsb)",
+      "EuroIntervention 2008",
+      "Edition 3",
+      "Approved 2 Mar 2026 by Dr A. Example (illustrative)",
+      `Fingerprint ${shortFingerprint(input.edition.fingerprint)}`,
+      "Measure the distal main branch",
+      `CAUTION. ${CAUTION_TEXT}`,
+      "POT balloon (parent) from main branch × side branch",
+      "Side branch, mm →",
+      "Main branch, mm",
+      "Illustrative NC balloon: NC, nominal 12 atm, RBP 20 atm",
+      "Balloon rounded up to the next stocked size (common practice)",
+      "Stent limit: Illustrative DES",
+      "forkwall.example/c/7Qk2xB9m",
+    ]) {
+      expect(flat, s).toContain(s);
+    }
+    expect(flat).not.toContain("DRAFT");
+  });
+
+  it("explains every mark in the legend, in words", () => {
+    for (const s of ["How to read a cell", "Stocked balloon.", "— No size.", "▲▼ No stocked size.", "⚠ Stent limit.", "◇ Outside published fit.", "grey hatched", "heavy border", "Dsb/Dmb ≥ 0.75"]) {
+      expect(flat, s).toContain(s);
+    }
+  });
+
+  it("prints every cell as the grid model decides it", () => {
+    const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
+    expect(read.colHeads).toEqual(grid.colAxis.values.map(shelf));
+    expect(read.rowHeads).toEqual(grid.rowAxis.values.map(shelf));
+    expect(read.cells).toEqual(expectedCells(grid));
+    expect(read.next).toBe("CAUTION.");
+    // The grid uses every kind of mark, so the check above covers them all.
+    const all = read.cells.flat();
+    expect(all.some((c) => c.primary === "—")).toBe(true);
+    expect(all.some((c) => c.primary === "▲")).toBe(true);
+    expect(all.some((c) => c.corner.includes("⚠"))).toBe(true);
+    expect(all.some((c) => c.corner.includes("◇"))).toBe(true);
+  });
+
+  it("matches Finet's published formula computed here, rounded up to stock (POT, common practice)", () => {
+    const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
+    const at = (mb: number, sb: number) => read.cells[grid.rowAxis.values.indexOf(mb)]?.[grid.colAxis.values.indexOf(sb)];
+    // Dp = 0.678 (Dmb + Dsb): Finet G et al., EuroIntervention 2008.
+    const dp = 0.678 * (3 + 2.5); // 3.729
+    expect(at(3, 2.5)).toMatchObject({ exact: `(${dp.toFixed(2)})`, primary: "3.75" });
+    const dp2 = 0.678 * (3.5 + 3.25); // 4.5765; 4.75 is out of stock in the fixture, so 5.0
+    expect(at(3.5, 3.25)).toMatchObject({ exact: "(4.58)", primary: "5.0", corner: "⚠" });
+    expect(pickBalloon(dp2, snapshot.lookups[0]!.family!, "up")).toMatchObject({ ok: true, diameterMm: 5 });
+    // Finet gives no parent above the main branch when Dsb < 0.4749 Dmb... and for Dsb > Dmb there is no bifurcation.
+    expect(at(2.5, 2.75)?.primary).toBe("—");
+  });
+});
+
+describe("the kissing poster read back (square law, Tabloid landscape, draft)", () => {
+  const snapshot = snapshotOf(kissingDefinition);
+  const [grid] = snapshotGrids(snapshot) as [Grid];
+  let text = "";
+  beforeAll(async () => {
+    ({ text } = await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "draft", approvedAt: null, approvedByName: null }))));
+  }, 60_000);
+
+  it("prints the square law and every cell as the model decides, with the draft marks", () => {
+    const flat = squash(text);
+    expect(flat).toContain("Law: Square (area-preserving)");
+    expect(flat).toContain("Dp² = Dmb² + Dsb²");
+    expect(flat).toContain("DRAFT — not approved");
+    expect(flat).toContain("Side-branch balloon from parent × main branch");
+    expect(flat).toContain("Balloon rounded down to the next smaller stocked size (common practice)");
+    const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
+    expect(read.cells).toEqual(expectedCells(grid));
+  });
+
+  it("matches the square law computed here, rounded down to stock (side branch, common practice)", () => {
+    const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
+    const at = (p: number, mb: number) => read.cells[grid.rowAxis.values.indexOf(p)]?.[grid.colAxis.values.indexOf(mb)];
+    // Dp² = Dmb² + Dsb²  =>  Dsb = sqrt(Dp² - Dmb²)
+    const sb = Math.sqrt(3.5 ** 2 - 2.5 ** 2); // 2.449
+    expect(at(3.5, 2.5)).toMatchObject({ exact: `(${sb.toFixed(2)})`, primary: "2.25" });
+    const sb2 = Math.sqrt(4.5 ** 2 - 3.25 ** 2); // 3.112
+    expect(at(4.5, 3.25)).toMatchObject({ exact: `(${sb2.toFixed(2)})`, primary: "3.0" });
+  });
+});
