@@ -1,0 +1,308 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useMemo, useState, useTransition } from "react";
+import { useFieldArray, useForm, useWatch, type FieldErrors } from "react-hook-form";
+import { saveChartAction } from "@/app/(lab)/labs/[slug]/charts/actions";
+import { ChartPreview } from "@/components/charts/chart-preview";
+import { Button } from "@/components/ui/button";
+import { defaultLookup } from "@/lib/charts/defaults";
+import type { LabStock } from "@/lib/charts/snapshot";
+import { ORIENTATIONS, PAPER_IDS, PAPERS } from "@/lib/poster/paper";
+import { FINET_DEFAULT_RATIO, LAW_IDS, LAWS, type LookupKind } from "@/lib/sizing";
+import { chartDefinitionSchema, LOOKUP_KINDS, ROUNDING_RULES, type ChartDefinition } from "@/lib/validation/chart";
+
+const KIND_LABELS: Record<LookupKind, string> = {
+  proximal: "Proximal (POT balloon from main × side branch)",
+  side: "Side branch (kissing balloon from parent × main branch)",
+  main: "Main branch (balloon from parent × side branch)",
+};
+const RULE_LABELS = { up: "Up (larger size)", down: "Down (smaller size)", nearest: "Nearest size", reach: "Reach by pressure" } as const;
+
+const field = "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 disabled:bg-paper-sunk";
+const label = "block text-sm font-medium";
+
+function errorAt(errors: FieldErrors<ChartDefinition>, path: string): string | undefined {
+  let node: unknown = errors;
+  for (const key of path.split(".")) node = (node as Record<string, unknown> | undefined)?.[key];
+  return (node as { message?: string } | undefined)?.message;
+}
+
+function FieldError({ message, id }: { message?: string; id: string }) {
+  return message ? (
+    <p id={id} className="mt-1 text-sm text-danger">
+      {message}
+    </p>
+  ) : null;
+}
+
+export function ChartDesigner({
+  slug,
+  chartId,
+  initial,
+  stock,
+  labName,
+  canEdit,
+}: {
+  slug: string;
+  chartId: number | null;
+  initial: ChartDefinition;
+  stock: LabStock;
+  labName: string;
+  canEdit: boolean;
+}) {
+  const router = useRouter();
+  const [pending, startTransition] = useTransition();
+  const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
+  const form = useForm<ChartDefinition>({ resolver: zodResolver(chartDefinitionSchema) as never, defaultValues: initial, mode: "onChange" });
+  const { register, control, handleSubmit, formState, setError, setValue } = form;
+  const lookups = useFieldArray({ control, name: "lookups" });
+  const values = useWatch({ control }) as ChartDefinition;
+  const law = values.law?.law;
+  const usedKinds = new Set((values.lookups ?? []).map((l) => l.kind));
+  const families = stock.balloonFamilies;
+
+  const preview = useMemo(() => chartDefinitionSchema.safeParse(values), [values]);
+
+  const onSubmit = handleSubmit((def) => {
+    setNotice(null);
+    startTransition(async () => {
+      const res = await saveChartAction(slug, chartId, def);
+      if (!res.ok) {
+        for (const [path, message] of Object.entries(res.fieldErrors ?? {})) setError(path as never, { message });
+        setNotice({ ok: false, text: res.message ?? "The chart was not saved." });
+        return;
+      }
+      setNotice({ ok: true, text: res.message ?? "Saved." });
+      if (chartId === null && res.id) router.push(`/labs/${slug}/charts/${res.id}`);
+      else router.refresh();
+    });
+  });
+
+  const num = { valueAsNumber: true } as const;
+  return (
+    <div className="grid gap-8 xl:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
+      <form onSubmit={onSubmit} noValidate aria-label="Chart design" className="space-y-6">
+        <fieldset disabled={!canEdit || pending} className="space-y-5">
+          <div>
+            <label htmlFor="title" className={label}>
+              Title
+            </label>
+            <input id="title" {...register("title")} className={field} aria-invalid={Boolean(errorAt(formState.errors, "title"))} aria-describedby="title-err" />
+            <FieldError id="title-err" message={errorAt(formState.errors, "title")} />
+          </div>
+
+          <div className="grid grid-cols-2 gap-3">
+            <div>
+              <label htmlFor="law" className={label}>
+                Law
+              </label>
+              <select
+                id="law"
+                className={field}
+                value={law}
+                onChange={(e) => {
+                  const id = e.target.value as ChartDefinition["law"]["law"];
+                  setValue("law", id === "finet" ? { law: id, ratio: FINET_DEFAULT_RATIO } : id === "power" ? { law: id, n: 2.3 } : { law: id }, { shouldValidate: true });
+                }}
+              >
+                {LAW_IDS.map((id) => (
+                  <option key={id} value={id}>
+                    {LAWS[id].name}
+                  </option>
+                ))}
+              </select>
+            </div>
+            {law === "finet" ? (
+              <div>
+                <label htmlFor="ratio" className={label}>
+                  Ratio (0.55–0.80)
+                </label>
+                <input id="ratio" type="number" step="0.001" {...register("law.ratio", num)} className={field} />
+                <FieldError id="ratio-err" message={errorAt(formState.errors, "law.ratio")} />
+              </div>
+            ) : null}
+            {law === "power" ? (
+              <div>
+                <label htmlFor="n" className={label}>
+                  Exponent n (1.5–3.5)
+                </label>
+                <input id="n" type="number" step="0.01" {...register("law.n", num)} className={field} />
+                <FieldError id="n-err" message={errorAt(formState.errors, "law.n")} />
+              </div>
+            ) : null}
+          </div>
+
+          {lookups.fields.map((f, i) => (
+            <fieldset key={f.id} className="rounded-card border border-line bg-paper-raised p-4">
+              <legend className="px-1 text-sm font-semibold">Lookup {i + 1}</legend>
+              <div className="space-y-3">
+                <div>
+                  <label htmlFor={`kind-${i}`} className={label}>
+                    Kind
+                  </label>
+                  <select id={`kind-${i}`} {...register(`lookups.${i}.kind`)} className={field}>
+                    {LOOKUP_KINDS.map((k) => (
+                      <option key={k} value={k} disabled={k !== values.lookups?.[i]?.kind && usedKinds.has(k)}>
+                        {KIND_LABELS[k]}
+                      </option>
+                    ))}
+                  </select>
+                  <FieldError id={`kind-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.kind`)} />
+                </div>
+                <div className="grid grid-cols-2 gap-3">
+                  <div>
+                    <label htmlFor={`family-${i}`} className={label}>
+                      Balloon family
+                    </label>
+                    <select id={`family-${i}`} {...register(`lookups.${i}.familyId`, num)} className={field}>
+                      {families.length === 0 ? <option value={0}>No balloon families in stock</option> : null}
+                      {families.map((fam) => (
+                        <option key={fam.id} value={fam.id}>
+                          {fam.name}
+                        </option>
+                      ))}
+                    </select>
+                    <FieldError id={`family-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.familyId`)} />
+                  </div>
+                  <div>
+                    <label htmlFor={`rounding-${i}`} className={label}>
+                      Rounding to stock
+                    </label>
+                    <select id={`rounding-${i}`} {...register(`lookups.${i}.rounding`)} className={field}>
+                      {ROUNDING_RULES.map((r) => (
+                        <option key={r} value={r}>
+                          {RULE_LABELS[r]}
+                        </option>
+                      ))}
+                    </select>
+                  </div>
+                </div>
+                {(["rows", "cols"] as const).map((axis) => (
+                  <div key={axis}>
+                    <p className={label}>{axis === "rows" ? "Rows" : "Columns"} (mm): from, to, step</p>
+                    <div className="mt-1 grid grid-cols-3 gap-2">
+                      {(["from", "to", "step"] as const).map((part) => (
+                        <input
+                          key={part}
+                          aria-label={`Lookup ${i + 1} ${axis === "rows" ? "rows" : "columns"} ${part}`}
+                          type="number"
+                          step="0.05"
+                          {...register(`lookups.${i}.${axis}.${part}` as `lookups.${number}.rows.from`, num)}
+                          className={field}
+                        />
+                      ))}
+                    </div>
+                    <FieldError id={`${axis}-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.${axis}`)} />
+                  </div>
+                ))}
+                {lookups.fields.length > 1 ? (
+                  <Button type="button" variant="ghost" onClick={() => lookups.remove(i)}>
+                    Remove lookup {i + 1}
+                  </Button>
+                ) : null}
+              </div>
+            </fieldset>
+          ))}
+          {lookups.fields.length < 3 ? (
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() => {
+                const kind = LOOKUP_KINDS.find((k) => !usedKinds.has(k))!;
+                lookups.append(defaultLookup(kind, families[0]) as ChartDefinition["lookups"][number]);
+              }}
+            >
+              Add a lookup
+            </Button>
+          ) : null}
+          <FieldError id="lookups-err" message={errorAt(formState.errors, "lookups")} />
+
+          <div>
+            <label htmlFor="stent" className={label}>
+              Stent platform for hazard marks (POT above its maximum post-dilatation)
+            </label>
+            <select
+              id="stent"
+              className={field}
+              value={values.stentPlatformId ?? ""}
+              onChange={(e) => setValue("stentPlatformId", e.target.value ? Number(e.target.value) : null, { shouldValidate: true })}
+            >
+              <option value="">None</option>
+              {stock.stentPlatforms.map((p) => (
+                <option key={p.id} value={p.id}>
+                  {p.name}
+                </option>
+              ))}
+            </select>
+          </div>
+
+          <div className="grid grid-cols-3 gap-3">
+            <div>
+              <label htmlFor="paper" className={label}>
+                Paper
+              </label>
+              <select id="paper" {...register("paper")} className={field}>
+                {PAPER_IDS.map((p) => (
+                  <option key={p} value={p}>
+                    {PAPERS[p].label}
+                  </option>
+                ))}
+              </select>
+            </div>
+            <div>
+              <label htmlFor="orientation" className={label}>
+                Orientation
+              </label>
+              <select id="orientation" {...register("orientation")} className={field}>
+                {ORIENTATIONS.map((o) => (
+                  <option key={o} value={o}>
+                    {o}
+                  </option>
+                ))}
+              </select>
+            </div>
+            <div>
+              <label htmlFor="distance" className={label}>
+                Reading distance (m)
+              </label>
+              <input id="distance" type="number" step="0.1" {...register("readingDistanceM", num)} className={field} />
+              <FieldError id="distance-err" message={errorAt(formState.errors, "readingDistanceM")} />
+            </div>
+          </div>
+
+          <div>
+            <label htmlFor="notes" className={label}>
+              Notes printed on the poster
+            </label>
+            <textarea id="notes" rows={3} {...register("notes")} className={field} />
+            <FieldError id="notes-err" message={errorAt(formState.errors, "notes")} />
+          </div>
+        </fieldset>
+
+        {notice ? (
+          <p role={notice.ok ? "status" : "alert"} className={`rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}>
+            {notice.text}
+          </p>
+        ) : null}
+        {canEdit ? (
+          <Button type="submit" disabled={pending}>
+            {pending ? "Saving…" : chartId === null ? "Create chart" : "Save chart"}
+          </Button>
+        ) : (
+          <p className="text-sm text-ink-faint">Read only: educators and managers design charts.</p>
+        )}
+      </form>
+
+      <section aria-label="Live preview" className="min-w-0">
+        <h2 className="text-lg font-semibold">Live preview</h2>
+        {preview.success ? (
+          <ChartPreview definition={preview.data} stock={stock} labName={labName} />
+        ) : (
+          <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">Correct the highlighted fields to see the preview.</p>
+        )}
+      </section>
+    </div>
+  );
+}
