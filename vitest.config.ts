@@ -21,6 +21,8 @@ export default defineConfig({
           environment: "node",
           include: ["tests/integration/**/*.test.ts"],
           setupFiles: ["tests/integration/setup.ts"],
+          // next-auth imports "next/server" without an extension, which Node's ESM loader rejects.
+          server: { deps: { inline: ["next-auth"] } },
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,
