@@ -5,15 +5,15 @@ const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", 
 
 export function AuditTable({ events }: { events: AuditEntry[] }) {
   return (
-    <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
-      <table className="w-full text-left text-sm">
+    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
+      <table className="w-full min-w-[48rem] text-left text-sm">
         <caption className="sr-only">Audit log, newest first (times in UTC)</caption>
         <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
           <tr>
             <th scope="col" className="px-4 py-2">When (UTC)</th>
             <th scope="col" className="px-4 py-2">Who</th>
             <th scope="col" className="px-4 py-2">What</th>
-            <th scope="col" className="px-4 py-2">Detail</th>
+            <th scope="col" className="w-2/5 px-4 py-2">Detail</th>
           </tr>
         </thead>
         <tbody>
@@ -28,7 +28,7 @@ export function AuditTable({ events }: { events: AuditEntry[] }) {
                   {e.actorName ? (
                     <>
                       <span className="font-medium">{e.actorName}</span>
-                      <span className="block break-all text-xs text-ink-faint">{e.actorEmail}</span>
+                      <span className="block break-words text-xs text-ink-faint">{e.actorEmail}</span>
                     </>
                   ) : (
                     <span className="text-ink-faint">not signed in</span>
@@ -46,7 +46,7 @@ export function AuditTable({ events }: { events: AuditEntry[] }) {
                       {lines.map((l, i) => (
                         <div key={i} className="contents">
                           <dt className="text-ink-faint">{l.label}</dt>
-                          <dd className="break-all">
+                          <dd className="break-words">
                             {l.value ?? (
                               <>
                                 <span className="text-ink-soft">{l.before}</span> <span aria-label="changed to">→</span> <strong>{l.after}</strong>

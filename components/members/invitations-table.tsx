@@ -4,6 +4,7 @@ import { useActionState, useState } from "react";
 import { resendInvitationAction, revokeInvitationAction } from "@/app/(lab)/labs/[slug]/members/actions";
 import type { ActionState } from "@/lib/auth/action-guard";
 import { ROLE_LABELS, type Role } from "@/lib/permissions";
+import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 
@@ -17,47 +18,52 @@ async function invitationIntent(prev: ActionState, form: FormData): Promise<Acti
 
 export function InvitationsTable({ slug, invitations }: { slug: string; invitations: InvitationView[] }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(invitationIntent, {});
+  // Stays mounted when the list empties, so the outcome of the last revoke stays on screen.
   return (
     <div className="space-y-3">
       <FormStatus ok={state.ok} message={state.message} />
-      <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
-        <table className="w-full text-left text-sm">
-          <caption className="sr-only">Open invitations</caption>
-          <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
-            <tr>
-              <th scope="col" className="px-4 py-2">E-mail</th>
-              <th scope="col" className="px-4 py-2">Role</th>
-              <th scope="col" className="px-4 py-2">Status</th>
-              <th scope="col" className="px-4 py-2">Last sent</th>
-              <th scope="col" className="px-4 py-2"><span className="sr-only">Actions</span></th>
-            </tr>
-          </thead>
-          <tbody>
-            {invitations.map((inv) => (
-              <tr key={inv.id} className="border-b border-line last:border-0" data-testid={`invitation-${inv.email}`}>
-                <td className="break-all px-4 py-2 font-medium">{inv.email}</td>
-                <td className="px-4 py-2">{ROLE_LABELS[inv.role]}</td>
-                <td className="px-4 py-2">
-                  {inv.status === "expired" ? (
-                    <span className="font-medium text-warn">Expired</span>
-                  ) : (
-                    <span>
-                      Pending <span className="text-ink-faint">until {when.format(inv.expiresAt)}</span>
-                    </span>
-                  )}
-                </td>
-                <td className="px-4 py-2 text-ink-soft">
-                  {when.format(inv.lastSentAt)}
-                  {inv.invitedByName ? <span className="block text-xs text-ink-faint">by {inv.invitedByName}</span> : null}
-                </td>
-                <td className="px-4 py-2">
-                  <InvitationActions slug={slug} invitation={inv} action={action} pending={pending} />
-                </td>
+      {invitations.length === 0 ? (
+        <EmptyState title="No open invitations">Invitations you send appear here until they are accepted or revoked.</EmptyState>
+      ) : (
+        <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
+          <table className="w-full min-w-[44rem] text-left text-sm">
+            <caption className="sr-only">Open invitations</caption>
+            <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
+              <tr>
+                <th scope="col" className="px-4 py-2">E-mail</th>
+                <th scope="col" className="px-4 py-2">Role</th>
+                <th scope="col" className="px-4 py-2">Status</th>
+                <th scope="col" className="px-4 py-2">Last sent</th>
+                <th scope="col" className="px-4 py-2"><span className="sr-only">Actions</span></th>
               </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+            </thead>
+            <tbody>
+              {invitations.map((inv) => (
+                <tr key={inv.id} className="border-b border-line last:border-0" data-testid={`invitation-${inv.email}`}>
+                  <td className="break-words px-4 py-2 font-medium">{inv.email}</td>
+                  <td className="px-4 py-2">{ROLE_LABELS[inv.role]}</td>
+                  <td className="px-4 py-2">
+                    {inv.status === "expired" ? (
+                      <span className="font-medium text-warn">Expired</span>
+                    ) : (
+                      <span>
+                        Pending <span className="text-ink-faint">until {when.format(inv.expiresAt)}</span>
+                      </span>
+                    )}
+                  </td>
+                  <td className="px-4 py-2 text-ink-soft">
+                    {when.format(inv.lastSentAt)}
+                    {inv.invitedByName ? <span className="block text-xs text-ink-faint">by {inv.invitedByName}</span> : null}
+                  </td>
+                  <td className="px-4 py-2">
+                    <InvitationActions slug={slug} invitation={inv} action={action} pending={pending} />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
     </div>
   );
 }

@@ -34,7 +34,7 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
         </span>
       ),
     }),
-    col.accessor("email", { header: "E-mail", cell: (c) => <span className="break-all text-ink-soft">{c.getValue()}</span> }),
+    col.accessor("email", { header: "E-mail", cell: (c) => <span className="break-words text-ink-soft">{c.getValue()}</span> }),
     col.accessor("role", {
       header: "Role",
       sortingFn: (a, b) => ROLES.indexOf(a.original.role) - ROLES.indexOf(b.original.role),
@@ -81,8 +81,8 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
   return (
     <div className="space-y-3">
       <FormStatus ok={state.ok} message={state.message} />
-      <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
-        <table className="w-full text-left text-sm">
+      <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
+        <table className="w-full min-w-[44rem] text-left text-sm">
           <caption className="sr-only">Members of the lab</caption>
           <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
             {table.getHeaderGroups().map((hg) => (

@@ -106,5 +106,5 @@ export async function joinLabAction(_prev: ActionState, form: FormData): Promise
     if (err instanceof AppError) return { ok: false, message: err.message };
     throw err;
   }
-  redirect(`/labs/${slug}?joined=1`);
+  redirect(`/labs/${slug}`);
 }

@@ -1,7 +1,6 @@
 import { InvitationsTable } from "@/components/members/invitations-table";
 import { InviteForm } from "@/components/members/invite-form";
 import { MembersTable } from "@/components/members/members-table";
-import { EmptyState } from "@/components/ui/empty-state";
 import { Forbidden } from "@/components/ui/forbidden";
 import { listOpenInvitations } from "@/db/queries/invitations";
 import { listMembers } from "@/db/queries/members";
@@ -40,11 +39,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
         <h2 id="invitations-heading" className="mb-3 text-lg font-semibold">
           Open invitations
         </h2>
-        {invitations.length === 0 ? (
-          <EmptyState title="No open invitations">Invitations you send appear here until they are accepted or revoked.</EmptyState>
-        ) : (
-          <InvitationsTable slug={slug} invitations={invitations} />
-        )}
+        <InvitationsTable slug={slug} invitations={invitations} />
       </section>
     </div>
   );
