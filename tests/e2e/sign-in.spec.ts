@@ -77,6 +77,7 @@ test("forgotten password: the same answer for any address, a single-use link by 
   const stranger = uniqueEmail("stranger");
   await page.goto("/sign-in");
   await page.getByRole("link", { name: "Forgot your password?" }).click();
+  await expect(page.getByRole("heading", { name: "Reset your password" })).toBeVisible();
   for (const email of [stranger, person.email]) {
     await page.getByLabel("E-mail").fill(email);
     await page.getByRole("button", { name: "Send the link" }).click();
