@@ -28,9 +28,3 @@ export const idParam = z.object({ id: idField });
 export const memberIdSchema = z.object({ membershipId: idField });
 export const memberRoleFormSchema = z.object({ membershipId: idField, role: roleField });
 export const invitationIdSchema = z.object({ invitationId: idField });
-
-export const auditQuerySchema = z.object({
-  before: idField.optional(),
-  after: idField.optional(),
-  limit: z.coerce.number({ error: "Must be a number." }).int("Must be a whole number.").min(1, "At least 1.").max(200, "At most 200.").default(50),
-});

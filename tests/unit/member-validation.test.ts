@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { invitationMail, passwordResetMail } from "@/lib/mail/templates";
 import { acceptNewAccountSchema, resetPasswordSchema } from "@/lib/validation/auth";
-import { auditQuerySchema, changeRoleSchema, idParam, inviteSchema } from "@/lib/validation/members";
+import { auditQuerySchema } from "@/lib/validation/audit";
+import { changeRoleSchema, idParam, inviteSchema } from "@/lib/validation/members";
 
 const token = "A".repeat(43);
 const issues = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>

@@ -6,7 +6,7 @@ import { Forbidden } from "@/components/ui/forbidden";
 import { FormStatus } from "@/components/ui/form-status";
 import { listAuditEvents } from "@/db/queries/audit";
 import { memberForPage } from "@/lib/auth/page-guard";
-import { auditQuerySchema } from "@/lib/validation/members";
+import { auditQuerySchema } from "@/lib/validation/audit";
 
 export const metadata = { title: "Audit log" };
 

@@ -1,6 +1,6 @@
 import { listAuditEvents } from "@/db/queries/audit";
 import { labRoute, parseWith } from "@/lib/auth/guard";
-import { auditQuerySchema } from "@/lib/validation/members";
+import { auditQuerySchema } from "@/lib/validation/audit";
 
 export const GET = labRoute("audit:read", async (req, member) => {
   const query = parseWith(auditQuerySchema, Object.fromEntries(new URL(req.url).searchParams));
