@@ -21,6 +21,10 @@ const schema = z
     SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
     MAIL_FROM: z.string().default("Forkwall <no-reply@forkwall.test>"),
     MAIL_FAKE_URL: z.url().optional(),
+    // Sign-in throttle: failures allowed per account and per client address inside one window.
+    SIGNIN_MAX_FAILS_PER_ACCOUNT: z.coerce.number().int().min(1).max(1000).default(5),
+    SIGNIN_MAX_FAILS_PER_IP: z.coerce.number().int().min(1).max(100000).default(30),
+    SIGNIN_THROTTLE_SECONDS: z.coerce.number().int().min(1).max(86400).default(900),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .transform((e) => ({

@@ -1,14 +1,10 @@
 import Link from "next/link";
 import { listLabsForUser } from "@/db/queries/members";
-import { signOut } from "@/lib/auth/config";
+import { signOutAction } from "@/lib/auth/actions";
 import { currentUser } from "@/lib/auth/session";
+import { mailFakeConfigured } from "@/lib/mail/send";
 import { ROLE_LABELS } from "@/lib/permissions";
 import { buttonClass } from "@/components/ui/button";
-
-async function signOutAction() {
-  "use server";
-  await signOut({ redirectTo: "/" });
-}
 
 export async function SiteHeader() {
   const user = await currentUser().catch(() => null);
@@ -27,6 +23,11 @@ export async function SiteHeader() {
           {user ? (
             <Link href="/dashboard" className="rounded px-2 py-1 text-ink-soft hover:text-ink">
               Dashboard
+            </Link>
+          ) : null}
+          {labs.some((l) => l.role === "manager") && mailFakeConfigured() ? (
+            <Link href="/dev/mail" className="rounded px-2 py-1 text-ink-soft hover:text-ink" title="Messages kept by the local mail fake (development only)">
+              Mail (local)
             </Link>
           ) : null}
         </nav>

@@ -1,8 +1,10 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, count, eq } from "drizzle-orm";
+import { AppError, notFound } from "@/lib/errors";
 import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { labs, memberships, users } from "../schema";
+import { recordAudit, type Tx } from "./audit";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -41,4 +43,91 @@ export async function findLabByIdWithRole({ labId, userId }: { labId: number; us
     .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
     .where(eq(labs.id, labId));
   return row ? { ...row, role: (row.role ?? null) as Role | null } : null;
+}
+
+export type MemberRow = Awaited<ReturnType<typeof listMembers>>[number];
+
+export async function listMembers({ labId }: { labId: number }) {
+  return db
+    .select({
+      id: memberships.id,
+      userId: users.id,
+      name: users.name,
+      email: users.email,
+      role: memberships.role,
+      notifyStale: memberships.notifyStale,
+      joinedAt: memberships.createdAt,
+    })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.labId, labId))
+    .orderBy(asc(users.name), asc(memberships.id));
+}
+
+// Membership changes in one lab run one at a time: the lab row is the lock, so two managers
+// demoting each other at once cannot leave the lab without a manager.
+export async function lockLab(tx: Tx, labId: number) {
+  await tx.select({ id: labs.id }).from(labs).where(eq(labs.id, labId)).for("update");
+}
+
+async function memberInLab(tx: Tx, labId: number, membershipId: number) {
+  const [row] = await tx
+    .select({ id: memberships.id, userId: memberships.userId, role: memberships.role, name: users.name, email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+  if (!row) throw notFound("That member");
+  return row;
+}
+
+async function managerCount(tx: Tx, labId: number): Promise<number> {
+  const [row] = await tx
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.labId, labId), eq(memberships.role, "manager")));
+  return Number(row?.n ?? 0);
+}
+
+const lastManager = (name: string, doing: string) =>
+  new AppError("conflict", `${name} is the lab's only manager and cannot be ${doing}. Make another member a manager first.`, [
+    { path: ["role"], message: "A lab keeps at least one manager." },
+  ]);
+
+export async function changeMemberRole({ labId, membershipId, role, actorUserId }: { labId: number; membershipId: number; role: Role; actorUserId: number }) {
+  return db.transaction(async (tx) => {
+    await lockLab(tx, labId);
+    const member = await memberInLab(tx, labId, membershipId);
+    if (member.role === role) return { ...member, changed: false };
+    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "given another role");
+    await tx.update(memberships).set({ role }).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId,
+      action: "member.role_changed",
+      targetType: "membership",
+      targetId: membershipId,
+      detail: { member: member.email, before: { role: member.role }, after: { role } },
+    });
+    return { ...member, role, changed: true };
+  });
+}
+
+export async function removeMember({ labId, membershipId, actorUserId }: { labId: number; membershipId: number; actorUserId: number }) {
+  return db.transaction(async (tx) => {
+    await lockLab(tx, labId);
+    const member = await memberInLab(tx, labId, membershipId);
+    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
+    await tx.delete(memberships).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId,
+      action: "member.removed",
+      targetType: "membership",
+      targetId: membershipId,
+      detail: { member: member.email, name: member.name, before: { role: member.role }, after: null },
+    });
+    return member;
+  });
 }

@@ -1,9 +1,10 @@
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import { z } from "zod";
-import { findUserByEmail } from "@/db/queries/members";
 import { env } from "@/lib/env";
-import { PASSWORD_MAX, verifyPassword } from "./password";
+import { PASSWORD_MAX } from "./password";
+import { verifySignIn } from "./sign-in";
+import { clientAddress } from "./throttle-policy";
 
 const credentials = z.object({
   email: z.email().max(254),
@@ -20,15 +21,25 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   secret: env.AUTH_SECRET,
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
   pages: { signIn: "/sign-in" },
+  // A wrong password is an expected outcome (answered on the form and audited), not a server error.
+  logger: {
+    error(error) {
+      if (error instanceof CredentialsSignin || (error as { type?: string }).type === "CredentialsSignin") return;
+      console.error(error);
+    },
+  },
   providers: [
     Credentials({
       credentials: { email: { label: "E-mail" }, password: { label: "Password", type: "password" } },
-      async authorize(raw) {
+      async authorize(raw, request) {
         const parsed = credentials.safeParse(raw);
         if (!parsed.success) return null;
-        const user = await findUserByEmail({ email: parsed.data.email });
-        if (!user || !(await verifyPassword(parsed.data.password, user.passwordHash))) return null;
-        return { id: String(user.id), email: user.email, name: user.name };
+        const result = await verifySignIn({ ...parsed.data, ip: clientAddress(request.headers) });
+        if (!result.ok) {
+          if (result.reason === "throttled") throw new ThrottledSignin();
+          return null;
+        }
+        return { id: String(result.user.id), email: result.user.email, name: result.user.name };
       },
     }),
   ],

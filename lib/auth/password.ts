@@ -2,8 +2,7 @@ import bcrypt from "bcryptjs";
 
 // bcrypt (Provos & Mazieres, USENIX 1999); cost 11 keeps sign-in near 150 ms in pure JS.
 const COST = 11;
-export const PASSWORD_MIN = 10;
-export const PASSWORD_MAX = 72; // bcrypt reads at most 72 bytes
+export { PASSWORD_MAX, PASSWORD_MIN } from "./password-rules";
 
 export function hashPassword(plain: string): Promise<string> {
   return bcrypt.hash(plain, COST);

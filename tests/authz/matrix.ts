@@ -18,7 +18,10 @@ export type RouteRow = {
   /** The concrete request; a function when it needs seeded ids. */
   url: string | ((ids: DemoIds) => string);
   body?: unknown;
-  expect: Record<Actor, number>;
+  /** The status per actor; absent only on exempt rows. */
+  expect?: Record<Actor, number>;
+  /** Not walked: why this route is outside the lab guard (e.g. next-auth's own endpoints). */
+  exempt?: string;
   note?: string;
 };
 
@@ -54,9 +57,102 @@ const stockWrite = (method: HttpMethod, path: string, url: string, body?: unknow
   expect: statuses(["manager"], 400),
 });
 
+/** Managers 200, other roles 403; the operator's status differs in a lab they are not in (404). */
+const managerOnly = (operatorStatus = 403) => ({ ...statuses(["manager"], 200), operator: operatorStatus });
+/** Changes walked with a bad body or id: allowed roles get 400, so walking changes nothing. */
+const managerBadInput = (operatorStatus = 403) => ({ ...statuses(["manager"], 400), operator: operatorStatus });
+const everyoneSignedIn = (status: number) => statuses(ALL_ROLES, status);
+
+const lab = (slug: string) => `/api/v1/labs/${slug}`;
+const NO_LAB = "no-such-lab";
+// Seeded ids (tests/e2e/support/db.ts): membership ids as "<lab>:<role>".
+const m = (ids: DemoIds, key: string) => String(ids[key]);
+
 export const ROUTES: RouteRow[] = [
   { kind: "route", method: "GET", route: "/api/health", url: "/api/health", expect: statuses(["anonymous", ...ALL_ROLES], 200) },
+  { kind: "route", method: "GET", route: "/api/auth/[...nextauth]", url: "/api/auth/session", exempt: "next-auth's own endpoints (csrf, session, providers): public by design, they carry no lab data" },
+  { kind: "route", method: "POST", route: "/api/auth/[...nextauth]", url: "/api/auth/callback/credentials", exempt: "next-auth's own sign-in and sign-out endpoints, protected by its CSRF token and the sign-in throttle" },
+
+  // members
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/members", url: `${lab("demo")}/members`, expect: managerOnly() },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/members", url: `${lab("demo-north")}/members`, expect: managerOnly(404), note: "the operator is not in demo-north" },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/members", url: `${lab(NO_LAB)}/members`, expect: everyoneSignedIn(404) },
+  {
+    kind: "route",
+    method: "PATCH",
+    route: "/api/v1/labs/[slug]/members/[id]",
+    url: (ids) => `${lab("demo")}/members/${m(ids, "demo:operator")}`,
+    body: { role: "chief" },
+    expect: managerBadInput(),
+  },
+  {
+    kind: "route",
+    method: "PATCH",
+    route: "/api/v1/labs/[slug]/members/[id]",
+    url: (ids) => `${lab("demo-north")}/members/${m(ids, "demo-north:lead")}`,
+    body: { role: "chief" },
+    expect: managerBadInput(404),
+  },
+  {
+    kind: "route",
+    method: "PATCH",
+    route: "/api/v1/labs/[slug]/members/[id]",
+    url: (ids) => `${lab("demo")}/members/${m(ids, "demo-north:lead")}`,
+    body: { role: "lead" },
+    expect: statuses(["manager"], 404),
+    note: "a membership of another lab is not found through this lab (the body would change nothing)",
+  },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/members/[id]", url: `${lab("demo")}/members/not-a-number`, expect: managerBadInput() },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/members/[id]", url: `${lab("demo")}/members/999999999`, expect: statuses(["manager"], 404) },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/members/[id]", url: `${lab("demo-north")}/members/not-a-number`, expect: managerBadInput(404) },
+
+  // invitations
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/invitations", url: `${lab("demo")}/invitations`, expect: managerOnly() },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/invitations", url: `${lab("demo-north")}/invitations`, expect: managerOnly(404) },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations", url: `${lab("demo")}/invitations`, body: { email: "not-an-address", role: "operator" }, expect: managerBadInput() },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations", url: `${lab("demo-north")}/invitations`, body: { email: "someone@example.test", role: "owner" }, expect: managerBadInput(404) },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations", url: `${lab(NO_LAB)}/invitations`, body: {}, expect: everyoneSignedIn(404) },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/invitations/[id]", url: `${lab("demo")}/invitations/not-a-number`, expect: managerBadInput() },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/invitations/[id]", url: `${lab("demo")}/invitations/999999999`, expect: statuses(["manager"], 404) },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/invitations/[id]", url: `${lab("demo-north")}/invitations/999999999`, expect: { ...statuses(["manager"], 404), operator: 404 } },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations/[id]/resend", url: `${lab("demo")}/invitations/0/resend`, expect: managerBadInput() },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations/[id]/resend", url: `${lab("demo")}/invitations/999999999/resend`, expect: statuses(["manager"], 404) },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/invitations/[id]/resend", url: `${lab("demo-north")}/invitations/999999999/resend`, expect: { ...statuses(["manager"], 404), operator: 404 } },
+
+  // audit log
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/audit", url: `${lab("demo")}/audit`, expect: managerOnly() },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/audit", url: `${lab("demo")}/audit?limit=0`, expect: managerBadInput() },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/audit", url: `${lab("demo-north")}/audit`, expect: managerOnly(404) },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/audit", url: `${lab(NO_LAB)}/audit`, expect: everyoneSignedIn(404) },
+
+  // charts and editions (seeded demo ids; allowed roles get a bad body or a conflict, so nothing changes)
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/charts", url: `${lab("demo")}/charts`, expect: everyoneSignedIn(200) },
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/charts", url: `${lab("demo-north")}/charts`, expect: { ...everyoneSignedIn(200), operator: 404 } },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/charts", url: `${lab("demo")}/charts`, body: { title: "" }, expect: statuses(["manager", "educator"], 400) },
+  { kind: "route", method: "GET", route: "/api/v1/charts/[id]", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}`, expect: everyoneSignedIn(200) },
+  { kind: "route", method: "GET", route: "/api/v1/charts/[id]", url: "/api/v1/charts/999999999", expect: everyoneSignedIn(404) },
+  { kind: "route", method: "PATCH", route: "/api/v1/charts/[id]", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}`, body: { paper: "B5" }, expect: statuses(["manager", "educator"], 400) },
+  { kind: "route", method: "POST", route: "/api/v1/charts/[id]/editions", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/editions`, body: { draft: false }, expect: statuses(["manager", "educator"], 400) },
+  { kind: "route", method: "POST", route: "/api/v1/editions/[id]/approve", url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/approve`, expect: statuses(["manager", "lead"], 409), note: "already approved: a conflict that changes nothing" },
+  { kind: "route", method: "POST", route: "/api/v1/editions/[id]/reject", url: (ids) => `/api/v1/editions/${ids["edition:draft"]}/reject`, body: {}, expect: statuses(["manager", "lead"], 400) },
+  { kind: "route", method: "POST", route: "/api/v1/editions/[id]/withdraw", url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/withdraw`, body: { reason: 5 }, expect: statuses(["manager"], 400) },
+  { kind: "route", method: "POST", route: "/api/v1/editions/[id]/withdraw", url: "/api/v1/editions/999999999/withdraw", body: {}, expect: everyoneSignedIn(404) },
+  { kind: "route", method: "GET", route: "/api/v1/editions/[id]/pdf", url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf`, expect: everyoneSignedIn(200), note: "every download is audited as a print" },
+  { kind: "route", method: "POST", route: "/api/v1/editions/[id]/postings", url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/postings`, body: { roomId: "x" }, expect: everyoneSignedIn(400) },
+
+  // rooms, postings and the public check
+  { kind: "route", method: "GET", route: "/api/v1/labs/[slug]/rooms", url: `${lab("demo")}/rooms`, expect: everyoneSignedIn(200) },
+  { kind: "route", method: "POST", route: "/api/v1/labs/[slug]/rooms", url: `${lab("demo")}/rooms`, body: { name: "" }, expect: statuses(["manager"], 400) },
+  { kind: "route", method: "PATCH", route: "/api/v1/labs/[slug]/rooms/[id]", url: (ids) => `${lab("demo")}/rooms/${ids["room:1"]}`, body: { name: "" }, expect: statuses(["manager"], 400) },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/rooms/[id]", url: `${lab("demo")}/rooms/999999999`, expect: statuses(["manager"], 404) },
+  { kind: "route", method: "DELETE", route: "/api/v1/labs/[slug]/postings/[id]", url: `${lab("demo")}/postings/999999999`, expect: everyoneSignedIn(404) },
+  { kind: "route", method: "GET", route: "/api/v1/check/[token]", url: (ids) => `/api/v1/check/${ids["token:pot"]}`, expect: statuses(["anonymous", ...ALL_ROLES], 200), note: "public: what the poster's QR code opens" },
+  { kind: "route", method: "GET", route: "/api/v1/check/[token]", url: "/api/v1/check/AAAAAAAAAAAAAAAAAAAAAAAA", expect: statuses(["anonymous", ...ALL_ROLES], 404) },
+
+  // public sizing
   { kind: "route", method: "GET", route: "/api/v1/solve", url: "/api/v1/solve?law=murray&mb=3&sb=2", expect: statuses(["anonymous", ...ALL_ROLES], 200), note: "public: holds no lab data" },
+
+  // stock
   { kind: "route", method: "GET", route: STOCK, url: demoStock, expect: statuses(ALL_ROLES, 200) },
   stockWrite("POST", "/families", "/families", {}),
   stockWrite("PATCH", "/families/[id]", "/families/0", {}),
@@ -73,4 +169,34 @@ export const ROUTES: RouteRow[] = [
   { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
 ];
 
-export const ACTIONS: ActionRow[] = [];
+const ANYONE = ["anonymous", ...ALL_ROLES] as const;
+const MEMBERS_ACTIONS = "app/(lab)/labs/[slug]/members/actions.ts";
+const CHART_ACTIONS = "app/(lab)/labs/[slug]/charts/actions.ts";
+const ROOM_ACTIONS = "app/(lab)/labs/[slug]/rooms/actions.ts";
+const CHECK_ACTIONS = "app/(public)/v/[token]/actions.ts";
+const AUTH_ACTIONS = "lib/auth/actions.ts";
+
+export const ACTIONS: ActionRow[] = [
+  { kind: "action", file: AUTH_ACTIONS, name: "signInAction", allowed: ANYONE, note: "checks the password under the sign-in throttle" },
+  { kind: "action", file: AUTH_ACTIONS, name: "signOutAction", allowed: ANYONE, note: "ends the caller's own session only" },
+  { kind: "action", file: AUTH_ACTIONS, name: "requestPasswordResetAction", allowed: ANYONE, note: "same answer for every address; at most 5 e-mails per address per hour" },
+  { kind: "action", file: AUTH_ACTIONS, name: "resetPasswordAction", allowed: ANYONE, note: "the single-use e-mailed token is the credential" },
+  { kind: "action", file: AUTH_ACTIONS, name: "acceptInvitationAction", allowed: ANYONE, note: "the single-use e-mailed token is the credential; creates only the invited address's account" },
+  { kind: "action", file: AUTH_ACTIONS, name: "joinLabAction", allowed: ["any-signed-in"], note: "and only the account whose address was invited" },
+  { kind: "action", file: MEMBERS_ACTIONS, name: "inviteMemberAction", allowed: ["manager"] },
+  { kind: "action", file: MEMBERS_ACTIONS, name: "resendInvitationAction", allowed: ["manager"] },
+  { kind: "action", file: MEMBERS_ACTIONS, name: "revokeInvitationAction", allowed: ["manager"] },
+  { kind: "action", file: MEMBERS_ACTIONS, name: "changeMemberRoleAction", allowed: ["manager"] },
+  { kind: "action", file: MEMBERS_ACTIONS, name: "removeMemberAction", allowed: ["manager"] },
+  { kind: "action", file: CHART_ACTIONS, name: "saveChartAction", allowed: ["manager", "educator"] },
+  { kind: "action", file: CHART_ACTIONS, name: "createEditionAction", allowed: ["manager", "educator"] },
+  { kind: "action", file: CHART_ACTIONS, name: "approveEditionAction", allowed: ["manager", "lead"], note: "and never by the edition's author" },
+  { kind: "action", file: CHART_ACTIONS, name: "rejectEditionAction", allowed: ["manager", "lead"] },
+  { kind: "action", file: CHART_ACTIONS, name: "withdrawEditionAction", allowed: ["manager"] },
+  { kind: "action", file: ROOM_ACTIONS, name: "createRoomAction", allowed: ["manager"] },
+  { kind: "action", file: ROOM_ACTIONS, name: "renameRoomAction", allowed: ["manager"] },
+  { kind: "action", file: ROOM_ACTIONS, name: "archiveRoomAction", allowed: ["manager"] },
+  { kind: "action", file: ROOM_ACTIONS, name: "takeDownAction", allowed: ALL_ROLES },
+  { kind: "action", file: CHECK_ACTIONS, name: "recordPostingAction", allowed: ALL_ROLES, note: "members of the edition's own lab" },
+  { kind: "action", file: CHECK_ACTIONS, name: "takeDownPostingAction", allowed: ALL_ROLES, note: "members of the edition's own lab" },
+];

@@ -1,15 +1,51 @@
+import Link from "next/link";
 import { SignInForm } from "@/components/auth/sign-in-form";
+import { FormStatus } from "@/components/ui/form-status";
+import { throttledMessage } from "@/lib/auth/throttle-policy";
+import { currentUser } from "@/lib/auth/session";
+import { env } from "@/lib/env";
 
 export const metadata = { title: "Sign in" };
 
-export default async function SignInPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string }> }) {
-  const { callbackUrl } = await searchParams;
-  const safe = callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/dashboard";
+type Search = { callbackUrl?: string; error?: string; code?: string; signedOut?: string; reset?: string; joined?: string; email?: string };
+
+function notice(q: Search): { ok: boolean; message: string } | null {
+  if (q.joined) return { ok: true, message: `Your account is ready and you have joined ${q.joined}. Sign in to open it.` };
+  if (q.reset) return { ok: true, message: "Your password was changed. Sign in with the new one." };
+  if (q.signedOut) return { ok: true, message: "You are signed out." };
+  // Errors from next-auth's own endpoint (a sign-in posted without JavaScript or by a script).
+  if (q.error && q.code === "throttled") return { ok: false, message: throttledMessage(env.SIGNIN_THROTTLE_SECONDS) };
+  if (q.error === "CredentialsSignin") return { ok: false, message: "That e-mail address and password do not match an account." };
+  if (q.error) return { ok: false, message: "Sign-in did not work. Please try again." };
+  return null;
+}
+
+export default async function SignInPage({ searchParams }: { searchParams: Promise<Search> }) {
+  const q = await searchParams;
+  const safe = q.callbackUrl && q.callbackUrl.startsWith("/") && !q.callbackUrl.startsWith("//") && !q.callbackUrl.startsWith("/\\") ? q.callbackUrl : "/dashboard";
+  const user = await currentUser().catch(() => null);
+  const n = notice(q);
   return (
-    <div className="mx-auto max-w-sm py-8">
+    <div>
       <h1 className="text-2xl font-bold">Sign in</h1>
       <p className="mt-1 text-sm text-ink-soft">Use the e-mail address your lab invited.</p>
-      <SignInForm callbackUrl={safe} />
+      {user ? (
+        <p className="mt-4 rounded-md border border-line bg-paper-sunk px-3 py-2 text-sm">
+          You are signed in as <strong>{user.email}</strong>.{" "}
+          <Link href="/dashboard" className="text-brand-700 underline">
+            Go to your labs
+          </Link>{" "}
+          or sign in below as someone else.
+        </p>
+      ) : null}
+      {n ? <FormStatus ok={n.ok} message={n.message} className="mt-4" /> : null}
+      <SignInForm callbackUrl={safe} email={q.email} />
+      <p className="mt-6 text-sm">
+        <Link href="/forgot-password" className="text-brand-700 underline">
+          Forgot your password?
+        </Link>
+      </p>
+      <p className="mt-2 text-xs text-ink-faint">No account? Forkwall accounts are created from an invitation sent by a lab manager.</p>
     </div>
   );
 }

@@ -1,0 +1,46 @@
+import { InvitationsTable } from "@/components/members/invitations-table";
+import { InviteForm } from "@/components/members/invite-form";
+import { MembersTable } from "@/components/members/members-table";
+import { Forbidden } from "@/components/ui/forbidden";
+import { listOpenInvitations } from "@/db/queries/invitations";
+import { listMembers } from "@/db/queries/members";
+import { memberForPage } from "@/lib/auth/page-guard";
+
+export const metadata = { title: "Members" };
+
+export default async function MembersPage({ params }: { params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const member = await memberForPage(slug, "members:manage", `/labs/${slug}/members`);
+  if (member === "forbidden") return <Forbidden what="manage the lab's members" slug={slug} />;
+  const [members, invitations] = await Promise.all([listMembers({ labId: member.lab.id }), listOpenInvitations({ labId: member.lab.id })]);
+  return (
+    <div className="space-y-10">
+      <section aria-labelledby="members-heading">
+        <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+          <h1 id="members-heading" className="text-xl font-bold">
+            Members
+          </h1>
+          <p className="text-sm text-ink-faint">
+            {members.length} {members.length === 1 ? "person" : "people"}; a lab always keeps at least one manager.
+          </p>
+        </div>
+        <MembersTable slug={slug} members={members} meUserId={member.user.id} />
+      </section>
+
+      <section aria-labelledby="invite-heading" className="rounded-card border border-line bg-paper-raised p-5">
+        <h2 id="invite-heading" className="mb-1 text-lg font-semibold">
+          Invite a person
+        </h2>
+        <p className="mb-4 text-sm text-ink-soft">They receive an e-mail with a link that works once and expires after 72 hours.</p>
+        <InviteForm slug={slug} />
+      </section>
+
+      <section aria-labelledby="invitations-heading">
+        <h2 id="invitations-heading" className="mb-3 text-lg font-semibold">
+          Open invitations
+        </h2>
+        <InvitationsTable slug={slug} invitations={invitations} />
+      </section>
+    </div>
+  );
+}

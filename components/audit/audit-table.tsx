@@ -1,0 +1,68 @@
+import type { AuditEntry } from "@/db/queries/audit";
+import { describeAction, describeDetail } from "@/lib/audit/describe";
+
+const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", second: "2-digit", timeZone: "UTC" });
+
+export function AuditTable({ events }: { events: AuditEntry[] }) {
+  return (
+    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
+      <table className="w-full min-w-[48rem] text-left text-sm">
+        <caption className="sr-only">Audit log, newest first (times in UTC)</caption>
+        <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="px-4 py-2">When (UTC)</th>
+            <th scope="col" className="px-4 py-2">Who</th>
+            <th scope="col" className="px-4 py-2">What</th>
+            <th scope="col" className="w-2/5 px-4 py-2">Detail</th>
+          </tr>
+        </thead>
+        <tbody>
+          {events.map((e) => {
+            const lines = describeDetail(e.detail);
+            return (
+              <tr key={e.id} className="border-b border-line align-top last:border-0" data-action={e.action}>
+                <td className="whitespace-nowrap px-4 py-2 tabular-nums">
+                  <time dateTime={e.createdAt.toISOString()}>{when.format(e.createdAt)}</time>
+                </td>
+                <td className="px-4 py-2">
+                  {e.actorName ? (
+                    <>
+                      <span className="font-medium">{e.actorName}</span>
+                      <span className="block break-words text-xs text-ink-faint">{e.actorEmail}</span>
+                    </>
+                  ) : (
+                    <span className="text-ink-faint">not signed in</span>
+                  )}
+                </td>
+                <td className="px-4 py-2">
+                  {describeAction(e.action)}
+                  {e.labId === null ? <span className="block text-xs text-ink-faint">account event</span> : null}
+                </td>
+                <td className="px-4 py-2">
+                  {lines.length === 0 ? (
+                    <span className="text-ink-faint">–</span>
+                  ) : (
+                    <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
+                      {lines.map((l, i) => (
+                        <div key={i} className="contents">
+                          <dt className="text-ink-faint">{l.label}</dt>
+                          <dd className="break-words">
+                            {l.value ?? (
+                              <>
+                                <span className="text-ink-soft">{l.before}</span> <span aria-label="changed to">→</span> <strong>{l.after}</strong>
+                              </>
+                            )}
+                          </dd>
+                        </div>
+                      ))}
+                    </dl>
+                  )}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}

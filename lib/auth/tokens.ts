@@ -1,0 +1,29 @@
+import { createHash, randomBytes } from "node:crypto";
+
+// Links sent by e-mail carry a random token; only its SHA-256 is stored, so a copy of the
+// database cannot be turned into working links.
+export const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
+export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
+
+export function hashToken(token: string): string {
+  return createHash("sha256").update(token, "utf8").digest("hex");
+}
+
+export function newToken(): { token: string; hash: string } {
+  const token = randomBytes(32).toString("base64url");
+  return { token, hash: hashToken(token) };
+}
+
+/** Tokens are 43 url-safe characters; anything else is not worth a database lookup. */
+export function looksLikeToken(value: string): boolean {
+  return /^[A-Za-z0-9_-]{43}$/.test(value);
+}
+
+export type LinkState = "valid" | "expired" | "used" | "revoked";
+
+export function linkState(row: { expiresAt: Date; usedAt?: Date | null; revokedAt?: Date | null }, now = new Date()): LinkState {
+  if (row.usedAt) return "used";
+  if (row.revokedAt) return "revoked";
+  if (row.expiresAt.getTime() <= now.getTime()) return "expired";
+  return "valid";
+}

@@ -1,0 +1,67 @@
+// Each integration file builds its own lab and people, so the seeded demo data that the browser
+// tests rely on is never touched.
+import { randomBytes } from "node:crypto";
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { labs, memberships, users } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { env } from "@/lib/env";
+import type { Role } from "@/lib/permissions";
+
+export const FIXTURE_PASSWORD = "fixture-password-2026";
+let hash: Promise<string> | undefined;
+
+export const unique = (prefix: string) => `${prefix}-${Date.now().toString(36)}${randomBytes(3).toString("hex")}`;
+
+export async function createLab(prefix = "it-lab") {
+  const slug = unique(prefix);
+  const [row] = await db.insert(labs).values({ slug, name: `Integration ${slug} (illustrative)` }).$returningId();
+  return { id: row!.id, slug, name: `Integration ${slug} (illustrative)` };
+}
+
+export async function createUser(prefix = "person") {
+  hash ??= hashPassword(FIXTURE_PASSWORD);
+  const email = `${unique(prefix)}@example.test`;
+  const name = `Fixture ${prefix}`;
+  const [row] = await db.insert(users).values({ email, name, passwordHash: await hash }).$returningId();
+  return { id: row!.id, email, name };
+}
+
+export async function addMember(labId: number, userId: number, role: Role) {
+  const [row] = await db.insert(memberships).values({ labId, userId, role }).$returningId();
+  return row!.id;
+}
+
+/** A lab with one person in each role, plus an outsider who manages another lab. */
+export async function labWithTeam() {
+  const lab = await createLab();
+  const other = await createLab("it-other");
+  const people = {} as Record<Role | "outsider", { id: number; email: string; name: string; membershipId: number }>;
+  for (const role of ["manager", "lead", "educator", "operator"] as const) {
+    const u = await createUser(role);
+    people[role] = { ...u, membershipId: await addMember(lab.id, u.id, role) };
+  }
+  const o = await createUser("outsider");
+  people.outsider = { ...o, membershipId: await addMember(other.id, o.id, "manager") };
+  return { lab, other, people };
+}
+
+export async function sessionUser(id: number) {
+  const [u] = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(eq(users.id, id));
+  return u!;
+}
+
+type FakeMessage = { id: number; envelopeTo: string[]; subject: string; text: string };
+
+/** What the SMTP fake received for one address, read over the fake's own HTTP interface. */
+export async function mailTo(address: string): Promise<FakeMessage[]> {
+  if (!env.MAIL_FAKE_URL) throw new Error("MAIL_FAKE_URL is not set: run through npm test");
+  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`);
+  return (await res.json()) as FakeMessage[];
+}
+
+export const linkIn = (text: string, kind: "invite" | "reset-password") => {
+  const m = text.match(new RegExp(`https?://\\S+/${kind}/([A-Za-z0-9_-]{43})`));
+  if (!m) throw new Error(`no ${kind} link in: ${text}`);
+  return { url: m[0], token: m[1]! };
+};
