@@ -41,15 +41,28 @@ async function benchInput() {
   return posterInput(snapshot);
 }
 
+async function pdfkitModules() {
+  const [pdfkit, layout, marks, labels, qr, model, snapshot] = await Promise.all([
+    import("pdfkit"),
+    import("../../lib/poster/layout"),
+    import("../../lib/poster/marks"),
+    import("../../lib/poster/labels"),
+    import("../../lib/poster/qr"),
+    import("../../lib/poster/model"),
+    import("../../lib/charts/snapshot"),
+  ]);
+  return { PDFDocument: pdfkit.default, ...layout, ...marks, ...labels, ...qr, ...model, ...snapshot };
+}
+
 /** The same page drawn directly with pdfkit: same layout boxes, texts, fonts and QR modules. */
 async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): Promise<Buffer> {
-  const { default: PDFDocument } = await import("pdfkit");
-  const { posterModel } = await import("../../components/poster/poster-document");
-  const { cellBox } = await import("../../lib/poster/layout");
-  const { cellView, cornerSymbols, formatAxisMm, PALETTE } = await import("../../lib/poster/marks");
-  const { lookupTitle } = await import("../../lib/poster/labels");
-  const { QR_QUIET_MODULES } = await import("../../lib/poster/qr");
-  const { layout, grids, legend, qr } = posterModel(input);
+  const { PDFDocument, cellBox, layoutPoster, cellView, cornerSymbols, formatAxisMm, PALETTE, lookupTitle, QR_QUIET_MODULES, qrSymbol, layoutInputFor, posterLegend, snapshotGrids } =
+    await pdfkitModules();
+  // The same pure model the poster uses, without loading react-pdf.
+  const layout = layoutPoster(layoutInputFor(input.snapshot, input.edition, input.logo !== null));
+  const grids = snapshotGrids(input.snapshot);
+  const legend = posterLegend(input.snapshot);
+  const qr = qrSymbol(input.edition.checkUrl);
   const doc = new PDFDocument({ size: [layout.page.width, layout.page.height], margin: 0, info: { Title: input.snapshot.title, CreationDate: new Date(0) } });
   const fonts = path.join(process.cwd(), "fonts");
   doc.registerFont("Inter", path.join(fonts, "Inter-Regular.ttf"));
@@ -109,7 +122,7 @@ async function child(engine: Engine) {
   const input = await benchInput();
   // Load the engine's modules before timing the first render, and report both.
   if (engine === "react-pdf") await import("../../components/poster/render");
-  else await import("pdfkit");
+  else await pdfkitModules();
   const importMs = performance.now() - t0;
   const firstMs = await renderOnce(engine, input);
   console.log(JSON.stringify({ importMs, firstMs }));
