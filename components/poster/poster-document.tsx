@@ -1,26 +1,18 @@
 import path from "node:path";
-import { Document, Font, Image, Line, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
+import { Document, Font, Image, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import type { Style } from "@react-pdf/stylesheet";
-import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
+import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
-import { lawFormula, lawName, LAWS, type Grid } from "@/lib/sizing";
-import {
-  approvalText,
-  axisTitles,
-  ROLE_SYMBOLS,
-  DRAFT_WATERMARK,
-  gridSubtitle,
-  lookupTitle,
-  shortUrl,
-  statusBanner,
-} from "@/lib/poster/labels";
+import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
+import { approvalText, axisTitles, DRAFT_WATERMARK, gridSubtitle, lookupTitle, ROLE_SYMBOLS, shortUrl, statusBanner } from "@/lib/poster/labels";
 import { cellBox, CELL, layoutPoster, type Box, type GridLayout, type PosterLayout } from "@/lib/poster/layout";
 import { legibilityLine, posterLegibility } from "@/lib/poster/legibility";
 import { cellView, cornerSymbols, formatAxisMm, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
+import { lawFormula, lawName, LAWS, type Grid } from "@/lib/sizing";
 
 export type PosterInput = {
   snapshot: Snapshot;
@@ -36,6 +28,9 @@ export type PosterInput = {
 };
 
 export const POSTER_FONT = "Inter";
+/** Metadata date of editions that carry no approval date: fixed, so drafts render byte-identically. */
+export const POSTER_EPOCH = new Date(Date.UTC(2000, 0, 1));
+
 let fontsRegistered = false;
 
 /** Registers Inter from fonts/ (absolute paths) and turns hyphenation off; safe to call often. */
@@ -57,160 +52,22 @@ export function registerPosterFonts(): void {
 const TNUM: Style = { fontFeatureSettings: ["tnum"] };
 const at = (b: Box): Style => ({ position: "absolute", left: b.x, top: b.y, width: b.width, height: b.height });
 
-/** Everything the document needs, computed once from the input (pure). */
+/** Everything the document draws, computed once from the input (pure). */
 export function posterModel(input: PosterInput) {
   const { snapshot, edition } = input;
   const grids = snapshotGrids(snapshot);
-  const layoutInput = layoutInputFor(snapshot, edition);
+  const layoutInput = layoutInputFor(snapshot, edition, input.logo !== null);
   const layout = layoutPoster(layoutInput);
   const legibility = posterLegibility({ ...layoutInput, readingDistanceM: snapshot.readingDistanceM });
   return { grids, layout, legibility, legend: posterLegend(snapshot), qr: qrSymbol(edition.checkUrl) };
 }
 
-function Hatch({ width, height, strokeWidth }: { width: number; height: number; strokeWidth: number }) {
-  const step = Math.max(height, width) / 5;
-  if (!(step > 0)) return null;
-  const lines = [];
-  for (let k = -height; k < width; k += step) {
-    lines.push(<Line key={k} x1={k} y1={height} x2={k + height} y2={0} stroke={PALETTE.hatch} strokeWidth={strokeWidth} />);
-  }
-  return (
-    <Svg width={width} height={height} viewBox={`0 0 ${width} ${height}`} style={{ position: "absolute", left: 0, top: 0 }}>
-      {lines}
-    </Svg>
-  );
-}
-
-/** One cell drawn from its view; also used, smaller, for the legend's swatches. */
-function CellBlock({ view, box, f, pressureLine, rule }: { view: CellView; box: Box; f: number; pressureLine: boolean; rule: number }) {
-  const small = f * CELL.smallRatio;
-  const inset = view.border * Math.min(box.width, box.height);
-  const pad = f * 0.1 + inset;
-  const corner = cornerSymbols(view);
-  return (
-    <View style={{ ...at(box), backgroundColor: view.background, borderRightWidth: rule, borderBottomWidth: rule, borderColor: PALETTE.rule }}>
-      {view.hatch ? <Hatch width={box.width - rule} height={box.height - rule} strokeWidth={Math.max(0.4, f * 0.03)} /> : null}
-      {view.exact ? (
-        <Text style={{ position: "absolute", left: pad, top: f * 0.06 + inset * 0.6, fontSize: small, lineHeight: 1, color: PALETTE.ink, ...TNUM }}>{view.exact}</Text>
-      ) : null}
-      {corner ? (
-        <Text style={{ position: "absolute", right: pad, top: f * 0.05 + inset * 0.6, fontSize: small * 1.1, lineHeight: 1, fontWeight: 700, color: PALETTE.ink }}>{corner}</Text>
-      ) : null}
-      <Text
-        style={{
-          position: "absolute",
-          left: 0,
-          width: box.width - rule,
-          top: f * CELL.figureTopEm,
-          fontSize: f,
-          lineHeight: 1,
-          fontWeight: 700,
-          textAlign: "center",
-          color: PALETTE.ink,
-          ...TNUM,
-        }}
-      >
-        {view.primary}
-      </Text>
-      {pressureLine && view.pressure ? (
-        <Text style={{ position: "absolute", left: 0, width: box.width - rule, top: f * (CELL.figureTopEm + 1.02), fontSize: small, lineHeight: 1, fontWeight: 600, textAlign: "center", color: PALETTE.ink, ...TNUM }}>
-          {view.pressure}
-        </Text>
-      ) : null}
-      {view.border > 0 ? (
-        <View
-          style={{
-            position: "absolute",
-            left: 0,
-            top: 0,
-            width: box.width - rule,
-            height: box.height - rule,
-            borderWidth: view.border * Math.min(box.width, box.height),
-            borderColor: PALETTE.ink,
-          }}
-        />
-      ) : null}
-    </View>
-  );
-}
-
-function GridBlock({ grid, g, f, layout, sub, pressureLine }: { grid: Grid; g: GridLayout; f: number; layout: PosterLayout; sub: string; pressureLine: boolean }) {
-  const { fonts, scale } = layout;
-  const titles = axisTitles(grid);
-  const head = f * CELL.headingRatio;
-  const rule = Math.max(0.5, 0.6 * scale);
-  const rows = grid.rowAxis.values;
-  const cols = grid.colAxis.values;
-  const rowAxisPt = Math.min(fonts.axis, g.rowAxis.height / ((titles.rows.length + 2) * 0.6));
-  const rowAxisCenter = { x: g.rowAxis.x + g.rowAxis.width / 2, y: g.rowAxis.y + g.rowAxis.height / 2 };
-  const corner: Box = { x: g.cellsX - g.rowHeadWidth, y: g.cellsY - g.colHeadHeight, width: g.rowHeadWidth, height: g.colHeadHeight };
-  return (
-    <>
-      <View style={at(g.title)}>
-        <Text style={{ fontSize: fonts.gridTitle, fontWeight: 700, lineHeight: 1.25, color: PALETTE.ink }}>{lookupTitle(grid.kind)}</Text>
-        <Text style={{ fontSize: fonts.gridSub, lineHeight: 1.25, color: PALETTE.inkSoft }}>{sub}</Text>
-      </View>
-      <Text style={{ ...at(g.colAxis), fontSize: fonts.axis, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2, color: PALETTE.ink }}>{`${titles.cols} →`}</Text>
-      <View
-        style={{
-          position: "absolute",
-          left: rowAxisCenter.x - g.rowAxis.height / 2,
-          top: rowAxisCenter.y - g.rowAxis.width / 2,
-          width: g.rowAxis.height,
-          height: g.rowAxis.width,
-          transform: "rotate(-90deg)",
-        }}
-      >
-        <Text style={{ fontSize: rowAxisPt, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2, color: PALETTE.ink }}>{`${titles.rows} ←`}</Text>
-      </View>
-      <View style={{ ...at(corner), backgroundColor: PALETTE.heading, borderWidth: rule, borderColor: PALETTE.rule }}>
-        <Text style={{ position: "absolute", right: f * 0.08, top: f * 0.04, fontSize: head * 0.5, fontWeight: 600, color: PALETTE.ink }}>{`${ROLE_SYMBOLS[grid.colAxis.role]} →`}</Text>
-        <Text style={{ position: "absolute", left: f * 0.08, bottom: f * 0.04, fontSize: head * 0.5, fontWeight: 600, color: PALETTE.ink }}>{`${ROLE_SYMBOLS[grid.rowAxis.role]} ↓`}</Text>
-      </View>
-      {cols.map((c, j) => (
-        <View
-          key={`c${j}`}
-          style={{
-            ...at({ x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight }),
-            backgroundColor: PALETTE.heading,
-            borderTopWidth: rule,
-            borderRightWidth: rule,
-            borderBottomWidth: rule,
-            borderColor: PALETTE.rule,
-            justifyContent: "center",
-          }}
-        >
-          <Text style={{ fontSize: head, fontWeight: 700, lineHeight: 1, textAlign: "center", color: PALETTE.ink, ...TNUM }}>{formatAxisMm(c)}</Text>
-        </View>
-      ))}
-      {rows.map((r, i) => (
-        <View
-          key={`r${i}`}
-          style={{
-            ...at({ x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight }),
-            backgroundColor: PALETTE.heading,
-            borderLeftWidth: rule,
-            borderRightWidth: rule,
-            borderBottomWidth: rule,
-            borderColor: PALETTE.rule,
-            justifyContent: "center",
-          }}
-        >
-          <Text style={{ fontSize: head, fontWeight: 700, lineHeight: 1, textAlign: "center", color: PALETTE.ink, ...TNUM }}>{formatAxisMm(r)}</Text>
-        </View>
-      ))}
-      {grid.cells.map((row, i) =>
-        row.map((cell, j) => <CellBlock key={`${i}-${j}`} view={cellView(cell)} box={cellBox(g, i, j)} f={f} pressureLine={pressureLine} rule={rule} />),
-      )}
-    </>
-  );
-}
-
-function Swatch({ mark, box, f }: { mark: MarkId | "sized"; box: Box; f: number }) {
+/** A sample cell for each legend line, drawn with the same marks as the grid. */
+function swatchView(mark: MarkId | "sized"): CellView {
   const def = mark === "sized" ? null : MARKS[mark];
-  const view: CellView = {
+  return {
     primary: mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5",
-    primaryIsSize: true,
+    primaryIsSize: mark === "sized" || mark === "hazard" || mark === "outsideFit",
     pressure: null,
     exact: mark === "noSize" ? null : "(3.42)",
     marks: def ? [def.id] : [],
@@ -219,10 +76,120 @@ function Swatch({ mark, box, f }: { mark: MarkId | "sized"; box: Box; f: number 
     border: def?.border ?? 0,
     description: "",
   };
+}
+
+/** The words of one cell; its background, hatching, rule and border are drawn by CellGraphicsSvg. */
+function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f: number; pressureLine: boolean }) {
+  const small = f * CELL.smallRatio;
+  const inset = view.border * Math.min(box.width, box.height);
+  const pad = f * 0.1 + inset;
+  const top = f * 0.05 + inset * 0.6;
+  const corner = cornerSymbols(view);
   return (
-    <View style={{ ...at(box), borderTopWidth: 0.5, borderLeftWidth: 0.5, borderColor: PALETTE.rule }}>
-      <CellBlock view={view} box={{ x: 0, y: 0, width: box.width, height: box.height }} f={f} pressureLine={false} rule={0.5} />
-    </View>
+    <>
+      {view.exact ? (
+        <Text style={{ position: "absolute", left: box.x + pad, top: box.y + top, fontSize: small, lineHeight: 1, ...TNUM }}>{view.exact}</Text>
+      ) : null}
+      {corner ? (
+        <Text style={{ position: "absolute", left: box.x, width: box.width - pad, top: box.y + top, fontSize: small * 1.1, lineHeight: 1, fontWeight: 700, textAlign: "right" }}>
+          {corner}
+        </Text>
+      ) : null}
+      <Text style={{ position: "absolute", left: box.x, width: box.width, top: box.y + f * CELL.figureTopEm, fontSize: f, lineHeight: 1, fontWeight: 700, textAlign: "center", ...TNUM }}>
+        {view.primary}
+      </Text>
+      {pressureLine && view.pressure ? (
+        <Text style={{ position: "absolute", left: box.x, width: box.width, top: box.y + f * (CELL.figureTopEm + 1.02), fontSize: small, lineHeight: 1, fontWeight: 600, textAlign: "center", ...TNUM }}>
+          {view.pressure}
+        </Text>
+      ) : null}
+    </>
+  );
+}
+
+function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
+  const g = cellGraphics(cells);
+  // The SVG spans just the drawn cells (in page coordinates through its viewBox), never the page.
+  const x0 = Math.min(...cells.map((c) => c.box.x)) - rule;
+  const y0 = Math.min(...cells.map((c) => c.box.y)) - rule;
+  const x1 = Math.max(...cells.map((c) => c.box.x + c.box.width)) + rule;
+  const y1 = Math.max(...cells.map((c) => c.box.y + c.box.height)) + rule;
+  return (
+    <Svg style={at({ x: x0, y: y0, width: x1 - x0, height: y1 - y0 })} width={x1 - x0} height={y1 - y0} viewBox={`${x0} ${y0} ${x1 - x0} ${y1 - y0}`}>
+      {g.fills.map((f, i) => (
+        <Rect key={i} x={f.box.x} y={f.box.y} width={f.box.width} height={f.box.height} fill={f.color} />
+      ))}
+      {g.hatch ? <Path d={g.hatch} stroke={PALETTE.hatch} strokeWidth={hatchWidth} /> : null}
+      <Path d={g.rules} stroke={PALETTE.rule} strokeWidth={rule} fill="none" />
+      {g.borders.map((b, i) => (
+        <Rect key={`b${i}`} x={b.box.x} y={b.box.y} width={b.box.width} height={b.box.height} stroke={PALETTE.ink} strokeWidth={b.width} fill="none" />
+      ))}
+    </Svg>
+  );
+}
+
+const heading = (box: Box): DrawnCell => ({ box, view: { background: PALETTE.heading, hatch: false, border: 0 } });
+
+/** Headings, corner and cells of every grid, plus the legend's swatches: what the SVG layer draws. */
+function drawnCells(grids: Grid[], layout: PosterLayout, legend: LegendEntry[]): DrawnCell[] {
+  const out: DrawnCell[] = [];
+  grids.forEach((grid, gi) => {
+    const g = layout.grids[gi] as GridLayout;
+    out.push(heading({ x: g.cellsX - g.rowHeadWidth, y: g.cellsY - g.colHeadHeight, width: g.rowHeadWidth, height: g.colHeadHeight }));
+    grid.colAxis.values.forEach((_, j) => out.push(heading({ x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight })));
+    grid.rowAxis.values.forEach((_, i) => out.push(heading({ x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight })));
+    grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellBox(g, i, j), view: cellView(cell) })));
+  });
+  legend.forEach((e, i) => {
+    const row = layout.legendRows[i];
+    if (row) out.push({ box: row.swatch, view: swatchView(e.mark) });
+  });
+  return out;
+}
+
+function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout: PosterLayout; sub: string }) {
+  const { fonts } = layout;
+  const f = layout.figurePt;
+  const titles = axisTitles(grid);
+  const head = f * CELL.headingRatio;
+  const pressureLine = grid.rounding === "reach";
+  const rowAxisPt = Math.min(fonts.axis, g.rowAxis.height / ((titles.rows.length + 2) * 0.6));
+  const centre = { x: g.rowAxis.x + g.rowAxis.width / 2, y: g.rowAxis.y + g.rowAxis.height / 2 };
+  const headText = (key: string, box: Box, text: string) => (
+    <Text key={key} style={{ position: "absolute", left: box.x, width: box.width, top: box.y + (box.height - head) / 2, fontSize: head, lineHeight: 1, fontWeight: 700, textAlign: "center", ...TNUM }}>
+      {text}
+    </Text>
+  );
+  return (
+    <>
+      <View style={at(g.title)}>
+        <Text style={{ fontSize: fonts.gridTitle, fontWeight: 700, lineHeight: 1.25 }}>{lookupTitle(grid.kind)}</Text>
+        <Text style={{ fontSize: fonts.gridSub, lineHeight: 1.25, color: PALETTE.inkSoft }}>{sub}</Text>
+      </View>
+      <Text style={{ ...at(g.colAxis), fontSize: fonts.axis, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}>{`${titles.cols} →`}</Text>
+      {/* Rotated to run bottom to top, so a left arrow at its end points down the rows. */}
+      <View
+        style={{
+          position: "absolute",
+          left: centre.x - g.rowAxis.height / 2,
+          top: centre.y - g.rowAxis.width / 2,
+          width: g.rowAxis.height,
+          height: g.rowAxis.width,
+          transform: "rotate(-90deg)",
+        }}
+      >
+        <Text style={{ fontSize: rowAxisPt, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}>{`${titles.rows} ←`}</Text>
+      </View>
+      <Text style={{ position: "absolute", left: g.cellsX - g.rowHeadWidth, width: g.rowHeadWidth - f * 0.08, top: g.cellsY - g.colHeadHeight + f * 0.04, fontSize: head * 0.5, fontWeight: 600, textAlign: "right" }}>
+        {`${ROLE_SYMBOLS[grid.colAxis.role]} →`}
+      </Text>
+      <Text style={{ position: "absolute", left: g.cellsX - g.rowHeadWidth + f * 0.08, top: g.cellsY - head * 0.5 * 1.2 - f * 0.04, fontSize: head * 0.5, fontWeight: 600 }}>
+        {`${ROLE_SYMBOLS[grid.rowAxis.role]} ↓`}
+      </Text>
+      {grid.colAxis.values.map((c, j) => headText(`c${j}`, { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight }, formatAxisMm(c)))}
+      {grid.rowAxis.values.map((r, i) => headText(`r${i}`, { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight }, formatAxisMm(r)))}
+      {grid.cells.map((row, i) => row.map((cell, j) => <CellText key={`${i}-${j}`} view={cellView(cell)} box={cellBox(g, i, j)} f={f} pressureLine={pressureLine} />))}
+    </>
   );
 }
 
@@ -230,16 +197,14 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
   const { fonts, legend } = layout;
   return (
     <>
-      <Text style={{ position: "absolute", left: legend.x, top: legend.y, width: legend.width, fontSize: fonts.legend * 1.2, fontWeight: 700, color: PALETTE.ink }}>
-        How to read a cell
-      </Text>
+      <Text style={{ position: "absolute", left: legend.x, top: legend.y, width: legend.width, fontSize: fonts.legend * 1.2, fontWeight: 700 }}>How to read a cell</Text>
       {entries.map((e, i) => {
         const row = layout.legendRows[i];
         if (!row) return null;
         return (
           <View key={e.mark}>
-            <Swatch mark={e.mark} box={row.swatch} f={row.swatch.height / CELL.heightEm} />
-            <Text style={{ position: "absolute", left: row.text.x, top: row.text.y, width: row.text.width, fontSize: fonts.legend, lineHeight: 1.25, color: PALETTE.ink }}>
+            <CellText view={swatchView(e.mark)} box={row.swatch} f={row.swatch.height / CELL.heightEm} pressureLine={false} />
+            <Text style={{ position: "absolute", left: row.text.x, top: row.text.y, width: row.text.width, fontSize: fonts.legend, lineHeight: 1.25 }}>
               <Text style={{ fontWeight: 700 }}>{`${e.label}. `}</Text>
               {e.text}
             </Text>
@@ -250,7 +215,7 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
   );
 }
 
-function Qr({ layout, input, qr }: { layout: PosterLayout; input: PosterInput; qr: ReturnType<typeof qrSymbol> }) {
+function Qr({ layout, url, qr }: { layout: PosterLayout; url: string; qr: ReturnType<typeof qrSymbol> }) {
   const n = qr.size + 2 * QR_QUIET_MODULES;
   const { fonts } = layout;
   return (
@@ -260,7 +225,7 @@ function Qr({ layout, input, qr }: { layout: PosterLayout; input: PosterInput; q
         <Path d={qrPath(qr)} fill="#000000" />
       </Svg>
       <View style={{ ...at(layout.qrText), alignItems: "center" }}>
-        <Text style={{ fontSize: fonts.small * 1.1, fontWeight: 700, textAlign: "center", color: PALETTE.ink }}>{shortUrl(input.edition.checkUrl)}</Text>
+        <Text style={{ fontSize: fonts.small * 1.1, fontWeight: 700, textAlign: "center" }}>{shortUrl(url)}</Text>
         <Text style={{ fontSize: fonts.small, textAlign: "center", color: PALETTE.inkSoft, marginTop: fonts.small * 0.3 }}>
           Scan or type to check this poster is still the current edition
         </Text>
@@ -272,13 +237,13 @@ function Qr({ layout, input, qr }: { layout: PosterLayout; input: PosterInput; q
 export function PosterDocument({ input }: { input: PosterInput }) {
   const { snapshot, edition, logo } = input;
   const { grids, layout, legibility, legend, qr } = posterModel(input);
-  const { fonts, page, header, scale } = layout;
+  const { fonts, page, scale } = layout;
   const banner = statusBanner(edition.status);
   const created = edition.approvedAt ?? POSTER_EPOCH;
-  const logoW = logo ? header.height * 2 : 0;
   const diagonal = Math.hypot(page.width, page.height);
   const watermarkPt = (diagonal * 0.7) / 13.6;
   const angle = (Math.atan2(page.height, page.width) * 180) / Math.PI;
+  const rule = Math.max(0.5, 0.6 * scale);
 
   return (
     <Document
@@ -292,15 +257,12 @@ export function PosterDocument({ input }: { input: PosterInput }) {
       creationDate={created}
       modificationDate={created}
     >
-      <Page size={[page.width, page.height]} style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: "#ffffff" }}>
-        {logo ? (
+      <Page size={[page.width, page.height]} style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}>
+        {logo && layout.logo ? (
           // eslint-disable-next-line jsx-a11y/alt-text -- react-pdf's Image has no alt; the lab name is printed beside it
-          <Image
-            src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }}
-            style={{ position: "absolute", left: header.x, top: header.y, width: logoW, height: header.height, objectFit: "contain", objectPosition: "left" }}
-          />
+          <Image src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }} style={{ ...at(layout.logo), objectFit: "contain" }} />
         ) : null}
-        <View style={{ position: "absolute", left: header.x + (logo ? logoW + 10 * scale : 0), top: header.y, width: header.width - layout.law.width - logoW - 20 * scale }}>
+        <View style={{ position: "absolute", left: layout.title.x, top: layout.title.y, width: layout.title.width }}>
           <Text style={{ fontSize: fonts.lab, fontWeight: 600, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
           <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
         </View>
@@ -316,15 +278,19 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           </View>
         ) : null}
 
-        {grids.map((grid, i) => {
-          const lookup = snapshot.lookups[i];
-          const g = layout.grids[i] as GridLayout;
-          const sub = gridSubtitle({ kind: grid.kind, rounding: grid.rounding, family: lookup?.family ?? null }, snapshot.stent?.name ?? null);
-          return <GridBlock key={i} grid={grid} g={g} f={layout.figurePt} layout={layout} sub={sub} pressureLine={grid.rounding === "reach"} />;
-        })}
+        <CellGraphicsSvg cells={drawnCells(grids, layout, legend)} rule={rule} hatchWidth={Math.max(0.5, layout.figurePt * 0.03)} />
+        {grids.map((grid, i) => (
+          <GridTexts
+            key={i}
+            grid={grid}
+            g={layout.grids[i] as GridLayout}
+            layout={layout}
+            sub={gridSubtitle({ kind: grid.kind, rounding: grid.rounding, family: snapshot.lookups[i]?.family ?? null }, snapshot.stent?.name ?? null)}
+          />
+        ))}
 
-        <View style={{ ...at(layout.caution), backgroundColor: PALETTE.caution, borderWidth: 1.5 * scale, borderColor: PALETTE.cautionBorder, padding: 6 * scale - 1.5 * scale }}>
-          <Text style={{ fontSize: fonts.caution, lineHeight: 1.3, color: PALETTE.ink }}>
+        <View style={{ ...at(layout.caution), backgroundColor: PALETTE.caution, borderWidth: 1.5 * scale, borderColor: PALETTE.cautionBorder, padding: 4.5 * scale }}>
+          <Text style={{ fontSize: fonts.caution, lineHeight: 1.3 }}>
             <Text style={{ fontWeight: 700 }}>CAUTION. </Text>
             {snapshot.caution}
           </Text>
@@ -334,9 +300,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
 
         <View style={at(layout.edition)}>
           <Text style={{ fontSize: fonts.edition * 1.6, fontWeight: 700 }}>{`Edition ${edition.number}`}</Text>
-          <Text style={{ fontSize: fonts.edition, fontWeight: edition.status === "approved" ? 600 : 700, marginTop: fonts.edition * 0.2 }}>
-            {approvalText(edition)}
-          </Text>
+          <Text style={{ fontSize: fonts.edition, fontWeight: edition.status === "approved" ? 600 : 700, marginTop: fonts.edition * 0.2 }}>{approvalText(edition)}</Text>
           <Text style={{ fontSize: fonts.edition, ...TNUM }}>{`Fingerprint ${shortFingerprint(edition.fingerprint)}`}</Text>
           <Text style={{ fontSize: fonts.small, color: PALETTE.inkSoft, marginTop: fonts.small * 0.4 }}>
             {`${PAPERS[snapshot.paper].label} ${snapshot.orientation}. ${legibilityLine(legibility, snapshot.readingDistanceM)}.`}
@@ -349,7 +313,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           ) : null}
         </View>
 
-        <Qr layout={layout} input={input} qr={qr} />
+        <Qr layout={layout} url={edition.checkUrl} qr={qr} />
 
         {edition.status === "draft" ? (
           <View
@@ -370,6 +334,3 @@ export function PosterDocument({ input }: { input: PosterInput }) {
     </Document>
   );
 }
-
-/** Metadata date of editions that carry no approval date: fixed, so drafts render byte-identically. */
-export const POSTER_EPOCH = new Date(Date.UTC(2000, 0, 1));

@@ -59,6 +59,8 @@ export type LayoutInput = {
   texts: LayoutTexts;
   /** Draft, superseded or withdrawn editions print a banner under the header. */
   banner: boolean;
+  /** The lab's logo sits at the header's left. */
+  logo: boolean;
 };
 
 export type GridLayout = {
@@ -102,6 +104,10 @@ export type PosterLayout = {
   margin: number;
   fonts: Fonts;
   header: Box;
+  /** The logo's box (the image is fitted inside), or null. */
+  logo: Box | null;
+  /** Lab name and chart title. */
+  title: Box;
   /** Law name, formula and source, at the header's right. */
   law: Box;
   banner: Box | null;
@@ -253,7 +259,7 @@ function placeGrids(grids: readonly LayoutGridInput[], bands: number[][], f: num
 function legendBlock(texts: LayoutTexts, fonts: Fonts, scale: number, width: number) {
   const swatchH = 24 * scale;
   const swatchW = swatchH * (CELL.widthEm / CELL.heightEm);
-  const columns = width > 420 * scale ? 2 : 1;
+  const columns = width > 380 * scale ? 2 : 1;
   const gutter = 12 * scale;
   const colW = (width - gutter * (columns - 1)) / columns;
   const textX = swatchW + 6 * scale;
@@ -296,10 +302,14 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
 
   // Header: lab and title at the left, law at the right.
   const lawW = Math.min(innerW * 0.42, 320 * scale);
-  const titleW = innerW - lawW - gap;
+  const logoW = input.logo ? 72 * scale : 0;
+  const titleX = margin + (input.logo ? logoW + gap : 0);
+  const titleW = innerW - lawW - gap - (titleX - margin);
   const leftH = fonts.lab * LINE + fonts.title * 1.15 * linesFor(texts.title, fonts.title * 1.1, titleW);
   const rightH = fonts.law * LINE * 2 + fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) + 2 * scale;
-  const header: Box = { x: margin, y: margin, width: innerW, height: Math.max(leftH, rightH) };
+  const header: Box = { x: margin, y: margin, width: innerW, height: Math.max(leftH, rightH, input.logo ? 40 * scale : 0) };
+  const logo: Box | null = input.logo ? { x: margin, y: margin, width: logoW, height: Math.min(header.height, logoW) } : null;
+  const title: Box = { x: titleX, y: margin, width: titleW, height: header.height };
   const law: Box = { x: margin + innerW - lawW, y: margin, width: lawW, height: header.height };
   let top = header.y + header.height + gap;
   let banner: Box | null = null;
@@ -375,6 +385,8 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
     margin,
     fonts,
     header,
+    logo,
+    title,
     law,
     banner,
     gridArea: area,

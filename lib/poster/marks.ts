@@ -69,7 +69,7 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     explanation: "POT above the main-branch stent's maximum post-dilatation diameter, or no stent covers this main branch; orange, heavy border.",
     background: "#e69f00",
     hatch: false,
-    border: 0.07,
+    border: 0.06,
   },
   outsideFit: {
     id: "outsideFit",

@@ -20,7 +20,10 @@ export function posterLegend(snapshot: Snapshot): LegendEntry[] {
 /** A typical printed check URL length, for layouts made before an edition exists. */
 const TYPICAL_URL_CHARS = 40;
 
-export function layoutInputFor(snapshot: Snapshot, edition: { status: EditionStatus; checkUrl?: string } = { status: "draft" }): LayoutInput {
+type EditionLike = { status: EditionStatus; checkUrl?: string };
+
+/** The layout's input for a snapshot; a logo is assumed when the snapshot records one. */
+export function layoutInputFor(snapshot: Snapshot, edition: EditionLike = { status: "draft" }, hasLogo = snapshot.logoSha256 !== null): LayoutInput {
   return {
     paper: snapshot.paper,
     orientation: snapshot.orientation,
@@ -40,14 +43,15 @@ export function layoutInputFor(snapshot: Snapshot, edition: { status: EditionSta
       url: edition.checkUrl ? shortUrl(edition.checkUrl).length : TYPICAL_URL_CHARS,
     },
     banner: statusBanner(edition.status) !== null,
+    logo: hasLogo,
   };
 }
 
-export function snapshotLayout(snapshot: Snapshot, edition?: { status: EditionStatus; checkUrl?: string }): PosterLayout {
+export function snapshotLayout(snapshot: Snapshot, edition?: EditionLike): PosterLayout {
   return layoutPoster(layoutInputFor(snapshot, edition));
 }
 
 /** Whether the chart's figures can be read at its stated reading distance, with advice if not. */
-export function snapshotLegibility(snapshot: Snapshot, edition?: { status: EditionStatus; checkUrl?: string }): Legibility {
+export function snapshotLegibility(snapshot: Snapshot, edition?: EditionLike): Legibility {
   return posterLegibility({ ...layoutInputFor(snapshot, edition), readingDistanceM: snapshot.readingDistanceM });
 }

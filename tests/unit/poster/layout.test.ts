@@ -8,6 +8,7 @@ const input = (over: Partial<LayoutInput> & Pick<LayoutInput, "grids">): LayoutI
   orientation: "portrait",
   texts,
   banner: true,
+  logo: true,
   ...over,
 });
 const grid = (rows: number, cols: number, pressureLine = false) => ({ rows, cols, pressureLine, titleChars: 52, subtitleChars: 150 });
@@ -26,11 +27,13 @@ describe("layoutPoster", () => {
       for (const orientation of ORIENTATIONS) {
         for (const grids of shapes) {
           for (const banner of [true, false]) {
-            const l = layoutPoster(input({ paper, orientation, grids, banner }));
+            const l = layoutPoster(input({ paper, orientation, grids, banner, logo: banner }));
             const label = `${paper} ${orientation} ${grids.length} grids ${l.footer}`;
             const page: Box = { x: l.margin, y: l.margin, width: l.page.width - 2 * l.margin, height: l.page.height - 2 * l.margin };
             const blocks: [string, Box][] = [
-              ["header", l.header],
+              ["lab and title", l.title],
+              ["law", l.law],
+              ...(l.logo ? [["logo", l.logo] as [string, Box]] : []),
               ...(l.banner ? [["banner", l.banner] as [string, Box]] : []),
               ...l.grids.map((g, i) => [`grid ${i}`, g.box] as [string, Box]),
               ["caution", l.caution],

@@ -4,6 +4,7 @@ import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids } from "@/lib/charts/snapshot";
 import { CAUTION_TEXT } from "@/lib/cautions";
 import { pickBalloon, type Grid } from "@/lib/sizing";
+import { PNG } from "pngjs";
 import { pdfText } from "@/tests/support/pdf-tools";
 import { kissingDefinition, posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
 
@@ -174,5 +175,23 @@ describe("the kissing poster read back (square law, Tabloid landscape, draft)", 
     expect(at(3.5, 2.5)).toMatchObject({ exact: `(${sb.toFixed(2)})`, primary: "2.25" });
     const sb2 = Math.sqrt(4.5 ** 2 - 3.25 ** 2); // 3.112
     expect(at(4.5, 3.25)).toMatchObject({ exact: `(${sb2.toFixed(2)})`, primary: "3.0" });
+  });
+});
+
+describe("the lab's logo", () => {
+  it("is embedded as an image in the header", { timeout: 60_000 }, async () => {
+    // An invented mark: a teal disc on white.
+    const png = new PNG({ width: 64, height: 64 });
+    for (let i = 0; i < 64 * 64; i++) {
+      const x = i % 64;
+      const y = Math.floor(i / 64);
+      const on = (x - 32) ** 2 + (y - 32) ** 2 < 28 ** 2;
+      png.data.set(on ? [29, 101, 118, 255] : [255, 255, 255, 255], i * 4);
+    }
+    const input = { ...posterInput(snapshotOf(potDefinition)), logo: { bytes: PNG.sync.write(png), mime: "image/png" as const } };
+    const withLogo = (await renderPosterPdf(input)).toString("latin1");
+    const without = (await renderPosterPdf(posterInput(snapshotOf(potDefinition)))).toString("latin1");
+    expect(withLogo).toMatch(/\/Subtype \/Image/);
+    expect(without).not.toMatch(/\/Subtype \/Image/);
   });
 });
