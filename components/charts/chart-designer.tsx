@@ -43,6 +43,7 @@ export function ChartDesigner({
   initial,
   stock,
   labName,
+  logoSha256 = null,
   canEdit,
 }: {
   slug: string;
@@ -50,6 +51,7 @@ export function ChartDesigner({
   initial: ChartDefinition;
   stock: LabStock;
   labName: string;
+  logoSha256?: string | null;
   canEdit: boolean;
 }) {
   const router = useRouter();
@@ -298,7 +300,7 @@ export function ChartDesigner({
       <section aria-label="Live preview" className="min-w-0">
         <h2 className="text-lg font-semibold">Live preview</h2>
         {preview.success ? (
-          <ChartPreview definition={preview.data} stock={stock} labName={labName} />
+          <ChartPreview definition={preview.data} stock={stock} labName={labName} logoSha256={logoSha256} />
         ) : (
           <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">Correct the highlighted fields to see the preview.</p>
         )}

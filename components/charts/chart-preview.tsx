@@ -11,8 +11,8 @@ import type { ChartDefinition } from "@/lib/validation/chart";
  * The designer's live preview: the same snapshot and grid model the poster PDF prints, computed
  * in the browser as the form changes, with the legibility check for the stated reading distance.
  */
-export function ChartPreview({ definition, stock, labName }: { definition: ChartDefinition; stock: LabStock; labName: string }) {
-  const snapshot = buildSnapshot({ labName, definition, stock, logoSha256: null });
+export function ChartPreview({ definition, stock, labName, logoSha256 }: { definition: ChartDefinition; stock: LabStock; labName: string; logoSha256: string | null }) {
+  const snapshot = buildSnapshot({ labName, definition, stock, logoSha256 });
   const grids = snapshotGrids(snapshot);
   const legibility = snapshotLegibility(snapshot);
   return (

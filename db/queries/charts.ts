@@ -4,9 +4,10 @@ import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
 import { parseStoredDefinition, type ChartDefinition } from "@/lib/validation/chart";
 import { db } from "../index";
-import { balloonFamilies, charts, editions, stentPlatforms, users } from "../schema";
+import { balloonFamilies, charts, editions, logos, stentPlatforms, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { afterLabChange, lockLab } from "./lab-changes";
+import { afterLabChange } from "./lab-changes";
+import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 
 export async function createChart({ labId, userId, definition, logoId = null }: { labId: number; userId: number; definition: ChartDefinition; logoId?: number | null }) {
@@ -73,9 +74,13 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
 }
 
 export async function getChart({ labId, chartId }: { labId: number; chartId: number }) {
-  const [row] = await db.select().from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  const [row] = await db
+    .select({ chart: charts, logoSha256: logos.sha256 })
+    .from(charts)
+    .leftJoin(logos, eq(logos.id, charts.logoId))
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!row) return null;
-  return { ...row, definition: parseStoredDefinition(row.definition), liveSnapshot: row.liveSnapshot as Snapshot | null };
+  return { ...row.chart, logoSha256: row.logoSha256, definition: parseStoredDefinition(row.chart.definition), liveSnapshot: row.chart.liveSnapshot as Snapshot | null };
 }
 
 /** A chart's lab, for routes addressed by chart id (the guard then checks membership). */
@@ -109,4 +114,44 @@ export async function listCharts({ labId }: { labId: number }) {
     const current = mine.find((e) => e.status === "approved") ?? mine.find((e) => e.status === "draft") ?? null;
     return { chart: { ...c, definition: parseStoredDefinition(c.definition) }, current, editions: mine };
   });
+}
+
+/** Sets (or, with null, removes) a chart's logo; the logo's hash is part of what editions freeze. */
+export async function setChartLogo({
+  labId,
+  chartId,
+  userId,
+  logo,
+}: {
+  labId: number;
+  chartId: number;
+  userId: number;
+  logo: { bytes: Buffer; mime: string; sha256: string } | null;
+}) {
+  const result = await db.transaction(async (tx) => {
+    await lockLab(tx, labId);
+    const [chart] = await tx.select({ id: charts.id, title: charts.title, logoId: charts.logoId }).from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    if (!chart) throw notFound("Chart");
+    if (!logo && chart.logoId === null) throw new AppError("conflict", "This chart has no logo to remove.");
+    let logoId: number | null = null;
+    if (logo) {
+      const [existing] = await tx.select({ id: logos.id }).from(logos).where(and(eq(logos.labId, labId), eq(logos.sha256, logo.sha256)));
+      logoId = existing?.id ?? (await tx.insert(logos).values({ labId, sha256: logo.sha256, mime: logo.mime, bytes: logo.bytes }).$returningId())[0]!.id;
+    }
+    await tx.update(charts).set({ logoId, updatedAt: new Date() }).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    await afterLabChange(tx, { labId, changeKey: `chart:${chartId}:logo:${logo?.sha256 ?? "none"}:${Date.now()}`, cause: `The logo on "${chart.title}" was ${logo ? "changed" : "removed"}` });
+    await recordAudit({ tx, labId, actorUserId: userId, action: logo ? "chart.logo_set" : "chart.logo_removed", targetType: "chart", targetId: chartId, detail: { before: { logoId: chart.logoId }, after: { logoId, sha256: logo?.sha256 ?? null } } });
+    return { logoId };
+  });
+  await deliverPendingNotices({ labId });
+  return result;
+}
+
+export async function getChartLogo({ labId, chartId }: { labId: number; chartId: number }) {
+  const [row] = await db
+    .select({ bytes: logos.bytes, mime: logos.mime, sha256: logos.sha256 })
+    .from(charts)
+    .innerJoin(logos, eq(logos.id, charts.logoId))
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  return row ?? null;
 }

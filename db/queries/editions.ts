@@ -10,7 +10,8 @@ import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
 import { charts, editions, logos, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { afterLabChange, lockLab, refreshLiveSnapshots } from "./lab-changes";
+import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
+import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 import { readStock } from "./stock-read";
 

@@ -6,7 +6,7 @@ import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { invitations, labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { lockLab } from "./members";
+import { lockLab } from "./lab-lock";
 
 const open = (labId: number) => and(eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
 

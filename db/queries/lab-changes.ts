@@ -2,19 +2,12 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { buildSnapshot } from "@/lib/charts/snapshot";
-import { notFound } from "@/lib/errors";
 import { parseStoredDefinition } from "@/lib/validation/chart";
-import { charts, labs, logos } from "../schema";
+import { charts, logos } from "../schema";
 import type { Tx } from "./audit";
 import { reconcilePostings } from "./notices";
+import { lockLab } from "./lab-lock";
 import { readStock } from "./stock-read";
-
-/** Serialises writes that change what a lab's charts would print (stock, charts, editions). */
-export async function lockLab(tx: Tx, labId: number): Promise<{ name: string; stockRevision: number }> {
-  const [row] = await tx.select({ name: labs.name, stockRevision: labs.stockRevision }).from(labs).where(eq(labs.id, labId)).for("update");
-  if (!row) throw notFound("Lab");
-  return row;
-}
 
 export type LiveChange = { chartId: number; before: string | null; after: string };
 

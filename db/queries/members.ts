@@ -5,6 +5,7 @@ import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
+import { lockLab } from "./lab-lock";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -62,12 +63,6 @@ export async function listMembers({ labId }: { labId: number }) {
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.labId, labId))
     .orderBy(asc(users.name), asc(memberships.id));
-}
-
-// Membership changes in one lab run one at a time: the lab row is the lock, so two managers
-// demoting each other at once cannot leave the lab without a manager.
-export async function lockLab(tx: Tx, labId: number) {
-  await tx.select({ id: labs.id }).from(labs).where(eq(labs.id, labId)).for("update");
 }
 
 async function memberInLab(tx: Tx, labId: number, membershipId: number) {
@@ -129,5 +124,18 @@ export async function removeMember({ labId, membershipId, actorUserId }: { labId
       detail: { member: member.email, name: member.name, before: { role: member.role }, after: null },
     });
     return member;
+  });
+}
+
+/** Whether this member gets the stale-copy e-mail (managers always do; educators may opt in). */
+export async function getStaleMailSetting({ labId, userId }: { labId: number; userId: number }) {
+  const [row] = await db.select({ notifyStale: memberships.notifyStale }).from(memberships).where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
+  return row?.notifyStale ?? false;
+}
+
+export async function setStaleMailSetting({ labId, userId, on }: { labId: number; userId: number; on: boolean }) {
+  await db.transaction(async (tx) => {
+    await tx.update(memberships).set({ notifyStale: on }).where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
+    await recordAudit({ tx, labId, actorUserId: userId, action: on ? "member.stale_mail_on" : "member.stale_mail_off", targetType: "user", targetId: userId });
   });
 }

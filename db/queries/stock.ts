@@ -20,6 +20,7 @@ import { db } from "../index";
 import { auditEvents, balloonFamilies, balloons, labs, stentPlatforms, stentSizes, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
+import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 import { readFamilies, readPlatforms } from "./stock-read";
 
@@ -88,8 +89,7 @@ function isDuplicateKey(err: unknown): boolean {
 async function stockWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise<T> {
   try {
     const result = await db.transaction(async (tx) => {
-      const [lab] = await tx.select({ id: labs.id }).from(labs).where(eq(labs.id, labId)).for("update");
-      if (!lab) throw notFound("Lab");
+      await lockLab(tx, labId);
       return fn(tx);
     });
     await deliverPendingNotices({ labId });

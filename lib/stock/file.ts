@@ -1,12 +1,15 @@
 // Turns an uploaded stock file into text, refusing what is not a small UTF-8 text file.
 import { fileTypeFromBuffer } from "file-type";
 import { AppError } from "@/lib/errors";
+import { payloadTooLarge } from "@/lib/upload";
 import { MAX_IMPORT_BYTES } from "./limits";
 
 const SAVE_AS = 'Save it from your spreadsheet as "CSV UTF-8" and try again.';
 
+export const CSV_TOO_LARGE_HINT = "Split it into smaller files.";
+
 export function tooLarge(bytes: number): AppError {
-  return new AppError("payload_too_large", `The file is ${(bytes / 1024 / 1024).toFixed(2)} MB; the limit is 1 MB (${MAX_IMPORT_BYTES.toLocaleString("en")} bytes). Split it into smaller files.`);
+  return payloadTooLarge(bytes, MAX_IMPORT_BYTES, CSV_TOO_LARGE_HINT);
 }
 
 const lineAt = (text: string, index: number) => text.slice(0, index).split("\n").length;

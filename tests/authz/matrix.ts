@@ -132,6 +132,9 @@ export const ROUTES: RouteRow[] = [
   { kind: "route", method: "GET", route: "/api/v1/charts/[id]", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}`, expect: everyoneSignedIn(200) },
   { kind: "route", method: "GET", route: "/api/v1/charts/[id]", url: "/api/v1/charts/999999999", expect: everyoneSignedIn(404) },
   { kind: "route", method: "PATCH", route: "/api/v1/charts/[id]", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}`, body: { paper: "B5" }, expect: statuses(["manager", "educator"], 400) },
+  { kind: "route", method: "GET", route: "/api/v1/charts/[id]/logo", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/logo`, expect: everyoneSignedIn(404), note: "the demo chart has no logo" },
+  { kind: "route", method: "PUT", route: "/api/v1/charts/[id]/logo", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/logo`, body: {}, expect: statuses(["manager", "educator"], 400), note: "not multipart" },
+  { kind: "route", method: "DELETE", route: "/api/v1/charts/[id]/logo", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/logo`, expect: statuses(["manager", "educator"], 409), note: "no logo to remove: nothing changes" },
   { kind: "route", method: "POST", route: "/api/v1/charts/[id]/editions", url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/editions`, body: { draft: false }, expect: statuses(["manager", "educator"], 400) },
   { kind: "route", method: "POST", route: "/api/v1/editions/[id]/approve", url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/approve`, expect: statuses(["manager", "lead"], 409), note: "already approved: a conflict that changes nothing" },
   { kind: "route", method: "POST", route: "/api/v1/editions/[id]/reject", url: (ids) => `/api/v1/editions/${ids["edition:draft"]}/reject`, body: {}, expect: statuses(["manager", "lead"], 400) },
@@ -174,6 +177,7 @@ const MEMBERS_ACTIONS = "app/(lab)/labs/[slug]/members/actions.ts";
 const CHART_ACTIONS = "app/(lab)/labs/[slug]/charts/actions.ts";
 const ROOM_ACTIONS = "app/(lab)/labs/[slug]/rooms/actions.ts";
 const CHECK_ACTIONS = "app/(public)/v/[token]/actions.ts";
+const LAB_ACTIONS = "app/(lab)/labs/[slug]/actions.ts";
 const AUTH_ACTIONS = "lib/auth/actions.ts";
 
 export const ACTIONS: ActionRow[] = [
@@ -199,4 +203,5 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: ROOM_ACTIONS, name: "takeDownAction", allowed: ALL_ROLES },
   { kind: "action", file: CHECK_ACTIONS, name: "recordPostingAction", allowed: ALL_ROLES, note: "members of the edition's own lab" },
   { kind: "action", file: CHECK_ACTIONS, name: "takeDownPostingAction", allowed: ALL_ROLES, note: "members of the edition's own lab" },
+  { kind: "action", file: LAB_ACTIONS, name: "setStaleMailAction", allowed: ALL_ROLES, note: "changes only the caller's own membership" },
 ];

@@ -32,7 +32,7 @@ test("a posted poster's QR code reports current, outdated with the size named, a
 
   await page.goto(url!);
   await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
-  await expect(page.getByText("Procedure room 1")).toBeVisible();
+  await expect(page.getByRole("region", { name: "Where this copy hangs" }).getByRole("listitem").filter({ hasText: "Procedure room 1" })).toBeVisible();
 
   await setInStock(page, false);
   await page.goto(url!);

@@ -89,6 +89,7 @@ const INPUTS: Record<string, (t: Team) => unknown[]> = {
   takeDownAction: (t) => [t.lab.slug, wall.postingId],
   recordPostingAction: () => [wall.token, wall.roomId],
   takeDownPostingAction: () => [wall.token, wall.postingId],
+  setStaleMailAction: (t) => [t.lab.slug, true],
 };
 
 async function snapshot(labId: number) {
@@ -120,6 +121,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(lab)/labs/[slug]/charts/actions.ts": () => import("@/app/(lab)/labs/[slug]/charts/actions"),
   "app/(lab)/labs/[slug]/rooms/actions.ts": () => import("@/app/(lab)/labs/[slug]/rooms/actions"),
   "app/(public)/v/[token]/actions.ts": () => import("@/app/(public)/v/[token]/actions"),
+  "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);

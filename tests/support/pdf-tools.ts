@@ -39,6 +39,16 @@ export function rasterise(pdf: Buffer, dpi: number): Buffer {
   });
 }
 
+/** How many images poppler's pdfimages finds in the PDF. */
+export function pdfImages(pdf: Buffer): number {
+  return withTempDir((dir) => {
+    const file = path.join(dir, "p.pdf");
+    writeFileSync(file, pdf);
+    const out = execFileSync("pdfimages", ["-list", file], { encoding: "utf8" });
+    return out.split("\n").slice(2).filter((l) => l.trim()).length;
+  });
+}
+
 export function zbarDecode(png: Buffer): string[] {
   return withTempDir((dir) => {
     const file = path.join(dir, "page.png");

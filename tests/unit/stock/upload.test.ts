@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { AppError } from "@/lib/errors";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
-import { readUploadedFile } from "@/lib/stock/upload";
+import { readUploadedFile } from "@/lib/upload";
 
 const multipart = (file: Blob, name = "file") => {
   const form = new FormData();

@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
+import { LogoField } from "@/components/charts/logo-field";
 import { Caution } from "@/components/ui/caution";
 import { getChart } from "@/db/queries/charts";
 import { getStock } from "@/db/queries/stock";
@@ -24,7 +25,8 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
       <Caution className="my-4" />
-      <ChartDesigner slug={slug} chartId={chart.id} initial={chart.definition} stock={stock} labName={member.lab.name} canEdit={can(member.role, "chart:design")} />
+      <ChartDesigner slug={slug} chartId={chart.id} initial={chart.definition} stock={stock} labName={member.lab.name} logoSha256={chart.logoSha256} canEdit={can(member.role, "chart:design")} />
+      <LogoField chartId={chart.id} logoSha256={chart.logoSha256} canEdit={can(member.role, "chart:design")} />
       <EditionsPanel
         slug={slug}
         chartId={chart.id}

@@ -1,14 +1,23 @@
 // Reads one file from a multipart request without ever holding more than the limit in memory.
 import { AppError } from "@/lib/errors";
-import { tooLarge } from "./file";
-import { MAX_IMPORT_BYTES } from "./limits";
 
 // Room for the multipart boundaries and part headers around a file at the limit.
 const ENVELOPE_BYTES = 64 * 1024;
 
 export type UploadedFile = { name: string; bytes: Uint8Array };
 
-export async function readUploadedFile(req: Request, field = "file", maxBytes = MAX_IMPORT_BYTES): Promise<UploadedFile> {
+export const ONE_MB = 1024 * 1024;
+
+export function payloadTooLarge(bytes: number, maxBytes: number, hint: string): AppError {
+  const mb = (n: number) => (n % ONE_MB === 0 ? String(n / ONE_MB) : (n / ONE_MB).toFixed(2));
+  return new AppError("payload_too_large", `The file is ${mb(bytes)} MB; the limit is ${mb(maxBytes)} MB (${maxBytes.toLocaleString("en")} bytes). ${hint}`);
+}
+
+export async function readUploadedFile(
+  req: Request,
+  { field = "file", maxBytes = ONE_MB, tooLargeHint = "Send a smaller file." }: { field?: string; maxBytes?: number; tooLargeHint?: string } = {},
+): Promise<UploadedFile> {
+  const tooLarge = (bytes: number) => payloadTooLarge(bytes, maxBytes, tooLargeHint);
   const type = req.headers.get("content-type") ?? "";
   if (!type.toLowerCase().startsWith("multipart/form-data")) {
     throw new AppError("invalid_input", `Send the file as multipart/form-data in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
