@@ -1,6 +1,7 @@
 // `npm run bench`: how long an A1 poster with two 10 x 12 grids takes to render, cold (first
 // render in a fresh process) and warm (repeated in one process), beside the same cells, texts,
-// fonts and page size drawn with raw pdfkit as a baseline. Needs no database.
+// fonts and page size drawn with raw pdfkit as a baseline; and what a cached download costs
+// instead: the render-cache row read back from the project's MariaDB (a bench database).
 import { execFileSync } from "node:child_process";
 import os from "node:os";
 import path from "node:path";
@@ -128,6 +129,44 @@ async function child(engine: Engine) {
   console.log(JSON.stringify({ importMs, firstMs }));
 }
 
+/** Median time to read a stored render by its key, as a second download does; null without a database. */
+async function cachedReadMs(pdf: Buffer): Promise<number | null> {
+  const { loadLocalEnv } = await import("../../db/local-env");
+  loadLocalEnv();
+  const { env } = await import("../../lib/env");
+  const local = await import("../../db/local-server");
+  const server = local.localServer({ port: env.DB_PORT });
+  try {
+    const state = await local.start(server);
+    const database = "forkwall_bench";
+    await local.ensureDatabase(server, { database, user: env.DB_USER, password: env.DB_PASSWORD, fresh: true });
+    const { createDb, createPool } = await import("../../db/index");
+    const { runMigrations } = await import("../../db/migrate");
+    const { sql } = await import("drizzle-orm");
+    const pool = createPool(env.DATABASE_URL.replace(/\/[^/]+$/, `/${database}`));
+    const db = createDb(pool);
+    await runMigrations(db);
+    await db.execute(sql`INSERT INTO labs (slug, name) VALUES ('bench', 'Bench lab (illustrative)')`);
+    await db.execute(sql`INSERT INTO charts (lab_id, title, definition) VALUES (1, 'Bench', '{}')`);
+    await db.execute(sql`INSERT INTO editions (lab_id, chart_id, number, snapshot, fingerprint, check_token) VALUES (1, 1, 1, '{}', REPEAT('a', 64), 'bench-token-0000000000000')`);
+    await db.execute(sql`INSERT INTO poster_renders (edition_id, render_key, pdf) VALUES (1, REPEAT('b', 64), ${pdf})`);
+    const times: number[] = [];
+    for (let i = 0; i < 21; i++) {
+      const t0 = performance.now();
+      const [rows] = await pool.query("SELECT pdf FROM poster_renders WHERE render_key = ?", ["b".repeat(64)]);
+      if ((rows as { pdf: Buffer }[])[0]?.pdf.length !== pdf.length) throw new Error("cache row not read back whole");
+      if (i > 0) times.push(performance.now() - t0);
+    }
+    await pool.end();
+    await local.rootSql(server, `DROP DATABASE IF EXISTS \`${database}\`;`);
+    if (state === "started") await local.stop(server);
+    return median(times);
+  } catch (err) {
+    console.error(`cached read not measured: ${err instanceof Error ? err.message : err}`);
+    return null;
+  }
+}
+
 async function main() {
   const here = path.relative(process.cwd(), new URL(import.meta.url).pathname);
   const results: Record<Engine, { coldFirst: number; coldImport: number; warm: number }> = {} as never;
@@ -142,6 +181,9 @@ async function main() {
     for (let i = 0; i < WARM_RUNS; i++) warm.push(await renderOnce(engine, input));
     results[engine] = { coldFirst: median(cold.map((c) => c.firstMs)), coldImport: median(cold.map((c) => c.importMs)), warm: median(warm) };
   }
+  const { renderPosterPdf } = await import("../../components/poster/render");
+  const pdf = await renderPosterPdf(input);
+  const cached = await cachedReadMs(pdf);
   const r = results["react-pdf"];
   const p = results.pdfkit;
   const ms = (x: number) => `${Math.round(x)} ms`;
@@ -154,6 +196,7 @@ async function main() {
   console.log(`| react-pdf 4.9 (the poster) | ${ms(r.coldFirst)} | ${ms(r.coldImport)} | ${ms(r.warm)} |`);
   console.log(`| raw pdfkit 0.20 (same cells, fonts, texts, QR) | ${ms(p.coldFirst)} | ${ms(p.coldImport)} | ${ms(p.warm)} |`);
   console.log(`| ratio react-pdf / pdfkit | ${ratio(r.coldFirst, p.coldFirst)} | ${ratio(r.coldImport, p.coldImport)} | ${ratio(r.warm, p.warm)} |`);
+  console.log(`\ncached download: the ${Math.round(pdf.length / 1024)} KB render read back from MariaDB by its key, median of 20: ${cached === null ? "not measured" : `${cached.toFixed(1)} ms`}`);
 }
 
 const childAt = process.argv.indexOf("--child");
