@@ -27,22 +27,13 @@ export async function listLabsForUser({ userId }: { userId: number }) {
     .orderBy(asc(labs.name));
 }
 
-/** A lab by slug with the person's role in it; the role is null when they are not a member. */
-export async function findLabWithRole({ slug, userId }: { slug: string; userId: number }) {
+/** A lab, by slug or id, with the person's role in it; the role is null when they are not a member. */
+export async function findLabWithRole({ userId, ...lab }: { userId: number } & ({ slug: string } | { labId: number })) {
   const [row] = await db
     .select({ id: labs.id, slug: labs.slug, name: labs.name, stockRevision: labs.stockRevision, role: memberships.role })
     .from(labs)
     .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
-    .where(eq(labs.slug, slug));
-  return row ? { ...row, role: (row.role ?? null) as Role | null } : null;
-}
-
-export async function findLabByIdWithRole({ labId, userId }: { labId: number; userId: number }) {
-  const [row] = await db
-    .select({ id: labs.id, slug: labs.slug, name: labs.name, stockRevision: labs.stockRevision, role: memberships.role })
-    .from(labs)
-    .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
-    .where(eq(labs.id, labId));
+    .where("slug" in lab ? eq(labs.slug, lab.slug) : eq(labs.id, lab.labId));
   return row ? { ...row, role: (row.role ?? null) as Role | null } : null;
 }
 

@@ -1,6 +1,6 @@
 import "server-only";
 import type { z } from "zod";
-import { findLabByIdWithRole, findLabWithRole } from "@/db/queries/members";
+import { findLabWithRole } from "@/db/queries/members";
 import { AppError, errorResponse, forbidden, invalidInput, notFound, unauthenticated } from "@/lib/errors";
 import { can, type Capability, type Role } from "@/lib/permissions";
 import { currentUser, type SessionUser } from "./session";
@@ -26,7 +26,7 @@ export async function requireMember(ref: LabRef, capability: Capability): Promis
   else {
     const labId = "labId" in ref ? ref.labId : await ref.via();
     if (labId === null) throw notFound("via" in ref ? ref.what : "Lab");
-    lab = await findLabByIdWithRole({ labId, userId: user.id });
+    lab = await findLabWithRole({ labId, userId: user.id });
   }
   // A lab the person is not in answers exactly like one that does not exist.
   if (!lab || !lab.role) throw notFound("via" in ref ? ref.what : "Lab");

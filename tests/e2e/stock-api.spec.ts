@@ -2,7 +2,7 @@
 // and every refusal of the import. Valid writes by lower roles are refused and change nothing.
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { ROUTES, type Actor } from "../authz/matrix";
-import { apiAs } from "./support/sign-in-as";
+import { apiAs } from "./support/auth";
 
 const ACTORS: Actor[] = ["anonymous", "manager", "lead", "educator", "operator"];
 const STOCK_ROWS = ROUTES.filter((r) => r.route.startsWith("/api/v1/labs/[slug]/stock"));

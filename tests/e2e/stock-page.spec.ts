@@ -1,10 +1,10 @@
 // The stock page in Chromium: a manager imports a file and edits inline; an operator only reads.
 import { expect, test } from "@playwright/test";
-import { DEMO_EMAIL, signInPage } from "./support/sign-in-as";
+import { demoEmail, signInPage } from "./support/auth";
 
 test("a manager imports a CSV through the page: preview, apply, new sizes in the table, history", async ({ page }) => {
   const family = `E2E family ${Date.now().toString(36)} (illustrative)`;
-  await signInPage(page, DEMO_EMAIL.manager);
+  await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/stock");
   await expect(page.getByRole("heading", { name: "Stock", level: 1 })).toBeVisible();
   await expect(page.getByRole("note", { name: "Clinical caution" })).toContainText("Reference aid only");
@@ -40,7 +40,7 @@ test("a manager imports a CSV through the page: preview, apply, new sizes in the
 });
 
 test("a bad file shows each bad line and saves nothing", async ({ page }) => {
-  await signInPage(page, DEMO_EMAIL.manager);
+  await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/stock");
   const revision = await page.getByTestId("stock-revision").textContent();
   const csv = "family,compliance,diameter_mm,in_stock\nNC family A (illustrative),nc,2,75,yes\nNC family A (illustrative),nc,9.00,maybe\n";
@@ -57,7 +57,7 @@ test("a bad file shows each bad line and saves nothing", async ({ page }) => {
 });
 
 test("a manager toggles a size from the keyboard and the change persists", async ({ page }) => {
-  await signInPage(page, DEMO_EMAIL.manager);
+  await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/stock");
   const toggle = page.getByRole("switch", { name: "NC family A (illustrative) 3.25 mm in stock" });
   const was = await toggle.getAttribute("aria-checked");
@@ -74,7 +74,7 @@ test("a manager toggles a size from the keyboard and the change persists", async
 });
 
 test("a manager adds a size through the form; the form keeps errors on the field", async ({ page }) => {
-  await signInPage(page, DEMO_EMAIL.manager);
+  await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/stock");
   await page.getByRole("button", { name: "Add size to DES platform Y (illustrative)" }).click();
   const dialog = page.getByRole("dialog", { name: "Add a size to DES platform Y (illustrative)" });
@@ -92,7 +92,7 @@ test("a manager adds a size through the form; the form keeps errors on the field
 });
 
 test("an operator sees the tables read-only, and the server refuses a change anyway", async ({ page }) => {
-  await signInPage(page, DEMO_EMAIL.operator);
+  await signInPage(page, demoEmail("operator"));
   await page.goto("/labs/demo/stock");
   await expect(page.getByTestId("read-only-note")).toContainText("read-only for you");
   await expect(page.getByRole("note", { name: "Clinical caution" })).toBeVisible();

@@ -1,5 +1,5 @@
 // Signing in as a seeded role, through next-auth's own endpoint (API tests) or the page.
-import { expect, type APIRequestContext, type Page } from "@playwright/test";
+import { expect, request, type APIRequestContext, type Page } from "@playwright/test";
 import type { Role } from "../../../lib/permissions";
 
 export const DEMO_PASSWORD = "forkwall-demo-2026";
@@ -31,4 +31,11 @@ export async function signInPage(page: Page, email: string, password = DEMO_PASS
   await page.getByLabel("Password", { exact: true }).fill(password);
   await page.getByRole("button", { name: "Sign in", exact: true }).click();
   await expect(page.getByTestId("signed-in-as")).toBeVisible();
+}
+
+/** An API client carrying a demo role's session cookie (none for anonymous). */
+export async function apiAs(baseURL: string, actor: Role | "anonymous"): Promise<APIRequestContext> {
+  const ctx = await request.newContext({ baseURL });
+  if (actor !== "anonymous") await signInApi(ctx, demoEmail(actor));
+  return ctx;
 }
