@@ -1,6 +1,6 @@
 "use client";
 
-import { getCoreRowModel, getExpandedRowModel, getSortedRowModel, useReactTable, type ColumnDef, type ExpandedState, type SortingState } from "@tanstack/react-table";
+import type { ColumnDef } from "@tanstack/react-table";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -12,6 +12,7 @@ import { BalloonForm } from "./balloon-form";
 import { ConfirmDelete } from "./confirm-delete";
 import { FamilyForm } from "./family-form";
 import { InStockToggle } from "./in-stock-toggle";
+import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
 import { stockUrl } from "./stock-api";
 import { StockDialog } from "./stock-dialog";
@@ -27,8 +28,6 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
   const router = useRouter();
   const [dialog, setDialog] = useState<Dialog | null>(null);
   const [status, setStatus] = useState<Status | null>(null);
-  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
-  const [expanded, setExpanded] = useState<ExpandedState>(true);
 
   const done = (text: string) => {
     setDialog(null);
@@ -58,50 +57,20 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
         accessorFn: (f) => f.balloons.filter((b) => b.inStock).length,
         cell: (c) => `${c.getValue<number>()} of ${c.row.original.balloons.length}`,
       },
-      {
-        id: "actions",
-        header: () => <span className="sr-only">Actions</span>,
-        enableSorting: false,
-        cell: ({ row }) => {
-          const f = row.original;
-          return (
-            <div className="flex justify-end gap-1 whitespace-nowrap">
-              <Button type="button" variant="ghost" className="px-2 py-1" aria-expanded={row.getIsExpanded()} onClick={row.getToggleExpandedHandler()}>
-                {row.getIsExpanded() ? "Hide sizes" : "Show sizes"}
-                <span className="sr-only"> of {f.name}</span>
-              </Button>
-              {canEdit ? (
-                <>
-                  <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => setDialog({ kind: "family", family: f })}>
-                    Edit<span className="sr-only"> {f.name}</span>
-                  </Button>
-                  <Button type="button" variant="ghost" className="px-2 py-1 text-danger" onClick={() => setDialog({ kind: "delete-family", family: f })}>
-                    Delete<span className="sr-only"> {f.name}</span>
-                  </Button>
-                </>
-              ) : null}
-            </div>
-          );
-        },
-      },
+      actionsColumn<BalloonFamilyView>(({ row }) => (
+        <RowActions
+          name={row.original.name}
+          expand={{ open: row.getIsExpanded(), toggle: row.getToggleExpandedHandler() }}
+          editLabel="Edit"
+          onEdit={canEdit ? () => setDialog({ kind: "family", family: row.original }) : undefined}
+          onDelete={canEdit ? () => setDialog({ kind: "delete-family", family: row.original }) : undefined}
+        />
+      )),
     ],
     [canEdit],
   );
 
-  // TanStack's table object is rebuilt every render by design; the compiler cannot memoize it.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: families,
-    columns,
-    state: { sorting, expanded },
-    onSortingChange: setSorting,
-    onExpandedChange: setExpanded,
-    getRowId: (f) => String(f.id),
-    getRowCanExpand: () => true,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getExpandedRowModel: getExpandedRowModel(),
-  });
+  const table = useStockTable(families, columns, "name", true);
 
   return (
     <section aria-labelledby="balloon-families-heading" className="space-y-3">
@@ -194,7 +163,6 @@ function BalloonSizes({
   onError: (text: string) => void;
   onChanged: () => void;
 }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: "diameterMm", desc: false }]);
   const columns = useMemo<ColumnDef<BalloonView>[]>(
     () => [
       { accessorKey: "diameterMm", header: "Diameter (mm)", cell: (c) => formatMm(c.getValue<number>()) },
@@ -219,37 +187,15 @@ function BalloonSizes({
       },
       ...(canEdit
         ? [
-            {
-              id: "actions",
-              header: () => <span className="sr-only">Actions</span>,
-              enableSorting: false,
-              cell: ({ row }) => (
-                <div className="flex justify-end gap-1 whitespace-nowrap">
-                  <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => onDialog({ kind: "balloon", family, balloon: row.original })}>
-                    Edit<span className="sr-only"> {formatMm(row.original.diameterMm)} mm</span>
-                  </Button>
-                  <Button type="button" variant="ghost" className="px-2 py-1 text-danger" onClick={() => onDialog({ kind: "delete-balloon", family, balloon: row.original })}>
-                    Delete<span className="sr-only"> {formatMm(row.original.diameterMm)} mm</span>
-                  </Button>
-                </div>
-              ),
-            } satisfies ColumnDef<BalloonView>,
+            actionsColumn<BalloonView>(({ row }) => (
+              <RowActions name={`${formatMm(row.original.diameterMm)} mm`} onEdit={() => onDialog({ kind: "balloon", family, balloon: row.original })} onDelete={() => onDialog({ kind: "delete-balloon", family, balloon: row.original })} />
+            )),
           ]
         : []),
     ],
     [slug, family, canEdit, onDialog, onSaved, onError, onChanged],
   );
-  // TanStack's table object is rebuilt every render by design; the compiler cannot memoize it.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: family.balloons,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getRowId: (b) => String(b.id),
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useStockTable(family.balloons, columns, "diameterMm");
   return (
     <div className="space-y-2 pl-2">
       <div className="flex flex-wrap items-center justify-between gap-2">

@@ -1,6 +1,6 @@
 "use client";
 
-import { getCoreRowModel, getExpandedRowModel, getSortedRowModel, useReactTable, type ColumnDef, type ExpandedState, type SortingState } from "@tanstack/react-table";
+import type { ColumnDef } from "@tanstack/react-table";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -10,6 +10,7 @@ import type { StentPlatformView, StentSizeView } from "@/lib/stock/types";
 import { ConfirmDelete } from "./confirm-delete";
 import { PlatformForm } from "./platform-form";
 import { SizeForm } from "./size-form";
+import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
 import { stockUrl } from "./stock-api";
 import { StockDialog } from "./stock-dialog";
@@ -27,8 +28,6 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
   const router = useRouter();
   const [dialog, setDialog] = useState<Dialog | null>(null);
   const [status, setStatus] = useState<Status | null>(null);
-  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
-  const [expanded, setExpanded] = useState<ExpandedState>(true);
   const done = (text: string) => {
     setDialog(null);
     setStatus({ kind: "ok", text });
@@ -40,49 +39,19 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
       { accessorKey: "name", header: "Platform", cell: (c) => c.getValue<string>() },
       { id: "count", header: "Sizes", accessorFn: (p) => p.sizes.length },
       { id: "range", header: "Nominal range (mm)", accessorFn: (p) => p.sizes[0]?.nominalMm ?? 0, cell: (c) => range(c.row.original.sizes) },
-      {
-        id: "actions",
-        header: () => <span className="sr-only">Actions</span>,
-        enableSorting: false,
-        cell: ({ row }) => {
-          const p = row.original;
-          return (
-            <div className="flex justify-end gap-1 whitespace-nowrap">
-              <Button type="button" variant="ghost" className="px-2 py-1" aria-expanded={row.getIsExpanded()} onClick={row.getToggleExpandedHandler()}>
-                {row.getIsExpanded() ? "Hide sizes" : "Show sizes"}
-                <span className="sr-only"> of {p.name}</span>
-              </Button>
-              {canEdit ? (
-                <>
-                  <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => setDialog({ kind: "platform", platform: p })}>
-                    Rename<span className="sr-only"> {p.name}</span>
-                  </Button>
-                  <Button type="button" variant="ghost" className="px-2 py-1 text-danger" onClick={() => setDialog({ kind: "delete-platform", platform: p })}>
-                    Delete<span className="sr-only"> {p.name}</span>
-                  </Button>
-                </>
-              ) : null}
-            </div>
-          );
-        },
-      },
+      actionsColumn<StentPlatformView>(({ row }) => (
+        <RowActions
+          name={row.original.name}
+          expand={{ open: row.getIsExpanded(), toggle: row.getToggleExpandedHandler() }}
+          editLabel="Rename"
+          onEdit={canEdit ? () => setDialog({ kind: "platform", platform: row.original }) : undefined}
+          onDelete={canEdit ? () => setDialog({ kind: "delete-platform", platform: row.original }) : undefined}
+        />
+      )),
     ],
     [canEdit],
   );
-  // TanStack's table object is rebuilt every render by design; the compiler cannot memoize it.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: platforms,
-    columns,
-    state: { sorting, expanded },
-    onSortingChange: setSorting,
-    onExpandedChange: setExpanded,
-    getRowId: (p) => String(p.id),
-    getRowCanExpand: () => true,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getExpandedRowModel: getExpandedRowModel(),
-  });
+  const table = useStockTable(platforms, columns, "name", true);
 
   return (
     <section aria-labelledby="stent-platforms-heading" className="space-y-3">
@@ -152,44 +121,21 @@ function dialogTitle(dialog: Dialog | null): string {
 }
 
 function PlatformSizes({ platform, canEdit, onDialog }: { platform: StentPlatformView; canEdit: boolean; onDialog: (d: Dialog) => void }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: "nominalMm", desc: false }]);
   const columns = useMemo<ColumnDef<StentSizeView>[]>(
     () => [
       { accessorKey: "nominalMm", header: "Nominal (mm)", cell: (c) => formatMm(c.getValue<number>()) },
       { accessorKey: "maxPostDilatationMm", header: "Max post-dilatation (mm)", cell: (c) => formatMm(c.getValue<number>()) },
       ...(canEdit
         ? [
-            {
-              id: "actions",
-              header: () => <span className="sr-only">Actions</span>,
-              enableSorting: false,
-              cell: ({ row }) => (
-                <div className="flex justify-end gap-1 whitespace-nowrap">
-                  <Button type="button" variant="ghost" className="px-2 py-1" onClick={() => onDialog({ kind: "size", platform, size: row.original })}>
-                    Edit<span className="sr-only"> {formatMm(row.original.nominalMm)} mm</span>
-                  </Button>
-                  <Button type="button" variant="ghost" className="px-2 py-1 text-danger" onClick={() => onDialog({ kind: "delete-size", platform, size: row.original })}>
-                    Delete<span className="sr-only"> {formatMm(row.original.nominalMm)} mm</span>
-                  </Button>
-                </div>
-              ),
-            } satisfies ColumnDef<StentSizeView>,
+            actionsColumn<StentSizeView>(({ row }) => (
+              <RowActions name={`${formatMm(row.original.nominalMm)} mm`} onEdit={() => onDialog({ kind: "size", platform, size: row.original })} onDelete={() => onDialog({ kind: "delete-size", platform, size: row.original })} />
+            )),
           ]
         : []),
     ],
     [platform, canEdit, onDialog],
   );
-  // TanStack's table object is rebuilt every render by design; the compiler cannot memoize it.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: platform.sizes,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getRowId: (s) => String(s.id),
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useStockTable(platform.sizes, columns, "nominalMm");
   return (
     <div className="space-y-2 pl-2">
       <div className="flex flex-wrap items-center justify-between gap-2">
