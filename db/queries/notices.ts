@@ -6,8 +6,9 @@ import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail/send";
 import { staleNoticeMail, type StaleItem, type StaleNotice } from "@/lib/mail/templates/stale-notice";
 import { db } from "../index";
-import { charts, editions, labs, memberships, postings, rooms, staleNotices, users } from "../schema";
+import { charts, editions, labs, memberships, postings, staleNotices, users } from "../schema";
 import type { Tx } from "./audit";
+import { readHangingCopies } from "./hanging-copies";
 
 /**
  * Inside the transaction of a change, after the lab's live snapshots were refreshed: works out
@@ -15,39 +16,19 @@ import type { Tx } from "./audit";
  * for this change (its key is unique per lab, so a change never mails twice).
  */
 export async function reconcilePostings(tx: Tx, { labId, changeKey, cause }: { labId: number; changeKey: string; cause: string }) {
-  const rows = await tx
-    .select({
-      postingId: postings.id,
-      lastStatus: postings.lastStatus,
-      room: rooms.name,
-      edition: editions,
-      chart: { id: charts.id, title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot },
-    })
-    .from(postings)
-    .innerJoin(rooms, eq(rooms.id, postings.roomId))
-    .innerJoin(editions, eq(editions.id, postings.editionId))
-    .innerJoin(charts, eq(charts.id, editions.chartId))
-    .where(and(eq(postings.labId, labId), isNull(postings.removedAt)));
-  if (rows.length === 0) return [];
-  const approved = await tx
-    .select({ id: editions.id, chartId: editions.chartId, number: editions.number, approvedAt: editions.approvedAt })
-    .from(editions)
-    .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
   const newlyStale: StaleItem[] = [];
-  for (const r of rows) {
-    const current = approved.find((a) => a.chartId === r.chart.id && a.id !== r.edition.id) ?? null;
-    const result = checkEdition({ ...r.edition, snapshot: r.edition.snapshot as Snapshot }, { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null }, current);
-    if (result.status === r.lastStatus) continue;
-    await tx.update(postings).set({ lastStatus: result.status }).where(and(eq(postings.id, r.postingId), eq(postings.labId, labId)));
-    if (STALE.includes(result.status) && !STALE.includes(r.lastStatus as CheckStatus)) {
+  for (const copy of await readHangingCopies(tx, labId)) {
+    if (copy.status === copy.lastStatus) continue;
+    await tx.update(postings).set({ lastStatus: copy.status }).where(and(eq(postings.id, copy.postingId), eq(postings.labId, labId)));
+    if (STALE.includes(copy.status) && !STALE.includes(copy.lastStatus)) {
       newlyStale.push({
-        room: r.room,
-        chartId: r.chart.id,
-        chartTitle: r.chart.title,
-        editionNumber: r.edition.number,
-        status: result.status as StaleItem["status"],
-        changes: result.changes.map((c) => c.detail),
-        current: current ? { editionId: current.id, number: current.number } : null,
+        room: copy.room,
+        chartId: copy.chart.id,
+        chartTitle: copy.chart.title,
+        editionNumber: copy.edition.number,
+        status: copy.status as StaleItem["status"],
+        changes: copy.changes,
+        current: copy.current ? { editionId: copy.current.id, number: copy.current.number } : null,
       });
     }
   }

@@ -1,11 +1,11 @@
 import "server-only";
-import { and, asc, desc, eq, isNull } from "drizzle-orm";
-import type { Snapshot } from "@/lib/charts/snapshot";
-import { checkEdition, STALE, type CheckStatus } from "@/lib/editions/check";
+import { and, asc, eq, isNull } from "drizzle-orm";
+import { STALE, type CheckStatus } from "@/lib/editions/check";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
-import { charts, editions, postings, rooms, users } from "../schema";
+import { editions, postings, rooms } from "../schema";
 import { recordAudit } from "./audit";
+import { readHangingCopies } from "./hanging-copies";
 import { initialPostingStatus } from "./notices";
 
 type Actor = { id: number };
@@ -99,46 +99,27 @@ export type BoardRoom = { id: number; name: string; postings: BoardPosting[]; st
 
 /** Every room, what hangs there and its status, stale rooms first: one query for the lab. */
 export async function roomBoard({ labId }: { labId: number }): Promise<BoardRoom[]> {
-  const [roomRows, rows, approved] = await Promise.all([
-    listRooms({ labId }),
-    db
-      .select({ posting: postings, edition: editions, chart: { id: charts.id, title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot }, postedByName: users.name })
-      .from(postings)
-      .innerJoin(editions, eq(editions.id, postings.editionId))
-      .innerJoin(charts, eq(charts.id, editions.chartId))
-      .leftJoin(users, eq(users.id, postings.postedBy))
-      .where(and(eq(postings.labId, labId), isNull(postings.removedAt)))
-      .orderBy(desc(postings.postedAt)),
-    db
-      .select({ id: editions.id, chartId: editions.chartId, number: editions.number, approvedAt: editions.approvedAt })
-      .from(editions)
-      .where(and(eq(editions.labId, labId), eq(editions.status, "approved"))),
-  ]);
+  const [roomRows, copies] = await Promise.all([listRooms({ labId }), readHangingCopies(db, labId)]);
+  const stale = (p: BoardPosting) => STALE.includes(p.status);
   const board = roomRows.map((room): BoardRoom => {
-    const mine = rows
-      .filter((r) => r.posting.roomId === room.id)
-      .map((r): BoardPosting => {
-        const current = approved.find((a) => a.chartId === r.chart.id) ?? null;
-        const result = checkEdition(
-          { ...r.edition, snapshot: r.edition.snapshot as Snapshot },
-          { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null },
-          current && current.id !== r.edition.id ? current : null,
-        );
-        return {
-          postingId: r.posting.id,
-          postedAt: r.posting.postedAt,
-          postedByName: r.postedByName,
-          editionId: r.edition.id,
-          editionNumber: r.edition.number,
-          chartId: r.chart.id,
-          chartTitle: r.chart.title,
-          status: result.status,
-          changes: result.changes.map((c) => c.detail),
-          currentEdition: current && current.id !== r.edition.id ? { id: current.id, number: current.number } : null,
-        };
-      })
-      .sort((a, b) => Number(STALE.includes(b.status)) - Number(STALE.includes(a.status)));
-    return { id: room.id, name: room.name, postings: mine, stale: mine.filter((p) => STALE.includes(p.status)).length };
+    const mine = copies
+      .filter((c) => c.roomId === room.id)
+      .map(
+        (c): BoardPosting => ({
+          postingId: c.postingId,
+          postedAt: c.postedAt,
+          postedByName: c.postedByName,
+          editionId: c.edition.id,
+          editionNumber: c.edition.number,
+          chartId: c.chart.id,
+          chartTitle: c.chart.title,
+          status: c.status,
+          changes: c.changes,
+          currentEdition: c.current,
+        }),
+      )
+      .sort((a, b) => Number(stale(b)) - Number(stale(a)));
+    return { id: room.id, name: room.name, postings: mine, stale: mine.filter(stale).length };
   });
   return board.sort((a, b) => b.stale - a.stale || a.name.localeCompare(b.name));
 }
