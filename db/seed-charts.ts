@@ -43,7 +43,7 @@ const CHARTS: DemoChart[] = [
       stentPlatformId: null,
       paper: "TABLOID",
       orientation: "landscape",
-      readingDistanceM: 2,
+      readingDistanceM: 1,
       notes: "Demo chart with invented stock. Side-branch balloon: smaller stocked size when between two.",
     }),
     approveBy: "manager",
