@@ -13,7 +13,18 @@ const config = [
       "drizzle/enforce-update-with-where": ["error", { drizzleObjectName: ["db", "tx"] }],
     },
   },
-  { ignores: [".next/**", ".next-*/**", ".data/**", "node_modules/**", "drizzle/**", "next-env.d.ts", "test-results/**", "playwright-report/**"] },
+  {
+    ignores: [
+      ".next/**",
+      ".next-*/**",
+      ".data/**",
+      "node_modules/**",
+      "drizzle/**",
+      "next-env.d.ts",
+      "test-results/**",
+      "playwright-report/**",
+    ],
+  },
 ];
 
 export default config;

@@ -5,7 +5,8 @@ import "./globals.css";
 
 export const metadata: Metadata = {
   title: { default: "Forkwall", template: "%s · Forkwall" },
-  description: "Bifurcation balloon-sizing wall charts built from your cath lab's own stock, with live checks for every printed copy.",
+  description:
+    "Bifurcation balloon-sizing wall charts built from your cath lab's own stock, with live checks for every printed copy.",
 };
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#164f5d" };
@@ -14,7 +15,10 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-screen bg-paper font-sans text-ink antialiased">
-        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+        <a
+          href="#main"
+          className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+        >
           Skip to content
         </a>
         <SiteHeader />

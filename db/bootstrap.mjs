@@ -43,14 +43,18 @@ function say(msg) {
 }
 
 function ensureDebianPackages(groups) {
-  const missing = groups.flatMap((g) => PACKAGES[g]).filter(([, file]) => !existsSync(file)).map(([pkg]) => pkg);
+  const missing = groups
+    .flatMap((g) => PACKAGES[g])
+    .filter(([, file]) => !existsSync(file))
+    .map(([pkg]) => pkg);
   if (missing.length === 0) return;
   const isRoot = process.getuid?.() === 0;
   const sudo = isRoot ? [] : ["sudo"];
   say(`installing Debian packages: ${missing.join(" ")}`);
   try {
     const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
-    const run = (args) => execFileSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), { stdio: "inherit", env });
+    const run = (args) =>
+      execFileSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), { stdio: "inherit", env });
     run(["apt-get", "update", "-qq"]);
     run(["apt-get", "install", "-y", "-qq", "--no-install-recommends", ...missing]);
   } catch {

@@ -49,7 +49,13 @@ const osUser = () => os.userInfo().username;
 
 async function ping(server: LocalServer): Promise<boolean> {
   try {
-    await run(bin("mariadb-admin"), ["--no-defaults", `--socket=${server.socket}`, `-u${osUser()}`, "--connect-timeout=2", "ping"]);
+    await run(bin("mariadb-admin"), [
+      "--no-defaults",
+      `--socket=${server.socket}`,
+      `-u${osUser()}`,
+      "--connect-timeout=2",
+      "ping",
+    ]);
     return true;
   } catch {
     return false;

@@ -9,7 +9,12 @@ export async function provision(env: Env, opts: { fresh?: boolean; log?: (msg: s
   const server = local.localServer({ port: env.DB_PORT });
   const state = await local.start(server);
   log(`MariaDB ${state} on 127.0.0.1:${env.DB_PORT} (data in ${server.dataDir})`);
-  await local.ensureDatabase(server, { database: env.DB_NAME, user: env.DB_USER, password: env.DB_PASSWORD, fresh: opts.fresh });
+  await local.ensureDatabase(server, {
+    database: env.DB_NAME,
+    user: env.DB_USER,
+    password: env.DB_PASSWORD,
+    fresh: opts.fresh,
+  });
   // The process-wide pool: the seed goes through the app's own query functions, which use it.
   const { db, pool } = await import("./index");
   const { runMigrations } = await import("./migrate");

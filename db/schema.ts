@@ -40,7 +40,6 @@ const mediumBlob = customType<{ data: Buffer; driverData: Buffer }>({
   dataType: () => "mediumblob",
 });
 
-
 // ---------- people and labs ----------
 
 export const users = mysqlTable("users", {
@@ -165,7 +164,10 @@ export const balloons = mysqlTable(
     diameterMm: mm("diameter_mm").notNull(),
     inStock: boolean("in_stock").notNull().default(true),
   },
-  (t) => [uniqueIndex("balloons_family_diameter_uq").on(t.familyId, t.diameterMm), index("balloons_lab_idx").on(t.labId)],
+  (t) => [
+    uniqueIndex("balloons_family_diameter_uq").on(t.familyId, t.diameterMm),
+    index("balloons_lab_idx").on(t.labId),
+  ],
 );
 
 export const stentPlatforms = mysqlTable(
@@ -194,7 +196,10 @@ export const stentSizes = mysqlTable(
     nominalMm: mm("nominal_mm").notNull(),
     maxPostDilatationMm: mm("max_post_dilatation_mm").notNull(),
   },
-  (t) => [uniqueIndex("stent_sizes_platform_nominal_uq").on(t.platformId, t.nominalMm), index("stent_sizes_lab_idx").on(t.labId)],
+  (t) => [
+    uniqueIndex("stent_sizes_platform_nominal_uq").on(t.platformId, t.nominalMm),
+    index("stent_sizes_lab_idx").on(t.labId),
+  ],
 );
 
 // ---------- charts and editions ----------
@@ -263,7 +268,10 @@ export const editions = mysqlTable(
     withdrawnBy: ref("withdrawn_by").references(() => users.id, { onDelete: "set null" }),
     withdrawnAt: when("withdrawn_at"),
   },
-  (t) => [uniqueIndex("editions_chart_number_uq").on(t.chartId, t.number), index("editions_lab_status_idx").on(t.labId, t.status)],
+  (t) => [
+    uniqueIndex("editions_chart_number_uq").on(t.chartId, t.number),
+    index("editions_lab_status_idx").on(t.labId, t.status),
+  ],
 );
 
 export const posterRenders = mysqlTable(
@@ -314,7 +322,9 @@ export const postings = mysqlTable(
     removedBy: ref("removed_by").references(() => users.id, { onDelete: "set null" }),
     removedAt: when("removed_at"),
     // The status last seen by the stale-copy pass, so each change to it is noticed once.
-    lastStatus: mysqlEnum("last_status", ["current", "outdated", "superseded", "withdrawn", "draft"]).notNull().default("current"),
+    lastStatus: mysqlEnum("last_status", ["current", "outdated", "superseded", "withdrawn", "draft"])
+      .notNull()
+      .default("current"),
   },
   (t) => [index("postings_lab_idx").on(t.labId, t.removedAt), index("postings_edition_idx").on(t.editionId)],
 );

@@ -24,12 +24,21 @@ const CHARTS: DemoChart[] = [
     definition: ({ nc, stent }) => ({
       title: "POT balloon chart (demo)",
       law: { law: "finet", ratio: 0.678 },
-      lookups: [{ kind: "proximal", rows: { from: 2.5, to: 4, step: 0.25 }, cols: { from: 2, to: 3.5, step: 0.25 }, rounding: "up", familyId: nc }],
+      lookups: [
+        {
+          kind: "proximal",
+          rows: { from: 2.5, to: 4, step: 0.25 },
+          cols: { from: 2, to: 3.5, step: 0.25 },
+          rounding: "up",
+          familyId: nc,
+        },
+      ],
       stentPlatformId: stent,
       paper: "A2",
       orientation: "portrait",
       readingDistanceM: 1.5,
-      notes: "Demo chart with invented stock. POT balloon sized 1:1 to the proximal main vessel; larger stocked size when between two.",
+      notes:
+        "Demo chart with invented stock. POT balloon sized 1:1 to the proximal main vessel; larger stocked size when between two.",
     }),
     approveBy: "lead",
     postIn: ["Procedure room 1", "Control room"],
@@ -39,7 +48,15 @@ const CHARTS: DemoChart[] = [
     definition: ({ nc }) => ({
       title: "Kissing balloon chart (demo)",
       law: { law: "square" },
-      lookups: [{ kind: "side", rows: { from: 3, to: 4.5, step: 0.25 }, cols: { from: 2.5, to: 4, step: 0.25 }, rounding: "down", familyId: nc }],
+      lookups: [
+        {
+          kind: "side",
+          rows: { from: 3, to: 4.5, step: 0.25 },
+          cols: { from: 2.5, to: 4, step: 0.25 },
+          rounding: "down",
+          familyId: nc,
+        },
+      ],
       stentPlatformId: null,
       paper: "TABLOID",
       orientation: "landscape",
@@ -54,7 +71,15 @@ const CHARTS: DemoChart[] = [
     definition: ({ sc }) => ({
       title: "Main-branch balloon chart (demo draft)",
       law: { law: "huo-kassab" },
-      lookups: [{ kind: "main", rows: { from: 3, to: 4, step: 0.25 }, cols: { from: 1.5, to: 2.75, step: 0.25 }, rounding: "nearest", familyId: sc }],
+      lookups: [
+        {
+          kind: "main",
+          rows: { from: 3, to: 4, step: 0.25 },
+          cols: { from: 1.5, to: 2.75, step: 0.25 },
+          rounding: "nearest",
+          familyId: sc,
+        },
+      ],
       stentPlatformId: null,
       paper: "A3",
       orientation: "landscape",
@@ -73,27 +98,45 @@ export async function seedDemoCharts(db: Database): Promise<void> {
     const [u] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, email));
     return u!;
   };
-  const [educator, lead, manager, operator] = await Promise.all(["educator", "lead", "manager", "operator"].map((r) => person(`${r}@forkwall.test`)));
-  const familyId = async (name: string) => (await db.select({ id: balloonFamilies.id }).from(balloonFamilies).where(and(eq(balloonFamilies.labId, lab.id), eq(balloonFamilies.name, name))))[0]?.id;
+  const [educator, lead, manager, operator] = await Promise.all(
+    ["educator", "lead", "manager", "operator"].map((r) => person(`${r}@forkwall.test`)),
+  );
+  const familyId = async (name: string) =>
+    (
+      await db
+        .select({ id: balloonFamilies.id })
+        .from(balloonFamilies)
+        .where(and(eq(balloonFamilies.labId, lab.id), eq(balloonFamilies.name, name)))
+    )[0]?.id;
   const nc = await familyId("NC family A (illustrative)");
   const sc = await familyId("SC family B (illustrative)");
-  const [stentRow] = await db.select({ id: stentPlatforms.id }).from(stentPlatforms).where(and(eq(stentPlatforms.labId, lab.id), eq(stentPlatforms.name, "DES platform X (illustrative)")));
+  const [stentRow] = await db
+    .select({ id: stentPlatforms.id })
+    .from(stentPlatforms)
+    .where(and(eq(stentPlatforms.labId, lab.id), eq(stentPlatforms.name, "DES platform X (illustrative)")));
   if (!nc || !sc || !stentRow) return;
 
   const roomIds = new Map<string, number>();
   for (const name of ROOMS) {
-    const [found] = await db.select({ id: rooms.id }).from(rooms).where(and(eq(rooms.labId, lab.id), eq(rooms.name, name)));
+    const [found] = await db
+      .select({ id: rooms.id })
+      .from(rooms)
+      .where(and(eq(rooms.labId, lab.id), eq(rooms.name, name)));
     roomIds.set(name, found?.id ?? (await createRoom({ labId: lab.id, name, actor: manager! })).id);
   }
 
   for (const demo of CHARTS) {
-    const [exists] = await db.select({ id: charts.id }).from(charts).where(and(eq(charts.labId, lab.id), eq(charts.title, demo.title)));
+    const [exists] = await db
+      .select({ id: charts.id })
+      .from(charts)
+      .where(and(eq(charts.labId, lab.id), eq(charts.title, demo.title)));
     if (exists) continue;
     const definition = chartDefinitionSchema.parse(demo.definition({ nc, sc, stent: stentRow.id }));
     const { id: chartId } = await createChart({ labId: lab.id, userId: educator!.id, definition });
     const edition = await createEdition({ labId: lab.id, chartId, actor: educator! });
     if (!demo.approveBy) continue;
     await approveEdition({ labId: lab.id, editionId: edition.id, actor: demo.approveBy === "lead" ? lead! : manager! });
-    for (const room of demo.postIn) await recordPosting({ labId: lab.id, editionId: edition.id, roomId: roomIds.get(room)!, actor: operator! });
+    for (const room of demo.postIn)
+      await recordPosting({ labId: lab.id, editionId: edition.id, roomId: roomIds.get(room)!, actor: operator! });
   }
 }

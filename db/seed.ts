@@ -14,10 +14,26 @@ export const DEMO_LABS = [
   { slug: "demo-north", name: "Demo North Cath Lab (illustrative)" },
 ] as const;
 
-export const DEMO_PEOPLE: { email: string; name: string; roles: Partial<Record<(typeof DEMO_LABS)[number]["slug"], Role>> }[] = [
-  { email: "manager@forkwall.test", name: "Morgan Avery (demo manager)", roles: { demo: "manager", "demo-north": "manager" } },
-  { email: "lead@forkwall.test", name: "Dr Lee Okafor (demo medical lead)", roles: { demo: "lead", "demo-north": "lead" } },
-  { email: "educator@forkwall.test", name: "Eden Sørlie (demo educator)", roles: { demo: "educator", "demo-north": "educator" } },
+export const DEMO_PEOPLE: {
+  email: string;
+  name: string;
+  roles: Partial<Record<(typeof DEMO_LABS)[number]["slug"], Role>>;
+}[] = [
+  {
+    email: "manager@forkwall.test",
+    name: "Morgan Avery (demo manager)",
+    roles: { demo: "manager", "demo-north": "manager" },
+  },
+  {
+    email: "lead@forkwall.test",
+    name: "Dr Lee Okafor (demo medical lead)",
+    roles: { demo: "lead", "demo-north": "lead" },
+  },
+  {
+    email: "educator@forkwall.test",
+    name: "Eden Sørlie (demo educator)",
+    roles: { demo: "educator", "demo-north": "educator" },
+  },
   { email: "operator@forkwall.test", name: "Dr Omar Reyes (demo operator)", roles: { demo: "operator" } },
 ];
 
@@ -33,11 +49,17 @@ async function upsertUser(db: Database, email: string, name: string): Promise<nu
   if (found) {
     // Keep the documented demo password working even if someone changed it.
     if (!(await verifyPassword(DEMO_PASSWORD, found.passwordHash))) {
-      await db.update(users).set({ passwordHash: await hashPassword(DEMO_PASSWORD) }).where(eq(users.id, found.id));
+      await db
+        .update(users)
+        .set({ passwordHash: await hashPassword(DEMO_PASSWORD) })
+        .where(eq(users.id, found.id));
     }
     return found.id;
   }
-  const [row] = await db.insert(users).values({ email, name, passwordHash: await hashPassword(DEMO_PASSWORD) }).$returningId();
+  const [row] = await db
+    .insert(users)
+    .values({ email, name, passwordHash: await hashPassword(DEMO_PASSWORD) })
+    .$returningId();
   return row!.id;
 }
 

@@ -61,7 +61,10 @@ try {
     say("building (next build)…");
     await runStep(process.execPath, [nextBin, "build"]);
   }
-  const args = mode === "dev" ? ["dev", "-H", "127.0.0.1", "-p", String(env.PORT)] : ["start", "-H", "127.0.0.1", "-p", String(env.PORT)];
+  const args =
+    mode === "dev"
+      ? ["dev", "-H", "127.0.0.1", "-p", String(env.PORT)]
+      : ["start", "-H", "127.0.0.1", "-p", String(env.PORT)];
   web = spawn(process.execPath, [nextBin, ...args], { stdio: "inherit" });
   web.on("exit", (code) => void shutdown(code ?? 0));
   say(`Forkwall is starting at ${env.APP_URL} (Ctrl-C stops it and the database)`);

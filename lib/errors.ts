@@ -43,15 +43,24 @@ export class AppError extends Error {
 }
 
 export const unauthenticated = () => new AppError("unauthenticated", "Sign in to continue.");
-export const forbidden = (what = "do this") => new AppError("forbidden", `Your role in this lab does not allow you to ${what}.`);
+export const forbidden = (what = "do this") =>
+  new AppError("forbidden", `Your role in this lab does not allow you to ${what}.`);
 export const notFound = (what = "That") => new AppError("not_found", `${what} was not found.`);
 
 /** zod-style issues -> a 400 that names each field and why. */
 export function invalidInput(issues: { path: readonly PropertyKey[]; message: string }[], message?: string): AppError {
-  const list = issues.map((i) => ({ path: i.path.map((p) => (typeof p === "number" ? p : String(p))), message: i.message }));
+  const list = issues.map((i) => ({
+    path: i.path.map((p) => (typeof p === "number" ? p : String(p))),
+    message: i.message,
+  }));
   const describe = (i: FieldIssue) => `${i.path.length ? i.path.join(".") + ": " : ""}${i.message}`;
   const summary =
-    message ?? (list.length === 0 ? "Invalid input." : list.length === 1 ? describe(list[0]!) : `${list.length} problems; first, ${describe(list[0]!)}`);
+    message ??
+    (list.length === 0
+      ? "Invalid input."
+      : list.length === 1
+        ? describe(list[0]!)
+        : `${list.length} problems; first, ${describe(list[0]!)}`);
   return new AppError("invalid_input", summary, list);
 }
 
@@ -62,5 +71,8 @@ export function errorBody(err: AppError) {
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) return Response.json(errorBody(err), { status: err.status });
   console.error(err);
-  return Response.json({ error: { code: "internal", message: "Something went wrong on our side. Please try again." } }, { status: 500 });
+  return Response.json(
+    { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
+    { status: 500 },
+  );
 }

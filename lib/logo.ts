@@ -40,10 +40,13 @@ export function jpegSize(bytes: Uint8Array): { width: number; height: number } |
 
 export async function checkLogo(bytes: Uint8Array): Promise<CheckedLogo> {
   if (bytes.length === 0) throw refuse("The file is empty.");
-  if (bytes.length > LOGO_MAX_BYTES) throw new AppError("payload_too_large", `The logo is ${(bytes.length / ONE_MB).toFixed(2)} MB; the limit is 1 MB.`);
+  if (bytes.length > LOGO_MAX_BYTES)
+    throw new AppError("payload_too_large", `The logo is ${(bytes.length / ONE_MB).toFixed(2)} MB; the limit is 1 MB.`);
   const type = await fileTypeFromBuffer(bytes);
   if (!type || (type.mime !== "image/png" && type.mime !== "image/jpeg")) {
-    throw refuse(`The logo must be a PNG or JPEG image; this file ${type ? `is ${type.ext.toUpperCase()}` : "is not an image"}, whatever its name says.`);
+    throw refuse(
+      `The logo must be a PNG or JPEG image; this file ${type ? `is ${type.ext.toUpperCase()}` : "is not an image"}, whatever its name says.`,
+    );
   }
   let size: { width: number; height: number } | null = null;
   if (type.mime === "image/png") {
@@ -55,6 +58,7 @@ export async function checkLogo(bytes: Uint8Array): Promise<CheckedLogo> {
     }
   } else size = jpegSize(bytes);
   if (!size) throw refuse(`The ${type.ext.toUpperCase()} file is damaged and cannot be read as an image.`);
-  if (size.width > LOGO_MAX_PIXELS || size.height > LOGO_MAX_PIXELS) throw refuse(`The logo is ${size.width} × ${size.height} pixels; keep it within ${LOGO_MAX_PIXELS} pixels a side.`);
+  if (size.width > LOGO_MAX_PIXELS || size.height > LOGO_MAX_PIXELS)
+    throw refuse(`The logo is ${size.width} × ${size.height} pixels; keep it within ${LOGO_MAX_PIXELS} pixels a side.`);
   return { mime: type.mime, sha256: createHash("sha256").update(bytes).digest("hex"), ...size };
 }

@@ -10,22 +10,34 @@ export const ONE_MB = 1024 * 1024;
 
 export function payloadTooLarge(bytes: number, maxBytes: number, hint: string): AppError {
   const mb = (n: number) => (n % ONE_MB === 0 ? String(n / ONE_MB) : (n / ONE_MB).toFixed(2));
-  return new AppError("payload_too_large", `The file is ${mb(bytes)} MB; the limit is ${mb(maxBytes)} MB (${maxBytes.toLocaleString("en")} bytes). ${hint}`);
+  return new AppError(
+    "payload_too_large",
+    `The file is ${mb(bytes)} MB; the limit is ${mb(maxBytes)} MB (${maxBytes.toLocaleString("en")} bytes). ${hint}`,
+  );
 }
 
 export async function readUploadedFile(
   req: Request,
-  { field = "file", maxBytes = ONE_MB, tooLargeHint = "Send a smaller file." }: { field?: string; maxBytes?: number; tooLargeHint?: string } = {},
+  {
+    field = "file",
+    maxBytes = ONE_MB,
+    tooLargeHint = "Send a smaller file.",
+  }: { field?: string; maxBytes?: number; tooLargeHint?: string } = {},
 ): Promise<UploadedFile> {
   const tooLarge = (bytes: number) => payloadTooLarge(bytes, maxBytes, tooLargeHint);
   const type = req.headers.get("content-type") ?? "";
   if (!type.toLowerCase().startsWith("multipart/form-data")) {
-    throw new AppError("invalid_input", `Send the file as multipart/form-data in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+    throw new AppError("invalid_input", `Send the file as multipart/form-data in the field "${field}".`, [
+      { path: [field], message: "No file was sent." },
+    ]);
   }
   const cap = maxBytes + ENVELOPE_BYTES;
   const declared = Number(req.headers.get("content-length"));
   if (Number.isFinite(declared) && declared > cap) throw tooLarge(declared);
-  if (!req.body) throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+  if (!req.body)
+    throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [
+      { path: [field], message: "No file was sent." },
+    ]);
 
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -48,7 +60,9 @@ export async function readUploadedFile(
   }
   const file = form.get(field);
   if (!file || typeof file === "string") {
-    throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [{ path: [field], message: "No file was sent." }]);
+    throw new AppError("invalid_input", `Choose a file to send in the field "${field}".`, [
+      { path: [field], message: "No file was sent." },
+    ]);
   }
   if (file.size > maxBytes) throw tooLarge(file.size);
   return { name: file.name.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };

@@ -71,15 +71,25 @@ try {
 
   say("vitest: unit and integration (real MariaDB)");
   const vitestJson = path.join(reports, "vitest.json");
-  const vcode = await exec(bin("vitest"), ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${vitestJson}`]);
-  const v = readJson<{ numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number }>(vitestJson);
+  const vcode = await exec(bin("vitest"), [
+    "run",
+    "--reporter=default",
+    "--reporter=json",
+    `--outputFile.json=${vitestJson}`,
+  ]);
+  const v = readJson<{ numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number }>(
+    vitestJson,
+  );
   if (v) {
     const failed = v.numFailedTests + (vcode !== 0 && v.numFailedTests === 0 ? 1 : 0);
     tallies.push({ name: "vitest", passed: v.numPassedTests, failed, skipped: v.numPendingTests + v.numTodoTests });
   } else tallies.push({ name: "vitest", passed: 0, failed: 1, skipped: 0, note: "no report" });
 
   if (!onlyVitest) {
-    const built = await check("production build (next build)", process.execPath, ["node_modules/next/dist/bin/next", "build"]);
+    const built = await check("production build (next build)", process.execPath, [
+      "node_modules/next/dist/bin/next",
+      "build",
+    ]);
     if (built) {
       say("playwright (Debian chromium)");
       const pwJson = path.join(reports, "playwright.json");
@@ -87,7 +97,12 @@ try {
       const p = readJson<{ stats: { expected: number; unexpected: number; flaky: number; skipped: number } }>(pwJson);
       if (p) {
         const failed = p.stats.unexpected + (pcode !== 0 && p.stats.unexpected === 0 ? 1 : 0);
-        tallies.push({ name: "playwright", passed: p.stats.expected + p.stats.flaky, failed, skipped: p.stats.skipped });
+        tallies.push({
+          name: "playwright",
+          passed: p.stats.expected + p.stats.flaky,
+          failed,
+          skipped: p.stats.skipped,
+        });
       } else tallies.push({ name: "playwright", passed: 0, failed: 1, skipped: 0, note: "no report" });
     } else tallies.push({ name: "playwright", passed: 0, failed: 1, skipped: 0, note: "not run: build failed" });
   }
@@ -101,7 +116,9 @@ try {
 
 console.log("\nsuite                              passed  failed  skipped");
 for (const t of tallies) {
-  console.log(`${t.name.padEnd(34)} ${String(t.passed).padStart(6)}  ${String(t.failed).padStart(6)}  ${String(t.skipped).padStart(7)}${t.note ? `  (${t.note})` : ""}`);
+  console.log(
+    `${t.name.padEnd(34)} ${String(t.passed).padStart(6)}  ${String(t.failed).padStart(6)}  ${String(t.skipped).padStart(7)}${t.note ? `  (${t.note})` : ""}`,
+  );
 }
 const passed = tallies.reduce((s, t) => s + t.passed, 0);
 const failed = tallies.reduce((s, t) => s + t.failed, 0);

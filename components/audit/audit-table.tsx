@@ -1,7 +1,15 @@
 import type { AuditEntry } from "@/db/queries/audit";
 import { describeAction, describeDetail } from "@/lib/audit/describe";
 
-const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", second: "2-digit", timeZone: "UTC" });
+const when = new Intl.DateTimeFormat("en-GB", {
+  day: "numeric",
+  month: "short",
+  year: "numeric",
+  hour: "2-digit",
+  minute: "2-digit",
+  second: "2-digit",
+  timeZone: "UTC",
+});
 
 export function AuditTable({ events }: { events: AuditEntry[] }) {
   return (
@@ -10,10 +18,18 @@ export function AuditTable({ events }: { events: AuditEntry[] }) {
         <caption className="sr-only">Audit log, newest first (times in UTC)</caption>
         <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
           <tr>
-            <th scope="col" className="px-4 py-2">When (UTC)</th>
-            <th scope="col" className="px-4 py-2">Who</th>
-            <th scope="col" className="px-4 py-2">What</th>
-            <th scope="col" className="w-2/5 px-4 py-2">Detail</th>
+            <th scope="col" className="px-4 py-2">
+              When (UTC)
+            </th>
+            <th scope="col" className="px-4 py-2">
+              Who
+            </th>
+            <th scope="col" className="px-4 py-2">
+              What
+            </th>
+            <th scope="col" className="w-2/5 px-4 py-2">
+              Detail
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -49,7 +65,8 @@ export function AuditTable({ events }: { events: AuditEntry[] }) {
                           <dd className="break-words">
                             {l.value ?? (
                               <>
-                                <span className="text-ink-soft">{l.before}</span> <span aria-label="changed to">→</span> <strong>{l.after}</strong>
+                                <span className="text-ink-soft">{l.before}</span> <span aria-label="changed to">→</span>{" "}
+                                <strong>{l.after}</strong>
                               </>
                             )}
                           </dd>

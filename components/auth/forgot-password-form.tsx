@@ -11,7 +11,15 @@ export function ForgotPasswordForm() {
   const [state, action, pending] = useActionState<ActionState, FormData>(requestPasswordResetAction, {});
   return (
     <form action={action} className="mt-6 space-y-4" noValidate aria-busy={pending}>
-      <TextField label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={String(state.values?.email ?? "")} error={state.fieldErrors?.email} />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="email"
+        required
+        defaultValue={String(state.values?.email ?? "")}
+        error={state.fieldErrors?.email}
+      />
       <FormStatus ok={state.ok} message={state.message} />
       <button type="submit" disabled={pending} className={buttonClass("primary", "w-full")}>
         {pending ? "Sending…" : "Send the link"}

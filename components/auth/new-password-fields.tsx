@@ -14,7 +14,14 @@ export function NewPasswordFields({ errors }: { errors?: Record<string, string> 
         hint={`At least ${PASSWORD_MIN} characters; a short phrase is easier to remember than symbols.`}
         error={errors?.password}
       />
-      <TextField label="Repeat the password" name="confirm" type="password" autoComplete="new-password" required error={errors?.confirm} />
+      <TextField
+        label="Repeat the password"
+        name="confirm"
+        type="password"
+        autoComplete="new-password"
+        required
+        error={errors?.confirm}
+      />
     </>
   );
 }

@@ -11,8 +11,23 @@ export function SignInForm({ callbackUrl, email }: { callbackUrl: string; email?
   return (
     <form action={action} className="mt-6 space-y-4" noValidate aria-busy={pending}>
       <input type="hidden" name="callbackUrl" value={callbackUrl} />
-      <TextField label="E-mail" name="email" id="email" type="email" autoComplete="email" required defaultValue={state.email ?? email} />
-      <TextField label="Password" name="password" id="password" type="password" autoComplete="current-password" required />
+      <TextField
+        label="E-mail"
+        name="email"
+        id="email"
+        type="email"
+        autoComplete="email"
+        required
+        defaultValue={state.email ?? email}
+      />
+      <TextField
+        label="Password"
+        name="password"
+        id="password"
+        type="password"
+        autoComplete="current-password"
+        required
+      />
       <FormStatus message={state.error} />
       <button type="submit" disabled={pending} className={buttonClass("primary", "w-full")}>
         {pending ? "Signing in…" : "Sign in"}

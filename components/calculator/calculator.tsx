@@ -6,7 +6,9 @@ import useSWR from "swr";
 type LawOption = { id: string; name: string; formula: string; source: string };
 type Target = "parent" | "mb" | "sb";
 type SolveOk = { law: string; solved: Target; diameterMm: number; formula: string; warnings: string[] };
-type SolveError = { error: { code: string; message: string; issues?: { path: (string | number)[]; message: string }[] } };
+type SolveError = {
+  error: { code: string; message: string; issues?: { path: (string | number)[]; message: string }[] };
+};
 
 const FIELDS: { key: Target; label: string; hint: string }[] = [
   { key: "parent", label: "Parent (proximal main vessel)", hint: "Dp" },
@@ -41,10 +43,14 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
   if (law === "finet") params.set("ratio", ratio.trim());
   if (law === "power") params.set("n", n.trim());
   for (const f of given) params.set(f.key, values[f.key].trim().replace(",", "."));
-  const { data, error, isLoading } = useSWR<SolveOk, SolveFailure>(ready ? `/api/v1/solve?${params}` : null, fetchSolve, {
-    keepPreviousData: false,
-    shouldRetryOnError: false,
-  });
+  const { data, error, isLoading } = useSWR<SolveOk, SolveFailure>(
+    ready ? `/api/v1/solve?${params}` : null,
+    fetchSolve,
+    {
+      keepPreviousData: false,
+      shouldRetryOnError: false,
+    },
+  );
 
   const fieldError = (key: string) => error?.body.error.issues?.find((i) => i.path[0] === key)?.message;
   const current = laws.find((l) => l.id === law);
@@ -70,7 +76,14 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
             <label htmlFor={`${id}-ratio`} className="block text-sm font-medium">
               Finet ratio (0.55 to 0.80)
             </label>
-            <input id={`${id}-ratio`} inputMode="decimal" value={ratio} onChange={(e) => setRatio(e.target.value)} aria-invalid={Boolean(fieldError("ratio"))} className={inputClass} />
+            <input
+              id={`${id}-ratio`}
+              inputMode="decimal"
+              value={ratio}
+              onChange={(e) => setRatio(e.target.value)}
+              aria-invalid={Boolean(fieldError("ratio"))}
+              className={inputClass}
+            />
             {fieldError("ratio") ? <p className="mt-1 text-sm text-danger">{fieldError("ratio")}</p> : null}
           </div>
         ) : null}
@@ -79,7 +92,14 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
             <label htmlFor={`${id}-n`} className="block text-sm font-medium">
               Exponent n (1.5 to 3.5)
             </label>
-            <input id={`${id}-n`} inputMode="decimal" value={n} onChange={(e) => setN(e.target.value)} aria-invalid={Boolean(fieldError("n"))} className={inputClass} />
+            <input
+              id={`${id}-n`}
+              inputMode="decimal"
+              value={n}
+              onChange={(e) => setN(e.target.value)}
+              aria-invalid={Boolean(fieldError("n"))}
+              className={inputClass}
+            />
             {fieldError("n") ? <p className="mt-1 text-sm text-danger">{fieldError("n")}</p> : null}
           </div>
         ) : null}
@@ -89,8 +109,18 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
         <legend className="text-sm font-medium">Solve for</legend>
         <div className="mt-2 flex flex-wrap gap-2">
           {FIELDS.map((f) => (
-            <label key={f.key} className={`cursor-pointer rounded-md border px-3 py-2 text-sm ${solveFor === f.key ? "border-brand-700 bg-brand-50 font-semibold" : "border-line-strong bg-white"}`}>
-              <input type="radio" name={`${id}-target`} value={f.key} checked={solveFor === f.key} onChange={() => setSolveFor(f.key)} className="mr-2" />
+            <label
+              key={f.key}
+              className={`cursor-pointer rounded-md border px-3 py-2 text-sm ${solveFor === f.key ? "border-brand-700 bg-brand-50 font-semibold" : "border-line-strong bg-white"}`}
+            >
+              <input
+                type="radio"
+                name={`${id}-target`}
+                value={f.key}
+                checked={solveFor === f.key}
+                onChange={() => setSolveFor(f.key)}
+                className="mr-2"
+              />
               {f.label}
             </label>
           ))}
@@ -124,18 +154,26 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
 
       <section aria-live="polite" aria-label="Result" className="rounded-card border border-line bg-paper-raised p-5">
         {!ready ? (
-          <p className="text-ink-soft">Enter both diameters to see the {FIELDS.find((f) => f.key === solveFor)!.label.toLowerCase()}.</p>
+          <p className="text-ink-soft">
+            Enter both diameters to see the {FIELDS.find((f) => f.key === solveFor)!.label.toLowerCase()}.
+          </p>
         ) : isLoading ? (
           <p className="text-ink-soft">Calculating…</p>
         ) : error ? (
           <div role="alert">
-            <p className="font-semibold text-danger">{error.body.error.code === "no_solution" ? "No size" : "Check the input"}</p>
+            <p className="font-semibold text-danger">
+              {error.body.error.code === "no_solution" ? "No size" : "Check the input"}
+            </p>
             <p className="mt-1">{error.message}</p>
           </div>
         ) : data ? (
           <div>
             <p className="text-sm text-ink-soft">{FIELDS.find((f) => f.key === data.solved)!.label}</p>
-            <p className="text-5xl font-bold tabular-nums text-brand-800" title={`${data.diameterMm} mm (exact)`} data-testid="solve-result">
+            <p
+              className="text-5xl font-bold tabular-nums text-brand-800"
+              title={`${data.diameterMm} mm (exact)`}
+              data-testid="solve-result"
+            >
               {data.diameterMm.toFixed(2)} <span className="text-2xl font-semibold">mm</span>
             </p>
             <p className="mt-1 text-sm tabular-nums text-ink-faint">Exact: {data.diameterMm.toFixed(4)} mm</p>

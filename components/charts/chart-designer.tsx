@@ -18,7 +18,12 @@ const KIND_LABELS: Record<LookupKind, string> = {
   side: "Side branch (kissing balloon from parent × main branch)",
   main: "Main branch (balloon from parent × side branch)",
 };
-const RULE_LABELS = { up: "Up (larger size)", down: "Down (smaller size)", nearest: "Nearest size", reach: "Reach by pressure" } as const;
+const RULE_LABELS = {
+  up: "Up (larger size)",
+  down: "Down (smaller size)",
+  nearest: "Nearest size",
+  reach: "Reach by pressure",
+} as const;
 
 const field = "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 disabled:bg-paper-sunk";
 const label = "block text-sm font-medium";
@@ -57,7 +62,11 @@ export function ChartDesigner({
   const router = useRouter();
   const [pending, startTransition] = useTransition();
   const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
-  const form = useForm<ChartDefinition>({ resolver: zodResolver(chartDefinitionSchema) as never, defaultValues: initial, mode: "onChange" });
+  const form = useForm<ChartDefinition>({
+    resolver: zodResolver(chartDefinitionSchema) as never,
+    defaultValues: initial,
+    mode: "onChange",
+  });
   const { register, control, handleSubmit, formState, setError, setValue } = form;
   const lookups = useFieldArray({ control, name: "lookups" });
   const values = useWatch({ control }) as ChartDefinition;
@@ -91,7 +100,13 @@ export function ChartDesigner({
             <label htmlFor="title" className={label}>
               Title
             </label>
-            <input id="title" {...register("title")} className={field} aria-invalid={Boolean(errorAt(formState.errors, "title"))} aria-describedby="title-err" />
+            <input
+              id="title"
+              {...register("title")}
+              className={field}
+              aria-invalid={Boolean(errorAt(formState.errors, "title"))}
+              aria-describedby="title-err"
+            />
             <FieldError id="title-err" message={errorAt(formState.errors, "title")} />
           </div>
 
@@ -106,7 +121,15 @@ export function ChartDesigner({
                 value={law}
                 onChange={(e) => {
                   const id = e.target.value as ChartDefinition["law"]["law"];
-                  setValue("law", id === "finet" ? { law: id, ratio: FINET_DEFAULT_RATIO } : id === "power" ? { law: id, n: 2.3 } : { law: id }, { shouldValidate: true });
+                  setValue(
+                    "law",
+                    id === "finet"
+                      ? { law: id, ratio: FINET_DEFAULT_RATIO }
+                      : id === "power"
+                        ? { law: id, n: 2.3 }
+                        : { law: id },
+                    { shouldValidate: true },
+                  );
                 }}
               >
                 {LAW_IDS.map((id) => (
@@ -229,7 +252,9 @@ export function ChartDesigner({
               id="stent"
               className={field}
               value={values.stentPlatformId ?? ""}
-              onChange={(e) => setValue("stentPlatformId", e.target.value ? Number(e.target.value) : null, { shouldValidate: true })}
+              onChange={(e) =>
+                setValue("stentPlatformId", e.target.value ? Number(e.target.value) : null, { shouldValidate: true })
+              }
             >
               <option value="">None</option>
               {stock.stentPlatforms.map((p) => (
@@ -284,7 +309,10 @@ export function ChartDesigner({
         </fieldset>
 
         {notice ? (
-          <p role={notice.ok ? "status" : "alert"} className={`rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}>
+          <p
+            role={notice.ok ? "status" : "alert"}
+            className={`rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}
+          >
             {notice.text}
           </p>
         ) : null}
@@ -302,7 +330,9 @@ export function ChartDesigner({
         {preview.success ? (
           <ChartPreview definition={preview.data} stock={stock} labName={labName} logoSha256={logoSha256} />
         ) : (
-          <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">Correct the highlighted fields to see the preview.</p>
+          <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">
+            Correct the highlighted fields to see the preview.
+          </p>
         )}
       </section>
     </div>

@@ -11,7 +11,17 @@ import type { ChartDefinition } from "@/lib/validation/chart";
  * The designer's live preview: the same snapshot and grid model the poster PDF prints, computed
  * in the browser as the form changes, with the legibility check for the stated reading distance.
  */
-export function ChartPreview({ definition, stock, labName, logoSha256 }: { definition: ChartDefinition; stock: LabStock; labName: string; logoSha256: string | null }) {
+export function ChartPreview({
+  definition,
+  stock,
+  labName,
+  logoSha256,
+}: {
+  definition: ChartDefinition;
+  stock: LabStock;
+  labName: string;
+  logoSha256: string | null;
+}) {
   const snapshot = buildSnapshot({ labName, definition, stock, logoSha256 });
   const grids = snapshotGrids(snapshot);
   const legibility = snapshotLegibility(snapshot);
@@ -22,10 +32,14 @@ export function ChartPreview({ definition, stock, labName, logoSha256 }: { defin
         data-testid="legibility"
         className={`rounded-md border px-4 py-3 text-sm ${legibility.ok ? "border-ok/40 bg-ok-soft" : "border-warn/60 bg-warn-soft"}`}
       >
-        <p className="font-semibold">{legibility.ok ? "✓ Legible at the stated distance" : "! Too small to read at the stated distance"}</p>
+        <p className="font-semibold">
+          {legibility.ok ? "✓ Legible at the stated distance" : "! Too small to read at the stated distance"}
+        </p>
         <p className="mt-1 tabular-nums">
-          Figures {legibility.figureHeightMm.toFixed(1)} mm high on {PAPERS[definition.paper].label} {definition.orientation}; at {definition.readingDistanceM} m they subtend{" "}
-          {legibility.subtendedArcmin.toFixed(1)}′ of arc (the guide is 20′, which needs {legibility.requiredMm.toFixed(1)} mm). Legible to {legibility.maxDistanceM.toFixed(1)} m.
+          Figures {legibility.figureHeightMm.toFixed(1)} mm high on {PAPERS[definition.paper].label}{" "}
+          {definition.orientation}; at {definition.readingDistanceM} m they subtend{" "}
+          {legibility.subtendedArcmin.toFixed(1)}′ of arc (the guide is 20′, which needs{" "}
+          {legibility.requiredMm.toFixed(1)} mm). Legible to {legibility.maxDistanceM.toFixed(1)} m.
         </p>
         {legibility.suggestion ? <p className="mt-1">{legibility.suggestion}</p> : null}
       </div>
@@ -33,7 +47,13 @@ export function ChartPreview({ definition, stock, labName, logoSha256 }: { defin
         {lawName(definition.law)}: <span className="font-mono">{lawFormula(definition.law)}</span>
       </p>
       {grids.map((grid, i) => (
-        <GridPreview key={grid.kind} grid={grid} family={snapshot.lookups[i]!.family} stentName={grid.kind === "proximal" ? (snapshot.stent?.name ?? null) : null} caution={i === grids.length - 1} />
+        <GridPreview
+          key={grid.kind}
+          grid={grid}
+          family={snapshot.lookups[i]!.family}
+          stentName={grid.kind === "proximal" ? (snapshot.stent?.name ?? null) : null}
+          caution={i === grids.length - 1}
+        />
       ))}
     </div>
   );

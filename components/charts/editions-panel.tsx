@@ -2,7 +2,12 @@
 
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
-import { approveEditionAction, createEditionAction, rejectEditionAction, withdrawEditionAction } from "@/app/(lab)/labs/[slug]/charts/actions";
+import {
+  approveEditionAction,
+  createEditionAction,
+  rejectEditionAction,
+  withdrawEditionAction,
+} from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 import { StatusBadge } from "@/components/ui/status-badge";
 import type { ActionState } from "@/lib/auth/action-guard";
@@ -24,7 +29,8 @@ export type EditionRow = {
   matchesToday: boolean;
 };
 
-const date = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC";
+const date = (iso: string) =>
+  new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC";
 
 export function EditionsPanel({
   slug,
@@ -66,9 +72,15 @@ export function EditionsPanel({
           </Button>
         ) : null}
       </div>
-      <p className="mt-1 text-sm text-ink-soft">An edition freezes the chart with today&apos;s stock. Someone other than its author approves it before it is printed for the wall.</p>
+      <p className="mt-1 text-sm text-ink-soft">
+        An edition freezes the chart with today&apos;s stock. Someone other than its author approves it before it is
+        printed for the wall.
+      </p>
       {notice?.message ? (
-        <p role={notice.ok ? "status" : "alert"} className={`mt-3 rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}>
+        <p
+          role={notice.ok ? "status" : "alert"}
+          className={`mt-3 rounded-md border px-3 py-2 text-sm ${notice.ok ? "border-ok/40 bg-ok-soft" : "border-danger/40 bg-danger-soft text-danger"}`}
+        >
           {notice.message}
           {notice.fieldErrors?.reason ? ` ${notice.fieldErrors.reason}` : ""}
         </p>
@@ -78,11 +90,17 @@ export function EditionsPanel({
       ) : (
         <ul className="mt-4 space-y-3">
           {editions.map((e) => (
-            <li key={e.id} className="rounded-card border border-line bg-paper-raised p-4" data-testid={`edition-${e.number}`}>
+            <li
+              key={e.id}
+              className="rounded-card border border-line bg-paper-raised p-4"
+              data-testid={`edition-${e.number}`}
+            >
               <div className="flex flex-wrap items-center gap-3">
                 <span className="text-lg font-semibold">Edition {e.number}</span>
                 <StatusBadge status={e.status} />
-                {e.status === "approved" && !e.matchesToday ? <StatusBadge status="outdated" label="Stock or settings changed since" /> : null}
+                {e.status === "approved" && !e.matchesToday ? (
+                  <StatusBadge status="outdated" label="Stock or settings changed since" />
+                ) : null}
                 <span className="font-mono text-xs text-ink-faint" title={e.fingerprint}>
                   {e.fingerprint.slice(0, 12)}
                 </span>
@@ -91,7 +109,9 @@ export function EditionsPanel({
                 Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
                 {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
               </p>
-              {e.rejectionReason && e.status === "draft" ? <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p> : null}
+              {e.rejectionReason && e.status === "draft" ? (
+                <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p>
+              ) : null}
               <div className="mt-3 flex flex-wrap gap-2">
                 <a href={e.pdfUrl} className={buttonClass("secondary", "py-1.5")} download>
                   Download PDF
@@ -103,22 +123,40 @@ export function EditionsPanel({
                 ) : null}
                 {can.approve && e.status === "draft" && !e.createdByMe ? (
                   <>
-                    <Button onClick={() => run(() => approveEditionAction(slug, e.id))} disabled={pending} className="py-1.5">
+                    <Button
+                      onClick={() => run(() => approveEditionAction(slug, e.id))}
+                      disabled={pending}
+                      className="py-1.5"
+                    >
                       Approve edition {e.number}
                     </Button>
-                    <Button variant="secondary" onClick={() => setRejecting(rejecting === e.id ? null : e.id)} disabled={pending} className="py-1.5">
+                    <Button
+                      variant="secondary"
+                      onClick={() => setRejecting(rejecting === e.id ? null : e.id)}
+                      disabled={pending}
+                      className="py-1.5"
+                    >
                       Send back…
                     </Button>
                   </>
                 ) : null}
-                {can.approve && e.status === "draft" && e.createdByMe ? <span className="self-center text-sm text-ink-faint">You drafted this; another manager or the lead approves it.</span> : null}
+                {can.approve && e.status === "draft" && e.createdByMe ? (
+                  <span className="self-center text-sm text-ink-faint">
+                    You drafted this; another manager or the lead approves it.
+                  </span>
+                ) : null}
                 {can.withdraw && e.status !== "withdrawn" ? (
                   <Button
                     variant="ghost"
                     className="py-1.5 text-danger"
                     disabled={pending}
                     onClick={() => {
-                      if (window.confirm(`Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`)) run(() => withdrawEditionAction(slug, e.id, ""));
+                      if (
+                        window.confirm(
+                          `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`,
+                        )
+                      )
+                        run(() => withdrawEditionAction(slug, e.id, ""));
                     }}
                   >
                     Withdraw
@@ -135,7 +173,14 @@ export function EditionsPanel({
                 >
                   <label className="min-w-64 flex-1 text-sm font-medium">
                     Reason for sending it back
-                    <input value={reason} onChange={(ev) => setReason(ev.target.value)} className="mt-1 w-full rounded-md border border-line-strong px-3 py-2" required minLength={3} maxLength={500} />
+                    <input
+                      value={reason}
+                      onChange={(ev) => setReason(ev.target.value)}
+                      className="mt-1 w-full rounded-md border border-line-strong px-3 py-2"
+                      required
+                      minLength={3}
+                      maxLength={500}
+                    />
                   </label>
                   <Button type="submit" variant="secondary" disabled={pending}>
                     Send back to draft

@@ -5,7 +5,15 @@ import { useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 
 /** Upload or remove the lab logo printed on this chart's posters (PNG or JPEG, at most 1 MB). */
-export function LogoField({ chartId, logoSha256, canEdit }: { chartId: number; logoSha256: string | null; canEdit: boolean }) {
+export function LogoField({
+  chartId,
+  logoSha256,
+  canEdit,
+}: {
+  chartId: number;
+  logoSha256: string | null;
+  canEdit: boolean;
+}) {
   const router = useRouter();
   const input = useRef<HTMLInputElement>(null);
   const [state, setState] = useState<{ busy: boolean; error?: string; ok?: string }>({ busy: false });
@@ -34,7 +42,11 @@ export function LogoField({ chartId, logoSha256, canEdit }: { chartId: number; l
       <div className="mt-2 flex flex-wrap items-center gap-4">
         {logoSha256 ? (
           // eslint-disable-next-line @next/next/no-img-element -- served from the app's own API with the lab's access check
-          <img src={`${url}?v=${logoSha256.slice(0, 12)}`} alt="Current lab logo" className="h-16 max-w-48 rounded border border-line bg-white object-contain p-1" />
+          <img
+            src={`${url}?v=${logoSha256.slice(0, 12)}`}
+            alt="Current lab logo"
+            className="h-16 max-w-48 rounded border border-line bg-white object-contain p-1"
+          />
         ) : (
           <p className="text-sm text-ink-soft">No logo: the poster prints the lab name only.</p>
         )}
@@ -62,7 +74,9 @@ export function LogoField({ chartId, logoSha256, canEdit }: { chartId: number; l
           </div>
         ) : null}
       </div>
-      <p className="mt-1 text-xs text-ink-faint">PNG or JPEG, at most 1 MB; the file&apos;s type is checked from its contents.</p>
+      <p className="mt-1 text-xs text-ink-faint">
+        PNG or JPEG, at most 1 MB; the file&apos;s type is checked from its contents.
+      </p>
       {state.busy ? <p className="mt-2 text-sm text-ink-soft">Uploading…</p> : null}
       {state.error ? (
         <p role="alert" className="mt-2 text-sm text-danger">

@@ -10,7 +10,10 @@ const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
   draft: { symbol: "✎", cls: "border-danger bg-danger-soft text-danger" },
 };
 
-const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }) : null);
+const day = (iso: string | null) =>
+  iso
+    ? new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" })
+    : null;
 
 /** The status block of the check page: plain server HTML, readable without JavaScript. */
 export function CheckStatusView({ check }: { check: CheckJson }) {
@@ -21,16 +24,30 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
       <p className="text-sm text-ink-soft">
         {check.lab.name} · {check.chart.title} · edition {check.edition.number}
       </p>
-      <div className={`mt-3 rounded-card border-4 px-5 py-6 ${look.cls}`} data-testid="check-status" data-status={check.status}>
+      <div
+        className={`mt-3 rounded-card border-4 px-5 py-6 ${look.cls}`}
+        data-testid="check-status"
+        data-status={check.status}
+      >
         <p className="flex items-center gap-3 text-5xl font-bold leading-none sm:text-6xl">
-          <span aria-hidden className="inline-flex h-14 w-14 shrink-0 items-center justify-center rounded-full border-4 border-current text-4xl">
+          <span
+            aria-hidden
+            className="inline-flex h-14 w-14 shrink-0 items-center justify-center rounded-full border-4 border-current text-4xl"
+          >
             {look.symbol}
           </span>
           {CHECK_HEADLINES[check.status]}
         </p>
         {since ? (
           <p className="mt-3 text-base font-medium text-ink">
-            {check.status === "current" ? "Approved" : check.status === "outdated" ? "Stock or settings last changed" : check.status === "draft" ? "Drafted" : "Since"} {since}
+            {check.status === "current"
+              ? "Approved"
+              : check.status === "outdated"
+                ? "Stock or settings last changed"
+                : check.status === "draft"
+                  ? "Drafted"
+                  : "Since"}{" "}
+            {since}
           </p>
         ) : null}
       </div>

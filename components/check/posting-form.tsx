@@ -37,8 +37,15 @@ export function PostingForm({
           {hanging.map((h) => (
             <li key={h.postingId} className="flex flex-wrap items-center gap-2">
               <span>{h.roomName}</span>
-              <span className="text-sm text-ink-faint">since {new Date(h.postedAt).toLocaleDateString("en-GB", { timeZone: "UTC" })}</span>
-              <Button variant="ghost" className="py-1 text-sm" disabled={pending} onClick={() => run(() => takeDownPostingAction(token, h.postingId))}>
+              <span className="text-sm text-ink-faint">
+                since {new Date(h.postedAt).toLocaleDateString("en-GB", { timeZone: "UTC" })}
+              </span>
+              <Button
+                variant="ghost"
+                className="py-1 text-sm"
+                disabled={pending}
+                onClick={() => run(() => takeDownPostingAction(token, h.postingId))}
+              >
                 Taken down
               </Button>
             </li>
@@ -58,7 +65,11 @@ export function PostingForm({
           >
             <label className="text-sm font-medium">
               This copy hangs in
-              <select value={roomId} onChange={(e) => setRoomId(Number(e.target.value))} className="mt-1 block rounded-md border border-line-strong bg-white px-3 py-2">
+              <select
+                value={roomId}
+                onChange={(e) => setRoomId(Number(e.target.value))}
+                className="mt-1 block rounded-md border border-line-strong bg-white px-3 py-2"
+              >
                 {rooms.map((r) => (
                   <option key={r.id} value={r.id}>
                     {r.name}

@@ -1,6 +1,14 @@
 import type { FakeMessage } from "@/lib/mail/fake-server";
 
-const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", second: "2-digit", timeZone: "UTC", timeZoneName: "short" });
+const when = new Intl.DateTimeFormat("en-GB", {
+  day: "numeric",
+  month: "short",
+  hour: "2-digit",
+  minute: "2-digit",
+  second: "2-digit",
+  timeZone: "UTC",
+  timeZoneName: "short",
+});
 
 function Linked({ text }: { text: string }) {
   const parts = text.split(/(https?:\/\/[^\s<>"]+)/g);

@@ -15,7 +15,11 @@ export function LabNav({ slug, role }: { slug: string; role: Role }) {
   return (
     <nav aria-label="Lab" className="flex flex-wrap gap-1 border-b border-line">
       {TABS.filter((t) => can(role, t.capability)).map((t) => (
-        <Link key={t.label} href={`/labs/${slug}${t.href}`} className="rounded-t-md px-3 py-2 text-sm font-medium text-ink-soft hover:bg-paper-sunk hover:text-ink">
+        <Link
+          key={t.label}
+          href={`/labs/${slug}${t.href}`}
+          className="rounded-t-md px-3 py-2 text-sm font-medium text-ink-soft hover:bg-paper-sunk hover:text-ink"
+        >
           {t.label}
         </Link>
       ))}

@@ -8,9 +8,24 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 
-export type InvitationView = { id: number; email: string; role: Role; status: "pending" | "expired"; expiresAt: Date; lastSentAt: Date; invitedByName: string | null };
+export type InvitationView = {
+  id: number;
+  email: string;
+  role: Role;
+  status: "pending" | "expired";
+  expiresAt: Date;
+  lastSentAt: Date;
+  invitedByName: string | null;
+};
 
-const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC", timeZoneName: "short" });
+const when = new Intl.DateTimeFormat("en-GB", {
+  day: "numeric",
+  month: "short",
+  hour: "2-digit",
+  minute: "2-digit",
+  timeZone: "UTC",
+  timeZoneName: "short",
+});
 
 async function invitationIntent(prev: ActionState, form: FormData): Promise<ActionState> {
   return form.get("intent") === "revoke" ? revokeInvitationAction(prev, form) : resendInvitationAction(prev, form);
@@ -23,18 +38,30 @@ export function InvitationsTable({ slug, invitations }: { slug: string; invitati
     <div className="space-y-3">
       <FormStatus ok={state.ok} message={state.message} />
       {invitations.length === 0 ? (
-        <EmptyState title="No open invitations">Invitations you send appear here until they are accepted or revoked.</EmptyState>
+        <EmptyState title="No open invitations">
+          Invitations you send appear here until they are accepted or revoked.
+        </EmptyState>
       ) : (
         <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
           <table className="w-full min-w-[44rem] text-left text-sm">
             <caption className="sr-only">Open invitations</caption>
             <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
               <tr>
-                <th scope="col" className="px-4 py-2">E-mail</th>
-                <th scope="col" className="px-4 py-2">Role</th>
-                <th scope="col" className="px-4 py-2">Status</th>
-                <th scope="col" className="px-4 py-2">Last sent</th>
-                <th scope="col" className="px-4 py-2"><span className="sr-only">Actions</span></th>
+                <th scope="col" className="px-4 py-2">
+                  E-mail
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Role
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Status
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Last sent
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  <span className="sr-only">Actions</span>
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -53,7 +80,9 @@ export function InvitationsTable({ slug, invitations }: { slug: string; invitati
                   </td>
                   <td className="px-4 py-2 text-ink-soft">
                     {when.format(inv.lastSentAt)}
-                    {inv.invitedByName ? <span className="block text-xs text-ink-faint">by {inv.invitedByName}</span> : null}
+                    {inv.invitedByName ? (
+                      <span className="block text-xs text-ink-faint">by {inv.invitedByName}</span>
+                    ) : null}
                   </td>
                   <td className="px-4 py-2">
                     <InvitationActions slug={slug} invitation={inv} action={action} pending={pending} />
@@ -68,7 +97,17 @@ export function InvitationsTable({ slug, invitations }: { slug: string; invitati
   );
 }
 
-function InvitationActions({ slug, invitation, action, pending }: { slug: string; invitation: InvitationView; action: (f: FormData) => void; pending: boolean }) {
+function InvitationActions({
+  slug,
+  invitation,
+  action,
+  pending,
+}: {
+  slug: string;
+  invitation: InvitationView;
+  action: (f: FormData) => void;
+  pending: boolean;
+}) {
   const [confirming, setConfirming] = useState(false);
   const hidden = (intent: string) => (
     <>

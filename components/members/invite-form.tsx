@@ -19,9 +19,23 @@ export function InviteForm({ slug }: { slug: string }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(inviteMemberAction, {});
   const role = String(state.ok ? "operator" : (state.values?.role ?? "operator"));
   return (
-    <form action={action} className="grid gap-4 sm:grid-cols-[1fr_14rem_auto] sm:items-start" noValidate aria-busy={pending} aria-label="Invite a person">
+    <form
+      action={action}
+      className="grid gap-4 sm:grid-cols-[1fr_14rem_auto] sm:items-start"
+      noValidate
+      aria-busy={pending}
+      aria-label="Invite a person"
+    >
       <input type="hidden" name="slug" value={slug} />
-      <TextField label="E-mail address" name="email" type="email" autoComplete="off" required defaultValue={state.ok ? "" : String(state.values?.email ?? "")} error={state.fieldErrors?.email} />
+      <TextField
+        label="E-mail address"
+        name="email"
+        type="email"
+        autoComplete="off"
+        required
+        defaultValue={state.ok ? "" : String(state.values?.email ?? "")}
+        error={state.fieldErrors?.email}
+      />
       <SelectField
         label="Role"
         name="role"

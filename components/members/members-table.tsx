@@ -1,6 +1,13 @@
 "use client";
 
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from "@tanstack/react-table";
 import { useActionState, useState } from "react";
 import { changeMemberRoleAction, removeMemberAction } from "@/app/(lab)/labs/[slug]/members/actions";
 import type { ActionState } from "@/lib/auth/action-guard";
@@ -30,11 +37,16 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
       cell: (c) => (
         <span className="font-medium">
           {c.getValue()}
-          {c.row.original.userId === meUserId ? <span className="ml-2 rounded bg-brand-50 px-1.5 py-0.5 text-xs font-semibold text-brand-700">you</span> : null}
+          {c.row.original.userId === meUserId ? (
+            <span className="ml-2 rounded bg-brand-50 px-1.5 py-0.5 text-xs font-semibold text-brand-700">you</span>
+          ) : null}
         </span>
       ),
     }),
-    col.accessor("email", { header: "E-mail", cell: (c) => <span className="break-words text-ink-soft">{c.getValue()}</span> }),
+    col.accessor("email", {
+      header: "E-mail",
+      cell: (c) => <span className="break-words text-ink-soft">{c.getValue()}</span>,
+    }),
     col.accessor("role", {
       header: "Role",
       sortingFn: (a, b) => ROLES.indexOf(a.original.role) - ROLES.indexOf(b.original.role),
@@ -48,7 +60,14 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
             <label htmlFor={`role-${m.id}`} className="sr-only">
               Role of {m.name}
             </label>
-            <select id={`role-${m.id}`} name="role" defaultValue={m.role} key={m.role} disabled={onlyManager(m)} className="rounded-md border border-line-strong bg-white px-2 py-1 disabled:bg-paper-sunk">
+            <select
+              id={`role-${m.id}`}
+              name="role"
+              defaultValue={m.role}
+              key={m.role}
+              disabled={onlyManager(m)}
+              className="rounded-md border border-line-strong bg-white px-2 py-1 disabled:bg-paper-sunk"
+            >
               {ROLES.map((r) => (
                 <option key={r} value={r}>
                   {ROLE_LABELS[r]}
@@ -66,17 +85,36 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
         );
       },
     }),
-    col.accessor("joinedAt", { header: "Joined", cell: (c) => <span className="whitespace-nowrap text-ink-soft">{dateFmt.format(c.getValue())}</span> }),
+    col.accessor("joinedAt", {
+      header: "Joined",
+      cell: (c) => <span className="whitespace-nowrap text-ink-soft">{dateFmt.format(c.getValue())}</span>,
+    }),
     col.display({
       id: "actions",
       header: () => <span className="sr-only">Actions</span>,
-      cell: (c) => <RemoveMember member={c.row.original} slug={slug} action={action} pending={pending} disabled={onlyManager(c.row.original)} self={c.row.original.userId === meUserId} />,
+      cell: (c) => (
+        <RemoveMember
+          member={c.row.original}
+          slug={slug}
+          action={action}
+          pending={pending}
+          disabled={onlyManager(c.row.original)}
+          self={c.row.original.userId === meUserId}
+        />
+      ),
     }),
   ];
 
   // The React Compiler is not enabled here; TanStack Table keeps its own state.
   // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({ data: members, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({
+    data: members,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
 
   return (
     <div className="space-y-3">
@@ -90,9 +128,18 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
                 {hg.headers.map((h) => {
                   const sorted = h.column.getIsSorted();
                   return (
-                    <th key={h.id} scope="col" className="px-4 py-2 font-semibold" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
+                    <th
+                      key={h.id}
+                      scope="col"
+                      className="px-4 py-2 font-semibold"
+                      aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
+                    >
                       {h.column.getCanSort() ? (
-                        <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
+                        <button
+                          type="button"
+                          onClick={h.column.getToggleSortingHandler()}
+                          className="inline-flex items-center gap-1 uppercase hover:text-ink"
+                        >
                           {flexRender(h.column.columnDef.header, h.getContext())}
                           <span aria-hidden>{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
                         </button>
@@ -107,7 +154,11 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-b border-line last:border-0" data-testid={`member-${row.original.email}`}>
+              <tr
+                key={row.id}
+                className="border-b border-line last:border-0"
+                data-testid={`member-${row.original.email}`}
+              >
                 {row.getVisibleCells().map((cell) => (
                   <td key={cell.id} className="px-4 py-2 align-middle">
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
@@ -122,7 +173,21 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
   );
 }
 
-function RemoveMember({ member, slug, action, pending, disabled, self }: { member: MemberView; slug: string; action: (f: FormData) => void; pending: boolean; disabled: boolean; self: boolean }) {
+function RemoveMember({
+  member,
+  slug,
+  action,
+  pending,
+  disabled,
+  self,
+}: {
+  member: MemberView;
+  slug: string;
+  action: (f: FormData) => void;
+  pending: boolean;
+  disabled: boolean;
+  self: boolean;
+}) {
   const [confirming, setConfirming] = useState(false);
   if (disabled) return <span className="text-xs text-ink-faint">A lab keeps one manager</span>;
   if (!confirming) {
@@ -137,7 +202,9 @@ function RemoveMember({ member, slug, action, pending, disabled, self }: { membe
       <input type="hidden" name="slug" value={slug} />
       <input type="hidden" name="intent" value="remove" />
       <input type="hidden" name="membershipId" value={member.id} />
-      <span className="text-xs">{self ? "Remove yourself? You lose access to this lab." : `Remove ${member.name}?`}</span>
+      <span className="text-xs">
+        {self ? "Remove yourself? You lose access to this lab." : `Remove ${member.name}?`}
+      </span>
       <button type="submit" disabled={pending} className={buttonClass("danger", "px-3 py-1")} autoFocus>
         Confirm removal
       </button>

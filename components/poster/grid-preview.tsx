@@ -2,7 +2,16 @@ import type { CSSProperties } from "react";
 import { Caution } from "@/components/ui/caution";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
 import { axisTitles, gridSubtitle, lookupTitle, ROLE_SYMBOLS } from "@/lib/poster/labels";
-import { cellView, cornerSymbols, formatAxisMm, legendEntries, MARKS, PALETTE, type CellView, type MarkId } from "@/lib/poster/marks";
+import {
+  cellView,
+  cornerSymbols,
+  formatAxisMm,
+  legendEntries,
+  MARKS,
+  PALETTE,
+  type CellView,
+  type MarkId,
+} from "@/lib/poster/marks";
 
 const hatchStyle = (background: string): CSSProperties => ({
   backgroundColor: background,
@@ -26,7 +35,14 @@ function Swatch({ mark }: { mark: MarkId | "sized" }) {
     <span
       aria-hidden="true"
       className="relative inline-flex h-10 w-16 shrink-0 items-end justify-center border pb-0.5 text-lg font-bold tabular-nums"
-      style={{ ...cellStyle({ background: def?.background ?? PALETTE.cell, hatch: def?.hatch ?? false, border: def?.border ?? 0 }), borderColor: PALETTE.rule }}
+      style={{
+        ...cellStyle({
+          background: def?.background ?? PALETTE.cell,
+          hatch: def?.hatch ?? false,
+          border: def?.border ?? 0,
+        }),
+        borderColor: PALETTE.rule,
+      }}
     >
       {mark !== "noSize" ? <span className="absolute left-1 top-0.5 text-[0.6rem] font-normal">(3.42)</span> : null}
       {corner ? <span className="absolute right-1 top-0.5 text-[0.65rem]">{corner}</span> : null}
@@ -52,21 +68,32 @@ export type GridPreviewProps = {
 export function GridPreview({ grid, family, stentName, legend = true, caution = true }: GridPreviewProps) {
   const titles = axisTitles(grid);
   const pressureLine = grid.rounding === "reach";
-  const entries = legendEntries({ law: grid.law, stentName, hasProximal: grid.kind === "proximal", hasReach: pressureLine });
+  const entries = legendEntries({
+    law: grid.law,
+    stentName,
+    hasProximal: grid.kind === "proximal",
+    hasReach: pressureLine,
+  });
   return (
     <figure className="space-y-4">
       <div className="overflow-x-auto">
         <table className="border-collapse text-center tabular-nums" style={{ color: PALETTE.ink }}>
           <caption className="mb-2 text-left">
             <span className="block text-base font-bold">{lookupTitle(grid.kind)}</span>
-            <span className="block text-xs text-ink-soft">{gridSubtitle({ kind: grid.kind, rounding: grid.rounding, family }, stentName)}</span>
+            <span className="block text-xs text-ink-soft">
+              {gridSubtitle({ kind: grid.kind, rounding: grid.rounding, family }, stentName)}
+            </span>
             <span className="block text-xs text-ink-soft">
               Rows: {titles.rows}; columns: {titles.cols}
             </span>
           </caption>
           <thead>
             <tr>
-              <th scope="col" className="border px-2 py-1 text-[0.65rem] font-semibold leading-tight" style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}>
+              <th
+                scope="col"
+                className="border px-2 py-1 text-[0.65rem] font-semibold leading-tight"
+                style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+              >
                 <span aria-hidden="true">
                   {ROLE_SYMBOLS[grid.colAxis.role]} →<br />
                   {ROLE_SYMBOLS[grid.rowAxis.role]} ↓
@@ -76,7 +103,12 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
                 </span>
               </th>
               {grid.colAxis.values.map((c) => (
-                <th key={c} scope="col" className="border px-2 py-1 text-sm font-bold" style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}>
+                <th
+                  key={c}
+                  scope="col"
+                  className="border px-2 py-1 text-sm font-bold"
+                  style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+                >
                   {formatAxisMm(c)}
                 </th>
               ))}
@@ -85,7 +117,11 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
           <tbody>
             {grid.cells.map((row, i) => (
               <tr key={grid.rowAxis.values[i]}>
-                <th scope="row" className="border px-2 py-1 text-sm font-bold" style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}>
+                <th
+                  scope="row"
+                  className="border px-2 py-1 text-sm font-bold"
+                  style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+                >
                   {formatAxisMm(grid.rowAxis.values[i] as number)}
                 </th>
                 {row.map((cell) => {
@@ -100,10 +136,16 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
                       style={{ ...cellStyle(view), borderColor: PALETTE.rule }}
                     >
                       <span aria-hidden="true">
-                        {view.exact ? <span className="absolute left-1 top-0.5 text-[0.65rem]">{view.exact}</span> : null}
-                        {corner ? <span className="absolute right-1 top-0.5 text-[0.7rem] font-bold">{corner}</span> : null}
+                        {view.exact ? (
+                          <span className="absolute left-1 top-0.5 text-[0.65rem]">{view.exact}</span>
+                        ) : null}
+                        {corner ? (
+                          <span className="absolute right-1 top-0.5 text-[0.7rem] font-bold">{corner}</span>
+                        ) : null}
                         <span className="block text-xl font-bold leading-none">{view.primary}</span>
-                        {pressureLine && view.pressure ? <span className="block text-[0.65rem] font-semibold">{view.pressure}</span> : null}
+                        {pressureLine && view.pressure ? (
+                          <span className="block text-[0.65rem] font-semibold">{view.pressure}</span>
+                        ) : null}
                       </span>
                       <span className="sr-only">{view.description}</span>
                     </td>

@@ -5,10 +5,28 @@ import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
 import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
-import { approvalText, axisTitles, DRAFT_WATERMARK, gridSubtitle, lookupTitle, ROLE_SYMBOLS, shortUrl, statusBanner } from "@/lib/poster/labels";
+import {
+  approvalText,
+  axisTitles,
+  DRAFT_WATERMARK,
+  gridSubtitle,
+  lookupTitle,
+  ROLE_SYMBOLS,
+  shortUrl,
+  statusBanner,
+} from "@/lib/poster/labels";
 import { cellBox, CELL, layoutPoster, type Box, type GridLayout, type PosterLayout } from "@/lib/poster/layout";
 import { legibilityLine, posterLegibility } from "@/lib/poster/legibility";
-import { cellView, cornerSymbols, formatAxisMm, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
+import {
+  cellView,
+  cornerSymbols,
+  formatAxisMm,
+  MARKS,
+  PALETTE,
+  type CellView,
+  type LegendEntry,
+  type MarkId,
+} from "@/lib/poster/marks";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
@@ -88,18 +106,57 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
   return (
     <>
       {view.exact ? (
-        <Text style={{ position: "absolute", left: box.x + pad, top: box.y + top, fontSize: small, lineHeight: 1, ...TNUM }}>{view.exact}</Text>
+        <Text
+          style={{ position: "absolute", left: box.x + pad, top: box.y + top, fontSize: small, lineHeight: 1, ...TNUM }}
+        >
+          {view.exact}
+        </Text>
       ) : null}
       {corner ? (
-        <Text style={{ position: "absolute", left: box.x, width: box.width - pad, top: box.y + top, fontSize: small * 1.1, lineHeight: 1, fontWeight: 700, textAlign: "right" }}>
+        <Text
+          style={{
+            position: "absolute",
+            left: box.x,
+            width: box.width - pad,
+            top: box.y + top,
+            fontSize: small * 1.1,
+            lineHeight: 1,
+            fontWeight: 700,
+            textAlign: "right",
+          }}
+        >
           {corner}
         </Text>
       ) : null}
-      <Text style={{ position: "absolute", left: box.x, width: box.width, top: box.y + f * CELL.figureTopEm, fontSize: f, lineHeight: 1, fontWeight: 700, textAlign: "center", ...TNUM }}>
+      <Text
+        style={{
+          position: "absolute",
+          left: box.x,
+          width: box.width,
+          top: box.y + f * CELL.figureTopEm,
+          fontSize: f,
+          lineHeight: 1,
+          fontWeight: 700,
+          textAlign: "center",
+          ...TNUM,
+        }}
+      >
         {view.primary}
       </Text>
       {pressureLine && view.pressure ? (
-        <Text style={{ position: "absolute", left: box.x, width: box.width, top: box.y + f * (CELL.figureTopEm + 1.02), fontSize: small, lineHeight: 1, fontWeight: 600, textAlign: "center", ...TNUM }}>
+        <Text
+          style={{
+            position: "absolute",
+            left: box.x,
+            width: box.width,
+            top: box.y + f * (CELL.figureTopEm + 1.02),
+            fontSize: small,
+            lineHeight: 1,
+            fontWeight: 600,
+            textAlign: "center",
+            ...TNUM,
+          }}
+        >
           {view.pressure}
         </Text>
       ) : null}
@@ -115,14 +172,28 @@ function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule
   const x1 = Math.max(...cells.map((c) => c.box.x + c.box.width)) + rule;
   const y1 = Math.max(...cells.map((c) => c.box.y + c.box.height)) + rule;
   return (
-    <Svg style={at({ x: x0, y: y0, width: x1 - x0, height: y1 - y0 })} width={x1 - x0} height={y1 - y0} viewBox={`${x0} ${y0} ${x1 - x0} ${y1 - y0}`}>
+    <Svg
+      style={at({ x: x0, y: y0, width: x1 - x0, height: y1 - y0 })}
+      width={x1 - x0}
+      height={y1 - y0}
+      viewBox={`${x0} ${y0} ${x1 - x0} ${y1 - y0}`}
+    >
       {g.fills.map((f, i) => (
         <Rect key={i} x={f.box.x} y={f.box.y} width={f.box.width} height={f.box.height} fill={f.color} />
       ))}
       {g.hatch ? <Path d={g.hatch} stroke={PALETTE.hatch} strokeWidth={hatchWidth} /> : null}
       <Path d={g.rules} stroke={PALETTE.rule} strokeWidth={rule} fill="none" />
       {g.borders.map((b, i) => (
-        <Rect key={`b${i}`} x={b.box.x} y={b.box.y} width={b.box.width} height={b.box.height} stroke={PALETTE.ink} strokeWidth={b.width} fill="none" />
+        <Rect
+          key={`b${i}`}
+          x={b.box.x}
+          y={b.box.y}
+          width={b.box.width}
+          height={b.box.height}
+          stroke={PALETTE.ink}
+          strokeWidth={b.width}
+          fill="none"
+        />
       ))}
     </Svg>
   );
@@ -135,9 +206,34 @@ function drawnCells(grids: Grid[], layout: PosterLayout, legend: LegendEntry[]):
   const out: DrawnCell[] = [];
   grids.forEach((grid, gi) => {
     const g = layout.grids[gi] as GridLayout;
-    out.push(heading({ x: g.cellsX - g.rowHeadWidth, y: g.cellsY - g.colHeadHeight, width: g.rowHeadWidth, height: g.colHeadHeight }));
-    grid.colAxis.values.forEach((_, j) => out.push(heading({ x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight })));
-    grid.rowAxis.values.forEach((_, i) => out.push(heading({ x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight })));
+    out.push(
+      heading({
+        x: g.cellsX - g.rowHeadWidth,
+        y: g.cellsY - g.colHeadHeight,
+        width: g.rowHeadWidth,
+        height: g.colHeadHeight,
+      }),
+    );
+    grid.colAxis.values.forEach((_, j) =>
+      out.push(
+        heading({
+          x: g.cellsX + j * g.cellWidth,
+          y: g.cellsY - g.colHeadHeight,
+          width: g.cellWidth,
+          height: g.colHeadHeight,
+        }),
+      ),
+    );
+    grid.rowAxis.values.forEach((_, i) =>
+      out.push(
+        heading({
+          x: g.cellsX - g.rowHeadWidth,
+          y: g.cellsY + i * g.cellHeight,
+          width: g.rowHeadWidth,
+          height: g.cellHeight,
+        }),
+      ),
+    );
     grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellBox(g, i, j), view: cellView(cell) })));
   });
   legend.forEach((e, i) => {
@@ -156,7 +252,20 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
   const rowAxisPt = Math.min(fonts.axis, g.rowAxis.height / ((titles.rows.length + 2) * 0.6));
   const centre = { x: g.rowAxis.x + g.rowAxis.width / 2, y: g.rowAxis.y + g.rowAxis.height / 2 };
   const headText = (key: string, box: Box, text: string) => (
-    <Text key={key} style={{ position: "absolute", left: box.x, width: box.width, top: box.y + (box.height - head) / 2, fontSize: head, lineHeight: 1, fontWeight: 700, textAlign: "center", ...TNUM }}>
+    <Text
+      key={key}
+      style={{
+        position: "absolute",
+        left: box.x,
+        width: box.width,
+        top: box.y + (box.height - head) / 2,
+        fontSize: head,
+        lineHeight: 1,
+        fontWeight: 700,
+        textAlign: "center",
+        ...TNUM,
+      }}
+    >
       {text}
     </Text>
   );
@@ -166,7 +275,15 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
         <Text style={{ fontSize: fonts.gridTitle, fontWeight: 700, lineHeight: 1.25 }}>{lookupTitle(grid.kind)}</Text>
         <Text style={{ fontSize: fonts.gridSub, lineHeight: 1.25, color: PALETTE.inkSoft }}>{sub}</Text>
       </View>
-      <Text style={{ ...at(g.colAxis), fontSize: fonts.axis, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}>{`${titles.cols} →`}</Text>
+      <Text
+        style={{
+          ...at(g.colAxis),
+          fontSize: fonts.axis,
+          fontWeight: 600,
+          textAlign: "center",
+          paddingTop: fonts.axis * 0.2,
+        }}
+      >{`${titles.cols} →`}</Text>
       {/* Rotated to run bottom to top, so a left arrow at its end points down the rows. */}
       <View
         style={{
@@ -178,17 +295,53 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
           transform: "rotate(-90deg)",
         }}
       >
-        <Text style={{ fontSize: rowAxisPt, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}>{`${titles.rows} ←`}</Text>
+        <Text
+          style={{ fontSize: rowAxisPt, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}
+        >{`${titles.rows} ←`}</Text>
       </View>
-      <Text style={{ position: "absolute", left: g.cellsX - g.rowHeadWidth, width: g.rowHeadWidth - f * 0.08, top: g.cellsY - g.colHeadHeight + f * 0.04, fontSize: head * 0.5, fontWeight: 600, textAlign: "right" }}>
+      <Text
+        style={{
+          position: "absolute",
+          left: g.cellsX - g.rowHeadWidth,
+          width: g.rowHeadWidth - f * 0.08,
+          top: g.cellsY - g.colHeadHeight + f * 0.04,
+          fontSize: head * 0.5,
+          fontWeight: 600,
+          textAlign: "right",
+        }}
+      >
         {`${ROLE_SYMBOLS[grid.colAxis.role]} →`}
       </Text>
-      <Text style={{ position: "absolute", left: g.cellsX - g.rowHeadWidth + f * 0.08, top: g.cellsY - head * 0.5 * 1.2 - f * 0.04, fontSize: head * 0.5, fontWeight: 600 }}>
+      <Text
+        style={{
+          position: "absolute",
+          left: g.cellsX - g.rowHeadWidth + f * 0.08,
+          top: g.cellsY - head * 0.5 * 1.2 - f * 0.04,
+          fontSize: head * 0.5,
+          fontWeight: 600,
+        }}
+      >
         {`${ROLE_SYMBOLS[grid.rowAxis.role]} ↓`}
       </Text>
-      {grid.colAxis.values.map((c, j) => headText(`c${j}`, { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight }, formatAxisMm(c)))}
-      {grid.rowAxis.values.map((r, i) => headText(`r${i}`, { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight }, formatAxisMm(r)))}
-      {grid.cells.map((row, i) => row.map((cell, j) => <CellText key={`${i}-${j}`} view={cellView(cell)} box={cellBox(g, i, j)} f={f} pressureLine={pressureLine} />))}
+      {grid.colAxis.values.map((c, j) =>
+        headText(
+          `c${j}`,
+          { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight },
+          formatAxisMm(c),
+        ),
+      )}
+      {grid.rowAxis.values.map((r, i) =>
+        headText(
+          `r${i}`,
+          { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight },
+          formatAxisMm(r),
+        ),
+      )}
+      {grid.cells.map((row, i) =>
+        row.map((cell, j) => (
+          <CellText key={`${i}-${j}`} view={cellView(cell)} box={cellBox(g, i, j)} f={f} pressureLine={pressureLine} />
+        )),
+      )}
     </>
   );
 }
@@ -197,14 +350,39 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
   const { fonts, legend } = layout;
   return (
     <>
-      <Text style={{ position: "absolute", left: legend.x, top: legend.y, width: legend.width, fontSize: fonts.legend * 1.2, fontWeight: 700 }}>How to read a cell</Text>
+      <Text
+        style={{
+          position: "absolute",
+          left: legend.x,
+          top: legend.y,
+          width: legend.width,
+          fontSize: fonts.legend * 1.2,
+          fontWeight: 700,
+        }}
+      >
+        How to read a cell
+      </Text>
       {entries.map((e, i) => {
         const row = layout.legendRows[i];
         if (!row) return null;
         return (
           <View key={e.mark}>
-            <CellText view={swatchView(e.mark)} box={row.swatch} f={row.swatch.height / CELL.heightEm} pressureLine={false} />
-            <Text style={{ position: "absolute", left: row.text.x, top: row.text.y, width: row.text.width, fontSize: fonts.legend, lineHeight: 1.25 }}>
+            <CellText
+              view={swatchView(e.mark)}
+              box={row.swatch}
+              f={row.swatch.height / CELL.heightEm}
+              pressureLine={false}
+            />
+            <Text
+              style={{
+                position: "absolute",
+                left: row.text.x,
+                top: row.text.y,
+                width: row.text.width,
+                fontSize: fonts.legend,
+                lineHeight: 1.25,
+              }}
+            >
               <Text style={{ fontWeight: 700 }}>{`${e.label}. `}</Text>
               {e.text}
             </Text>
@@ -226,7 +404,9 @@ function Qr({ layout, url, qr }: { layout: PosterLayout; url: string; qr: Return
       </Svg>
       <View style={{ ...at(layout.qrText), alignItems: "center" }}>
         <Text style={{ fontSize: fonts.small * 1.1, fontWeight: 700, textAlign: "center" }}>{shortUrl(url)}</Text>
-        <Text style={{ fontSize: fonts.small, textAlign: "center", color: PALETTE.inkSoft, marginTop: fonts.small * 0.3 }}>
+        <Text
+          style={{ fontSize: fonts.small, textAlign: "center", color: PALETTE.inkSoft, marginTop: fonts.small * 0.3 }}
+        >
           Scan or type to check this poster is still the current edition
         </Text>
       </View>
@@ -257,39 +437,68 @@ export function PosterDocument({ input }: { input: PosterInput }) {
       creationDate={created}
       modificationDate={created}
     >
-      <Page size={[page.width, page.height]} style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}>
+      <Page
+        size={[page.width, page.height]}
+        style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}
+      >
         {logo && layout.logo ? (
           // eslint-disable-next-line jsx-a11y/alt-text -- react-pdf's Image has no alt; the lab name is printed beside it
-          <Image src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }} style={{ ...at(layout.logo), objectFit: "contain" }} />
+          <Image
+            src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }}
+            style={{ ...at(layout.logo), objectFit: "contain" }}
+          />
         ) : null}
         <View style={{ position: "absolute", left: layout.title.x, top: layout.title.y, width: layout.title.width }}>
           <Text style={{ fontSize: fonts.lab, fontWeight: 600, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
           <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
         </View>
         <View style={at(layout.law)}>
-          <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right" }}>{`Law: ${lawName(snapshot.law)}`}</Text>
-          <Text style={{ fontSize: fonts.law, fontWeight: 600, textAlign: "right", ...TNUM }}>{lawFormula(snapshot.law)}</Text>
-          <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>{LAWS[snapshot.law.law].source}</Text>
+          <Text
+            style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right" }}
+          >{`Law: ${lawName(snapshot.law)}`}</Text>
+          <Text style={{ fontSize: fonts.law, fontWeight: 600, textAlign: "right", ...TNUM }}>
+            {lawFormula(snapshot.law)}
+          </Text>
+          <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
+            {LAWS[snapshot.law.law].source}
+          </Text>
         </View>
 
         {banner && layout.banner ? (
           <View style={{ ...at(layout.banner), backgroundColor: PALETTE.banner, justifyContent: "center" }}>
-            <Text style={{ fontSize: fonts.banner, fontWeight: 700, color: PALETTE.bannerText, textAlign: "center" }}>{banner}</Text>
+            <Text style={{ fontSize: fonts.banner, fontWeight: 700, color: PALETTE.bannerText, textAlign: "center" }}>
+              {banner}
+            </Text>
           </View>
         ) : null}
 
-        <CellGraphicsSvg cells={drawnCells(grids, layout, legend)} rule={rule} hatchWidth={Math.max(0.5, layout.figurePt * 0.03)} />
+        <CellGraphicsSvg
+          cells={drawnCells(grids, layout, legend)}
+          rule={rule}
+          hatchWidth={Math.max(0.5, layout.figurePt * 0.03)}
+        />
         {grids.map((grid, i) => (
           <GridTexts
             key={i}
             grid={grid}
             g={layout.grids[i] as GridLayout}
             layout={layout}
-            sub={gridSubtitle({ kind: grid.kind, rounding: grid.rounding, family: snapshot.lookups[i]?.family ?? null }, snapshot.stent?.name ?? null)}
+            sub={gridSubtitle(
+              { kind: grid.kind, rounding: grid.rounding, family: snapshot.lookups[i]?.family ?? null },
+              snapshot.stent?.name ?? null,
+            )}
           />
         ))}
 
-        <View style={{ ...at(layout.caution), backgroundColor: PALETTE.caution, borderWidth: 1.5 * scale, borderColor: PALETTE.cautionBorder, padding: 4.5 * scale }}>
+        <View
+          style={{
+            ...at(layout.caution),
+            backgroundColor: PALETTE.caution,
+            borderWidth: 1.5 * scale,
+            borderColor: PALETTE.cautionBorder,
+            padding: 4.5 * scale,
+          }}
+        >
           <Text style={{ fontSize: fonts.caution, lineHeight: 1.3 }}>
             <Text style={{ fontWeight: 700 }}>CAUTION. </Text>
             {snapshot.caution}
@@ -300,8 +509,18 @@ export function PosterDocument({ input }: { input: PosterInput }) {
 
         <View style={at(layout.edition)}>
           <Text style={{ fontSize: fonts.edition * 1.6, fontWeight: 700 }}>{`Edition ${edition.number}`}</Text>
-          <Text style={{ fontSize: fonts.edition, fontWeight: edition.status === "approved" ? 600 : 700, marginTop: fonts.edition * 0.2 }}>{approvalText(edition)}</Text>
-          <Text style={{ fontSize: fonts.edition, ...TNUM }}>{`Fingerprint ${shortFingerprint(edition.fingerprint)}`}</Text>
+          <Text
+            style={{
+              fontSize: fonts.edition,
+              fontWeight: edition.status === "approved" ? 600 : 700,
+              marginTop: fonts.edition * 0.2,
+            }}
+          >
+            {approvalText(edition)}
+          </Text>
+          <Text
+            style={{ fontSize: fonts.edition, ...TNUM }}
+          >{`Fingerprint ${shortFingerprint(edition.fingerprint)}`}</Text>
           <Text style={{ fontSize: fonts.small, color: PALETTE.inkSoft, marginTop: fonts.small * 0.4 }}>
             {`${PAPERS[snapshot.paper].label} ${snapshot.orientation}. ${legibilityLine(legibility, snapshot.readingDistanceM)}.`}
           </Text>
@@ -327,7 +546,17 @@ export function PosterDocument({ input }: { input: PosterInput }) {
               justifyContent: "center",
             }}
           >
-            <Text style={{ fontSize: watermarkPt, fontWeight: 700, color: PALETTE.watermark, opacity: 0.16, textAlign: "center" }}>{DRAFT_WATERMARK}</Text>
+            <Text
+              style={{
+                fontSize: watermarkPt,
+                fontWeight: 700,
+                color: PALETTE.watermark,
+                opacity: 0.16,
+                textAlign: "center",
+              }}
+            >
+              {DRAFT_WATERMARK}
+            </Text>
           </View>
         ) : null}
       </Page>

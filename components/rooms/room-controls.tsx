@@ -2,7 +2,12 @@
 
 import { useRouter } from "next/navigation";
 import { useActionState, useState, useTransition } from "react";
-import { archiveRoomAction, createRoomAction, renameRoomAction, takeDownAction } from "@/app/(lab)/labs/[slug]/rooms/actions";
+import {
+  archiveRoomAction,
+  createRoomAction,
+  renameRoomAction,
+  takeDownAction,
+} from "@/app/(lab)/labs/[slug]/rooms/actions";
 import { Button } from "@/components/ui/button";
 import type { ActionState } from "@/lib/auth/action-guard";
 
@@ -22,7 +27,14 @@ export function AddRoomForm({ slug }: { slug: string }) {
     <form action={action} className="flex flex-wrap items-end gap-2">
       <label className="text-sm font-medium">
         New room
-        <input name="name" required maxLength={120} defaultValue={state.ok ? "" : String(state.values?.name ?? "")} placeholder="e.g. Procedure room 2" className="mt-1 block w-64 rounded-md border border-line-strong bg-white px-3 py-2" />
+        <input
+          name="name"
+          required
+          maxLength={120}
+          defaultValue={state.ok ? "" : String(state.values?.name ?? "")}
+          placeholder="e.g. Procedure room 2"
+          className="mt-1 block w-64 rounded-md border border-line-strong bg-white px-3 py-2"
+        />
       </label>
       <Button type="submit" disabled={pending}>
         {pending ? "Adding…" : "Add room"}
@@ -32,7 +44,17 @@ export function AddRoomForm({ slug }: { slug: string }) {
   );
 }
 
-export function RoomMenu({ slug, roomId, name, empty }: { slug: string; roomId: number; name: string; empty: boolean }) {
+export function RoomMenu({
+  slug,
+  roomId,
+  name,
+  empty,
+}: {
+  slug: string;
+  roomId: number;
+  name: string;
+  empty: boolean;
+}) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [state, setState] = useState<ActionState | null>(null);
@@ -57,7 +79,12 @@ export function RoomMenu({ slug, roomId, name, empty }: { slug: string; roomId: 
             run(() => renameRoomAction(slug, roomId, value));
           }}
         >
-          <input aria-label={`New name for ${name}`} value={value} onChange={(e) => setValue(e.target.value)} className="rounded-md border border-line-strong px-2 py-1" />
+          <input
+            aria-label={`New name for ${name}`}
+            value={value}
+            onChange={(e) => setValue(e.target.value)}
+            className="rounded-md border border-line-strong px-2 py-1"
+          />
           <Button type="submit" className="py-1" disabled={pending}>
             Save
           </Button>

@@ -13,7 +13,10 @@ export async function SiteHeader() {
     <header className="border-b border-line bg-paper-raised">
       <div className="mx-auto flex w-full max-w-page flex-wrap items-center gap-4 px-gutter py-3">
         <Link href="/" className="flex items-center gap-2 text-lg font-bold tracking-tight text-brand-800">
-          <span aria-hidden className="inline-block h-6 w-6 rounded bg-brand-700 [clip-path:polygon(50%_0,100%_100%,62%_100%,50%_70%,38%_100%,0_100%)]" />
+          <span
+            aria-hidden
+            className="inline-block h-6 w-6 rounded bg-brand-700 [clip-path:polygon(50%_0,100%_100%,62%_100%,50%_70%,38%_100%,0_100%)]"
+          />
           Forkwall
         </Link>
         <nav aria-label="Main" className="flex items-center gap-3 text-sm">
@@ -26,7 +29,11 @@ export async function SiteHeader() {
             </Link>
           ) : null}
           {labs.some((l) => l.role === "manager") && mailFakeConfigured() ? (
-            <Link href="/dev/mail" className="rounded px-2 py-1 text-ink-soft hover:text-ink" title="Messages kept by the local mail fake (development only)">
+            <Link
+              href="/dev/mail"
+              className="rounded px-2 py-1 text-ink-soft hover:text-ink"
+              title="Messages kept by the local mail fake (development only)"
+            >
               Mail (local)
             </Link>
           ) : null}
@@ -36,8 +43,13 @@ export async function SiteHeader() {
             <>
               {labs.length > 0 ? (
                 <details className="relative">
-                  <summary className="cursor-pointer list-none rounded-md border border-line px-3 py-1.5 hover:bg-paper-sunk">Labs ▾</summary>
-                  <ul className="absolute right-0 z-20 mt-1 w-72 rounded-md border border-line bg-white py-1 shadow-lg" aria-label="Switch lab">
+                  <summary className="cursor-pointer list-none rounded-md border border-line px-3 py-1.5 hover:bg-paper-sunk">
+                    Labs ▾
+                  </summary>
+                  <ul
+                    className="absolute right-0 z-20 mt-1 w-72 rounded-md border border-line bg-white py-1 shadow-lg"
+                    aria-label="Switch lab"
+                  >
                     {labs.map((lab) => (
                       <li key={lab.slug}>
                         <Link href={`/labs/${lab.slug}`} className="block px-3 py-2 hover:bg-paper-sunk">

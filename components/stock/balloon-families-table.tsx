@@ -24,7 +24,15 @@ type Dialog =
   | { kind: "balloon"; family: BalloonFamilyView; balloon?: BalloonView }
   | { kind: "delete-balloon"; family: BalloonFamilyView; balloon: BalloonView };
 
-export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string; families: BalloonFamilyView[]; canEdit: boolean }) {
+export function BalloonFamiliesTable({
+  slug,
+  families,
+  canEdit,
+}: {
+  slug: string;
+  families: BalloonFamilyView[];
+  canEdit: boolean;
+}) {
   const router = useRouter();
   const [dialog, setDialog] = useState<Dialog | null>(null);
   const [status, setStatus] = useState<Status | null>(null);
@@ -79,7 +87,10 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
           <h2 id="balloon-families-heading" className="text-xl font-semibold">
             Balloon families
           </h2>
-          <p className="text-sm text-ink-soft">Each family&apos;s pressures and the diameters on the shelf. Sort by any column; open a family to see its sizes.</p>
+          <p className="text-sm text-ink-soft">
+            Each family&apos;s pressures and the diameters on the shelf. Sort by any column; open a family to see its
+            sizes.
+          </p>
         </div>
         {canEdit ? (
           <Button type="button" onClick={() => setDialog({ kind: "family" })}>
@@ -90,7 +101,9 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
       <StatusLine status={status} />
       {families.length === 0 ? (
         <EmptyState title="No balloon families yet">
-          {canEdit ? "Add a family with its pressures, then its diameters, or import a CSV file below." : "A manager of this lab has not recorded any balloons yet."}
+          {canEdit
+            ? "Add a family with its pressures, then its diameters, or import a CSV file below."
+            : "A manager of this lab has not recorded any balloons yet."}
         </EmptyState>
       ) : (
         <StockTable
@@ -98,15 +111,32 @@ export function BalloonFamiliesTable({ slug, families, canEdit }: { slug: string
           caption="Balloon families"
           testId="balloon-families"
           renderDetail={(row) => (
-            <BalloonSizes slug={slug} family={row.original} canEdit={canEdit} onDialog={setDialog} onSaved={(t) => setStatus({ kind: "ok", text: t })} onError={failed} onChanged={() => router.refresh()} />
+            <BalloonSizes
+              slug={slug}
+              family={row.original}
+              canEdit={canEdit}
+              onDialog={setDialog}
+              onSaved={(t) => setStatus({ kind: "ok", text: t })}
+              onError={failed}
+              onChanged={() => router.refresh()}
+            />
           )}
         />
       )}
 
       <StockDialog open={dialog !== null} title={dialogTitle(dialog)} onClose={() => setDialog(null)}>
-        {dialog?.kind === "family" ? <FamilyForm slug={slug} family={dialog.family} onDone={done} onCancel={() => setDialog(null)} /> : null}
+        {dialog?.kind === "family" ? (
+          <FamilyForm slug={slug} family={dialog.family} onDone={done} onCancel={() => setDialog(null)} />
+        ) : null}
         {dialog?.kind === "balloon" ? (
-          <BalloonForm slug={slug} familyId={dialog.family.id} familyName={dialog.family.name} balloon={dialog.balloon} onDone={done} onCancel={() => setDialog(null)} />
+          <BalloonForm
+            slug={slug}
+            familyId={dialog.family.id}
+            familyName={dialog.family.name}
+            balloon={dialog.balloon}
+            onDone={done}
+            onCancel={() => setDialog(null)}
+          />
         ) : null}
         {dialog?.kind === "delete-family" ? (
           <ConfirmDelete
@@ -136,7 +166,9 @@ function dialogTitle(dialog: Dialog | null): string {
     case "family":
       return dialog.family ? `Edit ${dialog.family.name}` : "Add a balloon family";
     case "balloon":
-      return dialog.balloon ? `Edit ${dialog.family.name} ${formatMm(dialog.balloon.diameterMm)} mm` : `Add a size to ${dialog.family.name}`;
+      return dialog.balloon
+        ? `Edit ${dialog.family.name} ${formatMm(dialog.balloon.diameterMm)} mm`
+        : `Add a size to ${dialog.family.name}`;
     case "delete-family":
       return "Delete balloon family";
     case "delete-balloon":
@@ -188,7 +220,11 @@ function BalloonSizes({
       ...(canEdit
         ? [
             actionsColumn<BalloonView>(({ row }) => (
-              <RowActions name={`${formatMm(row.original.diameterMm)} mm`} onEdit={() => onDialog({ kind: "balloon", family, balloon: row.original })} onDelete={() => onDialog({ kind: "delete-balloon", family, balloon: row.original })} />
+              <RowActions
+                name={`${formatMm(row.original.diameterMm)} mm`}
+                onEdit={() => onDialog({ kind: "balloon", family, balloon: row.original })}
+                onDelete={() => onDialog({ kind: "delete-balloon", family, balloon: row.original })}
+              />
             )),
           ]
         : []),
@@ -201,7 +237,12 @@ function BalloonSizes({
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h3 className="font-semibold">Sizes of {family.name}</h3>
         {canEdit ? (
-          <Button type="button" variant="secondary" className="py-1" onClick={() => onDialog({ kind: "balloon", family })}>
+          <Button
+            type="button"
+            variant="secondary"
+            className="py-1"
+            onClick={() => onDialog({ kind: "balloon", family })}
+          >
             Add size<span className="sr-only"> to {family.name}</span>
           </Button>
         ) : null}

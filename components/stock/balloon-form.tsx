@@ -50,7 +50,12 @@ export function BalloonForm({
   const diameterError = errors.diameterMm?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField id={`${id}-diameter`} label="Diameter (mm)" hint="1.00 to 7.00 mm in steps of 0.05 mm" error={diameterError}>
+      <FormField
+        id={`${id}-diameter`}
+        label="Diameter (mm)"
+        hint="1.00 to 7.00 mm in steps of 0.05 mm"
+        error={diameterError}
+      >
         <input
           id={`${id}-diameter`}
           inputMode="decimal"
@@ -67,7 +72,12 @@ export function BalloonForm({
           In stock
         </label>
       </div>
-      <FormActions pending={isSubmitting} submitLabel={balloon ? "Save size" : "Add size"} onCancel={onCancel} error={errors.root?.server?.message} />
+      <FormActions
+        pending={isSubmitting}
+        submitLabel={balloon ? "Save size" : "Add size"}
+        onCancel={onCancel}
+        error={errors.root?.server?.message}
+      />
     </form>
   );
 }

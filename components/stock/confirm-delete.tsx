@@ -5,7 +5,19 @@ import { Button } from "@/components/ui/button";
 import { StockApiError, stockRequest } from "./stock-api";
 
 /** The confirmation step before a delete; the delete itself is one API call. */
-export function ConfirmDelete({ url, what, consequence, onDone, onCancel }: { url: string; what: string; consequence: string; onDone: (message: string) => void; onCancel: () => void }) {
+export function ConfirmDelete({
+  url,
+  what,
+  consequence,
+  onDone,
+  onCancel,
+}: {
+  url: string;
+  what: string;
+  consequence: string;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+}) {
   const [pending, setPending] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const confirm = async () => {
@@ -24,7 +36,9 @@ export function ConfirmDelete({ url, what, consequence, onDone, onCancel }: { ur
       <p>
         Delete <strong>{what}</strong>? {consequence}
       </p>
-      <p className="text-sm text-ink-soft">The change is recorded in the stock history, and charts built from this stock will need to be regenerated.</p>
+      <p className="text-sm text-ink-soft">
+        The change is recorded in the stock history, and charts built from this stock will need to be regenerated.
+      </p>
       {error ? (
         <p role="alert" className="rounded-md border border-danger/40 bg-danger-soft px-3 py-2 text-sm text-danger">
           {error}

@@ -12,7 +12,17 @@ import { stockRequest, stockUrl } from "./stock-api";
 
 const FIELDS = ["name", "compliance", "nominalAtm", "rbpAtm", "growthAtRbpMm"] as const;
 
-export function FamilyForm({ slug, family, onDone, onCancel }: { slug: string; family?: BalloonFamilyView; onDone: (message: string) => void; onCancel: () => void }) {
+export function FamilyForm({
+  slug,
+  family,
+  onDone,
+  onCancel,
+}: {
+  slug: string;
+  family?: BalloonFamilyView;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+}) {
   const {
     register,
     handleSubmit,
@@ -21,7 +31,13 @@ export function FamilyForm({ slug, family, onDone, onCancel }: { slug: string; f
   } = useForm<z.input<typeof balloonFamilyInput>, unknown, BalloonFamilyInput>({
     resolver: zodResolver(balloonFamilyInput),
     defaultValues: family
-      ? { name: family.name, compliance: family.compliance, nominalAtm: family.nominalAtm, rbpAtm: family.rbpAtm, growthAtRbpMm: family.growthAtRbpMm }
+      ? {
+          name: family.name,
+          compliance: family.compliance,
+          nominalAtm: family.nominalAtm,
+          rbpAtm: family.rbpAtm,
+          growthAtRbpMm: family.growthAtRbpMm,
+        }
       : { compliance: "nc", growthAtRbpMm: null },
   });
 
@@ -41,10 +57,22 @@ export function FamilyForm({ slug, family, onDone, onCancel }: { slug: string; f
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormField id={id("name")} label="Name" error={err("name")}>
-        <input id={id("name")} {...register("name")} className={inputClass} autoComplete="off" aria-invalid={!!err("name")} aria-describedby={describedBy(id("name"), undefined, err("name"))} />
+        <input
+          id={id("name")}
+          {...register("name")}
+          className={inputClass}
+          autoComplete="off"
+          aria-invalid={!!err("name")}
+          aria-describedby={describedBy(id("name"), undefined, err("name"))}
+        />
       </FormField>
       <FormField id={id("compliance")} label="Compliance" error={err("compliance")}>
-        <select id={id("compliance")} {...register("compliance")} className={inputClass} aria-invalid={!!err("compliance")}>
+        <select
+          id={id("compliance")}
+          {...register("compliance")}
+          className={inputClass}
+          aria-invalid={!!err("compliance")}
+        >
           {COMPLIANCES.map((c) => (
             <option key={c} value={c}>
               {COMPLIANCE_LABELS[c]}
@@ -63,7 +91,12 @@ export function FamilyForm({ slug, family, onDone, onCancel }: { slug: string; f
             aria-describedby={describedBy(id("nominal"), "hint", err("nominalAtm"))}
           />
         </FormField>
-        <FormField id={id("rbp")} label="Rated burst pressure (atm)" hint="above the nominal pressure" error={err("rbpAtm")}>
+        <FormField
+          id={id("rbp")}
+          label="Rated burst pressure (atm)"
+          hint="above the nominal pressure"
+          error={err("rbpAtm")}
+        >
           <input
             id={id("rbp")}
             inputMode="decimal"
@@ -74,22 +107,44 @@ export function FamilyForm({ slug, family, onDone, onCancel }: { slug: string; f
           />
         </FormField>
       </div>
-      <FormField id={id("growth")} label="Growth at rated burst pressure (mm, optional)" hint="0 to 1.00 mm over the nominal diameter; leave empty if not recorded" error={err("growthAtRbpMm")}>
+      <FormField
+        id={id("growth")}
+        label="Growth at rated burst pressure (mm, optional)"
+        hint="0 to 1.00 mm over the nominal diameter; leave empty if not recorded"
+        error={err("growthAtRbpMm")}
+      >
         <input
           id={id("growth")}
           inputMode="decimal"
-          {...register("growthAtRbpMm", { setValueAs: (v) => (String(v ?? "").trim() === "" ? null : numberFromInput(v)) })}
+          {...register("growthAtRbpMm", {
+            setValueAs: (v) => (String(v ?? "").trim() === "" ? null : numberFromInput(v)),
+          })}
           className={inputClass}
           aria-invalid={!!err("growthAtRbpMm")}
           aria-describedby={describedBy(id("growth"), "hint", err("growthAtRbpMm"))}
         />
       </FormField>
-      <FormActions pending={isSubmitting} submitLabel={family ? "Save family" : "Add family"} onCancel={onCancel} error={errors.root?.server?.message} />
+      <FormActions
+        pending={isSubmitting}
+        submitLabel={family ? "Save family" : "Add family"}
+        onCancel={onCancel}
+        error={errors.root?.server?.message}
+      />
     </form>
   );
 }
 
-export function FormActions({ pending, submitLabel, onCancel, error }: { pending: boolean; submitLabel: string; onCancel: () => void; error?: string }) {
+export function FormActions({
+  pending,
+  submitLabel,
+  onCancel,
+  error,
+}: {
+  pending: boolean;
+  submitLabel: string;
+  onCancel: () => void;
+  error?: string;
+}) {
   return (
     <>
       {error ? (

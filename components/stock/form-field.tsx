@@ -1,10 +1,23 @@
 import type { ReactNode } from "react";
 import { parseDecimalText } from "@/lib/stock/format";
 
-export const inputClass = "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 aria-[invalid=true]:border-danger";
+export const inputClass =
+  "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 aria-[invalid=true]:border-danger";
 
 /** A labelled control with its hint and error, tied together for screen readers. */
-export function FormField({ id, label, hint, error, children }: { id: string; label: string; hint?: string; error?: string; children: ReactNode }) {
+export function FormField({
+  id,
+  label,
+  hint,
+  error,
+  children,
+}: {
+  id: string;
+  label: string;
+  hint?: string;
+  error?: string;
+  children: ReactNode;
+}) {
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-medium">
@@ -25,7 +38,8 @@ export function FormField({ id, label, hint, error, children }: { id: string; la
   );
 }
 
-export const describedBy = (id: string, hint?: string, error?: string) => [hint ? `${id}-hint` : "", error ? `${id}-error` : ""].filter(Boolean).join(" ") || undefined;
+export const describedBy = (id: string, hint?: string, error?: string) =>
+  [hint ? `${id}-hint` : "", error ? `${id}-error` : ""].filter(Boolean).join(" ") || undefined;
 
 /** Form text -> number for the zod schemas: "" is missing, a decimal comma is accepted. */
 export function numberFromInput(value: unknown): number | undefined {

@@ -31,7 +31,10 @@ export function InStockToggle({
       {on ? "In stock" : "Out of stock"}
     </>
   );
-  if (!canEdit) return <span className={`inline-flex items-center gap-1 ${shown ? "text-ok" : "text-ink-faint"}`}>{label(shown)}</span>;
+  if (!canEdit)
+    return (
+      <span className={`inline-flex items-center gap-1 ${shown ? "text-ok" : "text-ink-faint"}`}>{label(shown)}</span>
+    );
 
   const toggle = async () => {
     const next = !shown;

@@ -10,7 +10,17 @@ import { describedBy, FormField, inputClass } from "./form-field";
 import { showServerError } from "./server-errors";
 import { stockRequest, stockUrl } from "./stock-api";
 
-export function PlatformForm({ slug, platform, onDone, onCancel }: { slug: string; platform?: StentPlatformView; onDone: (message: string) => void; onCancel: () => void }) {
+export function PlatformForm({
+  slug,
+  platform,
+  onDone,
+  onCancel,
+}: {
+  slug: string;
+  platform?: StentPlatformView;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+}) {
   const {
     register,
     handleSubmit,
@@ -36,9 +46,21 @@ export function PlatformForm({ slug, platform, onDone, onCancel }: { slug: strin
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormField id={id} label="Name" error={error}>
-        <input id={id} {...register("name")} autoComplete="off" className={inputClass} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
+        <input
+          id={id}
+          {...register("name")}
+          autoComplete="off"
+          className={inputClass}
+          aria-invalid={!!error}
+          aria-describedby={describedBy(id, undefined, error)}
+        />
       </FormField>
-      <FormActions pending={isSubmitting} submitLabel={platform ? "Save platform" : "Add platform"} onCancel={onCancel} error={errors.root?.server?.message} />
+      <FormActions
+        pending={isSubmitting}
+        submitLabel={platform ? "Save platform" : "Add platform"}
+        onCancel={onCancel}
+        error={errors.root?.server?.message}
+      />
     </form>
   );
 }

@@ -1,6 +1,14 @@
 "use client";
 
-import { getCoreRowModel, getExpandedRowModel, getSortedRowModel, useReactTable, type ColumnDef, type ExpandedState, type SortingState } from "@tanstack/react-table";
+import {
+  getCoreRowModel,
+  getExpandedRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type ExpandedState,
+  type SortingState,
+} from "@tanstack/react-table";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 
@@ -49,7 +57,12 @@ export const actionsColumn = <T,>(cell: ColumnDef<T>["cell"]): ColumnDef<T> => (
 });
 
 /** A sortable stock table (rows expandable when `expandable`), keyed by the rows' ids. */
-export function useStockTable<T extends { id: number }>(data: T[], columns: ColumnDef<T>[], sortBy: string, expandable = false) {
+export function useStockTable<T extends { id: number }>(
+  data: T[],
+  columns: ColumnDef<T>[],
+  sortBy: string,
+  expandable = false,
+) {
   const [sorting, setSorting] = useState<SortingState>([{ id: sortBy, desc: false }]);
   const [expanded, setExpanded] = useState<ExpandedState>(true);
   // TanStack's table object is rebuilt every render by design; the compiler cannot memoize it.

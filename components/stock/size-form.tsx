@@ -51,7 +51,12 @@ export function SizeForm({
   const maxError = errors.maxPostDilatationMm?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField id={`${id}-nominal`} label="Nominal diameter (mm)" hint="1.00 to 7.00 mm in steps of 0.05 mm" error={nominalError}>
+      <FormField
+        id={`${id}-nominal`}
+        label="Nominal diameter (mm)"
+        hint="1.00 to 7.00 mm in steps of 0.05 mm"
+        error={nominalError}
+      >
         <input
           id={`${id}-nominal`}
           inputMode="decimal"
@@ -62,7 +67,12 @@ export function SizeForm({
           aria-describedby={describedBy(`${id}-nominal`, "hint", nominalError)}
         />
       </FormField>
-      <FormField id={`${id}-max`} label="Maximum post-dilatation diameter (mm)" hint="from the nominal diameter up to nominal + 2.00 mm, as the device's instructions state" error={maxError}>
+      <FormField
+        id={`${id}-max`}
+        label="Maximum post-dilatation diameter (mm)"
+        hint="from the nominal diameter up to nominal + 2.00 mm, as the device's instructions state"
+        error={maxError}
+      >
         <input
           id={`${id}-max`}
           inputMode="decimal"
@@ -73,7 +83,12 @@ export function SizeForm({
           aria-describedby={describedBy(`${id}-max`, "hint", maxError)}
         />
       </FormField>
-      <FormActions pending={isSubmitting} submitLabel={size ? "Save size" : "Add size"} onCancel={onCancel} error={errors.root?.server?.message} />
+      <FormActions
+        pending={isSubmitting}
+        submitLabel={size ? "Save size" : "Add size"}
+        onCancel={onCancel}
+        error={errors.root?.server?.message}
+      />
     </form>
   );
 }

@@ -22,9 +22,18 @@ type Dialog =
   | { kind: "size"; platform: StentPlatformView; size?: StentSizeView }
   | { kind: "delete-size"; platform: StentPlatformView; size: StentSizeView };
 
-const range = (sizes: StentSizeView[]) => (sizes.length ? `${formatMm(sizes[0]!.nominalMm)} – ${formatMm(sizes[sizes.length - 1]!.nominalMm)}` : "—");
+const range = (sizes: StentSizeView[]) =>
+  sizes.length ? `${formatMm(sizes[0]!.nominalMm)} – ${formatMm(sizes[sizes.length - 1]!.nominalMm)}` : "—";
 
-export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string; platforms: StentPlatformView[]; canEdit: boolean }) {
+export function StentPlatformsTable({
+  slug,
+  platforms,
+  canEdit,
+}: {
+  slug: string;
+  platforms: StentPlatformView[];
+  canEdit: boolean;
+}) {
   const router = useRouter();
   const [dialog, setDialog] = useState<Dialog | null>(null);
   const [status, setStatus] = useState<Status | null>(null);
@@ -38,7 +47,12 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
     () => [
       { accessorKey: "name", header: "Platform", cell: (c) => c.getValue<string>() },
       { id: "count", header: "Sizes", accessorFn: (p) => p.sizes.length },
-      { id: "range", header: "Nominal range (mm)", accessorFn: (p) => p.sizes[0]?.nominalMm ?? 0, cell: (c) => range(c.row.original.sizes) },
+      {
+        id: "range",
+        header: "Nominal range (mm)",
+        accessorFn: (p) => p.sizes[0]?.nominalMm ?? 0,
+        cell: (c) => range(c.row.original.sizes),
+      },
       actionsColumn<StentPlatformView>(({ row }) => (
         <RowActions
           name={row.original.name}
@@ -60,7 +74,9 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
           <h2 id="stent-platforms-heading" className="text-xl font-semibold">
             Stent platforms
           </h2>
-          <p className="text-sm text-ink-soft">Nominal diameters with the maximum post-dilatation diameter the lab records for each.</p>
+          <p className="text-sm text-ink-soft">
+            Nominal diameters with the maximum post-dilatation diameter the lab records for each.
+          </p>
         </div>
         {canEdit ? (
           <Button type="button" onClick={() => setDialog({ kind: "platform" })}>
@@ -71,16 +87,32 @@ export function StentPlatformsTable({ slug, platforms, canEdit }: { slug: string
       <StatusLine status={status} />
       {platforms.length === 0 ? (
         <EmptyState title="No stent platforms yet">
-          {canEdit ? "Add a platform, then its nominal sizes with their post-dilatation limits." : "A manager of this lab has not recorded any stent platforms yet."}
+          {canEdit
+            ? "Add a platform, then its nominal sizes with their post-dilatation limits."
+            : "A manager of this lab has not recorded any stent platforms yet."}
         </EmptyState>
       ) : (
-        <StockTable table={table} caption="Stent platforms" testId="stent-platforms" renderDetail={(row) => <PlatformSizes platform={row.original} canEdit={canEdit} onDialog={setDialog} />} />
+        <StockTable
+          table={table}
+          caption="Stent platforms"
+          testId="stent-platforms"
+          renderDetail={(row) => <PlatformSizes platform={row.original} canEdit={canEdit} onDialog={setDialog} />}
+        />
       )}
 
       <StockDialog open={dialog !== null} title={dialogTitle(dialog)} onClose={() => setDialog(null)}>
-        {dialog?.kind === "platform" ? <PlatformForm slug={slug} platform={dialog.platform} onDone={done} onCancel={() => setDialog(null)} /> : null}
+        {dialog?.kind === "platform" ? (
+          <PlatformForm slug={slug} platform={dialog.platform} onDone={done} onCancel={() => setDialog(null)} />
+        ) : null}
         {dialog?.kind === "size" ? (
-          <SizeForm slug={slug} platformId={dialog.platform.id} platformName={dialog.platform.name} size={dialog.size} onDone={done} onCancel={() => setDialog(null)} />
+          <SizeForm
+            slug={slug}
+            platformId={dialog.platform.id}
+            platformName={dialog.platform.name}
+            size={dialog.size}
+            onDone={done}
+            onCancel={() => setDialog(null)}
+          />
         ) : null}
         {dialog?.kind === "delete-platform" ? (
           <ConfirmDelete
@@ -110,7 +142,9 @@ function dialogTitle(dialog: Dialog | null): string {
     case "platform":
       return dialog.platform ? `Rename ${dialog.platform.name}` : "Add a stent platform";
     case "size":
-      return dialog.size ? `Edit ${dialog.platform.name} ${formatMm(dialog.size.nominalMm)} mm` : `Add a size to ${dialog.platform.name}`;
+      return dialog.size
+        ? `Edit ${dialog.platform.name} ${formatMm(dialog.size.nominalMm)} mm`
+        : `Add a size to ${dialog.platform.name}`;
     case "delete-platform":
       return "Delete stent platform";
     case "delete-size":
@@ -120,15 +154,31 @@ function dialogTitle(dialog: Dialog | null): string {
   }
 }
 
-function PlatformSizes({ platform, canEdit, onDialog }: { platform: StentPlatformView; canEdit: boolean; onDialog: (d: Dialog) => void }) {
+function PlatformSizes({
+  platform,
+  canEdit,
+  onDialog,
+}: {
+  platform: StentPlatformView;
+  canEdit: boolean;
+  onDialog: (d: Dialog) => void;
+}) {
   const columns = useMemo<ColumnDef<StentSizeView>[]>(
     () => [
       { accessorKey: "nominalMm", header: "Nominal (mm)", cell: (c) => formatMm(c.getValue<number>()) },
-      { accessorKey: "maxPostDilatationMm", header: "Max post-dilatation (mm)", cell: (c) => formatMm(c.getValue<number>()) },
+      {
+        accessorKey: "maxPostDilatationMm",
+        header: "Max post-dilatation (mm)",
+        cell: (c) => formatMm(c.getValue<number>()),
+      },
       ...(canEdit
         ? [
             actionsColumn<StentSizeView>(({ row }) => (
-              <RowActions name={`${formatMm(row.original.nominalMm)} mm`} onEdit={() => onDialog({ kind: "size", platform, size: row.original })} onDelete={() => onDialog({ kind: "delete-size", platform, size: row.original })} />
+              <RowActions
+                name={`${formatMm(row.original.nominalMm)} mm`}
+                onEdit={() => onDialog({ kind: "size", platform, size: row.original })}
+                onDelete={() => onDialog({ kind: "delete-size", platform, size: row.original })}
+              />
             )),
           ]
         : []),
@@ -141,7 +191,12 @@ function PlatformSizes({ platform, canEdit, onDialog }: { platform: StentPlatfor
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h3 className="font-semibold">Sizes of {platform.name}</h3>
         {canEdit ? (
-          <Button type="button" variant="secondary" className="py-1" onClick={() => onDialog({ kind: "size", platform })}>
+          <Button
+            type="button"
+            variant="secondary"
+            className="py-1"
+            onClick={() => onDialog({ kind: "size", platform })}
+          >
             Add size<span className="sr-only"> to {platform.name}</span>
           </Button>
         ) : null}

@@ -15,7 +15,10 @@ export const stockUrl = (slug: string, path = "") => `/api/v1/labs/${encodeURICo
 
 export async function readApiError(res: Response): Promise<StockApiError> {
   const body = (await res.json().catch(() => null)) as { error?: { message?: string; issues?: FieldIssue[] } } | null;
-  const fallback = res.status === 403 ? "Your role in this lab does not allow this change." : `The server answered ${res.status}. Please try again.`;
+  const fallback =
+    res.status === 403
+      ? "Your role in this lab does not allow this change."
+      : `The server answered ${res.status}. Please try again.`;
   return new StockApiError(body?.error?.message ?? fallback, res.status, body?.error?.issues ?? []);
 }
 

@@ -3,7 +3,17 @@
 import { useEffect, useId, useRef, type ReactNode } from "react";
 
 /** A modal on the native <dialog>: focus is trapped, Escape closes, focus returns to the opener. */
-export function StockDialog({ open, title, onClose, children }: { open: boolean; title: string; onClose: () => void; children: ReactNode }) {
+export function StockDialog({
+  open,
+  title,
+  onClose,
+  children,
+}: {
+  open: boolean;
+  title: string;
+  onClose: () => void;
+  children: ReactNode;
+}) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   useEffect(() => {

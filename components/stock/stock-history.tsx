@@ -14,23 +14,42 @@ export type StockHistoryEvent = {
 const ROWS_SHOWN = 200;
 
 const when = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
-const summaryOf = (detail: unknown) => (typeof detail === "object" && detail && "summary" in detail ? String((detail as { summary: unknown }).summary) : "");
-const revisionOf = (detail: unknown) => (typeof detail === "object" && detail && "revision" in detail ? Number((detail as { revision: unknown }).revision) : null);
+const summaryOf = (detail: unknown) =>
+  typeof detail === "object" && detail && "summary" in detail ? String((detail as { summary: unknown }).summary) : "";
+const revisionOf = (detail: unknown) =>
+  typeof detail === "object" && detail && "revision" in detail
+    ? Number((detail as { revision: unknown }).revision)
+    : null;
 
 /** Stock changes newest first, each with its before and after. */
-export function StockHistory({ slug, events, olderCursor }: { slug: string; events: StockHistoryEvent[]; olderCursor: number | null }) {
+export function StockHistory({
+  slug,
+  events,
+  olderCursor,
+}: {
+  slug: string;
+  events: StockHistoryEvent[];
+  olderCursor: number | null;
+}) {
   return (
     <section aria-labelledby="stock-history-heading" className="space-y-3">
       <div>
         <h2 id="stock-history-heading" className="text-xl font-semibold">
           Stock history
         </h2>
-        <p className="text-sm text-ink-soft">Every change to this lab&apos;s stock, newest first: who made it, and what it was before and after.</p>
+        <p className="text-sm text-ink-soft">
+          Every change to this lab&apos;s stock, newest first: who made it, and what it was before and after.
+        </p>
       </div>
       {events.length === 0 ? (
-        <EmptyState title="No stock changes recorded yet">Changes made here or by CSV import appear in this list.</EmptyState>
+        <EmptyState title="No stock changes recorded yet">
+          Changes made here or by CSV import appear in this list.
+        </EmptyState>
       ) : (
-        <ol className="divide-y divide-line rounded-card border border-line bg-paper-raised" data-testid="stock-history">
+        <ol
+          className="divide-y divide-line rounded-card border border-line bg-paper-raised"
+          data-testid="stock-history"
+        >
           {events.map((event) => {
             const rows = describeStockChange(event.action, event.detail);
             const revision = revisionOf(event.detail);
@@ -42,7 +61,8 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
                     <span className="text-ink-soft">: {summaryOf(event.detail)}</span>
                   </p>
                   <p className="text-xs text-ink-faint">
-                    <time dateTime={event.createdAt.toISOString()}>{when(event.createdAt)}</time> · {event.actorName ?? "a removed account"}
+                    <time dateTime={event.createdAt.toISOString()}>{when(event.createdAt)}</time> ·{" "}
+                    {event.actorName ?? "a removed account"}
                     {revision !== null ? ` · revision ${revision}` : ""}
                   </p>
                 </div>
@@ -77,7 +97,11 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
                           ))}
                         </tbody>
                       </table>
-                      {rows.length > ROWS_SHOWN ? <p className="mt-1 text-ink-faint">and {rows.length - ROWS_SHOWN} more changes not listed here.</p> : null}
+                      {rows.length > ROWS_SHOWN ? (
+                        <p className="mt-1 text-ink-faint">
+                          and {rows.length - ROWS_SHOWN} more changes not listed here.
+                        </p>
+                      ) : null}
                     </div>
                   </details>
                 ) : null}
@@ -87,7 +111,10 @@ export function StockHistory({ slug, events, olderCursor }: { slug: string; even
         </ol>
       )}
       {olderCursor ? (
-        <Link href={`/labs/${slug}/stock?before=${olderCursor}#stock-history-heading`} className="inline-block text-brand-700 underline">
+        <Link
+          href={`/labs/${slug}/stock?before=${olderCursor}#stock-history-heading`}
+          className="inline-block text-brand-700 underline"
+        >
           Show older changes
         </Link>
       ) : null}

@@ -54,17 +54,28 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
 
   const check = async (file: File) => {
     if (file.size > MAX_IMPORT_BYTES) {
-      setPhase({ step: "failed", file, message: `${file.name} is ${(file.size / 1024 / 1024).toFixed(2)} MB; the limit is 1 MB. Split it into smaller files.`, issues: [] });
+      setPhase({
+        step: "failed",
+        file,
+        message: `${file.name} is ${(file.size / 1024 / 1024).toFixed(2)} MB; the limit is 1 MB. Split it into smaller files.`,
+        issues: [],
+      });
       return;
     }
     setPhase({ step: "sending", file, verb: "Checking", percent: 0 });
-    const answer = await upload(`${stockUrl(slug, "/import")}?dryRun=1`, file, (percent) => setPhase({ step: "sending", file, verb: "Checking", percent }));
-    setPhase(answer.status === 200 ? { step: "preview", file, result: answer.body as ImportResult } : failed(answer, file));
+    const answer = await upload(`${stockUrl(slug, "/import")}?dryRun=1`, file, (percent) =>
+      setPhase({ step: "sending", file, verb: "Checking", percent }),
+    );
+    setPhase(
+      answer.status === 200 ? { step: "preview", file, result: answer.body as ImportResult } : failed(answer, file),
+    );
   };
 
   const apply = async (file: File, preview: ImportResult) => {
     setPhase({ step: "sending", file, verb: "Applying", percent: 0 });
-    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) => setPhase({ step: "sending", file, verb: "Applying", percent }));
+    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) =>
+      setPhase({ step: "sending", file, verb: "Applying", percent }),
+    );
     if (answer.status !== 200) return setPhase(failed(answer, file));
     setPhase({ step: "applied", file, result: answer.body as ImportResult });
     router.refresh();
@@ -83,7 +94,9 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
   };
 
   const download = () => {
-    const url = URL.createObjectURL(new Blob([`\uFEFF${balloonStockCsv(families)}`], { type: "text/csv;charset=utf-8" }));
+    const url = URL.createObjectURL(
+      new Blob([`\uFEFF${balloonStockCsv(families)}`], { type: "text/csv;charset=utf-8" }),
+    );
     const a = document.createElement("a");
     a.href = url;
     a.download = `${slug}-balloon-stock.csv`;
@@ -100,8 +113,9 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             Import balloons from a CSV file
           </h2>
           <p className="max-w-prose text-sm text-ink-soft">
-            Check the file first: you see every change before anything is saved. A file lists each of its families&apos; whole range; sizes of those families that the file leaves out are
-            marked out of stock. Families the file does not mention stay as they are.
+            Check the file first: you see every change before anything is saved. A file lists each of its families&apos;
+            whole range; sizes of those families that the file leaves out are marked out of stock. Families the file
+            does not mention stay as they are.
           </p>
         </div>
         <Button type="button" variant="secondary" onClick={download} disabled={families.length === 0}>
@@ -140,8 +154,10 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
         <summary className="cursor-pointer font-medium">What the file looks like</summary>
         <div className="mt-2 space-y-2 text-ink-soft">
           <p>
-            First line: the column names <code>family,compliance,diameter_mm,in_stock</code>, optionally followed by <code>nominal_atm,rbp_atm,growth_at_rbp_mm</code>. Then one line per
-            balloon size. Commas or semicolons separate the fields; a decimal comma (2,75) works in semicolon files, and in comma files when the number is quoted (&quot;2,75&quot;).
+            First line: the column names <code>family,compliance,diameter_mm,in_stock</code>, optionally followed by{" "}
+            <code>nominal_atm,rbp_atm,growth_at_rbp_mm</code>. Then one line per balloon size. Commas or semicolons
+            separate the fields; a decimal comma (2,75) works in semicolon files, and in comma files when the number is
+            quoted (&quot;2,75&quot;).
           </p>
           <ul className="list-disc pl-5">
             <li>
@@ -153,10 +169,15 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             <li>
               <code>in_stock</code>: yes, no, y, n, true, false, 1 or 0 (any letter case).
             </li>
-            <li>A new family needs its nominal and rated burst pressures (atm) on at least one of its lines; existing families may leave them empty to keep what is recorded.</li>
+            <li>
+              A new family needs its nominal and rated burst pressures (atm) on at least one of its lines; existing
+              families may leave them empty to keep what is recorded.
+            </li>
           </ul>
           <pre className="overflow-x-auto rounded bg-paper-sunk p-2 text-xs">
-            {"family;compliance;diameter_mm;in_stock;nominal_atm;rbp_atm;growth_at_rbp_mm\nNC family A (illustrative);nc;2,50;yes;12;20;0,20\nNC family A (illustrative);nc;2,75;no;;;"}
+            {
+              "family;compliance;diameter_mm;in_stock;nominal_atm;rbp_atm;growth_at_rbp_mm\nNC family A (illustrative);nc;2,50;yes;12;20;0,20\nNC family A (illustrative);nc;2,75;no;;;"
+            }
           </pre>
         </div>
       </details>
@@ -165,9 +186,19 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
         {phase.step === "sending" ? (
           <div role="status" className="rounded-md border border-line bg-paper-raised px-4 py-3">
             <p className="font-medium">
-              {phase.verb} {phase.file.name}… {phase.percent < 100 ? `uploading ${phase.percent}%` : phase.verb === "Checking" ? "comparing with the current stock" : "saving"}
+              {phase.verb} {phase.file.name}…{" "}
+              {phase.percent < 100
+                ? `uploading ${phase.percent}%`
+                : phase.verb === "Checking"
+                  ? "comparing with the current stock"
+                  : "saving"}
             </p>
-            <progress className="mt-2 w-full" max={100} value={phase.percent < 100 ? phase.percent : undefined} aria-label={`${phase.verb} ${phase.file.name}`} />
+            <progress
+              className="mt-2 w-full"
+              max={100}
+              value={phase.percent < 100 ? phase.percent : undefined}
+              aria-label={`${phase.verb} ${phase.file.name}`}
+            />
           </div>
         ) : null}
 
@@ -179,7 +210,10 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
               {phase.message}
             </p>
             {phase.issues.length ? (
-              <ul className="mt-2 max-h-72 list-disc space-y-1 overflow-y-auto pl-5 text-ink" aria-label="Problems in the file">
+              <ul
+                className="mt-2 max-h-72 list-disc space-y-1 overflow-y-auto pl-5 text-ink"
+                aria-label="Problems in the file"
+              >
                 {phase.issues.map((issue, i) => (
                   <li key={i}>{issue.message}</li>
                 ))}
@@ -191,13 +225,22 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
           </div>
         ) : null}
 
-        {phase.step === "preview" ? <ImportPreview result={phase.result} fileName={phase.file.name} onApply={() => apply(phase.file, phase.result)} onCancel={reset} /> : null}
+        {phase.step === "preview" ? (
+          <ImportPreview
+            result={phase.result}
+            fileName={phase.file.name}
+            onApply={() => apply(phase.file, phase.result)}
+            onCancel={reset}
+          />
+        ) : null}
 
         {phase.step === "applied" ? (
           <div role="status" className="rounded-md border border-ok/40 bg-ok-soft px-4 py-3 text-sm">
             <p className="font-semibold text-ok">
               <span aria-hidden>✓ </span>
-              {phase.result.applied ? `Imported ${phase.file.name}: ${phase.result.summary}. Stock revision ${phase.result.revision}.` : `${phase.file.name} matches the current stock; nothing was changed.`}
+              {phase.result.applied
+                ? `Imported ${phase.file.name}: ${phase.result.summary}. Stock revision ${phase.result.revision}.`
+                : `${phase.file.name} matches the current stock; nothing was changed.`}
             </p>
             <Button type="button" variant="secondary" className="mt-3" onClick={reset}>
               Import another file
@@ -209,30 +252,87 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
   );
 }
 
-function ImportPreview({ result, fileName, onApply, onCancel }: { result: ImportResult; fileName: string; onApply: () => void; onCancel: () => void }) {
+function ImportPreview({
+  result,
+  fileName,
+  onApply,
+  onCancel,
+}: {
+  result: ImportResult;
+  fileName: string;
+  onApply: () => void;
+  onCancel: () => void;
+}) {
   const { plan } = result;
-  const empty = plan.familiesToAdd.length + plan.familiesToChange.length + plan.balloonsToAdd.length + plan.balloonsToChange.length + plan.balloonsToMarkOutOfStock.length === 0;
+  const empty =
+    plan.familiesToAdd.length +
+      plan.familiesToChange.length +
+      plan.balloonsToAdd.length +
+      plan.balloonsToChange.length +
+      plan.balloonsToMarkOutOfStock.length ===
+    0;
   const stock = (v: boolean) => (v ? "in stock" : "out of stock");
   return (
     <div className="space-y-4 rounded-card border border-brand-200 bg-paper-raised p-4" data-testid="import-preview">
       <div>
         <h3 className="text-lg font-semibold">Preview of {fileName}</h3>
         <p className="text-sm text-ink-soft">
-          {plan.rowsInFile} lines, {plan.familiesInFile} {plan.familiesInFile === 1 ? "family" : "families"}. Compared with stock revision {result.revision}. Nothing has been saved yet.
+          {plan.rowsInFile} lines, {plan.familiesInFile} {plan.familiesInFile === 1 ? "family" : "families"}. Compared
+          with stock revision {result.revision}. Nothing has been saved yet.
         </p>
-        <p className="mt-1 font-medium">{empty ? "The file matches the current stock: nothing would change." : `This import would make: ${result.summary}.`}</p>
+        <p className="mt-1 font-medium">
+          {empty
+            ? "The file matches the current stock: nothing would change."
+            : `This import would make: ${result.summary}.`}
+        </p>
       </div>
-      <PreviewTable title="Families to add" head={["Family", "Compliance", "Nominal / rated burst (atm)", "Growth at RBP (mm)", "Sizes"]}
-        rows={plan.familiesToAdd.map((f) => [f.name, f.compliance, `${formatAtm(f.nominalAtm)} / ${formatAtm(f.rbpAtm)}`, f.growthAtRbpMm === null ? "not recorded" : formatMm(f.growthAtRbpMm), String(f.sizes)])} />
-      <PreviewTable title="Families to change" head={["Family", "Field", "Now", "After import"]}
-        rows={plan.familiesToChange.flatMap((c) => c.fields.map((f) => [c.name, FIELD_LABELS[f] ?? f, formatStockValue(f, c.before[f]), formatStockValue(f, c.after[f])]))} />
-      <PreviewTable title="Sizes to add" head={["Family", "Diameter (mm)", "In stock", "Line"]}
-        rows={plan.balloonsToAdd.map((b) => [b.family, formatMm(b.diameterMm), stock(b.inStock), String(b.line)])} />
-      <PreviewTable title="Sizes to change" head={["Family", "Diameter (mm)", "Now", "After import", "Line"]}
-        rows={plan.balloonsToChange.map((b) => [b.family, formatMm(b.diameterMm), stock(b.before.inStock), stock(b.after.inStock), String(b.line)])} />
-      <PreviewTable title="Sizes to mark out of stock (not in the file)" head={["Family", "Diameter (mm)"]}
-        rows={plan.balloonsToMarkOutOfStock.map((b) => [b.family, formatMm(b.diameterMm)])} />
-      {plan.unchangedBalloons ? <p className="text-sm text-ink-soft">{plan.unchangedBalloons} sizes of the listed families stay as they are.</p> : null}
+      <PreviewTable
+        title="Families to add"
+        head={["Family", "Compliance", "Nominal / rated burst (atm)", "Growth at RBP (mm)", "Sizes"]}
+        rows={plan.familiesToAdd.map((f) => [
+          f.name,
+          f.compliance,
+          `${formatAtm(f.nominalAtm)} / ${formatAtm(f.rbpAtm)}`,
+          f.growthAtRbpMm === null ? "not recorded" : formatMm(f.growthAtRbpMm),
+          String(f.sizes),
+        ])}
+      />
+      <PreviewTable
+        title="Families to change"
+        head={["Family", "Field", "Now", "After import"]}
+        rows={plan.familiesToChange.flatMap((c) =>
+          c.fields.map((f) => [
+            c.name,
+            FIELD_LABELS[f] ?? f,
+            formatStockValue(f, c.before[f]),
+            formatStockValue(f, c.after[f]),
+          ]),
+        )}
+      />
+      <PreviewTable
+        title="Sizes to add"
+        head={["Family", "Diameter (mm)", "In stock", "Line"]}
+        rows={plan.balloonsToAdd.map((b) => [b.family, formatMm(b.diameterMm), stock(b.inStock), String(b.line)])}
+      />
+      <PreviewTable
+        title="Sizes to change"
+        head={["Family", "Diameter (mm)", "Now", "After import", "Line"]}
+        rows={plan.balloonsToChange.map((b) => [
+          b.family,
+          formatMm(b.diameterMm),
+          stock(b.before.inStock),
+          stock(b.after.inStock),
+          String(b.line),
+        ])}
+      />
+      <PreviewTable
+        title="Sizes to mark out of stock (not in the file)"
+        head={["Family", "Diameter (mm)"]}
+        rows={plan.balloonsToMarkOutOfStock.map((b) => [b.family, formatMm(b.diameterMm)])}
+      />
+      {plan.unchangedBalloons ? (
+        <p className="text-sm text-ink-soft">{plan.unchangedBalloons} sizes of the listed families stay as they are.</p>
+      ) : null}
       <div className="flex flex-wrap justify-end gap-2">
         <Button type="button" variant="secondary" onClick={onCancel}>
           Cancel

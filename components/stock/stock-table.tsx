@@ -33,11 +33,17 @@ export function StockTable<T>({
                   <th
                     key={header.id}
                     scope="col"
-                    aria-sort={canSort ? (sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none") : undefined}
+                    aria-sort={
+                      canSort ? (sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none") : undefined
+                    }
                     className="whitespace-nowrap px-3 py-2 font-semibold text-ink-soft"
                   >
                     {header.isPlaceholder ? null : canSort ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 rounded hover:text-ink">
+                      <button
+                        type="button"
+                        onClick={header.column.getToggleSortingHandler()}
+                        className="inline-flex items-center gap-1 rounded hover:text-ink"
+                      >
                         {flexRender(header.column.columnDef.header, header.getContext())}
                         <span aria-hidden className="text-xs">
                           {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}

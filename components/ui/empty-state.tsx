@@ -1,4 +1,12 @@
-export function EmptyState({ title, children, action }: { title: string; children?: React.ReactNode; action?: React.ReactNode }) {
+export function EmptyState({
+  title,
+  children,
+  action,
+}: {
+  title: string;
+  children?: React.ReactNode;
+  action?: React.ReactNode;
+}) {
   return (
     <div className="rounded-card border border-dashed border-line-strong bg-paper-raised px-6 py-12 text-center">
       <h2 className="text-lg font-semibold">{title}</h2>

@@ -7,7 +7,10 @@ export function FormStatus({ ok, message, className = "" }: { ok?: boolean; mess
       {message}
     </p>
   ) : (
-    <p role="alert" className={`rounded-md border border-danger/40 bg-danger-soft px-3 py-2 text-sm text-danger ${className}`}>
+    <p
+      role="alert"
+      className={`rounded-md border border-danger/40 bg-danger-soft px-3 py-2 text-sm text-danger ${className}`}
+    >
       <span aria-hidden>⚠ </span>
       {message}
     </p>

@@ -32,12 +32,34 @@ export async function recordAudit({ tx, ...event }: AuditInput & { tx?: Tx | Dat
  * resets) of people who are members of the lab now. Keyset pages: `before` for older, `after`
  * for newer.
  */
-export async function listAuditEvents({ labId, before, after, limit = 50 }: { labId: number; before?: number; after?: number; limit?: number }) {
-  const members = defaultDb.select({ userId: memberships.userId }).from(memberships).where(eq(memberships.labId, labId));
-  const memberIds = defaultDb.select({ id: sql<string>`CAST(${memberships.userId} AS CHAR)` }).from(memberships).where(eq(memberships.labId, labId));
+export async function listAuditEvents({
+  labId,
+  before,
+  after,
+  limit = 50,
+}: {
+  labId: number;
+  before?: number;
+  after?: number;
+  limit?: number;
+}) {
+  const members = defaultDb
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(eq(memberships.labId, labId));
+  const memberIds = defaultDb
+    .select({ id: sql<string>`CAST(${memberships.userId} AS CHAR)` })
+    .from(memberships)
+    .where(eq(memberships.labId, labId));
   const inLab = or(
     eq(auditEvents.labId, labId),
-    and(isNull(auditEvents.labId), or(inArray(auditEvents.actorUserId, members), and(eq(auditEvents.targetType, "user"), inArray(auditEvents.targetId, memberIds)))),
+    and(
+      isNull(auditEvents.labId),
+      or(
+        inArray(auditEvents.actorUserId, members),
+        and(eq(auditEvents.targetType, "user"), inArray(auditEvents.targetId, memberIds)),
+      ),
+    ),
   );
   const size = Math.min(Math.max(limit, 1), 200);
   const rows = await defaultDb
@@ -62,8 +84,14 @@ export async function listAuditEvents({ labId, before, after, limit = 50 }: { la
   if (after && !before) page.reverse();
   const newest = page[0]?.id;
   const oldest = page.at(-1)?.id;
-  const hasOlder = after && !before ? oldest !== undefined && (await hasEvent(and(inLab, lt(auditEvents.id, oldest)))) : more;
-  const hasNewer = after && !before ? more : newest !== undefined && (before !== undefined || after !== undefined) && (await hasEvent(and(inLab, gt(auditEvents.id, newest))));
+  const hasOlder =
+    after && !before ? oldest !== undefined && (await hasEvent(and(inLab, lt(auditEvents.id, oldest)))) : more;
+  const hasNewer =
+    after && !before
+      ? more
+      : newest !== undefined &&
+        (before !== undefined || after !== undefined) &&
+        (await hasEvent(and(inLab, gt(auditEvents.id, newest))));
   return { events: page, olderBefore: hasOlder ? oldest : undefined, newerAfter: hasNewer ? newest : undefined };
 }
 

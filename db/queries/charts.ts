@@ -10,13 +10,38 @@ import { afterLabChange } from "./lab-changes";
 import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 
-export async function createChart({ labId, userId, definition, logoId = null }: { labId: number; userId: number; definition: ChartDefinition; logoId?: number | null }) {
+export async function createChart({
+  labId,
+  userId,
+  definition,
+  logoId = null,
+}: {
+  labId: number;
+  userId: number;
+  definition: ChartDefinition;
+  logoId?: number | null;
+}) {
   const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     await assertStockRefs(tx, labId, definition);
-    const [row] = await tx.insert(charts).values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() }).$returningId();
-    const changes = await afterLabChange(tx, { labId, changeKey: `chart:${row!.id}:created`, cause: `Chart "${definition.title}" was created` });
-    await recordAudit({ tx, labId, actorUserId: userId, action: "chart.created", targetType: "chart", targetId: row!.id, detail: { after: definition } });
+    const [row] = await tx
+      .insert(charts)
+      .values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() })
+      .$returningId();
+    const changes = await afterLabChange(tx, {
+      labId,
+      changeKey: `chart:${row!.id}:created`,
+      cause: `Chart "${definition.title}" was created`,
+    });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: userId,
+      action: "chart.created",
+      targetType: "chart",
+      targetId: row!.id,
+      detail: { after: definition },
+    });
     return { id: row!.id, changes };
   });
   await deliverPendingNotices({ labId });
@@ -38,15 +63,30 @@ export async function updateChart({
 }) {
   const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
-    const [before] = await tx.select().from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    const [before] = await tx
+      .select()
+      .from(charts)
+      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
     if (!before) throw notFound("Chart");
     await assertStockRefs(tx, labId, definition);
     await tx
       .update(charts)
       .set({ title: definition.title, definition, updatedAt: new Date(), ...(logoId !== undefined ? { logoId } : {}) })
       .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    const changes = await afterLabChange(tx, { labId, changeKey: `chart:${chartId}:${Date.now()}`, cause: `Chart "${definition.title}" settings were changed` });
-    await recordAudit({ tx, labId, actorUserId: userId, action: "chart.updated", targetType: "chart", targetId: chartId, detail: { before: before.definition, after: definition } });
+    const changes = await afterLabChange(tx, {
+      labId,
+      changeKey: `chart:${chartId}:${Date.now()}`,
+      cause: `Chart "${definition.title}" settings were changed`,
+    });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: userId,
+      action: "chart.updated",
+      targetType: "chart",
+      targetId: chartId,
+      detail: { before: before.definition, after: definition },
+    });
     return { changes };
   });
   await deliverPendingNotices({ labId });
@@ -68,8 +108,14 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
       missing.map(({ i }) => ({ path: ["lookups", i, "familyId"], message: "No such balloon family in this lab" })),
     );
   if (def.stentPlatformId) {
-    const [p] = await tx.select({ id: stentPlatforms.id }).from(stentPlatforms).where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, def.stentPlatformId)));
-    if (!p) throw new AppError("invalid_input", "Choose a stent platform of this lab, or none.", [{ path: ["stentPlatformId"], message: "No such stent platform in this lab" }]);
+    const [p] = await tx
+      .select({ id: stentPlatforms.id })
+      .from(stentPlatforms)
+      .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, def.stentPlatformId)));
+    if (!p)
+      throw new AppError("invalid_input", "Choose a stent platform of this lab, or none.", [
+        { path: ["stentPlatformId"], message: "No such stent platform in this lab" },
+      ]);
   }
 }
 
@@ -80,7 +126,12 @@ export async function getChart({ labId, chartId }: { labId: number; chartId: num
     .leftJoin(logos, eq(logos.id, charts.logoId))
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!row) return null;
-  return { ...row.chart, logoSha256: row.logoSha256, definition: parseStoredDefinition(row.chart.definition), liveSnapshot: row.chart.liveSnapshot as Snapshot | null };
+  return {
+    ...row.chart,
+    logoSha256: row.logoSha256,
+    definition: parseStoredDefinition(row.chart.definition),
+    liveSnapshot: row.chart.liveSnapshot as Snapshot | null,
+  };
 }
 
 /** A chart's lab, for routes addressed by chart id (the guard then checks membership). */
@@ -130,17 +181,45 @@ export async function setChartLogo({
 }) {
   const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
-    const [chart] = await tx.select({ id: charts.id, title: charts.title, logoId: charts.logoId }).from(charts).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    const [chart] = await tx
+      .select({ id: charts.id, title: charts.title, logoId: charts.logoId })
+      .from(charts)
+      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
     if (!chart) throw notFound("Chart");
     if (!logo && chart.logoId === null) throw new AppError("conflict", "This chart has no logo to remove.");
     let logoId: number | null = null;
     if (logo) {
-      const [existing] = await tx.select({ id: logos.id }).from(logos).where(and(eq(logos.labId, labId), eq(logos.sha256, logo.sha256)));
-      logoId = existing?.id ?? (await tx.insert(logos).values({ labId, sha256: logo.sha256, mime: logo.mime, bytes: logo.bytes }).$returningId())[0]!.id;
+      const [existing] = await tx
+        .select({ id: logos.id })
+        .from(logos)
+        .where(and(eq(logos.labId, labId), eq(logos.sha256, logo.sha256)));
+      logoId =
+        existing?.id ??
+        (
+          await tx
+            .insert(logos)
+            .values({ labId, sha256: logo.sha256, mime: logo.mime, bytes: logo.bytes })
+            .$returningId()
+        )[0]!.id;
     }
-    await tx.update(charts).set({ logoId, updatedAt: new Date() }).where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    await afterLabChange(tx, { labId, changeKey: `chart:${chartId}:logo:${logo?.sha256 ?? "none"}:${Date.now()}`, cause: `The logo on "${chart.title}" was ${logo ? "changed" : "removed"}` });
-    await recordAudit({ tx, labId, actorUserId: userId, action: logo ? "chart.logo_set" : "chart.logo_removed", targetType: "chart", targetId: chartId, detail: { before: { logoId: chart.logoId }, after: { logoId, sha256: logo?.sha256 ?? null } } });
+    await tx
+      .update(charts)
+      .set({ logoId, updatedAt: new Date() })
+      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+    await afterLabChange(tx, {
+      labId,
+      changeKey: `chart:${chartId}:logo:${logo?.sha256 ?? "none"}:${Date.now()}`,
+      cause: `The logo on "${chart.title}" was ${logo ? "changed" : "removed"}`,
+    });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: userId,
+      action: logo ? "chart.logo_set" : "chart.logo_removed",
+      targetType: "chart",
+      targetId: chartId,
+      detail: { before: { logoId: chart.logoId }, after: { logoId, sha256: logo?.sha256 ?? null } },
+    });
     return { logoId };
   });
   await deliverPendingNotices({ labId });

@@ -21,7 +21,13 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
   const [row] = await db
     .select({
       edition: editions,
-      chart: { id: charts.id, title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot, liveChangedAt: charts.liveChangedAt },
+      chart: {
+        id: charts.id,
+        title: charts.title,
+        liveFingerprint: charts.liveFingerprint,
+        liveSnapshot: charts.liveSnapshot,
+        liveChangedAt: charts.liveChangedAt,
+      },
       lab: { id: labs.id, slug: labs.slug, name: labs.name },
     })
     .from(editions)

@@ -33,7 +33,12 @@ export async function getEdition({ labId, editionId }: { labId: number; editionI
     .leftJoin(users, eq(users.id, editions.createdBy))
     .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
   if (!row) return null;
-  return { ...row.edition, snapshot: row.edition.snapshot as Snapshot, chartTitle: row.chartTitle, createdByName: row.createdByName };
+  return {
+    ...row.edition,
+    snapshot: row.edition.snapshot as Snapshot,
+    chartTitle: row.chartTitle,
+    createdByName: row.createdByName,
+  };
 }
 
 export async function listEditions({ labId, chartId }: { labId: number; chartId: number }) {
@@ -70,16 +75,35 @@ export async function createEdition({ labId, chartId, actor }: { labId: number; 
       .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
     if (!chart) throw notFound("Chart");
     const definition = parseStoredDefinition(chart.definition);
-    const snapshot = buildSnapshot({ labName: lab.name, definition, stock: await readStock(tx, labId), logoSha256: chart.logoSha256 ?? null });
+    const snapshot = buildSnapshot({
+      labName: lab.name,
+      definition,
+      stock: await readStock(tx, labId),
+      logoSha256: chart.logoSha256 ?? null,
+    });
     const problems = snapshotProblems(snapshot, definition);
     if (problems.length) throw new AppError("unprocessable", problems.join(" "));
     const fingerprint = fingerprintOf(snapshot);
-    const [last] = await tx.select({ n: max(editions.number) }).from(editions).where(eq(editions.chartId, chartId));
+    const [last] = await tx
+      .select({ n: max(editions.number) })
+      .from(editions)
+      .where(eq(editions.chartId, chartId));
     const number = (last?.n ?? 0) + 1;
     const checkToken = newCheckToken();
-    const [row] = await tx.insert(editions).values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id }).$returningId();
+    const [row] = await tx
+      .insert(editions)
+      .values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id })
+      .$returningId();
     await refreshLiveSnapshots(tx, labId);
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.created", targetType: "edition", targetId: row!.id, detail: { chartId, number, fingerprint } });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "edition.created",
+      targetType: "edition",
+      targetId: row!.id,
+      detail: { chartId, number, fingerprint },
+    });
     return { id: row!.id, number, fingerprint, checkToken };
   });
 }
@@ -89,11 +113,18 @@ async function transition(
   tx: Tx,
   { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus | "rejected" },
 ) {
-  const [ed] = await tx.select().from(editions).where(and(eq(editions.id, editionId), eq(editions.labId, labId))).for("update");
+  const [ed] = await tx
+    .select()
+    .from(editions)
+    .where(and(eq(editions.id, editionId), eq(editions.labId, labId)))
+    .for("update");
   if (!ed) throw notFound("Edition");
   const target: EditionStatus = to === "rejected" ? "draft" : to;
   if (to === "rejected" ? ed.status !== "draft" : !canTransition(ed.status, target)) {
-    throw new AppError("conflict", `Edition ${ed.number} is ${ed.status}; it cannot be ${to === "rejected" ? "rejected" : `made ${to}`}.`);
+    throw new AppError(
+      "conflict",
+      `Edition ${ed.number} is ${ed.status}; it cannot be ${to === "rejected" ? "rejected" : `made ${to}`}.`,
+    );
   }
   return ed;
 }
@@ -103,9 +134,15 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "approved" });
     if (ed.createdBy === actor.id) {
-      throw new AppError("forbidden", "You drafted this edition, so someone else (a manager or the medical lead) must approve it.");
+      throw new AppError(
+        "forbidden",
+        "You drafted this edition, so someone else (a manager or the medical lead) must approve it.",
+      );
     }
-    const [chart] = await tx.select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot }).from(charts).where(eq(charts.id, ed.chartId));
+    const [chart] = await tx
+      .select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot })
+      .from(charts)
+      .where(eq(charts.id, ed.chartId));
     if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
       const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
       throw new AppError(
@@ -119,13 +156,20 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
       .from(editions)
       .where(and(eq(editions.chartId, ed.chartId), eq(editions.status, "approved"), ne(editions.id, ed.id)));
     for (const p of previous) {
-      await tx.update(editions).set({ status: "superseded", supersededAt: now }).where(and(eq(editions.id, p.id), eq(editions.labId, labId)));
+      await tx
+        .update(editions)
+        .set({ status: "superseded", supersededAt: now })
+        .where(and(eq(editions.id, p.id), eq(editions.labId, labId)));
     }
     await tx
       .update(editions)
       .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
       .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await afterLabChange(tx, { labId, changeKey: `edition:${ed.id}:approved`, cause: `Edition ${ed.number} of "${chart?.title}" was approved by ${actor.name}` });
+    await afterLabChange(tx, {
+      labId,
+      changeKey: `edition:${ed.id}:approved`,
+      cause: `Edition ${ed.number} of "${chart?.title}" was approved by ${actor.name}`,
+    });
     await recordAudit({
       tx,
       labId,
@@ -133,7 +177,12 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
       action: "edition.approved",
       targetType: "edition",
       targetId: ed.id,
-      detail: { chartId: ed.chartId, number: ed.number, fingerprint: ed.fingerprint, superseded: previous.map((p) => p.number) },
+      detail: {
+        chartId: ed.chartId,
+        number: ed.number,
+        fingerprint: ed.fingerprint,
+        superseded: previous.map((p) => p.number),
+      },
     });
     return { id: ed.id, number: ed.number, superseded: previous };
   });
@@ -141,19 +190,47 @@ export async function approveEdition({ labId, editionId, actor }: { labId: numbe
   return result;
 }
 
-export async function rejectEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string }) {
+export async function rejectEdition({
+  labId,
+  editionId,
+  actor,
+  reason,
+}: {
+  labId: number;
+  editionId: number;
+  actor: Actor;
+  reason: string;
+}) {
   return db.transaction(async (tx) => {
     const ed = await transition(tx, { labId, editionId, to: "rejected" });
     await tx
       .update(editions)
       .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
       .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.rejected", targetType: "edition", targetId: ed.id, detail: { number: ed.number, reason } });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "edition.rejected",
+      targetType: "edition",
+      targetId: ed.id,
+      detail: { number: ed.number, reason },
+    });
     return { id: ed.id, number: ed.number };
   });
 }
 
-export async function withdrawEdition({ labId, editionId, actor, reason }: { labId: number; editionId: number; actor: Actor; reason: string | null }) {
+export async function withdrawEdition({
+  labId,
+  editionId,
+  actor,
+  reason,
+}: {
+  labId: number;
+  editionId: number;
+  actor: Actor;
+  reason: string | null;
+}) {
   const result = await db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
@@ -161,8 +238,20 @@ export async function withdrawEdition({ labId, editionId, actor, reason }: { lab
       .update(editions)
       .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
       .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await afterLabChange(tx, { labId, changeKey: `edition:${ed.id}:withdrawn`, cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}` });
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "edition.withdrawn", targetType: "edition", targetId: ed.id, detail: { number: ed.number, was: ed.status, reason } });
+    await afterLabChange(tx, {
+      labId,
+      changeKey: `edition:${ed.id}:withdrawn`,
+      cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}`,
+    });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "edition.withdrawn",
+      targetType: "edition",
+      targetId: ed.id,
+      detail: { number: ed.number, was: ed.status, reason },
+    });
     return { id: ed.id, number: ed.number, was: ed.status };
   });
   await deliverPendingNotices({ labId });

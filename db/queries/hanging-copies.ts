@@ -33,7 +33,12 @@ export async function readHangingCopies(conn: Tx | Database, labId: number): Pro
       room: rooms.name,
       postedByName: users.name,
       edition: editions,
-      chart: { id: charts.id, title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot },
+      chart: {
+        id: charts.id,
+        title: charts.title,
+        liveFingerprint: charts.liveFingerprint,
+        liveSnapshot: charts.liveSnapshot,
+      },
     })
     .from(postings)
     .innerJoin(rooms, eq(rooms.id, postings.roomId))

@@ -8,7 +8,8 @@ import { invitations, labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { lockLab } from "./lab-lock";
 
-const open = (labId: number) => and(eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
+const open = (labId: number) =>
+  and(eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
 
 /** Invitations neither accepted nor revoked, newest first (expired ones stay listed for a resend). */
 export async function listOpenInvitations({ labId }: { labId: number }) {
@@ -27,12 +28,22 @@ export async function listOpenInvitations({ labId }: { labId: number }) {
     .where(open(labId))
     .orderBy(asc(invitations.email));
   const now = new Date();
-  return rows.map((r) => ({ ...r, status: r.expiresAt.getTime() <= now.getTime() ? ("expired" as const) : ("pending" as const) }));
+  return rows.map((r) => ({
+    ...r,
+    status: r.expiresAt.getTime() <= now.getTime() ? ("expired" as const) : ("pending" as const),
+  }));
 }
 
 export type OpenInvitation = Awaited<ReturnType<typeof listOpenInvitations>>[number];
 
-export async function createInvitation(input: { labId: number; email: string; role: Role; invitedBy: number; tokenHash: string; expiresAt: Date }) {
+export async function createInvitation(input: {
+  labId: number;
+  email: string;
+  role: Role;
+  invitedBy: number;
+  tokenHash: string;
+  expiresAt: Date;
+}) {
   return db.transaction(async (tx) => {
     await lockLab(tx, input.labId);
     const [member] = await tx
@@ -40,19 +51,43 @@ export async function createInvitation(input: { labId: number; email: string; ro
       .from(memberships)
       .innerJoin(users, eq(users.id, memberships.userId))
       .where(and(eq(memberships.labId, input.labId), eq(users.email, input.email)));
-    if (member) throw new AppError("conflict", `${input.email} is already a member of this lab.`, [{ path: ["email"], message: "Already a member of this lab." }]);
-    const [pending] = await tx.select({ id: invitations.id }).from(invitations).where(and(open(input.labId), eq(invitations.email, input.email)));
-    if (pending) {
-      throw new AppError("conflict", `An invitation to ${input.email} is already open; resend it to send a fresh link.`, [
-        { path: ["email"], message: "Already invited: use Resend in the list of open invitations." },
+    if (member)
+      throw new AppError("conflict", `${input.email} is already a member of this lab.`, [
+        { path: ["email"], message: "Already a member of this lab." },
       ]);
+    const [pending] = await tx
+      .select({ id: invitations.id })
+      .from(invitations)
+      .where(and(open(input.labId), eq(invitations.email, input.email)));
+    if (pending) {
+      throw new AppError(
+        "conflict",
+        `An invitation to ${input.email} is already open; resend it to send a fresh link.`,
+        [{ path: ["email"], message: "Already invited: use Resend in the list of open invitations." }],
+      );
     }
     const now = new Date();
     const [row] = await tx
       .insert(invitations)
-      .values({ labId: input.labId, email: input.email, role: input.role, tokenHash: input.tokenHash, invitedBy: input.invitedBy, expiresAt: input.expiresAt, lastSentAt: now })
+      .values({
+        labId: input.labId,
+        email: input.email,
+        role: input.role,
+        tokenHash: input.tokenHash,
+        invitedBy: input.invitedBy,
+        expiresAt: input.expiresAt,
+        lastSentAt: now,
+      })
       .$returningId();
-    await recordAudit({ tx, labId: input.labId, actorUserId: input.invitedBy, action: "invitation.sent", targetType: "invitation", targetId: row!.id, detail: { email: input.email, role: input.role } });
+    await recordAudit({
+      tx,
+      labId: input.labId,
+      actorUserId: input.invitedBy,
+      action: "invitation.sent",
+      targetType: "invitation",
+      targetId: row!.id,
+      detail: { email: input.email, role: input.role },
+    });
     return { id: row!.id, email: input.email, role: input.role, expiresAt: input.expiresAt, lastSentAt: now };
   });
 }
@@ -70,7 +105,13 @@ async function openInvitationInLab(tx: Tx, labId: number, invitationId: number) 
 }
 
 /** A fresh link: the old token stops working at once. */
-export async function renewInvitation(input: { labId: number; invitationId: number; actorUserId: number; tokenHash: string; expiresAt: Date }) {
+export async function renewInvitation(input: {
+  labId: number;
+  invitationId: number;
+  actorUserId: number;
+  tokenHash: string;
+  expiresAt: Date;
+}) {
   return db.transaction(async (tx) => {
     const row = await openInvitationInLab(tx, input.labId, input.invitationId);
     const now = new Date();
@@ -85,7 +126,12 @@ export async function renewInvitation(input: { labId: number; invitationId: numb
       action: "invitation.resent",
       targetType: "invitation",
       targetId: row.id,
-      detail: { email: row.email, role: row.role, before: { expiresAt: row.expiresAt.toISOString() }, after: { expiresAt: input.expiresAt.toISOString() } },
+      detail: {
+        email: row.email,
+        role: row.role,
+        before: { expiresAt: row.expiresAt.toISOString() },
+        after: { expiresAt: input.expiresAt.toISOString() },
+      },
     });
     return { id: row.id, email: row.email, role: row.role, expiresAt: input.expiresAt, lastSentAt: now };
   });
@@ -94,8 +140,19 @@ export async function renewInvitation(input: { labId: number; invitationId: numb
 export async function revokeInvitation(input: { labId: number; invitationId: number; actorUserId: number }) {
   return db.transaction(async (tx) => {
     const row = await openInvitationInLab(tx, input.labId, input.invitationId);
-    await tx.update(invitations).set({ revokedAt: new Date() }).where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
-    await recordAudit({ tx, labId: input.labId, actorUserId: input.actorUserId, action: "invitation.revoked", targetType: "invitation", targetId: row.id, detail: { email: row.email, role: row.role } });
+    await tx
+      .update(invitations)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
+    await recordAudit({
+      tx,
+      labId: input.labId,
+      actorUserId: input.actorUserId,
+      action: "invitation.revoked",
+      targetType: "invitation",
+      targetId: row.id,
+      detail: { email: row.email, role: row.role },
+    });
     return { id: row.id, email: row.email };
   });
 }
@@ -119,7 +176,11 @@ export async function findInvitationByTokenHash({ tokenHash }: { tokenHash: stri
     .where(eq(invitations.tokenHash, tokenHash));
   if (!row) return null;
   const [account] = await db.select({ id: users.id }).from(users).where(eq(users.email, row.email));
-  return { ...row, state: linkState({ expiresAt: row.expiresAt, usedAt: row.acceptedAt, revokedAt: row.revokedAt }), hasAccount: Boolean(account) };
+  return {
+    ...row,
+    state: linkState({ expiresAt: row.expiresAt, usedAt: row.acceptedAt, revokedAt: row.revokedAt }),
+    hasAccount: Boolean(account),
+  };
 }
 
 const LINK_PROBLEM = {
@@ -134,19 +195,31 @@ type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId:
 export async function acceptInvitation(input: { tokenHash: string } & Joiner) {
   return db.transaction(async (tx) => {
     const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, input.tokenHash)).for("update");
-    if (!inv) throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");
+    if (!inv)
+      throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");
     const state = linkState({ expiresAt: inv.expiresAt, usedAt: inv.acceptedAt, revokedAt: inv.revokedAt });
     if (state !== "valid") throw new AppError("conflict", LINK_PROBLEM[state]);
 
     let userId: number;
     if ("newAccount" in input) {
       const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email));
-      if (existing) throw new AppError("conflict", `An account already uses ${inv.email}. Sign in with it to accept the invitation.`);
-      const [created] = await tx.insert(users).values({ email: inv.email, name: input.newAccount.name, passwordHash: input.newAccount.passwordHash }).$returningId();
+      if (existing)
+        throw new AppError(
+          "conflict",
+          `An account already uses ${inv.email}. Sign in with it to accept the invitation.`,
+        );
+      const [created] = await tx
+        .insert(users)
+        .values({ email: inv.email, name: input.newAccount.name, passwordHash: input.newAccount.passwordHash })
+        .$returningId();
       userId = created!.id;
     } else {
-      const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, input.userId));
-      if (!user || user.email !== inv.email) throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
+      const [user] = await tx
+        .select({ id: users.id, email: users.email })
+        .from(users)
+        .where(eq(users.id, input.userId));
+      if (!user || user.email !== inv.email)
+        throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
       userId = user.id;
     }
 
@@ -163,9 +236,20 @@ export async function acceptInvitation(input: { tokenHash: string } & Joiner) {
       action: "invitation.accepted",
       targetType: "invitation",
       targetId: inv.id,
-      detail: { email: inv.email, role: already ? already.role : inv.role, newAccount: "newAccount" in input, ...(already ? { alreadyMember: true } : {}) },
+      detail: {
+        email: inv.email,
+        role: already ? already.role : inv.role,
+        newAccount: "newAccount" in input,
+        ...(already ? { alreadyMember: true } : {}),
+      },
     });
     const [lab] = await tx.select({ slug: labs.slug, name: labs.name }).from(labs).where(eq(labs.id, inv.labId));
-    return { userId, email: inv.email, role: already ? already.role : inv.role, lab: lab!, alreadyMember: Boolean(already) };
+    return {
+      userId,
+      email: inv.email,
+      role: already ? already.role : inv.role,
+      lab: lab!,
+      alreadyMember: Boolean(already),
+    };
   });
 }

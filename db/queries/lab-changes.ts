@@ -20,16 +20,29 @@ export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveC
   const lab = await lockLab(tx, labId);
   const stock = await readStock(tx, labId);
   const rows = await tx
-    .select({ id: charts.id, definition: charts.definition, liveFingerprint: charts.liveFingerprint, logoSha256: logos.sha256 })
+    .select({
+      id: charts.id,
+      definition: charts.definition,
+      liveFingerprint: charts.liveFingerprint,
+      logoSha256: logos.sha256,
+    })
     .from(charts)
     .leftJoin(logos, eq(logos.id, charts.logoId))
     .where(eq(charts.labId, labId));
   const changed: LiveChange[] = [];
   for (const row of rows) {
-    const snapshot = buildSnapshot({ labName: lab.name, definition: parseStoredDefinition(row.definition), stock, logoSha256: row.logoSha256 ?? null });
+    const snapshot = buildSnapshot({
+      labName: lab.name,
+      definition: parseStoredDefinition(row.definition),
+      stock,
+      logoSha256: row.logoSha256 ?? null,
+    });
     const fingerprint = fingerprintOf(snapshot);
     if (fingerprint === row.liveFingerprint) continue;
-    await tx.update(charts).set({ liveFingerprint: fingerprint, liveSnapshot: snapshot, liveChangedAt: new Date() }).where(and(eq(charts.id, row.id), eq(charts.labId, labId)));
+    await tx
+      .update(charts)
+      .set({ liveFingerprint: fingerprint, liveSnapshot: snapshot, liveChangedAt: new Date() })
+      .where(and(eq(charts.id, row.id), eq(charts.labId, labId)));
     changed.push({ chartId: row.id, before: row.liveFingerprint, after: fingerprint });
   }
   return changed;

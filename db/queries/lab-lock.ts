@@ -10,7 +10,11 @@ import type { Tx } from "./audit";
  * it reads next is what the previous writer committed (on any app instance).
  */
 export async function lockLab(tx: Tx, labId: number): Promise<{ name: string; stockRevision: number }> {
-  const [row] = await tx.select({ name: labs.name, stockRevision: labs.stockRevision }).from(labs).where(eq(labs.id, labId)).for("update");
+  const [row] = await tx
+    .select({ name: labs.name, stockRevision: labs.stockRevision })
+    .from(labs)
+    .where(eq(labs.id, labId))
+    .for("update");
   if (!row) throw notFound("Lab");
   return row;
 }

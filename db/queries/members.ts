@@ -13,7 +13,10 @@ export async function findUserByEmail({ email }: { email: string }) {
 }
 
 export async function findUserById({ id }: { id: number }) {
-  const [row] = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(eq(users.id, id));
+  const [row] = await db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(eq(users.id, id));
   return row ?? null;
 }
 
@@ -30,7 +33,13 @@ export async function listLabsForUser({ userId }: { userId: number }) {
 /** A lab, by slug or id, with the person's role in it; the role is null when they are not a member. */
 export async function findLabWithRole({ userId, ...lab }: { userId: number } & ({ slug: string } | { labId: number })) {
   const [row] = await db
-    .select({ id: labs.id, slug: labs.slug, name: labs.name, stockRevision: labs.stockRevision, role: memberships.role })
+    .select({
+      id: labs.id,
+      slug: labs.slug,
+      name: labs.name,
+      stockRevision: labs.stockRevision,
+      role: memberships.role,
+    })
     .from(labs)
     .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
     .where("slug" in lab ? eq(labs.slug, lab.slug) : eq(labs.id, lab.labId));
@@ -58,7 +67,13 @@ export async function listMembers({ labId }: { labId: number }) {
 
 async function memberInLab(tx: Tx, labId: number, membershipId: number) {
   const [row] = await tx
-    .select({ id: memberships.id, userId: memberships.userId, role: memberships.role, name: users.name, email: users.email })
+    .select({
+      id: memberships.id,
+      userId: memberships.userId,
+      role: memberships.role,
+      name: users.name,
+      email: users.email,
+    })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
@@ -75,17 +90,33 @@ async function managerCount(tx: Tx, labId: number): Promise<number> {
 }
 
 const lastManager = (name: string, doing: string) =>
-  new AppError("conflict", `${name} is the lab's only manager and cannot be ${doing}. Make another member a manager first.`, [
-    { path: ["role"], message: "A lab keeps at least one manager." },
-  ]);
+  new AppError(
+    "conflict",
+    `${name} is the lab's only manager and cannot be ${doing}. Make another member a manager first.`,
+    [{ path: ["role"], message: "A lab keeps at least one manager." }],
+  );
 
-export async function changeMemberRole({ labId, membershipId, role, actorUserId }: { labId: number; membershipId: number; role: Role; actorUserId: number }) {
+export async function changeMemberRole({
+  labId,
+  membershipId,
+  role,
+  actorUserId,
+}: {
+  labId: number;
+  membershipId: number;
+  role: Role;
+  actorUserId: number;
+}) {
   return db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const member = await memberInLab(tx, labId, membershipId);
     if (member.role === role) return { ...member, changed: false };
-    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "given another role");
-    await tx.update(memberships).set({ role }).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1)
+      throw lastManager(member.name, "given another role");
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
     await recordAudit({
       tx,
       labId,
@@ -99,7 +130,15 @@ export async function changeMemberRole({ labId, membershipId, role, actorUserId 
   });
 }
 
-export async function removeMember({ labId, membershipId, actorUserId }: { labId: number; membershipId: number; actorUserId: number }) {
+export async function removeMember({
+  labId,
+  membershipId,
+  actorUserId,
+}: {
+  labId: number;
+  membershipId: number;
+  actorUserId: number;
+}) {
   return db.transaction(async (tx) => {
     await lockLab(tx, labId);
     const member = await memberInLab(tx, labId, membershipId);
@@ -120,13 +159,26 @@ export async function removeMember({ labId, membershipId, actorUserId }: { labId
 
 /** Whether this member gets the stale-copy e-mail (managers always do; educators may opt in). */
 export async function getStaleMailSetting({ labId, userId }: { labId: number; userId: number }) {
-  const [row] = await db.select({ notifyStale: memberships.notifyStale }).from(memberships).where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
+  const [row] = await db
+    .select({ notifyStale: memberships.notifyStale })
+    .from(memberships)
+    .where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
   return row?.notifyStale ?? false;
 }
 
 export async function setStaleMailSetting({ labId, userId, on }: { labId: number; userId: number; on: boolean }) {
   await db.transaction(async (tx) => {
-    await tx.update(memberships).set({ notifyStale: on }).where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
-    await recordAudit({ tx, labId, actorUserId: userId, action: on ? "member.stale_mail_on" : "member.stale_mail_off", targetType: "user", targetId: userId });
+    await tx
+      .update(memberships)
+      .set({ notifyStale: on })
+      .where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: userId,
+      action: on ? "member.stale_mail_on" : "member.stale_mail_off",
+      targetType: "user",
+      targetId: userId,
+    });
   });
 }

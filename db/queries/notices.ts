@@ -15,11 +15,17 @@ import { readHangingCopies } from "./hanging-copies";
  * every hanging copy's status, stores it, and when copies newly went stale records ONE notice
  * for this change (its key is unique per lab, so a change never mails twice).
  */
-export async function reconcilePostings(tx: Tx, { labId, changeKey, cause }: { labId: number; changeKey: string; cause: string }) {
+export async function reconcilePostings(
+  tx: Tx,
+  { labId, changeKey, cause }: { labId: number; changeKey: string; cause: string },
+) {
   const newlyStale: StaleItem[] = [];
   for (const copy of await readHangingCopies(tx, labId)) {
     if (copy.status === copy.lastStatus) continue;
-    await tx.update(postings).set({ lastStatus: copy.status }).where(and(eq(postings.id, copy.postingId), eq(postings.labId, labId)));
+    await tx
+      .update(postings)
+      .set({ lastStatus: copy.status })
+      .where(and(eq(postings.id, copy.postingId), eq(postings.labId, labId)));
     if (STALE.includes(copy.status) && !STALE.includes(copy.lastStatus)) {
       newlyStale.push({
         room: copy.room,
@@ -41,14 +47,24 @@ export async function reconcilePostings(tx: Tx, { labId, changeKey, cause }: { l
 }
 
 /** Status a new posting starts from, so hanging an already stale copy does not mail anyone. */
-export async function initialPostingStatus(tx: Tx, { labId, editionId }: { labId: number; editionId: number }): Promise<CheckStatus> {
+export async function initialPostingStatus(
+  tx: Tx,
+  { labId, editionId }: { labId: number; editionId: number },
+): Promise<CheckStatus> {
   const [r] = await tx
-    .select({ edition: editions, chart: { liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot } })
+    .select({
+      edition: editions,
+      chart: { liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot },
+    })
     .from(editions)
     .innerJoin(charts, eq(charts.id, editions.chartId))
     .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
   if (!r) return "current";
-  return checkEdition({ ...r.edition, snapshot: r.edition.snapshot as Snapshot }, { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null }, null).status;
+  return checkEdition(
+    { ...r.edition, snapshot: r.edition.snapshot as Snapshot },
+    { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null },
+    null,
+  ).status;
 }
 
 /**
@@ -57,13 +73,21 @@ export async function initialPostingStatus(tx: Tx, { labId, editionId }: { labId
  * released for the next change (or the next call) to retry.
  */
 export async function deliverPendingNotices({ labId }: { labId: number }): Promise<number> {
-  const pending = await db.select().from(staleNotices).where(and(eq(staleNotices.labId, labId), isNull(staleNotices.sentAt)));
+  const pending = await db
+    .select()
+    .from(staleNotices)
+    .where(and(eq(staleNotices.labId, labId), isNull(staleNotices.sentAt)));
   if (pending.length === 0) return 0;
   const recipients = await db
     .select({ email: users.email })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.labId, labId), or(eq(memberships.role, "manager"), and(eq(memberships.role, "educator"), eq(memberships.notifyStale, true)))));
+    .where(
+      and(
+        eq(memberships.labId, labId),
+        or(eq(memberships.role, "manager"), and(eq(memberships.role, "educator"), eq(memberships.notifyStale, true))),
+      ),
+    );
   let sent = 0;
   for (const notice of pending) {
     const [claim] = await db

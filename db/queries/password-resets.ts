@@ -6,17 +6,38 @@ import { db } from "../index";
 import { passwordResets, users } from "../schema";
 import { recordAudit } from "./audit";
 
-export async function createPasswordReset({ userId, tokenHash, expiresAt }: { userId: number; tokenHash: string; expiresAt: Date }) {
+export async function createPasswordReset({
+  userId,
+  tokenHash,
+  expiresAt,
+}: {
+  userId: number;
+  tokenHash: string;
+  expiresAt: Date;
+}) {
   return db.transaction(async (tx) => {
     const [row] = await tx.insert(passwordResets).values({ userId, tokenHash, expiresAt }).$returningId();
-    await recordAudit({ tx, labId: null, actorUserId: null, action: "password_reset.requested", targetType: "user", targetId: userId, detail: { expiresAt: expiresAt.toISOString() } });
+    await recordAudit({
+      tx,
+      labId: null,
+      actorUserId: null,
+      action: "password_reset.requested",
+      targetType: "user",
+      targetId: userId,
+      detail: { expiresAt: expiresAt.toISOString() },
+    });
     return { id: row!.id };
   });
 }
 
 export async function findPasswordReset({ tokenHash }: { tokenHash: string }) {
   const [row] = await db
-    .select({ id: passwordResets.id, expiresAt: passwordResets.expiresAt, usedAt: passwordResets.usedAt, email: users.email })
+    .select({
+      id: passwordResets.id,
+      expiresAt: passwordResets.expiresAt,
+      usedAt: passwordResets.usedAt,
+      email: users.email,
+    })
     .from(passwordResets)
     .innerJoin(users, eq(users.id, passwordResets.userId))
     .where(eq(passwordResets.tokenHash, tokenHash));
@@ -33,13 +54,27 @@ const PROBLEM = {
 export async function completePasswordReset({ tokenHash, passwordHash }: { tokenHash: string; passwordHash: string }) {
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for("update");
-    if (!row) throw new AppError("not_found", "This reset link is not valid. Check that you copied the whole link, or ask for a new one.");
+    if (!row)
+      throw new AppError(
+        "not_found",
+        "This reset link is not valid. Check that you copied the whole link, or ask for a new one.",
+      );
     const state = linkState(row);
     if (state !== "valid") throw new AppError("conflict", PROBLEM[state]);
     const now = new Date();
     await tx.update(users).set({ passwordHash }).where(eq(users.id, row.userId));
-    await tx.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
-    await recordAudit({ tx, labId: null, actorUserId: row.userId, action: "password_reset.completed", targetType: "user", targetId: row.userId });
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
+    await recordAudit({
+      tx,
+      labId: null,
+      actorUserId: row.userId,
+      action: "password_reset.completed",
+      targetType: "user",
+      targetId: row.userId,
+    });
     const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, row.userId));
     return user!;
   });

@@ -15,7 +15,17 @@ import { getEdition } from "./editions";
  * the bytes (snapshot fingerprint, state, approval, check URL, renderer version), so a second
  * download, on any app instance, does not render again.
  */
-export async function getPosterPdf({ labId, editionId, appUrl, actorUserId }: { labId: number; editionId: number; appUrl: string; actorUserId: number }) {
+export async function getPosterPdf({
+  labId,
+  editionId,
+  appUrl,
+  actorUserId,
+}: {
+  labId: number;
+  editionId: number;
+  appUrl: string;
+  actorUserId: number;
+}) {
   const ed = await getEdition({ labId, editionId });
   if (!ed) throw notFound("Edition");
   const edition = {
@@ -26,17 +36,32 @@ export async function getPosterPdf({ labId, editionId, appUrl, actorUserId }: { 
     fingerprint: ed.fingerprint,
     checkUrl: editionUrls(appUrl, ed).checkUrl,
   };
-  const renderKey = fingerprintOf({ renderer: POSTER_RENDERER_VERSION, ...edition, approvedAt: edition.approvedAt?.toISOString() ?? null });
-  const [hit] = await db.select({ pdf: posterRenders.pdf }).from(posterRenders).where(eq(posterRenders.renderKey, renderKey));
+  const renderKey = fingerprintOf({
+    renderer: POSTER_RENDERER_VERSION,
+    ...edition,
+    approvedAt: edition.approvedAt?.toISOString() ?? null,
+  });
+  const [hit] = await db
+    .select({ pdf: posterRenders.pdf })
+    .from(posterRenders)
+    .where(eq(posterRenders.renderKey, renderKey));
   let pdf = hit?.pdf;
   if (!pdf) {
     const logoRow = ed.snapshot.logoSha256
-      ? (await db.select({ bytes: logos.bytes, mime: logos.mime }).from(logos).where(and(eq(logos.labId, labId), eq(logos.sha256, ed.snapshot.logoSha256))))[0]
+      ? (
+          await db
+            .select({ bytes: logos.bytes, mime: logos.mime })
+            .from(logos)
+            .where(and(eq(logos.labId, labId), eq(logos.sha256, ed.snapshot.logoSha256)))
+        )[0]
       : undefined;
     const logo = logoRow ? { bytes: logoRow.bytes, mime: logoRow.mime as "image/png" | "image/jpeg" } : null;
     pdf = await renderPosterPdf({ snapshot: ed.snapshot, edition, logo });
     // Two instances may render at once; the first row wins and both bytes are identical.
-    await db.insert(posterRenders).values({ editionId: ed.id, renderKey, pdf }).onDuplicateKeyUpdate({ set: { renderKey } });
+    await db
+      .insert(posterRenders)
+      .values({ editionId: ed.id, renderKey, pdf })
+      .onDuplicateKeyUpdate({ set: { renderKey } });
   }
   await recordAudit({
     labId,
@@ -46,7 +71,11 @@ export async function getPosterPdf({ labId, editionId, appUrl, actorUserId }: { 
     targetId: ed.id,
     detail: { number: ed.number, status: ed.status, cached: Boolean(hit) },
   });
-  return { pdf, fileName: `${slugify(ed.chartTitle)}-edition-${ed.number}${ed.status === "draft" ? "-DRAFT" : ""}.pdf`, cached: Boolean(hit) };
+  return {
+    pdf,
+    fileName: `${slugify(ed.chartTitle)}-edition-${ed.number}${ed.status === "draft" ? "-DRAFT" : ""}.pdf`,
+    cached: Boolean(hit),
+  };
 }
 
 const slugify = (s: string) =>

@@ -11,75 +11,192 @@ import { initialPostingStatus } from "./notices";
 type Actor = { id: number };
 
 export async function listRooms({ labId }: { labId: number }) {
-  return db.select().from(rooms).where(and(eq(rooms.labId, labId), isNull(rooms.archivedAt))).orderBy(asc(rooms.name));
+  return db
+    .select()
+    .from(rooms)
+    .where(and(eq(rooms.labId, labId), isNull(rooms.archivedAt)))
+    .orderBy(asc(rooms.name));
 }
 
 export async function createRoom({ labId, name, actor }: { labId: number; name: string; actor: Actor }) {
   return db.transaction(async (tx) => {
-    const [dupe] = await tx.select({ id: rooms.id, archivedAt: rooms.archivedAt }).from(rooms).where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
-    if (dupe && !dupe.archivedAt) throw new AppError("conflict", `There is already a room called "${name}".`, [{ path: ["name"], message: "Already exists" }]);
+    const [dupe] = await tx
+      .select({ id: rooms.id, archivedAt: rooms.archivedAt })
+      .from(rooms)
+      .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
+    if (dupe && !dupe.archivedAt)
+      throw new AppError("conflict", `There is already a room called "${name}".`, [
+        { path: ["name"], message: "Already exists" },
+      ]);
     let id: number;
     if (dupe) {
-      await tx.update(rooms).set({ archivedAt: null }).where(and(eq(rooms.id, dupe.id), eq(rooms.labId, labId)));
+      await tx
+        .update(rooms)
+        .set({ archivedAt: null })
+        .where(and(eq(rooms.id, dupe.id), eq(rooms.labId, labId)));
       id = dupe.id;
     } else {
       const [row] = await tx.insert(rooms).values({ labId, name }).$returningId();
       id = row!.id;
     }
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "room.created", targetType: "room", targetId: id, detail: { after: { name } } });
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "room.created",
+      targetType: "room",
+      targetId: id,
+      detail: { after: { name } },
+    });
     return { id };
   });
 }
 
-export async function renameRoom({ labId, roomId, name, actor }: { labId: number; roomId: number; name: string; actor: Actor }) {
+export async function renameRoom({
+  labId,
+  roomId,
+  name,
+  actor,
+}: {
+  labId: number;
+  roomId: number;
+  name: string;
+  actor: Actor;
+}) {
   return db.transaction(async (tx) => {
-    const [room] = await tx.select().from(rooms).where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+    const [room] = await tx
+      .select()
+      .from(rooms)
+      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
     if (!room) throw notFound("Room");
-    const [dupe] = await tx.select({ id: rooms.id }).from(rooms).where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
-    if (dupe && dupe.id !== roomId) throw new AppError("conflict", `There is already a room called "${name}".`, [{ path: ["name"], message: "Already exists" }]);
-    await tx.update(rooms).set({ name }).where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "room.renamed", targetType: "room", targetId: roomId, detail: { before: { name: room.name }, after: { name } } });
+    const [dupe] = await tx
+      .select({ id: rooms.id })
+      .from(rooms)
+      .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
+    if (dupe && dupe.id !== roomId)
+      throw new AppError("conflict", `There is already a room called "${name}".`, [
+        { path: ["name"], message: "Already exists" },
+      ]);
+    await tx
+      .update(rooms)
+      .set({ name })
+      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "room.renamed",
+      targetType: "room",
+      targetId: roomId,
+      detail: { before: { name: room.name }, after: { name } },
+    });
   });
 }
 
 /** A room is archived, not deleted, so past postings keep their place in the audit log. */
 export async function archiveRoom({ labId, roomId, actor }: { labId: number; roomId: number; actor: Actor }) {
   return db.transaction(async (tx) => {
-    const [room] = await tx.select().from(rooms).where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+    const [room] = await tx
+      .select()
+      .from(rooms)
+      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
     if (!room) throw notFound("Room");
-    const [hanging] = await tx.select({ id: postings.id }).from(postings).where(and(eq(postings.roomId, roomId), isNull(postings.removedAt))).limit(1);
+    const [hanging] = await tx
+      .select({ id: postings.id })
+      .from(postings)
+      .where(and(eq(postings.roomId, roomId), isNull(postings.removedAt)))
+      .limit(1);
     if (hanging) throw new AppError("conflict", `Take down the printouts in "${room.name}" before removing the room.`);
-    await tx.update(rooms).set({ archivedAt: new Date() }).where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "room.archived", targetType: "room", targetId: roomId, detail: { before: { name: room.name } } });
+    await tx
+      .update(rooms)
+      .set({ archivedAt: new Date() })
+      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "room.archived",
+      targetType: "room",
+      targetId: roomId,
+      detail: { before: { name: room.name } },
+    });
   });
 }
 
 /** "This copy hangs in ...": only an approved edition may be recorded on a wall. */
-export async function recordPosting({ labId, editionId, roomId, actor }: { labId: number; editionId: number; roomId: number; actor: Actor }) {
+export async function recordPosting({
+  labId,
+  editionId,
+  roomId,
+  actor,
+}: {
+  labId: number;
+  editionId: number;
+  roomId: number;
+  actor: Actor;
+}) {
   return db.transaction(async (tx) => {
-    const [ed] = await tx.select({ id: editions.id, number: editions.number, status: editions.status }).from(editions).where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
+    const [ed] = await tx
+      .select({ id: editions.id, number: editions.number, status: editions.status })
+      .from(editions)
+      .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
     if (!ed) throw notFound("Edition");
-    if (ed.status !== "approved") throw new AppError("conflict", `Edition ${ed.number} is ${ed.status}; only an approved edition may hang on a wall.`);
-    const [room] = await tx.select({ id: rooms.id, name: rooms.name }).from(rooms).where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
-    if (!room) throw new AppError("invalid_input", "Choose one of this lab's rooms.", [{ path: ["roomId"], message: "No such room in this lab" }]);
+    if (ed.status !== "approved")
+      throw new AppError(
+        "conflict",
+        `Edition ${ed.number} is ${ed.status}; only an approved edition may hang on a wall.`,
+      );
+    const [room] = await tx
+      .select({ id: rooms.id, name: rooms.name })
+      .from(rooms)
+      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+    if (!room)
+      throw new AppError("invalid_input", "Choose one of this lab's rooms.", [
+        { path: ["roomId"], message: "No such room in this lab" },
+      ]);
     const [already] = await tx
       .select({ id: postings.id })
       .from(postings)
       .where(and(eq(postings.editionId, editionId), eq(postings.roomId, roomId), isNull(postings.removedAt)));
     if (already) return { id: already.id, created: false };
     const lastStatus = await initialPostingStatus(tx, { labId, editionId });
-    const [row] = await tx.insert(postings).values({ labId, editionId, roomId, postedBy: actor.id, lastStatus }).$returningId();
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "posting.created", targetType: "posting", targetId: row!.id, detail: { edition: ed.number, room: room.name } });
+    const [row] = await tx
+      .insert(postings)
+      .values({ labId, editionId, roomId, postedBy: actor.id, lastStatus })
+      .$returningId();
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "posting.created",
+      targetType: "posting",
+      targetId: row!.id,
+      detail: { edition: ed.number, room: room.name },
+    });
     return { id: row!.id, created: true };
   });
 }
 
 export async function takeDownPosting({ labId, postingId, actor }: { labId: number; postingId: number; actor: Actor }) {
   return db.transaction(async (tx) => {
-    const [p] = await tx.select().from(postings).where(and(eq(postings.id, postingId), eq(postings.labId, labId), isNull(postings.removedAt)));
+    const [p] = await tx
+      .select()
+      .from(postings)
+      .where(and(eq(postings.id, postingId), eq(postings.labId, labId), isNull(postings.removedAt)));
     if (!p) throw notFound("Posting");
-    await tx.update(postings).set({ removedAt: new Date(), removedBy: actor.id }).where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
-    await recordAudit({ tx, labId, actorUserId: actor.id, action: "posting.removed", targetType: "posting", targetId: postingId, detail: { editionId: p.editionId, roomId: p.roomId } });
+    await tx
+      .update(postings)
+      .set({ removedAt: new Date(), removedBy: actor.id })
+      .where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
+    await recordAudit({
+      tx,
+      labId,
+      actorUserId: actor.id,
+      action: "posting.removed",
+      targetType: "posting",
+      targetId: postingId,
+      detail: { editionId: p.editionId, roomId: p.roomId },
+    });
   });
 }
 
@@ -104,20 +221,18 @@ export async function roomBoard({ labId }: { labId: number }): Promise<BoardRoom
   const board = roomRows.map((room): BoardRoom => {
     const mine = copies
       .filter((c) => c.roomId === room.id)
-      .map(
-        (c): BoardPosting => ({
-          postingId: c.postingId,
-          postedAt: c.postedAt,
-          postedByName: c.postedByName,
-          editionId: c.edition.id,
-          editionNumber: c.edition.number,
-          chartId: c.chart.id,
-          chartTitle: c.chart.title,
-          status: c.status,
-          changes: c.changes,
-          currentEdition: c.current,
-        }),
-      )
+      .map((c): BoardPosting => ({
+        postingId: c.postingId,
+        postedAt: c.postedAt,
+        postedByName: c.postedByName,
+        editionId: c.edition.id,
+        editionNumber: c.edition.number,
+        chartId: c.chart.id,
+        chartTitle: c.chart.title,
+        status: c.status,
+        changes: c.changes,
+        currentEdition: c.current,
+      }))
       .sort((a, b) => Number(stale(b)) - Number(stale(a)));
     return { id: room.id, name: room.name, postings: mine, stale: mine.filter(stale).length };
   });

@@ -9,7 +9,9 @@ type Reader = Tx | Database;
 
 export async function readFamilies(reader: Reader, labId: number, ids?: number[]): Promise<BalloonFamilyView[]> {
   if (ids && ids.length === 0) return [];
-  const famWhere = ids ? and(eq(balloonFamilies.labId, labId), inArray(balloonFamilies.id, ids)) : eq(balloonFamilies.labId, labId);
+  const famWhere = ids
+    ? and(eq(balloonFamilies.labId, labId), inArray(balloonFamilies.id, ids))
+    : eq(balloonFamilies.labId, labId);
   const balWhere = ids ? and(eq(balloons.labId, labId), inArray(balloons.familyId, ids)) : eq(balloons.labId, labId);
   const [fams, bals] = await Promise.all([
     reader.select().from(balloonFamilies).where(famWhere).orderBy(asc(balloonFamilies.name), asc(balloonFamilies.id)),
@@ -22,14 +24,20 @@ export async function readFamilies(reader: Reader, labId: number, ids?: number[]
     nominalAtm: f.nominalAtm,
     rbpAtm: f.rbpAtm,
     growthAtRbpMm: f.growthAtRbpMm ?? null,
-    balloons: bals.filter((b) => b.familyId === f.id).map((b) => ({ id: b.id, diameterMm: b.diameterMm, inStock: b.inStock })),
+    balloons: bals
+      .filter((b) => b.familyId === f.id)
+      .map((b) => ({ id: b.id, diameterMm: b.diameterMm, inStock: b.inStock })),
   }));
 }
 
 export async function readPlatforms(reader: Reader, labId: number, ids?: number[]): Promise<StentPlatformView[]> {
   if (ids && ids.length === 0) return [];
-  const platWhere = ids ? and(eq(stentPlatforms.labId, labId), inArray(stentPlatforms.id, ids)) : eq(stentPlatforms.labId, labId);
-  const sizeWhere = ids ? and(eq(stentSizes.labId, labId), inArray(stentSizes.platformId, ids)) : eq(stentSizes.labId, labId);
+  const platWhere = ids
+    ? and(eq(stentPlatforms.labId, labId), inArray(stentPlatforms.id, ids))
+    : eq(stentPlatforms.labId, labId);
+  const sizeWhere = ids
+    ? and(eq(stentSizes.labId, labId), inArray(stentSizes.platformId, ids))
+    : eq(stentSizes.labId, labId);
   const [plats, sizes] = await Promise.all([
     reader.select().from(stentPlatforms).where(platWhere).orderBy(asc(stentPlatforms.name), asc(stentPlatforms.id)),
     reader.select().from(stentSizes).where(sizeWhere).orderBy(asc(stentSizes.nominalMm)),
@@ -37,7 +45,9 @@ export async function readPlatforms(reader: Reader, labId: number, ids?: number[
   return plats.map((p) => ({
     id: p.id,
     name: p.name,
-    sizes: sizes.filter((s) => s.platformId === p.id).map((s) => ({ id: s.id, nominalMm: s.nominalMm, maxPostDilatationMm: s.maxPostDilatationMm })),
+    sizes: sizes
+      .filter((s) => s.platformId === p.id)
+      .map((s) => ({ id: s.id, nominalMm: s.nominalMm, maxPostDilatationMm: s.maxPostDilatationMm })),
   }));
 }
 

@@ -57,7 +57,15 @@ export async function getStock({ labId }: { labId: number }): Promise<StockView>
 }
 
 /** Stock audit events, newest first, with who made them. */
-export async function listStockHistory({ labId, before, limit = 30 }: { labId: number; before?: number; limit?: number }) {
+export async function listStockHistory({
+  labId,
+  before,
+  limit = 30,
+}: {
+  labId: number;
+  before?: number;
+  limit?: number;
+}) {
   const scope = and(eq(auditEvents.labId, labId), like(auditEvents.action, "stock.%"));
   return db
     .select({
@@ -95,15 +103,30 @@ async function stockWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise
     await deliverPendingNotices({ labId });
     return result;
   } catch (err) {
-    if (isDuplicateKey(err)) throw new AppError("conflict", "That would duplicate a name or size this lab already has. Reload the stock and try again.");
+    if (isDuplicateKey(err))
+      throw new AppError(
+        "conflict",
+        "That would duplicate a name or size this lab already has. Reload the stock and try again.",
+      );
     throw err;
   }
 }
 
-type Committed = { action: string; targetType: string; targetId: number; summary: string; before: unknown; after: unknown };
+type Committed = {
+  action: string;
+  targetType: string;
+  targetId: number;
+  summary: string;
+  before: unknown;
+  after: unknown;
+};
 
 async function commit(tx: Tx, actor: Actor, change: Committed): Promise<number> {
-  const revision = await afterStockChange(tx, { labId: actor.labId, actorUserId: actor.actorUserId, summary: change.summary });
+  const revision = await afterStockChange(tx, {
+    labId: actor.labId,
+    actorUserId: actor.actorUserId,
+    summary: change.summary,
+  });
   await recordAudit({
     tx,
     labId: actor.labId,
@@ -140,9 +163,16 @@ async function findFamily(tx: Tx, labId: number, familyId: number): Promise<Ball
 }
 
 async function assertFamilyNameFree(tx: Tx, labId: number, name: string, exceptId?: number) {
-  const where = and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.name, name), exceptId ? ne(balloonFamilies.id, exceptId) : undefined);
+  const where = and(
+    eq(balloonFamilies.labId, labId),
+    eq(balloonFamilies.name, name),
+    exceptId ? ne(balloonFamilies.id, exceptId) : undefined,
+  );
   const [clash] = await tx.select({ name: balloonFamilies.name }).from(balloonFamilies).where(where);
-  if (clash) throw new AppError("conflict", `This lab already has a balloon family named "${clash.name}".`, [{ path: ["name"], message: "A family with this name already exists." }]);
+  if (clash)
+    throw new AppError("conflict", `This lab already has a balloon family named "${clash.name}".`, [
+      { path: ["name"], message: "A family with this name already exists." },
+    ]);
 }
 
 export async function createBalloonFamily({ labId, actorUserId, input }: Actor & { input: BalloonFamilyInput }) {
@@ -154,26 +184,54 @@ export async function createBalloonFamily({ labId, actorUserId, input }: Actor &
       .values({ labId, ...values })
       .$returningId();
     const family = await findFamily(tx, labId, row!.id);
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.family.create", targetType: "balloon_family", targetId: family.id, summary: `Added balloon family ${family.name}`, before: null, after: familyValues(family) });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.family.create",
+        targetType: "balloon_family",
+        targetId: family.id,
+        summary: `Added balloon family ${family.name}`,
+        before: null,
+        after: familyValues(family),
+      },
+    );
     return { revision, family };
   });
 }
 
-export async function updateBalloonFamily({ labId, actorUserId, familyId, patch }: Actor & { familyId: number; patch: BalloonFamilyPatch }) {
+export async function updateBalloonFamily({
+  labId,
+  actorUserId,
+  familyId,
+  patch,
+}: Actor & { familyId: number; patch: BalloonFamilyPatch }) {
   return stockWrite(labId, async (tx) => {
     const current = await findFamily(tx, labId, familyId);
     const before = familyValues(current);
     const merged = balloonFamilyInput.safeParse({ ...before, ...patch });
     if (!merged.success) throw invalidInput(merged.error.issues);
     const after = familyValues({ ...merged.data, growthAtRbpMm: merged.data.growthAtRbpMm ?? null });
-    if (sameValues(before, after)) return { revision: await currentRevision(tx, labId), family: current, changed: false };
+    if (sameValues(before, after))
+      return { revision: await currentRevision(tx, labId), family: current, changed: false };
     if (after.name !== before.name) await assertFamilyNameFree(tx, labId, after.name, familyId);
     await tx
       .update(balloonFamilies)
       .set(after)
       .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
     const family = await findFamily(tx, labId, familyId);
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.family.update", targetType: "balloon_family", targetId: familyId, summary: `Changed balloon family ${after.name}`, before, after: familyValues(family) });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.family.update",
+        targetType: "balloon_family",
+        targetId: familyId,
+        summary: `Changed balloon family ${after.name}`,
+        before,
+        after: familyValues(family),
+      },
+    );
     return { revision, family, changed: true };
   });
 }
@@ -183,8 +241,22 @@ export async function deleteBalloonFamily({ labId, actorUserId, familyId }: Acto
     const current = await findFamily(tx, labId, familyId);
     await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.familyId, familyId)));
     await tx.delete(balloonFamilies).where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
-    const before = { ...familyValues(current), balloons: current.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })) };
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.family.delete", targetType: "balloon_family", targetId: familyId, summary: `Deleted balloon family ${current.name} and its ${current.balloons.length} sizes`, before, after: null });
+    const before = {
+      ...familyValues(current),
+      balloons: current.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
+    };
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.family.delete",
+        targetType: "balloon_family",
+        targetId: familyId,
+        summary: `Deleted balloon family ${current.name} and its ${current.balloons.length} sizes`,
+        before,
+        after: null,
+      },
+    );
     return { revision, deleted: { id: familyId } };
   });
 }
@@ -193,7 +265,13 @@ export async function deleteBalloonFamily({ labId, actorUserId, familyId }: Acto
 
 async function findBalloon(tx: Tx, labId: number, balloonId: number) {
   const [row] = await tx
-    .select({ id: balloons.id, familyId: balloons.familyId, family: balloonFamilies.name, diameterMm: balloons.diameterMm, inStock: balloons.inStock })
+    .select({
+      id: balloons.id,
+      familyId: balloons.familyId,
+      family: balloonFamilies.name,
+      diameterMm: balloons.diameterMm,
+      inStock: balloons.inStock,
+    })
     .from(balloons)
     .innerJoin(balloonFamilies, eq(balloonFamilies.id, balloons.familyId))
     .where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
@@ -202,38 +280,68 @@ async function findBalloon(tx: Tx, labId: number, balloonId: number) {
 }
 
 async function assertDiameterFree(tx: Tx, familyId: number, familyName: string, diameterMm: number, exceptId?: number) {
-  const where = and(eq(balloons.familyId, familyId), eq(balloons.diameterMm, diameterMm), exceptId ? ne(balloons.id, exceptId) : undefined);
+  const where = and(
+    eq(balloons.familyId, familyId),
+    eq(balloons.diameterMm, diameterMm),
+    exceptId ? ne(balloons.id, exceptId) : undefined,
+  );
   const [clash] = await tx.select({ id: balloons.id }).from(balloons).where(where);
-  if (clash) throw new AppError("conflict", `${familyName} already has a ${mm(diameterMm)} balloon.`, [{ path: ["diameterMm"], message: "This family already has this diameter." }]);
+  if (clash)
+    throw new AppError("conflict", `${familyName} already has a ${mm(diameterMm)} balloon.`, [
+      { path: ["diameterMm"], message: "This family already has this diameter." },
+    ]);
 }
 
-const balloonView = (b: { id: number; diameterMm: number; inStock: boolean }) => ({ id: b.id, diameterMm: b.diameterMm, inStock: b.inStock });
+const balloonView = (b: { id: number; diameterMm: number; inStock: boolean }) => ({
+  id: b.id,
+  diameterMm: b.diameterMm,
+  inStock: b.inStock,
+});
 
-export async function createBalloon({ labId, actorUserId, familyId, input }: Actor & { familyId: number; input: BalloonInput }) {
+export async function createBalloon({
+  labId,
+  actorUserId,
+  familyId,
+  input,
+}: Actor & { familyId: number; input: BalloonInput }) {
   return stockWrite(labId, async (tx) => {
     const family = await findFamily(tx, labId, familyId);
     await assertDiameterFree(tx, familyId, family.name, input.diameterMm);
-    const [row] = await tx.insert(balloons).values({ labId, familyId, diameterMm: input.diameterMm, inStock: input.inStock }).$returningId();
+    const [row] = await tx
+      .insert(balloons)
+      .values({ labId, familyId, diameterMm: input.diameterMm, inStock: input.inStock })
+      .$returningId();
     const balloon = await findBalloon(tx, labId, row!.id);
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.balloon.create",
-      targetType: "balloon",
-      targetId: balloon.id,
-      summary: `Added ${mm(balloon.diameterMm)} to ${family.name}${balloon.inStock ? "" : " (out of stock)"}`,
-      before: null,
-      after: { family: family.name, diameterMm: balloon.diameterMm, inStock: balloon.inStock },
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.balloon.create",
+        targetType: "balloon",
+        targetId: balloon.id,
+        summary: `Added ${mm(balloon.diameterMm)} to ${family.name}${balloon.inStock ? "" : " (out of stock)"}`,
+        before: null,
+        after: { family: family.name, diameterMm: balloon.diameterMm, inStock: balloon.inStock },
+      },
+    );
     return { revision, balloon: balloonView(balloon) };
   });
 }
 
-export async function updateBalloon({ labId, actorUserId, balloonId, patch }: Actor & { balloonId: number; patch: BalloonPatch }) {
+export async function updateBalloon({
+  labId,
+  actorUserId,
+  balloonId,
+  patch,
+}: Actor & { balloonId: number; patch: BalloonPatch }) {
   return stockWrite(labId, async (tx) => {
     const current = await findBalloon(tx, labId, balloonId);
     const before = { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock };
     const after = { ...before, ...patch };
-    if (sameValues(before, after)) return { revision: await currentRevision(tx, labId), balloon: balloonView(current), changed: false };
-    if (after.diameterMm !== before.diameterMm) await assertDiameterFree(tx, current.familyId, current.family, after.diameterMm, balloonId);
+    if (sameValues(before, after))
+      return { revision: await currentRevision(tx, labId), balloon: balloonView(current), changed: false };
+    if (after.diameterMm !== before.diameterMm)
+      await assertDiameterFree(tx, current.familyId, current.family, after.diameterMm, balloonId);
     await tx
       .update(balloons)
       .set({ diameterMm: after.diameterMm, inStock: after.inStock })
@@ -242,7 +350,11 @@ export async function updateBalloon({ labId, actorUserId, balloonId, patch }: Ac
       after.diameterMm === before.diameterMm
         ? `Marked ${current.family} ${mm(current.diameterMm)} ${after.inStock ? "in stock" : "out of stock"}`
         : `Changed ${current.family} ${mm(before.diameterMm)} to ${mm(after.diameterMm)}${after.inStock === before.inStock ? "" : after.inStock ? ", in stock" : ", out of stock"}`;
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.balloon.update", targetType: "balloon", targetId: balloonId, summary, before, after });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      { action: "stock.balloon.update", targetType: "balloon", targetId: balloonId, summary, before, after },
+    );
     return { revision, balloon: balloonView({ id: balloonId, ...after }), changed: true };
   });
 }
@@ -251,14 +363,18 @@ export async function deleteBalloon({ labId, actorUserId, balloonId }: Actor & {
   return stockWrite(labId, async (tx) => {
     const current = await findBalloon(tx, labId, balloonId);
     await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.balloon.delete",
-      targetType: "balloon",
-      targetId: balloonId,
-      summary: `Removed ${mm(current.diameterMm)} from ${current.family}`,
-      before: { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock },
-      after: null,
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.balloon.delete",
+        targetType: "balloon",
+        targetId: balloonId,
+        summary: `Removed ${mm(current.diameterMm)} from ${current.family}`,
+        before: { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock },
+        after: null,
+      },
+    );
     return { revision, deleted: { id: balloonId } };
   });
 }
@@ -272,9 +388,16 @@ async function findPlatform(tx: Tx, labId: number, platformId: number): Promise<
 }
 
 async function assertPlatformNameFree(tx: Tx, labId: number, name: string, exceptId?: number) {
-  const where = and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.name, name), exceptId ? ne(stentPlatforms.id, exceptId) : undefined);
+  const where = and(
+    eq(stentPlatforms.labId, labId),
+    eq(stentPlatforms.name, name),
+    exceptId ? ne(stentPlatforms.id, exceptId) : undefined,
+  );
   const [clash] = await tx.select({ name: stentPlatforms.name }).from(stentPlatforms).where(where);
-  if (clash) throw new AppError("conflict", `This lab already has a stent platform named "${clash.name}".`, [{ path: ["name"], message: "A platform with this name already exists." }]);
+  if (clash)
+    throw new AppError("conflict", `This lab already has a stent platform named "${clash.name}".`, [
+      { path: ["name"], message: "A platform with this name already exists." },
+    ]);
 }
 
 export async function createStentPlatform({ labId, actorUserId, input }: Actor & { input: StentPlatformInput }) {
@@ -282,21 +405,49 @@ export async function createStentPlatform({ labId, actorUserId, input }: Actor &
     await assertPlatformNameFree(tx, labId, input.name);
     const [row] = await tx.insert(stentPlatforms).values({ labId, name: input.name }).$returningId();
     const platform = await findPlatform(tx, labId, row!.id);
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.platform.create", targetType: "stent_platform", targetId: platform.id, summary: `Added stent platform ${platform.name}`, before: null, after: { name: platform.name } });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.platform.create",
+        targetType: "stent_platform",
+        targetId: platform.id,
+        summary: `Added stent platform ${platform.name}`,
+        before: null,
+        after: { name: platform.name },
+      },
+    );
     return { revision, platform };
   });
 }
 
-export async function updateStentPlatform({ labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentPlatformInput }) {
+export async function updateStentPlatform({
+  labId,
+  actorUserId,
+  platformId,
+  input,
+}: Actor & { platformId: number; input: StentPlatformInput }) {
   return stockWrite(labId, async (tx) => {
     const current = await findPlatform(tx, labId, platformId);
-    if (current.name === input.name) return { revision: await currentRevision(tx, labId), platform: current, changed: false };
+    if (current.name === input.name)
+      return { revision: await currentRevision(tx, labId), platform: current, changed: false };
     await assertPlatformNameFree(tx, labId, input.name, platformId);
     await tx
       .update(stentPlatforms)
       .set({ name: input.name })
       .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.platform.update", targetType: "stent_platform", targetId: platformId, summary: `Renamed stent platform ${current.name} to ${input.name}`, before: { name: current.name }, after: { name: input.name } });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.platform.update",
+        targetType: "stent_platform",
+        targetId: platformId,
+        summary: `Renamed stent platform ${current.name} to ${input.name}`,
+        before: { name: current.name },
+        after: { name: input.name },
+      },
+    );
     return { revision, platform: { ...current, name: input.name }, changed: true };
   });
 }
@@ -306,8 +457,22 @@ export async function deleteStentPlatform({ labId, actorUserId, platformId }: Ac
     const current = await findPlatform(tx, labId, platformId);
     await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.platformId, platformId)));
     await tx.delete(stentPlatforms).where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
-    const before = { name: current.name, sizes: current.sizes.map(({ nominalMm, maxPostDilatationMm }) => ({ nominalMm, maxPostDilatationMm })) };
-    const revision = await commit(tx, { labId, actorUserId }, { action: "stock.platform.delete", targetType: "stent_platform", targetId: platformId, summary: `Deleted stent platform ${current.name} and its ${current.sizes.length} sizes`, before, after: null });
+    const before = {
+      name: current.name,
+      sizes: current.sizes.map(({ nominalMm, maxPostDilatationMm }) => ({ nominalMm, maxPostDilatationMm })),
+    };
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.platform.delete",
+        targetType: "stent_platform",
+        targetId: platformId,
+        summary: `Deleted stent platform ${current.name} and its ${current.sizes.length} sizes`,
+        before,
+        after: null,
+      },
+    );
     return { revision, deleted: { id: platformId } };
   });
 }
@@ -316,7 +481,13 @@ export async function deleteStentPlatform({ labId, actorUserId, platformId }: Ac
 
 async function findSize(tx: Tx, labId: number, sizeId: number) {
   const [row] = await tx
-    .select({ id: stentSizes.id, platformId: stentSizes.platformId, platform: stentPlatforms.name, nominalMm: stentSizes.nominalMm, maxPostDilatationMm: stentSizes.maxPostDilatationMm })
+    .select({
+      id: stentSizes.id,
+      platformId: stentSizes.platformId,
+      platform: stentPlatforms.name,
+      nominalMm: stentSizes.nominalMm,
+      maxPostDilatationMm: stentSizes.maxPostDilatationMm,
+    })
     .from(stentSizes)
     .innerJoin(stentPlatforms, eq(stentPlatforms.id, stentSizes.platformId))
     .where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
@@ -324,53 +495,101 @@ async function findSize(tx: Tx, labId: number, sizeId: number) {
   return row;
 }
 
-async function assertNominalFree(tx: Tx, platformId: number, platformName: string, nominalMm: number, exceptId?: number) {
-  const where = and(eq(stentSizes.platformId, platformId), eq(stentSizes.nominalMm, nominalMm), exceptId ? ne(stentSizes.id, exceptId) : undefined);
+async function assertNominalFree(
+  tx: Tx,
+  platformId: number,
+  platformName: string,
+  nominalMm: number,
+  exceptId?: number,
+) {
+  const where = and(
+    eq(stentSizes.platformId, platformId),
+    eq(stentSizes.nominalMm, nominalMm),
+    exceptId ? ne(stentSizes.id, exceptId) : undefined,
+  );
   const [clash] = await tx.select({ id: stentSizes.id }).from(stentSizes).where(where);
-  if (clash) throw new AppError("conflict", `${platformName} already has a ${mm(nominalMm)} size.`, [{ path: ["nominalMm"], message: "This platform already has this nominal diameter." }]);
+  if (clash)
+    throw new AppError("conflict", `${platformName} already has a ${mm(nominalMm)} size.`, [
+      { path: ["nominalMm"], message: "This platform already has this nominal diameter." },
+    ]);
 }
 
-const sizeView = (s: { id: number; nominalMm: number; maxPostDilatationMm: number }) => ({ id: s.id, nominalMm: s.nominalMm, maxPostDilatationMm: s.maxPostDilatationMm });
+const sizeView = (s: { id: number; nominalMm: number; maxPostDilatationMm: number }) => ({
+  id: s.id,
+  nominalMm: s.nominalMm,
+  maxPostDilatationMm: s.maxPostDilatationMm,
+});
 
-export async function createStentSize({ labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentSizeInput }) {
+export async function createStentSize({
+  labId,
+  actorUserId,
+  platformId,
+  input,
+}: Actor & { platformId: number; input: StentSizeInput }) {
   return stockWrite(labId, async (tx) => {
     const platform = await findPlatform(tx, labId, platformId);
     await assertNominalFree(tx, platformId, platform.name, input.nominalMm);
-    const [row] = await tx.insert(stentSizes).values({ labId, platformId, nominalMm: input.nominalMm, maxPostDilatationMm: input.maxPostDilatationMm }).$returningId();
+    const [row] = await tx
+      .insert(stentSizes)
+      .values({ labId, platformId, nominalMm: input.nominalMm, maxPostDilatationMm: input.maxPostDilatationMm })
+      .$returningId();
     const size = await findSize(tx, labId, row!.id);
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.size.create",
-      targetType: "stent_size",
-      targetId: size.id,
-      summary: `Added ${mm(size.nominalMm)} (post-dilatation up to ${mm(size.maxPostDilatationMm)}) to ${platform.name}`,
-      before: null,
-      after: { platform: platform.name, nominalMm: size.nominalMm, maxPostDilatationMm: size.maxPostDilatationMm },
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.size.create",
+        targetType: "stent_size",
+        targetId: size.id,
+        summary: `Added ${mm(size.nominalMm)} (post-dilatation up to ${mm(size.maxPostDilatationMm)}) to ${platform.name}`,
+        before: null,
+        after: { platform: platform.name, nominalMm: size.nominalMm, maxPostDilatationMm: size.maxPostDilatationMm },
+      },
+    );
     return { revision, size: sizeView(size) };
   });
 }
 
-export async function updateStentSize({ labId, actorUserId, sizeId, patch }: Actor & { sizeId: number; patch: StentSizePatch }) {
+export async function updateStentSize({
+  labId,
+  actorUserId,
+  sizeId,
+  patch,
+}: Actor & { sizeId: number; patch: StentSizePatch }) {
   return stockWrite(labId, async (tx) => {
     const current = await findSize(tx, labId, sizeId);
-    const merged = stentSizeInput.safeParse({ nominalMm: current.nominalMm, maxPostDilatationMm: current.maxPostDilatationMm, ...patch });
+    const merged = stentSizeInput.safeParse({
+      nominalMm: current.nominalMm,
+      maxPostDilatationMm: current.maxPostDilatationMm,
+      ...patch,
+    });
     if (!merged.success) throw invalidInput(merged.error.issues);
-    const before = { platform: current.platform, nominalMm: current.nominalMm, maxPostDilatationMm: current.maxPostDilatationMm };
+    const before = {
+      platform: current.platform,
+      nominalMm: current.nominalMm,
+      maxPostDilatationMm: current.maxPostDilatationMm,
+    };
     const after = { platform: current.platform, ...merged.data };
-    if (sameValues(before, after)) return { revision: await currentRevision(tx, labId), size: sizeView(current), changed: false };
-    if (after.nominalMm !== before.nominalMm) await assertNominalFree(tx, current.platformId, current.platform, after.nominalMm, sizeId);
+    if (sameValues(before, after))
+      return { revision: await currentRevision(tx, labId), size: sizeView(current), changed: false };
+    if (after.nominalMm !== before.nominalMm)
+      await assertNominalFree(tx, current.platformId, current.platform, after.nominalMm, sizeId);
     await tx
       .update(stentSizes)
       .set(merged.data)
       .where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.size.update",
-      targetType: "stent_size",
-      targetId: sizeId,
-      summary: `Changed ${current.platform} ${mm(before.nominalMm)} size`,
-      before,
-      after,
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.size.update",
+        targetType: "stent_size",
+        targetId: sizeId,
+        summary: `Changed ${current.platform} ${mm(before.nominalMm)} size`,
+        before,
+        after,
+      },
+    );
     return { revision, size: sizeView({ id: sizeId, ...merged.data }), changed: true };
   });
 }
@@ -379,14 +598,22 @@ export async function deleteStentSize({ labId, actorUserId, sizeId }: Actor & { 
   return stockWrite(labId, async (tx) => {
     const current = await findSize(tx, labId, sizeId);
     await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.size.delete",
-      targetType: "stent_size",
-      targetId: sizeId,
-      summary: `Removed ${mm(current.nominalMm)} from ${current.platform}`,
-      before: { platform: current.platform, nominalMm: current.nominalMm, maxPostDilatationMm: current.maxPostDilatationMm },
-      after: null,
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.size.delete",
+        targetType: "stent_size",
+        targetId: sizeId,
+        summary: `Removed ${mm(current.nominalMm)} from ${current.platform}`,
+        before: {
+          platform: current.platform,
+          nominalMm: current.nominalMm,
+          maxPostDilatationMm: current.maxPostDilatationMm,
+        },
+        after: null,
+      },
+    );
     return { revision, deleted: { id: sizeId } };
   });
 }
@@ -416,7 +643,10 @@ export async function importBalloons({
   return stockWrite(labId, async (tx) => {
     const revisionNow = await currentRevision(tx, labId);
     if (expectRevision !== undefined && expectRevision !== revisionNow) {
-      throw new AppError("conflict", `The stock changed since this file was previewed (revision ${expectRevision}, now ${revisionNow}). Preview the file again before applying it.`);
+      throw new AppError(
+        "conflict",
+        `The stock changed since this file was previewed (revision ${expectRevision}, now ${revisionNow}). Preview the file again before applying it.`,
+      );
     }
     const current = await readFamilies(tx, labId);
     const { plan, issues } = planBalloonImport(current, rows);
@@ -428,7 +658,14 @@ export async function importBalloons({
     for (const fam of plan.familiesToAdd) {
       const [row] = await tx
         .insert(balloonFamilies)
-        .values({ labId, name: fam.name, compliance: fam.compliance, nominalAtm: fam.nominalAtm, rbpAtm: fam.rbpAtm, growthAtRbpMm: fam.growthAtRbpMm })
+        .values({
+          labId,
+          name: fam.name,
+          compliance: fam.compliance,
+          nominalAtm: fam.nominalAtm,
+          rbpAtm: fam.rbpAtm,
+          growthAtRbpMm: fam.growthAtRbpMm,
+        })
         .$returningId();
       newIds.set(fam.name, row!.id);
     }
@@ -439,7 +676,12 @@ export async function importBalloons({
         .set({ compliance, nominalAtm, rbpAtm, growthAtRbpMm })
         .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, change.id)));
     }
-    const inserts = plan.balloonsToAdd.map((b) => ({ labId, familyId: b.familyId ?? newIds.get(b.family)!, diameterMm: b.diameterMm, inStock: b.inStock }));
+    const inserts = plan.balloonsToAdd.map((b) => ({
+      labId,
+      familyId: b.familyId ?? newIds.get(b.family)!,
+      diameterMm: b.diameterMm,
+      inStock: b.inStock,
+    }));
     for (let i = 0; i < inserts.length; i += CHUNK) await tx.insert(balloons).values(inserts.slice(i, i + CHUNK));
     const setStock = async (ids: number[], inStock: boolean) => {
       for (let i = 0; i < ids.length; i += CHUNK) {
@@ -449,9 +691,15 @@ export async function importBalloons({
           .where(and(eq(balloons.labId, labId), inArray(balloons.id, ids.slice(i, i + CHUNK))));
       }
     };
-    await setStock(plan.balloonsToChange.filter((b) => b.after.inStock).map((b) => b.id), true);
     await setStock(
-      [...plan.balloonsToChange.filter((b) => !b.after.inStock).map((b) => b.id), ...plan.balloonsToMarkOutOfStock.map((b) => b.id)],
+      plan.balloonsToChange.filter((b) => b.after.inStock).map((b) => b.id),
+      true,
+    );
+    await setStock(
+      [
+        ...plan.balloonsToChange.filter((b) => !b.after.inStock).map((b) => b.id),
+        ...plan.balloonsToMarkOutOfStock.map((b) => b.id),
+      ],
       false,
     );
 
@@ -465,16 +713,23 @@ export async function importBalloons({
     const snapshot = (fams: BalloonFamilyView[]) =>
       fams
         .filter((f) => touched.has(f.id))
-        .map((f) => ({ ...familyValues(f), balloons: f.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })) }));
+        .map((f) => ({
+          ...familyValues(f),
+          balloons: f.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
+        }));
     const after = await readFamilies(tx, labId, [...touched]);
-    const revision = await commit(tx, { labId, actorUserId }, {
-      action: "stock.import",
-      targetType: "lab",
-      targetId: labId,
-      summary: `Imported ${fileName ? `${fileName}: ` : ""}${summary}`,
-      before: { families: snapshot(current) },
-      after: { families: snapshot(after) },
-    });
+    const revision = await commit(
+      tx,
+      { labId, actorUserId },
+      {
+        action: "stock.import",
+        targetType: "lab",
+        targetId: labId,
+        summary: `Imported ${fileName ? `${fileName}: ` : ""}${summary}`,
+        before: { families: snapshot(current) },
+        after: { families: snapshot(after) },
+      },
+    );
     return { dryRun: false, applied: true, revision, summary, plan };
   });
 }

@@ -43,7 +43,9 @@ export async function memberAction<S extends z.ZodType>(
     return await fn(member, parsed.data);
   } catch (err) {
     if (err instanceof AppError) {
-      const fieldErrors = err.issues ? Object.fromEntries(err.issues.map((i) => [i.path.join(".") || "_", i.message])) : undefined;
+      const fieldErrors = err.issues
+        ? Object.fromEntries(err.issues.map((i) => [i.path.join(".") || "_", i.message]))
+        : undefined;
       return { ok: false, message: err.message, fieldErrors, values };
     }
     throw err;

@@ -6,7 +6,12 @@ import { after } from "next/server";
 import { acceptInvitation } from "@/db/queries/invitations";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { acceptAsMemberSchema, acceptNewAccountSchema, forgotPasswordSchema, resetPasswordSchema } from "@/lib/validation/auth";
+import {
+  acceptAsMemberSchema,
+  acceptNewAccountSchema,
+  forgotPasswordSchema,
+  resetPasswordSchema,
+} from "@/lib/validation/auth";
 import { formValues, type ActionState } from "./action-guard";
 import { signIn, signOut } from "./config";
 import { requireUser } from "./guard";
@@ -18,7 +23,8 @@ import type { z } from "zod";
 
 export type SignInState = { error?: string; email?: string };
 
-const safeReturn = (url: string) => (url.startsWith("/") && !url.startsWith("//") && !url.startsWith("/\\") ? url : "/dashboard");
+const safeReturn = (url: string) =>
+  url.startsWith("/") && !url.startsWith("//") && !url.startsWith("/\\") ? url : "/dashboard";
 
 export async function signInAction(_prev: SignInState, form: FormData): Promise<SignInState> {
   const email = String(form.get("email") ?? "").trim();
@@ -49,12 +55,19 @@ function fieldErrors(error: z.ZodError): Record<string, string> {
 }
 
 // Passwords are never sent back to the browser, even to refill a form.
-const withoutSecrets = (form: FormData) => Object.fromEntries(Object.entries(formValues(form)).filter(([k]) => k !== "password" && k !== "confirm"));
+const withoutSecrets = (form: FormData) =>
+  Object.fromEntries(Object.entries(formValues(form)).filter(([k]) => k !== "password" && k !== "confirm"));
 
 /** The same answer whether or not the address has an account; the e-mail goes out after responding. */
 export async function requestPasswordResetAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   const parsed = forgotPasswordSchema.safeParse(formValues(form));
-  if (!parsed.success) return { ok: false, message: "Please correct the highlighted field.", fieldErrors: fieldErrors(parsed.error), values: formValues(form) };
+  if (!parsed.success)
+    return {
+      ok: false,
+      message: "Please correct the highlighted field.",
+      fieldErrors: fieldErrors(parsed.error),
+      values: formValues(form),
+    };
   const { email } = parsed.data;
   after(() => requestPasswordReset({ email }).catch((err) => console.error("password reset e-mail failed", err)));
   return {
@@ -66,7 +79,13 @@ export async function requestPasswordResetAction(_prev: ActionState, form: FormD
 
 export async function resetPasswordAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   const parsed = resetPasswordSchema.safeParse(formValues(form));
-  if (!parsed.success) return { ok: false, message: "Please correct the highlighted fields.", fieldErrors: fieldErrors(parsed.error), values: withoutSecrets(form) };
+  if (!parsed.success)
+    return {
+      ok: false,
+      message: "Please correct the highlighted fields.",
+      fieldErrors: fieldErrors(parsed.error),
+      values: withoutSecrets(form),
+    };
   try {
     await resetPassword({ tokenHash: hashToken(parsed.data.token), password: parsed.data.password });
   } catch (err) {
@@ -79,7 +98,13 @@ export async function resetPasswordAction(_prev: ActionState, form: FormData): P
 /** Anyone holding a valid invitation link may create the invited account; the link is the key. */
 export async function acceptInvitationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   const parsed = acceptNewAccountSchema.safeParse(formValues(form));
-  if (!parsed.success) return { ok: false, message: "Please correct the highlighted fields.", fieldErrors: fieldErrors(parsed.error), values: withoutSecrets(form) };
+  if (!parsed.success)
+    return {
+      ok: false,
+      message: "Please correct the highlighted fields.",
+      fieldErrors: fieldErrors(parsed.error),
+      values: withoutSecrets(form),
+    };
   let joined: Awaited<ReturnType<typeof acceptInvitation>>;
   try {
     joined = await acceptInvitation({
@@ -90,7 +115,9 @@ export async function acceptInvitationAction(_prev: ActionState, form: FormData)
     if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(form) };
     throw err;
   }
-  redirect(`/sign-in?${new URLSearchParams({ joined: joined.lab.name, email: joined.email, callbackUrl: `/labs/${joined.lab.slug}` })}`);
+  redirect(
+    `/sign-in?${new URLSearchParams({ joined: joined.lab.name, email: joined.email, callbackUrl: `/labs/${joined.lab.slug}` })}`,
+  );
 }
 
 /** A signed-in person accepts an invitation addressed to their own account. */

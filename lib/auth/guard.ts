@@ -52,7 +52,8 @@ export async function readJson(req: Request, opts: { optional?: boolean } = {}):
   const text = await req.text();
   if (opts.optional && text.trim() === "") return {};
   const type = req.headers.get("content-type") ?? "";
-  if (!type.includes("application/json")) throw new AppError("invalid_input", "Send a JSON body (Content-Type: application/json).");
+  if (!type.includes("application/json"))
+    throw new AppError("invalid_input", "Send a JSON body (Content-Type: application/json).");
   if (text.length > 256 * 1024) throw new AppError("payload_too_large", "The JSON body is larger than 256 KB.");
   try {
     return JSON.parse(text);
@@ -75,6 +76,9 @@ export function route<P = Record<string, string>>(fn: (req: Request, params: P) 
 }
 
 /** A lab-scoped route: /api/v1/labs/:slug/... guarded by one capability. */
-export function labRoute<P extends { slug: string }>(capability: Capability, fn: (req: Request, member: Member, params: P) => Promise<Response>) {
+export function labRoute<P extends { slug: string }>(
+  capability: Capability,
+  fn: (req: Request, member: Member, params: P) => Promise<Response>,
+) {
   return route<P>(async (req, params) => fn(req, await requireMember({ slug: params.slug }, capability), params));
 }

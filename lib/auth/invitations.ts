@@ -9,9 +9,24 @@ import { INVITATION_TTL_MS, newToken } from "./tokens";
 
 export const invitationLink = (token: string) => `${env.APP_URL}/invite/${token}`;
 
-async function mailInvitation(member: Member, to: string, role: Role, token: string, expiresAt: Date): Promise<boolean> {
+async function mailInvitation(
+  member: Member,
+  to: string,
+  role: Role,
+  token: string,
+  expiresAt: Date,
+): Promise<boolean> {
   try {
-    await sendMail({ to, ...invitationMail({ labName: member.lab.name, role, inviterName: member.user.name, link: invitationLink(token), expiresAt }) });
+    await sendMail({
+      to,
+      ...invitationMail({
+        labName: member.lab.name,
+        role,
+        inviterName: member.user.name,
+        link: invitationLink(token),
+        expiresAt,
+      }),
+    });
     return true;
   } catch (err) {
     console.error("invitation e-mail failed", err);
@@ -23,7 +38,14 @@ async function mailInvitation(member: Member, to: string, role: Role, token: str
 export async function inviteMember(member: Member, input: { email: string; role: Role }) {
   const { token, hash } = newToken();
   const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-  const invitation = await createInvitation({ labId: member.lab.id, email: input.email, role: input.role, invitedBy: member.user.id, tokenHash: hash, expiresAt });
+  const invitation = await createInvitation({
+    labId: member.lab.id,
+    email: input.email,
+    role: input.role,
+    invitedBy: member.user.id,
+    tokenHash: hash,
+    expiresAt,
+  });
   const emailSent = await mailInvitation(member, input.email, input.role, token, expiresAt);
   return { invitation, emailSent };
 }
@@ -32,7 +54,13 @@ export async function inviteMember(member: Member, input: { email: string; role:
 export async function resendInvitation(member: Member, invitationId: number) {
   const { token, hash } = newToken();
   const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-  const invitation = await renewInvitation({ labId: member.lab.id, invitationId, actorUserId: member.user.id, tokenHash: hash, expiresAt });
+  const invitation = await renewInvitation({
+    labId: member.lab.id,
+    invitationId,
+    actorUserId: member.user.id,
+    tokenHash: hash,
+    expiresAt,
+  });
   const emailSent = await mailInvitation(member, invitation.email, invitation.role, token, expiresAt);
   return { invitation, emailSent };
 }

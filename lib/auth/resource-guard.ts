@@ -13,7 +13,10 @@ function parseId(raw: string, what: string): number {
 }
 
 /** /api/v1/charts/:id/... — the chart's lab decides membership and role. */
-export function chartRoute(capability: Capability, fn: (req: Request, member: Member, chartId: number) => Promise<Response>) {
+export function chartRoute(
+  capability: Capability,
+  fn: (req: Request, member: Member, chartId: number) => Promise<Response>,
+) {
   return route<{ id: string }>(async (req, params) => {
     const chartId = parseId(params.id, "Chart");
     const member = await requireMember({ via: () => findChartLab({ chartId }), what: "Chart" }, capability);
@@ -22,7 +25,10 @@ export function chartRoute(capability: Capability, fn: (req: Request, member: Me
 }
 
 /** /api/v1/editions/:id/... — the edition's lab decides membership and role. */
-export function editionRoute(capability: Capability, fn: (req: Request, member: Member, editionId: number) => Promise<Response>) {
+export function editionRoute(
+  capability: Capability,
+  fn: (req: Request, member: Member, editionId: number) => Promise<Response>,
+) {
   return route<{ id: string }>(async (req, params) => {
     const editionId = parseId(params.id, "Edition");
     const member = await requireMember({ via: () => findEditionLab({ editionId }), what: "Edition" }, capability);

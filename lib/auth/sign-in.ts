@@ -34,7 +34,12 @@ export type SignInResult =
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Checks a password under the throttle and records the attempt (never the password). */
-export async function verifySignIn(input: { email: string; password: string; ip: string; throttle?: SignInThrottle }): Promise<SignInResult> {
+export async function verifySignIn(input: {
+  email: string;
+  password: string;
+  ip: string;
+  throttle?: SignInThrottle;
+}): Promise<SignInResult> {
   const throttle = input.throttle ?? signInThrottle();
   const email = input.email.trim().toLowerCase();
   const ip = input.ip;
@@ -53,6 +58,13 @@ export async function verifySignIn(input: { email: string; password: string; ip:
     return { ok: false, reason: "invalid" };
   }
   await throttle.recordSuccess({ email });
-  await recordAudit({ labId: null, actorUserId: user.id, action: "signin.succeeded", targetType: "user", targetId: user.id, detail: { ip } });
+  await recordAudit({
+    labId: null,
+    actorUserId: user.id,
+    action: "signin.succeeded",
+    targetType: "user",
+    targetId: user.id,
+    detail: { ip },
+  });
   return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
 }

@@ -15,7 +15,11 @@ export function isRefused(fails: number, maxFails: number): boolean {
 /** The client address: the right-most X-Forwarded-For entry is the one our own proxy (or Next) saw. */
 export function clientAddress(headers: Headers): string {
   const forwarded = headers.get("x-forwarded-for");
-  const last = forwarded?.split(",").map((s) => s.trim()).filter(Boolean).pop();
+  const last = forwarded
+    ?.split(",")
+    .map((s) => s.trim())
+    .filter(Boolean)
+    .pop();
   const ip = last ?? headers.get("x-real-ip") ?? "unknown";
   return ip.replace(/^::ffff:/, "").slice(0, 64);
 }

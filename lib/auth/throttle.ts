@@ -62,7 +62,10 @@ export function createSignInThrottle(opts: ThrottleOptions) {
       };
     },
     async recordFailure({ email, ip }: { email: string; ip: string }): Promise<void> {
-      await Promise.all([fail(byAccount, accountKey(email), opts.maxFailsPerAccount), fail(byIp, ip, opts.maxFailsPerIp)]);
+      await Promise.all([
+        fail(byAccount, accountKey(email), opts.maxFailsPerAccount),
+        fail(byIp, ip, opts.maxFailsPerIp),
+      ]);
     },
     /** A correct password clears the account's counter; the address keeps its count. */
     async recordSuccess({ email }: { email: string }): Promise<void> {

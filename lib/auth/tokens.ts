@@ -21,7 +21,10 @@ export function looksLikeToken(value: string): boolean {
 
 export type LinkState = "valid" | "expired" | "used" | "revoked";
 
-export function linkState(row: { expiresAt: Date; usedAt?: Date | null; revokedAt?: Date | null }, now = new Date()): LinkState {
+export function linkState(
+  row: { expiresAt: Date; usedAt?: Date | null; revokedAt?: Date | null },
+  now = new Date(),
+): LinkState {
   if (row.usedAt) return "used";
   if (row.revokedAt) return "revoked";
   if (row.expiresAt.getTime() <= now.getTime()) return "expired";

@@ -19,7 +19,13 @@ const range = (from: number, to: number): AxisRange => ({ from, to: Math.max(fro
  */
 export function defaultLookup(kind: LookupKind, family: StockFamily | undefined) {
   const { lo, hi } = stockedSpan(family);
-  const rows = kind === "proximal" ? range(Math.max(lo, 2.25), Math.min(hi - STEP, lo + 7 * STEP)) : range(Math.min(lo + 2 * STEP, hi), hi);
-  const cols = kind === "proximal" ? range(lo, Math.min(rows.to - STEP, lo + 6 * STEP)) : range(lo, Math.min(hi - 2 * STEP, lo + 7 * STEP));
+  const rows =
+    kind === "proximal"
+      ? range(Math.max(lo, 2.25), Math.min(hi - STEP, lo + 7 * STEP))
+      : range(Math.min(lo + 2 * STEP, hi), hi);
+  const cols =
+    kind === "proximal"
+      ? range(lo, Math.min(rows.to - STEP, lo + 6 * STEP))
+      : range(lo, Math.min(hi - 2 * STEP, lo + 7 * STEP));
   return { kind, rows, cols, rounding: DEFAULT_ROUNDING[kind], familyId: family?.id ?? 0 };
 }

@@ -21,7 +21,15 @@ export type EditionSummary = {
 
 export function editionSummary(
   appUrl: string,
-  e: { id: number; number: number; status: EditionStatus; fingerprint: string; checkToken: string; approvedAt: Date | null; approvedByName: string | null },
+  e: {
+    id: number;
+    number: number;
+    status: EditionStatus;
+    fingerprint: string;
+    checkToken: string;
+    approvedAt: Date | null;
+    approvedByName: string | null;
+  },
 ): EditionSummary {
   return {
     id: e.id,

@@ -58,7 +58,11 @@ const round2 = (x: number) => Math.round(x * 100) / 100;
  * for) and the sizes a `reach` pick could push up by its growth. A size outside this span
  * cannot change a printed cell, so its stock status must not make a poster stale.
  */
-export function relevantDiameters(inStock: readonly number[], targets: readonly number[], growthMm: number | null): number[] {
+export function relevantDiameters(
+  inStock: readonly number[],
+  targets: readonly number[],
+  growthMm: number | null,
+): number[] {
   const sizes = [...new Set(inStock)].sort((a, b) => a - b);
   if (targets.length === 0 || sizes.length === 0) return [];
   const tol = STOCK_TOLERANCE_MM + 1e-9;
@@ -70,7 +74,14 @@ export function relevantDiameters(inStock: readonly number[], targets: readonly 
 }
 
 function exactTargets(lookup: ChartDefinition["lookups"][number], law: LawSpec): number[] {
-  const grid = buildGrid({ kind: lookup.kind, rows: lookup.rows, cols: lookup.cols, law, rounding: lookup.rounding, family: null });
+  const grid = buildGrid({
+    kind: lookup.kind,
+    rows: lookup.rows,
+    cols: lookup.cols,
+    law,
+    rounding: lookup.rounding,
+    family: null,
+  });
   return grid.cells.flat().flatMap((c) => (c.exact.ok ? [c.exact.diameterMm] : []));
 }
 
@@ -83,7 +94,14 @@ export function buildSnapshot(input: {
 }): Snapshot {
   const { definition: def, stock } = input;
   const lookups = def.lookups.map((l): SnapshotLookup => {
-    const grid = buildGrid({ kind: l.kind, rows: l.rows, cols: l.cols, law: def.law, rounding: l.rounding, family: null });
+    const grid = buildGrid({
+      kind: l.kind,
+      rows: l.rows,
+      cols: l.cols,
+      law: def.law,
+      rounding: l.rounding,
+      family: null,
+    });
     const fam = stock.balloonFamilies.find((f) => f.id === l.familyId);
     const family: BalloonFamilyStock | null = fam
       ? {
@@ -129,9 +147,11 @@ export function buildSnapshot(input: {
 export function snapshotProblems(snapshot: Snapshot, definition: ChartDefinition): string[] {
   const problems: string[] = [];
   snapshot.lookups.forEach((l, i) => {
-    if (!l.family) problems.push(`Lookup ${i + 1} (${l.kind}) uses a balloon family that no longer exists: choose another.`);
+    if (!l.family)
+      problems.push(`Lookup ${i + 1} (${l.kind}) uses a balloon family that no longer exists: choose another.`);
   });
-  if (definition.stentPlatformId && !snapshot.stent) problems.push("The chosen stent platform no longer exists: choose another or none.");
+  if (definition.stentPlatformId && !snapshot.stent)
+    problems.push("The chosen stent platform no longer exists: choose another or none.");
   return problems;
 }
 

@@ -28,6 +28,8 @@ export function checkJson(v: {
     chart: { title: v.chart.title },
     lab: { name: v.lab.name },
     changes: v.changes.map((c) => ({ kind: c.kind, detail: c.detail })),
-    currentEdition: v.currentEdition ? { number: v.currentEdition.number, approvedAt: v.currentEdition.approvedAt?.toISOString() ?? null } : null,
+    currentEdition: v.currentEdition
+      ? { number: v.currentEdition.number, approvedAt: v.currentEdition.approvedAt?.toISOString() ?? null }
+      : null,
   };
 }

@@ -30,16 +30,28 @@ export type CheckResult = { status: CheckStatus; changes: Change[] };
  */
 export function checkEdition(ed: CheckEdition, chart: CheckChart, newer: NewerEdition): CheckResult {
   const fmt = (d: Date | null) => (d ? d.toISOString().slice(0, 10) : "an unknown date");
-  if (ed.status === "withdrawn") return { status: "withdrawn", changes: [{ kind: "lab", detail: `Edition ${ed.number} was withdrawn on ${fmt(ed.withdrawnAt)}` }] };
+  if (ed.status === "withdrawn")
+    return {
+      status: "withdrawn",
+      changes: [{ kind: "lab", detail: `Edition ${ed.number} was withdrawn on ${fmt(ed.withdrawnAt)}` }],
+    };
   if (ed.status === "superseded") {
-    const detail = newer ? `Edition ${newer.number} approved on ${fmt(newer.approvedAt)}` : `A newer edition was approved on ${fmt(ed.supersededAt)}`;
+    const detail = newer
+      ? `Edition ${newer.number} approved on ${fmt(newer.approvedAt)}`
+      : `A newer edition was approved on ${fmt(ed.supersededAt)}`;
     return { status: "superseded", changes: [{ kind: "lab", detail }] };
   }
   if (ed.status === "draft") return { status: "draft", changes: [] };
-  if (!chart || !chart.liveFingerprint || !chart.liveSnapshot) return { status: "outdated", changes: describeChanges(ed.snapshot, null) };
+  if (!chart || !chart.liveFingerprint || !chart.liveSnapshot)
+    return { status: "outdated", changes: describeChanges(ed.snapshot, null) };
   if (chart.liveFingerprint === ed.fingerprint) return { status: "current", changes: [] };
   const changes = describeChanges(ed.snapshot, chart.liveSnapshot);
-  return { status: "outdated", changes: changes.length ? changes : [{ kind: "lab", detail: "The chart's inputs changed since this edition was approved" }] };
+  return {
+    status: "outdated",
+    changes: changes.length
+      ? changes
+      : [{ kind: "lab", detail: "The chart's inputs changed since this edition was approved" }],
+  };
 }
 
 export const CHECK_HEADLINES: Record<CheckStatus, string> = {
@@ -52,7 +64,8 @@ export const CHECK_HEADLINES: Record<CheckStatus, string> = {
 
 export const CHECK_ADVICE: Record<CheckStatus, string> = {
   current: "This printout matches the lab's stock and rules today.",
-  outdated: "The lab's stock, law or chart settings changed after this printout was approved: a new edition would print different numbers. Replace this printout.",
+  outdated:
+    "The lab's stock, law or chart settings changed after this printout was approved: a new edition would print different numbers. Replace this printout.",
   superseded: "A newer edition of this chart has been approved. Replace this printout with the current edition.",
   withdrawn: "This edition was withdrawn. Take this printout down.",
   draft: "This is an unapproved draft. It must not hang on a wall or be used in a case.",

@@ -23,7 +23,11 @@ const addresses = (a: AddressObject | AddressObject[] | undefined): string[] =>
 
 const MAX_KEPT = 500;
 
-export async function startFakeMail(opts: { smtpPort: number; httpPort: number; host?: string }): Promise<FakeMailServer> {
+export async function startFakeMail(opts: {
+  smtpPort: number;
+  httpPort: number;
+  host?: string;
+}): Promise<FakeMailServer> {
   const host = opts.host ?? "127.0.0.1";
   const messages: FakeMessage[] = [];
   let nextId = 1;

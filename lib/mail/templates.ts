@@ -3,25 +3,41 @@ import { ROLE_LABELS, type Role } from "@/lib/permissions";
 // Plain-text messages (with an equivalent minimal HTML part) for the e-mails Forkwall sends.
 export type MailContent = { subject: string; text: string; html: string };
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 export function formatUtc(date: Date): string {
   return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 }
 
 function toHtml(paragraphs: string[], link: { href: string; label: string }): string {
-  const body = paragraphs.map((p) => `<p>${escapeHtml(p).replace(escapeHtml(link.href), `<a href="${escapeHtml(link.href)}">${escapeHtml(link.href)}</a>`)}</p>`).join("\n");
+  const body = paragraphs
+    .map(
+      (p) =>
+        `<p>${escapeHtml(p).replace(escapeHtml(link.href), `<a href="${escapeHtml(link.href)}">${escapeHtml(link.href)}</a>`)}</p>`,
+    )
+    .join("\n");
   return `<!doctype html><html><body style="font-family:sans-serif;line-height:1.5">\n${body}\n</body></html>`;
 }
 
-export function invitationMail(p: { labName: string; role: Role; inviterName: string; link: string; expiresAt: Date }): MailContent {
+export function invitationMail(p: {
+  labName: string;
+  role: Role;
+  inviterName: string;
+  link: string;
+  expiresAt: Date;
+}): MailContent {
   const paragraphs = [
     `${p.inviterName} invites you to join ${p.labName} on Forkwall as ${ROLE_LABELS[p.role].toLowerCase()}.`,
     `Accept the invitation here:\n${p.link}`,
     `The link works once and expires at ${formatUtc(p.expiresAt)}. If you already have a Forkwall account under this address, sign in with it to accept.`,
     "If you did not expect this invitation, you can ignore this e-mail.",
   ];
-  return { subject: `Invitation to join ${p.labName} on Forkwall`, text: paragraphs.join("\n\n") + "\n", html: toHtml(paragraphs, { href: p.link, label: "Accept" }) };
+  return {
+    subject: `Invitation to join ${p.labName} on Forkwall`,
+    text: paragraphs.join("\n\n") + "\n",
+    html: toHtml(paragraphs, { href: p.link, label: "Accept" }),
+  };
 }
 
 export function passwordResetMail(p: { link: string; expiresAt: Date }): MailContent {
@@ -30,5 +46,9 @@ export function passwordResetMail(p: { link: string; expiresAt: Date }): MailCon
     `Choose a new password here:\n${p.link}`,
     `The link works once and expires at ${formatUtc(p.expiresAt)}. If you did not ask for this, ignore this e-mail: your password stays as it is.`,
   ];
-  return { subject: "Reset your Forkwall password", text: paragraphs.join("\n\n") + "\n", html: toHtml(paragraphs, { href: p.link, label: "Reset" }) };
+  return {
+    subject: "Reset your Forkwall password",
+    text: paragraphs.join("\n\n") + "\n",
+    html: toHtml(paragraphs, { href: p.link, label: "Reset" }),
+  };
 }

@@ -43,7 +43,10 @@ export function cellGraphics(cells: readonly DrawnCell[], paper = "#ffffff"): Ce
     out.rules += rectPath(box);
     if (view.border > 0) {
       const w = view.border * Math.min(box.width, box.height);
-      out.borders.push({ box: { x: box.x + w / 2, y: box.y + w / 2, width: box.width - w, height: box.height - w }, width: w });
+      out.borders.push({
+        box: { x: box.x + w / 2, y: box.y + w / 2, width: box.width - w, height: box.height - w },
+        width: w,
+      });
     }
   }
   return out;

@@ -61,7 +61,8 @@ export function gridSubtitle(
   stentName: string | null,
 ): string {
   const parts = [familyText(lookup.family), roundingText(lookup.kind, lookup.rounding)];
-  if (lookup.kind === "proximal") parts.push(stentName ? `Stent limit: ${stentName}` : "Stent limit not checked (no stent platform)");
+  if (lookup.kind === "proximal")
+    parts.push(stentName ? `Stent limit: ${stentName}` : "Stent limit not checked (no stent platform)");
   return parts.join(" · ");
 }
 

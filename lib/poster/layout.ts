@@ -183,7 +183,15 @@ function arrangements(n: number): number[][][] {
   return [[[0, 1, 2]], [[0], [1], [2]], [[0, 1], [2]], [[0], [1, 2]]];
 }
 
-function bandsFit(bands: number[][], grids: readonly LayoutGridInput[], f: number, area: Box, fonts: Fonts, scale: number, gap: number) {
+function bandsFit(
+  bands: number[][],
+  grids: readonly LayoutGridInput[],
+  f: number,
+  area: Box,
+  fonts: Fonts,
+  scale: number,
+  gap: number,
+) {
   let height = 0;
   for (const band of bands) {
     const sizes = band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale));
@@ -195,7 +203,15 @@ function bandsFit(bands: number[][], grids: readonly LayoutGridInput[], f: numbe
 }
 
 /** The largest figure size at which the bands fit the area (bisection: sizes grow with f). */
-function largestFigure(bands: number[][], grids: readonly LayoutGridInput[], area: Box, fonts: Fonts, scale: number, gap: number, max: number) {
+function largestFigure(
+  bands: number[][],
+  grids: readonly LayoutGridInput[],
+  area: Box,
+  fonts: Fonts,
+  scale: number,
+  gap: number,
+  max: number,
+) {
   if (area.width <= 0 || area.height <= 0 || !bandsFit(bands, grids, 0, area, fonts, scale, gap)) return 0;
   if (bandsFit(bands, grids, max, area, fonts, scale, gap)) return max;
   let lo = 0;
@@ -218,7 +234,15 @@ function bestArrangement(grids: readonly LayoutGridInput[], area: Box, fonts: Fo
   return best;
 }
 
-function placeGrids(grids: readonly LayoutGridInput[], bands: number[][], f: number, area: Box, fonts: Fonts, scale: number, gap: number): GridLayout[] {
+function placeGrids(
+  grids: readonly LayoutGridInput[],
+  bands: number[][],
+  f: number,
+  area: Box,
+  fonts: Fonts,
+  scale: number,
+  gap: number,
+): GridLayout[] {
   const bandSizes = bands.map((band) => band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale)));
   const bandHeights = bandSizes.map((s) => Math.max(...s.map((z) => z.height)));
   const totalH = bandHeights.reduce((a, b) => a + b, 0) + gap * (bands.length - 1);
@@ -272,7 +296,10 @@ function legendBlock(texts: LayoutTexts, fonts: Fonts, scale: number, width: num
     const y = ys[col] as number;
     const textH = linesFor(chars, fonts.legend, colW - textX) * fonts.legend * 1.25;
     ys[col] = y + Math.max(swatchH, textH) + 4 * scale;
-    return { swatch: { x, y, width: swatchW, height: swatchH }, text: { x: x + textX, y, width: colW - textX, height: textH } };
+    return {
+      swatch: { x, y, width: swatchW, height: swatchH },
+      text: { x: x + textX, y, width: colW - textX, height: textH },
+    };
   });
   return { rows, height: Math.max(...ys) };
 }
@@ -307,8 +334,15 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
   const titleW = innerW - lawW - gap - (titleX - margin);
   const leftH = fonts.lab * LINE + fonts.title * 1.15 * linesFor(texts.title, fonts.title * 1.1, titleW);
   const rightH = fonts.law * LINE * 2 + fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) + 2 * scale;
-  const header: Box = { x: margin, y: margin, width: innerW, height: Math.max(leftH, rightH, input.logo ? 40 * scale : 0) };
-  const logo: Box | null = input.logo ? { x: margin, y: margin, width: logoW, height: Math.min(header.height, logoW) } : null;
+  const header: Box = {
+    x: margin,
+    y: margin,
+    width: innerW,
+    height: Math.max(leftH, rightH, input.logo ? 40 * scale : 0),
+  };
+  const logo: Box | null = input.logo
+    ? { x: margin, y: margin, width: logoW, height: Math.min(header.height, logoW) }
+    : null;
   const title: Box = { x: titleX, y: margin, width: titleW, height: header.height };
   const law: Box = { x: margin + innerW - lawW, y: margin, width: lawW, height: header.height };
   let top = header.y + header.height + gap;
@@ -320,7 +354,8 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
 
   // Caution: full width at the bottom of the page, always.
   const cautionPad = 6 * scale;
-  const cautionH = 2 * cautionPad + fonts.caution * LINE * linesFor(texts.caution + 10, fonts.caution, innerW - 2 * cautionPad);
+  const cautionH =
+    2 * cautionPad + fonts.caution * LINE * linesFor(texts.caution + 10, fonts.caution, innerW - 2 * cautionPad);
   const caution: Box = { x: margin, y: page.height - margin - cautionH, width: innerW, height: cautionH };
   const bottom = caution.y - gap;
 
@@ -334,7 +369,10 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
   const editionW = restW * 0.36;
   const legendW = restW - editionW;
   const legend1 = legendBlock(texts, fonts, scale, legendW);
-  const qrTextH = fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrColW) + fonts.small * LINE * linesFor(60, fonts.small, qrColW) + 4 * scale;
+  const qrTextH =
+    fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrColW) +
+    fonts.small * LINE * linesFor(60, fonts.small, qrColW) +
+    4 * scale;
   const footerH = Math.max(legend1.height, editionHeight(texts, fonts, scale, editionW), qrSide + qrTextH);
   const footerY = bottom - footerH;
   const area1: Box = { x: margin, y: top, width: innerW, height: footerY - gap - top };
@@ -348,7 +386,10 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
   const qrCol2W = Math.max(qrSide, Math.min(urlW, sideW * 0.5));
   const edition2W = sideW - qrCol2W - gap;
   const edition2H = editionHeight(texts, fonts, scale, edition2W);
-  const qrText2H = fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrCol2W) + fonts.small * LINE * linesFor(60, fonts.small, qrCol2W) + 4 * scale;
+  const qrText2H =
+    fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrCol2W) +
+    fonts.small * LINE * linesFor(60, fonts.small, qrCol2W) +
+    4 * scale;
   const sideH = legend2.height + gap + Math.max(edition2H, qrSide + qrText2H);
   const sideFits = top + sideH <= bottom;
   const area2: Box = { x: margin, y: top, width: innerW - sideW - 2 * gap, height: bottom - top };
@@ -372,7 +413,10 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
     qrText = { x: qrColX, y: lowerY + qrSide, width: qrCol2W, height: qrText2H };
   } else {
     legend = { x: margin, y: footerY, width: legendW, height: footerH };
-    legendRows = legend1.rows.map((r) => ({ swatch: offset(r.swatch, margin, footerY), text: offset(r.text, margin, footerY) }));
+    legendRows = legend1.rows.map((r) => ({
+      swatch: offset(r.swatch, margin, footerY),
+      text: offset(r.text, margin, footerY),
+    }));
     edition = { x: margin + legendW + gap, y: footerY, width: editionW, height: footerH };
     const qrColX = page.width - margin - qrColW;
     qr = { x: qrColX + (qrColW - qrSide) / 2, y: footerY, width: qrSide, height: qrSide };

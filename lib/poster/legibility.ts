@@ -83,7 +83,8 @@ export function posterLegibility(input: LayoutInput & { readingDistanceM: number
     const options: string[] = [];
     const bigger = smallestPaper && series.indexOf(smallestPaper) > series.indexOf(input.paper) ? smallestPaper : null;
     if (bigger) options.push(`use ${PAPERS[bigger].label} or larger`);
-    if (maxColumns !== null && maxColumns < widest) options.push(`show at most ${maxColumns} column${maxColumns === 1 ? "" : "s"}`);
+    if (maxColumns !== null && maxColumns < widest)
+      options.push(`show at most ${maxColumns} column${maxColumns === 1 ? "" : "s"}`);
     else if (maxColumns === null) options.push("show fewer rows");
     options.push(`read it from ${fmt1(maxReadingDistanceM(heightMm))} m or closer`);
     const advice = options.join(", or ");

@@ -48,7 +48,8 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     id: "noSize",
     symbol: "—",
     label: "No size",
-    explanation: "These diameters do not form a bifurcation under this law (parent > main branch ≥ side branch); grey hatched, no number.",
+    explanation:
+      "These diameters do not form a bifurcation under this law (parent > main branch ≥ side branch); grey hatched, no number.",
     background: "#c8c8c8",
     hatch: true,
     border: 0,
@@ -57,7 +58,8 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     id: "noStock",
     symbol: "▲▼",
     label: "No stocked size",
-    explanation: "▲ above the largest or ▼ below the smallest stocked balloon (○ none in stock); blue, the exact diameter small.",
+    explanation:
+      "▲ above the largest or ▼ below the smallest stocked balloon (○ none in stock); blue, the exact diameter small.",
     background: "#d5e7f7",
     hatch: false,
     border: 0,
@@ -66,7 +68,8 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     id: "hazard",
     symbol: "⚠",
     label: "Stent limit",
-    explanation: "POT above the main-branch stent's maximum post-dilatation diameter, or no stent covers this main branch; orange, heavy border.",
+    explanation:
+      "POT above the main-branch stent's maximum post-dilatation diameter, or no stent covers this main branch; orange, heavy border.",
     background: "#e69f00",
     hatch: false,
     border: 0.06,
@@ -247,7 +250,9 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
     label: "Stocked balloon",
     text:
       "Large: the stocked balloon, mm. Small, in brackets: the exact diameter from the law, mm." +
-      (ctx.hasReach ? " “@ 16 atm”: this balloon reaches the target at that pressure (the device's own compliance chart rules)." : ""),
+      (ctx.hasReach
+        ? " “@ 16 atm”: this balloon reaches the target at that pressure (the device's own compliance chart rules)."
+        : ""),
   };
   return [sized, ...MARK_ORDER.map((m) => ({ mark: m, label: `${MARKS[m].symbol} ${MARKS[m].label}`, text: text(m) }))];
 }

@@ -23,7 +23,11 @@ const TYPICAL_URL_CHARS = 40;
 type EditionLike = { status: EditionStatus; checkUrl?: string };
 
 /** The layout's input for a snapshot; a logo is assumed when the snapshot records one. */
-export function layoutInputFor(snapshot: Snapshot, edition: EditionLike = { status: "draft" }, hasLogo = snapshot.logoSha256 !== null): LayoutInput {
+export function layoutInputFor(
+  snapshot: Snapshot,
+  edition: EditionLike = { status: "draft" },
+  hasLogo = snapshot.logoSha256 !== null,
+): LayoutInput {
   return {
     paper: snapshot.paper,
     orientation: snapshot.orientation,

@@ -57,8 +57,7 @@ export function resolveAxis(input: AxisInput): AxisResult {
       return bad(`An axis has at most ${AXIS_MAX_VALUES} values (this range gives ${count})`);
     hundredths = Array.from({ length: count }, (_, k) => f + k * s);
   }
-  if (hundredths.length > AXIS_MAX_VALUES)
-    return bad(`An axis has at most ${AXIS_MAX_VALUES} values`);
+  if (hundredths.length > AXIS_MAX_VALUES) return bad(`An axis has at most ${AXIS_MAX_VALUES} values`);
   const lo = Math.round(AXIS_MIN_MM * 100);
   const hi = Math.round(AXIS_MAX_MM * 100);
   if (hundredths.some((h) => h < lo || h > hi)) {

@@ -1,13 +1,7 @@
 import { resolveAxis, type AxisInput } from "./axis";
 import { lawFit } from "./fit";
 import { lawSpecProblem, solve, type KnownDiameters, type LawSpec, type Role } from "./laws";
-import {
-  pickBalloon,
-  type BalloonFamilyStock,
-  type BalloonPick,
-  type LookupKind,
-  type RoundingRule,
-} from "./rounding";
+import { pickBalloon, type BalloonFamilyStock, type BalloonPick, type LookupKind, type RoundingRule } from "./rounding";
 import { checkPot, type StentSize } from "./stent";
 
 export type GridInput = {
@@ -49,12 +43,11 @@ export type Grid = {
 };
 
 /** Which diameter each lookup reads on its rows and columns, and which it solves. */
-export const LOOKUP_ROLES: Readonly<Record<LookupKind, { rows: Role; cols: Role; solved: Role }>> =
-  {
-    proximal: { rows: "mb", cols: "sb", solved: "parent" },
-    side: { rows: "parent", cols: "mb", solved: "sb" },
-    main: { rows: "parent", cols: "sb", solved: "mb" },
-  };
+export const LOOKUP_ROLES: Readonly<Record<LookupKind, { rows: Role; cols: Role; solved: Role }>> = {
+  proximal: { rows: "mb", cols: "sb", solved: "parent" },
+  side: { rows: "parent", cols: "mb", solved: "sb" },
+  main: { rows: "parent", cols: "sb", solved: "mb" },
+};
 
 export const ROLE_LABELS: Readonly<Record<Role, string>> = {
   parent: "Parent (proximal main vessel), mm",
@@ -78,8 +71,7 @@ export function buildGrid(input: GridInput): Grid {
   const cols = resolveAxis(input.cols);
   if (!cols.ok) throw new GridInputError(`Columns: ${cols.reason}`);
 
-  const platform =
-    input.kind === "proximal" && input.stent && input.stent.length > 0 ? input.stent : null;
+  const platform = input.kind === "proximal" && input.stent && input.stent.length > 0 ? input.stent : null;
 
   const cells = rows.values.map((row) =>
     cols.values.map((col): Cell => {

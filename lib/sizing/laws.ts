@@ -172,9 +172,7 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
 
   const triple = { parent, mb, sb, [result.solved]: result.value } as Required<KnownDiameters>;
   if (!isSize(triple.parent, triple.mb, triple.sb)) {
-    return fail(
-      "These diameters do not form a bifurcation (parent > main branch ≥ side branch > 0)",
-    );
+    return fail("These diameters do not form a bifurcation (parent > main branch ≥ side branch > 0)");
   }
   const fit = lawFit(spec, triple.mb, triple.sb);
   return {
@@ -185,11 +183,7 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
   };
 }
 
-function solveParent(
-  spec: LawSpec,
-  mb: number,
-  sb: number,
-): { solved: Role; value: number } | SolveFail {
+function solveParent(spec: LawSpec, mb: number, sb: number): { solved: Role; value: number } | SolveFail {
   if (sb > mb) return fail("The side branch cannot be larger than the main branch");
   let parent: number;
   if (spec.law === "finet") {
@@ -211,11 +205,7 @@ function solveParent(
   return { solved: "parent", value: parent };
 }
 
-function solveSide(
-  spec: LawSpec,
-  parent: number,
-  mb: number,
-): { solved: Role; value: number } | SolveFail {
+function solveSide(spec: LawSpec, parent: number, mb: number): { solved: Role; value: number } | SolveFail {
   if (mb >= parent) {
     return fail("With the main branch at or above the parent, no side branch fits this law");
   }
@@ -240,11 +230,7 @@ function solveSide(
   return { solved: "sb", value: Math.min(sb, mb) };
 }
 
-function solveMain(
-  spec: LawSpec,
-  parent: number,
-  sb: number,
-): { solved: Role; value: number } | SolveFail {
+function solveMain(spec: LawSpec, parent: number, sb: number): { solved: Role; value: number } | SolveFail {
   if (sb >= parent) {
     return fail("With the side branch at or above the parent, no main branch fits this law");
   }

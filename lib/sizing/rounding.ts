@@ -57,16 +57,10 @@ export function hasGrowthData(family: BalloonFamilyStock): boolean {
 }
 
 /** Linear compliance between nominal pressure and rated burst pressure (the lab's own chart rules). */
-export function balloonDiameterAt(
-  family: BalloonFamilyStock,
-  nominalMm: number,
-  pressureAtm: number,
-): number {
+export function balloonDiameterAt(family: BalloonFamilyStock, nominalMm: number, pressureAtm: number): number {
   if (!hasGrowthData(family)) return nominalMm;
   const growth = family.growthAtRbpMm as number;
-  return (
-    nominalMm + (growth * (pressureAtm - family.nominalAtm)) / (family.rbpAtm - family.nominalAtm)
-  );
+  return nominalMm + (growth * (pressureAtm - family.nominalAtm)) / (family.rbpAtm - family.nominalAtm);
 }
 
 /**
@@ -80,17 +74,11 @@ export function balloonDiameterAt(
  *   burst pressure, reaches the target, with the pressure rounded up to a whole atm (a size at
  *   or above the target reaches it at nominal). Without growth data, reach is up.
  */
-export function pickBalloon(
-  targetMm: number,
-  family: BalloonFamilyStock,
-  rule: RoundingRule,
-): BalloonPick {
+export function pickBalloon(targetMm: number, family: BalloonFamilyStock, rule: RoundingRule): BalloonPick {
   if (!Number.isFinite(targetMm) || targetMm <= 0) {
     throw new RangeError("The target diameter must be a positive number of mm");
   }
-  const sizes = [...new Set(family.diameters.filter((d) => Number.isFinite(d) && d > 0))].sort(
-    (a, b) => a - b,
-  );
+  const sizes = [...new Set(family.diameters.filter((d) => Number.isFinite(d) && d > 0))].sort((a, b) => a - b);
   if (sizes.length === 0) return { ok: false, code: "no_stock", reason: "No sizes in stock" };
 
   const applied: RoundingRule = rule === "reach" && !hasGrowthData(family) ? "up" : rule;
@@ -128,7 +116,9 @@ export function pickBalloon(
   if (targetMm < smallest) return belowStock;
   if (targetMm > largest && applied !== "reach") {
     return aboveStock(
-      applied === "up" ? `No stocked size at or above ${mm(targetMm)} mm` : `Above the largest stocked size (${mm(largest)} mm)`,
+      applied === "up"
+        ? `No stocked size at or above ${mm(targetMm)} mm`
+        : `Above the largest stocked size (${mm(largest)} mm)`,
     );
   }
 
@@ -148,7 +138,13 @@ export function pickBalloon(
         if (d > targetMm) return atNominal(d);
         const atm = Math.ceil(family.nominalAtm + (span * (targetMm - d)) / growth - SLACK);
         if (atm <= family.rbpAtm + SLACK) {
-          return { ok: true, diameterMm: d, pressureAtm: atm, rule: applied, expectedMm: balloonDiameterAt(family, d, atm) };
+          return {
+            ok: true,
+            diameterMm: d,
+            pressureAtm: atm,
+            rule: applied,
+            expectedMm: balloonDiameterAt(family, d, atm),
+          };
         }
       }
       return aboveStock(`No stocked size at or above ${mm(targetMm)} mm, and none reaches it by rated burst pressure`);

@@ -13,7 +13,16 @@ export type Column = (typeof REQUIRED_COLUMNS)[number] | (typeof OPTIONAL_COLUMN
 const ALL_COLUMNS: readonly string[] = [...REQUIRED_COLUMNS, ...OPTIONAL_COLUMNS];
 
 /** What in_stock accepts, in any letter case. */
-export const IN_STOCK_WORDS: Record<string, boolean> = { yes: true, y: true, true: true, "1": true, no: false, n: false, false: false, "0": false };
+export const IN_STOCK_WORDS: Record<string, boolean> = {
+  yes: true,
+  y: true,
+  true: true,
+  "1": true,
+  no: false,
+  n: false,
+  false: false,
+  "0": false,
+};
 
 export type CsvRow = {
   line: number;
@@ -49,7 +58,8 @@ function detectDelimiter(text: string): "," | ";" {
   return firstLine.includes(";") ? ";" : ",";
 }
 
-const firstMessage = (result: z.ZodSafeParseResult<unknown>) => (result.success ? "" : (result.error.issues[0]?.message ?? "is not valid."));
+const firstMessage = (result: z.ZodSafeParseResult<unknown>) =>
+  result.success ? "" : (result.error.issues[0]?.message ?? "is not valid.");
 
 export function parseBalloonCsv(input: string): ParsedCsv {
   const text = input.replace(/^\uFEFF/, "").replace(/\r\n?/g, "\n");
@@ -110,9 +120,18 @@ export function parseBalloonCsv(input: string): ParsedCsv {
     },
   });
 
-  if (tooMany) throw new AppError("payload_too_large", `The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en")} rows; the limit is ${MAX_IMPORT_ROWS.toLocaleString("en")}. Split it into smaller files.`);
-  if (columns === null) issues.push({ line: 1, message: `The file has no header line. The first line must name the columns: ${COLUMN_LIST}.` });
-  else if (!headerBroken && dataRows === 0) issues.push({ line: 2, message: "The file has a header but no balloon lines." });
+  if (tooMany)
+    throw new AppError(
+      "payload_too_large",
+      `The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en")} rows; the limit is ${MAX_IMPORT_ROWS.toLocaleString("en")}. Split it into smaller files.`,
+    );
+  if (columns === null)
+    issues.push({
+      line: 1,
+      message: `The file has no header line. The first line must name the columns: ${COLUMN_LIST}.`,
+    });
+  else if (!headerBroken && dataRows === 0)
+    issues.push({ line: 2, message: "The file has a header but no balloon lines." });
   return { delimiter, columns: columns ?? [], rows, issues };
 }
 
@@ -121,15 +140,26 @@ function readHeader(fields: string[], line: number, issues: LineIssue[]): Column
   const before = issues.length;
   names.forEach((name, i) => {
     if (name === "" && i === names.length - 1) return;
-    if (!ALL_COLUMNS.includes(name)) issues.push({ line, message: `Unknown column "${fields[i]!.trim()}". The columns are ${COLUMN_LIST}.` });
+    if (!ALL_COLUMNS.includes(name))
+      issues.push({ line, message: `Unknown column "${fields[i]!.trim()}". The columns are ${COLUMN_LIST}.` });
     else if (names.indexOf(name) !== i) issues.push({ line, message: `The column "${name}" appears twice.` });
   });
   const missing = REQUIRED_COLUMNS.filter((c) => !names.includes(c));
-  if (missing.length) issues.push({ line, message: `Missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")}. The columns are ${COLUMN_LIST}.` });
+  if (missing.length)
+    issues.push({
+      line,
+      message: `Missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")}. The columns are ${COLUMN_LIST}.`,
+    });
   return issues.length > before ? null : (names.filter((n) => n !== "") as Column[]);
 }
 
-function readRow(fields: string[], columns: Column[], delimiter: string, line: number, issues: LineIssue[]): CsvRow | null {
+function readRow(
+  fields: string[],
+  columns: Column[],
+  delimiter: string,
+  line: number,
+  issues: LineIssue[],
+): CsvRow | null {
   const extra = fields.slice(columns.length);
   // Missing trailing optional fields read as empty; a missing required one or extra content is an error.
   const missingRequired = columns.slice(fields.length).some((c) => (REQUIRED_COLUMNS as readonly string[]).includes(c));
@@ -138,7 +168,10 @@ function readRow(fields: string[], columns: Column[], delimiter: string, line: n
       delimiter === "," && fields.length > columns.length
         ? ' A decimal comma in a comma-separated file must be quoted ("2,75"), or use a decimal point (2.75).'
         : "";
-    issues.push({ line, message: `This line has ${fields.length} fields but the header has ${columns.length}.${hint}` });
+    issues.push({
+      line,
+      message: `This line has ${fields.length} fields but the header has ${columns.length}.${hint}`,
+    });
     return null;
   }
   const value = (c: Column) => {
@@ -153,22 +186,35 @@ function readRow(fields: string[], columns: Column[], delimiter: string, line: n
 
   const rawCompliance = value("compliance").toLowerCase();
   const comp = compliance.safeParse(rawCompliance);
-  if (!comp.success) fail("compliance", rawCompliance === "" ? 'is empty: write "nc" (non-compliant) or "sc" (semi-compliant).' : `"${value("compliance")}" is not "nc" or "sc".`);
+  if (!comp.success)
+    fail(
+      "compliance",
+      rawCompliance === ""
+        ? 'is empty: write "nc" (non-compliant) or "sc" (semi-compliant).'
+        : `"${value("compliance")}" is not "nc" or "sc".`,
+    );
 
   const diameterValue = number(value("diameter_mm"), "diameter_mm", true, (n) => diameter.safeParse(n), fail);
 
   const rawStock = value("in_stock").toLowerCase();
   const stock = IN_STOCK_WORDS[rawStock];
   if (stock === undefined) {
-    fail("in_stock", rawStock === "" ? "is empty: write yes or no." : `"${value("in_stock")}" is not one of yes, no, y, n, true, false, 1, 0.`);
+    fail(
+      "in_stock",
+      rawStock === ""
+        ? "is empty: write yes or no."
+        : `"${value("in_stock")}" is not one of yes, no, y, n, true, false, 1, 0.`,
+    );
   }
 
   const nominal = number(value("nominal_atm"), "nominal_atm", false, (n) => nominalPressure.safeParse(n), fail);
   const rbp = number(value("rbp_atm"), "rbp_atm", false, (n) => burstPressure.safeParse(n), fail);
   const growth = number(value("growth_at_rbp_mm"), "growth_at_rbp_mm", false, (n) => growthMm.safeParse(n), fail);
-  if (nominal !== undefined && rbp !== undefined && nominal >= rbp) fail("rbp_atm", `the rated burst pressure (${rbp} atm) must be above the nominal pressure (${nominal} atm).`);
+  if (nominal !== undefined && rbp !== undefined && nominal >= rbp)
+    fail("rbp_atm", `the rated burst pressure (${rbp} atm) must be above the nominal pressure (${nominal} atm).`);
 
-  if (issues.length > before || !family.success || !comp.success || diameterValue === undefined || stock === undefined) return null;
+  if (issues.length > before || !family.success || !comp.success || diameterValue === undefined || stock === undefined)
+    return null;
   return {
     line,
     family: family.data,
@@ -210,7 +256,13 @@ const ISSUES_LISTED = 200;
 /** Bad lines -> one 400 naming each line (the first 200) and column; nothing is imported. */
 export function csvIssuesError(issues: LineIssue[]): AppError {
   const lines = new Set(issues.map((i) => i.line)).size;
-  const listed = issues.slice(0, ISSUES_LISTED).map((i) => ({ path: ["line", i.line, ...(i.column ? [i.column] : [])], message: `Line ${i.line}: ${i.message}` }));
+  const listed = issues
+    .slice(0, ISSUES_LISTED)
+    .map((i) => ({ path: ["line", i.line, ...(i.column ? [i.column] : [])], message: `Line ${i.line}: ${i.message}` }));
   const more = issues.length > ISSUES_LISTED ? ` The first ${ISSUES_LISTED} problems are listed.` : "";
-  return new AppError("invalid_input", `${lines === 1 ? "1 line has a problem" : `${lines} lines have problems`}; nothing was imported. Correct the file and try again.${more}`, listed);
+  return new AppError(
+    "invalid_input",
+    `${lines === 1 ? "1 line has a problem" : `${lines} lines have problems`}; nothing was imported. Correct the file and try again.${more}`,
+    listed,
+  );
 }

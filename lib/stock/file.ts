@@ -22,16 +22,26 @@ export async function decodeImportFile(bytes: Uint8Array): Promise<string> {
     throw new AppError("invalid_input", `The file is UTF-16 text; Forkwall reads UTF-8. ${SAVE_AS}`);
   }
   const type = await fileTypeFromBuffer(bytes);
-  if (type) throw new AppError("invalid_input", `The file is not CSV text (it looks like ${type.ext.toUpperCase()}, ${type.mime}). ${SAVE_AS}`);
+  if (type)
+    throw new AppError(
+      "invalid_input",
+      `The file is not CSV text (it looks like ${type.ext.toUpperCase()}, ${type.mime}). ${SAVE_AS}`,
+    );
   const control = bytes.findIndex((b) => b < 0x20 && b !== 0x09 && b !== 0x0a && b !== 0x0d);
   if (control >= 0) {
     const line = lineAt(new TextDecoder().decode(bytes.subarray(0, control)), control);
-    throw new AppError("invalid_input", `The file is not text: it contains binary data (${bytes[control] === 0 ? "a NUL byte" : "a control character"} on line ${line}). ${SAVE_AS}`);
+    throw new AppError(
+      "invalid_input",
+      `The file is not text: it contains binary data (${bytes[control] === 0 ? "a NUL byte" : "a control character"} on line ${line}). ${SAVE_AS}`,
+    );
   }
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
     const lossy = new TextDecoder("utf-8").decode(bytes);
-    throw new AppError("invalid_input", `The file is not valid UTF-8 text (first bad character on line ${lineAt(lossy, lossy.indexOf("\uFFFD"))}). ${SAVE_AS}`);
+    throw new AppError(
+      "invalid_input",
+      `The file is not valid UTF-8 text (first bad character on line ${lineAt(lossy, lossy.indexOf("\uFFFD"))}). ${SAVE_AS}`,
+    );
   }
 }

@@ -53,7 +53,8 @@ function fieldRows(before: Obj | null, after: Obj | null, prefix = ""): HistoryR
 
 type ImportFamily = Obj & { name: string; balloons: { diameterMm: number; inStock: boolean }[] };
 
-const withoutSizes = (fam: ImportFamily): Obj => Object.fromEntries(Object.entries(fam).filter(([k]) => k !== "balloons"));
+const withoutSizes = (fam: ImportFamily): Obj =>
+  Object.fromEntries(Object.entries(fam).filter(([k]) => k !== "balloons"));
 
 function importRows(before: ImportFamily[], after: ImportFamily[]): HistoryRow[] {
   const rows: HistoryRow[] = [];
@@ -61,7 +62,14 @@ function importRows(before: ImportFamily[], after: ImportFamily[]): HistoryRow[]
     const old = before.find((f) => f.name === fam.name);
     const { balloons: newSizes, ...values } = fam;
     if (!old) {
-      rows.push({ label: fam.name, before: NONE, after: `new family: ${fieldRows(null, values).filter((r) => r.label !== "Name").map((r) => `${r.label.toLowerCase()} ${r.after}`).join(", ")}` });
+      rows.push({
+        label: fam.name,
+        before: NONE,
+        after: `new family: ${fieldRows(null, values)
+          .filter((r) => r.label !== "Name")
+          .map((r) => `${r.label.toLowerCase()} ${r.after}`)
+          .join(", ")}`,
+      });
     } else {
       rows.push(...fieldRows(withoutSizes(old), values, `${fam.name}: `));
     }
@@ -69,7 +77,11 @@ function importRows(before: ImportFamily[], after: ImportFamily[]): HistoryRow[]
     for (const b of newSizes) {
       const prev = oldSizes.get(hundredths(b.diameterMm));
       if (!prev || prev.inStock !== b.inStock) {
-        rows.push({ label: `${fam.name} ${formatMm(b.diameterMm)} mm`, before: prev ? formatStockValue("inStock", prev.inStock) : NONE, after: formatStockValue("inStock", b.inStock) });
+        rows.push({
+          label: `${fam.name} ${formatMm(b.diameterMm)} mm`,
+          before: prev ? formatStockValue("inStock", prev.inStock) : NONE,
+          after: formatStockValue("inStock", b.inStock),
+        });
       }
     }
   }

@@ -6,9 +6,29 @@ import { formatAtm, formatMm, hundredths, nameKey } from "./format";
 import type { BalloonFamilyView, FamilyValues } from "./types";
 
 export type FamilyAdd = FamilyValues & { line: number; sizes: number };
-export type FamilyChange = { id: number; name: string; before: FamilyValues; after: FamilyValues; fields: (keyof FamilyValues)[] };
-export type BalloonAdd = { family: string; familyId: number | null; diameterMm: number; inStock: boolean; line: number };
-export type BalloonChange = { id: number; family: string; familyId: number; diameterMm: number; before: { inStock: boolean }; after: { inStock: boolean }; line: number };
+export type FamilyChange = {
+  id: number;
+  name: string;
+  before: FamilyValues;
+  after: FamilyValues;
+  fields: (keyof FamilyValues)[];
+};
+export type BalloonAdd = {
+  family: string;
+  familyId: number | null;
+  diameterMm: number;
+  inStock: boolean;
+  line: number;
+};
+export type BalloonChange = {
+  id: number;
+  family: string;
+  familyId: number;
+  diameterMm: number;
+  before: { inStock: boolean };
+  after: { inStock: boolean };
+  line: number;
+};
 export type BalloonMarkOut = { id: number; family: string; familyId: number; diameterMm: number };
 
 export type ImportPlan = {
@@ -28,7 +48,11 @@ export type ImportResult = { dryRun: boolean; applied: boolean; revision: number
 
 export function isEmptyPlan(plan: ImportPlan): boolean {
   return (
-    plan.familiesToAdd.length + plan.familiesToChange.length + plan.balloonsToAdd.length + plan.balloonsToChange.length + plan.balloonsToMarkOutOfStock.length ===
+    plan.familiesToAdd.length +
+      plan.familiesToChange.length +
+      plan.balloonsToAdd.length +
+      plan.balloonsToChange.length +
+      plan.balloonsToMarkOutOfStock.length ===
     0
   );
 }
@@ -60,7 +84,10 @@ const PRESSURE_COLUMNS = { nominalAtm: "nominal_atm", rbpAtm: "rbp_atm", growthA
 const FAMILY_FIELDS: (keyof FamilyValues)[] = ["compliance", "nominalAtm", "rbpAtm", "growthAtRbpMm"];
 
 /** Groups rows by family, checks them against each other and the current stock, and lists the changes. */
-export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]): { plan: ImportPlan; issues: LineIssue[] } {
+export function planBalloonImport(
+  current: BalloonFamilyView[],
+  rows: CsvRow[],
+): { plan: ImportPlan; issues: LineIssue[] } {
   const issues: LineIssue[] = [];
   const families = new Map<string, FileFamily>();
 
@@ -71,7 +98,11 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
       fam = { name: row.family, line: row.line, compliance: { value: row.compliance, line: row.line }, rows: [] };
       families.set(key, fam);
     } else if (fam.compliance.value !== row.compliance) {
-      issues.push({ line: row.line, column: "compliance", message: `compliance: "${row.compliance}" differs from "${fam.compliance.value}" given for ${fam.name} on line ${fam.compliance.line}.` });
+      issues.push({
+        line: row.line,
+        column: "compliance",
+        message: `compliance: "${row.compliance}" differs from "${fam.compliance.value}" given for ${fam.name} on line ${fam.compliance.line}.`,
+      });
     }
     for (const field of ["nominalAtm", "rbpAtm", "growthAtRbpMm"] as const) {
       const value = row[field];
@@ -79,11 +110,20 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
       const given = fam[field];
       if (!given) fam[field] = { value, line: row.line };
       else if (given.value !== value) {
-        issues.push({ line: row.line, column: PRESSURE_COLUMNS[field], message: `${PRESSURE_COLUMNS[field]}: ${value} differs from ${given.value} given for ${fam.name} on line ${given.line}.` });
+        issues.push({
+          line: row.line,
+          column: PRESSURE_COLUMNS[field],
+          message: `${PRESSURE_COLUMNS[field]}: ${value} differs from ${given.value} given for ${fam.name} on line ${given.line}.`,
+        });
       }
     }
     const twin = fam.rows.find((r) => hundredths(r.diameterMm) === hundredths(row.diameterMm));
-    if (twin) issues.push({ line: row.line, column: "diameter_mm", message: `diameter_mm: ${formatMm(row.diameterMm)} mm is already listed for ${fam.name} on line ${twin.line}.` });
+    if (twin)
+      issues.push({
+        line: row.line,
+        column: "diameter_mm",
+        message: `diameter_mm: ${formatMm(row.diameterMm)} mm is already listed for ${fam.name} on line ${twin.line}.`,
+      });
     else fam.rows.push(row);
   }
 
@@ -104,7 +144,10 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
     if (!existing) {
       const missing = (["nominalAtm", "rbpAtm"] as const).filter((f) => !fam[f]).map((f) => PRESSURE_COLUMNS[f]);
       if (missing.length) {
-        issues.push({ line: fam.line, message: `${fam.name} is a new family: give its ${missing.join(" and ")} (on at least one of its lines).` });
+        issues.push({
+          line: fam.line,
+          message: `${fam.name} is a new family: give its ${missing.join(" and ")} (on at least one of its lines).`,
+        });
         continue;
       }
       const values: FamilyValues = {
@@ -116,7 +159,14 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
       };
       if (!pressuresInOrder(fam, values, issues)) continue;
       plan.familiesToAdd.push({ ...values, line: fam.line, sizes: fam.rows.length });
-      for (const row of fam.rows) plan.balloonsToAdd.push({ family: fam.name, familyId: null, diameterMm: row.diameterMm, inStock: row.inStock, line: row.line });
+      for (const row of fam.rows)
+        plan.balloonsToAdd.push({
+          family: fam.name,
+          familyId: null,
+          diameterMm: row.diameterMm,
+          inStock: row.inStock,
+          line: row.line,
+        });
       continue;
     }
 
@@ -147,10 +197,22 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
           line: row.line,
         });
       } else if (!row && balloon.inStock) {
-        plan.balloonsToMarkOutOfStock.push({ id: balloon.id, family: existing.name, familyId: existing.id, diameterMm: balloon.diameterMm });
+        plan.balloonsToMarkOutOfStock.push({
+          id: balloon.id,
+          family: existing.name,
+          familyId: existing.id,
+          diameterMm: balloon.diameterMm,
+        });
       } else plan.unchangedBalloons += 1;
     }
-    for (const row of listed.values()) plan.balloonsToAdd.push({ family: existing.name, familyId: existing.id, diameterMm: row.diameterMm, inStock: row.inStock, line: row.line });
+    for (const row of listed.values())
+      plan.balloonsToAdd.push({
+        family: existing.name,
+        familyId: existing.id,
+        diameterMm: row.diameterMm,
+        inStock: row.inStock,
+        line: row.line,
+      });
   }
 
   issues.sort((a, b) => a.line - b.line);
@@ -161,7 +223,13 @@ export function planBalloonImport(current: BalloonFamilyView[], rows: CsvRow[]):
 }
 
 function pick(f: BalloonFamilyView): FamilyValues {
-  return { name: f.name, compliance: f.compliance, nominalAtm: f.nominalAtm, rbpAtm: f.rbpAtm, growthAtRbpMm: f.growthAtRbpMm };
+  return {
+    name: f.name,
+    compliance: f.compliance,
+    nominalAtm: f.nominalAtm,
+    rbpAtm: f.rbpAtm,
+    growthAtRbpMm: f.growthAtRbpMm,
+  };
 }
 
 function pressuresInOrder(fam: FileFamily, values: FamilyValues, issues: LineIssue[]): boolean {

@@ -17,7 +17,11 @@ export const tokenField = z.string().regex(/^[A-Za-z0-9_-]{43}$/, "This link is 
 export const acceptNewAccountSchema = z
   .object({
     token: tokenField,
-    name: z.string({ error: "Enter your name." }).trim().min(2, "Enter your name (at least 2 characters).").max(120, "Use at most 120 characters."),
+    name: z
+      .string({ error: "Enter your name." })
+      .trim()
+      .min(2, "Enter your name (at least 2 characters).")
+      .max(120, "Use at most 120 characters."),
     ...passwordPair,
   })
   .refine(samePassword, mismatch);

@@ -31,7 +31,10 @@ export const lawSpecSchema = z.discriminatedUnion(
     z.object({ law: z.literal("square") }),
     z.object({
       law: z.literal("power"),
-      n: z.number().min(POWER_N_MIN, `n must be at least ${POWER_N_MIN}`).max(POWER_N_MAX, `n must be at most ${POWER_N_MAX}`),
+      n: z
+        .number()
+        .min(POWER_N_MIN, `n must be at least ${POWER_N_MIN}`)
+        .max(POWER_N_MAX, `n must be at most ${POWER_N_MAX}`),
     }),
   ],
   { error: "Choose a law: finet, murray, huo-kassab, square or power" },
@@ -68,7 +71,8 @@ export const chartDefinitionSchema = z
       .superRefine((lookups, ctx) => {
         const seen = new Set<string>();
         lookups.forEach((l, i) => {
-          if (seen.has(l.kind)) ctx.addIssue({ code: "custom", path: [i, "kind"], message: `The ${l.kind} lookup appears twice` });
+          if (seen.has(l.kind))
+            ctx.addIssue({ code: "custom", path: [i, "kind"], message: `The ${l.kind} lookup appears twice` });
           seen.add(l.kind);
         });
       }),
@@ -92,6 +96,7 @@ export const chartPatchSchema = chartDefinitionSchema.partial().strict();
 /** A definition read back from the database; one that no longer validates is a server fault. */
 export function parseStoredDefinition(raw: unknown): ChartDefinition {
   const parsed = chartDefinitionSchema.safeParse(raw);
-  if (!parsed.success) throw new Error(`A stored chart definition no longer validates: ${parsed.error.issues[0]?.message}`);
+  if (!parsed.success)
+    throw new Error(`A stored chart definition no longer validates: ${parsed.error.issues[0]?.message}`);
   return parsed.data;
 }

@@ -1,7 +1,9 @@
 import { z } from "zod";
 
 export const rejectEditionSchema = z
-  .object({ reason: z.string().trim().min(3, "Say why, in a few words").max(500, "Keep the reason under 500 characters") })
+  .object({
+    reason: z.string().trim().min(3, "Say why, in a few words").max(500, "Keep the reason under 500 characters"),
+  })
   .strict();
 
 export const withdrawEditionSchema = z

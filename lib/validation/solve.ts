@@ -103,8 +103,7 @@ export const solveQuerySchema = queryObject.transform((raw, ctx): SolveQuery => 
 
   let spec: LawSpec | null = null;
   if (law === "power") {
-    if (raw.n === undefined)
-      issue(["n"], `The power law needs n, between ${POWER_N_MIN} and ${POWER_N_MAX}`);
+    if (raw.n === undefined) issue(["n"], `The power law needs n, between ${POWER_N_MIN} and ${POWER_N_MAX}`);
     const n = inRange("n", POWER_N_MIN, POWER_N_MAX, "n");
     if (n !== null) spec = { law, n };
   } else if (raw.n !== undefined) {
@@ -125,8 +124,7 @@ export const solveQuerySchema = queryObject.transform((raw, ctx): SolveQuery => 
   return { spec, known };
 });
 
-export type ParsedSolveQuery =
-  { success: true; data: SolveQuery } | { success: false; issues: QueryIssue[] };
+export type ParsedSolveQuery = { success: true; data: SolveQuery } | { success: false; issues: QueryIssue[] };
 
 export function parseSolveQuery(record: QueryRecord): ParsedSolveQuery {
   const parsed = solveQuerySchema.safeParse(record);

@@ -26,7 +26,10 @@ export function onGrid(value: number, step: number): boolean {
 const snap = (step: number) => (value: number) => Number((Math.round(value / step) * step).toFixed(2));
 
 const number = (label: string) =>
-  z.number({ error: (iss) => (iss.input === undefined || iss.input === null ? `${label} is required.` : `${label} must be a number.`) });
+  z.number({
+    error: (iss) =>
+      iss.input === undefined || iss.input === null ? `${label} is required.` : `${label} must be a number.`,
+  });
 
 const mm = (value: number) => `${value.toFixed(2)} mm`;
 
@@ -58,7 +61,9 @@ export const stockName = (what: string) =>
     .max(NAME_MAX, `${what} name must be ${NAME_MAX} characters or fewer.`)
     .refine((v) => !/[\u0000-\u001f\u007f]/.test(v), `${what} name cannot contain line breaks or control characters.`);
 
-export const compliance = z.enum(COMPLIANCES, { error: 'Compliance must be "nc" (non-compliant) or "sc" (semi-compliant).' });
+export const compliance = z.enum(COMPLIANCES, {
+  error: 'Compliance must be "nc" (non-compliant) or "sc" (semi-compliant).',
+});
 export const inStock = z.boolean({ error: "In stock must be true or false." });
 
 const atLeastOneField = (v: object) => Object.keys(v).length > 0;
@@ -77,7 +82,11 @@ const familyFields = z.strictObject({
 /** Nominal pressure below rated burst: checked on whole values (after a patch is merged, too). */
 export const balloonFamilyInput = familyFields.superRefine((v, ctx) => {
   if (v.nominalAtm >= v.rbpAtm) {
-    ctx.addIssue({ code: "custom", path: ["rbpAtm"], message: "Rated burst pressure must be above the nominal pressure." });
+    ctx.addIssue({
+      code: "custom",
+      path: ["rbpAtm"],
+      message: "Rated burst pressure must be above the nominal pressure.",
+    });
   }
 });
 export const balloonFamilyPatch = familyFields.partial().refine(atLeastOneField, NOTHING_TO_CHANGE);
@@ -87,7 +96,10 @@ export type BalloonFamilyPatch = z.output<typeof balloonFamilyPatch>;
 // ---------- balloons ----------
 
 export const balloonInput = z.strictObject({ diameterMm: diameterMm(), inStock: inStock.default(true) });
-export const balloonPatch = z.strictObject({ diameterMm: diameterMm(), inStock }).partial().refine(atLeastOneField, NOTHING_TO_CHANGE);
+export const balloonPatch = z
+  .strictObject({ diameterMm: diameterMm(), inStock })
+  .partial()
+  .refine(atLeastOneField, NOTHING_TO_CHANGE);
 export type BalloonInput = z.output<typeof balloonInput>;
 export type BalloonPatch = z.output<typeof balloonPatch>;
 
@@ -105,7 +117,11 @@ const sizeFields = z.strictObject({
 
 export const stentSizeInput = sizeFields.superRefine((v, ctx) => {
   if (v.maxPostDilatationMm < v.nominalMm) {
-    ctx.addIssue({ code: "custom", path: ["maxPostDilatationMm"], message: `Maximum post-dilatation diameter must be at least the nominal diameter (${mm(v.nominalMm)}).` });
+    ctx.addIssue({
+      code: "custom",
+      path: ["maxPostDilatationMm"],
+      message: `Maximum post-dilatation diameter must be at least the nominal diameter (${mm(v.nominalMm)}).`,
+    });
   } else if (v.maxPostDilatationMm > v.nominalMm + MAX_POST_DILATATION_OVER_NOMINAL_MM + 1e-9) {
     ctx.addIssue({
       code: "custom",
@@ -121,11 +137,15 @@ export type StentSizePatch = z.output<typeof stentSizePatch>;
 // ---------- URL parts ----------
 
 export const idParams = z.object({
-  id: z.coerce.number({ error: "The id must be a positive whole number." }).int("The id must be a positive whole number.").positive("The id must be a positive whole number.").max(Number.MAX_SAFE_INTEGER),
+  id: z.coerce
+    .number({ error: "The id must be a positive whole number." })
+    .int("The id must be a positive whole number.")
+    .positive("The id must be a positive whole number.")
+    .max(Number.MAX_SAFE_INTEGER),
 });
 
 const flag = z
-  .enum(["1", "0", "true", "false"], { error: 'Use 1 or 0 (or true or false).' })
+  .enum(["1", "0", "true", "false"], { error: "Use 1 or 0 (or true or false)." })
   .optional()
   .transform((v) => v === "1" || v === "true");
 

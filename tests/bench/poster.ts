@@ -57,14 +57,31 @@ async function pdfkitModules() {
 
 /** The same page drawn directly with pdfkit: same layout boxes, texts, fonts and QR modules. */
 async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): Promise<Buffer> {
-  const { PDFDocument, cellBox, layoutPoster, cellView, cornerSymbols, formatAxisMm, PALETTE, lookupTitle, QR_QUIET_MODULES, qrSymbol, layoutInputFor, posterLegend, snapshotGrids } =
-    await pdfkitModules();
+  const {
+    PDFDocument,
+    cellBox,
+    layoutPoster,
+    cellView,
+    cornerSymbols,
+    formatAxisMm,
+    PALETTE,
+    lookupTitle,
+    QR_QUIET_MODULES,
+    qrSymbol,
+    layoutInputFor,
+    posterLegend,
+    snapshotGrids,
+  } = await pdfkitModules();
   // The same pure model the poster uses, without loading react-pdf.
   const layout = layoutPoster(layoutInputFor(input.snapshot, input.edition, input.logo !== null));
   const grids = snapshotGrids(input.snapshot);
   const legend = posterLegend(input.snapshot);
   const qr = qrSymbol(input.edition.checkUrl);
-  const doc = new PDFDocument({ size: [layout.page.width, layout.page.height], margin: 0, info: { Title: input.snapshot.title, CreationDate: new Date(0) } });
+  const doc = new PDFDocument({
+    size: [layout.page.width, layout.page.height],
+    margin: 0,
+    info: { Title: input.snapshot.title, CreationDate: new Date(0) },
+  });
   const fonts = path.join(process.cwd(), "fonts");
   doc.registerFont("Inter", path.join(fonts, "Inter-Regular.ttf"));
   doc.registerFont("Inter-Bold", path.join(fonts, "Inter-Bold.ttf"));
@@ -72,25 +89,47 @@ async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): 
   doc.on("data", (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve) => doc.on("end", () => resolve(Buffer.concat(chunks))));
   const { fonts: f } = layout;
-  doc.font("Inter-Bold").fontSize(f.title).fillColor(PALETTE.ink).text(input.snapshot.title, layout.title.x, layout.title.y + f.lab * 1.3, { width: layout.title.width });
+  doc
+    .font("Inter-Bold")
+    .fontSize(f.title)
+    .fillColor(PALETTE.ink)
+    .text(input.snapshot.title, layout.title.x, layout.title.y + f.lab * 1.3, { width: layout.title.width });
   grids.forEach((grid, gi) => {
     const g = layout.grids[gi];
     if (!g) return;
-    doc.font("Inter-Bold").fontSize(f.gridTitle).text(lookupTitle(grid.kind), g.title.x, g.title.y, { width: g.title.width });
+    doc
+      .font("Inter-Bold")
+      .fontSize(f.gridTitle)
+      .text(lookupTitle(grid.kind), g.title.x, g.title.y, { width: g.title.width });
     grid.colAxis.values.forEach((v, j) => {
-      doc.rect(g.cellsX + j * g.cellWidth, g.cellsY - g.colHeadHeight, g.cellWidth, g.colHeadHeight).fillAndStroke(PALETTE.heading, PALETTE.rule);
-      doc.fillColor(PALETTE.ink).fontSize(layout.figurePt * 0.56).text(formatAxisMm(v), g.cellsX + j * g.cellWidth, g.cellsY - g.colHeadHeight, { width: g.cellWidth, align: "center", features: ["tnum"] });
+      doc
+        .rect(g.cellsX + j * g.cellWidth, g.cellsY - g.colHeadHeight, g.cellWidth, g.colHeadHeight)
+        .fillAndStroke(PALETTE.heading, PALETTE.rule);
+      doc
+        .fillColor(PALETTE.ink)
+        .fontSize(layout.figurePt * 0.56)
+        .text(formatAxisMm(v), g.cellsX + j * g.cellWidth, g.cellsY - g.colHeadHeight, {
+          width: g.cellWidth,
+          align: "center",
+          features: ["tnum"],
+        });
     });
     grid.cells.forEach((row, i) =>
       row.forEach((cell, j) => {
         const b = cellBox(g, i, j);
         const v = cellView(cell);
         doc.rect(b.x, b.y, b.width, b.height).fillAndStroke(v.background, PALETTE.rule);
-        doc.fillColor(PALETTE.ink).font("Inter").fontSize(layout.figurePt * 0.34);
+        doc
+          .fillColor(PALETTE.ink)
+          .font("Inter")
+          .fontSize(layout.figurePt * 0.34);
         if (v.exact) doc.text(v.exact, b.x + 3, b.y + 2, { lineBreak: false, features: ["tnum"] });
         const corner = cornerSymbols(v);
         if (corner) doc.text(corner, b.x + b.width - 14, b.y + 2, { lineBreak: false });
-        doc.font("Inter-Bold").fontSize(layout.figurePt).text(v.primary, b.x, b.y + layout.figurePt * 0.33, { width: b.width, align: "center", features: ["tnum"] });
+        doc
+          .font("Inter-Bold")
+          .fontSize(layout.figurePt)
+          .text(v.primary, b.x, b.y + layout.figurePt * 0.33, { width: b.width, align: "center", features: ["tnum"] });
       }),
     );
   });
@@ -99,9 +138,14 @@ async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): 
     const row = layout.legendRows[i];
     if (row) doc.text(`${e.label}. ${e.text}`, row.text.x, row.text.y, { width: row.text.width });
   });
-  doc.fontSize(f.caution).text(`CAUTION. ${input.snapshot.caution}`, layout.caution.x + 6, layout.caution.y + 6, { width: layout.caution.width - 12 });
+  doc
+    .fontSize(f.caution)
+    .text(`CAUTION. ${input.snapshot.caution}`, layout.caution.x + 6, layout.caution.y + 6, {
+      width: layout.caution.width - 12,
+    });
   const m = layout.qr.width / (qr.size + 2 * QR_QUIET_MODULES);
-  for (const r of qr.rects) doc.rect(layout.qr.x + (r.x + QR_QUIET_MODULES) * m, layout.qr.y + (r.y + QR_QUIET_MODULES) * m, r.width * m, m);
+  for (const r of qr.rects)
+    doc.rect(layout.qr.x + (r.x + QR_QUIET_MODULES) * m, layout.qr.y + (r.y + QR_QUIET_MODULES) * m, r.width * m, m);
   doc.fill("#000000");
   doc.end();
   return done;
@@ -148,7 +192,9 @@ async function cachedReadMs(pdf: Buffer): Promise<number | null> {
     await runMigrations(db);
     await db.execute(sql`INSERT INTO labs (slug, name) VALUES ('bench', 'Bench lab (illustrative)')`);
     await db.execute(sql`INSERT INTO charts (lab_id, title, definition) VALUES (1, 'Bench', '{}')`);
-    await db.execute(sql`INSERT INTO editions (lab_id, chart_id, number, snapshot, fingerprint, check_token) VALUES (1, 1, 1, '{}', REPEAT('a', 64), 'bench-token-0000000000000')`);
+    await db.execute(
+      sql`INSERT INTO editions (lab_id, chart_id, number, snapshot, fingerprint, check_token) VALUES (1, 1, 1, '{}', REPEAT('a', 64), 'bench-token-0000000000000')`,
+    );
     await db.execute(sql`INSERT INTO poster_renders (edition_id, render_key, pdf) VALUES (1, REPEAT('b', 64), ${pdf})`);
     const times: number[] = [];
     for (let i = 0; i < 21; i++) {
@@ -179,7 +225,11 @@ async function main() {
     await renderOnce(engine, input); // warm-up
     const warm: number[] = [];
     for (let i = 0; i < WARM_RUNS; i++) warm.push(await renderOnce(engine, input));
-    results[engine] = { coldFirst: median(cold.map((c) => c.firstMs)), coldImport: median(cold.map((c) => c.importMs)), warm: median(warm) };
+    results[engine] = {
+      coldFirst: median(cold.map((c) => c.firstMs)),
+      coldImport: median(cold.map((c) => c.importMs)),
+      warm: median(warm),
+    };
   }
   const { renderPosterPdf } = await import("../../components/poster/render");
   const pdf = await renderPosterPdf(input);
@@ -188,15 +238,28 @@ async function main() {
   const p = results.pdfkit;
   const ms = (x: number) => `${Math.round(x)} ms`;
   const ratio = (a: number, b: number) => `${(a / b).toFixed(1)}×`;
-  const load = os.loadavg().map((x) => x.toFixed(1)).join(", ");
-  console.log(`\nA1 portrait poster, two 10 x 12 grids; ${os.cpus().length} cores, Node ${process.version}, load average ${load} (1, 5, 15 min)`);
-  console.log(`cold: median of ${COLD_RUNS} fresh processes (first render; module import shown apart); warm: median of ${WARM_RUNS} renders in one process\n`);
+  const load = os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(", ");
+  console.log(
+    `\nA1 portrait poster, two 10 x 12 grids; ${os.cpus().length} cores, Node ${process.version}, load average ${load} (1, 5, 15 min)`,
+  );
+  console.log(
+    `cold: median of ${COLD_RUNS} fresh processes (first render; module import shown apart); warm: median of ${WARM_RUNS} renders in one process\n`,
+  );
   console.log("| engine | cold first render | module import (cold) | warm render |");
   console.log("|---|---|---|---|");
   console.log(`| react-pdf 4.9 (the poster) | ${ms(r.coldFirst)} | ${ms(r.coldImport)} | ${ms(r.warm)} |`);
-  console.log(`| raw pdfkit 0.20 (same cells, fonts, texts, QR) | ${ms(p.coldFirst)} | ${ms(p.coldImport)} | ${ms(p.warm)} |`);
-  console.log(`| ratio react-pdf / pdfkit | ${ratio(r.coldFirst, p.coldFirst)} | ${ratio(r.coldImport, p.coldImport)} | ${ratio(r.warm, p.warm)} |`);
-  console.log(`\ncached download: the ${Math.round(pdf.length / 1024)} KB render read back from MariaDB by its key, median of 20: ${cached === null ? "not measured" : `${cached.toFixed(1)} ms`}`);
+  console.log(
+    `| raw pdfkit 0.20 (same cells, fonts, texts, QR) | ${ms(p.coldFirst)} | ${ms(p.coldImport)} | ${ms(p.warm)} |`,
+  );
+  console.log(
+    `| ratio react-pdf / pdfkit | ${ratio(r.coldFirst, p.coldFirst)} | ${ratio(r.coldImport, p.coldImport)} | ${ratio(r.warm, p.warm)} |`,
+  );
+  console.log(
+    `\ncached download: the ${Math.round(pdf.length / 1024)} KB render read back from MariaDB by its key, median of 20: ${cached === null ? "not measured" : `${cached.toFixed(1)} ms`}`,
+  );
 }
 
 const childAt = process.argv.indexOf("--child");

@@ -7,7 +7,9 @@ import { closeDb, demoIds, query } from "./support/db";
 
 const ACTORS: Actor[] = ["anonymous", ...ALL_ROLES];
 const demoState = () =>
-  query<{ id: number; role: string }>("SELECT m.id, m.role FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email LIKE '%@forkwall.test' ORDER BY m.id");
+  query<{ id: number; role: string }>(
+    "SELECT m.id, m.role FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email LIKE '%@forkwall.test' ORDER BY m.id",
+  );
 
 let ids: Record<string, number | string>;
 let before: Awaited<ReturnType<typeof demoState>>;
@@ -37,11 +39,16 @@ for (const actor of ACTORS) {
       const res = await request.fetch(url, { method: row.method, data: row.body, maxRedirects: 0 });
       const want = row.expect![actor];
       walked++;
-      if (res.status() !== want) wrong.push(`${row.method} ${url}: ${res.status()} (matrix: ${want}) ${(await res.text()).slice(0, 160)}`);
+      if (res.status() !== want)
+        wrong.push(`${row.method} ${url}: ${res.status()} (matrix: ${want}) ${(await res.text()).slice(0, 160)}`);
       else if (res.status() >= 400 && url.startsWith("/api/v1/")) {
-        const body = (await res.json()) as { error?: { code?: string; message?: string; issues?: { path: unknown[] }[] } };
-        if (!body.error?.code || !body.error.message) wrong.push(`${row.method} ${url}: error without code and message`);
-        if (res.status() === 400 && !body.error?.issues?.length) wrong.push(`${row.method} ${url}: 400 without field issues`);
+        const body = (await res.json()) as {
+          error?: { code?: string; message?: string; issues?: { path: unknown[] }[] };
+        };
+        if (!body.error?.code || !body.error.message)
+          wrong.push(`${row.method} ${url}: error without code and message`);
+        if (res.status() === 400 && !body.error?.issues?.length)
+          wrong.push(`${row.method} ${url}: 400 without field issues`);
       }
     }
     expect(walked).toBe(ROUTES.filter((r) => r.exempt === undefined).length);

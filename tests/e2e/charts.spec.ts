@@ -26,13 +26,26 @@ test("design a chart, create an edition, approve it as another role and download
   await expect(educator.getByRole("heading", { level: 1, name: title })).toBeVisible();
 
   // The lab logo: a text file named .png is refused from its bytes; a real PNG is taken.
-  await educator.getByLabel("Logo file (PNG or JPEG, at most 1 MB)").setInputFiles({ name: "logo.png", mimeType: "image/png", buffer: Buffer.from("not really a picture\n".repeat(10)) });
+  await educator
+    .getByLabel("Logo file (PNG or JPEG, at most 1 MB)")
+    .setInputFiles({
+      name: "logo.png",
+      mimeType: "image/png",
+      buffer: Buffer.from("not really a picture\n".repeat(10)),
+    });
   await expect(educator.getByRole("alert").filter({ hasText: "must be a PNG or JPEG" })).toBeVisible();
-  await educator.getByLabel("Logo file (PNG or JPEG, at most 1 MB)").setInputFiles({ name: "logo.png", mimeType: "image/png", buffer: testPng() });
+  await educator
+    .getByLabel("Logo file (PNG or JPEG, at most 1 MB)")
+    .setInputFiles({ name: "logo.png", mimeType: "image/png", buffer: testPng() });
   await expect(educator.getByRole("img", { name: "Current lab logo" })).toBeVisible();
-  const big = await educator.request.put(`${educator.url().replace(/\/labs\/demo\/charts\//, "/api/v1/charts/")}/logo`, {
-    multipart: { file: { name: "big.png", mimeType: "image/png", buffer: Buffer.concat([testPng(), Buffer.alloc(1_100_000)]) } },
-  });
+  const big = await educator.request.put(
+    `${educator.url().replace(/\/labs\/demo\/charts\//, "/api/v1/charts/")}/logo`,
+    {
+      multipart: {
+        file: { name: "big.png", mimeType: "image/png", buffer: Buffer.concat([testPng(), Buffer.alloc(1_100_000)]) },
+      },
+    },
+  );
   expect(big.status()).toBe(413);
 
   await educator.getByRole("button", { name: "Create edition" }).click();
@@ -50,7 +63,10 @@ test("design a chart, create an edition, approve it as another role and download
   await expect(lead.getByRole("status").filter({ hasText: "Edition 1 approved" })).toBeVisible();
   await expect(lead.getByTestId("edition-1")).toContainText("Approved");
 
-  const [download] = await Promise.all([lead.waitForEvent("download"), lead.getByTestId("edition-1").getByRole("link", { name: "Download PDF" }).click()]);
+  const [download] = await Promise.all([
+    lead.waitForEvent("download"),
+    lead.getByTestId("edition-1").getByRole("link", { name: "Download PDF" }).click(),
+  ]);
   const pdf = readFileSync(await download.path());
   // ISO 216 A1 portrait: 594 x 841 mm = 1683.78 x 2383.94 pt.
   const info = pdfInfo(pdf);

@@ -17,7 +17,10 @@ async function setInStock(page: Page, inStock: boolean) {
   await expect(page.getByText(`3.75 mm marked ${inStock ? "in stock" : "out of stock"}`)).toBeVisible();
 }
 
-test("a posted poster's QR code reports current, outdated with the size named, and current again", async ({ page, baseURL }) => {
+test("a posted poster's QR code reports current, outdated with the size named, and current again", async ({
+  page,
+  baseURL,
+}) => {
   const ids = await demoIds();
   await signInPage(page, demoEmail("manager"));
   const mailsBefore = (await mailTo(demoEmail("manager"))).length;
@@ -32,7 +35,12 @@ test("a posted poster's QR code reports current, outdated with the size named, a
 
   await page.goto(url!);
   await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
-  await expect(page.getByRole("region", { name: "Where this copy hangs" }).getByRole("listitem").filter({ hasText: "Procedure room 1" })).toBeVisible();
+  await expect(
+    page
+      .getByRole("region", { name: "Where this copy hangs" })
+      .getByRole("listitem")
+      .filter({ hasText: "Procedure room 1" }),
+  ).toBeVisible();
 
   await setInStock(page, false);
   await page.goto(url!);
@@ -52,7 +60,9 @@ test("a posted poster's QR code reports current, outdated with the size named, a
   expect(await mailTo(demoEmail("manager"))).toHaveLength(mailsBefore + 1);
 });
 
-test("the check page works without JavaScript and without signing in, and an unknown token is a 404", async ({ browser }) => {
+test("the check page works without JavaScript and without signing in, and an unknown token is a 404", async ({
+  browser,
+}) => {
   const ids = await demoIds();
   const context = await browser.newContext({ javaScriptEnabled: false });
   const page = await context.newPage();

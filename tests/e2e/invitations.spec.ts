@@ -11,11 +11,16 @@ async function inviteThroughPage(page: Page, email: string, role: string) {
   await form.getByLabel("E-mail address").fill(email);
   await form.getByLabel("Role").selectOption({ label: role });
   await form.getByRole("button", { name: "Send invitation" }).click();
-  await expect(page.getByRole("status").filter({ hasText: `Invitation for ${email} as ${role.toLowerCase()} saved` })).toBeVisible();
+  await expect(
+    page.getByRole("status").filter({ hasText: `Invitation for ${email} as ${role.toLowerCase()} saved` }),
+  ).toBeVisible();
   await expect(page.getByTestId(`invitation-${email}`)).toContainText(role);
 }
 
-test("a manager invites an operator by e-mail; the invitee joins and sees only what an operator may", async ({ page, browser }) => {
+test("a manager invites an operator by e-mail; the invitee joins and sees only what an operator may", async ({
+  page,
+  browser,
+}) => {
   const invitee = uniqueEmail("new-operator");
   await signInPage(page, demoEmail("manager"));
   await inviteThroughPage(page, invitee, "Operator");
@@ -43,7 +48,11 @@ test("a manager invites an operator by e-mail; the invitee joins and sees only w
   await guest.getByLabel("Repeat the password").fill("a long enough phrase");
   await guest.getByRole("button", { name: "Create account and join" }).click();
   await expect(guest).toHaveURL(/\/sign-in\?/);
-  await expect(guest.getByRole("status").filter({ hasText: "Your account is ready and you have joined Demo Heart Centre Cath Lab" })).toBeVisible();
+  await expect(
+    guest
+      .getByRole("status")
+      .filter({ hasText: "Your account is ready and you have joined Demo Heart Centre Cath Lab" }),
+  ).toBeVisible();
   await expect(guest.getByLabel("E-mail")).toHaveValue(invitee);
   await guest.getByLabel("Password", { exact: true }).fill("a long enough phrase");
   await guest.getByRole("button", { name: "Sign in", exact: true }).click();
@@ -77,11 +86,17 @@ test("a manager invites an operator by e-mail; the invitee joins and sees only w
   await expect(page.locator('tr[data-action="invitation.sent"]').first()).toContainText("Morgan Avery");
 });
 
-test("an address that already has an account signs in and accepts, joining with the invited role", async ({ browser, playwright, baseURL }) => {
+test("an address that already has an account signs in and accepts, joining with the invited role", async ({
+  browser,
+  playwright,
+  baseURL,
+}) => {
   const person = await createPerson({ prefix: "existing", password: "existing-pass-2026" });
   const manager = await playwright.request.newContext({ baseURL });
   await signInApi(manager, demoEmail("manager"));
-  const res = await manager.post("/api/v1/labs/demo-north/invitations", { data: { email: person.email.toUpperCase(), role: "educator" } });
+  const res = await manager.post("/api/v1/labs/demo-north/invitations", {
+    data: { email: person.email.toUpperCase(), role: "educator" },
+  });
   expect(res.status()).toBe(201);
   expect(await res.json()).toMatchObject({ invitation: { email: person.email, role: "educator" }, emailSent: true });
   await manager.dispose();
@@ -145,7 +160,11 @@ test("bad input on the invite form is refused with the field named, and nothing 
   expect(await mailTo(demoEmail("lead"))).toEqual([]);
 });
 
-test("a manager changes a member's role and removes them; the last manager is protected", async ({ page, playwright, baseURL }) => {
+test("a manager changes a member's role and removes them; the last manager is protected", async ({
+  page,
+  playwright,
+  baseURL,
+}) => {
   const person = await createPerson({ prefix: "member", password: "member-pass-2026", lab: "demo", role: "operator" });
   await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/members");
@@ -167,7 +186,9 @@ test("a manager changes a member's role and removes them; the last manager is pr
   // The server refuses it too, whatever the page shows.
   const api = await playwright.request.newContext({ baseURL });
   await signInApi(api, demoEmail("manager"));
-  const members = (await (await api.get("/api/v1/labs/demo/members")).json()) as { members: { id: number; email: string }[] };
+  const members = (await (await api.get("/api/v1/labs/demo/members")).json()) as {
+    members: { id: number; email: string }[];
+  };
   const mine = members.members.find((m) => m.email === demoEmail("manager"))!;
   const demote = await api.patch(`/api/v1/labs/demo/members/${mine.id}`, { data: { role: "operator" } });
   expect(demote.status()).toBe(409);

@@ -7,13 +7,21 @@ import { waitForMail } from "./support/mail";
 function watch(page: Page) {
   const problems: string[] = [];
   page.on("console", (msg) => {
-    if (/Content.Security.Policy|Refused to (load|execute|apply|connect|frame)/i.test(msg.text())) problems.push(`${page.url()}: ${msg.text()}`);
+    if (/Content.Security.Policy|Refused to (load|execute|apply|connect|frame)/i.test(msg.text()))
+      problems.push(`${page.url()}: ${msg.text()}`);
   });
   page.on("pageerror", (err) => problems.push(`${page.url()}: ${err.message}`));
   return problems;
 }
 
-const PUBLIC = ["/", "/sign-in", "/forgot-password", "/reset-password/" + "x".repeat(43), "/invite/" + "y".repeat(43), "/sign-out"];
+const PUBLIC = [
+  "/",
+  "/sign-in",
+  "/forgot-password",
+  "/reset-password/" + "x".repeat(43),
+  "/invite/" + "y".repeat(43),
+  "/sign-out",
+];
 const MANAGER = ["/dashboard", "/labs/demo", "/labs/demo/members", "/labs/demo/audit", "/dev/mail", "/sign-out"];
 
 test("no CSP violations or script errors on the public and account pages", async ({ page }) => {
@@ -31,7 +39,9 @@ test("no CSP violations or script errors on the public and account pages", async
   expect(problems).toEqual([]);
 });
 
-test("no CSP violations or script errors on the manager's pages, including sorting and a two-step confirm", async ({ page }) => {
+test("no CSP violations or script errors on the manager's pages, including sorting and a two-step confirm", async ({
+  page,
+}) => {
   const problems = watch(page);
   await signInPage(page, demoEmail("manager"));
   for (const path of MANAGER) {
@@ -48,7 +58,10 @@ test("no CSP violations or script errors on the manager's pages, including sorti
   expect(problems).toEqual([]);
 });
 
-test("/dev/mail lists the mail fake's messages for managers and does not exist for anyone else", async ({ page, browser }) => {
+test("/dev/mail lists the mail fake's messages for managers and does not exist for anyone else", async ({
+  page,
+  browser,
+}) => {
   await page.goto("/forgot-password");
   await page.getByLabel("E-mail").fill(demoEmail("manager"));
   await page.getByRole("button", { name: "Send the link" }).click();

@@ -28,7 +28,9 @@ test("wrong passwords and unknown addresses never sign in, and get the same answ
   await ctx.close();
 });
 
-test("the throttle engages after five failures, refuses even the right password, and releases when its window ends", async ({ browser }) => {
+test("the throttle engages after five failures, refuses even the right password, and releases when its window ends", async ({
+  browser,
+}) => {
   const person = await createPerson({ prefix: "throttled", password: "right-pass-2026" });
   const ip = address();
   const ctx = await browser.newContext({ extraHTTPHeaders: { "x-forwarded-for": ip } });
@@ -40,7 +42,14 @@ test("the throttle engages after five failures, refuses even the right password,
     const t0 = Date.now();
     await page.getByRole("button", { name: "Sign in", exact: true }).click();
     await expect(page.getByRole("alert").filter({ hasText: /do not match|Too many failed attempts/ })).toBeVisible();
-    return { ms: Date.now() - t0, text: (await page.getByRole("alert").filter({ hasText: /do not match|Too many/ }).textContent()) ?? "" };
+    return {
+      ms: Date.now() - t0,
+      text:
+        (await page
+          .getByRole("alert")
+          .filter({ hasText: /do not match|Too many/ })
+          .textContent()) ?? "",
+    };
   };
 
   const answers = [];
@@ -53,7 +62,9 @@ test("the throttle engages after five failures, refuses even the right password,
   expect(refused.text).toContain("Too many failed attempts");
   await expect(page.getByTestId("signed-in-as")).toHaveCount(0);
   // next-auth's own endpoint refuses too, from any address, for this account.
-  expect(await postCredentials(ctx.request, person.email, "right-pass-2026", { "x-forwarded-for": address() })).toContain("code=throttled");
+  expect(
+    await postCredentials(ctx.request, person.email, "right-pass-2026", { "x-forwarded-for": address() }),
+  ).toContain("code=throttled");
   await page.goto("/sign-in?error=CredentialsSignin&code=throttled");
   await expect(page.getByText(/Too many failed attempts/)).toBeVisible();
 
@@ -66,13 +77,23 @@ test("the throttle engages after five failures, refuses even the right password,
   await expect(page.getByTestId("signed-in-as")).toHaveText(person.name);
   expect(await query("SELECT * FROM rate_limits WHERE `key` = ?", [throttleKey(person.email)])).toEqual([]);
 
-  const audit = await query<{ action: string; detail: string | null }>("SELECT action, detail FROM audit_events WHERE target_type = 'user' AND target_id = ? ORDER BY id", [String(person.id)]);
-  expect(audit.map((a) => a.action)).toEqual([...Array(5).fill("signin.failed"), "signin.refused", "signin.refused", "signin.succeeded"]);
+  const audit = await query<{ action: string; detail: string | null }>(
+    "SELECT action, detail FROM audit_events WHERE target_type = 'user' AND target_id = ? ORDER BY id",
+    [String(person.id)],
+  );
+  expect(audit.map((a) => a.action)).toEqual([
+    ...Array(5).fill("signin.failed"),
+    "signin.refused",
+    "signin.refused",
+    "signin.succeeded",
+  ]);
   expect(JSON.stringify(audit)).not.toMatch(/right-pass|wrong-\d/);
   await ctx.close();
 });
 
-test("forgotten password: the same answer for any address, a single-use link by e-mail, then the new password works", async ({ page }) => {
+test("forgotten password: the same answer for any address, a single-use link by e-mail, then the new password works", async ({
+  page,
+}) => {
   const person = await createPerson({ prefix: "forgot", password: "old-pass-2026" });
   const stranger = uniqueEmail("stranger");
   await page.goto("/sign-in");
@@ -81,7 +102,11 @@ test("forgotten password: the same answer for any address, a single-use link by 
   for (const email of [stranger, person.email]) {
     await page.getByLabel("E-mail").fill(email);
     await page.getByRole("button", { name: "Send the link" }).click();
-    await expect(page.getByRole("status").filter({ hasText: `If an account uses ${email}, a link to choose a new password is on its way.` })).toBeVisible();
+    await expect(
+      page
+        .getByRole("status")
+        .filter({ hasText: `If an account uses ${email}, a link to choose a new password is on its way.` }),
+    ).toBeVisible();
   }
   const link = linkIn((await waitForMail(person.email))[0]!, "reset-password");
   expect(await mailTo(stranger)).toEqual([]);

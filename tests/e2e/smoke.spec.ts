@@ -2,11 +2,16 @@ import { expect, test } from "@playwright/test";
 
 const LOCAL_HOSTS = new Set(["localhost", "127.0.0.1", "[::1]"]);
 
-test("the landing page says what Forkwall does, in the shipped font, with no request leaving this machine", async ({ page }) => {
+test("the landing page says what Forkwall does, in the shipped font, with no request leaving this machine", async ({
+  page,
+}) => {
   const outbound: string[] = [];
   page.on("request", (req) => {
     const url = new URL(req.url());
-    if ((url.protocol === "http:" || url.protocol === "https:" || url.protocol === "ws:") && !LOCAL_HOSTS.has(url.hostname)) {
+    if (
+      (url.protocol === "http:" || url.protocol === "https:" || url.protocol === "ws:") &&
+      !LOCAL_HOSTS.has(url.hostname)
+    ) {
       outbound.push(req.url());
     }
   });

@@ -31,7 +31,10 @@ test("every stock route answers each role as the authorization matrix says", asy
   for (const row of STOCK_ROWS) {
     const url = typeof row.url === "string" ? row.url : row.url({});
     for (const actor of ACTORS) {
-      const res = await as(actor).fetch(url, { method: row.method, ...(row.body === undefined ? {} : { data: row.body }) });
+      const res = await as(actor).fetch(url, {
+        method: row.method,
+        ...(row.body === undefined ? {} : { data: row.body }),
+      });
       seen.push(`${row.method} ${row.route} ${actor} ${res.status()}`);
       expect.soft(res.status(), `${row.method} ${url} as ${actor}`).toBe(row.expect?.[actor]);
     }
@@ -59,12 +62,28 @@ test("lead, educator and operator are refused valid writes (403) and nothing cha
   const balloon = before.balloonFamilies[0].balloons[0];
   const csv = Buffer.from("family,compliance,diameter_mm,in_stock\nNC family A (illustrative),nc,2.00,no\n");
   for (const actor of ["lead", "educator", "operator"] as const) {
-    expect((await as(actor).patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: !balloon.inStock } })).status()).toBe(403);
-    expect((await as(actor).post("/api/v1/labs/demo/stock/families", { data: { name: "Sneaky (illustrative)", compliance: "nc", nominalAtm: 10, rbpAtm: 16 } })).status()).toBe(403);
-    expect((await as(actor).delete(`/api/v1/labs/demo/stock/families/${before.balloonFamilies[0].id}`)).status()).toBe(403);
+    expect(
+      (
+        await as(actor).patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: !balloon.inStock } })
+      ).status(),
+    ).toBe(403);
+    expect(
+      (
+        await as(actor).post("/api/v1/labs/demo/stock/families", {
+          data: { name: "Sneaky (illustrative)", compliance: "nc", nominalAtm: 10, rbpAtm: 16 },
+        })
+      ).status(),
+    ).toBe(403);
+    expect((await as(actor).delete(`/api/v1/labs/demo/stock/families/${before.balloonFamilies[0].id}`)).status()).toBe(
+      403,
+    );
     expect((await upload(actor, "", "stock.csv", csv)).status()).toBe(403);
   }
-  expect((await as("anonymous").patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: false } })).status()).toBe(401);
+  expect(
+    (
+      await as("anonymous").patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: false } })
+    ).status(),
+  ).toBe(401);
   expect(await stockOf("demo")).toEqual(before);
 });
 
@@ -80,9 +99,13 @@ test("another lab's member gets 404, and so does an id from another lab", async 
     manager.patch(`/api/v1/labs/demo/stock/balloons/${northBalloon.id}`, { data: { inStock: false } }),
     manager.delete(`/api/v1/labs/demo/stock/balloons/${northBalloon.id}`),
     manager.patch(`/api/v1/labs/demo/stock/families/${north.balloonFamilies[0].id}`, { data: { name: "Taken over" } }),
-    manager.post(`/api/v1/labs/demo/stock/families/${north.balloonFamilies[0].id}/balloons`, { data: { diameterMm: 5 } }),
+    manager.post(`/api/v1/labs/demo/stock/families/${north.balloonFamilies[0].id}/balloons`, {
+      data: { diameterMm: 5 },
+    }),
     manager.delete(`/api/v1/labs/demo/stock/platforms/${north.stentPlatforms[0].id}`),
-    manager.patch(`/api/v1/labs/demo/stock/sizes/${north.stentPlatforms[0].sizes[0].id}`, { data: { maxPostDilatationMm: 4 } }),
+    manager.patch(`/api/v1/labs/demo/stock/sizes/${north.stentPlatforms[0].sizes[0].id}`, {
+      data: { maxPostDilatationMm: 4 },
+    }),
   ];
   for (const res of await Promise.all(tries)) expect(res.status()).toBe(404);
   expect(await stockOf("demo-north")).toEqual(north);
@@ -100,13 +123,21 @@ test("a manager's change: 200, one revision, duplicates 409, bad input 400 with 
   const back = await manager.patch(`/api/v1/labs/demo/stock/balloons/${b.id}`, { data: { inStock: b.inStock } });
   expect((await back.json()).revision).toBe(before.revision + 2);
 
-  const dup = await manager.post(`/api/v1/labs/demo/stock/families/${fam.id}/balloons`, { data: { diameterMm: b.diameterMm } });
+  const dup = await manager.post(`/api/v1/labs/demo/stock/families/${fam.id}/balloons`, {
+    data: { diameterMm: b.diameterMm },
+  });
   expect(dup.status()).toBe(409);
   expect((await dup.json()).error.message).toContain("already has a");
-  const bad = await manager.post("/api/v1/labs/demo/stock/families", { data: { name: "X", compliance: "nc", nominalAtm: 20, rbpAtm: 12 } });
+  const bad = await manager.post("/api/v1/labs/demo/stock/families", {
+    data: { name: "X", compliance: "nc", nominalAtm: 20, rbpAtm: 12 },
+  });
   expect(bad.status()).toBe(400);
   expect(await bad.json()).toEqual({
-    error: { code: "invalid_input", message: "rbpAtm: Rated burst pressure must be above the nominal pressure.", issues: [{ path: ["rbpAtm"], message: "Rated burst pressure must be above the nominal pressure." }] },
+    error: {
+      code: "invalid_input",
+      message: "rbpAtm: Rated burst pressure must be above the nominal pressure.",
+      issues: [{ path: ["rbpAtm"], message: "Rated burst pressure must be above the nominal pressure." }],
+    },
   });
   const after = await stockOf("demo");
   expect(after.revision).toBe(before.revision + 2);
@@ -130,27 +161,50 @@ test.describe("import refusals change nothing", () => {
 
   test("over 5,000 rows: 413", async () => {
     const lines = ["family,compliance,diameter_mm,in_stock,nominal_atm,rbp_atm"];
-    for (let i = 0; i < 5001; i++) lines.push(`Bulk ${Math.floor(i / 100)},nc,${(1 + (i % 100) * 0.05).toFixed(2)},yes,12,20`);
+    for (let i = 0; i < 5001; i++)
+      lines.push(`Bulk ${Math.floor(i / 100)},nc,${(1 + (i % 100) * 0.05).toFixed(2)},yes,12,20`);
     const res = await upload("manager", "?dryRun=1", "rows.csv", Buffer.from(lines.join("\n")));
     expect(res.status()).toBe(413);
     expect((await res.json()).error.message).toContain("more than 5,000 rows");
   });
 
   test("not text: NUL bytes, invalid UTF-8, a workbook", async () => {
-    const nul = await upload("manager", "", "nul.csv", Buffer.from("family,compliance,diameter_mm,in_stock\nA\0,nc,2,yes\n"));
+    const nul = await upload(
+      "manager",
+      "",
+      "nul.csv",
+      Buffer.from("family,compliance,diameter_mm,in_stock\nA\0,nc,2,yes\n"),
+    );
     expect(nul.status()).toBe(400);
     expect((await nul.json()).error.message).toContain("not text");
-    const latin1 = await upload("manager", "", "latin1.csv", Buffer.from("family,compliance,diameter_mm,in_stock\nCaf\xe9,nc,2,yes\n", "latin1"));
+    const latin1 = await upload(
+      "manager",
+      "",
+      "latin1.csv",
+      Buffer.from("family,compliance,diameter_mm,in_stock\nCaf\xe9,nc,2,yes\n", "latin1"),
+    );
     expect(latin1.status()).toBe(400);
     expect((await latin1.json()).error.message).toContain("not valid UTF-8 text (first bad character on line 2)");
-    const zip = await upload("manager", "", "stock.xlsx", Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 6, 0, ...new Array(60).fill(0)]), "application/octet-stream");
+    const zip = await upload(
+      "manager",
+      "",
+      "stock.xlsx",
+      Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 6, 0, ...new Array(60).fill(0)]),
+      "application/octet-stream",
+    );
     expect(zip.status()).toBe(400);
     expect((await zip.json()).error.message).toContain("not CSV text");
   });
 
   test("bad lines: 400 naming each line and reason, whether dry run or not", async () => {
     const csv = Buffer.from(
-      ["family;compliance;diameter_mm;in_stock", "NC family A (illustrative);nc;2,00;no", "NC family A (illustrative);nc;2,33;yes", "NC family A (illustrative);xx;3,00;perhaps", "New family (illustrative);nc;2,00;yes"].join("\r\n"),
+      [
+        "family;compliance;diameter_mm;in_stock",
+        "NC family A (illustrative);nc;2,00;no",
+        "NC family A (illustrative);nc;2,33;yes",
+        "NC family A (illustrative);xx;3,00;perhaps",
+        "New family (illustrative);nc;2,00;yes",
+      ].join("\r\n"),
     );
     for (const query of ["?dryRun=1", ""]) {
       const res = await upload("manager", query, "bad.csv", csv);
@@ -158,14 +212,27 @@ test.describe("import refusals change nothing", () => {
       const { error } = await res.json();
       expect(error.code).toBe("invalid_input");
       expect(error.issues).toEqual([
-        { path: ["line", 3, "diameter_mm"], message: "Line 3: diameter_mm: Diameter must be a multiple of 0.05 mm (for example 2.25 or 2.30)." },
+        {
+          path: ["line", 3, "diameter_mm"],
+          message: "Line 3: diameter_mm: Diameter must be a multiple of 0.05 mm (for example 2.25 or 2.30).",
+        },
         { path: ["line", 4, "compliance"], message: 'Line 4: compliance: "xx" is not "nc" or "sc".' },
-        { path: ["line", 4, "in_stock"], message: 'Line 4: in_stock: "perhaps" is not one of yes, no, y, n, true, false, 1, 0.' },
+        {
+          path: ["line", 4, "in_stock"],
+          message: 'Line 4: in_stock: "perhaps" is not one of yes, no, y, n, true, false, 1, 0.',
+        },
       ]);
     }
-    const plan = await upload("manager", "", "new.csv", Buffer.from("family,compliance,diameter_mm,in_stock\nNew family (illustrative),nc,2.00,yes\n"));
+    const plan = await upload(
+      "manager",
+      "",
+      "new.csv",
+      Buffer.from("family,compliance,diameter_mm,in_stock\nNew family (illustrative),nc,2.00,yes\n"),
+    );
     expect(plan.status()).toBe(400);
-    expect((await plan.json()).error.issues[0].message).toBe("Line 2: New family (illustrative) is a new family: give its nominal_atm and rbp_atm (on at least one of its lines).");
+    expect((await plan.json()).error.issues[0].message).toBe(
+      "Line 2: New family (illustrative) is a new family: give its nominal_atm and rbp_atm (on at least one of its lines).",
+    );
   });
 
   test("no file, or a preview made on an older revision: refused", async () => {
@@ -177,12 +244,16 @@ test.describe("import refusals change nothing", () => {
   });
 
   test("a dry run answers the preview and changes nothing", async () => {
-    const csv = Buffer.from("family,compliance,diameter_mm,in_stock\nSC family B (illustrative),sc,1.50,no\nSC family B (illustrative),sc,\"4,50\",yes\n");
+    const csv = Buffer.from(
+      'family,compliance,diameter_mm,in_stock\nSC family B (illustrative),sc,1.50,no\nSC family B (illustrative),sc,"4,50",yes\n',
+    );
     const res = await upload("manager", "?dryRun=1", "preview.csv", csv);
     expect(res.status()).toBe(200);
     const body = await res.json();
     expect(body).toMatchObject({ dryRun: true, applied: false, revision: (before as { revision: number }).revision });
-    expect(body.plan.balloonsToAdd).toEqual([{ family: "SC family B (illustrative)", familyId: expect.any(Number), diameterMm: 4.5, inStock: true, line: 3 }]);
+    expect(body.plan.balloonsToAdd).toEqual([
+      { family: "SC family B (illustrative)", familyId: expect.any(Number), diameterMm: 4.5, inStock: true, line: 3 },
+    ]);
     expect(body.plan.balloonsToChange.map((b: { diameterMm: number }) => b.diameterMm)).toEqual([1.5]);
     expect(body.plan.balloonsToMarkOutOfStock.length).toBeGreaterThan(5);
   });

@@ -12,11 +12,17 @@ const B = `http://localhost:${PORT_B}`;
 let second: ChildProcess;
 
 test.beforeAll(async () => {
-  second = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT_B)], {
-    env: { ...process.env, PORT: String(PORT_B) },
-    stdio: "ignore",
-  });
-  await expect.poll(async () => (await fetch(`${B}/api/health`).catch(() => null))?.status ?? 0, { timeout: 60_000 }).toBe(200);
+  second = spawn(
+    process.execPath,
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT_B)],
+    {
+      env: { ...process.env, PORT: String(PORT_B) },
+      stdio: "ignore",
+    },
+  );
+  await expect
+    .poll(async () => (await fetch(`${B}/api/health`).catch(() => null))?.status ?? 0, { timeout: 60_000 })
+    .toBe(200);
 });
 
 test.afterAll(() => {
@@ -31,10 +37,15 @@ async function balloonId(diameter: number): Promise<number> {
   return Number(row!.id);
 }
 
-const revision = async () => Number((await query<{ r: number }>("SELECT stock_revision AS r FROM labs WHERE slug = 'demo'"))[0]!.r);
-const patch = (api: APIRequestContext, base: string, id: number, inStock: boolean) => api.patch(`${base}/api/v1/labs/demo/stock/balloons/${id}`, { data: { inStock } });
+const revision = async () =>
+  Number((await query<{ r: number }>("SELECT stock_revision AS r FROM labs WHERE slug = 'demo'"))[0]!.r);
+const patch = (api: APIRequestContext, base: string, id: number, inStock: boolean) =>
+  api.patch(`${base}/api/v1/labs/demo/stock/balloons/${id}`, { data: { inStock } });
 
-test("what one instance changes, the other reports; racing changes through both are serialised", async ({ playwright, baseURL }) => {
+test("what one instance changes, the other reports; racing changes through both are serialised", async ({
+  playwright,
+  baseURL,
+}) => {
   const ids = await demoIds();
   const api = await playwright.request.newContext();
   const a = await playwright.request.newContext({ baseURL });
@@ -42,7 +53,11 @@ test("what one instance changes, the other reports; racing changes through both 
   const b = await playwright.request.newContext({ baseURL: B });
   await signInApi(b, demoEmail("manager"));
 
-  const check = async (base: string) => (await (await api.get(`${base}/api/v1/check/${ids["token:pot"]}`)).json()) as { status: string; changes: { detail: string }[] };
+  const check = async (base: string) =>
+    (await (await api.get(`${base}/api/v1/check/${ids["token:pot"]}`)).json()) as {
+      status: string;
+      changes: { detail: string }[];
+    };
   expect((await check(baseURL!)).status).toBe("current");
   expect((await check(B)).status).toBe("current");
 
@@ -51,7 +66,9 @@ test("what one instance changes, the other reports; racing changes through both 
   expect((await patch(a, baseURL!, b375, false)).status()).toBe(200);
   const onB = await check(B);
   expect(onB.status).toBe("outdated");
-  expect(onB.changes.map((c) => c.detail)).toContain("3.75 mm NC balloon no longer stocked (NC family A (illustrative))");
+  expect(onB.changes.map((c) => c.detail)).toContain(
+    "3.75 mm NC balloon no longer stocked (NC family A (illustrative))",
+  );
   expect((await patch(b, B, b375, true)).status()).toBe(200);
   expect((await check(baseURL!)).status).toBe("current");
 
@@ -59,14 +76,20 @@ test("what one instance changes, the other reports; racing changes through both 
   // stale are announced once.
   const mails = (await mailTo(demoEmail("manager"))).length;
   const rev = await revision();
-  const [r1, r2] = await Promise.all([patch(a, baseURL!, await balloonId(4), false), patch(b, B, await balloonId(4.25), false)]);
+  const [r1, r2] = await Promise.all([
+    patch(a, baseURL!, await balloonId(4), false),
+    patch(b, B, await balloonId(4.25), false),
+  ]);
   expect([r1.status(), r2.status()]).toEqual([200, 200]);
   expect(await revision()).toBe(rev + 2);
   await expect.poll(async () => (await mailTo(demoEmail("manager"))).length).toBe(mails + 1);
   const both = await check(B);
   expect(both.status).toBe("outdated");
   expect(both.changes.map((c) => c.detail)).toEqual(
-    expect.arrayContaining(["4.00 mm NC balloon no longer stocked (NC family A (illustrative))", "4.25 mm NC balloon no longer stocked (NC family A (illustrative))"]),
+    expect.arrayContaining([
+      "4.00 mm NC balloon no longer stocked (NC family A (illustrative))",
+      "4.25 mm NC balloon no longer stocked (NC family A (illustrative))",
+    ]),
   );
 
   await Promise.all([patch(a, baseURL!, await balloonId(4), true), patch(b, B, await balloonId(4.25), true)]);

@@ -6,7 +6,18 @@ import { db, pool } from "@/db";
 import { createChart } from "@/db/queries/charts";
 import { approveEdition, createEdition } from "@/db/queries/editions";
 import { createRoom, recordPosting } from "@/db/queries/rooms";
-import { auditEvents, balloonFamilies, balloons, charts, editions, invitations, memberships, postings, rooms, users } from "@/db/schema";
+import {
+  auditEvents,
+  balloonFamilies,
+  balloons,
+  charts,
+  editions,
+  invitations,
+  memberships,
+  postings,
+  rooms,
+  users,
+} from "@/db/schema";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import type { SessionUser } from "@/lib/auth/session";
 import { newToken } from "@/lib/auth/tokens";
@@ -32,28 +43,65 @@ beforeAll(async () => {
   inviteeEmail = `${unique("pending")}@example.test`;
   const [row] = await db
     .insert(invitations)
-    .values({ labId: team.lab.id, email: inviteeEmail, role: "operator", tokenHash: newToken().hash, invitedBy: team.people.manager.id, expiresAt: new Date(Date.now() + 3600_000), lastSentAt: new Date() })
+    .values({
+      labId: team.lab.id,
+      email: inviteeEmail,
+      role: "operator",
+      tokenHash: newToken().hash,
+      invitedBy: team.people.manager.id,
+      expiresAt: new Date(Date.now() + 3600_000),
+      lastSentAt: new Date(),
+    })
     .$returningId();
   invitationId = row!.id;
 
   const { manager, lead, educator } = team.people;
-  const [fam] = await db.insert(balloonFamilies).values({ labId: team.lab.id, name: "NC fixture family", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: null }).$returningId();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({
+      labId: team.lab.id,
+      name: "NC fixture family",
+      compliance: "nc",
+      nominalAtm: 12,
+      rbpAtm: 20,
+      growthAtRbpMm: null,
+    })
+    .$returningId();
   wall.familyId = fam!.id;
-  await db.insert(balloons).values(Array.from({ length: 13 }, (_, i) => ({ labId: team.lab.id, familyId: wall.familyId, diameterMm: 2 + i * 0.25, inStock: true })));
+  await db
+    .insert(balloons)
+    .values(
+      Array.from({ length: 13 }, (_, i) => ({
+        labId: team.lab.id,
+        familyId: wall.familyId,
+        diameterMm: 2 + i * 0.25,
+        inStock: true,
+      })),
+    );
   wall.chartId = (await createChart({ labId: team.lab.id, userId: educator.id, definition: chartDefinition() })).id;
   const approved = await createEdition({ labId: team.lab.id, chartId: wall.chartId, actor: educator });
   await approveEdition({ labId: team.lab.id, editionId: approved.id, actor: lead });
   Object.assign(wall, { approvedId: approved.id, token: approved.checkToken });
   wall.draftId = (await createEdition({ labId: team.lab.id, chartId: wall.chartId, actor: educator })).id;
   wall.roomId = (await createRoom({ labId: team.lab.id, name: "Fixture room", actor: manager })).id;
-  wall.postingId = (await recordPosting({ labId: team.lab.id, editionId: wall.approvedId, roomId: wall.roomId, actor: manager })).id;
+  wall.postingId = (
+    await recordPosting({ labId: team.lab.id, editionId: wall.approvedId, roomId: wall.roomId, actor: manager })
+  ).id;
 });
 
 function chartDefinition(title = "Fixture POT chart") {
   return chartDefinitionSchema.parse({
     title,
     law: { law: "murray" },
-    lookups: [{ kind: "proximal", rows: { from: 2.5, to: 3.5, step: 0.25 }, cols: { from: 2, to: 3, step: 0.25 }, rounding: "up", familyId: wall.familyId }],
+    lookups: [
+      {
+        kind: "proximal",
+        rows: { from: 2.5, to: 3.5, step: 0.25 },
+        cols: { from: 2, to: 3, step: 0.25 },
+        rounding: "up",
+        familyId: wall.familyId,
+      },
+    ],
     paper: "A3",
     orientation: "landscape",
     readingDistanceM: 1,
@@ -75,7 +123,10 @@ const INPUTS: Record<string, (t: Team) => unknown[]> = {
   inviteMemberAction: (t) => [{}, form({ slug: t.lab.slug, email: `${unique("new")}@example.test`, role: "educator" })],
   resendInvitationAction: (t) => [{}, form({ slug: t.lab.slug, invitationId })],
   revokeInvitationAction: (t) => [{}, form({ slug: t.lab.slug, invitationId })],
-  changeMemberRoleAction: (t) => [{}, form({ slug: t.lab.slug, membershipId: t.people.educator.membershipId, role: "operator" })],
+  changeMemberRoleAction: (t) => [
+    {},
+    form({ slug: t.lab.slug, membershipId: t.people.educator.membershipId, role: "operator" }),
+  ],
   removeMemberAction: (t) => [{}, form({ slug: t.lab.slug, membershipId: t.people.operator.membershipId })],
   joinLabAction: () => [{}, form({ token: newToken().token })],
   saveChartAction: (t) => [t.lab.slug, wall.chartId, chartDefinition("Renamed fixture chart")],
@@ -103,7 +154,17 @@ async function snapshot(labId: number) {
     db.select().from(rooms).where(eq(rooms.labId, labId)),
     db.select().from(postings).where(eq(postings.labId, labId)),
   ]);
-  return { memberships: m, invitations: i, audit: a.length, users: u.length, mail: (await mailTo(inviteeEmail)).length, charts: c, editions: e, rooms: r, postings: p };
+  return {
+    memberships: m,
+    invitations: i,
+    audit: a.length,
+    users: u.length,
+    mail: (await mailTo(inviteeEmail)).length,
+    charts: c,
+    editions: e,
+    rooms: r,
+    postings: p,
+  };
 }
 
 const actorsRefused = (allowed: readonly string[]): (Actor | "outsider")[] => {
@@ -137,11 +198,13 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     for (const actor of actorsRefused(row.allowed)) {
       it(`${row.name} as ${actor}`, async () => {
         const mod = (await MODULES[row.file]!()) as Record<string, ActionFn>;
-        session.user = actor === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[actor]);
+        session.user =
+          actor === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[actor]);
         const before = await snapshot(team.lab.id);
         const result = await mod[row.name]!(...INPUTS[row.name]!(team));
         expect(result.ok).not.toBe(true);
-        const expected = actor === "anonymous" ? /Sign in/ : actor === "outsider" ? /not found/ : /does not allow|not valid|is for/;
+        const expected =
+          actor === "anonymous" ? /Sign in/ : actor === "outsider" ? /not found/ : /does not allow|not valid|is for/;
         expect(result.message).toMatch(expected);
         expect(await snapshot(team.lab.id)).toEqual(before);
       });
@@ -156,7 +219,10 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     expect(result).toMatchObject({ ok: true });
     const after = await snapshot(team.lab.id);
     expect(after).not.toEqual(before);
-    const [m] = await db.select().from(memberships).where(and(eq(memberships.labId, team.lab.id), eq(memberships.id, team.people.educator.membershipId)));
+    const [m] = await db
+      .select()
+      .from(memberships)
+      .where(and(eq(memberships.labId, team.lab.id), eq(memberships.id, team.people.educator.membershipId)));
     expect(m?.role).toBe("operator");
   });
 
@@ -167,9 +233,15 @@ describe("server actions refuse disallowed callers and change nothing", () => {
       return mod[name]!(...INPUTS[name]!(team));
     };
     const before = await snapshot(team.lab.id);
-    expect(await call("app/(lab)/labs/[slug]/rooms/actions.ts", "createRoomAction", "manager")).toMatchObject({ ok: true });
-    expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "approveEditionAction", "lead")).toMatchObject({ ok: true });
-    expect(await call("app/(public)/v/[token]/actions.ts", "takeDownPostingAction", "operator")).toMatchObject({ ok: true });
+    expect(await call("app/(lab)/labs/[slug]/rooms/actions.ts", "createRoomAction", "manager")).toMatchObject({
+      ok: true,
+    });
+    expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "approveEditionAction", "lead")).toMatchObject({
+      ok: true,
+    });
+    expect(await call("app/(public)/v/[token]/actions.ts", "takeDownPostingAction", "operator")).toMatchObject({
+      ok: true,
+    });
     const after = await snapshot(team.lab.id);
     expect(after.rooms.length).toBe(before.rooms.length + 1);
     expect(after.editions.find((e) => e.id === wall.draftId)?.status).toBe("approved");

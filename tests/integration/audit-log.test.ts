@@ -11,10 +11,35 @@ describe("a lab's audit log", () => {
   beforeAll(async () => {
     team = await labWithTeam();
     outsiderOnly = await createUser("not-a-member");
-    for (let i = 0; i < 7; i++) await recordAudit({ labId: team.lab.id, actorUserId: team.people.manager.id, action: "test.step", detail: { i } });
-    await recordAudit({ labId: null, actorUserId: team.people.operator.id, action: "signin.succeeded", targetType: "user", targetId: team.people.operator.id });
-    await recordAudit({ labId: null, actorUserId: null, action: "signin.failed", targetType: "user", targetId: team.people.lead.id, detail: { email: team.people.lead.email } });
-    await recordAudit({ labId: null, actorUserId: outsiderOnly.id, action: "signin.succeeded", targetType: "user", targetId: outsiderOnly.id });
+    for (let i = 0; i < 7; i++)
+      await recordAudit({
+        labId: team.lab.id,
+        actorUserId: team.people.manager.id,
+        action: "test.step",
+        detail: { i },
+      });
+    await recordAudit({
+      labId: null,
+      actorUserId: team.people.operator.id,
+      action: "signin.succeeded",
+      targetType: "user",
+      targetId: team.people.operator.id,
+    });
+    await recordAudit({
+      labId: null,
+      actorUserId: null,
+      action: "signin.failed",
+      targetType: "user",
+      targetId: team.people.lead.id,
+      detail: { email: team.people.lead.email },
+    });
+    await recordAudit({
+      labId: null,
+      actorUserId: outsiderOnly.id,
+      action: "signin.succeeded",
+      targetType: "user",
+      targetId: outsiderOnly.id,
+    });
     await recordAudit({ labId: team.other.id, actorUserId: team.people.outsider.id, action: "test.elsewhere" });
   });
 
@@ -24,7 +49,9 @@ describe("a lab's audit log", () => {
     expect(actions.slice(0, 2)).toEqual(["signin.failed", "signin.succeeded"]);
     expect(actions.filter((a) => a === "test.step")).toHaveLength(7);
     expect(actions).not.toContain("test.elsewhere");
-    expect(page.events.some((e) => e.action === "signin.succeeded" && e.targetId === String(outsiderOnly.id))).toBe(false);
+    expect(page.events.some((e) => e.action === "signin.succeeded" && e.targetId === String(outsiderOnly.id))).toBe(
+      false,
+    );
     const ids = page.events.map((e) => e.id);
     expect([...ids].sort((a, b) => b - a)).toEqual(ids);
     expect(page.events.find((e) => e.action === "test.step")?.actorEmail).toBe(team.people.manager.email);

@@ -21,10 +21,16 @@ const people: Record<"educator" | "lead" | "manager", { id: number; name: string
 };
 
 beforeAll(async () => {
-  const [lab] = await db.insert(labs).values({ slug: `ed-${tag}`, name: `Edition test lab ${tag}` }).$returningId();
+  const [lab] = await db
+    .insert(labs)
+    .values({ slug: `ed-${tag}`, name: `Edition test lab ${tag}` })
+    .$returningId();
   labId = lab!.id;
   for (const key of Object.keys(people) as (keyof typeof people)[]) {
-    const [u] = await db.insert(users).values({ email: `${key}-${tag}@forkwall.test`, name: people[key].name, passwordHash: "x" }).$returningId();
+    const [u] = await db
+      .insert(users)
+      .values({ email: `${key}-${tag}@forkwall.test`, name: people[key].name, passwordHash: "x" })
+      .$returningId();
     people[key].id = u!.id;
   }
   const [fam] = await db
@@ -42,7 +48,15 @@ const definition = () =>
   chartDefinitionSchema.parse({
     title: "POT test chart",
     law: { law: "finet", ratio: 0.678 },
-    lookups: [{ kind: "proximal", rows: { from: 2.5, to: 3.5, step: 0.25 }, cols: { from: 2, to: 3, step: 0.25 }, rounding: "up", familyId }],
+    lookups: [
+      {
+        kind: "proximal",
+        rows: { from: 2.5, to: 3.5, step: 0.25 },
+        cols: { from: 2, to: 3, step: 0.25 },
+        rounding: "up",
+        familyId,
+      },
+    ],
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,
@@ -60,7 +74,10 @@ async function expectAppError(p: Promise<unknown>, status: number, text?: RegExp
 
 const setInStock = async (diameterMm: number, inStock: boolean) => {
   await db.transaction(async (tx) => {
-    await tx.update(balloons).set({ inStock }).where(and(eq(balloons.familyId, familyId), eq(balloons.diameterMm, diameterMm)));
+    await tx
+      .update(balloons)
+      .set({ inStock })
+      .where(and(eq(balloons.familyId, familyId), eq(balloons.diameterMm, diameterMm)));
     await refreshLiveSnapshots(tx, labId);
   });
 };
@@ -93,7 +110,11 @@ describe("editions", () => {
   it("refuses to approve a draft that no longer matches the stock, naming the change", async () => {
     const draft = await createEdition({ labId, chartId, actor: people.educator });
     await setInStock(3.75, false);
-    await expectAppError(approveEdition({ labId, editionId: draft.id, actor: people.lead }), 409, /3\.75 mm NC balloon no longer stocked/);
+    await expectAppError(
+      approveEdition({ labId, editionId: draft.id, actor: people.lead }),
+      409,
+      /3\.75 mm NC balloon no longer stocked/,
+    );
     await setInStock(3.75, true);
     await approveEdition({ labId, editionId: draft.id, actor: people.lead });
   });
@@ -108,7 +129,10 @@ describe("editions", () => {
   });
 
   it("the database itself refuses to change an approved edition's content, status backwards, or to delete it", async () => {
-    const [approved] = await db.select().from(editions).where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
+    const [approved] = await db
+      .select()
+      .from(editions)
+      .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
     expect(approved).toBeDefined();
     const attempts = [
       sql`UPDATE editions SET fingerprint = REPEAT('0', 64) WHERE id = ${approved!.id}`,
@@ -123,14 +147,19 @@ describe("editions", () => {
         (e: Error) => e,
       );
       // Drizzle wraps the driver's error; the trigger's SIGNAL text is its cause.
-      expect(String((err?.cause as Error | undefined)?.message)).toMatch(/immutable|approval|backwards|never change|cannot be deleted/);
+      expect(String((err?.cause as Error | undefined)?.message)).toMatch(
+        /immutable|approval|backwards|never change|cannot be deleted/,
+      );
     }
     const [after] = await db.select().from(editions).where(eq(editions.id, approved!.id));
     expect(after).toEqual(approved);
   });
 
   it("another lab cannot reach this lab's editions", async () => {
-    const [other] = await db.insert(labs).values({ slug: `other-${tag}`, name: "Other lab" }).$returningId();
+    const [other] = await db
+      .insert(labs)
+      .values({ slug: `other-${tag}`, name: "Other lab" })
+      .$returningId();
     const [anyEd] = await db.select({ id: editions.id }).from(editions).where(eq(editions.labId, labId)).limit(1);
     expect(await getEdition({ labId: other!.id, editionId: anyEd!.id })).toBeNull();
     await expectAppError(approveEdition({ labId: other!.id, editionId: anyEd!.id, actor: people.lead }), 404);

@@ -1,7 +1,12 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { acceptInvitation, findInvitationByTokenHash, listOpenInvitations, revokeInvitation } from "@/db/queries/invitations";
+import {
+  acceptInvitation,
+  findInvitationByTokenHash,
+  listOpenInvitations,
+  revokeInvitation,
+} from "@/db/queries/invitations";
 import { auditEvents, invitations, memberships, users } from "@/db/schema";
 import type { Member } from "@/lib/auth/guard";
 import { inviteMember, resendInvitation } from "@/lib/auth/invitations";
@@ -14,13 +19,24 @@ let manager: Member;
 
 beforeAll(async () => {
   team = await labWithTeam();
-  manager = { user: { id: team.people.manager.id, email: team.people.manager.email, name: team.people.manager.name }, lab: { ...team.lab, stockRevision: 0 }, role: "manager" };
+  manager = {
+    user: { id: team.people.manager.id, email: team.people.manager.email, name: team.people.manager.name },
+    lab: { ...team.lab, stockRevision: 0 },
+    role: "manager",
+  };
 });
 afterAll(() => pool.end());
 
-const auditFor = (labId: number, action: string) => db.select().from(auditEvents).where(and(eq(auditEvents.labId, labId), eq(auditEvents.action, action)));
+const auditFor = (labId: number, action: string) =>
+  db
+    .select()
+    .from(auditEvents)
+    .where(and(eq(auditEvents.labId, labId), eq(auditEvents.action, action)));
 const rejects = async (p: Promise<unknown>, status: number, message: RegExp) => {
-  const err = await p.then(() => null, (e: unknown) => e);
+  const err = await p.then(
+    () => null,
+    (e: unknown) => e,
+  );
   expect(err).toBeInstanceOf(AppError);
   expect((err as AppError).status).toBe(status);
   expect((err as AppError).message).toMatch(message);
@@ -45,19 +61,35 @@ describe("invitations", () => {
     expect(ttl).toBeGreaterThan(72 * 3600_000 - 60_000);
     expect(ttl).toBeLessThanOrEqual(72 * 3600_000 + 60_000);
 
-    const [sent] = await auditFor(team.lab.id, "invitation.sent").then((r) => r.filter((e) => e.targetId === String(invitation.id)));
+    const [sent] = await auditFor(team.lab.id, "invitation.sent").then((r) =>
+      r.filter((e) => e.targetId === String(invitation.id)),
+    );
     expect(sent?.actorUserId).toBe(team.people.manager.id);
     expect(sent?.detail).toEqual({ email, role: "educator" });
 
     // Accept: a new account joins with the invited role, and the link is spent.
-    const joined = await acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "New Educator", passwordHash: "x".repeat(60) } });
+    const joined = await acceptInvitation({
+      tokenHash: hashToken(token),
+      newAccount: { name: "New Educator", passwordHash: "x".repeat(60) },
+    });
     expect(joined.role).toBe("educator");
-    const [m] = await db.select().from(memberships).where(and(eq(memberships.labId, team.lab.id), eq(memberships.userId, joined.userId)));
+    const [m] = await db
+      .select()
+      .from(memberships)
+      .where(and(eq(memberships.labId, team.lab.id), eq(memberships.userId, joined.userId)));
     expect(m?.role).toBe("educator");
     expect((await findInvitationByTokenHash({ tokenHash: hashToken(token) }))?.state).toBe("used");
-    expect((await auditFor(team.lab.id, "invitation.accepted")).some((e) => e.targetId === String(invitation.id) && e.actorUserId === joined.userId)).toBe(true);
+    expect(
+      (await auditFor(team.lab.id, "invitation.accepted")).some(
+        (e) => e.targetId === String(invitation.id) && e.actorUserId === joined.userId,
+      ),
+    ).toBe(true);
 
-    await rejects(acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Again", passwordHash: "y".repeat(60) } }), 409, /already been used/);
+    await rejects(
+      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Again", passwordHash: "y".repeat(60) } }),
+      409,
+      /already been used/,
+    );
     expect(await db.select().from(users).where(eq(users.email, email))).toHaveLength(1);
   });
 
@@ -65,10 +97,19 @@ describe("invitations", () => {
     const email = `${unique("late")}@example.test`;
     const { invitation } = await inviteMember(manager, { email, role: "operator" });
     const { token } = linkIn((await mailTo(email))[0]!.text, "invite");
-    await db.update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.id, invitation.id));
-    await rejects(acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Late", passwordHash: "x".repeat(60) } }), 409, /expired/);
+    await db
+      .update(invitations)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invitations.id, invitation.id));
+    await rejects(
+      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Late", passwordHash: "x".repeat(60) } }),
+      409,
+      /expired/,
+    );
     expect(await db.select().from(users).where(eq(users.email, email))).toHaveLength(0);
-    expect((await listOpenInvitations({ labId: team.lab.id })).find((i) => i.id === invitation.id)?.status).toBe("expired");
+    expect((await listOpenInvitations({ labId: team.lab.id })).find((i) => i.id === invitation.id)?.status).toBe(
+      "expired",
+    );
   });
 
   it("resend issues a new token and e-mail; the old link stops working; revoke ends it", async () => {
@@ -82,11 +123,19 @@ describe("invitations", () => {
     expect(second).not.toBe(first);
     expect(await findInvitationByTokenHash({ tokenHash: hashToken(first) })).toBeNull();
     expect((await findInvitationByTokenHash({ tokenHash: hashToken(second) }))?.state).toBe("valid");
-    expect((await auditFor(team.lab.id, "invitation.resent")).some((e) => e.targetId === String(invitation.id))).toBe(true);
+    expect((await auditFor(team.lab.id, "invitation.resent")).some((e) => e.targetId === String(invitation.id))).toBe(
+      true,
+    );
 
     await revokeInvitation({ labId: team.lab.id, invitationId: invitation.id, actorUserId: manager.user.id });
-    await rejects(acceptInvitation({ tokenHash: hashToken(second), newAccount: { name: "Nope", passwordHash: "x".repeat(60) } }), 409, /withdrawn/);
-    expect((await auditFor(team.lab.id, "invitation.revoked")).some((e) => e.targetId === String(invitation.id))).toBe(true);
+    await rejects(
+      acceptInvitation({ tokenHash: hashToken(second), newAccount: { name: "Nope", passwordHash: "x".repeat(60) } }),
+      409,
+      /withdrawn/,
+    );
+    expect((await auditFor(team.lab.id, "invitation.revoked")).some((e) => e.targetId === String(invitation.id))).toBe(
+      true,
+    );
     await rejects(resendInvitation(manager, invitation.id), 409, /revoked/);
   });
 
@@ -96,7 +145,11 @@ describe("invitations", () => {
     await inviteMember(manager, { email: existing.email, role: "operator" });
     const { token } = linkIn((await mailTo(existing.email))[0]!.text, "invite");
     expect((await findInvitationByTokenHash({ tokenHash: hashToken(token) }))?.hasAccount).toBe(true);
-    await rejects(acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Twin", passwordHash: "x".repeat(60) } }), 409, /already uses/);
+    await rejects(
+      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Twin", passwordHash: "x".repeat(60) } }),
+      409,
+      /already uses/,
+    );
     await rejects(acceptInvitation({ tokenHash: hashToken(token), userId: stranger.id }), 403, /is for/);
     const joined = await acceptInvitation({ tokenHash: hashToken(token), userId: existing.id });
     expect(joined).toMatchObject({ userId: existing.id, role: "operator", alreadyMember: false });
@@ -108,15 +161,29 @@ describe("invitations", () => {
     await inviteMember(manager, { email, role: "operator" });
     await rejects(inviteMember(manager, { email, role: "lead" }), 409, /already open/);
     // Another lab's manager acting on this lab's invitation: not found through their lab.
-    const [inv] = await db.select().from(invitations).where(and(eq(invitations.labId, team.lab.id), eq(invitations.email, email)));
-    await rejects(revokeInvitation({ labId: team.other.id, invitationId: inv!.id, actorUserId: team.people.outsider.id }), 404, /not found/);
+    const [inv] = await db
+      .select()
+      .from(invitations)
+      .where(and(eq(invitations.labId, team.lab.id), eq(invitations.email, email)));
+    await rejects(
+      revokeInvitation({ labId: team.other.id, invitationId: inv!.id, actorUserId: team.people.outsider.id }),
+      404,
+      /not found/,
+    );
   });
 
   it("single use holds under a race: two accepts at once, one account", async () => {
     const email = `${unique("race")}@example.test`;
     await inviteMember(manager, { email, role: "operator" });
     const { token } = linkIn((await mailTo(email))[0]!.text, "invite");
-    const results = await Promise.allSettled([1, 2, 3].map((i) => acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: `Racer ${i}`, passwordHash: "x".repeat(60) } })));
+    const results = await Promise.allSettled(
+      [1, 2, 3].map((i) =>
+        acceptInvitation({
+          tokenHash: hashToken(token),
+          newAccount: { name: `Racer ${i}`, passwordHash: "x".repeat(60) },
+        }),
+      ),
+    );
     expect(results.filter((r) => r.status === "fulfilled")).toHaveLength(1);
     expect(await db.select().from(users).where(eq(users.email, email))).toHaveLength(1);
   });

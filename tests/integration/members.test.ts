@@ -8,9 +8,15 @@ import { addMember, createLab, createUser, labWithTeam } from "./support/fixture
 
 afterAll(() => pool.end());
 
-const roleOf = async (id: number) => (await db.select({ role: memberships.role }).from(memberships).where(eq(memberships.id, id)))[0]?.role;
-const auditCount = async (labId: number) => (await db.select().from(auditEvents).where(eq(auditEvents.labId, labId))).length;
-const failure = (p: Promise<unknown>) => p.then(() => null, (e: unknown) => e as AppError);
+const roleOf = async (id: number) =>
+  (await db.select({ role: memberships.role }).from(memberships).where(eq(memberships.id, id)))[0]?.role;
+const auditCount = async (labId: number) =>
+  (await db.select().from(auditEvents).where(eq(auditEvents.labId, labId))).length;
+const failure = (p: Promise<unknown>) =>
+  p.then(
+    () => null,
+    (e: unknown) => e as AppError,
+  );
 
 describe("members: roles and removal", () => {
   let team: Awaited<ReturnType<typeof labWithTeam>>;
@@ -21,10 +27,19 @@ describe("members: roles and removal", () => {
   it("the last manager can be neither demoted nor removed, and nothing is recorded", async () => {
     const { lab, people } = team;
     const before = await auditCount(lab.id);
-    const demote = await failure(changeMemberRole({ labId: lab.id, membershipId: people.manager.membershipId, role: "lead", actorUserId: people.manager.id }));
+    const demote = await failure(
+      changeMemberRole({
+        labId: lab.id,
+        membershipId: people.manager.membershipId,
+        role: "lead",
+        actorUserId: people.manager.id,
+      }),
+    );
     expect(demote?.status).toBe(409);
     expect(demote?.message).toMatch(/only manager/);
-    const remove = await failure(removeMember({ labId: lab.id, membershipId: people.manager.membershipId, actorUserId: people.manager.id }));
+    const remove = await failure(
+      removeMember({ labId: lab.id, membershipId: people.manager.membershipId, actorUserId: people.manager.id }),
+    );
     expect(remove?.status).toBe(409);
     expect(await roleOf(people.manager.membershipId)).toBe("manager");
     expect(await auditCount(lab.id)).toBe(before);
@@ -32,38 +47,83 @@ describe("members: roles and removal", () => {
 
   it("a role change is recorded with before and after, in the same transaction", async () => {
     const { lab, people } = team;
-    const changed = await changeMemberRole({ labId: lab.id, membershipId: people.educator.membershipId, role: "lead", actorUserId: people.manager.id });
+    const changed = await changeMemberRole({
+      labId: lab.id,
+      membershipId: people.educator.membershipId,
+      role: "lead",
+      actorUserId: people.manager.id,
+    });
     expect(changed.changed).toBe(true);
     expect(await roleOf(people.educator.membershipId)).toBe("lead");
     const [event] = await db
       .select()
       .from(auditEvents)
-      .where(and(eq(auditEvents.labId, lab.id), eq(auditEvents.action, "member.role_changed"), eq(auditEvents.targetId, String(people.educator.membershipId))));
+      .where(
+        and(
+          eq(auditEvents.labId, lab.id),
+          eq(auditEvents.action, "member.role_changed"),
+          eq(auditEvents.targetId, String(people.educator.membershipId)),
+        ),
+      );
     expect(event?.actorUserId).toBe(people.manager.id);
-    expect(event?.detail).toEqual({ member: people.educator.email, before: { role: "educator" }, after: { role: "lead" } });
+    expect(event?.detail).toEqual({
+      member: people.educator.email,
+      before: { role: "educator" },
+      after: { role: "lead" },
+    });
   });
 
   it("with a second manager the first may step down; then the second is the last", async () => {
     const { lab, people } = team;
-    await changeMemberRole({ labId: lab.id, membershipId: people.lead.membershipId, role: "manager", actorUserId: people.manager.id });
-    await changeMemberRole({ labId: lab.id, membershipId: people.manager.membershipId, role: "educator", actorUserId: people.manager.id });
-    const last = await failure(removeMember({ labId: lab.id, membershipId: people.lead.membershipId, actorUserId: people.lead.id }));
+    await changeMemberRole({
+      labId: lab.id,
+      membershipId: people.lead.membershipId,
+      role: "manager",
+      actorUserId: people.manager.id,
+    });
+    await changeMemberRole({
+      labId: lab.id,
+      membershipId: people.manager.membershipId,
+      role: "educator",
+      actorUserId: people.manager.id,
+    });
+    const last = await failure(
+      removeMember({ labId: lab.id, membershipId: people.lead.membershipId, actorUserId: people.lead.id }),
+    );
     expect(last?.status).toBe(409);
   });
 
   it("removal deletes the membership only, and is recorded", async () => {
     const { lab, people } = team;
-    const removed = await removeMember({ labId: lab.id, membershipId: people.operator.membershipId, actorUserId: people.lead.id });
+    const removed = await removeMember({
+      labId: lab.id,
+      membershipId: people.operator.membershipId,
+      actorUserId: people.lead.id,
+    });
     expect(removed.email).toBe(people.operator.email);
     expect(await roleOf(people.operator.membershipId)).toBeUndefined();
-    const events = await db.select().from(auditEvents).where(and(eq(auditEvents.labId, lab.id), eq(auditEvents.action, "member.removed")));
-    expect(events.at(-1)?.detail).toMatchObject({ member: people.operator.email, before: { role: "operator" }, after: null });
+    const events = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.labId, lab.id), eq(auditEvents.action, "member.removed")));
+    expect(events.at(-1)?.detail).toMatchObject({
+      member: people.operator.email,
+      before: { role: "operator" },
+      after: null,
+    });
     expect((await listMembers({ labId: lab.id })).map((m) => m.email)).not.toContain(people.operator.email);
   });
 
   it("a membership of another lab is not found through this lab", async () => {
     const { lab, other, people } = team;
-    const err = await failure(changeMemberRole({ labId: lab.id, membershipId: people.outsider.membershipId, role: "operator", actorUserId: people.lead.id }));
+    const err = await failure(
+      changeMemberRole({
+        labId: lab.id,
+        membershipId: people.outsider.membershipId,
+        role: "operator",
+        actorUserId: people.lead.id,
+      }),
+    );
     expect(err?.status).toBe(404);
     expect(await roleOf(people.outsider.membershipId)).toBe("manager");
     expect(other.id).not.toBe(lab.id);

@@ -10,8 +10,13 @@ import { createUser, FIXTURE_PASSWORD, linkIn, mailTo, unique } from "./support/
 
 afterAll(() => pool.end());
 
-const failure = (p: Promise<unknown>) => p.then(() => null, (e: unknown) => e as AppError);
-const hashOf = async (id: number) => (await db.select({ h: users.passwordHash }).from(users).where(eq(users.id, id)))[0]!.h;
+const failure = (p: Promise<unknown>) =>
+  p.then(
+    () => null,
+    (e: unknown) => e as AppError,
+  );
+const hashOf = async (id: number) =>
+  (await db.select({ h: users.passwordHash }).from(users).where(eq(users.id, id)))[0]!.h;
 
 describe("password reset by e-mail", () => {
   it("sends nothing for an unknown address", async () => {
@@ -44,8 +49,13 @@ describe("password reset by e-mail", () => {
     expect(older?.message).toMatch(/already been used/);
     expect(await verifyPassword("a brand new passphrase", await hashOf(user.id))).toBe(true);
 
-    const events = await db.select().from(auditEvents).where(eq(auditEvents.targetId, String(user.id)));
-    expect(events.map((e) => e.action)).toEqual(expect.arrayContaining(["password_reset.requested", "password_reset.completed"]));
+    const events = await db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.targetId, String(user.id)));
+    expect(events.map((e) => e.action)).toEqual(
+      expect.arrayContaining(["password_reset.requested", "password_reset.completed"]),
+    );
     expect(JSON.stringify(events)).not.toContain("a brand new passphrase");
   });
 
@@ -53,7 +63,10 @@ describe("password reset by e-mail", () => {
     const user = await createUser("slow");
     await requestPasswordReset({ email: user.email });
     const { token } = linkIn((await mailTo(user.email))[0]!.text, "reset-password");
-    await db.update(passwordResets).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(passwordResets.tokenHash, hashToken(token)));
+    await db
+      .update(passwordResets)
+      .set({ expiresAt: new Date(Date.now() - 1) })
+      .where(eq(passwordResets.tokenHash, hashToken(token)));
     const err = await failure(resetPassword({ tokenHash: hashToken(token), password: "too late passphrase" }));
     expect(err?.message).toMatch(/expired/);
     expect(await verifyPassword(FIXTURE_PASSWORD, await hashOf(user.id))).toBe(true);

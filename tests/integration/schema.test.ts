@@ -17,7 +17,11 @@ describe("schema and migrations", () => {
     try {
       cpSync("drizzle", out, { recursive: true });
       const before = readdirSync(out).filter((f) => f.endsWith(".sql")).length;
-      execFileSync("node_modules/.bin/drizzle-kit", ["generate", "--dialect=mysql", "--schema=db/schema.ts", `--out=${out}`], { stdio: "pipe" });
+      execFileSync(
+        "node_modules/.bin/drizzle-kit",
+        ["generate", "--dialect=mysql", "--schema=db/schema.ts", `--out=${out}`],
+        { stdio: "pipe" },
+      );
       const after = readdirSync(out).filter((f) => f.endsWith(".sql")).length;
       expect(after, "schema changed without a migration: run `npm run db:generate`").toBe(before);
     } finally {
@@ -30,7 +34,9 @@ describe("schema and migrations", () => {
       .filter((v) => is(v, MySqlTable))
       .map((t) => getTableName(t as MySqlTable))
       .sort();
-    const [rows] = await pool.query("SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()");
+    const [rows] = await pool.query(
+      "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()",
+    );
     const actual = (rows as { name: string }[]).map((r) => r.name).filter((n) => n !== "__drizzle_migrations");
     expect(actual.sort()).toEqual(declared);
   });
@@ -38,7 +44,17 @@ describe("schema and migrations", () => {
   it("seeding the demo lab twice adds no duplicates", async () => {
     const count = async () => {
       const out: Record<string, number> = {};
-      for (const table of ["users", "labs", "memberships", "balloon_families", "balloons", "stent_platforms", "charts", "editions", "rooms"]) {
+      for (const table of [
+        "users",
+        "labs",
+        "memberships",
+        "balloon_families",
+        "balloons",
+        "stent_platforms",
+        "charts",
+        "editions",
+        "rooms",
+      ]) {
         const [rows] = await pool.query(`SELECT COUNT(*) AS n FROM \`${table}\``);
         out[table] = Number((rows as { n: number }[])[0]!.n);
       }

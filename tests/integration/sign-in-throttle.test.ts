@@ -16,28 +16,53 @@ afterAll(async () => {
 });
 
 const throttle = (windowSeconds = 60, p = pool.pool, maxFailsPerAccount = 3) =>
-  createSignInThrottle({ pool: p, dbName: databaseName(env.DATABASE_URL), maxFailsPerAccount, maxFailsPerIp: 6, windowSeconds });
+  createSignInThrottle({
+    pool: p,
+    dbName: databaseName(env.DATABASE_URL),
+    maxFailsPerAccount,
+    maxFailsPerIp: 6,
+    windowSeconds,
+  });
 let ipSeq = 0;
 // Documentation-range addresses, a new one per call, so tests never share an address counter.
-const freshIp = () => `2001:db8:${process.pid.toString(16)}:${Date.now().toString(16).slice(-4)}::${(++ipSeq).toString(16)}`;
+const freshIp = () =>
+  `2001:db8:${process.pid.toString(16)}:${Date.now().toString(16).slice(-4)}::${(++ipSeq).toString(16)}`;
 
 describe("sign-in throttle (rate-limiter-flexible on MariaDB)", () => {
   it("wrong passwords never sign in; after the limit even the right password is refused; success clears the count", async () => {
     const user = await createUser("throttled");
     const t = throttle();
     const ip = freshIp();
-    for (let i = 0; i < 3; i++) expect(await verifySignIn({ email: user.email, password: `wrong-${i}`, ip, throttle: t })).toEqual({ ok: false, reason: "invalid" });
+    for (let i = 0; i < 3; i++)
+      expect(await verifySignIn({ email: user.email, password: `wrong-${i}`, ip, throttle: t })).toEqual({
+        ok: false,
+        reason: "invalid",
+      });
     const refused = await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: t });
     expect(refused).toMatchObject({ ok: false, reason: "throttled" });
     // Case and spaces do not open a second counter.
-    expect(await verifySignIn({ email: ` ${user.email.toUpperCase()} `, password: FIXTURE_PASSWORD, ip, throttle: t })).toMatchObject({ reason: "throttled" });
+    expect(
+      await verifySignIn({ email: ` ${user.email.toUpperCase()} `, password: FIXTURE_PASSWORD, ip, throttle: t }),
+    ).toMatchObject({ reason: "throttled" });
 
-    const [row] = await db.select().from(rateLimits).where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`));
+    const [row] = await db
+      .select()
+      .from(rateLimits)
+      .where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`));
     expect(row!.points).toBeGreaterThanOrEqual(3);
     expect(JSON.stringify(row)).not.toContain(user.email);
 
-    const failed = await db.select().from(auditEvents).where(and(eq(auditEvents.targetId, String(user.id)), like(auditEvents.action, "signin.%")));
-    expect(failed.map((e) => e.action)).toEqual(["signin.failed", "signin.failed", "signin.failed", "signin.refused", "signin.refused"]);
+    const failed = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.targetId, String(user.id)), like(auditEvents.action, "signin.%")));
+    expect(failed.map((e) => e.action)).toEqual([
+      "signin.failed",
+      "signin.failed",
+      "signin.failed",
+      "signin.refused",
+      "signin.refused",
+    ]);
     expect(JSON.stringify(failed)).not.toMatch(/wrong-|fixture-password/);
   });
 
@@ -55,24 +80,39 @@ describe("sign-in throttle (rate-limiter-flexible on MariaDB)", () => {
       took.push(Date.now() - t0);
     }
     expect(took[4]! - Math.min(took[0]!, took[1]!)).toBeGreaterThan(700);
-    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: t })).toMatchObject({ reason: "throttled" });
-    const [row] = await db.select().from(rateLimits).where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`));
+    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: t })).toMatchObject({
+      reason: "throttled",
+    });
+    const [row] = await db
+      .select()
+      .from(rateLimits)
+      .where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`));
     const wait = Number(row!.expire) - Date.now();
     expect(wait).toBeGreaterThan(5000);
     expect(wait).toBeLessThanOrEqual(8000);
     await new Promise((r) => setTimeout(r, wait + 100));
     const ok = await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: t });
     expect(ok).toMatchObject({ ok: true, user: { id: user.id } });
-    expect(await db.select().from(rateLimits).where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`))).toEqual([]);
+    expect(
+      await db
+        .select()
+        .from(rateLimits)
+        .where(eq(rateLimits.key, `signin-account:${accountKey(user.email)}`)),
+    ).toEqual([]);
   }, 30_000);
 
   it("counts one client address across accounts, and a success does not clear the address", async () => {
     const t = throttle();
     const ip = freshIp();
     const good = await createUser("bystander");
-    for (let i = 0; i < 6; i++) await verifySignIn({ email: `nobody-${i}-${ip}@example.test`, password: "guess", ip, throttle: t });
-    expect(await verifySignIn({ email: good.email, password: FIXTURE_PASSWORD, ip, throttle: t })).toMatchObject({ reason: "throttled" });
-    expect(await verifySignIn({ email: good.email, password: FIXTURE_PASSWORD, ip: freshIp(), throttle: t })).toMatchObject({ ok: true });
+    for (let i = 0; i < 6; i++)
+      await verifySignIn({ email: `nobody-${i}-${ip}@example.test`, password: "guess", ip, throttle: t });
+    expect(await verifySignIn({ email: good.email, password: FIXTURE_PASSWORD, ip, throttle: t })).toMatchObject({
+      reason: "throttled",
+    });
+    expect(
+      await verifySignIn({ email: good.email, password: FIXTURE_PASSWORD, ip: freshIp(), throttle: t }),
+    ).toMatchObject({ ok: true });
   });
 
   it("holds across app instances: failures seen through one pool refuse through another", async () => {
@@ -80,13 +120,23 @@ describe("sign-in throttle (rate-limiter-flexible on MariaDB)", () => {
     const ip = freshIp();
     const a = throttle(60, pool.pool);
     const b = throttle(60, otherInstancePool);
-    for (let i = 0; i < 3; i++) await verifySignIn({ email: user.email, password: `wrong-${i}`, ip, throttle: i % 2 ? a : b });
-    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: a })).toMatchObject({ reason: "throttled" });
-    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: b })).toMatchObject({ reason: "throttled" });
+    for (let i = 0; i < 3; i++)
+      await verifySignIn({ email: user.email, password: `wrong-${i}`, ip, throttle: i % 2 ? a : b });
+    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: a })).toMatchObject({
+      reason: "throttled",
+    });
+    expect(await verifySignIn({ email: user.email, password: FIXTURE_PASSWORD, ip, throttle: b })).toMatchObject({
+      reason: "throttled",
+    });
   });
 
   it("an unknown address is answered like a wrong password", async () => {
-    const res = await verifySignIn({ email: "never-registered@example.test", password: "whatever-1", ip: freshIp(), throttle: throttle() });
+    const res = await verifySignIn({
+      email: "never-registered@example.test",
+      password: "whatever-1",
+      ip: freshIp(),
+      throttle: throttle(),
+    });
     expect(res).toEqual({ ok: false, reason: "invalid" });
   });
 });

@@ -13,9 +13,19 @@ import { chartDefinitionSchema } from "@/lib/validation/chart";
 
 // An invented lab of its own; mail goes over SMTP to the fake that `npm test` runs.
 const tag = randomUUID().slice(0, 8);
-const emails = { manager: `mgr-${tag}@forkwall.test`, educator: `edu-${tag}@forkwall.test`, lead: `lead-${tag}@forkwall.test`, operator: `op-${tag}@forkwall.test` };
+const emails = {
+  manager: `mgr-${tag}@forkwall.test`,
+  educator: `edu-${tag}@forkwall.test`,
+  lead: `lead-${tag}@forkwall.test`,
+  operator: `op-${tag}@forkwall.test`,
+};
 const ids = { lab: 0, family: 0, chart: 0, edition: 0, room: 0, posting: 0, token: "" };
-const people = { manager: { id: 0, name: "Test manager" }, educator: { id: 0, name: "Test educator" }, lead: { id: 0, name: "Test lead" }, operator: { id: 0, name: "Test operator" } };
+const people = {
+  manager: { id: 0, name: "Test manager" },
+  educator: { id: 0, name: "Test educator" },
+  lead: { id: 0, name: "Test lead" },
+  operator: { id: 0, name: "Test operator" },
+};
 
 type FakeMessage = { subject: string; text: string; envelopeTo: string[] };
 async function mailTo(address: string): Promise<FakeMessage[]> {
@@ -24,23 +34,61 @@ async function mailTo(address: string): Promise<FakeMessage[]> {
 }
 
 const balloonId = async (d: number) =>
-  (await db.select({ id: balloons.id }).from(balloons).where(and(eq(balloons.familyId, ids.family), eq(balloons.diameterMm, d))))[0]!.id;
+  (
+    await db
+      .select({ id: balloons.id })
+      .from(balloons)
+      .where(and(eq(balloons.familyId, ids.family), eq(balloons.diameterMm, d)))
+  )[0]!.id;
 
 beforeAll(async () => {
-  const [lab] = await db.insert(labs).values({ slug: `st-${tag}`, name: `Stale test lab ${tag}` }).$returningId();
+  const [lab] = await db
+    .insert(labs)
+    .values({ slug: `st-${tag}`, name: `Stale test lab ${tag}` })
+    .$returningId();
   ids.lab = lab!.id;
   for (const role of ["manager", "educator", "lead", "operator"] as const) {
-    const [u] = await db.insert(users).values({ email: emails[role], name: people[role].name, passwordHash: "x" }).$returningId();
+    const [u] = await db
+      .insert(users)
+      .values({ email: emails[role], name: people[role].name, passwordHash: "x" })
+      .$returningId();
     people[role].id = u!.id;
     await db.insert(memberships).values({ labId: ids.lab, userId: u!.id, role, notifyStale: role === "educator" });
   }
-  const [fam] = await db.insert(balloonFamilies).values({ labId: ids.lab, name: "NC test family", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: null }).$returningId();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({
+      labId: ids.lab,
+      name: "NC test family",
+      compliance: "nc",
+      nominalAtm: 12,
+      rbpAtm: 20,
+      growthAtRbpMm: null,
+    })
+    .$returningId();
   ids.family = fam!.id;
-  await db.insert(balloons).values(Array.from({ length: 13 }, (_, i) => ({ labId: ids.lab, familyId: ids.family, diameterMm: 2 + i * 0.25, inStock: true })));
+  await db
+    .insert(balloons)
+    .values(
+      Array.from({ length: 13 }, (_, i) => ({
+        labId: ids.lab,
+        familyId: ids.family,
+        diameterMm: 2 + i * 0.25,
+        inStock: true,
+      })),
+    );
   const definition = chartDefinitionSchema.parse({
     title: "POT chart",
     law: { law: "finet", ratio: 0.678 },
-    lookups: [{ kind: "proximal", rows: { from: 2.5, to: 3.5, step: 0.25 }, cols: { from: 2, to: 3, step: 0.25 }, rounding: "up", familyId: ids.family }],
+    lookups: [
+      {
+        kind: "proximal",
+        rows: { from: 2.5, to: 3.5, step: 0.25 },
+        cols: { from: 2, to: 3, step: 0.25 },
+        rounding: "up",
+        familyId: ids.family,
+      },
+    ],
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,
@@ -51,7 +99,9 @@ beforeAll(async () => {
   ids.edition = ed.id;
   ids.token = ed.checkToken;
   ids.room = (await createRoom({ labId: ids.lab, name: "Procedure room 1", actor: people.manager })).id;
-  ids.posting = (await recordPosting({ labId: ids.lab, editionId: ids.edition, roomId: ids.room, actor: people.operator })).id;
+  ids.posting = (
+    await recordPosting({ labId: ids.lab, editionId: ids.edition, roomId: ids.room, actor: people.operator })
+  ).id;
 });
 
 afterAll(() => pool.end());
@@ -65,7 +115,12 @@ describe("stale copies", () => {
   });
 
   it("marking a size the chart prints out of stock makes it outdated, names the size, and mails once", async () => {
-    await updateBalloon({ labId: ids.lab, actorUserId: people.manager.id, balloonId: await balloonId(3.75), patch: { inStock: false } });
+    await updateBalloon({
+      labId: ids.lab,
+      actorUserId: people.manager.id,
+      balloonId: await balloonId(3.75),
+      patch: { inStock: false },
+    });
     const check = await getCheckByToken({ token: ids.token });
     expect(check!.status).toBe("outdated");
     expect(check!.changes.map((c) => c.detail)).toContain("3.75 mm NC balloon no longer stocked (NC test family)");
@@ -80,7 +135,12 @@ describe("stale copies", () => {
     expect(await mailTo(emails.operator)).toEqual([]);
 
     // A further change while the copy is already stale sends nothing new.
-    await updateBalloon({ labId: ids.lab, actorUserId: people.manager.id, balloonId: await balloonId(3.5), patch: { inStock: false } });
+    await updateBalloon({
+      labId: ids.lab,
+      actorUserId: people.manager.id,
+      balloonId: await balloonId(3.5),
+      patch: { inStock: false },
+    });
     expect(await mailTo(emails.manager)).toHaveLength(1);
     const notices = await db.select().from(staleNotices).where(eq(staleNotices.labId, ids.lab));
     expect(notices).toHaveLength(1);
@@ -88,14 +148,29 @@ describe("stale copies", () => {
   });
 
   it("restoring the stock makes it current again; going stale again is a new change and a new e-mail", async () => {
-    await updateBalloon({ labId: ids.lab, actorUserId: people.manager.id, balloonId: await balloonId(3.5), patch: { inStock: true } });
-    await updateBalloon({ labId: ids.lab, actorUserId: people.manager.id, balloonId: await balloonId(3.75), patch: { inStock: true } });
+    await updateBalloon({
+      labId: ids.lab,
+      actorUserId: people.manager.id,
+      balloonId: await balloonId(3.5),
+      patch: { inStock: true },
+    });
+    await updateBalloon({
+      labId: ids.lab,
+      actorUserId: people.manager.id,
+      balloonId: await balloonId(3.75),
+      patch: { inStock: true },
+    });
     expect((await getCheckByToken({ token: ids.token }))!.status).toBe("current");
     const [p] = await db.select().from(postings).where(eq(postings.id, ids.posting));
     expect(p!.lastStatus).toBe("current");
 
     // A size outside what the chart can print changes nothing on the wall.
-    await updateBalloon({ labId: ids.lab, actorUserId: people.manager.id, balloonId: await balloonId(5), patch: { inStock: false } });
+    await updateBalloon({
+      labId: ids.lab,
+      actorUserId: people.manager.id,
+      balloonId: await balloonId(5),
+      patch: { inStock: false },
+    });
     expect((await getCheckByToken({ token: ids.token }))!.status).toBe("current");
     expect(await mailTo(emails.manager)).toHaveLength(1);
 

@@ -45,7 +45,10 @@ export function pdfImages(pdf: Buffer): number {
     const file = path.join(dir, "p.pdf");
     writeFileSync(file, pdf);
     const out = execFileSync("pdfimages", ["-list", file], { encoding: "utf8" });
-    return out.split("\n").slice(2).filter((l) => l.trim()).length;
+    return out
+      .split("\n")
+      .slice(2)
+      .filter((l) => l.trim()).length;
   });
 }
 
@@ -53,14 +56,21 @@ export function zbarDecode(png: Buffer): string[] {
   return withTempDir((dir) => {
     const file = path.join(dir, "page.png");
     writeFileSync(file, png);
-    const out = execFileSync("zbarimg", ["-q", "--raw", file], { encoding: "utf8", stdio: ["ignore", "pipe", "ignore"] });
+    const out = execFileSync("zbarimg", ["-q", "--raw", file], {
+      encoding: "utf8",
+      stdio: ["ignore", "pipe", "ignore"],
+    });
     return out.split("\n").filter(Boolean);
   });
 }
 
 export function jsqrDecode(png: Buffer) {
   const img = PNG.sync.read(png);
-  const code = jsQR(new Uint8ClampedArray(img.data.buffer, img.data.byteOffset, img.data.length), img.width, img.height);
+  const code = jsQR(
+    new Uint8ClampedArray(img.data.buffer, img.data.byteOffset, img.data.length),
+    img.width,
+    img.height,
+  );
   if (!code) return null;
   const { topLeftCorner: a, topRightCorner: b, bottomLeftCorner: c } = code.location;
   return { text: code.data, widthPx: Math.hypot(b.x - a.x, b.y - a.y), heightPx: Math.hypot(c.x - a.x, c.y - a.y) };

@@ -45,26 +45,48 @@ export const demoStock: LabStock = {
 type Definition = Parameters<typeof chartDefinitionSchema.parse>[0];
 
 export function snapshotOf(definition: Definition, labName = "Illustrative Cath Lab (demo)"): Snapshot {
-  return buildSnapshot({ labName, definition: chartDefinitionSchema.parse(definition), stock: demoStock, logoSha256: null });
+  return buildSnapshot({
+    labName,
+    definition: chartDefinitionSchema.parse(definition),
+    stock: demoStock,
+    logoSha256: null,
+  });
 }
 
 /** The illustrative POT chart: Finet, A2 portrait, MB 2.5-4.0 x SB 2.0-3.5, NC family, stent platform. */
 export const potDefinition = {
   title: "POT balloon chart (illustrative)",
   law: { law: "finet", ratio: 0.678 },
-  lookups: [{ kind: "proximal", rows: { from: 2.5, to: 4, step: 0.25 }, cols: { from: 2, to: 3.5, step: 0.25 }, rounding: "up", familyId: 1 }],
+  lookups: [
+    {
+      kind: "proximal",
+      rows: { from: 2.5, to: 4, step: 0.25 },
+      cols: { from: 2, to: 3.5, step: 0.25 },
+      rounding: "up",
+      familyId: 1,
+    },
+  ],
   stentPlatformId: 7,
   paper: "A2",
   orientation: "portrait",
   readingDistanceM: 1.5,
-  notes: "Illustrative demo chart with invented stock. Measure the distal main branch and the side branch at their reference segments.",
+  notes:
+    "Illustrative demo chart with invented stock. Measure the distal main branch and the side branch at their reference segments.",
 } as const;
 
 /** The illustrative kissing chart: square law, Tabloid landscape, side-branch lookup. */
 export const kissingDefinition = {
   title: "Side-branch kissing balloon (illustrative)",
   law: { law: "square" },
-  lookups: [{ kind: "side", rows: { from: 3, to: 4.5, step: 0.25 }, cols: { from: 2.5, to: 4, step: 0.25 }, rounding: "down", familyId: 2 }],
+  lookups: [
+    {
+      kind: "side",
+      rows: { from: 3, to: 4.5, step: 0.25 },
+      cols: { from: 2.5, to: 4, step: 0.25 },
+      rounding: "down",
+      familyId: 2,
+    },
+  ],
   stentPlatformId: null,
   paper: "TABLOID",
   orientation: "landscape",

@@ -15,7 +15,9 @@ describe("audit log wording", () => {
   });
 
   it("marks removals and copes with empty or odd detail", () => {
-    expect(describeDetail({ before: { role: "lead" }, after: null })).toEqual([{ label: "Role", before: "Medical lead", after: "removed" }]);
+    expect(describeDetail({ before: { role: "lead" }, after: null })).toEqual([
+      { label: "Role", before: "Medical lead", after: "removed" },
+    ]);
     expect(describeDetail(null)).toEqual([]);
     expect(describeDetail([1, 2])).toEqual([{ label: "Detail", value: "[1,2]" }]);
     expect(describeDetail({ expiresAt: "2026-01-02T03:04:05.000Z", newAccount: true })).toEqual([

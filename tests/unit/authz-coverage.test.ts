@@ -16,8 +16,16 @@ function walk(dir: string, keep: (f: string) => boolean): string[] {
     .filter(keep);
 }
 
-const parse = (file: string) => ts.createSourceFile(file, readFileSync(path.join(ROOT, file), "utf8"), ts.ScriptTarget.Latest, true, file.endsWith("x") ? ts.ScriptKind.TSX : ts.ScriptKind.TS);
-const exported = (node: ts.Node) => ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.ExportKeyword);
+const parse = (file: string) =>
+  ts.createSourceFile(
+    file,
+    readFileSync(path.join(ROOT, file), "utf8"),
+    ts.ScriptTarget.Latest,
+    true,
+    file.endsWith("x") ? ts.ScriptKind.TSX : ts.ScriptKind.TS,
+  );
+const exported = (node: ts.Node) =>
+  ts.canHaveModifiers(node) && (ts.getModifiers(node) ?? []).some((m) => m.kind === ts.SyntaxKind.ExportKeyword);
 
 /** Names of runtime (non-type) exports of a module. */
 function runtimeExports(source: ts.SourceFile): string[] {
@@ -27,7 +35,8 @@ function runtimeExports(source: ts.SourceFile): string[] {
     else if (ts.isVariableStatement(st) && exported(st)) {
       for (const d of st.declarationList.declarations) {
         if (ts.isIdentifier(d.name)) names.push(d.name.text);
-        else if (ts.isObjectBindingPattern(d.name)) for (const el of d.name.elements) if (ts.isIdentifier(el.name)) names.push(el.name.text);
+        else if (ts.isObjectBindingPattern(d.name))
+          for (const el of d.name.elements) if (ts.isIdentifier(el.name)) names.push(el.name.text);
       }
     } else if (ts.isExportDeclaration(st) && !st.isTypeOnly && st.exportClause && ts.isNamedExports(st.exportClause)) {
       for (const el of st.exportClause.elements) if (!el.isTypeOnly) names.push(el.name.text);
@@ -36,13 +45,21 @@ function runtimeExports(source: ts.SourceFile): string[] {
   return names;
 }
 
-const isDirective = (st: ts.Statement | undefined, text: string) => !!st && ts.isExpressionStatement(st) && ts.isStringLiteral(st.expression) && st.expression.text === text;
+const isDirective = (st: ts.Statement | undefined, text: string) =>
+  !!st && ts.isExpressionStatement(st) && ts.isStringLiteral(st.expression) && st.expression.text === text;
 
 /** "use server" inside a function body (an inline action) rather than at the top of a file. */
 function inlineServerDirectives(source: ts.SourceFile): number {
   let count = 0;
   const visit = (node: ts.Node) => {
-    if ((ts.isFunctionLike(node) || ts.isArrowFunction(node)) && "body" in node && node.body && ts.isBlock(node.body as ts.Node) && isDirective((node.body as ts.Block).statements[0], "use server")) count++;
+    if (
+      (ts.isFunctionLike(node) || ts.isArrowFunction(node)) &&
+      "body" in node &&
+      node.body &&
+      ts.isBlock(node.body as ts.Node) &&
+      isDirective((node.body as ts.Block).statements[0], "use server")
+    )
+      count++;
     ts.forEachChild(node, visit);
   };
   visit(source);
@@ -75,18 +92,25 @@ describe("authorization matrix coverage", () => {
     expect(stale, "matrix rows for route handlers that do not exist").toEqual([]);
   });
 
-  it("lists every server action a \"use server\" file exports, and there are no inline actions", () => {
+  it('lists every server action a "use server" file exports, and there are no inline actions', () => {
     const found: string[] = [];
     const inline: string[] = [];
     for (const file of sourceFiles()) {
       const source = parse(file);
-      if (isDirective(source.statements[0], "use server")) for (const name of runtimeExports(source)) found.push(`${file}#${name}`);
+      if (isDirective(source.statements[0], "use server"))
+        for (const name of runtimeExports(source)) found.push(`${file}#${name}`);
       if (inlineServerDirectives(source) > 0) inline.push(file);
     }
-    expect(inline, "inline \"use server\" functions: move them to a listed \"use server\" file").toEqual([]);
+    expect(inline, 'inline "use server" functions: move them to a listed "use server" file').toEqual([]);
     const listed = new Set(ACTIONS.map((a) => `${a.file}#${a.name}`));
-    expect(found.filter((k) => !listed.has(k)), "server actions without a row in tests/authz/matrix.ts").toEqual([]);
-    expect([...listed].filter((k) => !found.includes(k)), "matrix rows for server actions that do not exist").toEqual([]);
+    expect(
+      found.filter((k) => !listed.has(k)),
+      "server actions without a row in tests/authz/matrix.ts",
+    ).toEqual([]);
+    expect(
+      [...listed].filter((k) => !found.includes(k)),
+      "matrix rows for server actions that do not exist",
+    ).toEqual([]);
   });
 
   it("gives every walked row a status for anonymous and every role, and every exempt row a reason", () => {
@@ -96,7 +120,9 @@ describe("authorization matrix coverage", () => {
         expect(row.expect).toBeUndefined();
         continue;
       }
-      expect(Object.keys(row.expect ?? {}).sort(), `${row.method} ${row.url}`).toEqual(["anonymous", ...ALL_ROLES].sort());
+      expect(Object.keys(row.expect ?? {}).sort(), `${row.method} ${row.url}`).toEqual(
+        ["anonymous", ...ALL_ROLES].sort(),
+      );
     }
   });
 

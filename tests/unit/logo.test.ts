@@ -46,7 +46,12 @@ async function refusal(bytes: Uint8Array): Promise<AppError> {
 describe("checkLogo", () => {
   it("accepts a PNG, reading its type and size from the bytes", async () => {
     const bytes = png(40, 20);
-    expect(await checkLogo(bytes)).toEqual({ mime: "image/png", width: 40, height: 20, sha256: createHash("sha256").update(bytes).digest("hex") });
+    expect(await checkLogo(bytes)).toEqual({
+      mime: "image/png",
+      width: 40,
+      height: 20,
+      sha256: createHash("sha256").update(bytes).digest("hex"),
+    });
   });
 
   it("accepts a JPEG made by another encoder (pdftoppm), with its frame size", async () => {

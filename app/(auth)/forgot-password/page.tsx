@@ -7,7 +7,10 @@ export default function ForgotPasswordPage() {
   return (
     <div>
       <h1 className="text-2xl font-bold">Reset your password</h1>
-      <p className="mt-1 text-sm text-ink-soft">Enter the e-mail address you sign in with. If it belongs to an account, we will send a link to choose a new password.</p>
+      <p className="mt-1 text-sm text-ink-soft">
+        Enter the e-mail address you sign in with. If it belongs to an account, we will send a link to choose a new
+        password.
+      </p>
       <ForgotPasswordForm />
       <p className="mt-6 text-sm">
         <Link href="/sign-in" className="text-brand-700 underline">

@@ -7,22 +7,38 @@ import { env } from "@/lib/env";
 
 export const metadata = { title: "Sign in" };
 
-type Search = { callbackUrl?: string; error?: string; code?: string; signedOut?: string; reset?: string; joined?: string; email?: string };
+type Search = {
+  callbackUrl?: string;
+  error?: string;
+  code?: string;
+  signedOut?: string;
+  reset?: string;
+  joined?: string;
+  email?: string;
+};
 
 function notice(q: Search): { ok: boolean; message: string } | null {
-  if (q.joined) return { ok: true, message: `Your account is ready and you have joined ${q.joined}. Sign in to open it.` };
+  if (q.joined)
+    return { ok: true, message: `Your account is ready and you have joined ${q.joined}. Sign in to open it.` };
   if (q.reset) return { ok: true, message: "Your password was changed. Sign in with the new one." };
   if (q.signedOut) return { ok: true, message: "You are signed out." };
   // Errors from next-auth's own endpoint (a sign-in posted without JavaScript or by a script).
   if (q.error && q.code === "throttled") return { ok: false, message: throttledMessage(env.SIGNIN_THROTTLE_SECONDS) };
-  if (q.error === "CredentialsSignin") return { ok: false, message: "That e-mail address and password do not match an account." };
+  if (q.error === "CredentialsSignin")
+    return { ok: false, message: "That e-mail address and password do not match an account." };
   if (q.error) return { ok: false, message: "Sign-in did not work. Please try again." };
   return null;
 }
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Search> }) {
   const q = await searchParams;
-  const safe = q.callbackUrl && q.callbackUrl.startsWith("/") && !q.callbackUrl.startsWith("//") && !q.callbackUrl.startsWith("/\\") ? q.callbackUrl : "/dashboard";
+  const safe =
+    q.callbackUrl &&
+    q.callbackUrl.startsWith("/") &&
+    !q.callbackUrl.startsWith("//") &&
+    !q.callbackUrl.startsWith("/\\")
+      ? q.callbackUrl
+      : "/dashboard";
   const user = await currentUser().catch(() => null);
   const n = notice(q);
   return (
@@ -45,7 +61,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
           Forgot your password?
         </Link>
       </p>
-      <p className="mt-2 text-xs text-ink-faint">No account? Forkwall accounts are created from an invitation sent by a lab manager.</p>
+      <p className="mt-2 text-xs text-ink-faint">
+        No account? Forkwall accounts are created from an invitation sent by a lab manager.
+      </p>
     </div>
   );
 }

@@ -24,7 +24,10 @@ export default async function DashboardPage() {
         <ul className="mt-6 grid gap-4 sm:grid-cols-2">
           {labs.map((lab) => (
             <li key={lab.slug}>
-              <Link href={`/labs/${lab.slug}`} className="block rounded-card border border-line bg-paper-raised p-5 hover:border-brand-500">
+              <Link
+                href={`/labs/${lab.slug}`}
+                className="block rounded-card border border-line bg-paper-raised p-5 hover:border-brand-500"
+              >
                 <span className="block text-lg font-semibold">{lab.name}</span>
                 <span className="text-sm text-ink-faint">Your role: {ROLE_LABELS[lab.role]}</span>
               </Link>

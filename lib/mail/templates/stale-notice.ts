@@ -33,9 +33,18 @@ export function staleNoticeMail(notice: StaleNotice, appUrl: string): { subject:
   for (const item of notice.items) {
     lines.push(`- ${item.room}: "${item.chartTitle}", edition ${item.editionNumber}, is ${WHAT[item.status]}.`);
     for (const c of item.changes.slice(0, 5)) lines.push(`    ${c}`);
-    if (item.current) lines.push(`    Print edition ${item.current.number}: ${appUrl}/api/v1/editions/${item.current.editionId}/pdf`);
-    else lines.push(`    No approved edition matches yet: create and approve a new edition at ${appUrl}/labs/${notice.labSlug}/charts/${item.chartId}`);
+    if (item.current)
+      lines.push(`    Print edition ${item.current.number}: ${appUrl}/api/v1/editions/${item.current.editionId}/pdf`);
+    else
+      lines.push(
+        `    No approved edition matches yet: create and approve a new edition at ${appUrl}/labs/${notice.labSlug}/charts/${item.chartId}`,
+      );
   }
-  lines.push("", `Room board: ${appUrl}/labs/${notice.labSlug}/rooms`, "", "Replace the printouts and record them from their check pages. Reference aid only; local protocol and licensed practice rule.");
+  lines.push(
+    "",
+    `Room board: ${appUrl}/labs/${notice.labSlug}/rooms`,
+    "",
+    "Replace the printouts and record them from their check pages. Reference aid only; local protocol and licensed practice rule.",
+  );
   return { subject, text: lines.join("\n") };
 }

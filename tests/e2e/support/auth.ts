@@ -6,7 +6,12 @@ export const DEMO_PASSWORD = "forkwall-demo-2026";
 export const demoEmail = (role: Role) => `${role}@forkwall.test`;
 
 /** POST /api/auth/callback/credentials with the CSRF token; returns where next-auth redirected. */
-export async function postCredentials(request: APIRequestContext, email: string, password: string, headers: Record<string, string> = {}): Promise<string> {
+export async function postCredentials(
+  request: APIRequestContext,
+  email: string,
+  password: string,
+  headers: Record<string, string> = {},
+): Promise<string> {
   const csrf = await request.get("/api/auth/csrf", { headers });
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
   const res = await request.post("/api/auth/callback/credentials", {

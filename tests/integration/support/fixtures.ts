@@ -15,7 +15,10 @@ export const unique = (prefix: string) => `${prefix}-${Date.now().toString(36)}$
 
 export async function createLab(prefix = "it-lab") {
   const slug = unique(prefix);
-  const [row] = await db.insert(labs).values({ slug, name: `Integration ${slug} (illustrative)` }).$returningId();
+  const [row] = await db
+    .insert(labs)
+    .values({ slug, name: `Integration ${slug} (illustrative)` })
+    .$returningId();
   return { id: row!.id, slug, name: `Integration ${slug} (illustrative)` };
 }
 
@@ -23,7 +26,10 @@ export async function createUser(prefix = "person") {
   hash ??= hashPassword(FIXTURE_PASSWORD);
   const email = `${unique(prefix)}@example.test`;
   const name = `Fixture ${prefix}`;
-  const [row] = await db.insert(users).values({ email, name, passwordHash: await hash }).$returningId();
+  const [row] = await db
+    .insert(users)
+    .values({ email, name, passwordHash: await hash })
+    .$returningId();
   return { id: row!.id, email, name };
 }
 
@@ -47,7 +53,10 @@ export async function labWithTeam() {
 }
 
 export async function sessionUser(id: number) {
-  const [u] = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(eq(users.id, id));
+  const [u] = await db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(eq(users.id, id));
   return u!;
 }
 

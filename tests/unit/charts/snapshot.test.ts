@@ -7,7 +7,8 @@ import { buildGrid, pickBalloon, type BalloonFamilyStock } from "@/lib/sizing";
 import { chartDefinitionSchema, type ChartDefinition } from "@/lib/validation/chart";
 
 // Invented, illustrative stock for the tests only.
-const steps = (from: number, to: number, step = 0.25) => Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);
+const steps = (from: number, to: number, step = 0.25) =>
+  Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);
 const stock = (outOfStock: number[] = []): LabStock => ({
   balloonFamilies: [
     {
@@ -20,20 +21,38 @@ const stock = (outOfStock: number[] = []): LabStock => ({
       balloons: steps(2, 5).map((d) => ({ diameterMm: d, inStock: !outOfStock.includes(d) })),
     },
   ],
-  stentPlatforms: [{ id: 7, name: "Test DES", sizes: [{ nominalMm: 3, maxPostDilatationMm: 4.5 }, { nominalMm: 2.5, maxPostDilatationMm: 3.5 }] }],
+  stentPlatforms: [
+    {
+      id: 7,
+      name: "Test DES",
+      sizes: [
+        { nominalMm: 3, maxPostDilatationMm: 4.5 },
+        { nominalMm: 2.5, maxPostDilatationMm: 3.5 },
+      ],
+    },
+  ],
 });
 
 const definition: ChartDefinition = chartDefinitionSchema.parse({
   title: "POT test chart",
   law: { law: "finet", ratio: 0.678 },
-  lookups: [{ kind: "proximal", rows: { from: 2.5, to: 3.5, step: 0.25 }, cols: { from: 2, to: 3, step: 0.25 }, rounding: "up", familyId: 1 }],
+  lookups: [
+    {
+      kind: "proximal",
+      rows: { from: 2.5, to: 3.5, step: 0.25 },
+      cols: { from: 2, to: 3, step: 0.25 },
+      rounding: "up",
+      familyId: 1,
+    },
+  ],
   stentPlatformId: 7,
   paper: "A2",
   orientation: "portrait",
   readingDistanceM: 1.5,
 });
 
-const snap = (outOfStock: number[] = [], def = definition) => buildSnapshot({ labName: "Test lab", definition: def, stock: stock(outOfStock), logoSha256: null });
+const snap = (outOfStock: number[] = [], def = definition) =>
+  buildSnapshot({ labName: "Test lab", definition: def, stock: stock(outOfStock), logoSha256: null });
 
 describe("relevantDiameters", () => {
   it("keeps the sizes between the targets plus the nearest size beyond each end", () => {
@@ -50,11 +69,22 @@ describe("relevantDiameters", () => {
         fc.uniqueArray(size, { minLength: 1, maxLength: 20 }),
         fc.array(size, { minLength: 1, maxLength: 20 }),
         fc.constantFrom("up", "down", "nearest", "reach" as const),
-        fc.option(fc.integer({ min: 0, max: 100 }).map((g) => g / 100), { nil: null }),
+        fc.option(
+          fc.integer({ min: 0, max: 100 }).map((g) => g / 100),
+          { nil: null },
+        ),
         (inStock, targets, rule, growth) => {
-          const family = (diameters: number[]): BalloonFamilyStock => ({ name: "f", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: growth, diameters });
+          const family = (diameters: number[]): BalloonFamilyStock => ({
+            name: "f",
+            compliance: "nc",
+            nominalAtm: 10,
+            rbpAtm: 18,
+            growthAtRbpMm: growth,
+            diameters,
+          });
           const subset = relevantDiameters(inStock, targets, rule === "reach" ? growth : null);
-          for (const t of targets) expect(pickBalloon(t, family(subset), rule)).toEqual(pickBalloon(t, family(inStock), rule));
+          for (const t of targets)
+            expect(pickBalloon(t, family(subset), rule)).toEqual(pickBalloon(t, family(inStock), rule));
         },
       ),
       { numRuns: 400 },
@@ -73,7 +103,14 @@ describe("buildSnapshot and fingerprint", () => {
       cols: { from: 2, to: 3, step: 0.25 },
       law: { law: "finet", ratio: 0.678 },
       rounding: "up",
-      family: { name: "NC test family", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2, diameters: steps(2, 5) },
+      family: {
+        name: "NC test family",
+        compliance: "nc",
+        nominalAtm: 12,
+        rbpAtm: 20,
+        growthAtRbpMm: 0.2,
+        diameters: steps(2, 5),
+      },
       stent: stock().stentPlatforms[0]!.sizes,
     });
     expect(grid!.cells).toEqual(direct.cells);
@@ -90,7 +127,15 @@ describe("buildSnapshot and fingerprint", () => {
   it("is independent of key order (canonical JSON)", () => {
     const s = snap();
     const reverseKeys = (v: unknown): unknown =>
-      Array.isArray(v) ? v.map(reverseKeys) : v && typeof v === "object" ? Object.fromEntries(Object.entries(v).reverse().map(([k, x]) => [k, reverseKeys(x)])) : v;
+      Array.isArray(v)
+        ? v.map(reverseKeys)
+        : v && typeof v === "object"
+          ? Object.fromEntries(
+              Object.entries(v)
+                .reverse()
+                .map(([k, x]) => [k, reverseKeys(x)]),
+            )
+          : v;
     const reordered = reverseKeys(s) as object;
     expect(JSON.stringify(reordered)).not.toBe(JSON.stringify(s));
     expect(fingerprintOf(reordered)).toBe(fingerprintOf(s));
@@ -99,12 +144,18 @@ describe("buildSnapshot and fingerprint", () => {
 
 describe("describeChanges", () => {
   it("names a size no longer stocked in plain words", () => {
-    expect(describeChanges(snap(), snap([3.25]))).toContainEqual({ kind: "stock", detail: "3.25 mm NC balloon no longer stocked (NC test family)" });
+    expect(describeChanges(snap(), snap([3.25]))).toContainEqual({
+      kind: "stock",
+      detail: "3.25 mm NC balloon no longer stocked (NC test family)",
+    });
   });
 
   it("names a law change", () => {
     const now = snap([], { ...definition, law: { law: "huo-kassab" } });
-    expect(describeChanges(snap(), now)[0]).toEqual({ kind: "law", detail: "Law changed from Finet (ratio 0.678) to Huo-Kassab" });
+    expect(describeChanges(snap(), now)[0]).toEqual({
+      kind: "law",
+      detail: "Law changed from Finet (ratio 0.678) to Huo-Kassab",
+    });
   });
 
   it("finds nothing when nothing changed", () => {
@@ -116,9 +167,23 @@ describe("describeChanges", () => {
     const s2 = buildSnapshot({
       labName: "Test lab",
       definition: def,
-      stock: { ...stock(), stentPlatforms: [{ id: 7, name: "Test DES", sizes: [{ nominalMm: 3, maxPostDilatationMm: 4.25 }, { nominalMm: 2.5, maxPostDilatationMm: 3.5 }] }] },
+      stock: {
+        ...stock(),
+        stentPlatforms: [
+          {
+            id: 7,
+            name: "Test DES",
+            sizes: [
+              { nominalMm: 3, maxPostDilatationMm: 4.25 },
+              { nominalMm: 2.5, maxPostDilatationMm: 3.5 },
+            ],
+          },
+        ],
+      },
       logoSha256: null,
     });
-    expect(describeChanges(snap(), s2)).toEqual([{ kind: "stent", detail: "Test DES: 3.00 mm stent's maximum post-dilatation changed from 4.50 mm to 4.25 mm" }]);
+    expect(describeChanges(snap(), s2)).toEqual([
+      { kind: "stent", detail: "Test DES: 3.00 mm stent's maximum post-dilatation changed from 4.50 mm to 4.25 mm" },
+    ]);
   });
 });

@@ -24,12 +24,21 @@ const stock = (out: number[] = []): LabStock => ({
 const definition = chartDefinitionSchema.parse({
   title: "Kissing chart",
   law: { law: "square" },
-  lookups: [{ kind: "side", rows: { from: 3, to: 4, step: 0.25 }, cols: { from: 2.5, to: 3.5, step: 0.25 }, rounding: "down", familyId: 1 }],
+  lookups: [
+    {
+      kind: "side",
+      rows: { from: 3, to: 4, step: 0.25 },
+      cols: { from: 2.5, to: 3.5, step: 0.25 },
+      rounding: "down",
+      familyId: 1,
+    },
+  ],
   paper: "TABLOID",
   orientation: "landscape",
   readingDistanceM: 2,
 });
-const snap = (out: number[] = []) => buildSnapshot({ labName: "Test lab", definition, stock: stock(out), logoSha256: null });
+const snap = (out: number[] = []) =>
+  buildSnapshot({ labName: "Test lab", definition, stock: stock(out), logoSha256: null });
 const live = (out: number[] = []) => ({ liveFingerprint: fingerprintOf(snap(out)), liveSnapshot: snap(out) });
 
 const edition = (over: Partial<CheckEdition> = {}): CheckEdition => ({
@@ -60,9 +69,19 @@ describe("check status rules", () => {
   });
 
   it("superseded and withdrawn come from the edition's own state, before any fingerprint", () => {
-    const sup = checkEdition(edition({ status: "superseded", supersededAt: new Date("2026-11-20T00:00:00Z") }), live([3.25]), { number: 4, approvedAt: new Date("2026-11-20T00:00:00Z") });
-    expect(sup).toEqual({ status: "superseded", changes: [{ kind: "lab", detail: "Edition 4 approved on 2026-11-20" }] });
-    expect(checkEdition(edition({ status: "withdrawn", withdrawnAt: new Date("2026-11-21T00:00:00Z") }), live(), null).status).toBe("withdrawn");
+    const sup = checkEdition(
+      edition({ status: "superseded", supersededAt: new Date("2026-11-20T00:00:00Z") }),
+      live([3.25]),
+      { number: 4, approvedAt: new Date("2026-11-20T00:00:00Z") },
+    );
+    expect(sup).toEqual({
+      status: "superseded",
+      changes: [{ kind: "lab", detail: "Edition 4 approved on 2026-11-20" }],
+    });
+    expect(
+      checkEdition(edition({ status: "withdrawn", withdrawnAt: new Date("2026-11-21T00:00:00Z") }), live(), null)
+        .status,
+    ).toBe("withdrawn");
     expect(checkEdition(edition({ status: "draft" }), live(), null).status).toBe("draft");
   });
 
@@ -90,8 +109,24 @@ describe("stale notice e-mail", () => {
         labSlug: "test",
         cause: "3.25 mm marked out of stock",
         items: [
-          { room: "Room 1", chartId: 7, chartTitle: "Kissing chart", editionNumber: 3, status: "outdated", changes: ["3.25 mm NC balloon no longer stocked"], current: null },
-          { room: "Control room", chartId: 8, chartTitle: "POT chart", editionNumber: 1, status: "superseded", changes: [], current: { editionId: 42, number: 2 } },
+          {
+            room: "Room 1",
+            chartId: 7,
+            chartTitle: "Kissing chart",
+            editionNumber: 3,
+            status: "outdated",
+            changes: ["3.25 mm NC balloon no longer stocked"],
+            current: null,
+          },
+          {
+            room: "Control room",
+            chartId: 8,
+            chartTitle: "POT chart",
+            editionNumber: 1,
+            status: "superseded",
+            changes: [],
+            current: { editionId: 42, number: 2 },
+          },
         ],
       },
       "http://localhost:3000",

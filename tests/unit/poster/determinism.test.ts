@@ -15,7 +15,9 @@ describe("byte-identical renders", () => {
     const a = await renderPosterPdf(posterInput(snapshot));
     const b = await renderPosterPdf(posterInput(snapshotOf(potDefinition)));
     expect(sha(a)).toBe(sha(b));
-    const fresh = execFileSync(process.execPath, ["--import", "tsx", "tests/support/render-sha.ts"], { encoding: "utf8" }).trim();
+    const fresh = execFileSync(process.execPath, ["--import", "tsx", "tests/support/render-sha.ts"], {
+      encoding: "utf8",
+    }).trim();
     expect(fresh).toBe(sha(a));
     // pdfkit's /ID is derived from the metadata, which carries no clock: it repeats too.
     const id = (pdf: Buffer) => /\/ID \[<([0-9a-f]+)>/.exec(pdf.toString("latin1"))?.[1];
@@ -39,12 +41,16 @@ describe("byte-identical renders", () => {
     expect((await pdfText(drafted)).info.CreationDate).toBe("D:20000101000000Z");
   });
 
-  it("prints a banner on superseded and withdrawn editions, without the draft watermark", { timeout: 60_000 }, async () => {
-    const superseded = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "superseded" })))).text;
-    const withdrawn = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "withdrawn" })))).text;
-    expect(superseded.replace(/\s+/g, " ")).toContain("SUPERSEDED — a newer edition replaces this poster");
-    expect(withdrawn.replace(/\s+/g, " ")).toContain("WITHDRAWN — do not use");
-    expect(superseded).not.toContain(DRAFT_WATERMARK);
-    expect(withdrawn).not.toContain(DRAFT_WATERMARK);
-  });
+  it(
+    "prints a banner on superseded and withdrawn editions, without the draft watermark",
+    { timeout: 60_000 },
+    async () => {
+      const superseded = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "superseded" })))).text;
+      const withdrawn = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "withdrawn" })))).text;
+      expect(superseded.replace(/\s+/g, " ")).toContain("SUPERSEDED — a newer edition replaces this poster");
+      expect(withdrawn.replace(/\s+/g, " ")).toContain("WITHDRAWN — do not use");
+      expect(superseded).not.toContain(DRAFT_WATERMARK);
+      expect(withdrawn).not.toContain(DRAFT_WATERMARK);
+    },
+  );
 });

@@ -1,11 +1,15 @@
 import { describe, expect, it } from "vitest";
 import { cellGraphics, hatchSegments } from "@/lib/poster/draw";
 
-const points = (d: string) => [...d.matchAll(/[ML](-?[\d.]+) (-?[\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])] as const);
+const points = (d: string) =>
+  [...d.matchAll(/[ML](-?[\d.]+) (-?[\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])] as const);
 
 describe("cell drawing", () => {
   it("clips hatch lines to their cell, all running the same diagonal", () => {
-    for (const box of [{ x: 10, y: 20, width: 80, height: 45 }, { x: 0, y: 0, width: 30, height: 60 }]) {
+    for (const box of [
+      { x: 10, y: 20, width: 80, height: 45 },
+      { x: 0, y: 0, width: 30, height: 60 },
+    ]) {
       const d = hatchSegments(box);
       const pts = points(d);
       expect(pts.length).toBeGreaterThanOrEqual(8);

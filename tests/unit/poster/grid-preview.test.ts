@@ -9,8 +9,16 @@ import { potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
 
 const snapshot = snapshotOf(potDefinition);
 const [grid] = snapshotGrids(snapshot);
-const html = renderToStaticMarkup(createElement(GridPreview, { grid: grid!, family: snapshot.lookups[0]!.family, stentName: snapshot.stent!.name }));
-const decode = (s: string) => s.replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/&amp;/g, "&").replace(/&gt;/g, ">").replace(/&lt;/g, "<");
+const html = renderToStaticMarkup(
+  createElement(GridPreview, { grid: grid!, family: snapshot.lookups[0]!.family, stentName: snapshot.stent!.name }),
+);
+const decode = (s: string) =>
+  s
+    .replace(/&quot;/g, '"')
+    .replace(/&#x27;/g, "'")
+    .replace(/&amp;/g, "&")
+    .replace(/&gt;/g, ">")
+    .replace(/&lt;/g, "<");
 const text = decode(html);
 
 describe("GridPreview (HTML)", () => {
@@ -44,7 +52,15 @@ describe("GridPreview (HTML)", () => {
   });
 
   it("carries the legend in words and the clinical caution", () => {
-    for (const s of ["How to read a cell", "No size.", "No stocked size.", "Stent limit.", "Outside published fit.", "Illustrative DES"]) expect(text).toContain(s);
+    for (const s of [
+      "How to read a cell",
+      "No size.",
+      "No stocked size.",
+      "Stent limit.",
+      "Outside published fit.",
+      "Illustrative DES",
+    ])
+      expect(text).toContain(s);
     expect(text).toContain(CAUTION_TEXT);
   });
 });

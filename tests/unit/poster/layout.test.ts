@@ -11,16 +11,31 @@ const input = (over: Partial<LayoutInput> & Pick<LayoutInput, "grids">): LayoutI
   logo: true,
   ...over,
 });
-const grid = (rows: number, cols: number, pressureLine = false) => ({ rows, cols, pressureLine, titleChars: 52, subtitleChars: 150 });
+const grid = (rows: number, cols: number, pressureLine = false) => ({
+  rows,
+  cols,
+  pressureLine,
+  titleChars: 52,
+  subtitleChars: 150,
+});
 
 const EPS = 1e-6;
 const overlaps = (a: Box, b: Box) =>
   a.x < b.x + b.width - EPS && b.x < a.x + a.width - EPS && a.y < b.y + b.height - EPS && b.y < a.y + a.height - EPS;
 const inside = (inner: Box, outer: Box) =>
-  inner.x >= outer.x - EPS && inner.y >= outer.y - EPS && inner.x + inner.width <= outer.x + outer.width + EPS && inner.y + inner.height <= outer.y + outer.height + EPS;
+  inner.x >= outer.x - EPS &&
+  inner.y >= outer.y - EPS &&
+  inner.x + inner.width <= outer.x + outer.width + EPS &&
+  inner.y + inner.height <= outer.y + outer.height + EPS;
 
 describe("layoutPoster", () => {
-  const shapes = [[grid(10, 12)], [grid(7, 7), grid(7, 7, true)], [grid(4, 30), grid(30, 4), grid(10, 10)], [grid(30, 30)], [grid(1, 1)]];
+  const shapes = [
+    [grid(10, 12)],
+    [grid(7, 7), grid(7, 7, true)],
+    [grid(4, 30), grid(30, 4), grid(10, 10)],
+    [grid(30, 30)],
+    [grid(1, 1)],
+  ];
 
   it("keeps every block on the page, inside the margins, with no two blocks overlapping", () => {
     for (const paper of PAPER_IDS) {
@@ -29,7 +44,12 @@ describe("layoutPoster", () => {
           for (const banner of [true, false]) {
             const l = layoutPoster(input({ paper, orientation, grids, banner, logo: banner }));
             const label = `${paper} ${orientation} ${grids.length} grids ${l.footer}`;
-            const page: Box = { x: l.margin, y: l.margin, width: l.page.width - 2 * l.margin, height: l.page.height - 2 * l.margin };
+            const page: Box = {
+              x: l.margin,
+              y: l.margin,
+              width: l.page.width - 2 * l.margin,
+              height: l.page.height - 2 * l.margin,
+            };
             const blocks: [string, Box][] = [
               ["lab and title", l.title],
               ["law", l.law],
@@ -74,7 +94,8 @@ describe("layoutPoster", () => {
   });
 
   it("gives larger figures on larger paper and smaller ones with more columns", () => {
-    const f = (paper: (typeof PAPER_IDS)[number], cols = 12) => layoutPoster(input({ paper, grids: [grid(10, cols)] })).figurePt;
+    const f = (paper: (typeof PAPER_IDS)[number], cols = 12) =>
+      layoutPoster(input({ paper, grids: [grid(10, cols)] })).figurePt;
     expect(f("A3")).toBeGreaterThan(f("A4"));
     expect(f("A2")).toBeGreaterThan(f("A3"));
     expect(f("A1")).toBeGreaterThan(f("A2"));

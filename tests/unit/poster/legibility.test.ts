@@ -86,7 +86,8 @@ describe("poster legibility", () => {
     // The suggested paper does pass, and the one below it does not.
     const papers = ["A4", "A3", "A2", "A1", "A0"] as const;
     const idx = papers.indexOf(l.smallestPaper as (typeof papers)[number]);
-    const at = (paper: (typeof papers)[number]) => posterLegibility({ ...layoutInputFor({ ...crowded, paper }), readingDistanceM: 2 });
+    const at = (paper: (typeof papers)[number]) =>
+      posterLegibility({ ...layoutInputFor({ ...crowded, paper }), readingDistanceM: 2 });
     expect(at(papers[idx] as (typeof papers)[number]).ok).toBe(true);
     expect(at(papers[idx - 1] as (typeof papers)[number]).ok).toBe(false);
     expect(l.suggestion).toContain(`Use ${l.smallestPaper} or larger`);

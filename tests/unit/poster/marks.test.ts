@@ -4,8 +4,16 @@ import { cellView, CELL_BACKGROUNDS, cornerSymbols, formatBalloonMm, legendEntri
 import { buildGrid, type BalloonFamilyStock, type Cell } from "@/lib/sizing";
 
 // Invented, illustrative family for the tests only.
-const family: BalloonFamilyStock = { name: "Test NC", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.25, diameters: [2.5, 2.75, 3, 3.25, 3.5] };
-const cellAt = (cells: Cell[][], row: number, col: number) => cells.flat().find((c) => c.row === row && c.col === col) as Cell;
+const family: BalloonFamilyStock = {
+  name: "Test NC",
+  compliance: "nc",
+  nominalAtm: 12,
+  rbpAtm: 20,
+  growthAtRbpMm: 0.25,
+  diameters: [2.5, 2.75, 3, 3.25, 3.5],
+};
+const cellAt = (cells: Cell[][], row: number, col: number) =>
+  cells.flat().find((c) => c.row === row && c.col === col) as Cell;
 
 describe("cellView", () => {
   const grid = buildGrid({
@@ -20,7 +28,14 @@ describe("cellView", () => {
 
   it("prints the stocked balloon large and the exact diameter small", () => {
     const v = cellView(cellAt(grid.cells, 2.5, 2)); // Finet: 0.678 x 4.5 = 3.051 -> up to 3.25
-    expect(v).toMatchObject({ primary: "3.25", exact: "(3.05)", primaryIsSize: true, marks: [], background: CELL_BACKGROUNDS.sized, border: 0 });
+    expect(v).toMatchObject({
+      primary: "3.25",
+      exact: "(3.05)",
+      primaryIsSize: true,
+      marks: [],
+      background: CELL_BACKGROUNDS.sized,
+      border: 0,
+    });
     expect(cellView(cellAt(grid.cells, 3, 2)).marks).toEqual(["outsideFit"]); // Dsb/Dmb 0.67 < 0.75
     expect(v.description).toContain("3.25 mm balloon at nominal pressure");
     expect(v.description).toContain("exact 3.05 mm");
@@ -28,7 +43,13 @@ describe("cellView", () => {
 
   it("marks impossible geometry with a dash on grey hatching, never a number", () => {
     const v = cellView(cellAt(grid.cells, 2.5, 3)); // SB above MB: no bifurcation
-    expect(v).toMatchObject({ primary: "—", exact: null, marks: ["noSize"], hatch: true, background: CELL_BACKGROUNDS.noSize });
+    expect(v).toMatchObject({
+      primary: "—",
+      exact: null,
+      marks: ["noSize"],
+      hatch: true,
+      background: CELL_BACKGROUNDS.noSize,
+    });
     expect(v.description).toMatch(/^No size: /);
     const tooSmall = cellView(cellAt(grid.cells, 3, 1)); // Finet: SB under 0.475 MB gives no parent above MB
     expect(tooSmall.marks).toEqual(["noSize"]);
@@ -46,15 +67,32 @@ describe("cellView", () => {
   });
 
   it("prints the pressure when reach pushes a balloon", () => {
-    const reach = buildGrid({ kind: "proximal", rows: [2.5], cols: [2.25], law: { law: "finet", ratio: 0.678 }, rounding: "reach", family });
+    const reach = buildGrid({
+      kind: "proximal",
+      rows: [2.5],
+      cols: [2.25],
+      law: { law: "finet", ratio: 0.678 },
+      rounding: "reach",
+      family,
+    });
     // 0.678 x 4.75 = 3.2205 mm; the 3.0 balloon grows 0.25 mm from 12 to 20 atm, so it needs
     // 12 + 8 x 0.2205 / 0.25 = 19.06 atm, rounded up to 20.
     expect(cellView(reach.cells[0]![0]!)).toMatchObject({ primary: "3.0", pressure: "@ 20 atm", exact: "(3.22)" });
   });
 
   it("prints the exact diameter large when the chart has no balloon family", () => {
-    const bare = buildGrid({ kind: "side", rows: [3.5], cols: [2.5], law: { law: "square" }, rounding: "down", family: null });
-    expect(cellView(bare.cells[0]![0]!)).toMatchObject({ primary: Math.sqrt(3.5 ** 2 - 2.5 ** 2).toFixed(2), exact: null });
+    const bare = buildGrid({
+      kind: "side",
+      rows: [3.5],
+      cols: [2.5],
+      law: { law: "square" },
+      rounding: "down",
+      family: null,
+    });
+    expect(cellView(bare.cells[0]![0]!)).toMatchObject({
+      primary: Math.sqrt(3.5 ** 2 - 2.5 ** 2).toFixed(2),
+      exact: null,
+    });
   });
 });
 
@@ -70,7 +108,13 @@ describe("labels", () => {
   });
 
   it("says who approved when, or that it is a draft", () => {
-    expect(approvalText({ status: "approved", approvedAt: new Date(Date.UTC(2026, 0, 5, 23, 59)), approvedByName: "B. Test" })).toBe("Approved 5 Jan 2026 by B. Test");
+    expect(
+      approvalText({
+        status: "approved",
+        approvedAt: new Date(Date.UTC(2026, 0, 5, 23, 59)),
+        approvedByName: "B. Test",
+      }),
+    ).toBe("Approved 5 Jan 2026 by B. Test");
     expect(approvalText({ status: "draft", approvedAt: null, approvedByName: null })).toBe("DRAFT — not approved");
     expect(statusBanner("approved")).toBeNull();
     expect(statusBanner("withdrawn")).toContain("WITHDRAWN");
@@ -84,7 +128,12 @@ describe("labels", () => {
   });
 
   it("words the legend for the chart's own law and stent", () => {
-    const finet = legendEntries({ law: { law: "finet", ratio: 0.678 }, stentName: "Test DES", hasProximal: true, hasReach: true });
+    const finet = legendEntries({
+      law: { law: "finet", ratio: 0.678 },
+      stentName: "Test DES",
+      hasProximal: true,
+      hasReach: true,
+    });
     expect(finet.map((e) => e.mark)).toEqual(["sized", "noSize", "noStock", "hazard", "outsideFit"]);
     expect(finet[0]!.text).toContain("@ 16 atm");
     expect(finet.find((e) => e.mark === "hazard")!.text).toContain("Test DES");

@@ -43,14 +43,38 @@ describe("everything on one page", () => {
     ...potDefinition,
     notes: "N".repeat(600),
     lookups: [
-      { kind: "proximal", rows: { from: 2, to: 4.9, step: 0.1 }, cols: { from: 1.5, to: 4.4, step: 0.1 }, rounding: "reach", familyId: 1 },
-      { kind: "side", rows: { from: 2.5, to: 5.4, step: 0.1 }, cols: { from: 2, to: 4.9, step: 0.1 }, rounding: "down", familyId: 2 },
-      { kind: "main", rows: { from: 2.5, to: 5.4, step: 0.1 }, cols: { from: 1.5, to: 4.4, step: 0.1 }, rounding: "nearest", familyId: 1 },
+      {
+        kind: "proximal",
+        rows: { from: 2, to: 4.9, step: 0.1 },
+        cols: { from: 1.5, to: 4.4, step: 0.1 },
+        rounding: "reach",
+        familyId: 1,
+      },
+      {
+        kind: "side",
+        rows: { from: 2.5, to: 5.4, step: 0.1 },
+        cols: { from: 2, to: 4.9, step: 0.1 },
+        rounding: "down",
+        familyId: 2,
+      },
+      {
+        kind: "main",
+        rows: { from: 2.5, to: 5.4, step: 0.1 },
+        cols: { from: 1.5, to: 4.4, step: 0.1 },
+        rounding: "nearest",
+        familyId: 1,
+      },
     ],
   } as const;
   for (const paper of ["A4", "A0"] as const) {
     it(`three 30 x 30 grids and 600 characters of notes fit one ${paper} page`, { timeout: 60_000 }, async () => {
-      const pdf = await renderPosterPdf(posterInput(snapshotOf({ ...crowded, paper, orientation: "landscape" }), { status: "draft", approvedAt: null, approvedByName: null }));
+      const pdf = await renderPosterPdf(
+        posterInput(snapshotOf({ ...crowded, paper, orientation: "landscape" }), {
+          status: "draft",
+          approvedAt: null,
+          approvedByName: null,
+        }),
+      );
       expect(pdfInfo(pdf).pages).toBe(1);
     });
   }

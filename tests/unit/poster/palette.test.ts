@@ -11,7 +11,8 @@ const rgb = (hex: string) => {
   return [(n >> 16) & 255, (n >> 8) & 255, n & 255] as const;
 };
 const linear = (hex: string) => rgb(hex).map(channel) as [number, number, number];
-const luminance = ([r, g, b]: readonly number[]) => 0.2126 * (r as number) + 0.7152 * (g as number) + 0.0722 * (b as number);
+const luminance = ([r, g, b]: readonly number[]) =>
+  0.2126 * (r as number) + 0.7152 * (g as number) + 0.0722 * (b as number);
 const contrast = (a: string, b: string) => {
   const [hi, lo] = [luminance(linear(a)), luminance(linear(b))].sort((x, y) => y - x) as [number, number];
   return (hi + 0.05) / (lo + 0.05);
@@ -39,7 +40,15 @@ const SIMULATIONS: Record<string, number[][]> = {
   ],
 };
 const simulate = (m: number[][], v: readonly number[]) =>
-  m.map((row) => Math.min(1, Math.max(0, row.reduce((s, k, i) => s + k * (v[i] as number), 0))));
+  m.map((row) =>
+    Math.min(
+      1,
+      Math.max(
+        0,
+        row.reduce((s, k, i) => s + k * (v[i] as number), 0),
+      ),
+    ),
+  );
 
 describe("poster palette", () => {
   it("gives every text at least 4.5:1 on each background it is printed on (WCAG 2.x AA)", () => {

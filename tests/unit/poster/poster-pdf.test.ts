@@ -58,7 +58,11 @@ function expectedCells(grid: Grid): ParsedCell[][] {
       if (!cell.exact.ok) return { exact: null, corner: "", primary: "—", pressure: null };
       const corner = (cell.flags.hazard ? "⚠" : "") + (cell.flags.outsideFit ? "◇" : "");
       const b = cell.balloon;
-      const primary = !b ? cell.exact.diameterMm.toFixed(2) : b.ok ? shelf(b.diameterMm) : { above_stock: "▲", below_stock: "▼", no_stock: "○" }[b.code];
+      const primary = !b
+        ? cell.exact.diameterMm.toFixed(2)
+        : b.ok
+          ? shelf(b.diameterMm)
+          : { above_stock: "▲", below_stock: "▼", no_stock: "○" }[b.code];
       return {
         exact: b ? `(${cell.exact.diameterMm.toFixed(2)})` : null,
         corner,
@@ -115,7 +119,17 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
   });
 
   it("explains every mark in the legend, in words", () => {
-    for (const s of ["How to read a cell", "Stocked balloon.", "— No size.", "▲▼ No stocked size.", "⚠ Stent limit.", "◇ Outside published fit.", "grey hatched", "heavy border", "Dsb/Dmb ≥ 0.75"]) {
+    for (const s of [
+      "How to read a cell",
+      "Stocked balloon.",
+      "— No size.",
+      "▲▼ No stocked size.",
+      "⚠ Stent limit.",
+      "◇ Outside published fit.",
+      "grey hatched",
+      "heavy border",
+      "Dsb/Dmb ≥ 0.75",
+    ]) {
       expect(flat, s).toContain(s);
     }
   });
@@ -136,7 +150,8 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
 
   it("matches Finet's published formula computed here, rounded up to stock (POT, common practice)", () => {
     const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
-    const at = (mb: number, sb: number) => read.cells[grid.rowAxis.values.indexOf(mb)]?.[grid.colAxis.values.indexOf(sb)];
+    const at = (mb: number, sb: number) =>
+      read.cells[grid.rowAxis.values.indexOf(mb)]?.[grid.colAxis.values.indexOf(sb)];
     // Dp = 0.678 (Dmb + Dsb): Finet G et al., EuroIntervention 2008.
     const dp = 0.678 * (3 + 2.5); // 3.729
     expect(at(3, 2.5)).toMatchObject({ exact: `(${dp.toFixed(2)})`, primary: "3.75" });
@@ -153,7 +168,9 @@ describe("the kissing poster read back (square law, Tabloid landscape, draft)", 
   const [grid] = snapshotGrids(snapshot) as [Grid];
   let text = "";
   beforeAll(async () => {
-    ({ text } = await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "draft", approvedAt: null, approvedByName: null }))));
+    ({ text } = await pdfText(
+      await renderPosterPdf(posterInput(snapshot, { status: "draft", approvedAt: null, approvedByName: null })),
+    ));
   }, 60_000);
 
   it("prints the square law and every cell as the model decides, with the draft marks", () => {
@@ -188,7 +205,10 @@ describe("the lab's logo", () => {
       const on = (x - 32) ** 2 + (y - 32) ** 2 < 28 ** 2;
       png.data.set(on ? [29, 101, 118, 255] : [255, 255, 255, 255], i * 4);
     }
-    const input = { ...posterInput(snapshotOf(potDefinition)), logo: { bytes: PNG.sync.write(png), mime: "image/png" as const } };
+    const input = {
+      ...posterInput(snapshotOf(potDefinition)),
+      logo: { bytes: PNG.sync.write(png), mime: "image/png" as const },
+    };
     const withLogo = (await renderPosterPdf(input)).toString("latin1");
     const without = (await renderPosterPdf(posterInput(snapshotOf(potDefinition)))).toString("latin1");
     expect(withLogo).toMatch(/\/Subtype \/Image/);

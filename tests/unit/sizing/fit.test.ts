@@ -4,8 +4,7 @@ import { lawFit } from "@/lib/sizing/fit";
 // Fit ranges as reported in Huo Y, Finet G, Lefevre T, et al. EuroIntervention 2012.
 describe("law fit by Dsb/Dmb", () => {
   it("Huo-Kassab fitted every type", () => {
-    for (const sb of [0.5, 1, 2, 3])
-      expect(lawFit({ law: "huo-kassab" }, 3, sb).withinPublishedFit).toBe(true);
+    for (const sb of [0.5, 1, 2, 3]) expect(lawFit({ law: "huo-kassab" }, 3, sb).withinPublishedFit).toBe(true);
   });
 
   it("Finet fitted mainly near-symmetric bifurcations (>= 0.75)", () => {

@@ -25,10 +25,7 @@ const SPECS: { spec: LawSpec; n: Dec | null; ratio: Dec | null; source: string }
 
 type Ref = { value: Dec; isSize: boolean };
 
-function reference(
-  law: (typeof SPECS)[number],
-  known: { parent?: number; mb?: number; sb?: number },
-): Ref {
+function reference(law: (typeof SPECS)[number], known: { parent?: number; mb?: number; sb?: number }): Ref {
   const p = known.parent === undefined ? null : new D(known.parent);
   const m = known.mb === undefined ? null : new D(known.mb);
   const s = known.sb === undefined ? null : new D(known.sb);

@@ -12,15 +12,11 @@ const powerSpec: fc.Arbitrary<LawSpec> = fc.oneof(
   fc.constant<LawSpec>({ law: "square" }),
   fc.double({ min: 1.5, max: 3.5, noNaN: true }).map((n): LawSpec => ({ law: "power", n })),
 );
-const finetSpec = fc
-  .double({ min: 0.55, max: 0.8, noNaN: true })
-  .map((ratio): LawSpec => ({ law: "finet", ratio }));
+const finetSpec = fc.double({ min: 0.55, max: 0.8, noNaN: true }).map((ratio): LawSpec => ({ law: "finet", ratio }));
 const anySpec = fc.oneof(powerSpec, finetSpec);
 
 /** Branch pair ordered as the law expects: mb >= sb. */
-const branches = fc
-  .tuple(diameter, diameter)
-  .map(([a, b]) => ({ mb: Math.max(a, b), sb: Math.min(a, b) }));
+const branches = fc.tuple(diameter, diameter).map(([a, b]) => ({ mb: Math.max(a, b), sb: Math.min(a, b) }));
 
 /** The law's relation, written out independently of the implementation. */
 function lawParent(spec: LawSpec, a: number, b: number): number {
@@ -35,9 +31,7 @@ describe("law properties", () => {
       fc.property(anySpec, branches, (spec, { mb, sb }) => {
         const r = solve(spec, { mb, sb });
         if (!r.ok) return;
-        expect(Math.abs(r.diameterMm - lawParent(spec, sb, mb))).toBeLessThanOrEqual(
-          1e-12 * r.diameterMm,
-        );
+        expect(Math.abs(r.diameterMm - lawParent(spec, sb, mb))).toBeLessThanOrEqual(1e-12 * r.diameterMm);
         if (sb < mb) expect(solve(spec, { mb: sb, sb: mb }).ok).toBe(false);
       }),
       RUNS,

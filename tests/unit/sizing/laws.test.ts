@@ -113,14 +113,8 @@ describe("hand-computed values", () => {
   });
 
   it("power: n chosen by the lab", () => {
-    expect(value(solve({ law: "power", n: 2.5 }, { mb: 3, sb: 2 }))).toBeCloseTo(
-      3.395511779189871,
-      12,
-    );
-    expect(value(solve({ law: "power", n: 3 }, { mb: 4, sb: 3 }))).toBeCloseTo(
-      4.497941445275415,
-      12,
-    );
+    expect(value(solve({ law: "power", n: 2.5 }, { mb: 3, sb: 2 }))).toBeCloseTo(3.395511779189871, 12);
+    expect(value(solve({ law: "power", n: 3 }, { mb: 4, sb: 3 }))).toBeCloseTo(4.497941445275415, 12);
     expect(value(solve({ law: "power", n: 2 }, { parent: 5, mb: 4 }))).toBeCloseTo(3, 12);
   });
 
@@ -152,9 +146,7 @@ describe("no size for impossible geometry", () => {
 
   it("a side branch larger than the main branch is no size", () => {
     for (const spec of [finet, murray, huo, square]) {
-      expect(reason(solve(spec, { mb: 2.5, sb: 3 }))).toBe(
-        "The side branch cannot be larger than the main branch",
-      );
+      expect(reason(solve(spec, { mb: 2.5, sb: 3 }))).toBe("The side branch cannot be larger than the main branch");
     }
   });
 
@@ -204,12 +196,8 @@ describe("no size for impossible geometry", () => {
 
   it("rejects zero, negative and non-finite inputs without a number", () => {
     expect(reason(solve(murray, { mb: 0, sb: 2 }))).toBe("Diameters must be greater than zero");
-    expect(reason(solve(murray, { parent: -4, mb: 2 }))).toBe(
-      "Diameters must be greater than zero",
-    );
-    expect(reason(solve(murray, { mb: Number.NaN, sb: 2 }))).toBe(
-      "Diameters must be numbers in mm",
-    );
+    expect(reason(solve(murray, { parent: -4, mb: 2 }))).toBe("Diameters must be greater than zero");
+    expect(reason(solve(murray, { mb: Number.NaN, sb: 2 }))).toBe("Diameters must be numbers in mm");
     expect(solve(murray, { mb: Infinity, sb: 2 }).ok).toBe(false);
   });
 

@@ -1,11 +1,6 @@
 import { errorBody, invalidInput } from "@/lib/errors";
 import { describe, expect, it } from "vitest";
-import {
-  parseSolveQuery,
-  queryRecord,
-  solveQuerySchema,
-  type QueryIssue,
-} from "@/lib/validation/solve";
+import { parseSolveQuery, queryRecord, solveQuerySchema, type QueryIssue } from "@/lib/validation/solve";
 
 const parse = (query: string) => parseSolveQuery(queryRecord(new URLSearchParams(query)));
 
@@ -62,20 +57,7 @@ describe("400 cases", () => {
   });
 
   it("non-numbers, NaN, Infinity, exponents, blanks", () => {
-    for (const bad of [
-      "abc",
-      "NaN",
-      "Infinity",
-      "-Infinity",
-      "1e1",
-      "0x3",
-      " 3",
-      "3 ",
-      "",
-      "3,5",
-      "3.5mm",
-      ".",
-    ]) {
+    for (const bad of ["abc", "NaN", "Infinity", "-Infinity", "1e1", "0x3", " 3", "3 ", "", "3,5", "3.5mm", "."]) {
       expect(issues(`law=murray&mb=${encodeURIComponent(bad)}&sb=2`), bad).toEqual([
         { path: ["mb"], message: "Must be a plain decimal number, e.g. 3.5" },
       ]);
@@ -83,15 +65,9 @@ describe("400 cases", () => {
   });
 
   it("zero, negative and above 10 mm", () => {
-    expect(issues("law=murray&mb=0&sb=2")).toEqual([
-      { path: ["mb"], message: "Must be greater than 0 mm" },
-    ]);
-    expect(issues("law=murray&mb=3&sb=-1")).toEqual([
-      { path: ["sb"], message: "Must be greater than 0 mm" },
-    ]);
-    expect(issues("law=murray&parent=10.01&sb=2")).toEqual([
-      { path: ["parent"], message: "Must be at most 10 mm" },
-    ]);
+    expect(issues("law=murray&mb=0&sb=2")).toEqual([{ path: ["mb"], message: "Must be greater than 0 mm" }]);
+    expect(issues("law=murray&mb=3&sb=-1")).toEqual([{ path: ["sb"], message: "Must be greater than 0 mm" }]);
+    expect(issues("law=murray&parent=10.01&sb=2")).toEqual([{ path: ["parent"], message: "Must be at most 10 mm" }]);
     expect(parse("law=murray&parent=10&sb=2").success).toBe(true);
   });
 
@@ -135,14 +111,10 @@ describe("400 cases", () => {
   });
 
   it("unknown and repeated query keys", () => {
-    expect(issues("law=murray&mb=3&sb=2&foo=1")).toEqual([
-      { path: ["foo"], message: "Unknown query parameter" },
-    ]);
+    expect(issues("law=murray&mb=3&sb=2&foo=1")).toEqual([{ path: ["foo"], message: "Unknown query parameter" }]);
     expect(pathsOf("law=murray&mb=3&sb=2&__proto__=1")).toEqual(['["__proto__"]']);
     expect(pathsOf("law=murray&mb=3&sb=2&MB=3")).toEqual(['["MB"]']);
-    expect(issues("law=murray&mb=3&mb=3.5&sb=2")).toEqual([
-      { path: ["mb"], message: "Give this parameter once" },
-    ]);
+    expect(issues("law=murray&mb=3&mb=3.5&sb=2")).toEqual([{ path: ["mb"], message: "Give this parameter once" }]);
   });
 
   it("reports every problem at once", () => {

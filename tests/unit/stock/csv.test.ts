@@ -60,13 +60,20 @@ describe("parseBalloonCsv: RFC 4180", () => {
   it("skips blank lines but keeps counting them", () => {
     const out = parseBalloonCsv(`${HEADER}\n\nFam,nc,2.5,yes\n,,,\n   \nFam,nc,zz,yes\n`);
     expect(out.rows.map((r) => r.line)).toEqual([3]);
-    expect(out.issues).toEqual([{ line: 6, column: "diameter_mm", message: 'diameter_mm: "zz" is not a number (write it like 2.75 or 2,75).' }]);
+    expect(out.issues).toEqual([
+      { line: 6, column: "diameter_mm", message: 'diameter_mm: "zz" is not a number (write it like 2.75 or 2,75).' },
+    ]);
   });
 });
 
 describe("parseBalloonCsv: separators, decimal commas, BOM", () => {
   it("detects a semicolon file and reads decimal commas in it", () => {
-    const out = parseBalloonCsv("family;compliance;diameter_mm;in_stock;nominal_atm;rbp_atm;growth_at_rbp_mm\nFam;nc;2,75;ja;12;20;0,2\nFam;nc;3,00;yes;;;\n".replace("ja", "yes"));
+    const out = parseBalloonCsv(
+      "family;compliance;diameter_mm;in_stock;nominal_atm;rbp_atm;growth_at_rbp_mm\nFam;nc;2,75;ja;12;20;0,2\nFam;nc;3,00;yes;;;\n".replace(
+        "ja",
+        "yes",
+      ),
+    );
     expect(out.delimiter).toBe(";");
     expect(out.issues).toEqual([]);
     expect(out.rows[0]).toMatchObject({ diameterMm: 2.75, nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2 });
@@ -82,12 +89,19 @@ describe("parseBalloonCsv: separators, decimal commas, BOM", () => {
   it("explains an unquoted decimal comma in a comma file", () => {
     const out = parseBalloonCsv(`${HEADER}\nFam,nc,2,75,yes\n`);
     expect(out.issues).toEqual([
-      { line: 2, message: 'This line has 5 fields but the header has 4. A decimal comma in a comma-separated file must be quoted ("2,75"), or use a decimal point (2.75).' },
+      {
+        line: 2,
+        message:
+          'This line has 5 fields but the header has 4. A decimal comma in a comma-separated file must be quoted ("2,75"), or use a decimal point (2.75).',
+      },
     ]);
   });
 
   it("reads a decimal point in a semicolon file too", () => {
-    expect(parseBalloonCsv("family;compliance;diameter_mm;in_stock\nFam;sc;3.5;no\n").rows[0]).toMatchObject({ diameterMm: 3.5, inStock: false });
+    expect(parseBalloonCsv("family;compliance;diameter_mm;in_stock\nFam;sc;3.5;no\n").rows[0]).toMatchObject({
+      diameterMm: 3.5,
+      inStock: false,
+    });
   });
 
   it("ignores a UTF-8 byte-order mark and header case and spacing", () => {
@@ -124,19 +138,83 @@ describe("parseBalloonCsv: in_stock", () => {
 describe("parseBalloonCsv: every bad-line reason with its line number", () => {
   const cases: [string, string, { line: number; column?: string; message: string }][] = [
     ["empty family", ",nc,2.5,yes", { line: 2, column: "family", message: "family: is empty." }],
-    ["family too long", `${"x".repeat(121)},nc,2.5,yes`, { line: 2, column: "family", message: "family: Family name must be 120 characters or fewer." }],
-    ["bad compliance", "Fam,xx,2.5,yes", { line: 2, column: "compliance", message: 'compliance: "xx" is not "nc" or "sc".' }],
-    ["empty compliance", "Fam,,2.5,yes", { line: 2, column: "compliance", message: 'compliance: is empty: write "nc" (non-compliant) or "sc" (semi-compliant).' }],
+    [
+      "family too long",
+      `${"x".repeat(121)},nc,2.5,yes`,
+      { line: 2, column: "family", message: "family: Family name must be 120 characters or fewer." },
+    ],
+    [
+      "bad compliance",
+      "Fam,xx,2.5,yes",
+      { line: 2, column: "compliance", message: 'compliance: "xx" is not "nc" or "sc".' },
+    ],
+    [
+      "empty compliance",
+      "Fam,,2.5,yes",
+      {
+        line: 2,
+        column: "compliance",
+        message: 'compliance: is empty: write "nc" (non-compliant) or "sc" (semi-compliant).',
+      },
+    ],
     ["empty diameter", "Fam,nc,,yes", { line: 2, column: "diameter_mm", message: "diameter_mm: is empty." }],
-    ["diameter not a number", "Fam,nc,2.5mm,yes", { line: 2, column: "diameter_mm", message: 'diameter_mm: "2.5mm" is not a number (write it like 2.75 or 2,75).' }],
-    ["diameter too small", "Fam,nc,0.95,yes", { line: 2, column: "diameter_mm", message: "diameter_mm: Diameter must be at least 1.00 mm." }],
-    ["diameter too large", "Fam,nc,7.05,yes", { line: 2, column: "diameter_mm", message: "diameter_mm: Diameter must be at most 7.00 mm." }],
-    ["diameter off the grid", "Fam,nc,2.33,yes", { line: 2, column: "diameter_mm", message: "diameter_mm: Diameter must be a multiple of 0.05 mm (for example 2.25 or 2.30)." }],
-    ["pressure too high", "Fam,nc,2.5,yes,12,41,", { line: 2, column: "rbp_atm", message: "rbp_atm: Rated burst pressure must be at most 40 atm." }],
-    ["pressure below 1", "Fam,nc,2.5,yes,0.5,20,", { line: 2, column: "nominal_atm", message: "nominal_atm: Nominal pressure must be at least 1 atm." }],
-    ["pressure off its 0.1 grid", "Fam,nc,2.5,yes,12.25,20,", { line: 2, column: "nominal_atm", message: "nominal_atm: Nominal pressure must be given in steps of 0.1 atm." }],
-    ["nominal not below burst", "Fam,nc,2.5,yes,20,20,", { line: 2, column: "rbp_atm", message: "rbp_atm: the rated burst pressure (20 atm) must be above the nominal pressure (20 atm)." }],
-    ["growth above 1 mm", "Fam,nc,2.5,yes,12,20,1.5", { line: 2, column: "growth_at_rbp_mm", message: "growth_at_rbp_mm: Growth at rated burst pressure must be at most 1.00 mm." }],
+    [
+      "diameter not a number",
+      "Fam,nc,2.5mm,yes",
+      { line: 2, column: "diameter_mm", message: 'diameter_mm: "2.5mm" is not a number (write it like 2.75 or 2,75).' },
+    ],
+    [
+      "diameter too small",
+      "Fam,nc,0.95,yes",
+      { line: 2, column: "diameter_mm", message: "diameter_mm: Diameter must be at least 1.00 mm." },
+    ],
+    [
+      "diameter too large",
+      "Fam,nc,7.05,yes",
+      { line: 2, column: "diameter_mm", message: "diameter_mm: Diameter must be at most 7.00 mm." },
+    ],
+    [
+      "diameter off the grid",
+      "Fam,nc,2.33,yes",
+      {
+        line: 2,
+        column: "diameter_mm",
+        message: "diameter_mm: Diameter must be a multiple of 0.05 mm (for example 2.25 or 2.30).",
+      },
+    ],
+    [
+      "pressure too high",
+      "Fam,nc,2.5,yes,12,41,",
+      { line: 2, column: "rbp_atm", message: "rbp_atm: Rated burst pressure must be at most 40 atm." },
+    ],
+    [
+      "pressure below 1",
+      "Fam,nc,2.5,yes,0.5,20,",
+      { line: 2, column: "nominal_atm", message: "nominal_atm: Nominal pressure must be at least 1 atm." },
+    ],
+    [
+      "pressure off its 0.1 grid",
+      "Fam,nc,2.5,yes,12.25,20,",
+      { line: 2, column: "nominal_atm", message: "nominal_atm: Nominal pressure must be given in steps of 0.1 atm." },
+    ],
+    [
+      "nominal not below burst",
+      "Fam,nc,2.5,yes,20,20,",
+      {
+        line: 2,
+        column: "rbp_atm",
+        message: "rbp_atm: the rated burst pressure (20 atm) must be above the nominal pressure (20 atm).",
+      },
+    ],
+    [
+      "growth above 1 mm",
+      "Fam,nc,2.5,yes,12,20,1.5",
+      {
+        line: 2,
+        column: "growth_at_rbp_mm",
+        message: "growth_at_rbp_mm: Growth at rated burst pressure must be at most 1.00 mm.",
+      },
+    ],
     ["too few fields", "Fam,nc,2.5", { line: 2, message: "This line has 3 fields but the header has 7." }],
   ];
   it.each(cases)("%s", (_name, line, issue) => {
@@ -159,25 +237,41 @@ describe("parseBalloonCsv: every bad-line reason with its line number", () => {
 describe("parseBalloonCsv: header", () => {
   it("names missing columns on line 1", () => {
     expect(parseBalloonCsv("family,diameter_mm\nFam,2.5\n").issues).toEqual([
-      { line: 1, message: "Missing columns compliance, in_stock. The columns are family, compliance, diameter_mm, in_stock and optionally nominal_atm, rbp_atm, growth_at_rbp_mm." },
+      {
+        line: 1,
+        message:
+          "Missing columns compliance, in_stock. The columns are family, compliance, diameter_mm, in_stock and optionally nominal_atm, rbp_atm, growth_at_rbp_mm.",
+      },
     ]);
   });
 
   it("refuses unknown and repeated columns rather than dropping data", () => {
     const out = parseBalloonCsv(`${HEADER},nominal_pressure,in_stock\nFam,nc,2.5,yes,12,yes\n`);
     expect(out.rows).toEqual([]);
-    expect(out.issues.map((i) => i.message)).toEqual([expect.stringContaining('Unknown column "nominal_pressure"'), 'The column "in_stock" appears twice.']);
+    expect(out.issues.map((i) => i.message)).toEqual([
+      expect.stringContaining('Unknown column "nominal_pressure"'),
+      'The column "in_stock" appears twice.',
+    ]);
     expect(out.issues.every((i) => i.line === 1)).toBe(true);
   });
 
   it("says so when there are no lines after the header, or nothing at all", () => {
-    expect(parseBalloonCsv(`${HEADER}\n`).issues).toEqual([{ line: 2, message: "The file has a header but no balloon lines." }]);
-    expect(parseBalloonCsv("\n\n").issues[0]).toMatchObject({ line: 1, message: expect.stringContaining("no header line") });
+    expect(parseBalloonCsv(`${HEADER}\n`).issues).toEqual([
+      { line: 2, message: "The file has a header but no balloon lines." },
+    ]);
+    expect(parseBalloonCsv("\n\n").issues[0]).toMatchObject({
+      line: 1,
+      message: expect.stringContaining("no header line"),
+    });
   });
 });
 
 describe("parseBalloonCsv: row limit", () => {
-  const file = (rows: number) => [HEADER, ...Array.from({ length: rows }, (_, i) => `F${Math.floor(i / 100)},nc,${(1 + (i % 100) * 0.05).toFixed(2)},yes`)].join("\n");
+  const file = (rows: number) =>
+    [
+      HEADER,
+      ...Array.from({ length: rows }, (_, i) => `F${Math.floor(i / 100)},nc,${(1 + (i % 100) * 0.05).toFixed(2)},yes`),
+    ].join("\n");
 
   it(`reads exactly ${MAX_IMPORT_ROWS} rows`, () => {
     const out = parseBalloonCsv(file(MAX_IMPORT_ROWS));

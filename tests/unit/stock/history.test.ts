@@ -14,29 +14,74 @@ describe("describeStockChange", () => {
   });
 
   it("lists every field of a created or deleted thing", () => {
-    expect(describeStockChange("stock.balloon.create", { before: null, after: { family: "F", diameterMm: 3.25, inStock: false } })).toEqual([
+    expect(
+      describeStockChange("stock.balloon.create", {
+        before: null,
+        after: { family: "F", diameterMm: 3.25, inStock: false },
+      }),
+    ).toEqual([
       { label: "Family", before: "—", after: "F" },
       { label: "Diameter", before: "—", after: "3.25 mm" },
       { label: "In stock", before: "—", after: "out of stock" },
     ]);
-    const deleted = describeStockChange("stock.platform.delete", { before: { name: "P", sizes: [{ nominalMm: 3, maxPostDilatationMm: 4.5 }] }, after: null });
+    const deleted = describeStockChange("stock.platform.delete", {
+      before: { name: "P", sizes: [{ nominalMm: 3, maxPostDilatationMm: 4.5 }] },
+      after: null,
+    });
     expect(deleted).toContainEqual({ label: "Sizes", before: "1: 3.00 (to 4.50)", after: "—" });
   });
 
   it("turns an import's family snapshots into per-size rows", () => {
     const rows = describeStockChange("stock.import", {
-      before: { families: [{ name: "A", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: null, balloons: [{ diameterMm: 2.5, inStock: true }, { diameterMm: 3, inStock: true }] }] },
+      before: {
+        families: [
+          {
+            name: "A",
+            compliance: "nc",
+            nominalAtm: 12,
+            rbpAtm: 20,
+            growthAtRbpMm: null,
+            balloons: [
+              { diameterMm: 2.5, inStock: true },
+              { diameterMm: 3, inStock: true },
+            ],
+          },
+        ],
+      },
       after: {
         families: [
-          { name: "A", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: null, balloons: [{ diameterMm: 2.5, inStock: true }, { diameterMm: 3, inStock: false }, { diameterMm: 3.5, inStock: true }] },
-          { name: "B", compliance: "sc", nominalAtm: 8, rbpAtm: 14, growthAtRbpMm: null, balloons: [{ diameterMm: 2, inStock: true }] },
+          {
+            name: "A",
+            compliance: "nc",
+            nominalAtm: 12,
+            rbpAtm: 20,
+            growthAtRbpMm: null,
+            balloons: [
+              { diameterMm: 2.5, inStock: true },
+              { diameterMm: 3, inStock: false },
+              { diameterMm: 3.5, inStock: true },
+            ],
+          },
+          {
+            name: "B",
+            compliance: "sc",
+            nominalAtm: 8,
+            rbpAtm: 14,
+            growthAtRbpMm: null,
+            balloons: [{ diameterMm: 2, inStock: true }],
+          },
         ],
       },
     });
     expect(rows).toEqual([
       { label: "A 3.00 mm", before: "in stock", after: "out of stock" },
       { label: "A 3.50 mm", before: "—", after: "in stock" },
-      { label: "B", before: "—", after: "new family: compliance sc, nominal pressure 8 atm, rated burst pressure 14 atm, growth at rated burst pressure not recorded" },
+      {
+        label: "B",
+        before: "—",
+        after:
+          "new family: compliance sc, nominal pressure 8 atm, rated burst pressure 14 atm, growth at rated burst pressure not recorded",
+      },
       { label: "B 2.00 mm", before: "—", after: "in stock" },
     ]);
   });

@@ -27,9 +27,15 @@ describe("readUploadedFile", () => {
   });
 
   it("refuses a body that is not multipart, and a form without the file", async () => {
-    const json = new Request("http://localhost/x", { method: "POST", body: "{}", headers: { "content-type": "application/json" } });
+    const json = new Request("http://localhost/x", {
+      method: "POST",
+      body: "{}",
+      headers: { "content-type": "application/json" },
+    });
     expect((await refusal(json)).message).toBe('Send the file as multipart/form-data in the field "file".');
-    expect((await refusal(multipart(new Blob(["x"]), "other"))).message).toBe('Choose a file to send in the field "file".');
+    expect((await refusal(multipart(new Blob(["x"]), "other"))).message).toBe(
+      'Choose a file to send in the field "file".',
+    );
   });
 
   it("refuses a file over 1 MB with 413", async () => {
@@ -46,7 +52,12 @@ describe("readUploadedFile", () => {
         if (pulled > 400) controller.close();
       },
     });
-    const req = new Request("http://localhost/x", { method: "POST", body: stream, headers: { "content-type": "multipart/form-data; boundary=x" }, duplex: "half" } as RequestInit);
+    const req = new Request("http://localhost/x", {
+      method: "POST",
+      body: stream,
+      headers: { "content-type": "multipart/form-data; boundary=x" },
+      duplex: "half",
+    } as RequestInit);
     expect((await refusal(req)).status).toBe(413);
     expect(pulled).toBeLessThan(10);
   });

@@ -1,8 +1,18 @@
 import { describe, expect, it } from "vitest";
 import { DEMO_STOCK } from "@/db/seed-stock";
-import { balloonFamilyInput, balloonFamilyPatch, balloonInput, balloonPatch, idParams, importQuery, onGrid, stentSizeInput } from "@/lib/validation/stock";
+import {
+  balloonFamilyInput,
+  balloonFamilyPatch,
+  balloonInput,
+  balloonPatch,
+  idParams,
+  importQuery,
+  onGrid,
+  stentSizeInput,
+} from "@/lib/validation/stock";
 
-const messages = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) => (r.error?.issues ?? []).map((i) => `${i.path.join(".")}: ${i.message}`);
+const messages = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>
+  (r.error?.issues ?? []).map((i) => `${i.path.join(".")}: ${i.message}`);
 
 describe("stock validation", () => {
   it("onGrid tolerates floating-point noise and nothing more", () => {
@@ -16,12 +26,22 @@ describe("stock validation", () => {
     const ok = { name: " Fam ", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2 };
     expect(balloonFamilyInput.parse(ok)).toEqual({ ...ok, name: "Fam" });
     expect(balloonFamilyInput.parse({ ...ok, growthAtRbpMm: undefined }).growthAtRbpMm).toBeUndefined();
-    expect(messages(balloonFamilyInput.safeParse({ ...ok, nominalAtm: 20 }))).toEqual(["rbpAtm: Rated burst pressure must be above the nominal pressure."]);
-    expect(messages(balloonFamilyInput.safeParse({ ...ok, rbpAtm: 40.5 }))).toEqual(["rbpAtm: Rated burst pressure must be at most 40 atm."]);
-    expect(messages(balloonFamilyInput.safeParse({ ...ok, growthAtRbpMm: 1.01 }))).toEqual(["growthAtRbpMm: Growth at rated burst pressure must be at most 1.00 mm."]);
+    expect(messages(balloonFamilyInput.safeParse({ ...ok, nominalAtm: 20 }))).toEqual([
+      "rbpAtm: Rated burst pressure must be above the nominal pressure.",
+    ]);
+    expect(messages(balloonFamilyInput.safeParse({ ...ok, rbpAtm: 40.5 }))).toEqual([
+      "rbpAtm: Rated burst pressure must be at most 40 atm.",
+    ]);
+    expect(messages(balloonFamilyInput.safeParse({ ...ok, growthAtRbpMm: 1.01 }))).toEqual([
+      "growthAtRbpMm: Growth at rated burst pressure must be at most 1.00 mm.",
+    ]);
     expect(messages(balloonFamilyInput.safeParse({ ...ok, name: "  " }))).toEqual(["name: Enter the family name."]);
-    expect(messages(balloonFamilyInput.safeParse({ ...ok, compliance: "xc" }))).toEqual(['compliance: Compliance must be "nc" (non-compliant) or "sc" (semi-compliant).']);
-    expect(messages(balloonFamilyInput.safeParse({ ...ok, nominalAtm: Number.NaN }))).toEqual(["nominalAtm: Nominal pressure must be a number."]);
+    expect(messages(balloonFamilyInput.safeParse({ ...ok, compliance: "xc" }))).toEqual([
+      'compliance: Compliance must be "nc" (non-compliant) or "sc" (semi-compliant).',
+    ]);
+    expect(messages(balloonFamilyInput.safeParse({ ...ok, nominalAtm: Number.NaN }))).toEqual([
+      "nominalAtm: Nominal pressure must be a number.",
+    ]);
     expect(messages(balloonFamilyInput.safeParse({ ...ok, extra: 1 }))).toEqual([': Unrecognized key: "extra"']);
   });
 
@@ -38,7 +58,10 @@ describe("stock validation", () => {
   });
 
   it("a stent size: post-dilatation from the nominal up to nominal + 2.00 mm", () => {
-    expect(stentSizeInput.parse({ nominalMm: 3, maxPostDilatationMm: 5 })).toEqual({ nominalMm: 3, maxPostDilatationMm: 5 });
+    expect(stentSizeInput.parse({ nominalMm: 3, maxPostDilatationMm: 5 })).toEqual({
+      nominalMm: 3,
+      maxPostDilatationMm: 5,
+    });
     expect(messages(stentSizeInput.safeParse({ nominalMm: 3, maxPostDilatationMm: 2.95 }))).toEqual([
       "maxPostDilatationMm: Maximum post-dilatation diameter must be at least the nominal diameter (3.00 mm).",
     ]);
@@ -49,7 +72,8 @@ describe("stock validation", () => {
 
   it("URL parts are bounded", () => {
     expect(idParams.parse({ id: "42" })).toEqual({ id: 42 });
-    for (const bad of ["0", "-1", "1.5", "abc", "99999999999999999999"]) expect(idParams.safeParse({ id: bad }).success).toBe(false);
+    for (const bad of ["0", "-1", "1.5", "abc", "99999999999999999999"])
+      expect(idParams.safeParse({ id: bad }).success).toBe(false);
     expect(importQuery.parse({ dryRun: "1" })).toEqual({ dryRun: true });
     expect(importQuery.parse({})).toEqual({ dryRun: false });
     expect(importQuery.safeParse({ dryRun: "yes" }).success).toBe(false);
@@ -58,14 +82,26 @@ describe("stock validation", () => {
   it("the invented demo stock passes the same rules as user input", () => {
     for (const { families, platforms } of Object.values(DEMO_STOCK)) {
       for (const f of families) {
-        expect(balloonFamilyInput.safeParse({ name: f.name, compliance: f.compliance, nominalAtm: f.nominalAtm, rbpAtm: f.rbpAtm, growthAtRbpMm: f.growthAtRbpMm }).success).toBe(true);
+        expect(
+          balloonFamilyInput.safeParse({
+            name: f.name,
+            compliance: f.compliance,
+            nominalAtm: f.nominalAtm,
+            rbpAtm: f.rbpAtm,
+            growthAtRbpMm: f.growthAtRbpMm,
+          }).success,
+        ).toBe(true);
         expect(f.name).toContain("(illustrative)");
-        for (const d of f.diameters) expect(balloonInput.safeParse({ diameterMm: d }).success, `${f.name} ${d}`).toBe(true);
+        for (const d of f.diameters)
+          expect(balloonInput.safeParse({ diameterMm: d }).success, `${f.name} ${d}`).toBe(true);
         expect(new Set(f.diameters).size).toBe(f.diameters.length);
       }
       for (const p of platforms) {
         expect(p.name).toContain("(illustrative)");
-        for (const [nominalMm, maxPostDilatationMm] of p.sizes) expect(stentSizeInput.safeParse({ nominalMm, maxPostDilatationMm }).success, `${p.name} ${nominalMm}`).toBe(true);
+        for (const [nominalMm, maxPostDilatationMm] of p.sizes)
+          expect(stentSizeInput.safeParse({ nominalMm, maxPostDilatationMm }).success, `${p.name} ${nominalMm}`).toBe(
+            true,
+          );
       }
     }
     const a = DEMO_STOCK.demo!.families[0]!;

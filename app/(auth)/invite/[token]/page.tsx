@@ -52,21 +52,30 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         <JoinLabForm token={token} labName={inv.labName} role={role} />
       ) : user ? (
         <div className="mt-6 space-y-4">
-          <FormStatus message={`You are signed in as ${user.email}, but this invitation is for ${inv.email}. Sign out, then open this link again.`} />
+          <FormStatus
+            message={`You are signed in as ${user.email}, but this invitation is for ${inv.email}. Sign out, then open this link again.`}
+          />
           <Link href="/sign-out" className={buttonClass("secondary")}>
             Sign out
           </Link>
         </div>
       ) : inv.hasAccount ? (
         <div className="mt-6 space-y-4">
-          <p className="text-ink-soft">An account already uses this address. Sign in with it and you can accept the invitation.</p>
-          <Link href={`/sign-in?${new URLSearchParams({ callbackUrl: here, email: inv.email })}`} className={buttonClass("primary")}>
+          <p className="text-ink-soft">
+            An account already uses this address. Sign in with it and you can accept the invitation.
+          </p>
+          <Link
+            href={`/sign-in?${new URLSearchParams({ callbackUrl: here, email: inv.email })}`}
+            className={buttonClass("primary")}
+          >
             Sign in to accept
           </Link>
         </div>
       ) : (
         <>
-          <p className="mt-6 text-ink-soft">Create your account: choose the name your colleagues will see, and a password.</p>
+          <p className="mt-6 text-ink-soft">
+            Create your account: choose the name your colleagues will see, and a password.
+          </p>
           <AcceptInvitationForm token={token} email={inv.email} />
         </>
       )}

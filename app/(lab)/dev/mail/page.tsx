@@ -24,7 +24,10 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
   const filter = typeof to === "string" && to.trim() ? to.trim().slice(0, 254) : undefined;
   let messages: FakeMessage[] | null = null;
   try {
-    const res = await fetch(`${fake}/messages${filter ? `?to=${encodeURIComponent(filter)}` : ""}`, { cache: "no-store", signal: AbortSignal.timeout(3000) });
+    const res = await fetch(`${fake}/messages${filter ? `?to=${encodeURIComponent(filter)}` : ""}`, {
+      cache: "no-store",
+      signal: AbortSignal.timeout(3000),
+    });
     if (res.ok) messages = ((await res.json()) as FakeMessage[]).slice().reverse();
   } catch {
     messages = null;
@@ -43,16 +46,30 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
           <label htmlFor="to" className="block text-sm font-medium">
             Recipient
           </label>
-          <input id="to" name="to" type="email" defaultValue={filter} className="mt-1 w-72 rounded-md border border-line-strong bg-white px-3 py-2" placeholder="any" />
+          <input
+            id="to"
+            name="to"
+            type="email"
+            defaultValue={filter}
+            className="mt-1 w-72 rounded-md border border-line-strong bg-white px-3 py-2"
+            placeholder="any"
+          />
         </div>
-        <button type="submit" className="rounded-md border border-line-strong bg-white px-4 py-2 text-sm font-semibold hover:bg-paper-sunk">
+        <button
+          type="submit"
+          className="rounded-md border border-line-strong bg-white px-4 py-2 text-sm font-semibold hover:bg-paper-sunk"
+        >
           Filter
         </button>
       </form>
       {messages === null ? (
         <FormStatus message={`The mail fake at ${fake} is not answering. It runs with npm start and npm test.`} />
       ) : messages.length === 0 ? (
-        <EmptyState title="No messages">{filter ? `Nothing was sent to ${filter}.` : "Invitations and password resets sent by Forkwall will appear here."}</EmptyState>
+        <EmptyState title="No messages">
+          {filter
+            ? `Nothing was sent to ${filter}.`
+            : "Invitations and password resets sent by Forkwall will appear here."}
+        </EmptyState>
       ) : (
         <MailList messages={messages} />
       )}

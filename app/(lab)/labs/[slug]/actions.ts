@@ -10,6 +10,11 @@ export async function setStaleMailAction(slug: string, on: boolean): Promise<Act
   return memberAction(slug, "lab:read", z.object({ on: z.boolean() }).strict(), { on }, async (member, data) => {
     await setStaleMailSetting({ labId: member.lab.id, userId: member.user.id, on: data.on });
     revalidatePath(`/labs/${slug}`);
-    return { ok: true, message: data.on ? "You will get an e-mail when posted copies go stale." : "You will no longer get stale-copy e-mails." };
+    return {
+      ok: true,
+      message: data.on
+        ? "You will get an e-mail when posted copies go stale."
+        : "You will no longer get stale-copy e-mails.",
+    };
   });
 }

@@ -2,7 +2,13 @@ import { LabNav } from "@/components/lab/lab-nav";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { ROLE_LABELS } from "@/lib/permissions";
 
-export default async function LabLayout({ children, params }: { children: React.ReactNode; params: Promise<{ slug: string }> }) {
+export default async function LabLayout({
+  children,
+  params,
+}: {
+  children: React.ReactNode;
+  params: Promise<{ slug: string }>;
+}) {
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}`);
   if (member === "forbidden") return children;

@@ -16,15 +16,26 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}`);
   if (member === "forbidden") return null;
-  const [charts, board, mail] = await Promise.all([listCharts({ labId: member.lab.id }), roomBoard({ labId: member.lab.id }), getStaleMailSetting({ labId: member.lab.id, userId: member.user.id })]);
-  const stale = board.flatMap((r) => r.postings.filter((p) => STALE.includes(p.status)).map((p) => ({ ...p, room: r.name })));
+  const [charts, board, mail] = await Promise.all([
+    listCharts({ labId: member.lab.id }),
+    roomBoard({ labId: member.lab.id }),
+    getStaleMailSetting({ labId: member.lab.id, userId: member.user.id }),
+  ]);
+  const stale = board.flatMap((r) =>
+    r.postings.filter((p) => STALE.includes(p.status)).map((p) => ({ ...p, room: r.name })),
+  );
   const posted = board.reduce((n, r) => n + r.postings.length, 0);
   return (
     <div className="space-y-8">
       <h1 className="sr-only">{member.lab.name}: overview</h1>
-      <section aria-labelledby="walls-h" className={`rounded-card border p-5 ${stale.length ? "border-warn/60 bg-warn-soft" : "border-line bg-paper-raised"}`}>
+      <section
+        aria-labelledby="walls-h"
+        className={`rounded-card border p-5 ${stale.length ? "border-warn/60 bg-warn-soft" : "border-line bg-paper-raised"}`}
+      >
         <h2 id="walls-h" className="text-lg font-semibold">
-          {stale.length ? `! ${stale.length} printout${stale.length > 1 ? "s" : ""} on the walls to replace` : `✓ All ${posted} recorded printout${posted === 1 ? " is" : "s are"} current`}
+          {stale.length
+            ? `! ${stale.length} printout${stale.length > 1 ? "s" : ""} on the walls to replace`
+            : `✓ All ${posted} recorded printout${posted === 1 ? " is" : "s are"} current`}
         </h2>
         {stale.length ? (
           <ul className="mt-2 list-disc pl-5">
@@ -54,18 +65,33 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
         </div>
         {charts.length === 0 ? (
           <div className="mt-3">
-            <EmptyState title="No wall charts yet">Charts built from this lab&apos;s stock and chosen law will be listed here, with the status of every printed copy.</EmptyState>
+            <EmptyState title="No wall charts yet">
+              Charts built from this lab&apos;s stock and chosen law will be listed here, with the status of every
+              printed copy.
+            </EmptyState>
           </div>
         ) : (
           <ul className="mt-3 grid gap-3 sm:grid-cols-2">
             {charts.map(({ chart, current }) => (
               <li key={chart.id}>
-                <Link href={`/labs/${slug}/charts/${chart.id}`} className="block rounded-card border border-line bg-paper-raised p-4 hover:border-brand-500">
+                <Link
+                  href={`/labs/${slug}/charts/${chart.id}`}
+                  className="block rounded-card border border-line bg-paper-raised p-4 hover:border-brand-500"
+                >
                   <span className="block font-semibold">{chart.title}</span>
                   <span className="mt-1 flex flex-wrap items-center gap-2 text-sm text-ink-faint">
                     {lawName(chart.definition.law)}
-                    {current ? <StatusBadge status={current.status} label={`${current.status === "approved" ? "Approved" : "Draft"} · edition ${current.number}`} /> : <StatusBadge status="none" />}
-                    {current?.status === "approved" && chart.liveFingerprint !== current.fingerprint ? <StatusBadge status="outdated" label="Needs a new edition" /> : null}
+                    {current ? (
+                      <StatusBadge
+                        status={current.status}
+                        label={`${current.status === "approved" ? "Approved" : "Draft"} · edition ${current.number}`}
+                      />
+                    ) : (
+                      <StatusBadge status="none" />
+                    )}
+                    {current?.status === "approved" && chart.liveFingerprint !== current.fingerprint ? (
+                      <StatusBadge status="outdated" label="Needs a new edition" />
+                    ) : null}
                   </span>
                 </Link>
               </li>
@@ -79,7 +105,9 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
           <StaleMailToggle slug={slug} initial={mail} />
         </section>
       ) : member.role === "manager" ? (
-        <p className="text-sm text-ink-soft">As a manager you get an e-mail whenever printed copies on the walls go stale.</p>
+        <p className="text-sm text-ink-soft">
+          As a manager you get an e-mail whenever printed copies on the walls go stale.
+        </p>
       ) : null}
       <Caution />
     </div>

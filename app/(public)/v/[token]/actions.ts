@@ -21,9 +21,17 @@ export async function recordPostingAction(token: string, roomId: number): Promis
   const check = await labOfToken(token);
   if (!check) return { ok: false, message: "This check link does not exist." };
   return memberAction(check.lab.slug, "posting:record", roomInput, { roomId }, async (member, data) => {
-    const res = await recordPosting({ labId: member.lab.id, editionId: check.edition.id, roomId: data.roomId, actor: member.user });
+    const res = await recordPosting({
+      labId: member.lab.id,
+      editionId: check.edition.id,
+      roomId: data.roomId,
+      actor: member.user,
+    });
     revalidatePath(`/v/${token}`);
-    return { ok: true, message: res.created ? "Recorded: this copy hangs there." : "That room already has this copy recorded." };
+    return {
+      ok: true,
+      message: res.created ? "Recorded: this copy hangs there." : "That room already has this copy recorded.",
+    };
   });
 }
 

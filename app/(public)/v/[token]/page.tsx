@@ -25,7 +25,12 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
   const user = await currentUser();
   const membership = user ? await findLabWithRole({ slug: view.lab.slug, userId: user.id }) : null;
   const role = membership?.role ?? null;
-  const [rooms, hanging] = role ? await Promise.all([listRooms({ labId: view.lab.id }), listPostingsForEdition({ labId: view.lab.id, editionId: view.edition.id })]) : [[], []];
+  const [rooms, hanging] = role
+    ? await Promise.all([
+        listRooms({ labId: view.lab.id }),
+        listPostingsForEdition({ labId: view.lab.id, editionId: view.edition.id }),
+      ])
+    : [[], []];
   const printId = view.status === "current" ? view.edition.id : view.currentEdition?.id;
 
   return (
@@ -53,7 +58,11 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
         </>
       ) : (
         <p className="mt-6 text-sm text-ink-soft">
-          Lab members can <Link href={`/sign-in?callbackUrl=/v/${token}`} className="text-brand-700 underline">sign in</Link> to record where this copy hangs or to print the current edition.
+          Lab members can{" "}
+          <Link href={`/sign-in?callbackUrl=/v/${token}`} className="text-brand-700 underline">
+            sign in
+          </Link>{" "}
+          to record where this copy hangs or to print the current edition.
         </p>
       )}
       <Caution className="mt-8" />

@@ -17,7 +17,12 @@ export async function saveChartAction(slug: string, chartId: number | null, defi
       revalidatePath(chartsPath(slug));
       return { ok: true, message: "Chart created.", id };
     }
-    await updateChart({ labId: member.lab.id, chartId: idParam.parse(chartId), userId: member.user.id, definition: def });
+    await updateChart({
+      labId: member.lab.id,
+      chartId: idParam.parse(chartId),
+      userId: member.user.id,
+      definition: def,
+    });
     revalidatePath(chartsPath(slug), "layout");
     return { ok: true, message: "Chart saved. Create an edition to print it." };
   });
@@ -38,22 +43,47 @@ export async function approveEditionAction(slug: string, editionId: number): Pro
   return memberAction(slug, "edition:approve", editionRef, { editionId }, async (member, { editionId: id }) => {
     const ed = await approveEdition({ labId: member.lab.id, editionId: id, actor: member.user });
     revalidatePath(chartsPath(slug), "layout");
-    return { ok: true, message: `Edition ${ed.number} approved.${ed.superseded.length ? ` Edition ${ed.superseded.map((s) => s.number).join(", ")} is now superseded.` : ""}` };
+    return {
+      ok: true,
+      message: `Edition ${ed.number} approved.${ed.superseded.length ? ` Edition ${ed.superseded.map((s) => s.number).join(", ")} is now superseded.` : ""}`,
+    };
   });
 }
 
 export async function rejectEditionAction(slug: string, editionId: number, reason: string): Promise<ActionState> {
-  return memberAction(slug, "edition:approve", editionRef.extend(rejectEditionSchema.shape), { editionId, reason }, async (member, data) => {
-    const ed = await rejectEdition({ labId: member.lab.id, editionId: data.editionId, actor: member.user, reason: data.reason });
-    revalidatePath(chartsPath(slug), "layout");
-    return { ok: true, message: `Edition ${ed.number} sent back to draft.` };
-  });
+  return memberAction(
+    slug,
+    "edition:approve",
+    editionRef.extend(rejectEditionSchema.shape),
+    { editionId, reason },
+    async (member, data) => {
+      const ed = await rejectEdition({
+        labId: member.lab.id,
+        editionId: data.editionId,
+        actor: member.user,
+        reason: data.reason,
+      });
+      revalidatePath(chartsPath(slug), "layout");
+      return { ok: true, message: `Edition ${ed.number} sent back to draft.` };
+    },
+  );
 }
 
 export async function withdrawEditionAction(slug: string, editionId: number, reason: string): Promise<ActionState> {
-  return memberAction(slug, "edition:withdraw", editionRef.extend(withdrawEditionSchema.shape), { editionId, reason: reason || undefined }, async (member, data) => {
-    const ed = await withdrawEdition({ labId: member.lab.id, editionId: data.editionId, actor: member.user, reason: data.reason ?? null });
-    revalidatePath(chartsPath(slug), "layout");
-    return { ok: true, message: `Edition ${ed.number} withdrawn.` };
-  });
+  return memberAction(
+    slug,
+    "edition:withdraw",
+    editionRef.extend(withdrawEditionSchema.shape),
+    { editionId, reason: reason || undefined },
+    async (member, data) => {
+      const ed = await withdrawEdition({
+        labId: member.lab.id,
+        editionId: data.editionId,
+        actor: member.user,
+        reason: data.reason ?? null,
+      });
+      revalidatePath(chartsPath(slug), "layout");
+      return { ok: true, message: `Edition ${ed.number} withdrawn.` };
+    },
+  );
 }

@@ -19,7 +19,10 @@ export async function inviteMemberAction(_prev: ActionState, form: FormData): Pr
   return memberAction(slug, "members:manage", inviteSchema, form, async (member, data) => {
     const { invitation, emailSent } = await inviteMember(member, data);
     refresh(slug);
-    return { ok: emailSent, message: `Invitation for ${invitation.email} as ${ROLE_LABELS[invitation.role].toLowerCase()} saved.${emailSent ? " The e-mail is on its way." : mailNote(false)}` };
+    return {
+      ok: emailSent,
+      message: `Invitation for ${invitation.email} as ${ROLE_LABELS[invitation.role].toLowerCase()} saved.${emailSent ? " The e-mail is on its way." : mailNote(false)}`,
+    };
   });
 }
 
@@ -28,14 +31,23 @@ export async function resendInvitationAction(_prev: ActionState, form: FormData)
   return memberAction(slug, "members:manage", invitationIdSchema, form, async (member, data) => {
     const { invitation, emailSent } = await resendInvitation(member, data.invitationId);
     refresh(slug);
-    return { ok: emailSent, message: emailSent ? `A new link was sent to ${invitation.email}; the previous one no longer works.` : `New link saved.${mailNote(false)}` };
+    return {
+      ok: emailSent,
+      message: emailSent
+        ? `A new link was sent to ${invitation.email}; the previous one no longer works.`
+        : `New link saved.${mailNote(false)}`,
+    };
   });
 }
 
 export async function revokeInvitationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   const slug = slugOf(form);
   return memberAction(slug, "members:manage", invitationIdSchema, form, async (member, data) => {
-    const revoked = await revokeInvitation({ labId: member.lab.id, invitationId: data.invitationId, actorUserId: member.user.id });
+    const revoked = await revokeInvitation({
+      labId: member.lab.id,
+      invitationId: data.invitationId,
+      actorUserId: member.user.id,
+    });
     refresh(slug);
     return { ok: true, message: `The invitation to ${revoked.email} was revoked; its link no longer works.` };
   });
@@ -45,10 +57,20 @@ export async function changeMemberRoleAction(_prev: ActionState, form: FormData)
   const slug = slugOf(form);
   let selfDemoted = false;
   const state = await memberAction(slug, "members:manage", memberRoleFormSchema, form, async (member, data) => {
-    const changed = await changeMemberRole({ labId: member.lab.id, membershipId: data.membershipId, role: data.role, actorUserId: member.user.id });
+    const changed = await changeMemberRole({
+      labId: member.lab.id,
+      membershipId: data.membershipId,
+      role: data.role,
+      actorUserId: member.user.id,
+    });
     selfDemoted = changed.changed && changed.userId === member.user.id && data.role !== "manager";
     refresh(slug);
-    return { ok: true, message: changed.changed ? `${changed.name} is now ${ROLE_LABELS[changed.role].toLowerCase()}.` : `${changed.name} already has that role.` };
+    return {
+      ok: true,
+      message: changed.changed
+        ? `${changed.name} is now ${ROLE_LABELS[changed.role].toLowerCase()}.`
+        : `${changed.name} already has that role.`,
+    };
   });
   if (selfDemoted) redirect(`/labs/${slug}`);
   return state;
@@ -58,7 +80,11 @@ export async function removeMemberAction(_prev: ActionState, form: FormData): Pr
   const slug = slugOf(form);
   let removedSelf = false;
   const state = await memberAction(slug, "members:manage", memberIdSchema, form, async (member, data) => {
-    const removed = await removeMember({ labId: member.lab.id, membershipId: data.membershipId, actorUserId: member.user.id });
+    const removed = await removeMember({
+      labId: member.lab.id,
+      membershipId: data.membershipId,
+      actorUserId: member.user.id,
+    });
     removedSelf = removed.userId === member.user.id;
     refresh(slug);
     return { ok: true, message: `${removed.name} was removed from the lab.` };

@@ -12,7 +12,10 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
   const { slug } = await params;
   const member = await memberForPage(slug, "members:manage", `/labs/${slug}/members`);
   if (member === "forbidden") return <Forbidden what="manage the lab's members" slug={slug} />;
-  const [members, invitations] = await Promise.all([listMembers({ labId: member.lab.id }), listOpenInvitations({ labId: member.lab.id })]);
+  const [members, invitations] = await Promise.all([
+    listMembers({ labId: member.lab.id }),
+    listOpenInvitations({ labId: member.lab.id }),
+  ]);
   return (
     <div className="space-y-10">
       <section aria-labelledby="members-heading">
@@ -31,7 +34,9 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
         <h2 id="invite-heading" className="mb-1 text-lg font-semibold">
           Invite a person
         </h2>
-        <p className="mb-4 text-sm text-ink-soft">They receive an e-mail with a link that works once and expires after 72 hours.</p>
+        <p className="mb-4 text-sm text-ink-soft">
+          They receive an e-mail with a link that works once and expires after 72 hours.
+        </p>
         <InviteForm slug={slug} />
       </section>
 

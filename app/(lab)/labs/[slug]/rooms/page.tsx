@@ -22,7 +22,10 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
     <div>
       <h1 className="text-2xl font-bold">Rooms and what hangs there</h1>
       <p className="mt-1 text-ink-soft">
-        {staleCount ? `${staleCount} printout${staleCount > 1 ? "s" : ""} to replace; stale ones are listed first.` : "Every recorded printout is current."} Record a copy from its check page (scan the QR code while signed in).
+        {staleCount
+          ? `${staleCount} printout${staleCount > 1 ? "s" : ""} to replace; stale ones are listed first.`
+          : "Every recorded printout is current."}{" "}
+        Record a copy from its check page (scan the QR code while signed in).
       </p>
       {manager ? (
         <div className="mt-4">
@@ -31,17 +34,25 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
       ) : null}
       {board.length === 0 ? (
         <div className="mt-6">
-          <EmptyState title="No rooms yet">{manager ? "Add the procedure and control rooms where charts hang." : "A manager adds the lab's rooms."}</EmptyState>
+          <EmptyState title="No rooms yet">
+            {manager ? "Add the procedure and control rooms where charts hang." : "A manager adds the lab's rooms."}
+          </EmptyState>
         </div>
       ) : (
         <ul className="mt-6 space-y-4">
           {board.map((room) => (
-            <li key={room.id} className="rounded-card border border-line bg-paper-raised p-4" data-testid={`room-${room.name}`}>
+            <li
+              key={room.id}
+              className="rounded-card border border-line bg-paper-raised p-4"
+              data-testid={`room-${room.name}`}
+            >
               <div className="flex flex-wrap items-center justify-between gap-2">
                 <h2 className="text-lg font-semibold">
                   {room.name} {room.stale ? <StatusBadge status="outdated" label={`${room.stale} to replace`} /> : null}
                 </h2>
-                {manager ? <RoomMenu slug={slug} roomId={room.id} name={room.name} empty={room.postings.length === 0} /> : null}
+                {manager ? (
+                  <RoomMenu slug={slug} roomId={room.id} name={room.name} empty={room.postings.length === 0} />
+                ) : null}
               </div>
               {room.postings.length === 0 ? (
                 <p className="mt-2 text-sm text-ink-faint">Nothing recorded on this wall.</p>
@@ -66,7 +77,10 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
                         </p>
                       </div>
                       {STALE.includes(p.status) && p.currentEdition ? (
-                        <a href={pdfUrlFor(env.APP_URL, p.currentEdition.id)} className={buttonClass("primary", "py-1 text-sm")}>
+                        <a
+                          href={pdfUrlFor(env.APP_URL, p.currentEdition.id)}
+                          className={buttonClass("primary", "py-1 text-sm")}
+                        >
                           Print edition {p.currentEdition.number}
                         </a>
                       ) : null}

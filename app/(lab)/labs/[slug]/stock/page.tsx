@@ -12,13 +12,22 @@ export const metadata = { title: "Stock" };
 
 const HISTORY_PAGE = 20;
 
-export default async function StockPage({ params, searchParams }: { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function StockPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/stock`);
   if (member === "forbidden") return null;
   const query = historyQuery.safeParse(await searchParams);
   const before = query.success ? query.data.before : undefined;
-  const [stock, history] = await Promise.all([getStock({ labId: member.lab.id }), listStockHistory({ labId: member.lab.id, before, limit: HISTORY_PAGE + 1 })]);
+  const [stock, history] = await Promise.all([
+    getStock({ labId: member.lab.id }),
+    listStockHistory({ labId: member.lab.id, before, limit: HISTORY_PAGE + 1 }),
+  ]);
   const canEdit = can(member.role, "stock:edit");
   const events = history.slice(0, HISTORY_PAGE);
 
@@ -32,8 +41,12 @@ export default async function StockPage({ params, searchParams }: { params: Prom
           </p>
         </div>
         {canEdit ? null : (
-          <p className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm text-ink-soft" data-testid="read-only-note">
-            You are viewing this stock as {ROLE_LABELS[member.role].toLowerCase()}: it is read-only for you. Managers of the lab keep it up to date.
+          <p
+            className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm text-ink-soft"
+            data-testid="read-only-note"
+          >
+            You are viewing this stock as {ROLE_LABELS[member.role].toLowerCase()}: it is read-only for you. Managers of
+            the lab keep it up to date.
           </p>
         )}
         <Caution />
@@ -41,7 +54,11 @@ export default async function StockPage({ params, searchParams }: { params: Prom
       <BalloonFamiliesTable slug={slug} families={stock.balloonFamilies} canEdit={canEdit} />
       <StentPlatformsTable slug={slug} platforms={stock.stentPlatforms} canEdit={canEdit} />
       {canEdit ? <StockImport slug={slug} families={stock.balloonFamilies} /> : null}
-      <StockHistory slug={slug} events={events} olderCursor={history.length > HISTORY_PAGE ? (events[events.length - 1]?.id ?? null) : null} />
+      <StockHistory
+        slug={slug}
+        events={events}
+        olderCursor={history.length > HISTORY_PAGE ? (events[events.length - 1]?.id ?? null) : null}
+      />
     </div>
   );
 }

@@ -16,7 +16,11 @@ export const GET = chartRoute("lab:read", async (_req, member, chartId) => {
     title: chart.title,
     definition: chart.definition,
     liveFingerprint: chart.liveFingerprint,
-    editions: eds.map((e) => ({ ...editionSummary(env.APP_URL, e), createdBy: e.createdByName, rejectionReason: e.rejectionReason })),
+    editions: eds.map((e) => ({
+      ...editionSummary(env.APP_URL, e),
+      createdBy: e.createdByName,
+      rejectionReason: e.rejectionReason,
+    })),
   });
 });
 

@@ -20,17 +20,32 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   if (!chartId.success) notFound();
   const chart = await getChart({ labId: member.lab.id, chartId: chartId.data });
   if (!chart) notFound();
-  const [stock, eds] = await Promise.all([getStock({ labId: member.lab.id }), listEditions({ labId: member.lab.id, chartId: chart.id })]);
+  const [stock, eds] = await Promise.all([
+    getStock({ labId: member.lab.id }),
+    listEditions({ labId: member.lab.id, chartId: chart.id }),
+  ]);
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
       <Caution className="my-4" />
-      <ChartDesigner slug={slug} chartId={chart.id} initial={chart.definition} stock={stock} labName={member.lab.name} logoSha256={chart.logoSha256} canEdit={can(member.role, "chart:design")} />
+      <ChartDesigner
+        slug={slug}
+        chartId={chart.id}
+        initial={chart.definition}
+        stock={stock}
+        labName={member.lab.name}
+        logoSha256={chart.logoSha256}
+        canEdit={can(member.role, "chart:design")}
+      />
       <LogoField chartId={chart.id} logoSha256={chart.logoSha256} canEdit={can(member.role, "chart:design")} />
       <EditionsPanel
         slug={slug}
         chartId={chart.id}
-        can={{ create: can(member.role, "edition:create"), approve: can(member.role, "edition:approve"), withdraw: can(member.role, "edition:withdraw") }}
+        can={{
+          create: can(member.role, "edition:create"),
+          approve: can(member.role, "edition:approve"),
+          withdraw: can(member.role, "edition:withdraw"),
+        }}
         editions={eds.map((e) => ({
           id: e.id,
           number: e.number,

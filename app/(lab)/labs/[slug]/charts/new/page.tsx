@@ -28,7 +28,9 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
   return (
     <div>
       <h1 className="text-2xl font-bold">New chart</h1>
-      <p className="mt-1 text-ink-soft">Axes start at this lab&apos;s stocked range in 0.25 mm steps; change anything and watch the preview.</p>
+      <p className="mt-1 text-ink-soft">
+        Axes start at this lab&apos;s stocked range in 0.25 mm steps; change anything and watch the preview.
+      </p>
       <Caution className="my-4" />
       <ChartDesigner slug={slug} chartId={null} initial={initial} stock={stock} labName={member.lab.name} canEdit />
     </div>

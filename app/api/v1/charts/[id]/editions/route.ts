@@ -11,5 +11,8 @@ const noOptions = z.object({}).strict();
 export const POST = chartRoute("edition:create", async (req, member, chartId) => {
   parseWith(noOptions, await readJson(req, { optional: true }));
   const ed = await createEdition({ labId: member.lab.id, chartId, actor: member.user });
-  return Response.json({ id: ed.id, number: ed.number, status: "draft", fingerprint: ed.fingerprint, ...editionUrls(env.APP_URL, ed) }, { status: 201 });
+  return Response.json(
+    { id: ed.id, number: ed.number, status: "draft", fingerprint: ed.fingerprint, ...editionUrls(env.APP_URL, ed) },
+    { status: 201 },
+  );
 });

@@ -8,7 +8,10 @@ export const PATCH = labRoute<Params>("members:manage", async (req, member, para
   const { id } = parseWith(idParam, params);
   const { role } = parseWith(changeRoleSchema, await readJson(req));
   const changed = await changeMemberRole({ labId: member.lab.id, membershipId: id, role, actorUserId: member.user.id });
-  return Response.json({ member: { id, userId: changed.userId, name: changed.name, email: changed.email, role: changed.role }, changed: changed.changed });
+  return Response.json({
+    member: { id, userId: changed.userId, name: changed.name, email: changed.email, role: changed.role },
+    changed: changed.changed,
+  });
 });
 
 export const DELETE = labRoute<Params>("members:manage", async (_req, member, params) => {
