@@ -121,16 +121,14 @@ export async function seedDemoStock(db: Database, labIds: Map<string, number>): 
         .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.name, plat.name)));
       if (found) continue;
       const [row] = await db.insert(stentPlatforms).values({ labId, name: plat.name }).$returningId();
-      await db
-        .insert(stentSizes)
-        .values(
-          plat.sizes.map(([nominalMm, maxPostDilatationMm]) => ({
-            labId,
-            platformId: row!.id,
-            nominalMm,
-            maxPostDilatationMm,
-          })),
-        );
+      await db.insert(stentSizes).values(
+        plat.sizes.map(([nominalMm, maxPostDilatationMm]) => ({
+          labId,
+          platformId: row!.id,
+          nominalMm,
+          maxPostDilatationMm,
+        })),
+      );
       added = true;
     }
     if (added)

@@ -138,11 +138,9 @@ async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): 
     const row = layout.legendRows[i];
     if (row) doc.text(`${e.label}. ${e.text}`, row.text.x, row.text.y, { width: row.text.width });
   });
-  doc
-    .fontSize(f.caution)
-    .text(`CAUTION. ${input.snapshot.caution}`, layout.caution.x + 6, layout.caution.y + 6, {
-      width: layout.caution.width - 12,
-    });
+  doc.fontSize(f.caution).text(`CAUTION. ${input.snapshot.caution}`, layout.caution.x + 6, layout.caution.y + 6, {
+    width: layout.caution.width - 12,
+  });
   const m = layout.qr.width / (qr.size + 2 * QR_QUIET_MODULES);
   for (const r of qr.rects)
     doc.rect(layout.qr.x + (r.x + QR_QUIET_MODULES) * m, layout.qr.y + (r.y + QR_QUIET_MODULES) * m, r.width * m, m);

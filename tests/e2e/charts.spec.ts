@@ -26,13 +26,11 @@ test("design a chart, create an edition, approve it as another role and download
   await expect(educator.getByRole("heading", { level: 1, name: title })).toBeVisible();
 
   // The lab logo: a text file named .png is refused from its bytes; a real PNG is taken.
-  await educator
-    .getByLabel("Logo file (PNG or JPEG, at most 1 MB)")
-    .setInputFiles({
-      name: "logo.png",
-      mimeType: "image/png",
-      buffer: Buffer.from("not really a picture\n".repeat(10)),
-    });
+  await educator.getByLabel("Logo file (PNG or JPEG, at most 1 MB)").setInputFiles({
+    name: "logo.png",
+    mimeType: "image/png",
+    buffer: Buffer.from("not really a picture\n".repeat(10)),
+  });
   await expect(educator.getByRole("alert").filter({ hasText: "must be a PNG or JPEG" })).toBeVisible();
   await educator
     .getByLabel("Logo file (PNG or JPEG, at most 1 MB)")

@@ -68,16 +68,14 @@ beforeAll(async () => {
     })
     .$returningId();
   wall.familyId = fam!.id;
-  await db
-    .insert(balloons)
-    .values(
-      Array.from({ length: 13 }, (_, i) => ({
-        labId: team.lab.id,
-        familyId: wall.familyId,
-        diameterMm: 2 + i * 0.25,
-        inStock: true,
-      })),
-    );
+  await db.insert(balloons).values(
+    Array.from({ length: 13 }, (_, i) => ({
+      labId: team.lab.id,
+      familyId: wall.familyId,
+      diameterMm: 2 + i * 0.25,
+      inStock: true,
+    })),
+  );
   wall.chartId = (await createChart({ labId: team.lab.id, userId: educator.id, definition: chartDefinition() })).id;
   const approved = await createEdition({ labId: team.lab.id, chartId: wall.chartId, actor: educator });
   await approveEdition({ labId: team.lab.id, editionId: approved.id, actor: lead });

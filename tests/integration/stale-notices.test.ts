@@ -67,16 +67,14 @@ beforeAll(async () => {
     })
     .$returningId();
   ids.family = fam!.id;
-  await db
-    .insert(balloons)
-    .values(
-      Array.from({ length: 13 }, (_, i) => ({
-        labId: ids.lab,
-        familyId: ids.family,
-        diameterMm: 2 + i * 0.25,
-        inStock: true,
-      })),
-    );
+  await db.insert(balloons).values(
+    Array.from({ length: 13 }, (_, i) => ({
+      labId: ids.lab,
+      familyId: ids.family,
+      diameterMm: 2 + i * 0.25,
+      inStock: true,
+    })),
+  );
   const definition = chartDefinitionSchema.parse({
     title: "POT chart",
     law: { law: "finet", ratio: 0.678 },
