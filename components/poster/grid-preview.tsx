@@ -1,7 +1,7 @@
 import type { CSSProperties } from "react";
 import { Caution } from "@/components/ui/caution";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
-import { axisTitles, gridSubtitle, lookupTitle, ROLE_SYMBOLS } from "@/lib/poster/labels";
+import { axisTitles, gridSubtitle, lookupTitle, VESSEL_SYMBOLS } from "@/lib/poster/labels";
 import {
   cellView,
   cornerSymbols,
@@ -95,8 +95,8 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
                 style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
               >
                 <span aria-hidden="true">
-                  {ROLE_SYMBOLS[grid.colAxis.role]} →<br />
-                  {ROLE_SYMBOLS[grid.rowAxis.role]} ↓
+                  {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
+                  {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
                 </span>
                 <span className="sr-only">
                   {titles.rows} down, {titles.cols} across

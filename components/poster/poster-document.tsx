@@ -11,7 +11,7 @@ import {
   DRAFT_WATERMARK,
   gridSubtitle,
   lookupTitle,
-  ROLE_SYMBOLS,
+  VESSEL_SYMBOLS,
   shortUrl,
   statusBanner,
 } from "@/lib/poster/labels";
@@ -310,7 +310,7 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
           textAlign: "right",
         }}
       >
-        {`${ROLE_SYMBOLS[grid.colAxis.role]} →`}
+        {`${VESSEL_SYMBOLS[grid.colAxis.vessel]} →`}
       </Text>
       <Text
         style={{
@@ -321,7 +321,7 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
           fontWeight: 600,
         }}
       >
-        {`${ROLE_SYMBOLS[grid.rowAxis.role]} ↓`}
+        {`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}
       </Text>
       {grid.colAxis.values.map((c, j) =>
         headText(

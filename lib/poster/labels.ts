@@ -1,16 +1,16 @@
 // Words printed around the grids, shared by the PDF poster and the HTML preview.
 import {
   DEFAULT_ROUNDING,
-  LOOKUP_ROLES,
+  LOOKUP_VESSELS,
   type BalloonFamilyStock,
   type Grid,
   type LookupKind,
-  type Role,
+  type Vessel,
   type RoundingRule,
 } from "@/lib/sizing";
 import type { EditionStatus } from "@/lib/editions/states";
 
-const ROLE_WORDS: Readonly<Record<Role, string>> = {
+const VESSEL_WORDS: Readonly<Record<Vessel, string>> = {
   parent: "parent",
   mb: "main branch",
   sb: "side branch",
@@ -24,18 +24,21 @@ const LOOKUP_HEADS: Readonly<Record<LookupKind, string>> = {
 
 /** "POT balloon (parent) from main branch × side branch": what the grid solves, from what. */
 export function lookupTitle(kind: LookupKind): string {
-  const roles = LOOKUP_ROLES[kind];
-  return `${LOOKUP_HEADS[kind]} from ${ROLE_WORDS[roles.rows]} × ${ROLE_WORDS[roles.cols]}`;
+  const vessels = LOOKUP_VESSELS[kind];
+  return `${LOOKUP_HEADS[kind]} from ${VESSEL_WORDS[vessels.rows]} × ${VESSEL_WORDS[vessels.cols]}`;
 }
 
 /** Axis titles: which diameter runs down the rows and which across the columns. */
 export function axisTitles(grid: Pick<Grid, "rowAxis" | "colAxis">): { rows: string; cols: string } {
   const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-  return { rows: `${cap(ROLE_WORDS[grid.rowAxis.role])}, mm`, cols: `${cap(ROLE_WORDS[grid.colAxis.role])}, mm` };
+  return {
+    rows: `${cap(VESSEL_WORDS[grid.rowAxis.vessel])}, mm`,
+    cols: `${cap(VESSEL_WORDS[grid.colAxis.vessel])}, mm`,
+  };
 }
 
 /** Short symbols of the formulae (Dp, Dmb, Dsb). */
-export const ROLE_SYMBOLS: Readonly<Record<Role, string>> = { parent: "Dp", mb: "Dmb", sb: "Dsb" };
+export const VESSEL_SYMBOLS: Readonly<Record<Vessel, string>> = { parent: "Dp", mb: "Dmb", sb: "Dsb" };
 
 const RULE_WORDS: Readonly<Record<RoundingRule, string>> = {
   up: "rounded up to the next stocked size",

@@ -1,6 +1,6 @@
 import { resolveAxis, type AxisInput } from "./axis";
 import { lawFit } from "./fit";
-import { lawSpecProblem, solve, type KnownDiameters, type LawSpec, type Role } from "./laws";
+import { lawSpecProblem, solve, type KnownDiameters, type LawSpec, type Vessel } from "./laws";
 import { pickBalloon, type BalloonFamilyStock, type BalloonPick, type LookupKind, type RoundingRule } from "./rounding";
 import { checkPot, type StentSize } from "./stent";
 
@@ -15,7 +15,7 @@ export type GridInput = {
   stent?: readonly StentSize[] | null;
 };
 
-export type GridAxis = { role: Role; label: string; values: number[] };
+export type GridAxis = { vessel: Vessel; label: string; values: number[] };
 
 export type CellExact = { ok: true; diameterMm: number } | { ok: false; reason: string };
 
@@ -34,7 +34,7 @@ export type Cell = {
 
 export type Grid = {
   kind: LookupKind;
-  solved: Role;
+  solved: Vessel;
   rowAxis: GridAxis;
   colAxis: GridAxis;
   law: LawSpec;
@@ -43,13 +43,13 @@ export type Grid = {
 };
 
 /** Which diameter each lookup reads on its rows and columns, and which it solves. */
-export const LOOKUP_ROLES: Readonly<Record<LookupKind, { rows: Role; cols: Role; solved: Role }>> = {
+export const LOOKUP_VESSELS: Readonly<Record<LookupKind, { rows: Vessel; cols: Vessel; solved: Vessel }>> = {
   proximal: { rows: "mb", cols: "sb", solved: "parent" },
   side: { rows: "parent", cols: "mb", solved: "sb" },
   main: { rows: "parent", cols: "sb", solved: "mb" },
 };
 
-export const ROLE_LABELS: Readonly<Record<Role, string>> = {
+export const VESSEL_LABELS: Readonly<Record<Vessel, string>> = {
   parent: "Parent (proximal main vessel), mm",
   mb: "Main branch, mm",
   sb: "Side branch, mm",
@@ -64,8 +64,8 @@ export class GridInputError extends Error {
 export function buildGrid(input: GridInput): Grid {
   const lawProblem = lawSpecProblem(input.law);
   if (lawProblem) throw new GridInputError(lawProblem);
-  const roles = LOOKUP_ROLES[input.kind];
-  if (!roles) throw new GridInputError("Unknown lookup kind");
+  const vessels = LOOKUP_VESSELS[input.kind];
+  if (!vessels) throw new GridInputError("Unknown lookup kind");
   const rows = resolveAxis(input.rows);
   if (!rows.ok) throw new GridInputError(`Rows: ${rows.reason}`);
   const cols = resolveAxis(input.cols);
@@ -75,7 +75,7 @@ export function buildGrid(input: GridInput): Grid {
 
   const cells = rows.values.map((row) =>
     cols.values.map((col): Cell => {
-      const known: KnownDiameters = { [roles.rows]: row, [roles.cols]: col };
+      const known: KnownDiameters = { [vessels.rows]: row, [vessels.cols]: col };
       const result = solve(input.law, known);
       if (!result.ok) {
         return {
@@ -87,7 +87,7 @@ export function buildGrid(input: GridInput): Grid {
         };
       }
       const exact = result.diameterMm;
-      const full = { ...known, [roles.solved]: exact } as Required<KnownDiameters>;
+      const full = { ...known, [vessels.solved]: exact } as Required<KnownDiameters>;
       const balloon = input.family ? pickBalloon(exact, input.family, input.rounding) : null;
       const fit = lawFit(input.law, full.mb, full.sb);
       const cell: Cell = {
@@ -110,9 +110,9 @@ export function buildGrid(input: GridInput): Grid {
 
   return {
     kind: input.kind,
-    solved: roles.solved,
-    rowAxis: { role: roles.rows, label: ROLE_LABELS[roles.rows], values: rows.values },
-    colAxis: { role: roles.cols, label: ROLE_LABELS[roles.cols], values: cols.values },
+    solved: vessels.solved,
+    rowAxis: { vessel: vessels.rows, label: VESSEL_LABELS[vessels.rows], values: rows.values },
+    colAxis: { vessel: vessels.cols, label: VESSEL_LABELS[vessels.cols], values: cols.values },
     law: { ...input.law },
     rounding: input.rounding,
     cells,

@@ -9,11 +9,11 @@ export type LawSpec =
   | { law: "square" }
   | { law: "power"; n: number };
 
-export type Role = "parent" | "mb" | "sb";
+export type Vessel = "parent" | "mb" | "sb";
 
 export type KnownDiameters = { parent?: number; mb?: number; sb?: number };
 
-export type SolveOk = { ok: true; solved: Role; diameterMm: number; warnings: string[] };
+export type SolveOk = { ok: true; solved: Vessel; diameterMm: number; warnings: string[] };
 export type SolveFail = { ok: false; code: "no_solution"; reason: string };
 export type SolveResult = SolveOk | SolveFail;
 
@@ -164,7 +164,7 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
     if (v <= 0) return fail("Diameters must be greater than zero");
   }
   const { parent, mb, sb } = known;
-  let result: { solved: Role; value: number } | SolveFail;
+  let result: { solved: Vessel; value: number } | SolveFail;
   if (parent === undefined) result = solveParent(spec, mb as number, sb as number);
   else if (sb === undefined) result = solveSide(spec, parent, mb as number);
   else result = solveMain(spec, parent, sb);
@@ -183,7 +183,7 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
   };
 }
 
-function solveParent(spec: LawSpec, mb: number, sb: number): { solved: Role; value: number } | SolveFail {
+function solveParent(spec: LawSpec, mb: number, sb: number): { solved: Vessel; value: number } | SolveFail {
   if (sb > mb) return fail("The side branch cannot be larger than the main branch");
   let parent: number;
   if (spec.law === "finet") {
@@ -205,7 +205,7 @@ function solveParent(spec: LawSpec, mb: number, sb: number): { solved: Role; val
   return { solved: "parent", value: parent };
 }
 
-function solveSide(spec: LawSpec, parent: number, mb: number): { solved: Role; value: number } | SolveFail {
+function solveSide(spec: LawSpec, parent: number, mb: number): { solved: Vessel; value: number } | SolveFail {
   if (mb >= parent) {
     return fail("With the main branch at or above the parent, no side branch fits this law");
   }
@@ -230,7 +230,7 @@ function solveSide(spec: LawSpec, parent: number, mb: number): { solved: Role; v
   return { solved: "sb", value: Math.min(sb, mb) };
 }
 
-function solveMain(spec: LawSpec, parent: number, sb: number): { solved: Role; value: number } | SolveFail {
+function solveMain(spec: LawSpec, parent: number, sb: number): { solved: Vessel; value: number } | SolveFail {
   if (sb >= parent) {
     return fail("With the side branch at or above the parent, no main branch fits this law");
   }

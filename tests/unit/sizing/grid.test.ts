@@ -44,10 +44,10 @@ describe("proximal lookup (POT from MB x SB), Finet 0.678, round up", () => {
     stent: platform,
   });
 
-  it("has the shape and roles of the lookup", () => {
+  it("has the shape and vessels of the lookup", () => {
     expect(grid.solved).toBe("parent");
-    expect(grid.rowAxis).toMatchObject({ role: "mb", values: [3.0, 3.5] });
-    expect(grid.colAxis).toMatchObject({ role: "sb", values: [1.0, 2.0, 2.5, 3.0, 3.5] });
+    expect(grid.rowAxis).toMatchObject({ vessel: "mb", values: [3.0, 3.5] });
+    expect(grid.colAxis).toMatchObject({ vessel: "sb", values: [1.0, 2.0, 2.5, 3.0, 3.5] });
     expect(grid.rowAxis.label).toMatch(/main branch/i);
     expect(grid.cells).toHaveLength(2);
     for (const row of grid.cells) expect(row).toHaveLength(5);
@@ -150,8 +150,8 @@ describe("side and main lookups", () => {
       stent: platform,
     });
     expect(grid.solved).toBe("sb");
-    expect(grid.rowAxis.role).toBe("parent");
-    expect(grid.colAxis.role).toBe("mb");
+    expect(grid.rowAxis.vessel).toBe("parent");
+    expect(grid.colAxis.vessel).toBe("mb");
     // Murray: (125 − 64)^(1/3) = 3.9365, rounded down to 3.5.
     const c = cell(grid, 5, 4);
     expect(c.exact.ok && c.exact.diameterMm).toBeCloseTo(3.936497183102173, 12);
@@ -179,8 +179,8 @@ describe("side and main lookups", () => {
       family: null,
     });
     expect(grid.solved).toBe("mb");
-    expect(grid.rowAxis.role).toBe("parent");
-    expect(grid.colAxis.role).toBe("sb");
+    expect(grid.rowAxis.vessel).toBe("parent");
+    expect(grid.colAxis.vessel).toBe("sb");
     expect(cell(grid, 5, 3).exact).toEqual({ ok: true, diameterMm: 4 }); // √(25 − 9)
     for (const x of grid.cells.flat()) expect(x.balloon).toBeNull();
     // Parent 4, sb 3: √7 = 2.646 < 3, so no main branch.
