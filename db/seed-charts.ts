@@ -1,12 +1,14 @@
 // Demo charts, editions, rooms and postings for the invented demo lab. Idempotent: a chart or
 // room that already exists (by title or name) is left as it is. Goes through the same query
-// functions as the app, so fingerprints, approvals and statuses are real.
+// functions and write path as the app, so fingerprints, approvals and statuses are real.
 import { and, eq } from "drizzle-orm";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import type { Database } from "./index";
 import { createChart } from "./queries/charts";
 import { approveEdition, createEdition } from "./queries/editions";
-import { createRoom, recordPosting } from "./queries/rooms";
+import { recordPosting } from "./queries/postings";
+import { createRoom } from "./queries/rooms";
+import { labWrite } from "@/lib/ops/write";
 import { balloonFamilies, charts, labs, rooms, stentPlatforms, users } from "./schema";
 
 const ROOMS = ["Procedure room 1", "Procedure room 2", "Control room"];
@@ -122,7 +124,10 @@ export async function seedDemoCharts(db: Database): Promise<void> {
       .select({ id: rooms.id })
       .from(rooms)
       .where(and(eq(rooms.labId, lab.id), eq(rooms.name, name)));
-    roomIds.set(name, found?.id ?? (await createRoom({ labId: lab.id, name, actor: manager! })).id);
+    roomIds.set(
+      name,
+      found?.id ?? (await labWrite(lab.id, (tx) => createRoom(tx, { labId: lab.id, name, actor: manager! }))).id,
+    );
   }
 
   for (const demo of CHARTS) {
@@ -132,11 +137,17 @@ export async function seedDemoCharts(db: Database): Promise<void> {
       .where(and(eq(charts.labId, lab.id), eq(charts.title, demo.title)));
     if (exists) continue;
     const definition = chartDefinitionSchema.parse(demo.definition({ nc, sc, stent: stentRow.id }));
-    const { id: chartId } = await createChart({ labId: lab.id, userId: educator!.id, definition });
-    const edition = await createEdition({ labId: lab.id, chartId, actor: educator! });
+    const { id: chartId } = await labWrite(lab.id, (tx) =>
+      createChart(tx, { labId: lab.id, userId: educator!.id, definition }),
+    );
+    const edition = await labWrite(lab.id, (tx) => createEdition(tx, { labId: lab.id, chartId, actor: educator! }));
     if (!demo.approveBy) continue;
-    await approveEdition({ labId: lab.id, editionId: edition.id, actor: demo.approveBy === "lead" ? lead! : manager! });
+    await labWrite(lab.id, (tx) =>
+      approveEdition(tx, { labId: lab.id, editionId: edition.id, actor: demo.approveBy === "lead" ? lead! : manager! }),
+    );
     for (const room of demo.postIn)
-      await recordPosting({ labId: lab.id, editionId: edition.id, roomId: roomIds.get(room)!, actor: operator! });
+      await labWrite(lab.id, (tx) =>
+        recordPosting(tx, { labId: lab.id, editionId: edition.id, roomId: roomIds.get(room)!, actor: operator! }),
+      );
   }
 }

@@ -67,12 +67,3 @@ export function invalidInput(issues: { path: readonly PropertyKey[]; message: st
 export function errorBody(err: AppError) {
   return { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
 }
-
-export function errorResponse(err: unknown): Response {
-  if (err instanceof AppError) return Response.json(errorBody(err), { status: err.status });
-  console.error(err);
-  return Response.json(
-    { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
-    { status: 500 },
-  );
-}

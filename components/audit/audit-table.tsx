@@ -1,4 +1,4 @@
-import type { AuditEntry } from "@/db/queries/audit";
+import type { AuditEntry } from "@/lib/ops/audit";
 import { describeAction, describeDetail } from "@/lib/audit/describe";
 
 const when = new Intl.DateTimeFormat("en-GB", {

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import { resetPasswordAction } from "@/lib/auth/actions";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 import { NewPasswordFields } from "./new-password-fields";

@@ -10,7 +10,7 @@ import {
 } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 import { StatusBadge } from "@/components/ui/status-badge";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 import type { EditionStatus } from "@/lib/editions/states";
 
 export type EditionRow = {

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { recordPostingAction, takeDownPostingAction } from "@/app/(public)/v/[token]/actions";
 import { Button } from "@/components/ui/button";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 
 export function PostingForm({
   token,

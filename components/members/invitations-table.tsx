@@ -2,7 +2,7 @@
 
 import { useActionState, useState } from "react";
 import { resendInvitationAction, revokeInvitationAction } from "@/app/(lab)/labs/[slug]/members/actions";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 import { ROLE_LABELS, type Role } from "@/lib/permissions";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import { inviteMemberAction } from "@/app/(lab)/labs/[slug]/members/actions";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 import { ROLE_LABELS, ROLES } from "@/lib/permissions";
 import { SelectField, TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";

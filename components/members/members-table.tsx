@@ -10,7 +10,7 @@ import {
 } from "@tanstack/react-table";
 import { useActionState, useState } from "react";
 import { changeMemberRoleAction, removeMemberAction } from "@/app/(lab)/labs/[slug]/members/actions";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/permissions";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";

@@ -9,7 +9,7 @@ import {
   takeDownAction,
 } from "@/app/(lab)/labs/[slug]/rooms/actions";
 import { Button } from "@/components/ui/button";
-import type { ActionState } from "@/lib/auth/action-guard";
+import type { ActionState } from "@/lib/http/action";
 
 function Notice({ state }: { state: ActionState | null }) {
   if (!state?.message) return null;

@@ -1,14 +1,15 @@
 import Link from "next/link";
-import { listLabsForUser } from "@/db/queries/members";
 import { signOutAction } from "@/lib/auth/actions";
-import { currentUser } from "@/lib/auth/session";
+import { listMyLabs } from "@/lib/ops/accounts";
+import { sessionCaller } from "@/lib/ops/caller";
 import { mailFakeConfigured } from "@/lib/mail/send";
 import { ROLE_LABELS } from "@/lib/permissions";
 import { buttonClass } from "@/components/ui/button";
 
 export async function SiteHeader() {
-  const user = await currentUser().catch(() => null);
-  const labs = user ? await listLabsForUser({ userId: user.id }).catch(() => []) : [];
+  const caller = await sessionCaller().catch(() => null);
+  const user = caller?.kind === "user" ? caller.user : null;
+  const labs = caller ? await listMyLabs(caller).catch(() => []) : [];
   return (
     <header className="border-b border-line bg-paper-raised">
       <div className="mx-auto flex w-full max-w-page flex-wrap items-center gap-4 px-gutter py-3">

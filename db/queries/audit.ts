@@ -6,6 +6,9 @@ import { auditEvents, memberships, users } from "../schema";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
+/** The one shape of "who did it" that writes receive. */
+export type Actor = { id: number; name: string };
+
 export type AuditInput = {
   labId: number | null;
   actorUserId: number | null;

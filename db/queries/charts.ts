@@ -7,90 +7,84 @@ import { db } from "../index";
 import { balloonFamilies, charts, editions, logos, stentPlatforms, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
-import { lockLab } from "./lab-lock";
-import { deliverPendingNotices } from "./notices";
 
-export async function createChart({
-  labId,
-  userId,
-  definition,
-  logoId = null,
-}: {
-  labId: number;
-  userId: number;
-  definition: ChartDefinition;
-  logoId?: number | null;
-}) {
-  const result = await db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    await assertStockRefs(tx, labId, definition);
-    const [row] = await tx
-      .insert(charts)
-      .values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() })
-      .$returningId();
-    const changes = await afterLabChange(tx, {
-      labId,
-      changeKey: `chart:${row!.id}:created`,
-      cause: `Chart "${definition.title}" was created`,
-    });
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: userId,
-      action: "chart.created",
-      targetType: "chart",
-      targetId: row!.id,
-      detail: { after: definition },
-    });
-    return { id: row!.id, changes };
+export async function createChart(
+  tx: Tx,
+  {
+    labId,
+    userId,
+    definition,
+    logoId = null,
+  }: {
+    labId: number;
+    userId: number;
+    definition: ChartDefinition;
+    logoId?: number | null;
+  },
+) {
+  await assertStockRefs(tx, labId, definition);
+  const [row] = await tx
+    .insert(charts)
+    .values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() })
+    .$returningId();
+  const changes = await afterLabChange(tx, {
+    labId,
+    changeKey: `chart:${row!.id}:created`,
+    cause: `Chart "${definition.title}" was created`,
   });
-  await deliverPendingNotices({ labId });
-  return result;
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: userId,
+    action: "chart.created",
+    targetType: "chart",
+    targetId: row!.id,
+    detail: { after: definition },
+  });
+  return { id: row!.id, changes };
 }
 
-export async function updateChart({
-  labId,
-  chartId,
-  userId,
-  definition,
-  logoId,
-}: {
-  labId: number;
-  chartId: number;
-  userId: number;
-  definition: ChartDefinition;
-  logoId?: number | null;
-}) {
-  const result = await db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const [before] = await tx
-      .select()
-      .from(charts)
-      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    if (!before) throw notFound("Chart");
-    await assertStockRefs(tx, labId, definition);
-    await tx
-      .update(charts)
-      .set({ title: definition.title, definition, updatedAt: new Date(), ...(logoId !== undefined ? { logoId } : {}) })
-      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    const changes = await afterLabChange(tx, {
-      labId,
-      changeKey: `chart:${chartId}:${Date.now()}`,
-      cause: `Chart "${definition.title}" settings were changed`,
-    });
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: userId,
-      action: "chart.updated",
-      targetType: "chart",
-      targetId: chartId,
-      detail: { before: before.definition, after: definition },
-    });
-    return { changes };
+export async function updateChart(
+  tx: Tx,
+  {
+    labId,
+    chartId,
+    userId,
+    definition,
+    logoId,
+  }: {
+    labId: number;
+    chartId: number;
+    userId: number;
+    definition: ChartDefinition;
+    logoId?: number | null;
+  },
+) {
+  const [before] = await tx
+    .select()
+    .from(charts)
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  if (!before) throw notFound("Chart");
+  await assertStockRefs(tx, labId, definition);
+  await tx
+    .update(charts)
+    .set({ title: definition.title, definition, updatedAt: new Date(), ...(logoId !== undefined ? { logoId } : {}) })
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  const changes = await afterLabChange(tx, {
+    labId,
+    changeKey: `chart:${chartId}:${Date.now()}`,
+    cause: `Chart "${definition.title}" settings were changed`,
   });
-  await deliverPendingNotices({ labId });
-  return result;
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: userId,
+    action: "chart.updated",
+    targetType: "chart",
+    targetId: chartId,
+    detail: { before: before.definition, after: definition },
+  });
+  return { changes };
 }
 
 /** A chart may only point at this lab's own balloon families and stent platforms. */
@@ -168,62 +162,57 @@ export async function listCharts({ labId }: { labId: number }) {
 }
 
 /** Sets (or, with null, removes) a chart's logo; the logo's hash is part of what editions freeze. */
-export async function setChartLogo({
-  labId,
-  chartId,
-  userId,
-  logo,
-}: {
-  labId: number;
-  chartId: number;
-  userId: number;
-  logo: { bytes: Buffer; mime: string; sha256: string } | null;
-}) {
-  const result = await db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const [chart] = await tx
-      .select({ id: charts.id, title: charts.title, logoId: charts.logoId })
-      .from(charts)
-      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    if (!chart) throw notFound("Chart");
-    if (!logo && chart.logoId === null) throw new AppError("conflict", "This chart has no logo to remove.");
-    let logoId: number | null = null;
-    if (logo) {
-      const [existing] = await tx
-        .select({ id: logos.id })
-        .from(logos)
-        .where(and(eq(logos.labId, labId), eq(logos.sha256, logo.sha256)));
-      logoId =
-        existing?.id ??
-        (
-          await tx
-            .insert(logos)
-            .values({ labId, sha256: logo.sha256, mime: logo.mime, bytes: logo.bytes })
-            .$returningId()
-        )[0]!.id;
-    }
-    await tx
-      .update(charts)
-      .set({ logoId, updatedAt: new Date() })
-      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    await afterLabChange(tx, {
-      labId,
-      changeKey: `chart:${chartId}:logo:${logo?.sha256 ?? "none"}:${Date.now()}`,
-      cause: `The logo on "${chart.title}" was ${logo ? "changed" : "removed"}`,
-    });
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: userId,
-      action: logo ? "chart.logo_set" : "chart.logo_removed",
-      targetType: "chart",
-      targetId: chartId,
-      detail: { before: { logoId: chart.logoId }, after: { logoId, sha256: logo?.sha256 ?? null } },
-    });
-    return { logoId };
+export async function setChartLogo(
+  tx: Tx,
+  {
+    labId,
+    chartId,
+    userId,
+    logo,
+  }: {
+    labId: number;
+    chartId: number;
+    userId: number;
+    logo: { bytes: Buffer; mime: string; sha256: string } | null;
+  },
+) {
+  const [chart] = await tx
+    .select({ id: charts.id, title: charts.title, logoId: charts.logoId })
+    .from(charts)
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  if (!chart) throw notFound("Chart");
+  if (!logo && chart.logoId === null) throw new AppError("conflict", "This chart has no logo to remove.");
+  let logoId: number | null = null;
+  if (logo) {
+    const [existing] = await tx
+      .select({ id: logos.id })
+      .from(logos)
+      .where(and(eq(logos.labId, labId), eq(logos.sha256, logo.sha256)));
+    logoId =
+      existing?.id ??
+      (
+        await tx.insert(logos).values({ labId, sha256: logo.sha256, mime: logo.mime, bytes: logo.bytes }).$returningId()
+      )[0]!.id;
+  }
+  await tx
+    .update(charts)
+    .set({ logoId, updatedAt: new Date() })
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  await afterLabChange(tx, {
+    labId,
+    changeKey: `chart:${chartId}:logo:${logo?.sha256 ?? "none"}:${Date.now()}`,
+    cause: `The logo on "${chart.title}" was ${logo ? "changed" : "removed"}`,
   });
-  await deliverPendingNotices({ labId });
-  return result;
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: userId,
+    action: logo ? "chart.logo_set" : "chart.logo_removed",
+    targetType: "chart",
+    targetId: chartId,
+    detail: { before: { logoId: chart.logoId }, after: { logoId, sha256: logo?.sha256 ?? null } },
+  });
+  return { logoId };
 }
 
 export async function getChartLogo({ labId, chartId }: { labId: number; chartId: number }) {
@@ -233,4 +222,14 @@ export async function getChartLogo({ labId, chartId }: { labId: number; chartId:
     .innerJoin(logos, eq(logos.id, charts.logoId))
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   return row ?? null;
+}
+
+/** A chart's stored definition inside a write, so a partial change merges with what is stored now. */
+export async function readChartDefinition(tx: Tx, { labId, chartId }: { labId: number; chartId: number }) {
+  const [row] = await tx
+    .select({ definition: charts.definition })
+    .from(charts)
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  if (!row) throw notFound("Chart");
+  return parseStoredDefinition(row.definition);
 }

@@ -9,13 +9,10 @@ import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
 import { charts, editions, logos, users } from "../schema";
-import { recordAudit, type Tx } from "./audit";
+import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
 import { lockLab } from "./lab-lock";
-import { deliverPendingNotices } from "./notices";
 import { readStock } from "./stock-read";
-
-type Actor = { id: number; name: string };
 
 /** 144 random bits, URL-safe: the edition's check-page token. */
 const newCheckToken = () => randomBytes(18).toString("base64url");
@@ -65,47 +62,48 @@ export async function listEditions({ labId, chartId }: { labId: number; chartId:
 }
 
 /** Freezes what the chart prints today into a new numbered draft. */
-export async function createEdition({ labId, chartId, actor }: { labId: number; chartId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
-    const lab = await lockLab(tx, labId);
-    const [chart] = await tx
-      .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
-      .from(charts)
-      .leftJoin(logos, eq(logos.id, charts.logoId))
-      .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-    if (!chart) throw notFound("Chart");
-    const definition = parseStoredDefinition(chart.definition);
-    const snapshot = buildSnapshot({
-      labName: lab.name,
-      definition,
-      stock: await readStock(tx, labId),
-      logoSha256: chart.logoSha256 ?? null,
-    });
-    const problems = snapshotProblems(snapshot, definition);
-    if (problems.length) throw new AppError("unprocessable", problems.join(" "));
-    const fingerprint = fingerprintOf(snapshot);
-    const [last] = await tx
-      .select({ n: max(editions.number) })
-      .from(editions)
-      .where(eq(editions.chartId, chartId));
-    const number = (last?.n ?? 0) + 1;
-    const checkToken = newCheckToken();
-    const [row] = await tx
-      .insert(editions)
-      .values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id })
-      .$returningId();
-    await refreshLiveSnapshots(tx, labId);
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "edition.created",
-      targetType: "edition",
-      targetId: row!.id,
-      detail: { chartId, number, fingerprint },
-    });
-    return { id: row!.id, number, fingerprint, checkToken };
+export async function createEdition(
+  tx: Tx,
+  { labId, chartId, actor }: { labId: number; chartId: number; actor: Actor },
+) {
+  const lab = await lockLab(tx, labId);
+  const [chart] = await tx
+    .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
+    .from(charts)
+    .leftJoin(logos, eq(logos.id, charts.logoId))
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  if (!chart) throw notFound("Chart");
+  const definition = parseStoredDefinition(chart.definition);
+  const snapshot = buildSnapshot({
+    labName: lab.name,
+    definition,
+    stock: await readStock(tx, labId),
+    logoSha256: chart.logoSha256 ?? null,
   });
+  const problems = snapshotProblems(snapshot, definition);
+  if (problems.length) throw new AppError("unprocessable", problems.join(" "));
+  const fingerprint = fingerprintOf(snapshot);
+  const [last] = await tx
+    .select({ n: max(editions.number) })
+    .from(editions)
+    .where(eq(editions.chartId, chartId));
+  const number = (last?.n ?? 0) + 1;
+  const checkToken = newCheckToken();
+  const [row] = await tx
+    .insert(editions)
+    .values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id })
+    .$returningId();
+  await refreshLiveSnapshots(tx, labId);
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "edition.created",
+    targetType: "edition",
+    targetId: row!.id,
+    detail: { chartId, number, fingerprint },
+  });
+  return { id: row!.id, number, fingerprint, checkToken };
 }
 
 /** The one guarded path for every edition state change; the database triggers agree with it. */
@@ -129,131 +127,128 @@ async function transition(
   return ed;
 }
 
-export async function approveEdition({ labId, editionId, actor }: { labId: number; editionId: number; actor: Actor }) {
-  const result = await db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const ed = await transition(tx, { labId, editionId, to: "approved" });
-    if (ed.createdBy === actor.id) {
-      throw new AppError(
-        "forbidden",
-        "You drafted this edition, so someone else (a manager or the medical lead) must approve it.",
-      );
-    }
-    const [chart] = await tx
-      .select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot })
-      .from(charts)
-      .where(eq(charts.id, ed.chartId));
-    if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
-      const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
-      throw new AppError(
-        "conflict",
-        `This draft no longer matches the lab's stock and settings${changes.length ? ` (${changes.slice(0, 3).join("; ")})` : ""}. Create a new edition and approve that.`,
-      );
-    }
-    const now = new Date();
-    const previous = await tx
-      .select({ id: editions.id, number: editions.number })
-      .from(editions)
-      .where(and(eq(editions.chartId, ed.chartId), eq(editions.status, "approved"), ne(editions.id, ed.id)));
-    for (const p of previous) {
-      await tx
-        .update(editions)
-        .set({ status: "superseded", supersededAt: now })
-        .where(and(eq(editions.id, p.id), eq(editions.labId, labId)));
-    }
+export async function approveEdition(
+  tx: Tx,
+  { labId, editionId, actor }: { labId: number; editionId: number; actor: Actor },
+) {
+  const ed = await transition(tx, { labId, editionId, to: "approved" });
+  if (ed.createdBy === actor.id) {
+    throw new AppError(
+      "forbidden",
+      "You drafted this edition, so someone else (a manager or the medical lead) must approve it.",
+    );
+  }
+  const [chart] = await tx
+    .select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot })
+    .from(charts)
+    .where(eq(charts.id, ed.chartId));
+  if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
+    const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
+    throw new AppError(
+      "conflict",
+      `This draft no longer matches the lab's stock and settings${changes.length ? ` (${changes.slice(0, 3).join("; ")})` : ""}. Create a new edition and approve that.`,
+    );
+  }
+  const now = new Date();
+  const previous = await tx
+    .select({ id: editions.id, number: editions.number })
+    .from(editions)
+    .where(and(eq(editions.chartId, ed.chartId), eq(editions.status, "approved"), ne(editions.id, ed.id)));
+  for (const p of previous) {
     await tx
       .update(editions)
-      .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
-      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await afterLabChange(tx, {
-      labId,
-      changeKey: `edition:${ed.id}:approved`,
-      cause: `Edition ${ed.number} of "${chart?.title}" was approved by ${actor.name}`,
-    });
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "edition.approved",
-      targetType: "edition",
-      targetId: ed.id,
-      detail: {
-        chartId: ed.chartId,
-        number: ed.number,
-        fingerprint: ed.fingerprint,
-        superseded: previous.map((p) => p.number),
-      },
-    });
-    return { id: ed.id, number: ed.number, superseded: previous };
+      .set({ status: "superseded", supersededAt: now })
+      .where(and(eq(editions.id, p.id), eq(editions.labId, labId)));
+  }
+  await tx
+    .update(editions)
+    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
+    .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+  await afterLabChange(tx, {
+    labId,
+    changeKey: `edition:${ed.id}:approved`,
+    cause: `Edition ${ed.number} of "${chart?.title}" was approved by ${actor.name}`,
   });
-  await deliverPendingNotices({ labId });
-  return result;
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "edition.approved",
+    targetType: "edition",
+    targetId: ed.id,
+    detail: {
+      chartId: ed.chartId,
+      number: ed.number,
+      fingerprint: ed.fingerprint,
+      superseded: previous.map((p) => p.number),
+    },
+  });
+  return { id: ed.id, number: ed.number, superseded: previous };
 }
 
-export async function rejectEdition({
-  labId,
-  editionId,
-  actor,
-  reason,
-}: {
-  labId: number;
-  editionId: number;
-  actor: Actor;
-  reason: string;
-}) {
-  return db.transaction(async (tx) => {
-    const ed = await transition(tx, { labId, editionId, to: "rejected" });
-    await tx
-      .update(editions)
-      .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
-      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "edition.rejected",
-      targetType: "edition",
-      targetId: ed.id,
-      detail: { number: ed.number, reason },
-    });
-    return { id: ed.id, number: ed.number };
+export async function rejectEdition(
+  tx: Tx,
+  {
+    labId,
+    editionId,
+    actor,
+    reason,
+  }: {
+    labId: number;
+    editionId: number;
+    actor: Actor;
+    reason: string;
+  },
+) {
+  const ed = await transition(tx, { labId, editionId, to: "rejected" });
+  await tx
+    .update(editions)
+    .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
+    .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "edition.rejected",
+    targetType: "edition",
+    targetId: ed.id,
+    detail: { number: ed.number, reason },
   });
+  return { id: ed.id, number: ed.number };
 }
 
-export async function withdrawEdition({
-  labId,
-  editionId,
-  actor,
-  reason,
-}: {
-  labId: number;
-  editionId: number;
-  actor: Actor;
-  reason: string | null;
-}) {
-  const result = await db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
-    await tx
-      .update(editions)
-      .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
-      .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
-    await afterLabChange(tx, {
-      labId,
-      changeKey: `edition:${ed.id}:withdrawn`,
-      cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}`,
-    });
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "edition.withdrawn",
-      targetType: "edition",
-      targetId: ed.id,
-      detail: { number: ed.number, was: ed.status, reason },
-    });
-    return { id: ed.id, number: ed.number, was: ed.status };
+export async function withdrawEdition(
+  tx: Tx,
+  {
+    labId,
+    editionId,
+    actor,
+    reason,
+  }: {
+    labId: number;
+    editionId: number;
+    actor: Actor;
+    reason: string | null;
+  },
+) {
+  const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
+  await tx
+    .update(editions)
+    .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
+    .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
+  await afterLabChange(tx, {
+    labId,
+    changeKey: `edition:${ed.id}:withdrawn`,
+    cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}`,
   });
-  await deliverPendingNotices({ labId });
-  return result;
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "edition.withdrawn",
+    targetType: "edition",
+    targetId: ed.id,
+    detail: { number: ed.number, was: ed.status, reason },
+  });
+  return { id: ed.id, number: ed.number, was: ed.status };
 }

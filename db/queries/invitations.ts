@@ -6,7 +6,6 @@ import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { invitations, labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { lockLab } from "./lab-lock";
 
 const open = (labId: number) =>
   and(eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
@@ -36,60 +35,58 @@ export async function listOpenInvitations({ labId }: { labId: number }) {
 
 export type OpenInvitation = Awaited<ReturnType<typeof listOpenInvitations>>[number];
 
-export async function createInvitation(input: {
-  labId: number;
-  email: string;
-  role: Role;
-  invitedBy: number;
-  tokenHash: string;
-  expiresAt: Date;
-}) {
-  return db.transaction(async (tx) => {
-    await lockLab(tx, input.labId);
-    const [member] = await tx
-      .select({ id: memberships.id })
-      .from(memberships)
-      .innerJoin(users, eq(users.id, memberships.userId))
-      .where(and(eq(memberships.labId, input.labId), eq(users.email, input.email)));
-    if (member)
-      throw new AppError("conflict", `${input.email} is already a member of this lab.`, [
-        { path: ["email"], message: "Already a member of this lab." },
-      ]);
-    const [pending] = await tx
-      .select({ id: invitations.id })
-      .from(invitations)
-      .where(and(open(input.labId), eq(invitations.email, input.email)));
-    if (pending) {
-      throw new AppError(
-        "conflict",
-        `An invitation to ${input.email} is already open; resend it to send a fresh link.`,
-        [{ path: ["email"], message: "Already invited: use Resend in the list of open invitations." }],
-      );
-    }
-    const now = new Date();
-    const [row] = await tx
-      .insert(invitations)
-      .values({
-        labId: input.labId,
-        email: input.email,
-        role: input.role,
-        tokenHash: input.tokenHash,
-        invitedBy: input.invitedBy,
-        expiresAt: input.expiresAt,
-        lastSentAt: now,
-      })
-      .$returningId();
-    await recordAudit({
-      tx,
+export async function createInvitation(
+  tx: Tx,
+  input: {
+    labId: number;
+    email: string;
+    role: Role;
+    invitedBy: number;
+    tokenHash: string;
+    expiresAt: Date;
+  },
+) {
+  const [member] = await tx
+    .select({ id: memberships.id })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.labId, input.labId), eq(users.email, input.email)));
+  if (member)
+    throw new AppError("conflict", `${input.email} is already a member of this lab.`, [
+      { path: ["email"], message: "Already a member of this lab." },
+    ]);
+  const [pending] = await tx
+    .select({ id: invitations.id })
+    .from(invitations)
+    .where(and(open(input.labId), eq(invitations.email, input.email)));
+  if (pending) {
+    throw new AppError("conflict", `An invitation to ${input.email} is already open; resend it to send a fresh link.`, [
+      { path: ["email"], message: "Already invited: use Resend in the list of open invitations." },
+    ]);
+  }
+  const now = new Date();
+  const [row] = await tx
+    .insert(invitations)
+    .values({
       labId: input.labId,
-      actorUserId: input.invitedBy,
-      action: "invitation.sent",
-      targetType: "invitation",
-      targetId: row!.id,
-      detail: { email: input.email, role: input.role },
-    });
-    return { id: row!.id, email: input.email, role: input.role, expiresAt: input.expiresAt, lastSentAt: now };
+      email: input.email,
+      role: input.role,
+      tokenHash: input.tokenHash,
+      invitedBy: input.invitedBy,
+      expiresAt: input.expiresAt,
+      lastSentAt: now,
+    })
+    .$returningId();
+  await recordAudit({
+    tx,
+    labId: input.labId,
+    actorUserId: input.invitedBy,
+    action: "invitation.sent",
+    targetType: "invitation",
+    targetId: row!.id,
+    detail: { email: input.email, role: input.role },
   });
+  return { id: row!.id, email: input.email, role: input.role, expiresAt: input.expiresAt, lastSentAt: now };
 }
 
 async function openInvitationInLab(tx: Tx, labId: number, invitationId: number) {
@@ -105,56 +102,55 @@ async function openInvitationInLab(tx: Tx, labId: number, invitationId: number) 
 }
 
 /** A fresh link: the old token stops working at once. */
-export async function renewInvitation(input: {
-  labId: number;
-  invitationId: number;
-  actorUserId: number;
-  tokenHash: string;
-  expiresAt: Date;
-}) {
-  return db.transaction(async (tx) => {
-    const row = await openInvitationInLab(tx, input.labId, input.invitationId);
-    const now = new Date();
-    await tx
-      .update(invitations)
-      .set({ tokenHash: input.tokenHash, expiresAt: input.expiresAt, lastSentAt: now })
-      .where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
-    await recordAudit({
-      tx,
-      labId: input.labId,
-      actorUserId: input.actorUserId,
-      action: "invitation.resent",
-      targetType: "invitation",
-      targetId: row.id,
-      detail: {
-        email: row.email,
-        role: row.role,
-        before: { expiresAt: row.expiresAt.toISOString() },
-        after: { expiresAt: input.expiresAt.toISOString() },
-      },
-    });
-    return { id: row.id, email: row.email, role: row.role, expiresAt: input.expiresAt, lastSentAt: now };
+export async function renewInvitation(
+  tx: Tx,
+  input: {
+    labId: number;
+    invitationId: number;
+    actorUserId: number;
+    tokenHash: string;
+    expiresAt: Date;
+  },
+) {
+  const row = await openInvitationInLab(tx, input.labId, input.invitationId);
+  const now = new Date();
+  await tx
+    .update(invitations)
+    .set({ tokenHash: input.tokenHash, expiresAt: input.expiresAt, lastSentAt: now })
+    .where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
+  await recordAudit({
+    tx,
+    labId: input.labId,
+    actorUserId: input.actorUserId,
+    action: "invitation.resent",
+    targetType: "invitation",
+    targetId: row.id,
+    detail: {
+      email: row.email,
+      role: row.role,
+      before: { expiresAt: row.expiresAt.toISOString() },
+      after: { expiresAt: input.expiresAt.toISOString() },
+    },
   });
+  return { id: row.id, email: row.email, role: row.role, expiresAt: input.expiresAt, lastSentAt: now };
 }
 
-export async function revokeInvitation(input: { labId: number; invitationId: number; actorUserId: number }) {
-  return db.transaction(async (tx) => {
-    const row = await openInvitationInLab(tx, input.labId, input.invitationId);
-    await tx
-      .update(invitations)
-      .set({ revokedAt: new Date() })
-      .where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
-    await recordAudit({
-      tx,
-      labId: input.labId,
-      actorUserId: input.actorUserId,
-      action: "invitation.revoked",
-      targetType: "invitation",
-      targetId: row.id,
-      detail: { email: row.email, role: row.role },
-    });
-    return { id: row.id, email: row.email };
+export async function revokeInvitation(tx: Tx, input: { labId: number; invitationId: number; actorUserId: number }) {
+  const row = await openInvitationInLab(tx, input.labId, input.invitationId);
+  await tx
+    .update(invitations)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invitations.labId, input.labId), eq(invitations.id, input.invitationId)));
+  await recordAudit({
+    tx,
+    labId: input.labId,
+    actorUserId: input.actorUserId,
+    action: "invitation.revoked",
+    targetType: "invitation",
+    targetId: row.id,
+    detail: { email: row.email, role: row.role },
   });
+  return { id: row.id, email: row.email };
 }
 
 /** What the invitation page shows: the lab, the role, and whether the link still works. */
@@ -192,64 +188,55 @@ const LINK_PROBLEM = {
 type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId: number };
 
 /** Single use: the row is locked, checked and marked accepted in one transaction. */
-export async function acceptInvitation(input: { tokenHash: string } & Joiner) {
-  return db.transaction(async (tx) => {
-    const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, input.tokenHash)).for("update");
-    if (!inv)
-      throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");
-    const state = linkState({ expiresAt: inv.expiresAt, usedAt: inv.acceptedAt, revokedAt: inv.revokedAt });
-    if (state !== "valid") throw new AppError("conflict", LINK_PROBLEM[state]);
+export async function acceptInvitation(tx: Tx, input: { tokenHash: string } & Joiner) {
+  const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, input.tokenHash)).for("update");
+  if (!inv) throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");
+  const state = linkState({ expiresAt: inv.expiresAt, usedAt: inv.acceptedAt, revokedAt: inv.revokedAt });
+  if (state !== "valid") throw new AppError("conflict", LINK_PROBLEM[state]);
 
-    let userId: number;
-    if ("newAccount" in input) {
-      const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email));
-      if (existing)
-        throw new AppError(
-          "conflict",
-          `An account already uses ${inv.email}. Sign in with it to accept the invitation.`,
-        );
-      const [created] = await tx
-        .insert(users)
-        .values({ email: inv.email, name: input.newAccount.name, passwordHash: input.newAccount.passwordHash })
-        .$returningId();
-      userId = created!.id;
-    } else {
-      const [user] = await tx
-        .select({ id: users.id, email: users.email })
-        .from(users)
-        .where(eq(users.id, input.userId));
-      if (!user || user.email !== inv.email)
-        throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
-      userId = user.id;
-    }
+  let userId: number;
+  if ("newAccount" in input) {
+    const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email));
+    if (existing)
+      throw new AppError("conflict", `An account already uses ${inv.email}. Sign in with it to accept the invitation.`);
+    const [created] = await tx
+      .insert(users)
+      .values({ email: inv.email, name: input.newAccount.name, passwordHash: input.newAccount.passwordHash })
+      .$returningId();
+    userId = created!.id;
+  } else {
+    const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, input.userId));
+    if (!user || user.email !== inv.email)
+      throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
+    userId = user.id;
+  }
 
-    const [already] = await tx
-      .select({ id: memberships.id, role: memberships.role })
-      .from(memberships)
-      .where(and(eq(memberships.labId, inv.labId), eq(memberships.userId, userId)));
-    if (!already) await tx.insert(memberships).values({ labId: inv.labId, userId, role: inv.role });
-    await tx.update(invitations).set({ acceptedAt: new Date() }).where(eq(invitations.id, inv.id));
-    await recordAudit({
-      tx,
-      labId: inv.labId,
-      actorUserId: userId,
-      action: "invitation.accepted",
-      targetType: "invitation",
-      targetId: inv.id,
-      detail: {
-        email: inv.email,
-        role: already ? already.role : inv.role,
-        newAccount: "newAccount" in input,
-        ...(already ? { alreadyMember: true } : {}),
-      },
-    });
-    const [lab] = await tx.select({ slug: labs.slug, name: labs.name }).from(labs).where(eq(labs.id, inv.labId));
-    return {
-      userId,
+  const [already] = await tx
+    .select({ id: memberships.id, role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.labId, inv.labId), eq(memberships.userId, userId)));
+  if (!already) await tx.insert(memberships).values({ labId: inv.labId, userId, role: inv.role });
+  await tx.update(invitations).set({ acceptedAt: new Date() }).where(eq(invitations.id, inv.id));
+  await recordAudit({
+    tx,
+    labId: inv.labId,
+    actorUserId: userId,
+    action: "invitation.accepted",
+    targetType: "invitation",
+    targetId: inv.id,
+    detail: {
       email: inv.email,
       role: already ? already.role : inv.role,
-      lab: lab!,
-      alreadyMember: Boolean(already),
-    };
+      newAccount: "newAccount" in input,
+      ...(already ? { alreadyMember: true } : {}),
+    },
   });
+  const [lab] = await tx.select({ slug: labs.slug, name: labs.name }).from(labs).where(eq(labs.id, inv.labId));
+  return {
+    userId,
+    email: inv.email,
+    role: already ? already.role : inv.role,
+    lab: lab!,
+    alreadyMember: Boolean(already),
+  };
 }

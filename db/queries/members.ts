@@ -5,7 +5,6 @@ import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
-import { lockLab } from "./lab-lock";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -96,65 +95,65 @@ const lastManager = (name: string, doing: string) =>
     [{ path: ["role"], message: "A lab keeps at least one manager." }],
   );
 
-export async function changeMemberRole({
-  labId,
-  membershipId,
-  role,
-  actorUserId,
-}: {
-  labId: number;
-  membershipId: number;
-  role: Role;
-  actorUserId: number;
-}) {
-  return db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const member = await memberInLab(tx, labId, membershipId);
-    if (member.role === role) return { ...member, changed: false };
-    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1)
-      throw lastManager(member.name, "given another role");
-    await tx
-      .update(memberships)
-      .set({ role })
-      .where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId,
-      action: "member.role_changed",
-      targetType: "membership",
-      targetId: membershipId,
-      detail: { member: member.email, before: { role: member.role }, after: { role } },
-    });
-    return { ...member, role, changed: true };
+export async function changeMemberRole(
+  tx: Tx,
+  {
+    labId,
+    membershipId,
+    role,
+    actorUserId,
+  }: {
+    labId: number;
+    membershipId: number;
+    role: Role;
+    actorUserId: number;
+  },
+) {
+  const member = await memberInLab(tx, labId, membershipId);
+  if (member.role === role) return { ...member, changed: false };
+  if (member.role === "manager" && (await managerCount(tx, labId)) <= 1)
+    throw lastManager(member.name, "given another role");
+  await tx
+    .update(memberships)
+    .set({ role })
+    .where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId,
+    action: "member.role_changed",
+    targetType: "membership",
+    targetId: membershipId,
+    detail: { member: member.email, before: { role: member.role }, after: { role } },
   });
+  return { ...member, role, changed: true };
 }
 
-export async function removeMember({
-  labId,
-  membershipId,
-  actorUserId,
-}: {
-  labId: number;
-  membershipId: number;
-  actorUserId: number;
-}) {
-  return db.transaction(async (tx) => {
-    await lockLab(tx, labId);
-    const member = await memberInLab(tx, labId, membershipId);
-    if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
-    await tx.delete(memberships).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId,
-      action: "member.removed",
-      targetType: "membership",
-      targetId: membershipId,
-      detail: { member: member.email, name: member.name, before: { role: member.role }, after: null },
-    });
-    return member;
+export async function removeMember(
+  tx: Tx,
+  {
+    labId,
+    membershipId,
+    actorUserId,
+  }: {
+    labId: number;
+    membershipId: number;
+    actorUserId: number;
+  },
+) {
+  const member = await memberInLab(tx, labId, membershipId);
+  if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
+  await tx.delete(memberships).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId,
+    action: "member.removed",
+    targetType: "membership",
+    targetId: membershipId,
+    detail: { member: member.email, name: member.name, before: { role: member.role }, after: null },
   });
+  return member;
 }
 
 /** Whether this member gets the stale-copy e-mail (managers always do; educators may opt in). */
@@ -166,19 +165,20 @@ export async function getStaleMailSetting({ labId, userId }: { labId: number; us
   return row?.notifyStale ?? false;
 }
 
-export async function setStaleMailSetting({ labId, userId, on }: { labId: number; userId: number; on: boolean }) {
-  await db.transaction(async (tx) => {
-    await tx
-      .update(memberships)
-      .set({ notifyStale: on })
-      .where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: userId,
-      action: on ? "member.stale_mail_on" : "member.stale_mail_off",
-      targetType: "user",
-      targetId: userId,
-    });
+export async function setStaleMailSetting(
+  tx: Tx,
+  { labId, userId, on }: { labId: number; userId: number; on: boolean },
+) {
+  await tx
+    .update(memberships)
+    .set({ notifyStale: on })
+    .where(and(eq(memberships.labId, labId), eq(memberships.userId, userId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: userId,
+    action: on ? "member.stale_mail_on" : "member.stale_mail_off",
+    targetType: "user",
+    targetId: userId,
   });
 }

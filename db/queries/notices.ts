@@ -2,13 +2,11 @@ import "server-only";
 import { and, eq, isNull, or } from "drizzle-orm";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { checkEdition, STALE, type CheckStatus } from "@/lib/editions/check";
-import { env } from "@/lib/env";
-import { sendMail } from "@/lib/mail/send";
-import { staleNoticeMail, type StaleItem, type StaleNotice } from "@/lib/mail/templates/stale-notice";
+import type { StaleItem, StaleNotice } from "@/lib/editions/stale";
 import { db } from "../index";
 import { charts, editions, labs, memberships, postings, staleNotices, users } from "../schema";
 import type { Tx } from "./audit";
-import { readHangingCopies } from "./hanging-copies";
+import { readPostings } from "./postings";
 
 /**
  * Inside the transaction of a change, after the lab's live snapshots were refreshed: works out
@@ -20,7 +18,7 @@ export async function reconcilePostings(
   { labId, changeKey, cause }: { labId: number; changeKey: string; cause: string },
 ) {
   const newlyStale: StaleItem[] = [];
-  for (const copy of await readHangingCopies(tx, labId)) {
+  for (const copy of await readPostings(tx, labId)) {
     if (copy.status === copy.lastStatus) continue;
     await tx
       .update(postings)
@@ -67,17 +65,13 @@ export async function initialPostingStatus(
   ).status;
 }
 
-/**
- * After commit: sends each stored notice that has not gone out. A notice is claimed with a
- * conditional update first, so two app instances never send the same one; a failed send is
- * released for the next change (or the next call) to retry.
- */
-export async function deliverPendingNotices({ labId }: { labId: number }): Promise<number> {
+/** Stored stale-copy notices of a lab that have not gone out, with the people who get them. */
+export async function listPendingNotices({ labId }: { labId: number }) {
   const pending = await db
     .select()
     .from(staleNotices)
     .where(and(eq(staleNotices.labId, labId), isNull(staleNotices.sentAt)));
-  if (pending.length === 0) return 0;
+  if (pending.length === 0) return { pending: [], recipients: [] };
   const recipients = await db
     .select({ email: users.email })
     .from(memberships)
@@ -88,21 +82,19 @@ export async function deliverPendingNotices({ labId }: { labId: number }): Promi
         or(eq(memberships.role, "manager"), and(eq(memberships.role, "educator"), eq(memberships.notifyStale, true))),
       ),
     );
-  let sent = 0;
-  for (const notice of pending) {
-    const [claim] = await db
-      .update(staleNotices)
-      .set({ sentAt: new Date() })
-      .where(and(eq(staleNotices.id, notice.id), isNull(staleNotices.sentAt)));
-    if (claim.affectedRows !== 1 || recipients.length === 0) continue;
-    const mail = staleNoticeMail(notice.detail as StaleNotice, env.APP_URL);
-    try {
-      await sendMail({ to: recipients.map((r) => r.email), ...mail });
-      sent++;
-    } catch (err) {
-      console.error("stale notice not sent; will retry", err);
-      await db.update(staleNotices).set({ sentAt: null }).where(eq(staleNotices.id, notice.id));
-    }
-  }
-  return sent;
+  return { pending: pending.map((n) => ({ id: n.id, detail: n.detail as StaleNotice })), recipients };
+}
+
+/** Claims a notice for sending with a conditional update, so two app instances never send the same one. */
+export async function claimNotice({ id }: { id: number }): Promise<boolean> {
+  const [claim] = await db
+    .update(staleNotices)
+    .set({ sentAt: new Date() })
+    .where(and(eq(staleNotices.id, id), isNull(staleNotices.sentAt)));
+  return claim.affectedRows === 1;
+}
+
+/** Gives a claimed notice back after a failed send, for the next change (or call) to retry. */
+export async function releaseNotice({ id }: { id: number }): Promise<void> {
+  await db.update(staleNotices).set({ sentAt: null }).where(eq(staleNotices.id, id));
 }

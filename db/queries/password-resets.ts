@@ -4,30 +4,31 @@ import { linkState } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
 import { db } from "../index";
 import { passwordResets, users } from "../schema";
-import { recordAudit } from "./audit";
+import { recordAudit, type Tx } from "./audit";
 
-export async function createPasswordReset({
-  userId,
-  tokenHash,
-  expiresAt,
-}: {
-  userId: number;
-  tokenHash: string;
-  expiresAt: Date;
-}) {
-  return db.transaction(async (tx) => {
-    const [row] = await tx.insert(passwordResets).values({ userId, tokenHash, expiresAt }).$returningId();
-    await recordAudit({
-      tx,
-      labId: null,
-      actorUserId: null,
-      action: "password_reset.requested",
-      targetType: "user",
-      targetId: userId,
-      detail: { expiresAt: expiresAt.toISOString() },
-    });
-    return { id: row!.id };
+export async function createPasswordReset(
+  tx: Tx,
+  {
+    userId,
+    tokenHash,
+    expiresAt,
+  }: {
+    userId: number;
+    tokenHash: string;
+    expiresAt: Date;
+  },
+) {
+  const [row] = await tx.insert(passwordResets).values({ userId, tokenHash, expiresAt }).$returningId();
+  await recordAudit({
+    tx,
+    labId: null,
+    actorUserId: null,
+    action: "password_reset.requested",
+    targetType: "user",
+    targetId: userId,
+    detail: { expiresAt: expiresAt.toISOString() },
   });
+  return { id: row!.id };
 }
 
 export async function findPasswordReset({ tokenHash }: { tokenHash: string }) {
@@ -51,31 +52,32 @@ const PROBLEM = {
 } as const;
 
 /** Single use: locks the token row, sets the password, and retires every other open link. */
-export async function completePasswordReset({ tokenHash, passwordHash }: { tokenHash: string; passwordHash: string }) {
-  return db.transaction(async (tx) => {
-    const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for("update");
-    if (!row)
-      throw new AppError(
-        "not_found",
-        "This reset link is not valid. Check that you copied the whole link, or ask for a new one.",
-      );
-    const state = linkState(row);
-    if (state !== "valid") throw new AppError("conflict", PROBLEM[state]);
-    const now = new Date();
-    await tx.update(users).set({ passwordHash }).where(eq(users.id, row.userId));
-    await tx
-      .update(passwordResets)
-      .set({ usedAt: now })
-      .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
-    await recordAudit({
-      tx,
-      labId: null,
-      actorUserId: row.userId,
-      action: "password_reset.completed",
-      targetType: "user",
-      targetId: row.userId,
-    });
-    const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, row.userId));
-    return user!;
+export async function completePasswordReset(
+  tx: Tx,
+  { tokenHash, passwordHash }: { tokenHash: string; passwordHash: string },
+) {
+  const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for("update");
+  if (!row)
+    throw new AppError(
+      "not_found",
+      "This reset link is not valid. Check that you copied the whole link, or ask for a new one.",
+    );
+  const state = linkState(row);
+  if (state !== "valid") throw new AppError("conflict", PROBLEM[state]);
+  const now = new Date();
+  await tx.update(users).set({ passwordHash }).where(eq(users.id, row.userId));
+  await tx
+    .update(passwordResets)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
+  await recordAudit({
+    tx,
+    labId: null,
+    actorUserId: row.userId,
+    action: "password_reset.completed",
+    targetType: "user",
+    targetId: row.userId,
   });
+  const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, row.userId));
+  return user!;
 }

@@ -3,12 +3,9 @@ import { and, asc, eq, isNull } from "drizzle-orm";
 import { STALE, type CheckStatus } from "@/lib/editions/check";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
-import { editions, postings, rooms } from "../schema";
-import { recordAudit } from "./audit";
-import { readHangingCopies } from "./hanging-copies";
-import { initialPostingStatus } from "./notices";
-
-type Actor = { id: number };
+import { postings, rooms } from "../schema";
+import { recordAudit, type Actor, type Tx } from "./audit";
+import { readPostings } from "./postings";
 
 export async function listRooms({ labId }: { labId: number }) {
   return db
@@ -18,185 +15,105 @@ export async function listRooms({ labId }: { labId: number }) {
     .orderBy(asc(rooms.name));
 }
 
-export async function createRoom({ labId, name, actor }: { labId: number; name: string; actor: Actor }) {
-  return db.transaction(async (tx) => {
-    const [dupe] = await tx
-      .select({ id: rooms.id, archivedAt: rooms.archivedAt })
-      .from(rooms)
-      .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
-    if (dupe && !dupe.archivedAt)
-      throw new AppError("conflict", `There is already a room called "${name}".`, [
-        { path: ["name"], message: "Already exists" },
-      ]);
-    let id: number;
-    if (dupe) {
-      await tx
-        .update(rooms)
-        .set({ archivedAt: null })
-        .where(and(eq(rooms.id, dupe.id), eq(rooms.labId, labId)));
-      id = dupe.id;
-    } else {
-      const [row] = await tx.insert(rooms).values({ labId, name }).$returningId();
-      id = row!.id;
-    }
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "room.created",
-      targetType: "room",
-      targetId: id,
-      detail: { after: { name } },
-    });
-    return { id };
-  });
-}
-
-export async function renameRoom({
-  labId,
-  roomId,
-  name,
-  actor,
-}: {
-  labId: number;
-  roomId: number;
-  name: string;
-  actor: Actor;
-}) {
-  return db.transaction(async (tx) => {
-    const [room] = await tx
-      .select()
-      .from(rooms)
-      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
-    if (!room) throw notFound("Room");
-    const [dupe] = await tx
-      .select({ id: rooms.id })
-      .from(rooms)
-      .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
-    if (dupe && dupe.id !== roomId)
-      throw new AppError("conflict", `There is already a room called "${name}".`, [
-        { path: ["name"], message: "Already exists" },
-      ]);
+export async function createRoom(tx: Tx, { labId, name, actor }: { labId: number; name: string; actor: Actor }) {
+  const [dupe] = await tx
+    .select({ id: rooms.id, archivedAt: rooms.archivedAt })
+    .from(rooms)
+    .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
+  if (dupe && !dupe.archivedAt)
+    throw new AppError("conflict", `There is already a room called "${name}".`, [
+      { path: ["name"], message: "Already exists" },
+    ]);
+  let id: number;
+  if (dupe) {
     await tx
       .update(rooms)
-      .set({ name })
-      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "room.renamed",
-      targetType: "room",
-      targetId: roomId,
-      detail: { before: { name: room.name }, after: { name } },
-    });
+      .set({ archivedAt: null })
+      .where(and(eq(rooms.id, dupe.id), eq(rooms.labId, labId)));
+    id = dupe.id;
+  } else {
+    const [row] = await tx.insert(rooms).values({ labId, name }).$returningId();
+    id = row!.id;
+  }
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "room.created",
+    targetType: "room",
+    targetId: id,
+    detail: { after: { name } },
+  });
+  return { id };
+}
+
+export async function renameRoom(
+  tx: Tx,
+  {
+    labId,
+    roomId,
+    name,
+    actor,
+  }: {
+    labId: number;
+    roomId: number;
+    name: string;
+    actor: Actor;
+  },
+) {
+  const [room] = await tx
+    .select()
+    .from(rooms)
+    .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+  if (!room) throw notFound("Room");
+  const [dupe] = await tx
+    .select({ id: rooms.id })
+    .from(rooms)
+    .where(and(eq(rooms.labId, labId), eq(rooms.name, name)));
+  if (dupe && dupe.id !== roomId)
+    throw new AppError("conflict", `There is already a room called "${name}".`, [
+      { path: ["name"], message: "Already exists" },
+    ]);
+  await tx
+    .update(rooms)
+    .set({ name })
+    .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "room.renamed",
+    targetType: "room",
+    targetId: roomId,
+    detail: { before: { name: room.name }, after: { name } },
   });
 }
 
 /** A room is archived, not deleted, so past postings keep their place in the audit log. */
-export async function archiveRoom({ labId, roomId, actor }: { labId: number; roomId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
-    const [room] = await tx
-      .select()
-      .from(rooms)
-      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
-    if (!room) throw notFound("Room");
-    const [hanging] = await tx
-      .select({ id: postings.id })
-      .from(postings)
-      .where(and(eq(postings.roomId, roomId), isNull(postings.removedAt)))
-      .limit(1);
-    if (hanging) throw new AppError("conflict", `Take down the printouts in "${room.name}" before removing the room.`);
-    await tx
-      .update(rooms)
-      .set({ archivedAt: new Date() })
-      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "room.archived",
-      targetType: "room",
-      targetId: roomId,
-      detail: { before: { name: room.name } },
-    });
-  });
-}
-
-/** "This copy hangs in ...": only an approved edition may be recorded on a wall. */
-export async function recordPosting({
-  labId,
-  editionId,
-  roomId,
-  actor,
-}: {
-  labId: number;
-  editionId: number;
-  roomId: number;
-  actor: Actor;
-}) {
-  return db.transaction(async (tx) => {
-    const [ed] = await tx
-      .select({ id: editions.id, number: editions.number, status: editions.status })
-      .from(editions)
-      .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
-    if (!ed) throw notFound("Edition");
-    if (ed.status !== "approved")
-      throw new AppError(
-        "conflict",
-        `Edition ${ed.number} is ${ed.status}; only an approved edition may hang on a wall.`,
-      );
-    const [room] = await tx
-      .select({ id: rooms.id, name: rooms.name })
-      .from(rooms)
-      .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
-    if (!room)
-      throw new AppError("invalid_input", "Choose one of this lab's rooms.", [
-        { path: ["roomId"], message: "No such room in this lab" },
-      ]);
-    const [already] = await tx
-      .select({ id: postings.id })
-      .from(postings)
-      .where(and(eq(postings.editionId, editionId), eq(postings.roomId, roomId), isNull(postings.removedAt)));
-    if (already) return { id: already.id, created: false };
-    const lastStatus = await initialPostingStatus(tx, { labId, editionId });
-    const [row] = await tx
-      .insert(postings)
-      .values({ labId, editionId, roomId, postedBy: actor.id, lastStatus })
-      .$returningId();
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "posting.created",
-      targetType: "posting",
-      targetId: row!.id,
-      detail: { edition: ed.number, room: room.name },
-    });
-    return { id: row!.id, created: true };
-  });
-}
-
-export async function takeDownPosting({ labId, postingId, actor }: { labId: number; postingId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
-    const [p] = await tx
-      .select()
-      .from(postings)
-      .where(and(eq(postings.id, postingId), eq(postings.labId, labId), isNull(postings.removedAt)));
-    if (!p) throw notFound("Posting");
-    await tx
-      .update(postings)
-      .set({ removedAt: new Date(), removedBy: actor.id })
-      .where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
-    await recordAudit({
-      tx,
-      labId,
-      actorUserId: actor.id,
-      action: "posting.removed",
-      targetType: "posting",
-      targetId: postingId,
-      detail: { editionId: p.editionId, roomId: p.roomId },
-    });
+export async function archiveRoom(tx: Tx, { labId, roomId, actor }: { labId: number; roomId: number; actor: Actor }) {
+  const [room] = await tx
+    .select()
+    .from(rooms)
+    .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+  if (!room) throw notFound("Room");
+  const [hanging] = await tx
+    .select({ id: postings.id })
+    .from(postings)
+    .where(and(eq(postings.roomId, roomId), isNull(postings.removedAt)))
+    .limit(1);
+  if (hanging) throw new AppError("conflict", `Take down the printouts in "${room.name}" before removing the room.`);
+  await tx
+    .update(rooms)
+    .set({ archivedAt: new Date() })
+    .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "room.archived",
+    targetType: "room",
+    targetId: roomId,
+    detail: { before: { name: room.name } },
   });
 }
 
@@ -216,7 +133,7 @@ export type BoardRoom = { id: number; name: string; postings: BoardPosting[]; st
 
 /** Every room, what hangs there and its status, stale rooms first: one query for the lab. */
 export async function roomBoard({ labId }: { labId: number }): Promise<BoardRoom[]> {
-  const [roomRows, copies] = await Promise.all([listRooms({ labId }), readHangingCopies(db, labId)]);
+  const [roomRows, copies] = await Promise.all([listRooms({ labId }), readPostings(db, labId)]);
   const stale = (p: BoardPosting) => STALE.includes(p.status);
   const board = roomRows.map((room): BoardRoom => {
     const mine = copies

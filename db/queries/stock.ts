@@ -20,8 +20,6 @@ import { db } from "../index";
 import { auditEvents, balloonFamilies, balloons, labs, stentPlatforms, stentSizes, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
-import { lockLab } from "./lab-lock";
-import { deliverPendingNotices } from "./notices";
 import { readFamilies, readPlatforms } from "./stock-read";
 
 type Actor = { labId: number; actorUserId: number | null };
@@ -84,33 +82,7 @@ export async function listStockHistory({
     .limit(Math.min(Math.max(limit, 1), 100));
 }
 
-// ---------- the write path every change takes ----------
-
-function isDuplicateKey(err: unknown): boolean {
-  for (let e: unknown = err; e; e = (e as { cause?: unknown }).cause) {
-    if ((e as { code?: string }).code === "ER_DUP_ENTRY") return true;
-  }
-  return false;
-}
-
-/** One transaction per change, serialised per lab by locking the lab row first. */
-async function stockWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise<T> {
-  try {
-    const result = await db.transaction(async (tx) => {
-      await lockLab(tx, labId);
-      return fn(tx);
-    });
-    await deliverPendingNotices({ labId });
-    return result;
-  } catch (err) {
-    if (isDuplicateKey(err))
-      throw new AppError(
-        "conflict",
-        "That would duplicate a name or size this lab already has. Reload the stock and try again.",
-      );
-    throw err;
-  }
-}
+// ---------- writes: each runs inside the lab write transaction of lib/ops (lab row locked) ----------
 
 type Committed = {
   action: string;
@@ -175,90 +147,84 @@ async function assertFamilyNameFree(tx: Tx, labId: number, name: string, exceptI
     ]);
 }
 
-export async function createBalloonFamily({ labId, actorUserId, input }: Actor & { input: BalloonFamilyInput }) {
-  return stockWrite(labId, async (tx) => {
-    await assertFamilyNameFree(tx, labId, input.name);
-    const values = familyValues({ ...input, growthAtRbpMm: input.growthAtRbpMm ?? null });
-    const [row] = await tx
-      .insert(balloonFamilies)
-      .values({ labId, ...values })
-      .$returningId();
-    const family = await findFamily(tx, labId, row!.id);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.family.create",
-        targetType: "balloon_family",
-        targetId: family.id,
-        summary: `Added balloon family ${family.name}`,
-        before: null,
-        after: familyValues(family),
-      },
-    );
-    return { revision, family };
-  });
+export async function createBalloonFamily(
+  tx: Tx,
+  { labId, actorUserId, input }: Actor & { input: BalloonFamilyInput },
+) {
+  await assertFamilyNameFree(tx, labId, input.name);
+  const values = familyValues({ ...input, growthAtRbpMm: input.growthAtRbpMm ?? null });
+  const [row] = await tx
+    .insert(balloonFamilies)
+    .values({ labId, ...values })
+    .$returningId();
+  const family = await findFamily(tx, labId, row!.id);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.family.create",
+      targetType: "balloon_family",
+      targetId: family.id,
+      summary: `Added balloon family ${family.name}`,
+      before: null,
+      after: familyValues(family),
+    },
+  );
+  return { revision, family };
 }
 
-export async function updateBalloonFamily({
-  labId,
-  actorUserId,
-  familyId,
-  patch,
-}: Actor & { familyId: number; patch: BalloonFamilyPatch }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findFamily(tx, labId, familyId);
-    const before = familyValues(current);
-    const merged = balloonFamilyInput.safeParse({ ...before, ...patch });
-    if (!merged.success) throw invalidInput(merged.error.issues);
-    const after = familyValues({ ...merged.data, growthAtRbpMm: merged.data.growthAtRbpMm ?? null });
-    if (sameValues(before, after))
-      return { revision: await currentRevision(tx, labId), family: current, changed: false };
-    if (after.name !== before.name) await assertFamilyNameFree(tx, labId, after.name, familyId);
-    await tx
-      .update(balloonFamilies)
-      .set(after)
-      .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
-    const family = await findFamily(tx, labId, familyId);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.family.update",
-        targetType: "balloon_family",
-        targetId: familyId,
-        summary: `Changed balloon family ${after.name}`,
-        before,
-        after: familyValues(family),
-      },
-    );
-    return { revision, family, changed: true };
-  });
+export async function updateBalloonFamily(
+  tx: Tx,
+  { labId, actorUserId, familyId, patch }: Actor & { familyId: number; patch: BalloonFamilyPatch },
+) {
+  const current = await findFamily(tx, labId, familyId);
+  const before = familyValues(current);
+  const merged = balloonFamilyInput.safeParse({ ...before, ...patch });
+  if (!merged.success) throw invalidInput(merged.error.issues);
+  const after = familyValues({ ...merged.data, growthAtRbpMm: merged.data.growthAtRbpMm ?? null });
+  if (sameValues(before, after)) return { revision: await currentRevision(tx, labId), family: current, changed: false };
+  if (after.name !== before.name) await assertFamilyNameFree(tx, labId, after.name, familyId);
+  await tx
+    .update(balloonFamilies)
+    .set(after)
+    .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
+  const family = await findFamily(tx, labId, familyId);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.family.update",
+      targetType: "balloon_family",
+      targetId: familyId,
+      summary: `Changed balloon family ${after.name}`,
+      before,
+      after: familyValues(family),
+    },
+  );
+  return { revision, family, changed: true };
 }
 
-export async function deleteBalloonFamily({ labId, actorUserId, familyId }: Actor & { familyId: number }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findFamily(tx, labId, familyId);
-    await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.familyId, familyId)));
-    await tx.delete(balloonFamilies).where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
-    const before = {
-      ...familyValues(current),
-      balloons: current.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
-    };
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.family.delete",
-        targetType: "balloon_family",
-        targetId: familyId,
-        summary: `Deleted balloon family ${current.name} and its ${current.balloons.length} sizes`,
-        before,
-        after: null,
-      },
-    );
-    return { revision, deleted: { id: familyId } };
-  });
+export async function deleteBalloonFamily(tx: Tx, { labId, actorUserId, familyId }: Actor & { familyId: number }) {
+  const current = await findFamily(tx, labId, familyId);
+  await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.familyId, familyId)));
+  await tx.delete(balloonFamilies).where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
+  const before = {
+    ...familyValues(current),
+    balloons: current.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
+  };
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.family.delete",
+      targetType: "balloon_family",
+      targetId: familyId,
+      summary: `Deleted balloon family ${current.name} and its ${current.balloons.length} sizes`,
+      before,
+      after: null,
+    },
+  );
+  return { revision, deleted: { id: familyId } };
 }
 
 // ---------- balloons ----------
@@ -298,85 +264,75 @@ const balloonView = (b: { id: number; diameterMm: number; inStock: boolean }) =>
   inStock: b.inStock,
 });
 
-export async function createBalloon({
-  labId,
-  actorUserId,
-  familyId,
-  input,
-}: Actor & { familyId: number; input: BalloonInput }) {
-  return stockWrite(labId, async (tx) => {
-    const family = await findFamily(tx, labId, familyId);
-    await assertDiameterFree(tx, familyId, family.name, input.diameterMm);
-    const [row] = await tx
-      .insert(balloons)
-      .values({ labId, familyId, diameterMm: input.diameterMm, inStock: input.inStock })
-      .$returningId();
-    const balloon = await findBalloon(tx, labId, row!.id);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.balloon.create",
-        targetType: "balloon",
-        targetId: balloon.id,
-        summary: `Added ${mm(balloon.diameterMm)} to ${family.name}${balloon.inStock ? "" : " (out of stock)"}`,
-        before: null,
-        after: { family: family.name, diameterMm: balloon.diameterMm, inStock: balloon.inStock },
-      },
-    );
-    return { revision, balloon: balloonView(balloon) };
-  });
+export async function createBalloon(
+  tx: Tx,
+  { labId, actorUserId, familyId, input }: Actor & { familyId: number; input: BalloonInput },
+) {
+  const family = await findFamily(tx, labId, familyId);
+  await assertDiameterFree(tx, familyId, family.name, input.diameterMm);
+  const [row] = await tx
+    .insert(balloons)
+    .values({ labId, familyId, diameterMm: input.diameterMm, inStock: input.inStock })
+    .$returningId();
+  const balloon = await findBalloon(tx, labId, row!.id);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.balloon.create",
+      targetType: "balloon",
+      targetId: balloon.id,
+      summary: `Added ${mm(balloon.diameterMm)} to ${family.name}${balloon.inStock ? "" : " (out of stock)"}`,
+      before: null,
+      after: { family: family.name, diameterMm: balloon.diameterMm, inStock: balloon.inStock },
+    },
+  );
+  return { revision, balloon: balloonView(balloon) };
 }
 
-export async function updateBalloon({
-  labId,
-  actorUserId,
-  balloonId,
-  patch,
-}: Actor & { balloonId: number; patch: BalloonPatch }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findBalloon(tx, labId, balloonId);
-    const before = { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock };
-    const after = { ...before, ...patch };
-    if (sameValues(before, after))
-      return { revision: await currentRevision(tx, labId), balloon: balloonView(current), changed: false };
-    if (after.diameterMm !== before.diameterMm)
-      await assertDiameterFree(tx, current.familyId, current.family, after.diameterMm, balloonId);
-    await tx
-      .update(balloons)
-      .set({ diameterMm: after.diameterMm, inStock: after.inStock })
-      .where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
-    const summary =
-      after.diameterMm === before.diameterMm
-        ? `Marked ${current.family} ${mm(current.diameterMm)} ${after.inStock ? "in stock" : "out of stock"}`
-        : `Changed ${current.family} ${mm(before.diameterMm)} to ${mm(after.diameterMm)}${after.inStock === before.inStock ? "" : after.inStock ? ", in stock" : ", out of stock"}`;
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      { action: "stock.balloon.update", targetType: "balloon", targetId: balloonId, summary, before, after },
-    );
-    return { revision, balloon: balloonView({ id: balloonId, ...after }), changed: true };
-  });
+export async function updateBalloon(
+  tx: Tx,
+  { labId, actorUserId, balloonId, patch }: Actor & { balloonId: number; patch: BalloonPatch },
+) {
+  const current = await findBalloon(tx, labId, balloonId);
+  const before = { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock };
+  const after = { ...before, ...patch };
+  if (sameValues(before, after))
+    return { revision: await currentRevision(tx, labId), balloon: balloonView(current), changed: false };
+  if (after.diameterMm !== before.diameterMm)
+    await assertDiameterFree(tx, current.familyId, current.family, after.diameterMm, balloonId);
+  await tx
+    .update(balloons)
+    .set({ diameterMm: after.diameterMm, inStock: after.inStock })
+    .where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
+  const summary =
+    after.diameterMm === before.diameterMm
+      ? `Marked ${current.family} ${mm(current.diameterMm)} ${after.inStock ? "in stock" : "out of stock"}`
+      : `Changed ${current.family} ${mm(before.diameterMm)} to ${mm(after.diameterMm)}${after.inStock === before.inStock ? "" : after.inStock ? ", in stock" : ", out of stock"}`;
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    { action: "stock.balloon.update", targetType: "balloon", targetId: balloonId, summary, before, after },
+  );
+  return { revision, balloon: balloonView({ id: balloonId, ...after }), changed: true };
 }
 
-export async function deleteBalloon({ labId, actorUserId, balloonId }: Actor & { balloonId: number }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findBalloon(tx, labId, balloonId);
-    await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.balloon.delete",
-        targetType: "balloon",
-        targetId: balloonId,
-        summary: `Removed ${mm(current.diameterMm)} from ${current.family}`,
-        before: { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock },
-        after: null,
-      },
-    );
-    return { revision, deleted: { id: balloonId } };
-  });
+export async function deleteBalloon(tx: Tx, { labId, actorUserId, balloonId }: Actor & { balloonId: number }) {
+  const current = await findBalloon(tx, labId, balloonId);
+  await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.balloon.delete",
+      targetType: "balloon",
+      targetId: balloonId,
+      summary: `Removed ${mm(current.diameterMm)} from ${current.family}`,
+      before: { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock },
+      after: null,
+    },
+  );
+  return { revision, deleted: { id: balloonId } };
 }
 
 // ---------- stent platforms ----------
@@ -400,81 +356,76 @@ async function assertPlatformNameFree(tx: Tx, labId: number, name: string, excep
     ]);
 }
 
-export async function createStentPlatform({ labId, actorUserId, input }: Actor & { input: StentPlatformInput }) {
-  return stockWrite(labId, async (tx) => {
-    await assertPlatformNameFree(tx, labId, input.name);
-    const [row] = await tx.insert(stentPlatforms).values({ labId, name: input.name }).$returningId();
-    const platform = await findPlatform(tx, labId, row!.id);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.platform.create",
-        targetType: "stent_platform",
-        targetId: platform.id,
-        summary: `Added stent platform ${platform.name}`,
-        before: null,
-        after: { name: platform.name },
-      },
-    );
-    return { revision, platform };
-  });
+export async function createStentPlatform(
+  tx: Tx,
+  { labId, actorUserId, input }: Actor & { input: StentPlatformInput },
+) {
+  await assertPlatformNameFree(tx, labId, input.name);
+  const [row] = await tx.insert(stentPlatforms).values({ labId, name: input.name }).$returningId();
+  const platform = await findPlatform(tx, labId, row!.id);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.platform.create",
+      targetType: "stent_platform",
+      targetId: platform.id,
+      summary: `Added stent platform ${platform.name}`,
+      before: null,
+      after: { name: platform.name },
+    },
+  );
+  return { revision, platform };
 }
 
-export async function updateStentPlatform({
-  labId,
-  actorUserId,
-  platformId,
-  input,
-}: Actor & { platformId: number; input: StentPlatformInput }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findPlatform(tx, labId, platformId);
-    if (current.name === input.name)
-      return { revision: await currentRevision(tx, labId), platform: current, changed: false };
-    await assertPlatformNameFree(tx, labId, input.name, platformId);
-    await tx
-      .update(stentPlatforms)
-      .set({ name: input.name })
-      .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.platform.update",
-        targetType: "stent_platform",
-        targetId: platformId,
-        summary: `Renamed stent platform ${current.name} to ${input.name}`,
-        before: { name: current.name },
-        after: { name: input.name },
-      },
-    );
-    return { revision, platform: { ...current, name: input.name }, changed: true };
-  });
+export async function updateStentPlatform(
+  tx: Tx,
+  { labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentPlatformInput },
+) {
+  const current = await findPlatform(tx, labId, platformId);
+  if (current.name === input.name)
+    return { revision: await currentRevision(tx, labId), platform: current, changed: false };
+  await assertPlatformNameFree(tx, labId, input.name, platformId);
+  await tx
+    .update(stentPlatforms)
+    .set({ name: input.name })
+    .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.platform.update",
+      targetType: "stent_platform",
+      targetId: platformId,
+      summary: `Renamed stent platform ${current.name} to ${input.name}`,
+      before: { name: current.name },
+      after: { name: input.name },
+    },
+  );
+  return { revision, platform: { ...current, name: input.name }, changed: true };
 }
 
-export async function deleteStentPlatform({ labId, actorUserId, platformId }: Actor & { platformId: number }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findPlatform(tx, labId, platformId);
-    await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.platformId, platformId)));
-    await tx.delete(stentPlatforms).where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
-    const before = {
-      name: current.name,
-      sizes: current.sizes.map(({ nominalMm, maxPostDilatationMm }) => ({ nominalMm, maxPostDilatationMm })),
-    };
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.platform.delete",
-        targetType: "stent_platform",
-        targetId: platformId,
-        summary: `Deleted stent platform ${current.name} and its ${current.sizes.length} sizes`,
-        before,
-        after: null,
-      },
-    );
-    return { revision, deleted: { id: platformId } };
-  });
+export async function deleteStentPlatform(tx: Tx, { labId, actorUserId, platformId }: Actor & { platformId: number }) {
+  const current = await findPlatform(tx, labId, platformId);
+  await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.platformId, platformId)));
+  await tx.delete(stentPlatforms).where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
+  const before = {
+    name: current.name,
+    sizes: current.sizes.map(({ nominalMm, maxPostDilatationMm }) => ({ nominalMm, maxPostDilatationMm })),
+  };
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.platform.delete",
+      targetType: "stent_platform",
+      targetId: platformId,
+      summary: `Deleted stent platform ${current.name} and its ${current.sizes.length} sizes`,
+      before,
+      after: null,
+    },
+  );
+  return { revision, deleted: { id: platformId } };
 }
 
 // ---------- stent sizes ----------
@@ -520,216 +471,208 @@ const sizeView = (s: { id: number; nominalMm: number; maxPostDilatationMm: numbe
   maxPostDilatationMm: s.maxPostDilatationMm,
 });
 
-export async function createStentSize({
-  labId,
-  actorUserId,
-  platformId,
-  input,
-}: Actor & { platformId: number; input: StentSizeInput }) {
-  return stockWrite(labId, async (tx) => {
-    const platform = await findPlatform(tx, labId, platformId);
-    await assertNominalFree(tx, platformId, platform.name, input.nominalMm);
-    const [row] = await tx
-      .insert(stentSizes)
-      .values({ labId, platformId, nominalMm: input.nominalMm, maxPostDilatationMm: input.maxPostDilatationMm })
-      .$returningId();
-    const size = await findSize(tx, labId, row!.id);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.size.create",
-        targetType: "stent_size",
-        targetId: size.id,
-        summary: `Added ${mm(size.nominalMm)} (post-dilatation up to ${mm(size.maxPostDilatationMm)}) to ${platform.name}`,
-        before: null,
-        after: { platform: platform.name, nominalMm: size.nominalMm, maxPostDilatationMm: size.maxPostDilatationMm },
-      },
-    );
-    return { revision, size: sizeView(size) };
-  });
+export async function createStentSize(
+  tx: Tx,
+  { labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentSizeInput },
+) {
+  const platform = await findPlatform(tx, labId, platformId);
+  await assertNominalFree(tx, platformId, platform.name, input.nominalMm);
+  const [row] = await tx
+    .insert(stentSizes)
+    .values({ labId, platformId, nominalMm: input.nominalMm, maxPostDilatationMm: input.maxPostDilatationMm })
+    .$returningId();
+  const size = await findSize(tx, labId, row!.id);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.size.create",
+      targetType: "stent_size",
+      targetId: size.id,
+      summary: `Added ${mm(size.nominalMm)} (post-dilatation up to ${mm(size.maxPostDilatationMm)}) to ${platform.name}`,
+      before: null,
+      after: { platform: platform.name, nominalMm: size.nominalMm, maxPostDilatationMm: size.maxPostDilatationMm },
+    },
+  );
+  return { revision, size: sizeView(size) };
 }
 
-export async function updateStentSize({
-  labId,
-  actorUserId,
-  sizeId,
-  patch,
-}: Actor & { sizeId: number; patch: StentSizePatch }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findSize(tx, labId, sizeId);
-    const merged = stentSizeInput.safeParse({
-      nominalMm: current.nominalMm,
-      maxPostDilatationMm: current.maxPostDilatationMm,
-      ...patch,
-    });
-    if (!merged.success) throw invalidInput(merged.error.issues);
-    const before = {
-      platform: current.platform,
-      nominalMm: current.nominalMm,
-      maxPostDilatationMm: current.maxPostDilatationMm,
-    };
-    const after = { platform: current.platform, ...merged.data };
-    if (sameValues(before, after))
-      return { revision: await currentRevision(tx, labId), size: sizeView(current), changed: false };
-    if (after.nominalMm !== before.nominalMm)
-      await assertNominalFree(tx, current.platformId, current.platform, after.nominalMm, sizeId);
-    await tx
-      .update(stentSizes)
-      .set(merged.data)
-      .where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.size.update",
-        targetType: "stent_size",
-        targetId: sizeId,
-        summary: `Changed ${current.platform} ${mm(before.nominalMm)} size`,
-        before,
-        after,
-      },
-    );
-    return { revision, size: sizeView({ id: sizeId, ...merged.data }), changed: true };
+export async function updateStentSize(
+  tx: Tx,
+  { labId, actorUserId, sizeId, patch }: Actor & { sizeId: number; patch: StentSizePatch },
+) {
+  const current = await findSize(tx, labId, sizeId);
+  const merged = stentSizeInput.safeParse({
+    nominalMm: current.nominalMm,
+    maxPostDilatationMm: current.maxPostDilatationMm,
+    ...patch,
   });
+  if (!merged.success) throw invalidInput(merged.error.issues);
+  const before = {
+    platform: current.platform,
+    nominalMm: current.nominalMm,
+    maxPostDilatationMm: current.maxPostDilatationMm,
+  };
+  const after = { platform: current.platform, ...merged.data };
+  if (sameValues(before, after))
+    return { revision: await currentRevision(tx, labId), size: sizeView(current), changed: false };
+  if (after.nominalMm !== before.nominalMm)
+    await assertNominalFree(tx, current.platformId, current.platform, after.nominalMm, sizeId);
+  await tx
+    .update(stentSizes)
+    .set(merged.data)
+    .where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.size.update",
+      targetType: "stent_size",
+      targetId: sizeId,
+      summary: `Changed ${current.platform} ${mm(before.nominalMm)} size`,
+      before,
+      after,
+    },
+  );
+  return { revision, size: sizeView({ id: sizeId, ...merged.data }), changed: true };
 }
 
-export async function deleteStentSize({ labId, actorUserId, sizeId }: Actor & { sizeId: number }) {
-  return stockWrite(labId, async (tx) => {
-    const current = await findSize(tx, labId, sizeId);
-    await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.size.delete",
-        targetType: "stent_size",
-        targetId: sizeId,
-        summary: `Removed ${mm(current.nominalMm)} from ${current.platform}`,
-        before: {
-          platform: current.platform,
-          nominalMm: current.nominalMm,
-          maxPostDilatationMm: current.maxPostDilatationMm,
-        },
-        after: null,
+export async function deleteStentSize(tx: Tx, { labId, actorUserId, sizeId }: Actor & { sizeId: number }) {
+  const current = await findSize(tx, labId, sizeId);
+  await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.size.delete",
+      targetType: "stent_size",
+      targetId: sizeId,
+      summary: `Removed ${mm(current.nominalMm)} from ${current.platform}`,
+      before: {
+        platform: current.platform,
+        nominalMm: current.nominalMm,
+        maxPostDilatationMm: current.maxPostDilatationMm,
       },
-    );
-    return { revision, deleted: { id: sizeId } };
-  });
+      after: null,
+    },
+  );
+  return { revision, deleted: { id: sizeId } };
 }
 
 // ---------- CSV import ----------
 
 const CHUNK = 1000;
 
+/** Plans a checked balloon CSV against the current stock, changing nothing (the import preview). */
+export async function previewBalloonImport({ labId, rows }: { labId: number; rows: CsvRow[] }): Promise<ImportResult> {
+  const stock = await getStock({ labId });
+  const { plan, issues } = planBalloonImport(stock.balloonFamilies, rows);
+  if (issues.length) throw csvIssuesError(issues);
+  return { dryRun: true, applied: false, revision: stock.revision, summary: summarisePlan(plan), plan };
+}
+
 /**
- * Plans a checked balloon CSV against the current stock; unless dryRun, applies it as one change
- * (one transaction, one audit event, one revision bump). Any bad line refuses the whole file.
+ * Applies a checked balloon CSV as one change (one audit event, one revision bump). Any bad line
+ * refuses the whole file.
  */
-export async function importBalloons({
-  labId,
-  actorUserId,
-  rows,
-  dryRun,
-  expectRevision,
-  fileName,
-}: Actor & { rows: CsvRow[]; dryRun: boolean; expectRevision?: number; fileName?: string }): Promise<ImportResult> {
-  if (dryRun) {
-    const stock = await getStock({ labId });
-    const { plan, issues } = planBalloonImport(stock.balloonFamilies, rows);
-    if (issues.length) throw csvIssuesError(issues);
-    return { dryRun: true, applied: false, revision: stock.revision, summary: summarisePlan(plan), plan };
+export async function importBalloons(
+  tx: Tx,
+  {
+    labId,
+    actorUserId,
+    rows,
+    expectRevision,
+    fileName,
+  }: Actor & { rows: CsvRow[]; expectRevision?: number; fileName?: string },
+): Promise<ImportResult> {
+  const revisionNow = await currentRevision(tx, labId);
+  if (expectRevision !== undefined && expectRevision !== revisionNow) {
+    throw new AppError(
+      "conflict",
+      `The stock changed since this file was previewed (revision ${expectRevision}, now ${revisionNow}). Preview the file again before applying it.`,
+    );
   }
-  return stockWrite(labId, async (tx) => {
-    const revisionNow = await currentRevision(tx, labId);
-    if (expectRevision !== undefined && expectRevision !== revisionNow) {
-      throw new AppError(
-        "conflict",
-        `The stock changed since this file was previewed (revision ${expectRevision}, now ${revisionNow}). Preview the file again before applying it.`,
-      );
-    }
-    const current = await readFamilies(tx, labId);
-    const { plan, issues } = planBalloonImport(current, rows);
-    if (issues.length) throw csvIssuesError(issues);
-    const summary = summarisePlan(plan);
-    if (isEmptyPlan(plan)) return { dryRun: false, applied: false, revision: revisionNow, summary, plan };
+  const current = await readFamilies(tx, labId);
+  const { plan, issues } = planBalloonImport(current, rows);
+  if (issues.length) throw csvIssuesError(issues);
+  const summary = summarisePlan(plan);
+  if (isEmptyPlan(plan)) return { dryRun: false, applied: false, revision: revisionNow, summary, plan };
 
-    const newIds = new Map<string, number>();
-    for (const fam of plan.familiesToAdd) {
-      const [row] = await tx
-        .insert(balloonFamilies)
-        .values({
-          labId,
-          name: fam.name,
-          compliance: fam.compliance,
-          nominalAtm: fam.nominalAtm,
-          rbpAtm: fam.rbpAtm,
-          growthAtRbpMm: fam.growthAtRbpMm,
-        })
-        .$returningId();
-      newIds.set(fam.name, row!.id);
-    }
-    for (const change of plan.familiesToChange) {
-      const { compliance, nominalAtm, rbpAtm, growthAtRbpMm } = change.after;
+  const newIds = new Map<string, number>();
+  for (const fam of plan.familiesToAdd) {
+    const [row] = await tx
+      .insert(balloonFamilies)
+      .values({
+        labId,
+        name: fam.name,
+        compliance: fam.compliance,
+        nominalAtm: fam.nominalAtm,
+        rbpAtm: fam.rbpAtm,
+        growthAtRbpMm: fam.growthAtRbpMm,
+      })
+      .$returningId();
+    newIds.set(fam.name, row!.id);
+  }
+  for (const change of plan.familiesToChange) {
+    const { compliance, nominalAtm, rbpAtm, growthAtRbpMm } = change.after;
+    await tx
+      .update(balloonFamilies)
+      .set({ compliance, nominalAtm, rbpAtm, growthAtRbpMm })
+      .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, change.id)));
+  }
+  const inserts = plan.balloonsToAdd.map((b) => ({
+    labId,
+    familyId: b.familyId ?? newIds.get(b.family)!,
+    diameterMm: b.diameterMm,
+    inStock: b.inStock,
+  }));
+  for (let i = 0; i < inserts.length; i += CHUNK) await tx.insert(balloons).values(inserts.slice(i, i + CHUNK));
+  const setStock = async (ids: number[], inStock: boolean) => {
+    for (let i = 0; i < ids.length; i += CHUNK) {
       await tx
-        .update(balloonFamilies)
-        .set({ compliance, nominalAtm, rbpAtm, growthAtRbpMm })
-        .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, change.id)));
+        .update(balloons)
+        .set({ inStock })
+        .where(and(eq(balloons.labId, labId), inArray(balloons.id, ids.slice(i, i + CHUNK))));
     }
-    const inserts = plan.balloonsToAdd.map((b) => ({
-      labId,
-      familyId: b.familyId ?? newIds.get(b.family)!,
-      diameterMm: b.diameterMm,
-      inStock: b.inStock,
-    }));
-    for (let i = 0; i < inserts.length; i += CHUNK) await tx.insert(balloons).values(inserts.slice(i, i + CHUNK));
-    const setStock = async (ids: number[], inStock: boolean) => {
-      for (let i = 0; i < ids.length; i += CHUNK) {
-        await tx
-          .update(balloons)
-          .set({ inStock })
-          .where(and(eq(balloons.labId, labId), inArray(balloons.id, ids.slice(i, i + CHUNK))));
-      }
-    };
-    await setStock(
-      plan.balloonsToChange.filter((b) => b.after.inStock).map((b) => b.id),
-      true,
-    );
-    await setStock(
-      [
-        ...plan.balloonsToChange.filter((b) => !b.after.inStock).map((b) => b.id),
-        ...plan.balloonsToMarkOutOfStock.map((b) => b.id),
-      ],
-      false,
-    );
+  };
+  await setStock(
+    plan.balloonsToChange.filter((b) => b.after.inStock).map((b) => b.id),
+    true,
+  );
+  await setStock(
+    [
+      ...plan.balloonsToChange.filter((b) => !b.after.inStock).map((b) => b.id),
+      ...plan.balloonsToMarkOutOfStock.map((b) => b.id),
+    ],
+    false,
+  );
 
-    const touched = new Set<number>([
-      ...newIds.values(),
-      ...plan.familiesToChange.map((c) => c.id),
-      ...plan.balloonsToAdd.flatMap((b) => (b.familyId ? [b.familyId] : [])),
-      ...plan.balloonsToChange.map((b) => b.familyId),
-      ...plan.balloonsToMarkOutOfStock.map((b) => b.familyId),
-    ]);
-    const snapshot = (fams: BalloonFamilyView[]) =>
-      fams
-        .filter((f) => touched.has(f.id))
-        .map((f) => ({
-          ...familyValues(f),
-          balloons: f.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
-        }));
-    const after = await readFamilies(tx, labId, [...touched]);
-    const revision = await commit(
-      tx,
-      { labId, actorUserId },
-      {
-        action: "stock.import",
-        targetType: "lab",
-        targetId: labId,
-        summary: `Imported ${fileName ? `${fileName}: ` : ""}${summary}`,
-        before: { families: snapshot(current) },
-        after: { families: snapshot(after) },
-      },
-    );
-    return { dryRun: false, applied: true, revision, summary, plan };
-  });
+  const touched = new Set<number>([
+    ...newIds.values(),
+    ...plan.familiesToChange.map((c) => c.id),
+    ...plan.balloonsToAdd.flatMap((b) => (b.familyId ? [b.familyId] : [])),
+    ...plan.balloonsToChange.map((b) => b.familyId),
+    ...plan.balloonsToMarkOutOfStock.map((b) => b.familyId),
+  ]);
+  const snapshot = (fams: BalloonFamilyView[]) =>
+    fams
+      .filter((f) => touched.has(f.id))
+      .map((f) => ({
+        ...familyValues(f),
+        balloons: f.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
+      }));
+  const after = await readFamilies(tx, labId, [...touched]);
+  const revision = await commit(
+    tx,
+    { labId, actorUserId },
+    {
+      action: "stock.import",
+      targetType: "lab",
+      targetId: labId,
+      summary: `Imported ${fileName ? `${fileName}: ` : ""}${summary}`,
+      before: { families: snapshot(current) },
+      after: { families: snapshot(after) },
+    },
+  );
+  return { dryRun: false, applied: true, revision, summary, plan };
 }

@@ -3,8 +3,8 @@
 import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
 import { after } from "next/server";
-import { acceptInvitation } from "@/db/queries/invitations";
 import { env } from "@/lib/env";
+import { logger } from "@/lib/log";
 import { AppError } from "@/lib/errors";
 import {
   acceptAsMemberSchema,
@@ -12,13 +12,16 @@ import {
   forgotPasswordSchema,
   resetPasswordSchema,
 } from "@/lib/validation/auth";
-import { formValues, type ActionState } from "./action-guard";
+import { formValues, type ActionState } from "@/lib/http/action";
+import {
+  acceptInvitationAsMember,
+  acceptInvitationAsNewAccount,
+  requestPasswordReset,
+  resetPassword,
+} from "@/lib/ops/accounts";
+import { sessionCaller } from "@/lib/ops/caller";
 import { signIn, signOut } from "./config";
-import { requireUser } from "./guard";
-import { hashPassword } from "./password";
-import { requestPasswordReset, resetPassword } from "./password-reset";
 import { throttledMessage } from "./throttle-policy";
-import { hashToken } from "./tokens";
 import type { z } from "zod";
 
 export type SignInState = { error?: string; email?: string };
@@ -69,7 +72,7 @@ export async function requestPasswordResetAction(_prev: ActionState, form: FormD
       values: formValues(form),
     };
   const { email } = parsed.data;
-  after(() => requestPasswordReset({ email }).catch((err) => console.error("password reset e-mail failed", err)));
+  after(() => requestPasswordReset({ email }).catch((err) => logger.error({ err }, "password reset e-mail failed")));
   return {
     ok: true,
     message: `If an account uses ${email}, a link to choose a new password is on its way. It works once, for one hour.`,
@@ -87,7 +90,7 @@ export async function resetPasswordAction(_prev: ActionState, form: FormData): P
       values: withoutSecrets(form),
     };
   try {
-    await resetPassword({ tokenHash: hashToken(parsed.data.token), password: parsed.data.password });
+    await resetPassword({ token: parsed.data.token, password: parsed.data.password });
   } catch (err) {
     if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(form) };
     throw err;
@@ -105,12 +108,9 @@ export async function acceptInvitationAction(_prev: ActionState, form: FormData)
       fieldErrors: fieldErrors(parsed.error),
       values: withoutSecrets(form),
     };
-  let joined: Awaited<ReturnType<typeof acceptInvitation>>;
+  let joined: Awaited<ReturnType<typeof acceptInvitationAsNewAccount>>;
   try {
-    joined = await acceptInvitation({
-      tokenHash: hashToken(parsed.data.token),
-      newAccount: { name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password) },
-    });
+    joined = await acceptInvitationAsNewAccount(parsed.data);
   } catch (err) {
     if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(form) };
     throw err;
@@ -126,8 +126,7 @@ export async function joinLabAction(_prev: ActionState, form: FormData): Promise
   if (!parsed.success) return { ok: false, message: "This invitation link is not valid." };
   let slug: string;
   try {
-    const user = await requireUser();
-    const joined = await acceptInvitation({ tokenHash: hashToken(parsed.data.token), userId: user.id });
+    const joined = await acceptInvitationAsMember(await sessionCaller(), { token: parsed.data.token });
     slug = joined.lab.slug;
   } catch (err) {
     if (err instanceof AppError) return { ok: false, message: err.message };

@@ -1,13 +1,14 @@
 import "server-only";
 import { notFound, redirect } from "next/navigation";
 import { cache } from "react";
-import { AppError } from "@/lib/errors";
+import { authorize, type Member } from "@/lib/ops/access";
+import { sessionCaller } from "@/lib/ops/caller";
+import { toAppError } from "@/lib/http/respond";
 import type { Capability } from "@/lib/permissions";
-import { requireMember, type Member } from "./guard";
 
 /**
- * The page-side twin of requireMember: anonymous -> sign-in, not a member -> 404 page,
- * role too low -> "forbidden" for the page to render its own explanation.
+ * The page-side answer to the operations layer's refusals: anonymous -> sign-in, not a member ->
+ * 404 page, role too low -> "forbidden" for the page to render its own explanation.
  */
 export const memberForPage = cache(async function memberForPage(
   slug: string,
@@ -15,11 +16,12 @@ export const memberForPage = cache(async function memberForPage(
   returnTo: string,
 ): Promise<Member | "forbidden"> {
   try {
-    return await requireMember({ slug }, capability);
+    return await authorize(await sessionCaller(), { lab: slug }, capability);
   } catch (err) {
-    if (err instanceof AppError && err.status === 401) redirect(`/sign-in?callbackUrl=${encodeURIComponent(returnTo)}`);
-    if (err instanceof AppError && err.status === 403) return "forbidden";
-    if (err instanceof AppError && err.status === 404) notFound();
+    const known = toAppError(err);
+    if (known?.status === 401) redirect(`/sign-in?callbackUrl=${encodeURIComponent(returnTo)}`);
+    if (known?.status === 403) return "forbidden";
+    if (known?.status === 404) notFound();
     throw err;
   }
 });

@@ -47,20 +47,23 @@ export function statuses(allowed: readonly Actor[], ok: number, denied = 403, an
 
 const STOCK = "/api/v1/labs/[slug]/stock";
 const demoStock = "/api/v1/labs/demo/stock";
-// Writes: managers get 400 (empty body, id 0 or no file), so walking the table changes nothing.
+// Writes: managers get 400 (empty body or no file) or 404 (id 0 names no row), so walking the
+// table changes nothing.
 const stockWrite = (method: HttpMethod, path: string, url: string, body?: unknown): RouteRow => ({
   kind: "route",
   method,
   route: `${STOCK}${path}`,
   url: `${demoStock}${url}`,
   ...(body === undefined ? {} : { body }),
-  expect: statuses(["manager"], 400),
+  expect: statuses(["manager"], url.includes("/0") ? 404 : 400),
 });
 
 /** Managers 200, other roles 403; the operator's status differs in a lab they are not in (404). */
 const managerOnly = (operatorStatus = 403) => ({ ...statuses(["manager"], 200), operator: operatorStatus });
 /** Changes walked with a bad body or id: allowed roles get 400, so walking changes nothing. */
 const managerBadInput = (operatorStatus = 403) => ({ ...statuses(["manager"], 400), operator: operatorStatus });
+/** A malformed id reads as a row that does not exist: 404 for allowed roles, after the role check. */
+const managerBadId = (operatorStatus = 403) => ({ ...statuses(["manager"], 404), operator: operatorStatus });
 const everyoneSignedIn = (status: number) => statuses(ALL_ROLES, status);
 
 const lab = (slug: string) => `/api/v1/labs/${slug}`;
@@ -144,7 +147,7 @@ export const ROUTES: RouteRow[] = [
     method: "DELETE",
     route: "/api/v1/labs/[slug]/members/[id]",
     url: `${lab("demo")}/members/not-a-number`,
-    expect: managerBadInput(),
+    expect: managerBadId(),
   },
   {
     kind: "route",
@@ -158,7 +161,7 @@ export const ROUTES: RouteRow[] = [
     method: "DELETE",
     route: "/api/v1/labs/[slug]/members/[id]",
     url: `${lab("demo-north")}/members/not-a-number`,
-    expect: managerBadInput(404),
+    expect: managerBadId(404),
   },
 
   // invitations
@@ -205,7 +208,7 @@ export const ROUTES: RouteRow[] = [
     method: "DELETE",
     route: "/api/v1/labs/[slug]/invitations/[id]",
     url: `${lab("demo")}/invitations/not-a-number`,
-    expect: managerBadInput(),
+    expect: managerBadId(),
   },
   {
     kind: "route",
@@ -226,7 +229,7 @@ export const ROUTES: RouteRow[] = [
     method: "POST",
     route: "/api/v1/labs/[slug]/invitations/[id]/resend",
     url: `${lab("demo")}/invitations/0/resend`,
-    expect: managerBadInput(),
+    expect: managerBadId(),
   },
   {
     kind: "route",

@@ -152,7 +152,7 @@ async function renderWithPdfkit(input: Awaited<ReturnType<typeof benchInput>>): 
 async function renderOnce(engine: Engine, input: Awaited<ReturnType<typeof benchInput>>): Promise<number> {
   const t0 = performance.now();
   if (engine === "react-pdf") {
-    const { renderPosterPdf } = await import("../../components/poster/render");
+    const { renderPosterPdf } = await import("@/lib/poster/pdf/render");
     await renderPosterPdf(input);
   } else {
     await renderWithPdfkit(input);
@@ -164,7 +164,7 @@ async function child(engine: Engine) {
   const t0 = performance.now();
   const input = await benchInput();
   // Load the engine's modules before timing the first render, and report both.
-  if (engine === "react-pdf") await import("../../components/poster/render");
+  if (engine === "react-pdf") await import("@/lib/poster/pdf/render");
   else await pdfkitModules();
   const importMs = performance.now() - t0;
   const firstMs = await renderOnce(engine, input);
@@ -229,7 +229,7 @@ async function main() {
       warm: median(warm),
     };
   }
-  const { renderPosterPdf } = await import("../../components/poster/render");
+  const { renderPosterPdf } = await import("@/lib/poster/pdf/render");
   const pdf = await renderPosterPdf(input);
   const cached = await cachedReadMs(pdf);
   const r = results["react-pdf"];

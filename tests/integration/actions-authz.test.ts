@@ -3,9 +3,7 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { createChart } from "@/db/queries/charts";
-import { approveEdition, createEdition } from "@/db/queries/editions";
-import { createRoom, recordPosting } from "@/db/queries/rooms";
+import { approveEdition, createChart, createEdition, createRoom, recordPosting } from "./support/writes";
 import {
   auditEvents,
   balloonFamilies,

@@ -1,18 +1,19 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import {
-  acceptInvitation,
-  findInvitationByTokenHash,
-  listOpenInvitations,
-  revokeInvitation,
-} from "@/db/queries/invitations";
+import { findInvitationByTokenHash, listOpenInvitations } from "@/db/queries/invitations";
 import { auditEvents, invitations, memberships, users } from "@/db/schema";
-import type { Member } from "@/lib/auth/guard";
-import { inviteMember, resendInvitation } from "@/lib/auth/invitations";
+import type { Member } from "@/lib/ops/access";
+import { inviteMember as inviteOp, resendInvitation as resendOp } from "@/lib/ops/members";
 import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
 import { createUser, labWithTeam, linkIn, mailTo, unique } from "./support/fixtures";
+import { acceptInvitation as acceptRow, revokeInvitation as revokeRow } from "./support/writes";
+
+const asCaller = (m: Member) => ({ kind: "user" as const, user: m.user });
+const inviteMember = (m: Member, input: { email: string; role: string }) =>
+  inviteOp(asCaller(m), { lab: m.lab.slug }, input);
+const resendInvitation = (m: Member, invitationId: number) => resendOp(asCaller(m), { lab: m.lab.slug, invitationId });
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let manager: Member;
@@ -68,7 +69,7 @@ describe("invitations", () => {
     expect(sent?.detail).toEqual({ email, role: "educator" });
 
     // Accept: a new account joins with the invited role, and the link is spent.
-    const joined = await acceptInvitation({
+    const joined = await acceptRow({
       tokenHash: hashToken(token),
       newAccount: { name: "New Educator", passwordHash: "x".repeat(60) },
     });
@@ -86,7 +87,7 @@ describe("invitations", () => {
     ).toBe(true);
 
     await rejects(
-      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Again", passwordHash: "y".repeat(60) } }),
+      acceptRow({ tokenHash: hashToken(token), newAccount: { name: "Again", passwordHash: "y".repeat(60) } }),
       409,
       /already been used/,
     );
@@ -102,7 +103,7 @@ describe("invitations", () => {
       .set({ expiresAt: new Date(Date.now() - 1000) })
       .where(eq(invitations.id, invitation.id));
     await rejects(
-      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Late", passwordHash: "x".repeat(60) } }),
+      acceptRow({ tokenHash: hashToken(token), newAccount: { name: "Late", passwordHash: "x".repeat(60) } }),
       409,
       /expired/,
     );
@@ -127,9 +128,9 @@ describe("invitations", () => {
       true,
     );
 
-    await revokeInvitation({ labId: team.lab.id, invitationId: invitation.id, actorUserId: manager.user.id });
+    await revokeRow({ labId: team.lab.id, invitationId: invitation.id, actorUserId: manager.user.id });
     await rejects(
-      acceptInvitation({ tokenHash: hashToken(second), newAccount: { name: "Nope", passwordHash: "x".repeat(60) } }),
+      acceptRow({ tokenHash: hashToken(second), newAccount: { name: "Nope", passwordHash: "x".repeat(60) } }),
       409,
       /withdrawn/,
     );
@@ -146,12 +147,12 @@ describe("invitations", () => {
     const { token } = linkIn((await mailTo(existing.email))[0]!.text, "invite");
     expect((await findInvitationByTokenHash({ tokenHash: hashToken(token) }))?.hasAccount).toBe(true);
     await rejects(
-      acceptInvitation({ tokenHash: hashToken(token), newAccount: { name: "Twin", passwordHash: "x".repeat(60) } }),
+      acceptRow({ tokenHash: hashToken(token), newAccount: { name: "Twin", passwordHash: "x".repeat(60) } }),
       409,
       /already uses/,
     );
-    await rejects(acceptInvitation({ tokenHash: hashToken(token), userId: stranger.id }), 403, /is for/);
-    const joined = await acceptInvitation({ tokenHash: hashToken(token), userId: existing.id });
+    await rejects(acceptRow({ tokenHash: hashToken(token), userId: stranger.id }), 403, /is for/);
+    const joined = await acceptRow({ tokenHash: hashToken(token), userId: existing.id });
     expect(joined).toMatchObject({ userId: existing.id, role: "operator", alreadyMember: false });
   });
 
@@ -166,7 +167,7 @@ describe("invitations", () => {
       .from(invitations)
       .where(and(eq(invitations.labId, team.lab.id), eq(invitations.email, email)));
     await rejects(
-      revokeInvitation({ labId: team.other.id, invitationId: inv!.id, actorUserId: team.people.outsider.id }),
+      revokeRow({ labId: team.other.id, invitationId: inv!.id, actorUserId: team.people.outsider.id }),
       404,
       /not found/,
     );
@@ -178,7 +179,7 @@ describe("invitations", () => {
     const { token } = linkIn((await mailTo(email))[0]!.text, "invite");
     const results = await Promise.allSettled(
       [1, 2, 3].map((i) =>
-        acceptInvitation({
+        acceptRow({
           tokenHash: hashToken(token),
           newAccount: { name: `Racer ${i}`, passwordHash: "x".repeat(60) },
         }),

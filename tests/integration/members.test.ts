@@ -1,7 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { changeMemberRole, listMembers, removeMember } from "@/db/queries/members";
+import { listMembers } from "@/db/queries/members";
+import { changeMemberRole, removeMember } from "./support/writes";
 import { auditEvents, memberships } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { addMember, createLab, createUser, labWithTeam } from "./support/fixtures";

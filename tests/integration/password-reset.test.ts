@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, passwordResets, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import { requestPasswordReset, resetPassword } from "@/lib/auth/password-reset";
+import { requestPasswordReset, resetPassword } from "@/lib/ops/accounts";
 import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
 import { createUser, FIXTURE_PASSWORD, linkIn, mailTo, unique } from "./support/fixtures";
@@ -39,13 +39,13 @@ describe("password reset by e-mail", () => {
     expect(JSON.stringify(rows)).not.toContain(first);
     for (const r of rows) expect(r.expiresAt.getTime() - r.createdAt.getTime()).toBeGreaterThan(59 * 60_000);
 
-    await resetPassword({ tokenHash: hashToken(second), password: "a brand new passphrase" });
+    await resetPassword({ token: second, password: "a brand new passphrase" });
     expect(await verifyPassword("a brand new passphrase", await hashOf(user.id))).toBe(true);
     expect(await verifyPassword(FIXTURE_PASSWORD, await hashOf(user.id))).toBe(false);
 
-    const again = await failure(resetPassword({ tokenHash: hashToken(second), password: "another passphrase" }));
+    const again = await failure(resetPassword({ token: second, password: "another passphrase" }));
     expect(again?.message).toMatch(/already been used/);
-    const older = await failure(resetPassword({ tokenHash: hashToken(first), password: "another passphrase" }));
+    const older = await failure(resetPassword({ token: first, password: "another passphrase" }));
     expect(older?.message).toMatch(/already been used/);
     expect(await verifyPassword("a brand new passphrase", await hashOf(user.id))).toBe(true);
 
@@ -67,7 +67,7 @@ describe("password reset by e-mail", () => {
       .update(passwordResets)
       .set({ expiresAt: new Date(Date.now() - 1) })
       .where(eq(passwordResets.tokenHash, hashToken(token)));
-    const err = await failure(resetPassword({ tokenHash: hashToken(token), password: "too late passphrase" }));
+    const err = await failure(resetPassword({ token: token, password: "too late passphrase" }));
     expect(err?.message).toMatch(/expired/);
     expect(await verifyPassword(FIXTURE_PASSWORD, await hashOf(user.id))).toBe(true);
   });

@@ -2,8 +2,8 @@
 import { and, count, eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
+import { afterStockChange, getStock, listStockHistory } from "@/db/queries/stock";
 import {
-  afterStockChange,
   createBalloon,
   createBalloonFamily,
   createStentPlatform,
@@ -12,14 +12,12 @@ import {
   deleteBalloonFamily,
   deleteStentPlatform,
   deleteStentSize,
-  getStock,
   importBalloons,
-  listStockHistory,
   updateBalloon,
   updateBalloonFamily,
   updateStentPlatform,
   updateStentSize,
-} from "@/db/queries/stock";
+} from "./support/writes";
 import { auditEvents, labs, users } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { parseBalloonCsv } from "@/lib/stock/csv";

@@ -2,7 +2,7 @@
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { buildSnapshot, type LabStock, type Snapshot } from "@/lib/charts/snapshot";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import type { PosterInput } from "@/components/poster/poster-document";
+import type { PosterInput } from "@/lib/poster/pdf/document";
 
 const steps = (from: number, to: number, step = 0.25) =>
   Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
 import { EmptyState } from "@/components/ui/empty-state";
-import { listLabsForUser } from "@/db/queries/members";
+import { listMyLabs } from "@/lib/ops/accounts";
 import { currentUser } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/permissions";
 
@@ -10,7 +10,7 @@ export const metadata = { title: "Dashboard" };
 export default async function DashboardPage() {
   const user = await currentUser();
   if (!user) redirect("/sign-in?callbackUrl=/dashboard");
-  const labs = await listLabsForUser({ userId: user.id });
+  const labs = await listMyLabs({ kind: "user", user });
   return (
     <div>
       <h1 className="text-2xl font-bold">Your labs</h1>

@@ -1,17 +1,8 @@
 // The e-mail a lab's managers (and educators who opted in) get when posted copies go stale.
 // Pure: built from the stored notice, so a retry sends the very same message.
-export type StaleItem = {
-  room: string;
-  chartId: number;
-  chartTitle: string;
-  editionNumber: number;
-  status: "outdated" | "superseded" | "withdrawn";
-  changes: string[];
-  /** The approved edition to print instead, when there is one that differs from this copy. */
-  current: { editionId: number; number: number } | null;
-};
+import type { StaleItem, StaleNotice } from "@/lib/editions/stale";
 
-export type StaleNotice = { labName: string; labSlug: string; cause: string; items: StaleItem[] };
+export type { StaleItem, StaleNotice };
 
 const WHAT: Record<StaleItem["status"], string> = {
   outdated: "outdated (the stock or settings changed after approval)",

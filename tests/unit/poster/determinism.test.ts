@@ -1,7 +1,7 @@
 import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { renderPosterPdf } from "@/components/poster/render";
+import { renderPosterPdf } from "@/lib/poster/pdf/render";
 import { DRAFT_WATERMARK } from "@/lib/poster/labels";
 import { pdfText } from "@/tests/support/pdf-tools";
 import { posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";

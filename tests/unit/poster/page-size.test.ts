@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { renderPosterPdf } from "@/components/poster/render";
+import { renderPosterPdf } from "@/lib/poster/pdf/render";
 import type { PaperId } from "@/lib/poster/paper";
 import { pdfInfo } from "@/tests/support/pdf-tools";
 import { posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { renderPosterPdf } from "@/components/poster/render";
+import { renderPosterPdf } from "@/lib/poster/pdf/render";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids } from "@/lib/charts/snapshot";
 import { CAUTION_TEXT } from "@/lib/cautions";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { posterModel } from "@/components/poster/poster-document";
-import { renderPosterPdf } from "@/components/poster/render";
+import { posterModel } from "@/lib/poster/pdf/document";
+import { renderPosterPdf } from "@/lib/poster/pdf/render";
 import { ptToMm } from "@/lib/poster/paper";
 import { QR_QUIET_MODULES } from "@/lib/poster/qr";
 import { jsqrDecode, rasterise, zbarDecode } from "@/tests/support/pdf-tools";

@@ -2,7 +2,7 @@ import { notFound } from "next/navigation";
 import { MailList } from "@/components/dev/mail-list";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";
-import { listLabsForUser } from "@/db/queries/members";
+import { listMyLabs } from "@/lib/ops/accounts";
 import { currentUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import type { FakeMessage } from "@/lib/mail/fake-server";
@@ -17,7 +17,7 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
   if (!fake) notFound();
   const user = await currentUser().catch(() => null);
   if (!user) notFound();
-  const labs = await listLabsForUser({ userId: user.id });
+  const labs = await listMyLabs({ kind: "user", user });
   if (!labs.some((l) => l.role === "manager")) notFound();
 
   const { to } = await searchParams;

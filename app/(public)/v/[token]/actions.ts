@@ -1,32 +1,14 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { z } from "zod";
-import { getCheckByToken } from "@/db/queries/check";
-import { recordPosting, takeDownPosting } from "@/db/queries/rooms";
-import { memberAction, type ActionState } from "@/lib/auth/action-guard";
-import { idParam } from "@/lib/validation/edition";
-import { checkTokenSchema } from "@/lib/validation/check";
-
-async function labOfToken(token: string) {
-  if (!checkTokenSchema.safeParse(token).success) return null;
-  return getCheckByToken({ token });
-}
-
-const roomInput = z.object({ roomId: idParam }).strict();
-const postingInput = z.object({ postingId: idParam }).strict();
+import { runAction, type ActionState } from "@/lib/http/action";
+import { checkByToken, recordPosting, takeDownPosting } from "@/lib/ops/postings";
 
 /** "This copy hangs in ...": any member of the edition's lab may record it. */
 export async function recordPostingAction(token: string, roomId: number): Promise<ActionState> {
-  const check = await labOfToken(token);
-  if (!check) return { ok: false, message: "This check link does not exist." };
-  return memberAction(check.lab.slug, "posting:record", roomInput, { roomId }, async (member, data) => {
-    const res = await recordPosting({
-      labId: member.lab.id,
-      editionId: check.edition.id,
-      roomId: data.roomId,
-      actor: member.user,
-    });
+  return runAction({ roomId }, async (caller) => {
+    const check = await checkByToken(caller, { token });
+    const res = await recordPosting(caller, { editionId: check.edition.id }, { roomId });
     revalidatePath(`/v/${token}`);
     return {
       ok: true,
@@ -36,10 +18,9 @@ export async function recordPostingAction(token: string, roomId: number): Promis
 }
 
 export async function takeDownPostingAction(token: string, postingId: number): Promise<ActionState> {
-  const check = await labOfToken(token);
-  if (!check) return { ok: false, message: "This check link does not exist." };
-  return memberAction(check.lab.slug, "posting:record", postingInput, { postingId }, async (member, data) => {
-    await takeDownPosting({ labId: member.lab.id, postingId: data.postingId, actor: member.user });
+  return runAction({}, async (caller) => {
+    const check = await checkByToken(caller, { token });
+    await takeDownPosting(caller, { lab: check.lab.slug, postingId });
     revalidatePath(`/v/${token}`);
     return { ok: true, message: "Recorded as taken down." };
   });

@@ -1,34 +1,9 @@
-import { getChart, updateChart } from "@/db/queries/charts";
-import { listEditions } from "@/db/queries/editions";
-import { parseWith, readJson } from "@/lib/auth/guard";
-import { chartRoute } from "@/lib/auth/resource-guard";
-import { editionSummary } from "@/lib/charts/present";
-import { env } from "@/lib/env";
-import { notFound } from "@/lib/errors";
-import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart";
+import { api } from "@/lib/http/route";
+import { getChart, patchChart } from "@/lib/ops/charts";
 
-export const GET = chartRoute("lab:read", async (_req, member, chartId) => {
-  const chart = await getChart({ labId: member.lab.id, chartId });
-  if (!chart) throw notFound("Chart");
-  const eds = await listEditions({ labId: member.lab.id, chartId });
-  return Response.json({
-    id: chart.id,
-    title: chart.title,
-    definition: chart.definition,
-    liveFingerprint: chart.liveFingerprint,
-    editions: eds.map((e) => ({
-      ...editionSummary(env.APP_URL, e),
-      createdBy: e.createdByName,
-      rejectionReason: e.rejectionReason,
-    })),
-  });
-});
+export const GET = api<{ id: string }>(({ caller, params }) => getChart(caller, { chartId: params.id }));
 
-export const PATCH = chartRoute("chart:design", async (req, member, chartId) => {
-  const patch = parseWith(chartPatchSchema, await readJson(req));
-  const chart = await getChart({ labId: member.lab.id, chartId });
-  if (!chart) throw notFound("Chart");
-  const definition = parseWith(chartDefinitionSchema, { ...chart.definition, ...patch });
-  await updateChart({ labId: member.lab.id, chartId, userId: member.user.id, definition });
-  return Response.json({ id: chartId, definition });
-});
+/** Changes only the fields given; every other field keeps its stored value. */
+export const PATCH = api<{ id: string }>(async ({ caller, params, body }) =>
+  patchChart(caller, { chartId: params.id }, await body()),
+);

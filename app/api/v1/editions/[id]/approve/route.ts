@@ -1,12 +1,6 @@
-import { approveEdition } from "@/db/queries/editions";
-import { editionRoute } from "@/lib/auth/resource-guard";
+import { api } from "@/lib/http/route";
+import { approveEdition } from "@/lib/ops/editions";
 
-export const POST = editionRoute("edition:approve", async (_req, member, editionId) => {
-  const ed = await approveEdition({ labId: member.lab.id, editionId, actor: member.user });
-  return Response.json({
-    id: ed.id,
-    number: ed.number,
-    status: "approved",
-    superseded: ed.superseded.map((p) => p.number),
-  });
-});
+export const POST = api<{ id: string }>(async ({ caller, params, body }) =>
+  approveEdition(caller, { editionId: params.id }, await body({ optional: true })),
+);

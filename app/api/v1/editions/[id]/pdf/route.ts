@@ -1,14 +1,8 @@
-import { getPosterPdf } from "@/db/queries/renders";
-import { editionRoute } from "@/lib/auth/resource-guard";
-import { env } from "@/lib/env";
+import { api } from "@/lib/http/route";
+import { posterPdf } from "@/lib/ops/renders";
 
-export const GET = editionRoute("lab:read", async (_req, member, editionId) => {
-  const { pdf, fileName, cached } = await getPosterPdf({
-    labId: member.lab.id,
-    editionId,
-    appUrl: env.APP_URL,
-    actorUserId: member.user.id,
-  });
+export const GET = api<{ id: string }>(async ({ caller, params }) => {
+  const { pdf, fileName, cached } = await posterPdf(caller, { editionId: params.id });
   return new Response(new Uint8Array(pdf), {
     headers: {
       "content-type": "application/pdf",

@@ -1,11 +1,8 @@
-import { recordPosting } from "@/db/queries/rooms";
-import { parseWith, readJson } from "@/lib/auth/guard";
-import { editionRoute } from "@/lib/auth/resource-guard";
-import { postingSchema } from "@/lib/validation/room";
+import { api } from "@/lib/http/route";
+import { recordPosting } from "@/lib/ops/postings";
 
-/** Records that a printed copy of this edition hangs in a room. */
-export const POST = editionRoute("posting:record", async (req, member, editionId) => {
-  const { roomId } = parseWith(postingSchema, await readJson(req));
-  const res = await recordPosting({ labId: member.lab.id, editionId, roomId, actor: member.user });
-  return Response.json({ id: res.id, editionId, roomId }, { status: res.created ? 201 : 200 });
+/** Records that a printed copy of this edition hangs in a room (201 new, 200 already recorded). */
+export const POST = api<{ id: string }>(async ({ caller, params, body }) => {
+  const { created, ...posting } = await recordPosting(caller, { editionId: params.id }, await body());
+  return Response.json(posting, { status: created ? 201 : 200 });
 });

@@ -1,14 +1,6 @@
-import { listAuditEvents } from "@/db/queries/audit";
-import { labRoute, parseWith } from "@/lib/auth/guard";
-import { auditQuerySchema } from "@/lib/validation/audit";
+import { api } from "@/lib/http/route";
+import { listAudit } from "@/lib/ops/audit";
 
-export const GET = labRoute("audit:read", async (req, member) => {
-  const query = parseWith(auditQuerySchema, Object.fromEntries(new URL(req.url).searchParams));
-  const page = await listAuditEvents({
-    labId: member.lab.id,
-    before: query.before,
-    after: query.after,
-    limit: query.limit,
-  });
-  return Response.json(page);
-});
+export const GET = api<{ slug: string }>(({ caller, params, query }) =>
+  listAudit(caller, { lab: params.slug }, query()),
+);

@@ -1,14 +1,9 @@
-import { listOpenInvitations } from "@/db/queries/invitations";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { inviteMember } from "@/lib/auth/invitations";
-import { inviteSchema } from "@/lib/validation/members";
+import { api } from "@/lib/http/route";
+import { inviteMember, listInvitations } from "@/lib/ops/members";
 
-export const GET = labRoute("members:manage", async (_req, member) => {
-  return Response.json({ invitations: await listOpenInvitations({ labId: member.lab.id }) });
-});
+export const GET = api<{ slug: string }>(({ caller, params }) => listInvitations(caller, { lab: params.slug }));
 
-export const POST = labRoute("members:manage", async (req, member) => {
-  const input = parseWith(inviteSchema, await readJson(req));
-  const { invitation, emailSent } = await inviteMember(member, input);
-  return Response.json({ invitation, emailSent }, { status: 201 });
-});
+export const POST = api<{ slug: string }>(
+  async ({ caller, params, body }) => inviteMember(caller, { lab: params.slug }, await body()),
+  { status: 201 },
+);

@@ -1,7 +1,6 @@
-import { listMembers } from "@/db/queries/members";
-import { labRoute } from "@/lib/auth/guard";
+import { api } from "@/lib/http/route";
+import { listMembers } from "@/lib/ops/members";
 
-export const GET = labRoute("members:manage", async (_req, member) => {
-  const members = await listMembers({ labId: member.lab.id });
-  return Response.json({ members });
-});
+export const GET = api<{ slug: string }>(async ({ caller, params }) => ({
+  members: await listMembers(caller, { lab: params.slug }),
+}));

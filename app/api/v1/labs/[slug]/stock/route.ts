@@ -1,6 +1,4 @@
-import { getStock } from "@/db/queries/stock";
-import { labRoute } from "@/lib/auth/guard";
+import { api } from "@/lib/http/route";
+import { getStock } from "@/lib/ops/stock";
 
-export const GET = labRoute("lab:read", async (_req, member) =>
-  Response.json(await getStock({ labId: member.lab.id })),
-);
+export const GET = api<{ slug: string }>(({ caller, params }) => getStock(caller, { lab: params.slug }));

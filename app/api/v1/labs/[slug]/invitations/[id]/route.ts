@@ -1,9 +1,7 @@
-import { revokeInvitation } from "@/db/queries/invitations";
-import { labRoute, parseWith } from "@/lib/auth/guard";
-import { idParam } from "@/lib/validation/members";
+import { api } from "@/lib/http/route";
+import { revokeInvitation } from "@/lib/ops/members";
 
-export const DELETE = labRoute<{ slug: string; id: string }>("members:manage", async (_req, member, params) => {
-  const { id } = parseWith(idParam, params);
-  await revokeInvitation({ labId: member.lab.id, invitationId: id, actorUserId: member.user.id });
+export const DELETE = api<{ slug: string; id: string }>(async ({ caller, params }) => {
+  await revokeInvitation(caller, { lab: params.slug, invitationId: params.id });
   return new Response(null, { status: 204 });
 });

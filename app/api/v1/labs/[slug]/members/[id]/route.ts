@@ -1,21 +1,15 @@
-import { changeMemberRole, removeMember } from "@/db/queries/members";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { changeRoleSchema, idParam } from "@/lib/validation/members";
+import { api } from "@/lib/http/route";
+import { changeMemberRole, removeMember } from "@/lib/ops/members";
 
 type Params = { slug: string; id: string };
 
-export const PATCH = labRoute<Params>("members:manage", async (req, member, params) => {
-  const { id } = parseWith(idParam, params);
-  const { role } = parseWith(changeRoleSchema, await readJson(req));
-  const changed = await changeMemberRole({ labId: member.lab.id, membershipId: id, role, actorUserId: member.user.id });
-  return Response.json({
-    member: { id, userId: changed.userId, name: changed.name, email: changed.email, role: changed.role },
-    changed: changed.changed,
-  });
+export const PATCH = api<Params>(async ({ caller, params, body }) => {
+  const changed = await changeMemberRole(caller, { lab: params.slug, membershipId: params.id }, await body());
+  const { id, userId, name, email, role } = changed;
+  return { member: { id, userId, name, email, role }, changed: changed.changed };
 });
 
-export const DELETE = labRoute<Params>("members:manage", async (_req, member, params) => {
-  const { id } = parseWith(idParam, params);
-  await removeMember({ labId: member.lab.id, membershipId: id, actorUserId: member.user.id });
+export const DELETE = api<Params>(async ({ caller, params }) => {
+  await removeMember(caller, { lab: params.slug, membershipId: params.id });
   return new Response(null, { status: 204 });
 });

@@ -1,12 +1,8 @@
-import { takeDownPosting } from "@/db/queries/rooms";
-import { labRoute } from "@/lib/auth/guard";
-import { notFound } from "@/lib/errors";
-import { idParam } from "@/lib/validation/edition";
+import { api } from "@/lib/http/route";
+import { takeDownPosting } from "@/lib/ops/postings";
 
 /** Takes a printed copy down from its wall. */
-export const DELETE = labRoute<{ slug: string; id: string }>("posting:record", async (_req, member, params) => {
-  const id = idParam.safeParse(params.id);
-  if (!id.success) throw notFound("Posting");
-  await takeDownPosting({ labId: member.lab.id, postingId: id.data, actor: member.user });
+export const DELETE = api<{ slug: string; id: string }>(async ({ caller, params }) => {
+  await takeDownPosting(caller, { lab: params.slug, postingId: params.id });
   return new Response(null, { status: 204 });
 });

@@ -1,22 +1,13 @@
-import { archiveRoom, renameRoom } from "@/db/queries/rooms";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { notFound } from "@/lib/errors";
-import { idParam } from "@/lib/validation/edition";
-import { roomSchema } from "@/lib/validation/room";
+import { api } from "@/lib/http/route";
+import { archiveRoom, renameRoom } from "@/lib/ops/postings";
 
-const roomId = (raw: string) => {
-  const parsed = idParam.safeParse(raw);
-  if (!parsed.success) throw notFound("Room");
-  return parsed.data;
-};
+type Params = { slug: string; id: string };
 
-export const PATCH = labRoute<{ slug: string; id: string }>("rooms:manage", async (req, member, params) => {
-  const { name } = parseWith(roomSchema, await readJson(req));
-  await renameRoom({ labId: member.lab.id, roomId: roomId(params.id), name, actor: member.user });
-  return Response.json({ id: roomId(params.id), name });
-});
+export const PATCH = api<Params>(async ({ caller, params, body }) =>
+  renameRoom(caller, { lab: params.slug, roomId: params.id }, await body()),
+);
 
-export const DELETE = labRoute<{ slug: string; id: string }>("rooms:manage", async (_req, member, params) => {
-  await archiveRoom({ labId: member.lab.id, roomId: roomId(params.id), actor: member.user });
+export const DELETE = api<Params>(async ({ caller, params }) => {
+  await archiveRoom(caller, { lab: params.slug, roomId: params.id });
   return new Response(null, { status: 204 });
 });

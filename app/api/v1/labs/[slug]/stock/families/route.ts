@@ -1,9 +1,7 @@
-import { createBalloonFamily } from "@/db/queries/stock";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { balloonFamilyInput } from "@/lib/validation/stock";
+import { api } from "@/lib/http/route";
+import { createBalloonFamily } from "@/lib/ops/stock";
 
-export const POST = labRoute("stock:edit", async (req, member) => {
-  const input = parseWith(balloonFamilyInput, await readJson(req));
-  const result = await createBalloonFamily({ labId: member.lab.id, actorUserId: member.user.id, input });
-  return Response.json(result, { status: 201 });
-});
+export const POST = api<{ slug: string }>(
+  async ({ caller, params, body }) => createBalloonFamily(caller, { lab: params.slug }, await body()),
+  { status: 201 },
+);

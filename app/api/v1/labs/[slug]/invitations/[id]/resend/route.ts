@@ -1,9 +1,6 @@
-import { labRoute, parseWith } from "@/lib/auth/guard";
-import { resendInvitation } from "@/lib/auth/invitations";
-import { idParam } from "@/lib/validation/members";
+import { api } from "@/lib/http/route";
+import { resendInvitation } from "@/lib/ops/members";
 
-export const POST = labRoute<{ slug: string; id: string }>("members:manage", async (_req, member, params) => {
-  const { id } = parseWith(idParam, params);
-  const { invitation, emailSent } = await resendInvitation(member, id);
-  return Response.json({ invitation, emailSent });
-});
+export const POST = api<{ slug: string; id: string }>(({ caller, params }) =>
+  resendInvitation(caller, { lab: params.slug, invitationId: params.id }),
+);

@@ -1,20 +1,12 @@
-import { deleteStentPlatform, updateStentPlatform } from "@/db/queries/stock";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { idParams, stentPlatformInput } from "@/lib/validation/stock";
+import { api } from "@/lib/http/route";
+import { deleteStentPlatform, updateStentPlatform } from "@/lib/ops/stock";
 
 type Params = { slug: string; id: string };
 
-export const PATCH = labRoute<Params>("stock:edit", async (req, member, params) => {
-  const { id } = parseWith(idParams, params);
-  const input = parseWith(stentPlatformInput, await readJson(req));
-  return Response.json(
-    await updateStentPlatform({ labId: member.lab.id, actorUserId: member.user.id, platformId: id, input }),
-  );
-});
+export const PATCH = api<Params>(async ({ caller, params, body }) =>
+  updateStentPlatform(caller, { lab: params.slug, platformId: params.id }, await body()),
+);
 
-export const DELETE = labRoute<Params>("stock:edit", async (_req, member, params) => {
-  const { id } = parseWith(idParams, params);
-  return Response.json(
-    await deleteStentPlatform({ labId: member.lab.id, actorUserId: member.user.id, platformId: id }),
-  );
-});
+export const DELETE = api<Params>(({ caller, params }) =>
+  deleteStentPlatform(caller, { lab: params.slug, platformId: params.id }),
+);

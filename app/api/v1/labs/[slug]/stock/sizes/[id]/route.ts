@@ -1,16 +1,12 @@
-import { deleteStentSize, updateStentSize } from "@/db/queries/stock";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { idParams, stentSizePatch } from "@/lib/validation/stock";
+import { api } from "@/lib/http/route";
+import { deleteStentSize, updateStentSize } from "@/lib/ops/stock";
 
 type Params = { slug: string; id: string };
 
-export const PATCH = labRoute<Params>("stock:edit", async (req, member, params) => {
-  const { id } = parseWith(idParams, params);
-  const patch = parseWith(stentSizePatch, await readJson(req));
-  return Response.json(await updateStentSize({ labId: member.lab.id, actorUserId: member.user.id, sizeId: id, patch }));
-});
+export const PATCH = api<Params>(async ({ caller, params, body }) =>
+  updateStentSize(caller, { lab: params.slug, sizeId: params.id }, await body()),
+);
 
-export const DELETE = labRoute<Params>("stock:edit", async (_req, member, params) => {
-  const { id } = parseWith(idParams, params);
-  return Response.json(await deleteStentSize({ labId: member.lab.id, actorUserId: member.user.id, sizeId: id }));
-});
+export const DELETE = api<Params>(({ caller, params }) =>
+  deleteStentSize(caller, { lab: params.slug, sizeId: params.id }),
+);

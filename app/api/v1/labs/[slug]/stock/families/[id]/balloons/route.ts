@@ -1,10 +1,7 @@
-import { createBalloon } from "@/db/queries/stock";
-import { labRoute, parseWith, readJson } from "@/lib/auth/guard";
-import { balloonInput, idParams } from "@/lib/validation/stock";
+import { api } from "@/lib/http/route";
+import { createBalloon } from "@/lib/ops/stock";
 
-export const POST = labRoute<{ slug: string; id: string }>("stock:edit", async (req, member, params) => {
-  const { id } = parseWith(idParams, params);
-  const input = parseWith(balloonInput, await readJson(req));
-  const result = await createBalloon({ labId: member.lab.id, actorUserId: member.user.id, familyId: id, input });
-  return Response.json(result, { status: 201 });
-});
+export const POST = api<{ slug: string; id: string }>(
+  async ({ caller, params, body }) => createBalloon(caller, { lab: params.slug, familyId: params.id }, await body()),
+  { status: 201 },
+);

@@ -1,6 +1,6 @@
 import { createElement, type ReactElement } from "react";
 import { renderToBuffer, type DocumentProps } from "@react-pdf/renderer";
-import { PosterDocument, registerPosterFonts, type PosterInput } from "./poster-document";
+import { PosterDocument, registerPosterFonts, type PosterInput } from "./document";
 
 /**
  * The poster PDF for one edition. Deterministic: the same input gives the same bytes (metadata

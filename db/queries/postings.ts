@@ -2,11 +2,13 @@ import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { checkEdition, type CheckStatus } from "@/lib/editions/check";
+import { AppError, notFound } from "@/lib/errors";
 import type { Database } from "../index";
 import { charts, editions, postings, rooms, users } from "../schema";
-import type { Tx } from "./audit";
+import { recordAudit, type Actor, type Tx } from "./audit";
+import { initialPostingStatus } from "./notices";
 
-export type HangingCopy = {
+export type PostingView = {
   postingId: number;
   roomId: number;
   room: string;
@@ -26,7 +28,7 @@ export type HangingCopy = {
  * Every printed copy hanging in the lab with its status today, worked out from what the lab pass
  * stored (the charts' live fingerprints): two queries for the whole lab, none per copy.
  */
-export async function readHangingCopies(conn: Tx | Database, labId: number): Promise<HangingCopy[]> {
+export async function readPostings(conn: Tx | Database, labId: number): Promise<PostingView[]> {
   const rows = await conn
     .select({
       posting: postings,
@@ -72,5 +74,84 @@ export async function readHangingCopies(conn: Tx | Database, labId: number): Pro
       changes: result.changes.map((c) => c.detail),
       current: current ? { id: current.id, number: current.number } : null,
     };
+  });
+}
+
+/** "This copy hangs in ...": only an approved edition may be recorded on a wall. */
+export async function recordPosting(
+  tx: Tx,
+  {
+    labId,
+    editionId,
+    roomId,
+    actor,
+  }: {
+    labId: number;
+    editionId: number;
+    roomId: number;
+    actor: Actor;
+  },
+) {
+  const [ed] = await tx
+    .select({ id: editions.id, number: editions.number, status: editions.status })
+    .from(editions)
+    .where(and(eq(editions.id, editionId), eq(editions.labId, labId)));
+  if (!ed) throw notFound("Edition");
+  if (ed.status !== "approved")
+    throw new AppError(
+      "conflict",
+      `Edition ${ed.number} is ${ed.status}; only an approved edition may hang on a wall.`,
+    );
+  const [room] = await tx
+    .select({ id: rooms.id, name: rooms.name })
+    .from(rooms)
+    .where(and(eq(rooms.id, roomId), eq(rooms.labId, labId), isNull(rooms.archivedAt)));
+  if (!room)
+    throw new AppError("invalid_input", "Choose one of this lab's rooms.", [
+      { path: ["roomId"], message: "No such room in this lab" },
+    ]);
+  const [already] = await tx
+    .select({ id: postings.id })
+    .from(postings)
+    .where(and(eq(postings.editionId, editionId), eq(postings.roomId, roomId), isNull(postings.removedAt)));
+  if (already) return { id: already.id, created: false };
+  const lastStatus = await initialPostingStatus(tx, { labId, editionId });
+  const [row] = await tx
+    .insert(postings)
+    .values({ labId, editionId, roomId, postedBy: actor.id, lastStatus })
+    .$returningId();
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "posting.created",
+    targetType: "posting",
+    targetId: row!.id,
+    detail: { edition: ed.number, room: room.name },
+  });
+  return { id: row!.id, created: true };
+}
+
+export async function takeDownPosting(
+  tx: Tx,
+  { labId, postingId, actor }: { labId: number; postingId: number; actor: Actor },
+) {
+  const [p] = await tx
+    .select()
+    .from(postings)
+    .where(and(eq(postings.id, postingId), eq(postings.labId, labId), isNull(postings.removedAt)));
+  if (!p) throw notFound("Posting");
+  await tx
+    .update(postings)
+    .set({ removedAt: new Date(), removedBy: actor.id })
+    .where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "posting.removed",
+    targetType: "posting",
+    targetId: postingId,
+    detail: { editionId: p.editionId, roomId: p.roomId },
   });
 }

@@ -1,0 +1,61 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { AppError } from "@/lib/errors";
+import { errorResponse } from "./respond";
+import { ANONYMOUS, sessionCaller, type Caller } from "@/lib/ops/caller";
+
+/** Everything a route handler needs from its request, read only when asked for. */
+export type RouteInput<P> = {
+  req: Request;
+  params: P;
+  caller: Caller;
+  /** The JSON body; with `optional`, an empty body reads as {}. */
+  body: (opts?: { optional?: boolean }) => Promise<unknown>;
+  /** The query string as a plain object (each key once). */
+  query: () => Record<string, string>;
+};
+
+const MAX_JSON_BYTES = 256 * 1024;
+
+export async function readJson(req: Request, opts: { optional?: boolean } = {}): Promise<unknown> {
+  const text = await req.text();
+  if (opts.optional && text.trim() === "") return {};
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.includes("application/json"))
+    throw new AppError("invalid_input", "Send a JSON body (Content-Type: application/json).");
+  if (text.length > MAX_JSON_BYTES) throw new AppError("payload_too_large", "The JSON body is larger than 256 KB.");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError("invalid_input", "The body is not valid JSON.");
+  }
+}
+
+/**
+ * The one route-handler wrapper: builds the caller from the session, runs the handler (which
+ * calls one operation), answers its result as JSON (or passes a Response through), and turns any
+ * error into `{"error":{...}}` with its status, logged once.
+ */
+export function api<P = Record<string, string>>(
+  fn: (input: RouteInput<P>) => Promise<unknown>,
+  opts: { status?: number; public?: boolean } = {},
+) {
+  return async (req: Request, ctx: { params: Promise<P> }): Promise<Response> => {
+    const requestId = randomUUID();
+    try {
+      const params = await ctx.params;
+      const result = await fn({
+        req,
+        params,
+        // Public routes never read the session: they answer the same to everyone.
+        caller: opts.public ? ANONYMOUS : await sessionCaller(),
+        body: (o) => readJson(req, o),
+        query: () => Object.fromEntries(new URL(req.url).searchParams),
+      });
+      if (result instanceof Response) return result;
+      return Response.json(result, { status: opts.status ?? 200 });
+    } catch (err) {
+      return errorResponse(err, { requestId, method: req.method, path: new URL(req.url).pathname });
+    }
+  };
+}

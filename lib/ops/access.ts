@@ -1,0 +1,48 @@
+import "server-only";
+import { findChartLab } from "@/db/queries/charts";
+import { findEditionLab } from "@/db/queries/editions";
+import { findLabWithRole } from "@/db/queries/members";
+import type { SessionUser } from "@/lib/auth/session";
+import { forbidden, notFound, unauthenticated } from "@/lib/errors";
+import { can, type Capability, type Role } from "@/lib/permissions";
+import type { Caller } from "./caller";
+
+export type Member = {
+  user: SessionUser;
+  lab: { id: number; slug: string; name: string; stockRevision: number };
+  role: Role;
+};
+
+/** How an operation finds its lab: by slug, or through a chart or edition that belongs to one. */
+export type LabRef = { lab: string } | { labId: number } | { chartId: number } | { editionId: number };
+
+const refLabel = (ref: LabRef) => ("chartId" in ref ? "Chart" : "editionId" in ref ? "Edition" : "Lab");
+
+export function signedIn(caller: Caller): SessionUser {
+  if (caller.kind !== "user") throw unauthenticated();
+  return caller.user;
+}
+
+/**
+ * The caller's role in the lab and one capability, in this order: anonymous -> 401, not a member
+ * (or no such lab, chart or edition) -> 404, role lacks the capability -> 403.
+ */
+export async function authorize(caller: Caller, ref: LabRef, capability: Capability): Promise<Member> {
+  const user = signedIn(caller);
+  let lab;
+  if ("lab" in ref) lab = await findLabWithRole({ slug: ref.lab, userId: user.id });
+  else {
+    const labId =
+      "labId" in ref
+        ? ref.labId
+        : "chartId" in ref
+          ? await findChartLab({ chartId: ref.chartId })
+          : await findEditionLab({ editionId: ref.editionId });
+    lab = labId === null ? null : await findLabWithRole({ labId, userId: user.id });
+  }
+  // A lab the person is not in answers exactly like one that does not exist.
+  if (!lab || !lab.role) throw notFound(refLabel(ref));
+  if (!can(lab.role, capability)) throw forbidden();
+  const { role, ...rest } = lab;
+  return { user, lab: rest, role };
+}

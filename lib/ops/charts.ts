@@ -1,0 +1,129 @@
+import "server-only";
+import { z } from "zod";
+import * as q from "@/db/queries/charts";
+import { listEditions } from "@/db/queries/editions";
+import { mergePatch } from "@/lib/charts/merge-patch";
+import { editionSummary } from "@/lib/charts/present";
+import { env } from "@/lib/env";
+import { notFound } from "@/lib/errors";
+import { checkLogo } from "@/lib/logo";
+import type { UploadedFile } from "@/lib/upload";
+import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart";
+import { labOperation, parseInput } from "./operation";
+import { labWrite } from "./write";
+
+export const listCharts = labOperation({
+  name: "chart.list",
+  capability: "lab:read",
+  scope: "lab",
+  run: async ({ labId }) =>
+    (await q.listCharts({ labId })).map(({ chart, current }) => ({
+      id: chart.id,
+      title: chart.title,
+      paper: chart.definition.paper,
+      orientation: chart.definition.orientation,
+      law: chart.definition.law.law,
+      lawSpec: chart.definition.law,
+      currentEdition: current ? editionSummary(env.APP_URL, current) : null,
+    })),
+});
+
+export const getChart = labOperation({
+  name: "chart.read",
+  capability: "lab:read",
+  scope: "chart",
+  run: async ({ labId, ids }) => {
+    const chart = await q.getChart({ labId, chartId: ids.chartId });
+    if (!chart) throw notFound("Chart");
+    const eds = await listEditions({ labId, chartId: ids.chartId });
+    return {
+      id: chart.id,
+      title: chart.title,
+      definition: chart.definition,
+      liveFingerprint: chart.liveFingerprint,
+      editions: eds.map((e) => ({
+        ...editionSummary(env.APP_URL, e),
+        createdBy: e.createdByName,
+        rejectionReason: e.rejectionReason,
+      })),
+    };
+  },
+});
+
+export const createChart = labOperation({
+  name: "chart.create",
+  capability: "chart:design",
+  scope: "lab",
+  input: chartDefinitionSchema,
+  run: async ({ labId, actor }, definition) => {
+    const { id } = await labWrite(labId, (tx) => q.createChart(tx, { labId, userId: actor.id, definition }));
+    return { id, title: definition.title };
+  },
+});
+
+/** Replaces the whole definition (the designer saves it whole). */
+export const saveChart = labOperation({
+  name: "chart.save",
+  capability: "chart:design",
+  scope: "chart",
+  input: chartDefinitionSchema,
+  run: async ({ labId, actor, ids }, definition) => {
+    await labWrite(labId, (tx) => q.updateChart(tx, { labId, chartId: ids.chartId, userId: actor.id, definition }));
+    return { id: ids.chartId, definition };
+  },
+});
+
+/** Changes the fields given and keeps every other one, merged inside the lab lock. */
+export const patchChart = labOperation({
+  name: "chart.patch",
+  capability: "chart:design",
+  scope: "chart",
+  input: chartPatchSchema,
+  run: ({ labId, actor, ids }, patch) =>
+    labWrite(labId, async (tx) => {
+      const stored = await q.readChartDefinition(tx, { labId, chartId: ids.chartId });
+      const definition = parseInput(chartDefinitionSchema, mergePatch(stored, patch));
+      await q.updateChart(tx, { labId, chartId: ids.chartId, userId: actor.id, definition });
+      return { id: ids.chartId, definition };
+    }),
+});
+
+export const getChartLogo = labOperation({
+  name: "chart.logo.read",
+  capability: "lab:read",
+  scope: "chart",
+  run: async ({ labId, ids }) => {
+    const logo = await q.getChartLogo({ labId, chartId: ids.chartId });
+    if (!logo) throw notFound("Logo");
+    return logo;
+  },
+});
+
+const fileSchema = z.custom<UploadedFile>(
+  (v) => v !== null && typeof v === "object" && "bytes" in v,
+  "Choose a PNG or JPEG file.",
+);
+
+/** A PNG or JPEG of at most 1 MB, checked from its bytes before it is stored. */
+export const setChartLogo = labOperation({
+  name: "chart.logo.set",
+  capability: "chart:design",
+  scope: "chart",
+  input: z.object({ file: fileSchema }),
+  run: async ({ labId, actor, ids }, { file }) => {
+    const checked = await checkLogo(file.bytes);
+    const logo = { bytes: Buffer.from(file.bytes), mime: checked.mime, sha256: checked.sha256 };
+    const { logoId } = await labWrite(labId, (tx) =>
+      q.setChartLogo(tx, { labId, chartId: ids.chartId, userId: actor.id, logo }),
+    );
+    return { logoId, mime: checked.mime, sha256: checked.sha256, width: checked.width, height: checked.height };
+  },
+});
+
+export const removeChartLogo = labOperation({
+  name: "chart.logo.remove",
+  capability: "chart:design",
+  scope: "chart",
+  run: ({ labId, actor, ids }) =>
+    labWrite(labId, (tx) => q.setChartLogo(tx, { labId, chartId: ids.chartId, userId: actor.id, logo: null })),
+});

@@ -1,0 +1,71 @@
+import "server-only";
+import { z } from "zod";
+import * as q from "@/db/queries/editions";
+import { editionUrls } from "@/lib/charts/present";
+import { env } from "@/lib/env";
+import { rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
+import { labOperation } from "./operation";
+import { labWrite } from "./write";
+
+// No options yet: the body is empty or {}, and anything else is refused rather than ignored.
+const noOptions = z.object({}).strict();
+
+/** Freezes what the chart prints today into a new numbered draft. */
+export const createEdition = labOperation({
+  name: "edition.create",
+  capability: "edition:create",
+  scope: "chart",
+  input: noOptions,
+  run: async ({ labId, actor, ids }) => {
+    const ed = await labWrite(labId, (tx) => q.createEdition(tx, { labId, chartId: ids.chartId, actor }));
+    return {
+      id: ed.id,
+      number: ed.number,
+      status: "draft" as const,
+      fingerprint: ed.fingerprint,
+      ...editionUrls(env.APP_URL, ed),
+    };
+  },
+});
+
+/** Approves a draft; never by its author (four eyes), and only while it still matches the lab. */
+export const approveEdition = labOperation({
+  name: "edition.approve",
+  capability: "edition:approve",
+  scope: "edition",
+  input: noOptions,
+  run: async ({ labId, actor, ids }) => {
+    const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
+    return {
+      id: ed.id,
+      number: ed.number,
+      status: "approved" as const,
+      superseded: ed.superseded.map((p) => p.number),
+    };
+  },
+});
+
+/** Sends a draft back to its author with a reason. */
+export const rejectEdition = labOperation({
+  name: "edition.reject",
+  capability: "edition:approve",
+  scope: "edition",
+  input: rejectEditionSchema,
+  run: async ({ labId, actor, ids }, { reason }) => {
+    const ed = await labWrite(labId, (tx) => q.rejectEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
+    return { id: ed.id, number: ed.number, status: "draft" as const, rejectionReason: reason };
+  },
+});
+
+export const withdrawEdition = labOperation({
+  name: "edition.withdraw",
+  capability: "edition:withdraw",
+  scope: "edition",
+  input: withdrawEditionSchema,
+  run: async ({ labId, actor, ids }, { reason }) => {
+    const ed = await labWrite(labId, (tx) =>
+      q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason: reason ?? null }),
+    );
+    return { id: ed.id, number: ed.number, status: "withdrawn" as const, was: ed.was };
+  },
+});

@@ -1,0 +1,79 @@
+import "server-only";
+import type { z } from "zod";
+import { invalidInput, notFound } from "@/lib/errors";
+import { logger } from "@/lib/log";
+import type { Capability } from "@/lib/permissions";
+import { BAD_ID, idSchema } from "@/lib/validation/id";
+import { authorize, type LabRef, type Member } from "./access";
+import type { Actor, Caller } from "./caller";
+
+type Scope = "lab" | "chart" | "edition";
+type ScopeRef<S extends Scope> = S extends "lab"
+  ? { lab: string }
+  : S extends "chart"
+    ? { chartId: unknown }
+    : { editionId: unknown };
+type ScopeId<S extends Scope> = S extends "chart" ? "chartId" : S extends "edition" ? "editionId" : never;
+
+export type OpContext<K extends string> = { member: Member; actor: Actor; labId: number; ids: Record<K, number> };
+
+/** Parses input with its zod schema: an id that cannot name a row is 404, anything else wrong is 400. */
+export function parseInput<S extends z.ZodType>(schema: S, raw: unknown, what = "That"): z.infer<S> {
+  const parsed = schema.safeParse(raw);
+  if (parsed.success) return parsed.data;
+  if (parsed.error.issues.some((i) => i.message === BAD_ID)) throw notFound(what);
+  throw invalidInput(parsed.error.issues);
+}
+
+function parseId(raw: unknown, what: string): number {
+  const parsed = idSchema.safeParse(raw);
+  if (!parsed.success) throw notFound(what);
+  return parsed.data;
+}
+
+/** Times an operation and logs its outcome once; the caller's error handling logs failures. */
+export async function traced<R>(name: string, fields: Record<string, unknown>, fn: () => Promise<R>): Promise<R> {
+  const started = performance.now();
+  const result = await fn();
+  logger.debug({ op: name, ...fields, ms: Math.round(performance.now() - started) }, "operation done");
+  return result;
+}
+
+/**
+ * An operation inside one lab: finds the lab from the reference, checks the caller's capability
+ * there (401, 404, 403), then reads further ids (404 for a bad or foreign one, like a missing row)
+ * and validates the input with its zod schema (400), then runs. Every route handler, server action and page that changes or reads lab data
+ * goes through one of these.
+ */
+export function labOperation<S extends Scope, I extends z.ZodType, R, K extends string = never>(spec: {
+  name: string;
+  capability: Capability;
+  scope: S;
+  /** Further ids in the reference, each with the noun a "not found" answer names. */
+  ids?: Record<K, string>;
+  input?: I;
+  run: (ctx: OpContext<K | ScopeId<S>>, input: z.infer<I>) => Promise<R>;
+}) {
+  const op = async (caller: Caller, ref: ScopeRef<S> & Record<K, unknown>, input?: unknown): Promise<R> => {
+    const r = ref as Record<string, unknown>;
+    const labRef: LabRef =
+      spec.scope === "lab"
+        ? { lab: String(r.lab) }
+        : spec.scope === "chart"
+          ? { chartId: parseId(r.chartId, "Chart") }
+          : { editionId: parseId(r.editionId, "Edition") };
+    const member = await authorize(caller, labRef, spec.capability);
+    const ids = Object.fromEntries(
+      Object.entries<string>(spec.ids ?? ({} as Record<K, string>)).map(([key, what]) => [key, parseId(r[key], what)]),
+    ) as Record<K, number>;
+    const data = spec.input ? parseInput(spec.input, input ?? {}) : (undefined as z.infer<I>);
+    const ctx = {
+      member,
+      actor: { id: member.user.id, name: member.user.name },
+      labId: member.lab.id,
+      ids: { ...ids, ...labRef } as Record<K | ScopeId<S>, number>,
+    };
+    return traced(spec.name, { userId: member.user.id, labId: member.lab.id }, () => spec.run(ctx, data));
+  };
+  return Object.assign(op, { operation: spec.name, capability: spec.capability, scope: spec.scope });
+}

@@ -1,0 +1,86 @@
+import "server-only";
+import { getCheckByToken } from "@/db/queries/check";
+import * as postings from "@/db/queries/postings";
+import * as rooms from "@/db/queries/rooms";
+import { notFound } from "@/lib/errors";
+import { checkTokenSchema } from "@/lib/validation/check";
+import { postingSchema, roomSchema } from "@/lib/validation/room";
+import type { Caller } from "./caller";
+import { labOperation } from "./operation";
+import { labWrite } from "./write";
+
+// Rooms and postings: where printed editions hang, and the record of each copy on a wall.
+
+export const roomBoard = labOperation({
+  name: "room.board",
+  capability: "lab:read",
+  scope: "lab",
+  run: ({ labId }) => rooms.roomBoard({ labId }),
+});
+
+export const createRoom = labOperation({
+  name: "room.create",
+  capability: "rooms:manage",
+  scope: "lab",
+  input: roomSchema,
+  run: async ({ labId, actor }, { name }) => {
+    const { id } = await labWrite(labId, (tx) => rooms.createRoom(tx, { labId, name, actor }));
+    return { id, name };
+  },
+});
+
+export const renameRoom = labOperation({
+  name: "room.rename",
+  capability: "rooms:manage",
+  scope: "lab",
+  ids: { roomId: "Room" },
+  input: roomSchema,
+  run: async ({ labId, actor, ids }, { name }) => {
+    await labWrite(labId, (tx) => rooms.renameRoom(tx, { labId, roomId: ids.roomId, name, actor }));
+    return { id: ids.roomId, name };
+  },
+});
+
+export const archiveRoom = labOperation({
+  name: "room.archive",
+  capability: "rooms:manage",
+  scope: "lab",
+  ids: { roomId: "Room" },
+  run: async ({ labId, actor, ids }) => {
+    await labWrite(labId, (tx) => rooms.archiveRoom(tx, { labId, roomId: ids.roomId, actor }));
+    return null;
+  },
+});
+
+/** "This copy hangs in ...": any member records it; a repeat answers the existing posting. */
+export const recordPosting = labOperation({
+  name: "posting.create",
+  capability: "posting:record",
+  scope: "edition",
+  input: postingSchema,
+  run: async ({ labId, actor, ids }, { roomId }) => {
+    const res = await labWrite(labId, (tx) =>
+      postings.recordPosting(tx, { labId, editionId: ids.editionId, roomId, actor }),
+    );
+    return { id: res.id, editionId: ids.editionId, roomId, created: res.created };
+  },
+});
+
+export const takeDownPosting = labOperation({
+  name: "posting.remove",
+  capability: "posting:record",
+  scope: "lab",
+  ids: { postingId: "Posting" },
+  run: async ({ labId, actor, ids }) => {
+    await labWrite(labId, (tx) => postings.takeDownPosting(tx, { labId, postingId: ids.postingId, actor }));
+    return null;
+  },
+});
+
+/** The public check: anyone with the poster's QR code may read it; a malformed token reads as unknown. */
+export async function checkByToken(_caller: Caller, { token }: { token: string }) {
+  if (!checkTokenSchema.safeParse(token).success) throw notFound("Check");
+  const view = await getCheckByToken({ token });
+  if (!view) throw notFound("Check");
+  return view;
+}

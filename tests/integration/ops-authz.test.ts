@@ -1,0 +1,120 @@
+// Every lab operation refuses, by itself, a caller whose role lacks its capability, an anonymous
+// caller and a member of another lab, before it reads its input or changes anything. The routes
+// and actions above it are walked separately (tests/e2e/authz.spec.ts, actions-authz.test.ts).
+import { count, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { db, pool } from "@/db";
+import { auditEvents, balloonFamilies, charts, editions } from "@/db/schema";
+import { AppError } from "@/lib/errors";
+import * as audit from "@/lib/ops/audit";
+import * as chartsOps from "@/lib/ops/charts";
+import * as editionsOps from "@/lib/ops/editions";
+import * as members from "@/lib/ops/members";
+import * as postings from "@/lib/ops/postings";
+import * as renders from "@/lib/ops/renders";
+import * as stock from "@/lib/ops/stock";
+import type { Caller } from "@/lib/ops/caller";
+import { ROLES, rolesWith, type Capability } from "@/lib/permissions";
+import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { labWithTeam } from "./support/fixtures";
+import { createChart, createEdition } from "./support/writes";
+
+type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Promise<unknown>) & {
+  operation: string;
+  capability: Capability;
+  scope: "lab" | "chart" | "edition";
+};
+
+const ops: Op[] = [audit, chartsOps, editionsOps, members, postings, renders, stock].flatMap((mod) =>
+  Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v),
+);
+
+let team: Awaited<ReturnType<typeof labWithTeam>>;
+const ids = { chartId: 0, editionId: 0 };
+
+const callerOf = (p: { id: number; email: string; name: string }): Caller => ({
+  kind: "user",
+  user: { id: p.id, email: p.email, name: p.name },
+});
+
+async function footprint() {
+  const [a] = await db.select({ n: count() }).from(auditEvents).where(eq(auditEvents.labId, team.lab.id));
+  const [e] = await db.select({ n: count() }).from(editions).where(eq(editions.labId, team.lab.id));
+  const [c] = await db.select({ n: count() }).from(charts).where(eq(charts.labId, team.lab.id));
+  return { audit: a!.n, editions: e!.n, charts: c!.n };
+}
+
+function refFor(op: Op) {
+  const base =
+    op.scope === "lab"
+      ? { lab: team.lab.slug }
+      : op.scope === "chart"
+        ? { chartId: ids.chartId }
+        : { editionId: ids.editionId };
+  // Further ids name rows that need not exist: refusal comes before any lookup of them.
+  return new Proxy(base as Record<string, unknown>, { get: (t, k: string) => (k in t ? t[k] : 1) });
+}
+
+beforeAll(async () => {
+  team = await labWithTeam();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({ labId: team.lab.id, name: "NC ops", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: null })
+    .$returningId();
+  const definition = chartDefinitionSchema.parse({
+    title: "Ops refusals",
+    law: { law: "murray" },
+    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2, 2.5] }],
+    paper: "A4",
+    orientation: "portrait",
+    readingDistanceM: 1,
+  });
+  ids.chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+  ids.editionId = (await createEdition({ labId: team.lab.id, chartId: ids.chartId, actor: team.people.educator })).id;
+});
+
+afterAll(() => pool.end());
+
+describe("the operations layer refuses by itself", () => {
+  it("finds every lab operation", () => {
+    expect(ops.length).toBeGreaterThanOrEqual(30);
+  });
+
+  it("answers anonymous 401, another lab's manager 404 and each role without the capability 403, changing nothing", async () => {
+    const before = await footprint();
+    let refusals = 0;
+    for (const op of ops) {
+      const tries: { caller: Caller; status: number }[] = [
+        { caller: { kind: "anonymous" }, status: 401 },
+        { caller: callerOf(team.people.outsider), status: 404 },
+        ...ROLES.filter((r) => !rolesWith(op.capability).includes(r)).map((r) => ({
+          caller: callerOf(team.people[r]),
+          status: 403,
+        })),
+      ];
+      for (const t of tries) {
+        const err = await op(t.caller, refFor(op), {}).then(
+          () => null,
+          (e: unknown) => e,
+        );
+        expect(err, `${op.operation} as ${t.caller.kind}`).toBeInstanceOf(AppError);
+        expect((err as AppError).status, `${op.operation} expected ${t.status}`).toBe(t.status);
+        refusals++;
+      }
+    }
+    expect(refusals).toBeGreaterThan(ops.length * 2);
+    expect(await footprint()).toEqual(before);
+  });
+
+  it("answers a malformed id with 404, like an id of another lab", async () => {
+    for (const balloonId of ["x1", "0", "-3", "1.5", 2 ** 60]) {
+      const err = await stock
+        .updateBalloon(callerOf(team.people.manager), { lab: team.lab.slug, balloonId }, { inStock: false })
+        .then(
+          () => null,
+          (e: unknown) => e,
+        );
+      expect((err as AppError).status, String(balloonId)).toBe(404);
+    }
+  });
+});

@@ -1,0 +1,63 @@
+// The query-level writes, each run through the operations layer's one write path (lab row
+// locked, change, lab pass, audit row, then mail), for tests that set up or exercise data below
+// the authorisation step. Tests of who may do what call lib/ops with a caller instead.
+import type { Tx } from "@/db/queries/audit";
+import * as charts from "@/db/queries/charts";
+import * as editions from "@/db/queries/editions";
+import * as invitations from "@/db/queries/invitations";
+import * as members from "@/db/queries/members";
+import * as postings from "@/db/queries/postings";
+import * as rooms from "@/db/queries/rooms";
+import * as stock from "@/db/queries/stock";
+import type { CsvRow } from "@/lib/stock/csv";
+import { accountWrite, labWrite } from "@/lib/ops/write";
+
+type Write<A> = (tx: Tx, args: A) => Promise<unknown>;
+function inLab<A extends { labId: number }, R>(fn: (tx: Tx, args: A) => Promise<R>) {
+  return (args: A): Promise<R> => labWrite(args.labId, (tx) => fn(tx, args));
+}
+export type { Write };
+
+export const createChart = inLab(charts.createChart);
+export const updateChart = inLab(charts.updateChart);
+export const createEdition = inLab(editions.createEdition);
+export const approveEdition = inLab(editions.approveEdition);
+export const rejectEdition = inLab(editions.rejectEdition);
+export const withdrawEdition = inLab(editions.withdrawEdition);
+export const createRoom = inLab(rooms.createRoom);
+export const recordPosting = inLab(postings.recordPosting);
+export const takeDownPosting = inLab(postings.takeDownPosting);
+export const changeMemberRole = inLab(members.changeMemberRole);
+export const removeMember = inLab(members.removeMember);
+export const createBalloonFamily = inLab(stock.createBalloonFamily);
+export const updateBalloonFamily = inLab(stock.updateBalloonFamily);
+export const deleteBalloonFamily = inLab(stock.deleteBalloonFamily);
+export const createBalloon = inLab(stock.createBalloon);
+export const updateBalloon = inLab(stock.updateBalloon);
+export const deleteBalloon = inLab(stock.deleteBalloon);
+export const createStentPlatform = inLab(stock.createStentPlatform);
+export const updateStentPlatform = inLab(stock.updateStentPlatform);
+export const deleteStentPlatform = inLab(stock.deleteStentPlatform);
+export const createStentSize = inLab(stock.createStentSize);
+export const updateStentSize = inLab(stock.updateStentSize);
+export const deleteStentSize = inLab(stock.deleteStentSize);
+
+/** The CSV import as the API runs it: a dry run previews, otherwise one write. */
+export function importBalloons(args: {
+  labId: number;
+  actorUserId: number | null;
+  rows: CsvRow[];
+  dryRun: boolean;
+  expectRevision?: number;
+  fileName?: string;
+}) {
+  if (args.dryRun) return stock.previewBalloonImport(args);
+  return labWrite(args.labId, (tx) => stock.importBalloons(tx, args));
+}
+
+export const revokeInvitation = inLab(invitations.revokeInvitation);
+
+/** Accepting belongs to no lab until the invitation is read: one plain transaction. */
+export function acceptInvitation(args: Parameters<typeof invitations.acceptInvitation>[1]) {
+  return accountWrite((tx) => invitations.acceptInvitation(tx, args));
+}
