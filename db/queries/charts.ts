@@ -9,6 +9,7 @@ import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
 import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
+import { runTransaction } from "@/lib/ops/transaction";
 
 export async function createChart({
   labId,
@@ -21,7 +22,7 @@ export async function createChart({
   definition: ChartDefinition;
   logoId?: number | null;
 }) {
-  const result = await db.transaction(async (tx) => {
+  const result = await runTransaction(async (tx) => {
     await lockLab(tx, labId);
     await assertStockRefs(tx, labId, definition);
     const [row] = await tx
@@ -61,7 +62,7 @@ export async function updateChart({
   definition: ChartDefinition;
   logoId?: number | null;
 }) {
-  const result = await db.transaction(async (tx) => {
+  const result = await runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const [before] = await tx
       .select()
@@ -179,7 +180,7 @@ export async function setChartLogo({
   userId: number;
   logo: { bytes: Buffer; mime: string; sha256: string } | null;
 }) {
-  const result = await db.transaction(async (tx) => {
+  const result = await runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const [chart] = await tx
       .select({ id: charts.id, title: charts.title, logoId: charts.logoId })

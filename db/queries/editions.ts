@@ -14,6 +14,7 @@ import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
 import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 import { readStock } from "./stock-read";
+import { runTransaction } from "@/lib/ops/transaction";
 
 type Actor = { id: number; name: string };
 
@@ -66,7 +67,7 @@ export async function listEditions({ labId, chartId }: { labId: number; chartId:
 
 /** Freezes what the chart prints today into a new numbered draft. */
 export async function createEdition({ labId, chartId, actor }: { labId: number; chartId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const lab = await lockLab(tx, labId);
     const [chart] = await tx
       .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
@@ -130,7 +131,7 @@ async function transition(
 }
 
 export async function approveEdition({ labId, editionId, actor }: { labId: number; editionId: number; actor: Actor }) {
-  const result = await db.transaction(async (tx) => {
+  const result = await runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "approved" });
     if (ed.createdBy === actor.id) {
@@ -201,7 +202,7 @@ export async function rejectEdition({
   actor: Actor;
   reason: string;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const ed = await transition(tx, { labId, editionId, to: "rejected" });
     await tx
       .update(editions)
@@ -231,7 +232,7 @@ export async function withdrawEdition({
   actor: Actor;
   reason: string | null;
 }) {
-  const result = await db.transaction(async (tx) => {
+  const result = await runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
     await tx

@@ -7,6 +7,7 @@ import { db } from "../index";
 import { invitations, labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { lockLab } from "./lab-lock";
+import { runTransaction } from "@/lib/ops/transaction";
 
 const open = (labId: number) =>
   and(eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
@@ -44,7 +45,7 @@ export async function createInvitation(input: {
   tokenHash: string;
   expiresAt: Date;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     await lockLab(tx, input.labId);
     const [member] = await tx
       .select({ id: memberships.id })
@@ -112,7 +113,7 @@ export async function renewInvitation(input: {
   tokenHash: string;
   expiresAt: Date;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const row = await openInvitationInLab(tx, input.labId, input.invitationId);
     const now = new Date();
     await tx
@@ -138,7 +139,7 @@ export async function renewInvitation(input: {
 }
 
 export async function revokeInvitation(input: { labId: number; invitationId: number; actorUserId: number }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const row = await openInvitationInLab(tx, input.labId, input.invitationId);
     await tx
       .update(invitations)
@@ -193,7 +194,7 @@ type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId:
 
 /** Single use: the row is locked, checked and marked accepted in one transaction. */
 export async function acceptInvitation(input: { tokenHash: string } & Joiner) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, input.tokenHash)).for("update");
     if (!inv)
       throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");

@@ -6,6 +6,7 @@ import { db } from "../index";
 import { labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { lockLab } from "./lab-lock";
+import { runTransaction } from "@/lib/ops/transaction";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -107,7 +108,7 @@ export async function changeMemberRole({
   role: Role;
   actorUserId: number;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const member = await memberInLab(tx, labId, membershipId);
     if (member.role === role) return { ...member, changed: false };
@@ -139,7 +140,7 @@ export async function removeMember({
   membershipId: number;
   actorUserId: number;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     await lockLab(tx, labId);
     const member = await memberInLab(tx, labId, membershipId);
     if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
@@ -167,7 +168,7 @@ export async function getStaleMailSetting({ labId, userId }: { labId: number; us
 }
 
 export async function setStaleMailSetting({ labId, userId, on }: { labId: number; userId: number; on: boolean }) {
-  await db.transaction(async (tx) => {
+  await runTransaction(async (tx) => {
     await tx
       .update(memberships)
       .set({ notifyStale: on })

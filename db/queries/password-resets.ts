@@ -5,6 +5,7 @@ import { AppError } from "@/lib/errors";
 import { db } from "../index";
 import { passwordResets, users } from "../schema";
 import { recordAudit } from "./audit";
+import { runTransaction } from "@/lib/ops/transaction";
 
 export async function createPasswordReset({
   userId,
@@ -15,7 +16,7 @@ export async function createPasswordReset({
   tokenHash: string;
   expiresAt: Date;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [row] = await tx.insert(passwordResets).values({ userId, tokenHash, expiresAt }).$returningId();
     await recordAudit({
       tx,
@@ -52,7 +53,7 @@ const PROBLEM = {
 
 /** Single use: locks the token row, sets the password, and retires every other open link. */
 export async function completePasswordReset({ tokenHash, passwordHash }: { tokenHash: string; passwordHash: string }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for("update");
     if (!row)
       throw new AppError(

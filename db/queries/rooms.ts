@@ -7,6 +7,7 @@ import { editions, postings, rooms } from "../schema";
 import { recordAudit } from "./audit";
 import { readHangingCopies } from "./hanging-copies";
 import { initialPostingStatus } from "./notices";
+import { runTransaction } from "@/lib/ops/transaction";
 
 type Actor = { id: number };
 
@@ -19,7 +20,7 @@ export async function listRooms({ labId }: { labId: number }) {
 }
 
 export async function createRoom({ labId, name, actor }: { labId: number; name: string; actor: Actor }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [dupe] = await tx
       .select({ id: rooms.id, archivedAt: rooms.archivedAt })
       .from(rooms)
@@ -63,7 +64,7 @@ export async function renameRoom({
   name: string;
   actor: Actor;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [room] = await tx
       .select()
       .from(rooms)
@@ -95,7 +96,7 @@ export async function renameRoom({
 
 /** A room is archived, not deleted, so past postings keep their place in the audit log. */
 export async function archiveRoom({ labId, roomId, actor }: { labId: number; roomId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [room] = await tx
       .select()
       .from(rooms)
@@ -135,7 +136,7 @@ export async function recordPosting({
   roomId: number;
   actor: Actor;
 }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [ed] = await tx
       .select({ id: editions.id, number: editions.number, status: editions.status })
       .from(editions)
@@ -178,7 +179,7 @@ export async function recordPosting({
 }
 
 export async function takeDownPosting({ labId, postingId, actor }: { labId: number; postingId: number; actor: Actor }) {
-  return db.transaction(async (tx) => {
+  return runTransaction(async (tx) => {
     const [p] = await tx
       .select()
       .from(postings)

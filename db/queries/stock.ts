@@ -23,6 +23,7 @@ import { afterLabChange } from "./lab-changes";
 import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
 import { readFamilies, readPlatforms } from "./stock-read";
+import { runTransaction } from "@/lib/ops/transaction";
 
 type Actor = { labId: number; actorUserId: number | null };
 
@@ -96,12 +97,13 @@ function isDuplicateKey(err: unknown): boolean {
 /** One transaction per change, serialised per lab by locking the lab row first. */
 async function stockWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise<T> {
   try {
-    const result = await db.transaction(async (tx) => {
-      await lockLab(tx, labId);
-      return fn(tx);
-    });
-    await deliverPendingNotices({ labId });
-    return result;
+    return await runTransaction(
+      async (tx) => {
+        await lockLab(tx, labId);
+        return fn(tx);
+      },
+      { afterCommit: () => deliverPendingNotices({ labId }) },
+    );
   } catch (err) {
     if (isDuplicateKey(err))
       throw new AppError(
