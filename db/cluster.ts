@@ -265,7 +265,9 @@ export function nodeUrl(node: ClusterNode, e: { DB_USER: string; DB_PASSWORD: st
 }
 
 /** Database, user, migrations and demo seed, applied once through node 1. */
-export async function provisionCluster(opts: { seed?: boolean; log?: (m: string) => void; root?: string } = {}) {
+export async function provisionCluster(
+  opts: { seed?: boolean; fresh?: boolean; log?: (m: string) => void; root?: string } = {},
+) {
   const nodes = clusterNodes(opts.root);
   // The app pool reads DB_PORT when lib/env is first imported: point it at node 1.
   process.env.DB_PORT = String(nodes[0]!.port);
@@ -273,7 +275,12 @@ export async function provisionCluster(opts: { seed?: boolean; log?: (m: string)
   const { env } = await import("@/lib/env");
   if (new URL(env.DATABASE_URL).port !== String(nodes[0]!.port))
     throw new Error("provisionCluster: lib/env was loaded before DB_PORT pointed at node 1");
-  await local.ensureDatabase(nodes[0]!, { database: env.DB_NAME, user: env.DB_USER, password: env.DB_PASSWORD });
+  await local.ensureDatabase(nodes[0]!, {
+    database: env.DB_NAME,
+    user: env.DB_USER,
+    password: env.DB_PASSWORD,
+    fresh: opts.fresh,
+  });
   const { db, pool } = await import("./index");
   const { runMigrations } = await import("./migrate");
   try {

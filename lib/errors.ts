@@ -68,8 +68,38 @@ export function errorBody(err: AppError) {
   return { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
 }
 
+// Connection failures, and a Galera node outside the primary component (1047: "WSREP has not
+// yet prepared node for application use"), mean the database cannot answer: never a guess.
+const UNAVAILABLE = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "ETIMEDOUT",
+  "PROTOCOL_CONNECTION_LOST",
+  "ER_UNKNOWN_COM_ERROR",
+]);
+
+export const OUTAGE_MESSAGE =
+  "Forkwall's database cannot be reached right now, so nothing could be checked or saved and nothing was changed. Try again in a minute; until then go by your lab's own stock list.";
+
+export function isDatabaseUnavailable(err: unknown): boolean {
+  const seen = new Set<unknown>();
+  for (let e: unknown = err; e && typeof e === "object" && !seen.has(e); e = (e as { cause?: unknown }).cause) {
+    seen.add(e);
+    const { code, errno } = e as { code?: unknown; errno?: unknown };
+    if ((typeof code === "string" && UNAVAILABLE.has(code)) || errno === 1047) return true;
+  }
+  return false;
+}
+
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) return Response.json(errorBody(err), { status: err.status });
+  if (isDatabaseUnavailable(err)) {
+    console.error(err);
+    return Response.json(
+      { error: { code: "unavailable", message: OUTAGE_MESSAGE } },
+      { status: 503, headers: { "cache-control": "no-store", "retry-after": "30" } },
+    );
+  }
   console.error(err);
   return Response.json(
     { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
