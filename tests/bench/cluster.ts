@@ -104,7 +104,7 @@ async function measure(bases: string[], dbPort: number): Promise<Result> {
   const pool = mysql.createPool({
     host: "127.0.0.1",
     port: dbPort,
-    user: process.env.DB_USER,
+    user: process.env.DB_USER ?? "forkwall",
     password: process.env.DB_PASSWORD,
     database: DB_NAME,
     connectionLimit: 1,
