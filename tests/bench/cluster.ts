@@ -24,7 +24,10 @@ const SECONDS = Math.min(Math.max(Number(opts.seconds), 1), 30);
 const CONCURRENCY = Math.min(Math.max(Number(opts.concurrency), 1), 32);
 
 const testPort = Number(process.env.TEST_PORT ?? 3100);
-const [portA, portB] = [testPort + 6, testPort + 7];
+// Instances on TEST_PORT+3 and +4 (CLUSTER_APP_PORT overrides A; B takes the next port), clear
+// of the project's default database port 3307 when TEST_PORT is 3300.
+const portA = Number(process.env.CLUSTER_APP_PORT ?? testPort + 3);
+const portB = portA + 1;
 const DB_NAME = "forkwall_bench";
 Object.assign(process.env, {
   DB_NAME,
