@@ -14,8 +14,13 @@ const COMMANDS = {
   dev: { entry: "db/start.ts", args: ["dev"], packages: ["server"] },
   "db:stop": { entry: "db/start.ts", args: ["stop"], packages: [] },
   "db:up": { entry: "db/start.ts", args: ["up"], packages: ["server"] },
-  test: { entry: "tests/run.ts", args: [], packages: ["server", "browser", "tools"] },
+  test: { entry: "tests/run.ts", args: [], packages: ["server", "galera", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
+  "cluster:up": { entry: "db/cluster-cmd.ts", args: ["up"], packages: ["server", "galera"] },
+  "cluster:down": { entry: "db/cluster-cmd.ts", args: ["down"], packages: ["server"] },
+  "cluster:status": { entry: "db/cluster-cmd.ts", args: ["status"], packages: ["server"] },
+  "test:cluster": { entry: "tests/cluster/run.ts", args: [], packages: ["server", "galera"] },
+  "bench:cluster": { entry: "tests/bench/cluster.ts", args: [], packages: ["server", "galera"] },
 };
 
 // Debian package -> a file that proves it is installed.
@@ -23,6 +28,13 @@ const PACKAGES = {
   server: [
     ["mariadb-server", "/usr/sbin/mariadbd"],
     ["mariadb-client", "/usr/bin/mariadb"],
+  ],
+  // Galera itself (galera-4) comes with mariadb-server; state transfer to a joining node needs
+  // mariabackup and socat.
+  galera: [
+    ["galera-4", "/usr/lib/galera/libgalera_smm.so"],
+    ["mariadb-backup", "/usr/bin/mariabackup"],
+    ["socat", "/usr/bin/socat"],
   ],
   browser: [["chromium", "/usr/bin/chromium"]],
   tools: [

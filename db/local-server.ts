@@ -19,7 +19,7 @@ export type LocalServer = {
 
 const BIN_DIRS = ["/usr/sbin", "/usr/bin", "/usr/local/sbin", "/usr/local/bin"];
 
-function bin(name: string): string {
+export function bin(name: string): string {
   for (const dir of BIN_DIRS) {
     const file = path.join(dir, name);
     if (existsSync(file)) return file;

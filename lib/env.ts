@@ -25,6 +25,9 @@ const schema = z
     SIGNIN_MAX_FAILS_PER_ACCOUNT: z.coerce.number().int().min(1).max(1000).default(5),
     SIGNIN_MAX_FAILS_PER_IP: z.coerce.number().int().min(1).max(100000).default(30),
     SIGNIN_THROTTLE_SECONDS: z.coerce.number().int().min(1).max(86400).default(900),
+    // Attempts after the first when a write transaction loses a deadlock or a Galera
+    // certification conflict (errors 1213/1205); 0 turns retrying off.
+    WRITE_RETRIES: z.coerce.number().int().min(0).max(20).default(5),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .transform((e) => ({

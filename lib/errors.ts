@@ -67,3 +67,25 @@ export function invalidInput(issues: { path: readonly PropertyKey[]; message: st
 export function errorBody(err: AppError) {
   return { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
 }
+
+// A database that cannot be reached (or a cluster node without quorum, errno 1047) is an outage: 503.
+const UNAVAILABLE = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "ETIMEDOUT",
+  "PROTOCOL_CONNECTION_LOST",
+  "ER_UNKNOWN_COM_ERROR",
+]);
+
+export const OUTAGE_MESSAGE =
+  "Forkwall's database cannot be reached right now, so nothing could be checked or saved and nothing was changed. Try again in a minute; until then go by your lab's own stock list.";
+
+export function isDatabaseUnavailable(err: unknown): boolean {
+  const seen = new Set<unknown>();
+  for (let e: unknown = err; e && typeof e === "object" && !seen.has(e); e = (e as { cause?: unknown }).cause) {
+    seen.add(e);
+    const { code, errno } = e as { code?: unknown; errno?: unknown };
+    if ((typeof code === "string" && UNAVAILABLE.has(code)) || errno === 1047) return true;
+  }
+  return false;
+}

@@ -1,6 +1,7 @@
 // `npm test`: the same provisioning as `npm start` on a fresh test database, then lint,
-// typecheck, vitest (unit + integration on the real MariaDB), a production build and the
-// Playwright suite in Debian's chromium. Ends with one line `N passed, N failed`.
+// typecheck, vitest (unit + integration on the real MariaDB), a production build, the
+// Playwright suite in Debian's chromium and the Galera cluster test (tests/cluster/run.ts;
+// `--no-cluster` skips it). Ends with one line `N passed, N failed`.
 import { spawn } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
@@ -105,6 +106,29 @@ try {
         });
       } else tallies.push({ name: "playwright", passed: 0, failed: 1, skipped: 0, note: "no report" });
     } else tallies.push({ name: "playwright", passed: 0, failed: 1, skipped: 0, note: "not run: build failed" });
+
+    // The Galera cluster test (tests/cluster/run.ts) reuses this build; about a minute here.
+    if (built && !process.argv.includes("--no-cluster")) {
+      say("cluster: two instances on a three-node Galera cluster");
+      const clusterJson = path.join(reports, "cluster.json");
+      const ccode = await exec(process.execPath, [
+        "--conditions=react-server",
+        "--import",
+        "tsx",
+        "tests/cluster/run.ts",
+        "--reuse-build",
+      ]);
+      const c = readJson<{ passed: number; failed: number; skipped: number; seconds: number }>(clusterJson);
+      if (c)
+        tallies.push({
+          name: "cluster (Galera)",
+          passed: c.passed,
+          failed: c.failed + (ccode !== 0 && c.failed === 0 ? 1 : 0),
+          skipped: c.skipped,
+          note: `${c.seconds} s`,
+        });
+      else tallies.push({ name: "cluster (Galera)", passed: 0, failed: 1, skipped: 0, note: "no report" });
+    }
   }
 } catch (err) {
   console.error(err);

@@ -1,9 +1,9 @@
 import "server-only";
-import { db } from "@/db";
 import type { Tx } from "@/db/queries/audit";
 import { lockLab } from "@/db/queries/lab-lock";
 import { AppError } from "@/lib/errors";
 import { deliverPendingNotices } from "./notices";
+import { runTransaction } from "./transaction";
 
 function duplicateKey(err: unknown): string | null {
   for (let e: unknown = err; e; e = (e as { cause?: unknown }).cause) {
@@ -21,7 +21,8 @@ function duplicateKey(err: unknown): string | null {
 export async function labWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Promise<T> {
   let result: T;
   try {
-    result = await db.transaction(async (tx) => {
+    // On a cluster the loser of a race between nodes fails at commit and runs again (runTransaction).
+    result = await runTransaction(async (tx) => {
       await lockLab(tx, labId);
       return fn(tx);
     });
@@ -36,5 +37,5 @@ export async function labWrite<T>(labId: number, fn: (tx: Tx) => Promise<T>): Pr
 
 /** A write that belongs to no one lab yet (accounts, accepting an invitation): one transaction. */
 export async function accountWrite<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
-  return db.transaction(fn);
+  return runTransaction((tx) => fn(tx));
 }
