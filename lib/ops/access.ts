@@ -1,4 +1,5 @@
 import "server-only";
+import { cache } from "react";
 import { findChartLab } from "@/db/queries/charts";
 import { findEditionLab } from "@/db/queries/editions";
 import { findLabWithRole } from "@/db/queries/members";
@@ -16,6 +17,10 @@ export type Member = {
 /** How an operation finds its lab: by slug, or through a chart or edition that belongs to one. */
 export type LabRef = { lab: string } | { labId: number } | { chartId: number } | { editionId: number };
 
+// One lookup per request for the header, the page and the operations it calls.
+const labBySlug = cache((slug: string, userId: number) => findLabWithRole({ slug, userId }));
+const labById = cache((labId: number, userId: number) => findLabWithRole({ labId, userId }));
+
 const refLabel = (ref: LabRef) => ("chartId" in ref ? "Chart" : "editionId" in ref ? "Edition" : "Lab");
 
 export function signedIn(caller: Caller): SessionUser {
@@ -30,7 +35,7 @@ export function signedIn(caller: Caller): SessionUser {
 export async function authorize(caller: Caller, ref: LabRef, capability: Capability): Promise<Member> {
   const user = signedIn(caller);
   let lab;
-  if ("lab" in ref) lab = await findLabWithRole({ slug: ref.lab, userId: user.id });
+  if ("lab" in ref) lab = await labBySlug(ref.lab, user.id);
   else {
     const labId =
       "labId" in ref
@@ -38,7 +43,7 @@ export async function authorize(caller: Caller, ref: LabRef, capability: Capabil
         : "chartId" in ref
           ? await findChartLab({ chartId: ref.chartId })
           : await findEditionLab({ editionId: ref.editionId });
-    lab = labId === null ? null : await findLabWithRole({ labId, userId: user.id });
+    lab = labId === null ? null : await labById(labId, user.id);
   }
   // A lab the person is not in answers exactly like one that does not exist.
   if (!lab || !lab.role) throw notFound(refLabel(ref));

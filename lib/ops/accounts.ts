@@ -1,13 +1,13 @@
 import "server-only";
 import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
 import { pool } from "@/db";
-import { acceptInvitation as acceptInvitationRow } from "@/db/queries/invitations";
+import { acceptInvitation as acceptInvitationRow, findInvitationByTokenHash } from "@/db/queries/invitations";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
-import { completePasswordReset, createPasswordReset } from "@/db/queries/password-resets";
+import { completePasswordReset, createPasswordReset, findPasswordReset } from "@/db/queries/password-resets";
 import { hashPassword } from "@/lib/auth/password";
 import { databaseName, signInThrottle } from "@/lib/auth/sign-in";
 import { accountKey } from "@/lib/auth/throttle";
-import { hashToken, newToken, PASSWORD_RESET_TTL_MS } from "@/lib/auth/tokens";
+import { hashToken, looksLikeToken, newToken, PASSWORD_RESET_TTL_MS } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail/send";
 import { passwordResetMail } from "@/lib/mail/templates";
@@ -97,4 +97,14 @@ export async function acceptInvitationAsMember(caller: Caller, { token }: { toke
 export async function listMyLabs(caller: Caller) {
   if (caller.kind !== "user") return [];
   return listLabsForUser({ userId: caller.user.id });
+}
+
+/** What a password-reset link is (valid, used, expired), for its page; null when it names nothing. */
+export async function readResetLink({ token }: { token: string }) {
+  return looksLikeToken(token) ? findPasswordReset({ tokenHash: hashToken(token) }) : null;
+}
+
+/** What an invitation link is, for its page; null when it names nothing. */
+export async function readInvitationLink({ token }: { token: string }) {
+  return looksLikeToken(token) ? findInvitationByTokenHash({ tokenHash: hashToken(token) }) : null;
 }

@@ -3,8 +3,6 @@ import { z } from "zod";
 import * as q from "@/db/queries/charts";
 import { listEditions } from "@/db/queries/editions";
 import { mergePatch } from "@/lib/charts/merge-patch";
-import { editionSummary } from "@/lib/charts/present";
-import { env } from "@/lib/env";
 import { notFound } from "@/lib/errors";
 import { checkLogo } from "@/lib/logo";
 import type { UploadedFile } from "@/lib/upload";
@@ -12,22 +10,15 @@ import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart"
 import { labOperation, parseInput } from "./operation";
 import { labWrite } from "./write";
 
+/** The lab's charts, each with its current edition (newest approved, else newest draft) and all editions. */
 export const listCharts = labOperation({
   name: "chart.list",
   capability: "lab:read",
   scope: "lab",
-  run: async ({ labId }) =>
-    (await q.listCharts({ labId })).map(({ chart, current }) => ({
-      id: chart.id,
-      title: chart.title,
-      paper: chart.definition.paper,
-      orientation: chart.definition.orientation,
-      law: chart.definition.law.law,
-      lawSpec: chart.definition.law,
-      currentEdition: current ? editionSummary(env.APP_URL, current) : null,
-    })),
+  run: ({ labId }) => q.listCharts({ labId }),
 });
 
+/** One chart with its definition and every edition, newest first. */
 export const getChart = labOperation({
   name: "chart.read",
   capability: "lab:read",
@@ -35,18 +26,7 @@ export const getChart = labOperation({
   run: async ({ labId, ids }) => {
     const chart = await q.getChart({ labId, chartId: ids.chartId });
     if (!chart) throw notFound("Chart");
-    const eds = await listEditions({ labId, chartId: ids.chartId });
-    return {
-      id: chart.id,
-      title: chart.title,
-      definition: chart.definition,
-      liveFingerprint: chart.liveFingerprint,
-      editions: eds.map((e) => ({
-        ...editionSummary(env.APP_URL, e),
-        createdBy: e.createdByName,
-        rejectionReason: e.rejectionReason,
-      })),
-    };
+    return { chart, editions: await listEditions({ labId, chartId: ids.chartId }) };
   },
 });
 

@@ -2,7 +2,8 @@ import "server-only";
 import { getCheckByToken } from "@/db/queries/check";
 import * as postings from "@/db/queries/postings";
 import * as rooms from "@/db/queries/rooms";
-import { notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
+import { authorize } from "./access";
 import { checkTokenSchema } from "@/lib/validation/check";
 import { postingSchema, roomSchema } from "@/lib/validation/room";
 import type { Caller } from "./caller";
@@ -83,4 +84,25 @@ export async function checkByToken(_caller: Caller, { token }: { token: string }
   const view = await getCheckByToken({ token });
   if (!view) throw notFound("Check");
   return view;
+}
+
+/**
+ * The check page: the public answer for anyone, and for members of the edition's lab also the
+ * rooms and where this copy is recorded as hanging (members may record postings there).
+ */
+export async function checkPage(caller: Caller, { token }: { token: string }) {
+  const view = await checkByToken(caller, { token });
+  const member =
+    caller.kind === "user"
+      ? await authorize(caller, { labId: view.lab.id }, "lab:read").catch((err: unknown) => {
+          if (err instanceof AppError && err.status === 404) return null;
+          throw err;
+        })
+      : null;
+  if (!member) return { view, role: null, rooms: [], hanging: [] };
+  const [roomRows, hanging] = await Promise.all([
+    rooms.listRooms({ labId: view.lab.id }),
+    rooms.listPostingsForEdition({ labId: view.lab.id, editionId: view.edition.id }),
+  ]);
+  return { view, role: member.role, rooms: roomRows, hanging };
 }

@@ -3,9 +3,8 @@ import { AcceptInvitationForm } from "@/components/auth/accept-invitation-form";
 import { JoinLabForm } from "@/components/auth/join-lab-form";
 import { buttonClass } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/form-status";
-import { findInvitationByTokenHash } from "@/db/queries/invitations";
+import { readInvitationLink } from "@/lib/ops/accounts";
 import { currentUser } from "@/lib/auth/session";
-import { hashToken, looksLikeToken } from "@/lib/auth/tokens";
 import { formatUtc } from "@/lib/mail/templates";
 import { ROLE_LABELS } from "@/lib/permissions";
 
@@ -20,7 +19,7 @@ const PROBLEMS = {
 
 export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const inv = looksLikeToken(token) ? await findInvitationByTokenHash({ tokenHash: hashToken(token) }) : null;
+  const inv = await readInvitationLink({ token });
   const problem = !inv ? "missing" : inv.state === "valid" ? null : inv.state;
   if (!inv || problem) {
     return (

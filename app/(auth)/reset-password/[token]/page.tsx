@@ -1,8 +1,7 @@
 import Link from "next/link";
 import { ResetPasswordForm } from "@/components/auth/reset-password-form";
 import { FormStatus } from "@/components/ui/form-status";
-import { findPasswordReset } from "@/db/queries/password-resets";
-import { hashToken, looksLikeToken } from "@/lib/auth/tokens";
+import { readResetLink } from "@/lib/ops/accounts";
 
 export const metadata = { title: "Choose a new password" };
 
@@ -15,7 +14,7 @@ const PROBLEMS = {
 
 export default async function ResetPasswordPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const reset = looksLikeToken(token) ? await findPasswordReset({ tokenHash: hashToken(token) }) : null;
+  const reset = await readResetLink({ token });
   const problem = !reset ? "missing" : reset.state === "valid" ? null : reset.state;
   return (
     <div>

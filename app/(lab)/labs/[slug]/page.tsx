@@ -4,9 +4,9 @@ import { buttonClass } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { listCharts } from "@/db/queries/charts";
-import { getStaleMailSetting } from "@/db/queries/members";
-import { roomBoard } from "@/db/queries/rooms";
+import { listCharts } from "@/lib/ops/charts";
+import { getStaleMail } from "@/lib/ops/members";
+import { roomBoard } from "@/lib/ops/postings";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { STALE } from "@/lib/editions/check";
 import { can } from "@/lib/permissions";
@@ -17,9 +17,9 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}`);
   if (member === "forbidden") return null;
   const [charts, board, mail] = await Promise.all([
-    listCharts({ labId: member.lab.id }),
-    roomBoard({ labId: member.lab.id }),
-    getStaleMailSetting({ labId: member.lab.id, userId: member.user.id }),
+    listCharts(member.caller, { lab: slug }),
+    roomBoard(member.caller, { lab: slug }),
+    getStaleMail(member.caller, { lab: slug }),
   ]);
   const stale = board.flatMap((r) =>
     r.postings.filter((p) => STALE.includes(p.status)).map((p) => ({ ...p, room: r.name })),

@@ -1,36 +1,24 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
 import { LiveCheck } from "@/components/check/live-check";
 import { PostingForm } from "@/components/check/posting-form";
 import { buttonClass } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
-import { getCheckByToken } from "@/db/queries/check";
-import { findLabWithRole } from "@/db/queries/members";
-import { listPostingsForEdition, listRooms } from "@/db/queries/rooms";
-import { currentUser } from "@/lib/auth/session";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { checkJson } from "@/lib/editions/check-json";
 import { env } from "@/lib/env";
+import { forPage } from "@/lib/auth/page-guard";
+import { sessionCaller } from "@/lib/ops/caller";
+import { checkPage } from "@/lib/ops/postings";
 import { can } from "@/lib/permissions";
-import { checkTokenSchema } from "@/lib/validation/check";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Is this printout current?", robots: { index: false } };
 
 export default async function CheckPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  if (!checkTokenSchema.safeParse(token).success) notFound();
-  const view = await getCheckByToken({ token });
-  if (!view) notFound();
-  const user = await currentUser();
-  const membership = user ? await findLabWithRole({ slug: view.lab.slug, userId: user.id }) : null;
-  const role = membership?.role ?? null;
-  const [rooms, hanging] = role
-    ? await Promise.all([
-        listRooms({ labId: view.lab.id }),
-        listPostingsForEdition({ labId: view.lab.id, editionId: view.edition.id }),
-      ])
-    : [[], []];
+  const { view, role, rooms, hanging } = await forPage(`/v/${token}`, async () =>
+    checkPage(await sessionCaller(), { token }),
+  );
   const printId = view.status === "current" ? view.edition.id : view.currentEdition?.id;
 
   return (

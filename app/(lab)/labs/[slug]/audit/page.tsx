@@ -4,7 +4,7 @@ import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Forbidden } from "@/components/ui/forbidden";
 import { FormStatus } from "@/components/ui/form-status";
-import { listAuditEvents } from "@/db/queries/audit";
+import { listAudit } from "@/lib/ops/audit";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { auditQuerySchema } from "@/lib/validation/audit";
 
@@ -25,12 +25,7 @@ export default async function AuditPage({
   const raw = await searchParams;
   const parsed = auditQuerySchema.safeParse({ before: raw.before, after: raw.after, limit: PAGE_SIZE });
   const query = parsed.success ? parsed.data : { before: undefined, after: undefined, limit: PAGE_SIZE };
-  const page = await listAuditEvents({
-    labId: member.lab.id,
-    before: query.before,
-    after: query.after,
-    limit: PAGE_SIZE,
-  });
+  const page = await listAudit(member.caller, { lab: slug }, { ...query, limit: PAGE_SIZE });
   const base = `/labs/${slug}/audit`;
   const paged = query.before !== undefined || query.after !== undefined;
   return (

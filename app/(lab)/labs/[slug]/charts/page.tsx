@@ -3,7 +3,7 @@ import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Forbidden } from "@/components/ui/forbidden";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { listCharts } from "@/db/queries/charts";
+import { listCharts } from "@/lib/ops/charts";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { PAPERS } from "@/lib/poster/paper";
 import { can } from "@/lib/permissions";
@@ -15,7 +15,7 @@ export default async function ChartsPage({ params }: { params: Promise<{ slug: s
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts`);
   if (member === "forbidden") return <Forbidden what="see charts" slug={slug} />;
-  const rows = await listCharts({ labId: member.lab.id });
+  const rows = await listCharts(member.caller, { lab: slug });
   const canDesign = can(member.role, "chart:design");
   return (
     <div>

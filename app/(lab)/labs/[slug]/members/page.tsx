@@ -2,8 +2,7 @@ import { InvitationsTable } from "@/components/members/invitations-table";
 import { InviteForm } from "@/components/members/invite-form";
 import { MembersTable } from "@/components/members/members-table";
 import { Forbidden } from "@/components/ui/forbidden";
-import { listOpenInvitations } from "@/db/queries/invitations";
-import { listMembers } from "@/db/queries/members";
+import { listInvitations, listMembers } from "@/lib/ops/members";
 import { memberForPage } from "@/lib/auth/page-guard";
 
 export const metadata = { title: "Members" };
@@ -12,9 +11,9 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
   const { slug } = await params;
   const member = await memberForPage(slug, "members:manage", `/labs/${slug}/members`);
   if (member === "forbidden") return <Forbidden what="manage the lab's members" slug={slug} />;
-  const [members, invitations] = await Promise.all([
-    listMembers({ labId: member.lab.id }),
-    listOpenInvitations({ labId: member.lab.id }),
+  const [members, { invitations }] = await Promise.all([
+    listMembers(member.caller, { lab: slug }),
+    listInvitations(member.caller, { lab: slug }),
   ]);
   return (
     <div className="space-y-10">

@@ -2,7 +2,7 @@ import { AddRoomForm, RoomMenu, TakeDownButton } from "@/components/rooms/room-c
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { roomBoard } from "@/db/queries/rooms";
+import { roomBoard } from "@/lib/ops/postings";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { STALE } from "@/lib/editions/check";
@@ -15,7 +15,7 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/rooms`);
   if (member === "forbidden") return null;
-  const board = await roomBoard({ labId: member.lab.id });
+  const board = await roomBoard(member.caller, { lab: slug });
   const manager = can(member.role, "rooms:manage");
   const staleCount = board.reduce((n, r) => n + r.stale, 0);
   return (

@@ -3,7 +3,7 @@ import { StentPlatformsTable } from "@/components/stock/stent-platforms-table";
 import { StockHistory } from "@/components/stock/stock-history";
 import { StockImport } from "@/components/stock/stock-import";
 import { Caution } from "@/components/ui/caution";
-import { getStock, listStockHistory } from "@/db/queries/stock";
+import { getStock, listStockHistory } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { can, ROLE_LABELS } from "@/lib/permissions";
 import { historyQuery } from "@/lib/validation/stock";
@@ -25,8 +25,8 @@ export default async function StockPage({
   const query = historyQuery.safeParse(await searchParams);
   const before = query.success ? query.data.before : undefined;
   const [stock, history] = await Promise.all([
-    getStock({ labId: member.lab.id }),
-    listStockHistory({ labId: member.lab.id, before, limit: HISTORY_PAGE + 1 }),
+    getStock(member.caller, { lab: slug }),
+    listStockHistory(member.caller, { lab: slug }, { before, limit: HISTORY_PAGE + 1 }),
   ]);
   const canEdit = can(member.role, "stock:edit");
   const events = history.slice(0, HISTORY_PAGE);

@@ -3,27 +3,23 @@ import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
 import { Caution } from "@/components/ui/caution";
-import { getChart } from "@/db/queries/charts";
-import { getStock } from "@/db/queries/stock";
-import { listEditions } from "@/db/queries/editions";
+import { forPage } from "@/lib/auth/page-guard";
+import { getChart } from "@/lib/ops/charts";
+import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
 import { env } from "@/lib/env";
 import { can } from "@/lib/permissions";
-import { idParam } from "@/lib/validation/edition";
 
 export default async function ChartPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
   const { slug, id } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts/${id}`);
   if (member === "forbidden") return null;
-  const chartId = idParam.safeParse(id);
-  if (!chartId.success) notFound();
-  const chart = await getChart({ labId: member.lab.id, chartId: chartId.data });
-  if (!chart) notFound();
-  const [stock, eds] = await Promise.all([
-    getStock({ labId: member.lab.id }),
-    listEditions({ labId: member.lab.id, chartId: chart.id }),
-  ]);
+  const [{ chart, editions: eds }, stock] = await forPage(`/labs/${slug}/charts/${id}`, () =>
+    Promise.all([getChart(member.caller, { chartId: id }), getStock(member.caller, { lab: slug })]),
+  );
+  // A chart of another lab is not found through this lab's address.
+  if (chart.labId !== member.lab.id) notFound();
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>

@@ -1,7 +1,7 @@
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { Caution } from "@/components/ui/caution";
 import { Forbidden } from "@/components/ui/forbidden";
-import { getStock } from "@/db/queries/stock";
+import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { defaultLookup } from "@/lib/charts/defaults";
 import { FINET_DEFAULT_RATIO } from "@/lib/sizing";
@@ -13,7 +13,7 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
   const { slug } = await params;
   const member = await memberForPage(slug, "chart:design", `/labs/${slug}/charts/new`);
   if (member === "forbidden") return <Forbidden what="design charts" slug={slug} />;
-  const stock = await getStock({ labId: member.lab.id });
+  const stock = await getStock(member.caller, { lab: slug });
   const family = stock.balloonFamilies.find((f) => f.compliance === "nc") ?? stock.balloonFamilies[0];
   const initial: ChartDefinition = {
     title: "POT balloon chart",

@@ -1,7 +1,19 @@
+import { editionSummary } from "@/lib/charts/present";
+import { env } from "@/lib/env";
 import { api } from "@/lib/http/route";
 import { createChart, listCharts } from "@/lib/ops/charts";
 
-export const GET = api<{ slug: string }>(({ caller, params }) => listCharts(caller, { lab: params.slug }));
+export const GET = api<{ slug: string }>(async ({ caller, params }) =>
+  (await listCharts(caller, { lab: params.slug })).map(({ chart, current }) => ({
+    id: chart.id,
+    title: chart.title,
+    paper: chart.definition.paper,
+    orientation: chart.definition.orientation,
+    law: chart.definition.law.law,
+    lawSpec: chart.definition.law,
+    currentEdition: current ? editionSummary(env.APP_URL, current) : null,
+  })),
+);
 
 export const POST = api<{ slug: string }>(
   async ({ caller, params, body }) => createChart(caller, { lab: params.slug }, await body()),
