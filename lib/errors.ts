@@ -1,5 +1,8 @@
 // The one error type of the app: a code, an HTTP status, a message a person can act on, and
-// optional per-field issues. Route handlers turn it into JSON through errorResponse().
+// optional per-field issues. Route handlers turn it into JSON through errorResponse(), which is
+// also the one place errors are logged.
+import { log as rootLog, type Logger } from "@/lib/log";
+
 export type ErrorCode =
   | "invalid_input"
   | "unauthenticated"
@@ -68,11 +71,71 @@ export function errorBody(err: AppError) {
   return { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
 }
 
-export function errorResponse(err: unknown): Response {
-  if (err instanceof AppError) return Response.json(errorBody(err), { status: err.status });
-  console.error(err);
-  return Response.json(
-    { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
-    { status: 500 },
-  );
+// Client-side codes (mysql2 and Node sockets) and server error numbers that mean "no database",
+// as opposed to a query that the database refused.
+const UNREACHABLE_CODES = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENETUNREACH",
+  "ENOTFOUND",
+  "EPIPE",
+  "PROTOCOL_CONNECTION_LOST",
+  "PROTOCOL_SEQUENCE_TIMEOUT",
+  "ER_CON_COUNT_ERROR",
+  "ER_SERVER_SHUTDOWN",
+  "ER_CONNECTION_KILLED",
+  "ER_CLIENT_INTERACTION_TIMEOUT",
+]);
+// 1040 too many connections, 1053 shutdown in progress, 1927 connection killed,
+// 2002/2003 cannot connect, 2006 server gone away, 2013 lost connection during query.
+const UNREACHABLE_ERRNOS = new Set([1040, 1053, 1927, 2002, 2003, 2006, 2013]);
+
+export const DATABASE_UNAVAILABLE_MESSAGE =
+  "Forkwall cannot reach its database right now. Please try again in a minute.";
+
+/** True when `err`, or anything in its `.cause` chain, says the database cannot be reached. */
+export function isDatabaseUnreachable(err: unknown): boolean {
+  const seen = new Set<unknown>();
+  let e: unknown = err;
+  while (e && typeof e === "object" && !seen.has(e)) {
+    seen.add(e);
+    const { code, errno, fatal, message } = e as {
+      code?: unknown;
+      errno?: unknown;
+      fatal?: unknown;
+      message?: unknown;
+    };
+    if (e instanceof AppError) return e.code === "unavailable";
+    if (typeof code === "string" && UNREACHABLE_CODES.has(code)) return true;
+    if (typeof errno === "number" && UNREACHABLE_ERRNOS.has(errno)) return true;
+    // mysql2 marks errors that broke the connection itself as fatal.
+    if (fatal === true) return true;
+    if (typeof message === "string" && /closed state|Pool is closed/i.test(message)) return true;
+    // AggregateError (several addresses tried) keeps its parts in `errors`.
+    const parts = (e as { errors?: unknown }).errors;
+    if (Array.isArray(parts) && parts.some((p) => isDatabaseUnreachable(p))) return true;
+    e = (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+/** Any thrown value -> the AppError a person sees: outages become "unavailable", the rest "internal". */
+export function toAppError(err: unknown): AppError {
+  if (err instanceof AppError) return err;
+  if (isDatabaseUnreachable(err)) return new AppError("unavailable", DATABASE_UNAVAILABLE_MESSAGE);
+  return new AppError("internal", "Something went wrong on our side. Please try again.");
+}
+
+/** Turns a thrown value into the JSON error answer, and logs it (the one place errors are logged). */
+export function errorResponse(err: unknown, logger: Logger = rootLog): Response {
+  const appErr = toAppError(err);
+  if (appErr !== err) {
+    if (appErr.code === "unavailable") logger.warn({ err }, "database unreachable");
+    else logger.error({ err }, "unhandled error");
+  } else if (appErr.status >= 500) logger.warn({ err }, appErr.message);
+  else logger.debug({ code: appErr.code, status: appErr.status }, appErr.message);
+  const headers = appErr.code === "unavailable" ? { "retry-after": "30", "cache-control": "no-store" } : undefined;
+  return Response.json(errorBody(appErr), { status: appErr.status, headers });
 }

@@ -16,6 +16,8 @@ Object.assign(process.env, {
   SMTP_URL: `smtp://127.0.0.1:${testPort + 1}`,
   MAIL_FAKE_URL: `http://127.0.0.1:${testPort + 2}`,
   NEXT_DIST_DIR: ".next-test",
+  // Request lines would drown the test output; warnings and errors still show.
+  LOG_LEVEL: process.env.LOG_LEVEL ?? "warn",
 });
 loadLocalEnv();
 

@@ -9,6 +9,7 @@ import { db } from "../index";
 import { charts, editions, labs, memberships, postings, staleNotices, users } from "../schema";
 import type { Tx } from "./audit";
 import { readHangingCopies } from "./hanging-copies";
+import { log } from "@/lib/log";
 
 /**
  * Inside the transaction of a change, after the lab's live snapshots were refreshed: works out
@@ -100,7 +101,7 @@ export async function deliverPendingNotices({ labId }: { labId: number }): Promi
       await sendMail({ to: recipients.map((r) => r.email), ...mail });
       sent++;
     } catch (err) {
-      console.error("stale notice not sent; will retry", err);
+      log.warn({ err, labId, operation: "stale-notice.mail" }, "stale notice not sent; will retry");
       await db.update(staleNotices).set({ sentAt: null }).where(eq(staleNotices.id, notice.id));
     }
   }

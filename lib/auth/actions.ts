@@ -20,6 +20,7 @@ import { requestPasswordReset, resetPassword } from "./password-reset";
 import { throttledMessage } from "./throttle-policy";
 import { hashToken } from "./tokens";
 import type { z } from "zod";
+import { log } from "@/lib/log";
 
 export type SignInState = { error?: string; email?: string };
 
@@ -69,7 +70,11 @@ export async function requestPasswordResetAction(_prev: ActionState, form: FormD
       values: formValues(form),
     };
   const { email } = parsed.data;
-  after(() => requestPasswordReset({ email }).catch((err) => console.error("password reset e-mail failed", err)));
+  after(() =>
+    requestPasswordReset({ email }).catch((err) =>
+      log.error({ err, operation: "password-reset.mail" }, "password reset e-mail failed"),
+    ),
+  );
   return {
     ok: true,
     message: `If an account uses ${email}, a link to choose a new password is on its way. It works once, for one hour.`,

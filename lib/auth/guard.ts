@@ -1,7 +1,9 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { z } from "zod";
 import { findLabWithRole } from "@/db/queries/members";
 import { AppError, errorResponse, forbidden, invalidInput, notFound, unauthenticated } from "@/lib/errors";
+import { annotateLog, requestLog, withLogContext } from "@/lib/log";
 import { can, type Capability, type Role } from "@/lib/permissions";
 import { currentUser, type SessionUser } from "./session";
 
@@ -30,6 +32,7 @@ export async function requireMember(ref: LabRef, capability: Capability): Promis
   }
   // A lab the person is not in answers exactly like one that does not exist.
   if (!lab || !lab.role) throw notFound("via" in ref ? ref.what : "Lab");
+  annotateLog({ userId: user.id, labId: lab.id });
   if (!can(lab.role, capability)) throw forbidden();
   const { role, ...rest } = lab;
   return { user, lab: rest, role };
@@ -67,11 +70,18 @@ type RouteCtx<P> = { params: Promise<P> };
 /** Wraps a route handler so that any thrown AppError becomes its JSON response. */
 export function route<P = Record<string, string>>(fn: (req: Request, params: P) => Promise<Response>) {
   return async (req: Request, ctx: RouteCtx<P>): Promise<Response> => {
-    try {
-      return await fn(req, await ctx.params);
-    } catch (err) {
-      return errorResponse(err);
-    }
+    const started = performance.now();
+    const logCtx = { requestId: randomUUID(), operation: `${req.method} ${new URL(req.url).pathname}` };
+    return withLogContext(logCtx, async () => {
+      let res: Response;
+      try {
+        res = await fn(req, await ctx.params);
+      } catch (err) {
+        res = errorResponse(err, requestLog());
+      }
+      requestLog({ durationMs: Math.round(performance.now() - started) }).info({ status: res.status }, "request");
+      return res;
+    });
   };
 }
 

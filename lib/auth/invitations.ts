@@ -6,6 +6,7 @@ import { invitationMail } from "@/lib/mail/templates";
 import type { Role } from "@/lib/permissions";
 import type { Member } from "./guard";
 import { INVITATION_TTL_MS, newToken } from "./tokens";
+import { log } from "@/lib/log";
 
 export const invitationLink = (token: string) => `${env.APP_URL}/invite/${token}`;
 
@@ -29,7 +30,7 @@ async function mailInvitation(
     });
     return true;
   } catch (err) {
-    console.error("invitation e-mail failed", err);
+    log.error({ err, operation: "invitation.mail" }, "invitation e-mail failed");
     return false;
   }
 }
