@@ -16,6 +16,7 @@ const COMMANDS = {
   "db:up": { entry: "db/start.ts", args: ["up"], packages: ["server"] },
   test: { entry: "tests/run.ts", args: [], packages: ["server", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
+  "bench:stock": { entry: "tests/bench/stock-import.ts", args: [], packages: ["server"] },
 };
 
 // Debian package -> a file that proves it is installed.

@@ -1,7 +1,6 @@
 // The app's one logger: JSON lines on stdout (pino), level from LOG_LEVEL. Nothing secret is
 // written: known secret fields are censored wherever they sit, and errors are serialised without
 // the bound values of a failed query (they can hold password hashes and token hashes).
-import { AsyncLocalStorage } from "node:async_hooks";
 import pino, { type DestinationStream, type Logger } from "pino";
 import { env } from "@/lib/env";
 
@@ -83,23 +82,4 @@ export type LogContext = {
 export function logFor(ctx: LogContext, parent: Logger = log): Logger {
   const bindings = Object.fromEntries(Object.entries(ctx).filter(([, v]) => v !== undefined && v !== null));
   return parent.child(bindings);
-}
-
-// The context of the request being served, so code deep in a call (the guard that learns the
-// user and lab) can add to what the request's log lines carry.
-const requestContext = new AsyncLocalStorage<LogContext>();
-
-export function withLogContext<T>(ctx: LogContext, fn: () => Promise<T>): Promise<T> {
-  return requestContext.run(ctx, fn);
-}
-
-/** Adds fields (user id, lab id) to the current request's context; a no-op outside a request. */
-export function annotateLog(fields: LogContext): void {
-  const ctx = requestContext.getStore();
-  if (ctx) Object.assign(ctx, fields);
-}
-
-/** A logger for the current request (or the root logger outside one). */
-export function requestLog(extra: LogContext = {}): Logger {
-  return logFor({ ...requestContext.getStore(), ...extra });
 }

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import type { z } from "zod";
 import { findLabWithRole } from "@/db/queries/members";
 import { AppError, errorResponse, forbidden, invalidInput, notFound, unauthenticated } from "@/lib/errors";
-import { annotateLog, requestLog, withLogContext } from "@/lib/log";
+import { annotateLog, requestLog, withLogContext } from "@/lib/request-log";
 import { can, type Capability, type Role } from "@/lib/permissions";
 import { currentUser, type SessionUser } from "./session";
 
