@@ -39,7 +39,7 @@ let app: {
   validation: typeof import("@/lib/validation/chart");
   drizzle: typeof import("drizzle-orm");
 };
-let ids = { labId: 0, educator: 0, lead: 0, familyId: 0 };
+const ids = { labId: 0, educator: 0, lead: 0, familyId: 0 };
 
 beforeAll(async () => {
   server = local.localServer({ root, port: await freePort(), name: "db" });
