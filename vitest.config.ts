@@ -15,6 +15,12 @@ export default defineConfig({
         test: { name: "unit", environment: "node", include: ["tests/unit/**/*.test.ts"] },
       },
       {
+        // Tests that start external programs (poppler's pdftoppm/pdftotext/pdfinfo, zbarimg, a
+        // second Node process): slower, and they need the Debian tools installed.
+        resolve: { alias },
+        test: { name: "tools", environment: "node", include: ["tests/tools/**/*.test.ts"], testTimeout: 60_000 },
+      },
+      {
         resolve: { alias },
         test: {
           name: "integration",

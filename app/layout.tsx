@@ -7,6 +7,15 @@ export const metadata: Metadata = {
   title: { default: "Forkwall", template: "%s · Forkwall" },
   description:
     "Bifurcation balloon-sizing wall charts built from your cath lab's own stock, with live checks for every printed copy.",
+  manifest: "/manifest.webmanifest",
+  icons: {
+    icon: [
+      { url: "/icon.svg", type: "image/svg+xml" },
+      { url: "/icon-192.png", sizes: "192x192", type: "image/png" },
+    ],
+    apple: [{ url: "/apple-icon-180.png", sizes: "180x180" }],
+  },
+  appleWebApp: { capable: true, title: "Forkwall", statusBarStyle: "default" },
 };
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#164f5d" };

@@ -21,6 +21,7 @@ const COMMANDS = {
   "cluster:status": { entry: "db/cluster-cmd.ts", args: ["status"], packages: ["server"] },
   "test:cluster": { entry: "tests/cluster/run.ts", args: [], packages: ["server", "galera"] },
   "bench:cluster": { entry: "tests/bench/cluster.ts", args: [], packages: ["server", "galera"] },
+  "bench:stock": { entry: "tests/bench/stock-import.ts", args: [], packages: ["server"] },
 };
 
 // Debian package -> a file that proves it is installed.

@@ -1,5 +1,6 @@
 // The one error type of the app: a code, an HTTP status, a message a person can act on, and
-// optional per-field issues. Route handlers turn it into JSON through errorResponse().
+// optional per-field issues. lib/http/respond.ts turns it into JSON (and logs, once).
+
 export type ErrorCode =
   | "invalid_input"
   | "unauthenticated"
@@ -68,24 +69,60 @@ export function errorBody(err: AppError) {
   return { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
 }
 
-// A database that cannot be reached (or a cluster node without quorum, errno 1047) is an outage: 503.
-const UNAVAILABLE = new Set([
+// Client-side codes (mysql2 and Node sockets) and server error numbers that mean "no database",
+// as opposed to a query that the database refused.
+const UNREACHABLE_CODES = new Set([
   "ECONNREFUSED",
   "ECONNRESET",
   "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENETUNREACH",
+  "ENOTFOUND",
+  "EPIPE",
   "PROTOCOL_CONNECTION_LOST",
-  "ER_UNKNOWN_COM_ERROR",
+  "PROTOCOL_SEQUENCE_TIMEOUT",
+  "ER_CON_COUNT_ERROR",
+  "ER_SERVER_SHUTDOWN",
+  "ER_CONNECTION_KILLED",
+  "ER_CLIENT_INTERACTION_TIMEOUT",
 ]);
+// 1040 too many connections, 1053 shutdown in progress, 1927 connection killed,
+// 2002/2003 cannot connect, 2006 server gone away, 2013 lost connection during query.
+// 1047 is a Galera node that has lost quorum: it refuses every query until it rejoins.
+const UNREACHABLE_ERRNOS = new Set([1040, 1047, 1053, 1927, 2002, 2003, 2006, 2013]);
 
-export const OUTAGE_MESSAGE =
-  "Forkwall's database cannot be reached right now, so nothing could be checked or saved and nothing was changed. Try again in a minute; until then go by your lab's own stock list.";
+export const DATABASE_UNAVAILABLE_MESSAGE =
+  "Forkwall cannot reach its database right now, so nothing could be checked or saved and nothing was changed. Please try again in a minute.";
 
-export function isDatabaseUnavailable(err: unknown): boolean {
+/** True when `err`, or anything in its `.cause` chain, says the database cannot be reached. */
+export function isDatabaseUnreachable(err: unknown): boolean {
   const seen = new Set<unknown>();
-  for (let e: unknown = err; e && typeof e === "object" && !seen.has(e); e = (e as { cause?: unknown }).cause) {
+  let e: unknown = err;
+  while (e && typeof e === "object" && !seen.has(e)) {
     seen.add(e);
-    const { code, errno } = e as { code?: unknown; errno?: unknown };
-    if ((typeof code === "string" && UNAVAILABLE.has(code)) || errno === 1047) return true;
+    const { code, errno, fatal, message } = e as {
+      code?: unknown;
+      errno?: unknown;
+      fatal?: unknown;
+      message?: unknown;
+    };
+    if (e instanceof AppError) return e.code === "unavailable";
+    if (typeof code === "string" && UNREACHABLE_CODES.has(code)) return true;
+    if (typeof errno === "number" && UNREACHABLE_ERRNOS.has(errno)) return true;
+    // mysql2 marks errors that broke the connection itself as fatal.
+    if (fatal === true) return true;
+    if (typeof message === "string" && /closed state|Pool is closed/i.test(message)) return true;
+    // AggregateError (several addresses tried) keeps its parts in `errors`.
+    const parts = (e as { errors?: unknown }).errors;
+    if (Array.isArray(parts) && parts.some((p) => isDatabaseUnreachable(p))) return true;
+    e = (e as { cause?: unknown }).cause;
   }
   return false;
+}
+
+/** Any thrown value -> the AppError a person sees: outages become "unavailable", the rest "internal". */
+export function toAppError(err: unknown): AppError {
+  if (err instanceof AppError) return err;
+  if (isDatabaseUnreachable(err)) return new AppError("unavailable", DATABASE_UNAVAILABLE_MESSAGE);
+  return new AppError("internal", "Something went wrong on our side. Please try again.");
 }

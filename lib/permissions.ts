@@ -28,10 +28,6 @@ export function can(role: Role, capability: Capability): boolean {
   return (CAPABILITIES[capability] as readonly Role[]).includes(role);
 }
 
-export function rolesWith(capability: Capability): readonly Role[] {
-  return CAPABILITIES[capability];
-}
-
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }

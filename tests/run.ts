@@ -1,7 +1,7 @@
 // `npm test`: the same provisioning as `npm start` on a fresh test database, then lint,
-// typecheck, vitest (unit + integration on the real MariaDB), a production build, the
-// Playwright suite in Debian's chromium and the Galera cluster test (tests/cluster/run.ts;
-// `--no-cluster` skips it). Ends with one line `N passed, N failed`.
+// typecheck, prettier --check, vitest (unit, tools, integration on the real MariaDB), a
+// production build, the Playwright suite in Debian's chromium and the Galera cluster test
+// (tests/cluster/run.ts; `--no-cluster` skips it). Ends with one line `N passed, N failed`.
 import { spawn } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
@@ -17,6 +17,8 @@ Object.assign(process.env, {
   SMTP_URL: `smtp://127.0.0.1:${testPort + 1}`,
   MAIL_FAKE_URL: `http://127.0.0.1:${testPort + 2}`,
   NEXT_DIST_DIR: ".next-test",
+  // Request lines would drown the test output; warnings and errors still show.
+  LOG_LEVEL: process.env.LOG_LEVEL ?? "warn",
 });
 loadLocalEnv();
 
@@ -70,21 +72,35 @@ try {
   await check("lint (eslint)", bin("eslint"), [".", "--max-warnings=0"]);
   await check("typecheck (tsc --noEmit)", bin("tsc"), ["--noEmit"]);
 
-  say("vitest: unit and integration (real MariaDB)");
-  const vitestJson = path.join(reports, "vitest.json");
-  const vcode = await exec(bin("vitest"), [
-    "run",
-    "--reporter=default",
-    "--reporter=json",
-    `--outputFile.json=${vitestJson}`,
-  ]);
-  const v = readJson<{ numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number }>(
-    vitestJson,
-  );
-  if (v) {
-    const failed = v.numFailedTests + (vcode !== 0 && v.numFailedTests === 0 ? 1 : 0);
-    tallies.push({ name: "vitest", passed: v.numPassedTests, failed, skipped: v.numPendingTests + v.numTodoTests });
-  } else tallies.push({ name: "vitest", passed: 0, failed: 1, skipped: 0, note: "no report" });
+  await check("format (prettier --check)", bin("prettier"), ["--check", ".", "--log-level=warn"]);
+
+  // One run per vitest project, each tallied on its own line.
+  const projects = [
+    ["unit", "vitest: unit (pure code)"],
+    ["tools", "vitest: tools (poppler, zbar, node)"],
+    ["integration", "vitest: integration (real MariaDB)"],
+  ] as const;
+  for (const [project, name] of projects) {
+    say(name);
+    const vitestJson = path.join(reports, `vitest-${project}.json`);
+    const vcode = await exec(bin("vitest"), [
+      "run",
+      `--project=${project}`,
+      "--reporter=default",
+      "--reporter=json",
+      `--outputFile.json=${vitestJson}`,
+    ]);
+    const v = readJson<{
+      numPassedTests: number;
+      numFailedTests: number;
+      numPendingTests: number;
+      numTodoTests: number;
+    }>(vitestJson);
+    if (v) {
+      const failed = v.numFailedTests + (vcode !== 0 && v.numFailedTests === 0 ? 1 : 0);
+      tallies.push({ name, passed: v.numPassedTests, failed, skipped: v.numPendingTests + v.numTodoTests });
+    } else tallies.push({ name, passed: 0, failed: 1, skipped: 0, note: "no report" });
+  }
 
   if (!onlyVitest) {
     const built = await check("production build (next build)", process.execPath, [

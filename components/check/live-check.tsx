@@ -2,11 +2,18 @@
 
 import useSWR from "swr";
 import type { CheckJson } from "@/lib/editions/check-json";
+import { CheckUnavailable } from "@/components/shell/outage";
 import { CheckStatusView } from "./check-status";
+
+class CheckFailed extends Error {
+  constructor(readonly status: number) {
+    super(`check failed: ${status}`);
+  }
+}
 
 const fetchJson = async (url: string): Promise<CheckJson> => {
   const res = await fetch(url, { cache: "no-store" });
-  if (!res.ok) throw new Error(`check failed: ${res.status}`);
+  if (!res.ok) throw new CheckFailed(res.status);
   return res.json();
 };
 
@@ -17,6 +24,13 @@ export function LiveCheck({ token, initial }: { token: string; initial: CheckJso
     refreshInterval: 30_000,
     revalidateOnFocus: true,
   });
+  // With the database out, the status loaded earlier can no longer be vouched for.
+  if (error instanceof CheckFailed && error.status === 503)
+    return (
+      <div aria-live="polite">
+        <CheckUnavailable />
+      </div>
+    );
   return (
     <div aria-live="polite">
       <CheckStatusView check={data ?? initial} />

@@ -4,7 +4,6 @@ import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
 import { after } from "next/server";
 import { env } from "@/lib/env";
-import { logger } from "@/lib/log";
 import { AppError } from "@/lib/errors";
 import {
   acceptAsMemberSchema,
@@ -23,6 +22,7 @@ import { sessionCaller } from "@/lib/ops/caller";
 import { signIn, signOut } from "./config";
 import { throttledMessage } from "./throttle-policy";
 import type { z } from "zod";
+import { log } from "@/lib/log";
 
 export type SignInState = { error?: string; email?: string };
 
@@ -72,7 +72,11 @@ export async function requestPasswordResetAction(_prev: ActionState, form: FormD
       values: formValues(form),
     };
   const { email } = parsed.data;
-  after(() => requestPasswordReset({ email }).catch((err) => logger.error({ err }, "password reset e-mail failed")));
+  after(() =>
+    requestPasswordReset({ email }).catch((err) =>
+      log.error({ err, operation: "password-reset.mail" }, "password reset e-mail failed"),
+    ),
+  );
   return {
     ok: true,
     message: `If an account uses ${email}, a link to choose a new password is on its way. It works once, for one hour.`,

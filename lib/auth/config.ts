@@ -5,6 +5,7 @@ import { env } from "@/lib/env";
 import { PASSWORD_MAX } from "./password";
 import { verifySignIn } from "./sign-in";
 import { clientAddress } from "./throttle-policy";
+import { log } from "@/lib/log";
 
 const credentials = z.object({
   email: z.email().max(254),
@@ -25,7 +26,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   logger: {
     error(error) {
       if (error instanceof CredentialsSignin || (error as { type?: string }).type === "CredentialsSignin") return;
-      console.error(error);
+      log.error({ err: error }, "auth error");
     },
   },
   providers: [

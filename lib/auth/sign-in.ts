@@ -39,6 +39,8 @@ export async function verifySignIn(input: {
   password: string;
   ip: string;
   throttle?: SignInThrottle;
+  /** How the slow-down waits; tests pass one that records instead of sleeping. */
+  sleep?: (ms: number) => Promise<void>;
 }): Promise<SignInResult> {
   const throttle = input.throttle ?? signInThrottle();
   const email = input.email.trim().toLowerCase();
@@ -50,7 +52,7 @@ export async function verifySignIn(input: {
     await recordAudit({ labId: null, actorUserId: null, action: "signin.refused", ...target, detail: { email, ip } });
     return { ok: false, reason: "throttled", retryAfterMs: verdict.retryAfterMs };
   }
-  if (verdict.delayMs > 0) await sleep(verdict.delayMs);
+  if (verdict.delayMs > 0) await (input.sleep ?? sleep)(verdict.delayMs);
   const matches = await verifyPassword(input.password, user?.passwordHash ?? NO_ACCOUNT_HASH);
   if (!user || !matches) {
     await throttle.recordFailure({ email, ip });

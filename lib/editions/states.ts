@@ -12,10 +12,3 @@ const NEXT: Record<EditionStatus, readonly EditionStatus[]> = {
 export function canTransition(from: EditionStatus, to: EditionStatus): boolean {
   return NEXT[from].includes(to);
 }
-
-export const STATUS_LABELS: Record<EditionStatus, string> = {
-  draft: "Draft",
-  approved: "Approved",
-  superseded: "Superseded",
-  withdrawn: "Withdrawn",
-};

@@ -1,6 +1,6 @@
 import "server-only";
 import { sessionCaller, type Caller } from "@/lib/ops/caller";
-import { logger } from "@/lib/log";
+import { log } from "@/lib/log";
 import { toAppError } from "./respond";
 
 /** What every server action returns: field errors and the values entered, so nothing is lost. */
@@ -39,7 +39,7 @@ export async function runAction(
   } catch (err) {
     const known = toAppError(err);
     if (!known) throw err;
-    if (known.status >= 500) logger.error({ err }, known.message);
+    if (known.status >= 500) log.error({ err }, known.message);
     const fieldErrors = known.issues
       ? Object.fromEntries(known.issues.map((i) => [i.path.join(".") || "_", i.message]))
       : undefined;

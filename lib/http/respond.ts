@@ -1,26 +1,21 @@
 import "server-only";
-import { AppError, errorBody, isDatabaseUnavailable, OUTAGE_MESSAGE } from "@/lib/errors";
-import { logger } from "@/lib/log";
+import { AppError, errorBody, toAppError as asAppError } from "@/lib/errors";
+import { log, type Logger } from "@/lib/log";
 
-/** The error as the app's own type, or null for an unexpected one. */
+/** The error as the app's own type (an outage becomes "unavailable"), or null for an unexpected one. */
 export function toAppError(err: unknown): AppError | null {
-  if (err instanceof AppError) return err;
-  if (isDatabaseUnavailable(err)) return new AppError("unavailable", OUTAGE_MESSAGE);
-  return null;
+  const known = asAppError(err);
+  return known.code === "internal" && !(err instanceof AppError) ? null : known;
 }
 
 /** Turns any error into the JSON answer; the one place where failures are logged. */
-export function errorResponse(err: unknown, context: Record<string, unknown> = {}): Response {
-  const known = toAppError(err);
-  if (known) {
-    if (known.status >= 500) logger.error({ err, ...context }, known.message);
-    const headers: Record<string, string> =
-      known.status === 503 ? { "cache-control": "no-store", "retry-after": "30" } : {};
-    return Response.json(errorBody(known), { status: known.status, headers });
-  }
-  logger.error({ err, ...context }, "unexpected error");
-  return Response.json(
-    { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
-    { status: 500 },
-  );
+export function errorResponse(err: unknown, context: Record<string, unknown> = {}, logger: Logger = log): Response {
+  const known = toAppError(err) ?? asAppError(err);
+  if (known.code === "unavailable") logger.warn({ err, ...context }, "database unreachable");
+  else if (known !== err) logger.error({ err, ...context }, "unexpected error");
+  else if (known.status >= 500) logger.warn({ err, ...context }, known.message);
+  else logger.debug({ code: known.code, status: known.status, ...context }, known.message);
+  const headers: Record<string, string> =
+    known.status === 503 ? { "cache-control": "no-store", "retry-after": "30" } : {};
+  return Response.json(errorBody(known), { status: known.status, headers });
 }

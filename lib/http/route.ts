@@ -1,6 +1,7 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import { AppError } from "@/lib/errors";
+import { requestLog, withLogContext } from "@/lib/request-log";
 import { errorResponse } from "./respond";
 import { ANONYMOUS, sessionCaller, type Caller } from "@/lib/ops/caller";
 
@@ -41,21 +42,26 @@ export function api<P = Record<string, string>>(
   opts: { status?: number; public?: boolean } = {},
 ) {
   return async (req: Request, ctx: { params: Promise<P> }): Promise<Response> => {
-    const requestId = randomUUID();
-    try {
-      const params = await ctx.params;
-      const result = await fn({
-        req,
-        params,
-        // Public routes never read the session: they answer the same to everyone.
-        caller: opts.public ? ANONYMOUS : await sessionCaller(),
-        body: (o) => readJson(req, o),
-        query: () => Object.fromEntries(new URL(req.url).searchParams),
-      });
-      if (result instanceof Response) return result;
-      return Response.json(result, { status: opts.status ?? 200 });
-    } catch (err) {
-      return errorResponse(err, { requestId, method: req.method, path: new URL(req.url).pathname });
-    }
+    const started = performance.now();
+    const logCtx = { requestId: randomUUID(), operation: `${req.method} ${new URL(req.url).pathname}` };
+    return withLogContext(logCtx, async () => {
+      let res: Response;
+      try {
+        const params = await ctx.params;
+        const result = await fn({
+          req,
+          params,
+          // Public routes never read the session: they answer the same to everyone.
+          caller: opts.public ? ANONYMOUS : await sessionCaller(),
+          body: (o) => readJson(req, o),
+          query: () => Object.fromEntries(new URL(req.url).searchParams),
+        });
+        res = result instanceof Response ? result : Response.json(result, { status: opts.status ?? 200 });
+      } catch (err) {
+        res = errorResponse(err, {}, requestLog());
+      }
+      requestLog({ durationMs: Math.round(performance.now() - started) }).info({ status: res.status }, "request");
+      return res;
+    });
   };
 }

@@ -4,7 +4,7 @@ import * as invitations from "@/db/queries/invitations";
 import * as members from "@/db/queries/members";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
-import { logger } from "@/lib/log";
+import { log } from "@/lib/log";
 import { sendMail } from "@/lib/mail/send";
 import { invitationMail } from "@/lib/mail/templates";
 import type { Role } from "@/lib/permissions";
@@ -24,7 +24,7 @@ async function mailInvitation(member: Member, to: string, role: Role, token: str
     });
     return true;
   } catch (err) {
-    logger.warn({ err, labId: member.lab.id }, "invitation e-mail failed");
+    log.warn({ err, labId: member.lab.id }, "invitation e-mail failed");
     return false;
   }
 }

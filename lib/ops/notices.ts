@@ -1,7 +1,7 @@
 import "server-only";
 import { claimNotice, listPendingNotices, releaseNotice } from "@/db/queries/notices";
 import { env } from "@/lib/env";
-import { logger } from "@/lib/log";
+import { log } from "@/lib/log";
 import { sendMail } from "@/lib/mail/send";
 import { staleNoticeMail } from "@/lib/mail/templates/stale-notice";
 
@@ -18,7 +18,7 @@ export async function deliverPendingNotices({ labId }: { labId: number }): Promi
       await sendMail({ to: recipients.map((r) => r.email), ...staleNoticeMail(notice.detail, env.APP_URL) });
       sent++;
     } catch (err) {
-      logger.warn({ err, labId, notice: notice.id }, "stale notice not sent; will retry");
+      log.warn({ err, labId, notice: notice.id }, "stale notice not sent; will retry");
       await releaseNotice({ id: notice.id });
     }
   }

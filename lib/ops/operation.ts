@@ -1,7 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import { invalidInput, notFound } from "@/lib/errors";
-import { logger } from "@/lib/log";
+import { annotateLog, requestLog } from "@/lib/request-log";
 import type { Capability } from "@/lib/permissions";
 import { BAD_ID, idSchema } from "@/lib/validation/id";
 import { authorize, type LabRef, type Member } from "./access";
@@ -34,8 +34,9 @@ function parseId(raw: unknown, what: string): number {
 /** Times an operation and logs its outcome once; the caller's error handling logs failures. */
 export async function traced<R>(name: string, fields: Record<string, unknown>, fn: () => Promise<R>): Promise<R> {
   const started = performance.now();
+  annotateLog({ ...fields, operation: name });
   const result = await fn();
-  logger.debug({ op: name, ...fields, ms: Math.round(performance.now() - started) }, "operation done");
+  requestLog({ durationMs: Math.round(performance.now() - started) }).debug({ op: name }, "operation done");
   return result;
 }
 

@@ -4,7 +4,7 @@ import type { Snapshot } from "@/lib/charts/snapshot";
 import { LAWS } from "@/lib/sizing";
 import { gridSubtitle, lookupTitle, statusBanner, shortUrl } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
-import { layoutPoster, type LayoutInput, type PosterLayout } from "./layout";
+import type { LayoutInput } from "./layout";
 import { posterLegibility, type Legibility } from "./legibility";
 import { legendEntries, type LegendEntry } from "./marks";
 
@@ -49,10 +49,6 @@ export function layoutInputFor(
     banner: statusBanner(edition.status) !== null,
     logo: hasLogo,
   };
-}
-
-export function snapshotLayout(snapshot: Snapshot, edition?: EditionLike): PosterLayout {
-  return layoutPoster(layoutInputFor(snapshot, edition));
 }
 
 /** Whether the chart's figures can be read at its stated reading distance, with advice if not. */

@@ -88,7 +88,6 @@ export const chartDefinitionSchema = z
   .strict();
 
 export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
-export type LookupDefinition = z.infer<typeof lookupSchema>;
 
 /** PATCH accepts any subset of the definition; the merged result is validated whole. */
 export const chartPatchSchema = chartDefinitionSchema.partial().strict();

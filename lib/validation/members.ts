@@ -12,7 +12,6 @@ export const emailField = z
 export const roleField = z.enum(ROLES, { error: `Choose a role: ${ROLES.join(", ")}.` });
 
 export const inviteSchema = z.object({ email: emailField, role: roleField });
-export type InviteInput = z.infer<typeof inviteSchema>;
 
 export const changeRoleSchema = z.object({ role: roleField });
 

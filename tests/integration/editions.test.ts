@@ -83,11 +83,19 @@ const setInStock = async (diameterMm: number, inStock: boolean) => {
   });
 };
 
-describe("editions", () => {
-  let chartId = 0;
+// Each test makes what it needs, so any one of them can run alone or in any order.
+const newChart = async () => (await createChart({ labId, userId: people.educator.id, definition: definition() })).id;
 
+async function approvedEdition() {
+  const chartId = await newChart();
+  const ed = await createEdition({ labId, chartId, actor: people.educator });
+  await approveEdition({ labId, editionId: ed.id, actor: people.lead });
+  return ed;
+}
+
+describe("editions", () => {
   it("freezes the chart into a numbered draft whose fingerprint is the SHA-256 of its canonical snapshot", async () => {
-    chartId = (await createChart({ labId, userId: people.educator.id, definition: definition() })).id;
+    const chartId = await newChart();
     const ed = await createEdition({ labId, chartId, actor: people.educator });
     expect(ed.number).toBe(1);
     const row = await getEdition({ labId, editionId: ed.id });
@@ -98,6 +106,7 @@ describe("editions", () => {
   });
 
   it("four eyes: the author cannot approve; a lead can, and the previous approved edition is superseded", async () => {
+    const chartId = await newChart();
     const first = await createEdition({ labId, chartId, actor: people.educator });
     await expectAppError(approveEdition({ labId, editionId: first.id, actor: people.educator }), 403, /someone else/);
     await approveEdition({ labId, editionId: first.id, actor: people.lead });
@@ -109,6 +118,7 @@ describe("editions", () => {
   });
 
   it("refuses to approve a draft that no longer matches the stock, naming the change", async () => {
+    const chartId = await newChart();
     const draft = await createEdition({ labId, chartId, actor: people.educator });
     await setInStock(3.75, false);
     await expectAppError(
@@ -121,6 +131,7 @@ describe("editions", () => {
   });
 
   it("rejects back to draft with a reason, and withdraws; status only moves forward", async () => {
+    const chartId = await newChart();
     const draft = await createEdition({ labId, chartId, actor: people.educator });
     await rejectEdition({ labId, editionId: draft.id, actor: people.lead, reason: "Side-branch columns too narrow" });
     const rejected = await getEdition({ labId, editionId: draft.id });
@@ -130,11 +141,9 @@ describe("editions", () => {
   });
 
   it("the database itself refuses to change an approved edition's content, status backwards, or to delete it", async () => {
-    const [approved] = await db
-      .select()
-      .from(editions)
-      .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
-    expect(approved).toBeDefined();
+    const { id } = await approvedEdition();
+    const [approved] = await db.select().from(editions).where(eq(editions.id, id));
+    expect(approved).toMatchObject({ status: "approved" });
     const attempts = [
       sql`UPDATE editions SET fingerprint = REPEAT('0', 64) WHERE id = ${approved!.id}`,
       sql`UPDATE editions SET snapshot = '{}' WHERE id = ${approved!.id}`,
@@ -161,7 +170,7 @@ describe("editions", () => {
       .insert(labs)
       .values({ slug: `other-${tag}`, name: "Other lab" })
       .$returningId();
-    const [anyEd] = await db.select({ id: editions.id }).from(editions).where(eq(editions.labId, labId)).limit(1);
+    const anyEd = await approvedEdition();
     expect(await getEdition({ labId: other!.id, editionId: anyEd!.id })).toBeNull();
     await expectAppError(approveEdition({ labId: other!.id, editionId: anyEd!.id, actor: people.lead }), 404);
   });

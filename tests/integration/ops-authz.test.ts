@@ -14,7 +14,7 @@ import * as postings from "@/lib/ops/postings";
 import * as renders from "@/lib/ops/renders";
 import * as stock from "@/lib/ops/stock";
 import type { Caller } from "@/lib/ops/caller";
-import { ROLES, rolesWith, type Capability } from "@/lib/permissions";
+import { can, ROLES, type Capability } from "@/lib/permissions";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
 import { createChart, createEdition } from "./support/writes";
@@ -87,7 +87,7 @@ describe("the operations layer refuses by itself", () => {
       const tries: { caller: Caller; status: number }[] = [
         { caller: { kind: "anonymous" }, status: 401 },
         { caller: callerOf(team.people.outsider), status: 404 },
-        ...ROLES.filter((r) => !rolesWith(op.capability).includes(r)).map((r) => ({
+        ...ROLES.filter((r) => !can(r, op.capability)).map((r) => ({
           caller: callerOf(team.people[r]),
           status: 403,
         })),

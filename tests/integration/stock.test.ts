@@ -421,27 +421,20 @@ describe("CSV import", () => {
     expect(again).toMatchObject({ applied: false, summary: "no changes" });
   });
 
-  it("imports 5,000 rows in one go (timed)", async () => {
+  // How long this takes is measured by `npm run bench:stock` (tests/bench/stock-import.ts).
+  it("imports a file of the 5,000-row limit whole", async () => {
     const lines = ["family,compliance,diameter_mm,in_stock,nominal_atm,rbp_atm"];
     for (let f = 0; f < 50; f++)
       for (let i = 0; i < 100; i++)
         lines.push(
           `Bulk ${String(f).padStart(2, "0")} (illustrative),nc,${(1 + i * 0.05).toFixed(2)},${i % 7 ? "yes" : "no"},12,20`,
         );
-    const t0 = performance.now();
     const rows = rowsOf(lines.join("\n"));
-    const t1 = performance.now();
     const preview = await importBalloons({ ...actor(), rows, dryRun: true });
-    const t2 = performance.now();
     const result = await importBalloons({ ...actor(), rows, dryRun: false, expectRevision: preview.revision });
-    const t3 = performance.now();
-    console.log(
-      `5,000-row import: parse ${Math.round(t1 - t0)} ms, dry run ${Math.round(t2 - t1)} ms, apply ${Math.round(t3 - t2)} ms`,
-    );
     expect(result.plan.balloonsToAdd).toHaveLength(5000);
     expect(
       (await getStock({ labId })).balloonFamilies.filter((f) => f.name.startsWith("Bulk")).flatMap((f) => f.balloons),
     ).toHaveLength(5000);
-    expect(t3 - t0).toBeLessThan(20_000);
   }, 60_000);
 });

@@ -1,0 +1,25 @@
+// Pages answer 503 with a readable outage page while the database cannot be reached. An error
+// boundary cannot set a status (and a rewrite's status is not kept), so the check happens here,
+// before rendering: a probe of the database, and on failure the outage page itself. Route
+// handlers under /api answer their own 503 JSON (lib/errors.ts); the calculator needs no database.
+import { NextResponse, type NextRequest } from "next/server";
+import { databaseReachable } from "@/db/health";
+import { env } from "@/lib/env";
+import { outageHtml } from "@/lib/outage-page";
+
+export async function proxy(req: NextRequest) {
+  if (await databaseReachable(env.DATABASE_URL)) return NextResponse.next();
+  const { pathname } = req.nextUrl;
+  const kind = pathname.startsWith("/v/") || pathname.startsWith("/c/") ? "check" : "page";
+  return new NextResponse(outageHtml(kind), {
+    status: 503,
+    headers: { "content-type": "text/html; charset=utf-8", "retry-after": "30", "cache-control": "no-store" },
+  });
+}
+
+export const config = {
+  // Every page except the static files, the API and the calculator.
+  matcher: [
+    "/((?!api/|_next/|calculator|icon|apple-icon|manifest|robots\\.txt|favicon\\.ico|.*\\.(?:svg|png|ico|webmanifest|txt)$).*)",
+  ],
+};
