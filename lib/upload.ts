@@ -1,4 +1,5 @@
 // Reads one file from a multipart request without ever holding more than the limit in memory.
+import { z } from "zod";
 import { AppError } from "@/lib/errors";
 
 // Room for the multipart boundaries and part headers around a file at the limit.
@@ -66,4 +67,19 @@ export async function readUploadedFile(
   }
   if (file.size > maxBytes) throw tooLarge(file.size);
   return { name: file.name.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
+}
+
+/**
+ * An uploaded file as operation input: the file itself, or a reader that the operation calls only
+ * after it has checked the caller's role (so a refused request never uploads anything).
+ */
+export type FileInput = UploadedFile | (() => Promise<UploadedFile>);
+
+const isUploaded = (v: unknown): v is UploadedFile =>
+  v !== null && typeof v === "object" && "bytes" in v && (v as UploadedFile).bytes instanceof Uint8Array;
+
+export const fileInput = (what: string) => z.custom<FileInput>((v) => typeof v === "function" || isUploaded(v), what);
+
+export async function readFileInput(file: FileInput): Promise<UploadedFile> {
+  return typeof file === "function" ? file() : file;
 }

@@ -5,7 +5,7 @@ import { listEditions } from "@/db/queries/editions";
 import { mergePatch } from "@/lib/charts/merge-patch";
 import { notFound } from "@/lib/errors";
 import { checkLogo } from "@/lib/logo";
-import type { UploadedFile } from "@/lib/upload";
+import { fileInput, readFileInput } from "@/lib/upload";
 import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart";
 import { labOperation, parseInput } from "./operation";
 import { labWrite } from "./write";
@@ -79,18 +79,14 @@ export const getChartLogo = labOperation({
   },
 });
 
-const fileSchema = z.custom<UploadedFile>(
-  (v) => v !== null && typeof v === "object" && "bytes" in v,
-  "Choose a PNG or JPEG file.",
-);
-
 /** A PNG or JPEG of at most 1 MB, checked from its bytes before it is stored. */
 export const setChartLogo = labOperation({
   name: "chart.logo.set",
   capability: "chart:design",
   scope: "chart",
-  input: z.object({ file: fileSchema }),
-  run: async ({ labId, actor, ids }, { file }) => {
+  input: z.object({ file: fileInput("Choose a PNG or JPEG file.") }),
+  run: async ({ labId, actor, ids }, { file: upload }) => {
+    const file = await readFileInput(upload);
     const checked = await checkLogo(file.bytes);
     const logo = { bytes: Buffer.from(file.bytes), mime: checked.mime, sha256: checked.sha256 };
     const { logoId } = await labWrite(labId, (tx) =>

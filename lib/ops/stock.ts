@@ -4,8 +4,7 @@ import * as q from "@/db/queries/stock";
 import { csvIssuesError, parseBalloonCsv } from "@/lib/stock/csv";
 import { CSV_TOO_LARGE_HINT, decodeImportFile } from "@/lib/stock/file";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
-import type { UploadedFile } from "@/lib/upload";
-import { payloadTooLarge } from "@/lib/upload";
+import { fileInput, payloadTooLarge, readFileInput } from "@/lib/upload";
 import {
   balloonFamilyInput,
   balloonFamilyPatch,
@@ -150,10 +149,9 @@ export const importBalloonCsv = labOperation({
   name: "stock.import",
   capability: "stock:edit",
   scope: "lab",
-  input: importQuery.extend({
-    file: z.custom<UploadedFile>((v) => v !== null && typeof v === "object" && "bytes" in v, "Choose a CSV file."),
-  }),
-  run: async ({ labId, actor }, { file, ...query }) => {
+  input: importQuery.extend({ file: fileInput("Choose a CSV file.") }),
+  run: async ({ labId, actor }, { file: upload, ...query }) => {
+    const file = await readFileInput(upload);
     if (file.bytes.byteLength > MAX_IMPORT_BYTES)
       throw payloadTooLarge(file.bytes.byteLength, MAX_IMPORT_BYTES, CSV_TOO_LARGE_HINT);
     const parsed = parseBalloonCsv(await decodeImportFile(file.bytes));

@@ -14,7 +14,7 @@ export const GET = api<Params>(async ({ caller, params }) => {
 
 /** PUT multipart `file`: a PNG or JPEG of at most 1 MB, checked from its bytes. */
 export const PUT = api<Params>(async ({ req, caller, params }) => {
-  const file = await readUploadedFile(req, { maxBytes: LOGO_MAX_BYTES, tooLargeHint: "Use a smaller PNG or JPEG." });
+  const file = () => readUploadedFile(req, { maxBytes: LOGO_MAX_BYTES, tooLargeHint: "Use a smaller PNG or JPEG." });
   return setChartLogo(caller, { chartId: params.id }, { file });
 });
 

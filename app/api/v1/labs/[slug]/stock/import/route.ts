@@ -5,13 +5,13 @@ import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 import { readUploadedFile } from "@/lib/upload";
 
 /** POST multipart `file` (balloon CSV); ?dryRun=1 previews, otherwise applies; ?revision=n refuses if stock changed since the preview. */
-export const POST = api<{ slug: string }>(async ({ req, caller, params, query }) =>
+export const POST = api<{ slug: string }>(({ req, caller, params, query }) =>
   importBalloonCsv(
     caller,
     { lab: params.slug },
     {
       ...query(),
-      file: await readUploadedFile(req, { maxBytes: MAX_IMPORT_BYTES, tooLargeHint: CSV_TOO_LARGE_HINT }),
+      file: () => readUploadedFile(req, { maxBytes: MAX_IMPORT_BYTES, tooLargeHint: CSV_TOO_LARGE_HINT }),
     },
   ),
 );
