@@ -6,6 +6,7 @@ import { db } from "../index";
 import { labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { lockLab } from "./lab-lock";
+import { bumpSessionVersion } from "./sessions";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -144,6 +145,7 @@ export async function removeMember({
     const member = await memberInLab(tx, labId, membershipId);
     if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
     await tx.delete(memberships).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+    await bumpSessionVersion({ tx, userId: member.userId });
     await recordAudit({
       tx,
       labId,

@@ -1,10 +1,11 @@
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import { z } from "zod";
+import { signOutEverywhere } from "@/db/queries/sessions";
 import { env } from "@/lib/env";
 import { PASSWORD_MAX } from "./password";
 import { verifySignIn } from "./sign-in";
-import { clientAddress } from "./throttle-policy";
+import { addressOf } from "./request-address";
 
 const credentials = z.object({
   email: z.email().max(254),
@@ -34,23 +35,40 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       async authorize(raw, request) {
         const parsed = credentials.safeParse(raw);
         if (!parsed.success) return null;
-        const result = await verifySignIn({ ...parsed.data, ip: clientAddress(request.headers) });
+        const result = await verifySignIn({ ...parsed.data, ip: addressOf(request.headers) });
         if (!result.ok) {
           if (result.reason === "throttled") throw new ThrottledSignin();
           return null;
         }
-        return { id: String(result.user.id), email: result.user.email, name: result.user.name };
+        return {
+          id: String(result.user.id),
+          email: result.user.email,
+          name: result.user.name,
+          sessionVersion: result.user.sessionVersion,
+        };
       },
     }),
   ],
+  events: {
+    // Any sign-out (the page's button or next-auth's own endpoint) ends every session of the
+    // person: a copied cookie stops working too.
+    async signOut(message) {
+      const id = Number("token" in message ? message.token?.sub : undefined);
+      if (Number.isSafeInteger(id) && id > 0) await signOutEverywhere({ userId: id });
+    },
+  },
   callbacks: {
     jwt({ token, user }) {
-      if (user?.id) token.sub = user.id;
+      if (user?.id) {
+        token.sub = user.id;
+        token.sv = (user as { sessionVersion?: number }).sessionVersion ?? 0;
+      }
       return token;
     },
     session({ session, token }) {
       if (token.sub) session.user.id = token.sub;
-      return session;
+      // Compared with users.session_version on every request (lib/auth/session.ts).
+      return Object.assign(session, { sessionVersion: typeof token.sv === "number" ? token.sv : 0 });
     },
   },
 });
