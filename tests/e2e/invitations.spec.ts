@@ -51,7 +51,7 @@ test("a manager invites an operator by e-mail; the invitee joins and sees only w
   await expect(
     guest
       .getByRole("status")
-      .filter({ hasText: "Your account is ready and you have joined Demo Heart Centre Cath Lab" }),
+      .filter({ hasText: "Your account is ready and you have joined the lab" }),
   ).toBeVisible();
   await expect(guest.getByLabel("E-mail")).toHaveValue(invitee);
   await guest.getByLabel("Password", { exact: true }).fill("a long enough phrase");
