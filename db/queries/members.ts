@@ -44,7 +44,9 @@ export async function findLabWithRole({ userId, ...lab }: { userId: number } & (
     .from(labs)
     .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
     .where("slug" in lab ? eq(labs.slug, lab.slug) : eq(labs.id, lab.labId));
-  return row ? { ...row, role: (row.role ?? null) as Role | null } : null;
+  // The column's collation folds case and pads; a slug names a lab only when it is exactly its slug.
+  if (!row || ("slug" in lab && row.slug !== lab.slug)) return null;
+  return { ...row, role: (row.role ?? null) as Role | null };
 }
 
 export type MemberRow = Awaited<ReturnType<typeof listMembers>>[number];
