@@ -31,6 +31,8 @@ const schema = z
     SIGNIN_MAX_FAILS_PER_ACCOUNT: z.coerce.number().int().min(1).max(1000).default(5),
     SIGNIN_MAX_FAILS_PER_IP: z.coerce.number().int().min(1).max(100000).default(30),
     SIGNIN_THROTTLE_SECONDS: z.coerce.number().int().min(1).max(86400).default(900),
+    // Requests a minute each client address may make to each public endpoint (solve, check).
+    PUBLIC_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1_000_000).default(120),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .transform((e) => ({

@@ -69,7 +69,11 @@ export function errorBody(err: AppError) {
 }
 
 export function errorResponse(err: unknown): Response {
-  if (err instanceof AppError) return Response.json(errorBody(err), { status: err.status });
+  if (err instanceof AppError) {
+    const retry = (err as { retryAfterSeconds?: unknown }).retryAfterSeconds;
+    const headers = typeof retry === "number" ? { "retry-after": String(retry) } : undefined;
+    return Response.json(errorBody(err), { status: err.status, headers });
+  }
   console.error(err);
   return Response.json(
     { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },

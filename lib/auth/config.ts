@@ -3,6 +3,7 @@ import Credentials from "next-auth/providers/credentials";
 import { z } from "zod";
 import { signOutEverywhere } from "@/db/queries/sessions";
 import { env } from "@/lib/env";
+import { secureCookies } from "./cookies";
 import { PASSWORD_MAX } from "./password";
 import { verifySignIn } from "./sign-in";
 import { addressOf } from "./request-address";
@@ -19,6 +20,9 @@ export class ThrottledSignin extends CredentialsSignin {
 // Sessions are signed JWT cookies (AUTH_SECRET from .env.local), so they survive a restart.
 export const { handlers, auth, signIn, signOut } = NextAuth({
   trustHost: true,
+  // Secure (and __Secure-/__Host- prefixed) cookies whenever the app is served over https,
+  // whatever protocol a proxy reports on a given request.
+  useSecureCookies: secureCookies(env.APP_URL),
   secret: env.AUTH_SECRET,
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
   pages: { signIn: "/sign-in" },

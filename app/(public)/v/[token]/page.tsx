@@ -7,6 +7,8 @@ import { Caution } from "@/components/ui/caution";
 import { getCheckByToken } from "@/db/queries/check";
 import { findLabWithRole } from "@/db/queries/members";
 import { listPostingsForEdition, listRooms } from "@/db/queries/rooms";
+import { limitPublic, RateLimitedError } from "@/lib/auth/public-limit";
+import { requestAddress } from "@/lib/auth/request-address";
 import { currentUser } from "@/lib/auth/session";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { checkJson } from "@/lib/editions/check-json";
@@ -20,6 +22,17 @@ export const metadata = { title: "Is this printout current?", robots: { index: f
 export default async function CheckPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   if (!checkTokenSchema.safeParse(token).success) notFound();
+  const limited = await limitPublic("check", await requestAddress()).then(
+    () => null,
+    (e: unknown) => (e instanceof RateLimitedError ? e : Promise.reject(e)),
+  );
+  if (limited)
+    return (
+      <div className="mx-auto max-w-xl" role="alert">
+        <h1 className="text-xl font-bold">This printout cannot be verified right now</h1>
+        <p className="mt-2">{limited.message} Until it is verified, do not rely on its numbers.</p>
+      </div>
+    );
   const view = await getCheckByToken({ token });
   if (!view) notFound();
   const user = await currentUser();

@@ -1,10 +1,13 @@
 import { route } from "@/lib/auth/guard";
+import { limitPublic } from "@/lib/auth/public-limit";
+import { addressOf } from "@/lib/auth/request-address";
 import { AppError, invalidInput } from "@/lib/errors";
 import { lawFormula, solve } from "@/lib/sizing";
 import { parseSolveQuery, queryRecord } from "@/lib/validation/solve";
 
 // Public: it holds no lab data.
 export const GET = route(async (req) => {
+  await limitPublic("solve", addressOf(req.headers));
   const parsed = parseSolveQuery(queryRecord(new URL(req.url).searchParams));
   if (!parsed.success) throw invalidInput(parsed.issues);
   const { spec, known } = parsed.data;
