@@ -16,7 +16,16 @@ const app = next({ dev, hostname, port, dir: import.meta.dirname });
 const handle = app.getRequestHandler();
 await app.prepare();
 
+// Methods the app answers; anything else (TRACE reflects requests back, TRACK, WebDAV verbs)
+// is refused here with 405, before Next, which answers TRACE on route handlers with a 500.
+const METHODS = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
+
 const server = createServer((req, res) => {
+  if (!METHODS.includes(req.method ?? "")) {
+    res.writeHead(405, { allow: METHODS.join(", "), "content-type": "application/json" });
+    res.end(JSON.stringify({ error: { code: "method_not_allowed", message: `${req.method} is not supported.` } }));
+    return;
+  }
   req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";
   void handle(req, res);
 });
