@@ -5,7 +5,11 @@
 // from the right of [...X-Forwarded-For, socket address].
 export const PEER_HEADER = "x-forkwall-peer";
 
-const normalise = (ip: string) => ip.trim().replace(/^::ffff:/, "").slice(0, 64);
+const normalise = (ip: string) =>
+  ip
+    .trim()
+    .replace(/^::ffff:/, "")
+    .slice(0, 64);
 
 /** The TCP peer's address as server.mjs recorded it; null when the request did not come through it. */
 export function socketAddress(headers: Headers): string | null {
