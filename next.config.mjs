@@ -32,6 +32,12 @@ const nextConfig = {
           { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=()" },
         ],
       },
+      // JSON answers can hold a lab's data: no shared or browser cache keeps them. A handler that
+      // sets its own Cache-Control (logos, poster PDFs) keeps it.
+      ...["/api/v1/:path*", "/api/auth/session"].map((source) => ({
+        source,
+        headers: [{ key: "Cache-Control", value: "private, no-store" }],
+      })),
     ];
   },
 };

@@ -32,7 +32,11 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
+    // server.mjs: Next behind a Node server that records the socket's address. The browser
+    // tests stand in for a proxy (each signs in "from" its own X-Forwarded-For address), so one
+    // hop is trusted here; lib/http/client-address.ts's unit tests cover TRUST_PROXY=0.
+    command: `node server.mjs`,
+    env: { HOST: "127.0.0.1", PORT: String(port), TRUST_PROXY: process.env.TRUST_PROXY ?? "1" },
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,

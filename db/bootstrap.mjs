@@ -14,6 +14,8 @@ const COMMANDS = {
   dev: { entry: "db/start.ts", args: ["dev"], packages: ["server"] },
   "db:stop": { entry: "db/start.ts", args: ["stop"], packages: [] },
   "db:up": { entry: "db/start.ts", args: ["up"], packages: ["server"] },
+  "db:backup": { entry: "db/backup.ts", args: ["backup"], packages: ["server"] },
+  "db:restore": { entry: "db/backup.ts", args: ["restore"], packages: ["server"] },
   test: { entry: "tests/run.ts", args: [], packages: ["server", "galera", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
   "cluster:up": { entry: "db/cluster-cmd.ts", args: ["up"], packages: ["server", "galera"] },

@@ -47,6 +47,9 @@ export const users = mysqlTable("users", {
   email: varchar("email", { length: 254 }).notNull().unique(),
   name: varchar("name", { length: 120 }).notNull(),
   passwordHash: varchar("password_hash", { length: 100 }).notNull(),
+  // Signed session cookies carry the version they were issued under; a password reset, a
+  // sign-out, or removal from a lab bumps it, and every request compares (lib/auth/session.ts).
+  sessionVersion: int("session_version").notNull().default(0),
   createdAt: createdAt(),
 });
 

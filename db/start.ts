@@ -54,18 +54,18 @@ try {
   await provision(env, { log: say });
   if (env.MAIL_FAKE_URL) {
     const { startFakeMail, fakeMailPorts } = await import("@/lib/mail/fake-server");
-    mail = await startFakeMail(fakeMailPorts(env.SMTP_URL, env.MAIL_FAKE_URL));
+    mail = await startFakeMail(fakeMailPorts(env.SMTP_URL, env.MAIL_FAKE_URL, env.MAIL_FAKE_SECRET!));
     say(`mail fake: SMTP on 127.0.0.1:${mail.smtpPort}, messages at ${env.MAIL_FAKE_URL}/messages`);
   }
   if (mode === "serve") {
     say("building (next build)…");
     await runStep(process.execPath, [nextBin, "build"]);
   }
-  const args =
-    mode === "dev"
-      ? ["dev", "-H", "127.0.0.1", "-p", String(env.PORT)]
-      : ["start", "-H", "127.0.0.1", "-p", String(env.PORT)];
-  web = spawn(process.execPath, [nextBin, ...args], { stdio: "inherit" });
+  // server.mjs wraps Next so the app sees the socket's address (lib/http/client-address.ts).
+  web = spawn(process.execPath, ["server.mjs", ...(mode === "dev" ? ["--dev"] : [])], {
+    stdio: "inherit",
+    env: { ...process.env, HOST: "127.0.0.1", PORT: String(env.PORT) },
+  });
   web.on("exit", (code) => void shutdown(code ?? 0));
   say(`Forkwall is starting at ${env.APP_URL} (Ctrl-C stops it and the database)`);
 } catch (err) {

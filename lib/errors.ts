@@ -8,6 +8,7 @@ export type ErrorCode =
   | "not_found"
   | "conflict"
   | "payload_too_large"
+  | "unsupported_media_type"
   | "no_solution"
   | "unprocessable"
   | "rate_limited"
@@ -21,6 +22,7 @@ const STATUS: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   payload_too_large: 413,
+  unsupported_media_type: 415,
   no_solution: 422,
   unprocessable: 422,
   rate_limited: 429,

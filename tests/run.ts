@@ -67,7 +67,7 @@ try {
   say(`provisioning ${env.DB_NAME} (fresh)`);
   const { startedHere } = await provision(env, { fresh: true, log: (m) => console.log(m) });
   startedDb = startedHere;
-  mail = await startFakeMail(fakeMailPorts(env.SMTP_URL, env.MAIL_FAKE_URL!));
+  mail = await startFakeMail(fakeMailPorts(env.SMTP_URL, env.MAIL_FAKE_URL!, env.MAIL_FAKE_SECRET!));
 
   await check("lint (eslint)", bin("eslint"), [".", "--max-warnings=0"]);
   await check("typecheck (tsc --noEmit)", bin("tsc"), ["--noEmit"]);

@@ -5,6 +5,7 @@ import type { Role } from "@/lib/permissions";
 import { db } from "../index";
 import { labs, memberships, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
+import { bumpSessionVersion } from "./sessions";
 
 export async function findUserByEmail({ email }: { email: string }) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -42,7 +43,9 @@ export async function findLabWithRole({ userId, ...lab }: { userId: number } & (
     .from(labs)
     .leftJoin(memberships, and(eq(memberships.labId, labs.id), eq(memberships.userId, userId)))
     .where("slug" in lab ? eq(labs.slug, lab.slug) : eq(labs.id, lab.labId));
-  return row ? { ...row, role: (row.role ?? null) as Role | null } : null;
+  // The column's collation folds case and pads; a slug names a lab only when it is exactly its slug.
+  if (!row || ("slug" in lab && row.slug !== lab.slug)) return null;
+  return { ...row, role: (row.role ?? null) as Role | null };
 }
 
 export type MemberRow = Awaited<ReturnType<typeof listMembers>>[number];
@@ -144,6 +147,8 @@ export async function removeMember(
   const member = await memberInLab(tx, labId, membershipId);
   if (member.role === "manager" && (await managerCount(tx, labId)) <= 1) throw lastManager(member.name, "removed");
   await tx.delete(memberships).where(and(eq(memberships.labId, labId), eq(memberships.id, membershipId)));
+  // Removed from a lab: every session of that person ends, so no open tab keeps reading it.
+  await bumpSessionVersion({ tx, userId: member.userId });
   await recordAudit({
     tx,
     labId,

@@ -5,6 +5,7 @@ import { AppError } from "@/lib/errors";
 import { db } from "../index";
 import { passwordResets, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
+import { bumpSessionVersion } from "./sessions";
 
 export async function createPasswordReset(
   tx: Tx,
@@ -66,6 +67,7 @@ export async function completePasswordReset(
   if (state !== "valid") throw new AppError("conflict", PROBLEM[state]);
   const now = new Date();
   await tx.update(users).set({ passwordHash }).where(eq(users.id, row.userId));
+  await bumpSessionVersion({ tx, userId: row.userId });
   await tx
     .update(passwordResets)
     .set({ usedAt: now })

@@ -6,6 +6,7 @@ const ACTIONS: Record<string, string> = {
   "signin.succeeded": "Signed in",
   "signin.failed": "Failed sign-in",
   "signin.refused": "Sign-in refused (too many failures)",
+  signout: "Signed out (every session ended)",
   "invitation.sent": "Invited a person",
   "invitation.resent": "Resent an invitation",
   "invitation.revoked": "Revoked an invitation",

@@ -120,7 +120,7 @@ export async function acceptInvitationAction(_prev: ActionState, form: FormData)
     throw err;
   }
   redirect(
-    `/sign-in?${new URLSearchParams({ joined: joined.lab.name, email: joined.email, callbackUrl: `/labs/${joined.lab.slug}` })}`,
+    `/sign-in?${new URLSearchParams({ notice: "joined", email: joined.email, callbackUrl: `/labs/${joined.lab.slug}` })}`,
   );
 }
 

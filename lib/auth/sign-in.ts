@@ -28,7 +28,7 @@ export function signInThrottle(): SignInThrottle {
 }
 
 export type SignInResult =
-  | { ok: true; user: { id: number; email: string; name: string } }
+  | { ok: true; user: { id: number; email: string; name: string; sessionVersion: number } }
   | { ok: false; reason: "invalid" | "throttled"; retryAfterMs?: number };
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -68,5 +68,5 @@ export async function verifySignIn(input: {
     targetId: user.id,
     detail: { ip },
   });
-  return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
+  return { ok: true, user: { id: user.id, email: user.email, name: user.name, sessionVersion: user.sessionVersion } };
 }

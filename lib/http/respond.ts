@@ -15,7 +15,12 @@ export function errorResponse(err: unknown, context: Record<string, unknown> = {
   else if (known !== err) logger.error({ err, ...context }, "unexpected error");
   else if (known.status >= 500) logger.warn({ err, ...context }, known.message);
   else logger.debug({ code: known.code, status: known.status, ...context }, known.message);
+  const retry = (known as { retryAfterSeconds?: unknown }).retryAfterSeconds;
   const headers: Record<string, string> =
-    known.status === 503 ? { "cache-control": "no-store", "retry-after": "30" } : {};
+    known.status === 503
+      ? { "cache-control": "no-store", "retry-after": "30" }
+      : typeof retry === "number"
+        ? { "retry-after": String(retry) }
+        : {};
   return Response.json(errorBody(known), { status: known.status, headers });
 }

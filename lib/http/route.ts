@@ -1,7 +1,9 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
+import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { requestLog, withLogContext } from "@/lib/request-log";
+import { checkWriteRequest, mediaType } from "./origin";
 import { errorResponse } from "./respond";
 import { ANONYMOUS, sessionCaller, type Caller } from "@/lib/ops/caller";
 
@@ -22,8 +24,8 @@ export async function readJson(req: Request, opts: { optional?: boolean } = {}):
   const text = await req.text();
   if (opts.optional && text.trim() === "") return {};
   const type = req.headers.get("content-type") ?? "";
-  if (!type.includes("application/json"))
-    throw new AppError("invalid_input", "Send a JSON body (Content-Type: application/json).");
+  if (mediaType(type) !== "application/json")
+    throw new AppError("unsupported_media_type", "Send the body as JSON with Content-Type: application/json.");
   if (text.length > MAX_JSON_BYTES) throw new AppError("payload_too_large", "The JSON body is larger than 256 KB.");
   try {
     return JSON.parse(text);
@@ -47,6 +49,9 @@ export function api<P = Record<string, string>>(
     return withLogContext(logCtx, async () => {
       let res: Response;
       try {
+        // A state-changing request from another site's page is refused before anything else.
+        const write = checkWriteRequest(req, env.APP_URL);
+        if (!write.ok) throw new AppError(write.status === 415 ? "unsupported_media_type" : "forbidden", write.message);
         const params = await ctx.params;
         const result = await fn({
           req,

@@ -1,6 +1,10 @@
 // A local stand-in for a real mail relay: speaks SMTP, keeps what it receives in memory, and
 // lists it over a small HTTP interface of its own (GET/DELETE /messages) for people and tests.
+// That interface holds password-reset and invitation links, so every call must carry the local
+// secret (Authorization: Bearer MAIL_FAKE_SECRET), even from this machine.
+import { createHash, timingSafeEqual } from "node:crypto";
 import { createServer, type Server } from "node:http";
+import type { AddressInfo } from "node:net";
 import { simpleParser, type AddressObject } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
@@ -27,7 +31,11 @@ export async function startFakeMail(opts: {
   smtpPort: number;
   httpPort: number;
   host?: string;
+  secret: string;
 }): Promise<FakeMailServer> {
+  if (opts.secret.length < 16) throw new Error("the mail fake needs a secret of at least 16 characters");
+  const digest = (s: string) => createHash("sha256").update(s).digest();
+  const want = digest(`Bearer ${opts.secret}`);
   const host = opts.host ?? "127.0.0.1";
   const messages: FakeMessage[] = [];
   let nextId = 1;
@@ -60,6 +68,10 @@ export async function startFakeMail(opts: {
 
   const http: Server = createServer((req, res) => {
     const url = new URL(req.url ?? "/", `http://${host}`);
+    if (!timingSafeEqual(digest(req.headers.authorization ?? ""), want)) {
+      res.writeHead(401, { "content-type": "application/json" }).end('{"error":"the mail fake wants its secret"}');
+      return;
+    }
     if (url.pathname !== "/messages") {
       res.writeHead(404, { "content-type": "application/json" }).end('{"error":"not found"}');
       return;
@@ -84,8 +96,8 @@ export async function startFakeMail(opts: {
   });
 
   return {
-    smtpPort: opts.smtpPort,
-    httpPort: opts.httpPort,
+    smtpPort: (smtp.server.address() as AddressInfo).port,
+    httpPort: (http.address() as AddressInfo).port,
     messages,
     close: () =>
       Promise.all([
@@ -95,6 +107,13 @@ export async function startFakeMail(opts: {
   };
 }
 
-export function fakeMailPorts(smtpUrl: string, fakeUrl: string): { smtpPort: number; httpPort: number } {
-  return { smtpPort: Number(new URL(smtpUrl).port || 25), httpPort: Number(new URL(fakeUrl).port || 80) };
+export function fakeMailPorts(
+  smtpUrl: string,
+  fakeUrl: string,
+  secret: string,
+): { smtpPort: number; httpPort: number; secret: string } {
+  return { smtpPort: Number(new URL(smtpUrl).port || 25), httpPort: Number(new URL(fakeUrl).port || 80), secret };
 }
+
+/** Headers for a call to the fake's HTTP interface. */
+export const fakeMailAuth = (secret: string | undefined) => ({ authorization: `Bearer ${secret ?? ""}` });

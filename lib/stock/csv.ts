@@ -181,7 +181,8 @@ function readRow(
   const before = issues.length;
   const fail = (column: Column, message: string) => issues.push({ line, column, message: `${column}: ${message}` });
 
-  const family = familyName.safeParse(value("family"));
+  // Our own export writes '=... for a name starting like a formula (lib/stock/export.ts).
+  const family = familyName.safeParse(value("family").replace(/^'(?=[=+\-@\t\r])/, ""));
   if (!family.success) fail("family", value("family") === "" ? "is empty." : firstMessage(family));
 
   const rawCompliance = value("compliance").toLowerCase();

@@ -4,6 +4,13 @@ import { REQUIRED_COLUMNS, OPTIONAL_COLUMNS } from "./csv";
 import { formatMm } from "./format";
 import type { BalloonFamilyView } from "./types";
 
+/**
+ * Cells a spreadsheet would run as a formula (OWASP "CSV Injection": a leading =, +, -, @, tab
+ * or carriage return) are written with a leading apostrophe, which spreadsheets show as text;
+ * the import (lib/stock/csv.ts) takes it off again, so the file still round-trips.
+ */
+export const FORMULA_START = /^[=+\-@\t\r]/;
+
 export function balloonStockCsv(families: BalloonFamilyView[]): string {
   const rows = families.flatMap((f) =>
     f.balloons.map((b) => [
@@ -18,6 +25,6 @@ export function balloonStockCsv(families: BalloonFamilyView[]): string {
   );
   return Papa.unparse(
     { fields: [...REQUIRED_COLUMNS, ...OPTIONAL_COLUMNS], data: rows },
-    { newline: "\r\n", quotes: false },
+    { newline: "\r\n", quotes: false, escapeFormulae: FORMULA_START },
   );
 }

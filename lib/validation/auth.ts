@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { freeText } from "./text";
 import { PASSWORD_MIN } from "@/lib/auth/password-rules";
 import { emailField } from "./members";
 
@@ -17,11 +18,14 @@ export const tokenField = z.string().regex(/^[A-Za-z0-9_-]{43}$/, "This link is 
 export const acceptNewAccountSchema = z
   .object({
     token: tokenField,
-    name: z
-      .string({ error: "Enter your name." })
-      .trim()
-      .min(2, "Enter your name (at least 2 characters).")
-      .max(120, "Use at most 120 characters."),
+    name: freeText({
+      what: "Name",
+      min: 2,
+      max: 120,
+      requiredMessage: "Enter your name.",
+      minMessage: "Enter your name (at least 2 characters).",
+      maxMessage: "Use at most 120 characters.",
+    }),
     ...passwordPair,
   })
   .refine(samePassword, mismatch);

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { freeText } from "./text";
 import { ORIENTATIONS, PAPER_IDS } from "@/lib/poster/paper";
 import {
   FINET_DEFAULT_RATIO,
@@ -62,7 +63,13 @@ export const lookupSchema = z
 
 export const chartDefinitionSchema = z
   .object({
-    title: z.string().trim().min(1, "Give the chart a title").max(120, "Keep the title under 120 characters"),
+    title: freeText({
+      what: "Title",
+      min: 1,
+      max: 120,
+      minMessage: "Give the chart a title",
+      maxMessage: "Keep the title under 120 characters",
+    }),
     law: lawSpecSchema,
     lookups: z
       .array(lookupSchema)
@@ -83,7 +90,12 @@ export const chartDefinitionSchema = z
       .number()
       .min(READING_DISTANCE_MIN_M, `Reading distance must be at least ${READING_DISTANCE_MIN_M} m`)
       .max(READING_DISTANCE_MAX_M, `Reading distance must be at most ${READING_DISTANCE_MAX_M} m`),
-    notes: z.string().trim().max(600, "Keep notes under 600 characters").default(""),
+    notes: freeText({
+      what: "Notes",
+      max: 600,
+      multiline: true,
+      maxMessage: "Keep notes under 600 characters",
+    }).default(""),
   })
   .strict();
 

@@ -1,13 +1,28 @@
 import { z } from "zod";
+import { freeText } from "./text";
 
 export const rejectEditionSchema = z
   .object({
-    reason: z.string().trim().min(3, "Say why, in a few words").max(500, "Keep the reason under 500 characters"),
+    reason: freeText({
+      what: "Reason",
+      min: 3,
+      max: 500,
+      multiline: true,
+      minMessage: "Say why, in a few words",
+      maxMessage: "Keep the reason under 500 characters",
+    }),
   })
   .strict();
 
 export const withdrawEditionSchema = z
-  .object({ reason: z.string().trim().max(500, "Keep the reason under 500 characters").optional() })
+  .object({
+    reason: freeText({
+      what: "Reason",
+      max: 500,
+      multiline: true,
+      maxMessage: "Keep the reason under 500 characters",
+    }).optional(),
+  })
   .strict();
 
 /** Ids in URLs: anything that is not a positive integer cannot name a row. */

@@ -1,8 +1,17 @@
 import { z } from "zod";
+import { freeText } from "./text";
 import { idParam } from "./edition";
 
 export const roomSchema = z
-  .object({ name: z.string().trim().min(1, "Give the room a name").max(120, "Keep the name under 120 characters") })
+  .object({
+    name: freeText({
+      what: "Room name",
+      min: 1,
+      max: 120,
+      minMessage: "Give the room a name",
+      maxMessage: "Keep the name under 120 characters",
+    }),
+  })
   .strict();
 
 export const postingSchema = z.object({ roomId: idParam }).strict();

@@ -1,5 +1,6 @@
 // Stock input rules, shared by the API, the forms and the CSV import.
 import { z } from "zod";
+import { freeText } from "./text";
 
 export const DIAMETER_MIN_MM = 1;
 export const DIAMETER_MAX_MM = 7;
@@ -54,12 +55,13 @@ export const growthMm = number("Growth at rated burst pressure")
   .transform(snap(GROWTH_STEP_MM));
 
 export const stockName = (what: string) =>
-  z
-    .string({ error: `${what} name is required.` })
-    .trim()
-    .min(1, `Enter the ${what.toLowerCase()} name.`)
-    .max(NAME_MAX, `${what} name must be ${NAME_MAX} characters or fewer.`)
-    .refine((v) => !/[\u0000-\u001f\u007f]/.test(v), `${what} name cannot contain line breaks or control characters.`);
+  freeText({
+    what: `${what} name`,
+    min: 1,
+    max: NAME_MAX,
+    requiredMessage: `${what} name is required.`,
+    minMessage: `Enter the ${what.toLowerCase()} name.`,
+  });
 
 export const compliance = z.enum(COMPLIANCES, {
   error: 'Compliance must be "nc" (non-compliant) or "sc" (semi-compliant).',

@@ -28,7 +28,9 @@ const people = {
 
 type FakeMessage = { subject: string; text: string; envelopeTo: string[] };
 async function mailTo(address: string): Promise<FakeMessage[]> {
-  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`);
+  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`, {
+    headers: { authorization: `Bearer ${env.MAIL_FAKE_SECRET}` },
+  });
   return (await res.json()) as FakeMessage[];
 }
 

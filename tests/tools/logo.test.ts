@@ -7,7 +7,8 @@ import PDFDocument from "pdfkit";
 import { PNG } from "pngjs";
 import { describe, expect, it } from "vitest";
 import { AppError } from "@/lib/errors";
-import { checkLogo, jpegSize } from "@/lib/logo";
+import { checkLogo, jpegSize, LOGO_MAX_BYTES, LOGO_MAX_INFLATED_BYTES, readPngHeader } from "@/lib/logo";
+import { craftPng, declaredBytes } from "../support/image-bombs";
 
 function png(width: number, height: number): Buffer {
   const img = new PNG({ width, height });
@@ -82,5 +83,69 @@ describe("checkLogo", () => {
 
   it("refuses an image larger than 4000 pixels a side", async () => {
     expect((await refusal(png(4100, 1))).message).toMatch(/4000 pixels/);
+  });
+});
+
+describe("checkLogo against image bombs (the header is read before anything is inflated)", () => {
+  it("refuses a small file declaring 8000 × 8000 pixels, from the header alone", async () => {
+    // Only the first rows are really there: a decoder would still allocate for the whole picture.
+    const bomb = await craftPng({ width: 8000, height: 8000 }, 64 * 1024);
+    expect(bomb.length).toBeLessThan(10 * 1024);
+    const err = await refusal(bomb);
+    expect(err.status).toBe(400);
+    expect(err.message).toMatch(/8000 × 8000 pixels; keep it within 4000 pixels a side/);
+  });
+
+  it("refuses a 4000 × 4000 16-bit RGBA picture (128 MB of pixels) by its area", async () => {
+    const bomb = await craftPng({ width: 4000, height: 4000, bitDepth: 16 });
+    expect(bomb.length).toBeLessThan(LOGO_MAX_BYTES);
+    expect((await refusal(bomb)).message).toMatch(/16\.0 megapixels\); keep it within 4 megapixels/);
+  });
+
+  it("refuses a header whose pixels inflate past the cap although the area is allowed", async () => {
+    const err = await refusal(await craftPng({ width: 2000, height: 1900, bitDepth: 16, interlaced: true }, 1024));
+    expect(err.message).toMatch(/MB uncompressed.*keep it within 24 MB/);
+    expect(declaredBytes({ width: 2000, height: 1900, bitDepth: 16, interlaced: true })).toBeGreaterThan(
+      LOGO_MAX_INFLATED_BYTES,
+    );
+  });
+
+  it("refuses an interlaced PNG whose data inflates far past what its header declares", async () => {
+    // 1000 × 1000 declared (about 4 MB of pixels), 96 MB in the stream: inflation stops at the declared size.
+    const bomb = await craftPng({ width: 1000, height: 1000, interlaced: true }, 96 * 1024 * 1024);
+    expect(bomb.length).toBeLessThan(LOGO_MAX_BYTES);
+    expect((await refusal(bomb)).message).toMatch(/damaged/);
+  });
+
+  it("refuses pixel data shorter than the header declares, and a bad chunk checksum", async () => {
+    const short = await craftPng({ width: 100, height: 100 }, 1000);
+    expect((await refusal(short)).message).toMatch(/damaged/);
+    const good = png(10, 10);
+    const flipped = Buffer.from(good);
+    flipped[good.length - 20] = flipped[good.length - 20]! ^ 0xff;
+    expect((await refusal(flipped)).message).toMatch(/damaged/);
+  });
+
+  it("accepts honest interlaced and deep-colour PNGs within the limits, reading their header", async () => {
+    const interlaced = await craftPng({ width: 333, height: 77, interlaced: true });
+    expect(await checkLogo(interlaced)).toMatchObject({ mime: "image/png", width: 333, height: 77 });
+    const deep = await craftPng({ width: 1000, height: 1000, bitDepth: 16 });
+    expect(await checkLogo(deep)).toMatchObject({ width: 1000, height: 1000 });
+    const header = readPngHeader(deep)!;
+    expect(header).toMatchObject({ bitDepth: 16, colorType: 6, interlaced: false, inflatedBytes: 1000 * 8001 });
+  });
+
+  it("refuses a JPEG whose frame declares more than 4 megapixels", async () => {
+    const bytes = Buffer.from(await jpeg());
+    // Rewrite the start-of-frame size to 3000 × 3000 (9 MP) without decoding anything.
+    for (let i = 2; i < bytes.length - 9; i++) {
+      if (bytes[i] === 0xff && bytes[i + 1] === 0xc0) {
+        bytes.writeUInt16BE(3000, i + 5);
+        bytes.writeUInt16BE(3000, i + 7);
+        break;
+      }
+    }
+    expect(jpegSize(bytes)).toEqual({ width: 3000, height: 3000 });
+    expect((await refusal(bytes)).message).toMatch(/9\.0 megapixels/);
   });
 });

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { FormStatus } from "@/components/ui/form-status";
-import { throttledMessage } from "@/lib/auth/throttle-policy";
+import { signInNotice } from "@/lib/auth/sign-in-notice";
 import { currentUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 
@@ -13,22 +13,9 @@ type Search = {
   code?: string;
   signedOut?: string;
   reset?: string;
-  joined?: string;
+  notice?: string;
   email?: string;
 };
-
-function notice(q: Search): { ok: boolean; message: string } | null {
-  if (q.joined)
-    return { ok: true, message: `Your account is ready and you have joined ${q.joined}. Sign in to open it.` };
-  if (q.reset) return { ok: true, message: "Your password was changed. Sign in with the new one." };
-  if (q.signedOut) return { ok: true, message: "You are signed out." };
-  // Errors from next-auth's own endpoint (a sign-in posted without JavaScript or by a script).
-  if (q.error && q.code === "throttled") return { ok: false, message: throttledMessage(env.SIGNIN_THROTTLE_SECONDS) };
-  if (q.error === "CredentialsSignin")
-    return { ok: false, message: "That e-mail address and password do not match an account." };
-  if (q.error) return { ok: false, message: "Sign-in did not work. Please try again." };
-  return null;
-}
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Search> }) {
   const q = await searchParams;
@@ -40,7 +27,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       ? q.callbackUrl
       : "/dashboard";
   const user = await currentUser().catch(() => null);
-  const n = notice(q);
+  const n = signInNotice(q, env.SIGNIN_THROTTLE_SECONDS);
   return (
     <div>
       <h1 className="text-2xl font-bold">Sign in</h1>

@@ -22,8 +22,8 @@ export default async function SignOutPage() {
     <div>
       <h1 className="text-2xl font-bold">Sign out</h1>
       <p className="mt-2 text-ink-soft">
-        You are signed in as <strong>{user.name}</strong> ({user.email}). Signing out ends this browser&apos;s session;
-        on a shared workstation, always sign out when you leave.
+        You are signed in as <strong>{user.name}</strong> ({user.email}). Signing out ends your sessions on every
+        browser; on a shared workstation, always sign out when you leave.
       </p>
       <div className="mt-6 flex flex-wrap gap-3">
         <form action={signOutAction}>

@@ -10,7 +10,9 @@ const fakeUrl = () => {
 };
 
 export async function mailTo(address: string): Promise<FakeMessage[]> {
-  const res = await fetch(`${fakeUrl()}/messages?to=${encodeURIComponent(address)}`);
+  const res = await fetch(`${fakeUrl()}/messages?to=${encodeURIComponent(address)}`, {
+    headers: { authorization: `Bearer ${process.env.MAIL_FAKE_SECRET ?? ""}` },
+  });
   return (await res.json()) as FakeMessage[];
 }
 

@@ -65,7 +65,9 @@ type FakeMessage = { id: number; envelopeTo: string[]; subject: string; text: st
 /** What the SMTP fake received for one address, read over the fake's own HTTP interface. */
 export async function mailTo(address: string): Promise<FakeMessage[]> {
   if (!env.MAIL_FAKE_URL) throw new Error("MAIL_FAKE_URL is not set: run through npm test");
-  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`);
+  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`, {
+    headers: { authorization: `Bearer ${env.MAIL_FAKE_SECRET}` },
+  });
   return (await res.json()) as FakeMessage[];
 }
 

@@ -2,6 +2,7 @@ import { notFound } from "next/navigation";
 import { MailList } from "@/components/dev/mail-list";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";
+import { requestFromLoopback } from "@/lib/auth/request-address";
 import { listMyLabs } from "@/lib/ops/accounts";
 import { currentUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
@@ -10,11 +11,13 @@ import type { FakeMessage } from "@/lib/mail/fake-server";
 export const metadata = { title: "Local mail" };
 export const dynamic = "force-dynamic";
 
-// Development aid: what the local mail fake has received. Only managers see it, and only
-// while a fake is configured; to everyone else the page does not exist.
+// Development aid: what the local mail fake has received. Only managers see it, only while a
+// fake is configured (lib/env.ts refuses one unless APP_URL is loopback) and only when the
+// request comes from this machine's own socket; to everyone else the page does not exist.
 export default async function DevMailPage({ searchParams }: { searchParams: Promise<{ to?: string }> }) {
   const fake = env.MAIL_FAKE_URL;
-  if (!fake) notFound();
+  if (!fake || !env.MAIL_FAKE_SECRET) notFound();
+  if (!(await requestFromLoopback())) notFound();
   const user = await currentUser().catch(() => null);
   if (!user) notFound();
   const labs = await listMyLabs({ kind: "user", user });
@@ -26,6 +29,7 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
   try {
     const res = await fetch(`${fake}/messages${filter ? `?to=${encodeURIComponent(filter)}` : ""}`, {
       cache: "no-store",
+      headers: { authorization: `Bearer ${env.MAIL_FAKE_SECRET}` },
       signal: AbortSignal.timeout(3000),
     });
     if (res.ok) messages = ((await res.json()) as FakeMessage[]).slice().reverse();

@@ -3,6 +3,8 @@ import { LiveCheck } from "@/components/check/live-check";
 import { PostingForm } from "@/components/check/posting-form";
 import { buttonClass } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
+import { limitPublic, RateLimitedError } from "@/lib/auth/public-limit";
+import { requestAddress } from "@/lib/auth/request-address";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { checkJson } from "@/lib/editions/check-json";
 import { env } from "@/lib/env";
@@ -16,6 +18,17 @@ export const metadata = { title: "Is this printout current?", robots: { index: f
 
 export default async function CheckPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
+  const limited = await limitPublic("check", await requestAddress()).then(
+    () => null,
+    (e: unknown) => (e instanceof RateLimitedError ? e : Promise.reject(e)),
+  );
+  if (limited)
+    return (
+      <div className="mx-auto max-w-xl" role="alert">
+        <h1 className="text-xl font-bold">This printout cannot be verified right now</h1>
+        <p className="mt-2">{limited.message} Until it is verified, do not rely on its numbers.</p>
+      </div>
+    );
   const { view, role, rooms, hanging } = await forPage(`/v/${token}`, async () =>
     checkPage(await sessionCaller(), { token }),
   );

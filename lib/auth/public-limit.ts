@@ -1,0 +1,60 @@
+import "server-only";
+import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { pool } from "@/db";
+import { env } from "@/lib/env";
+import { AppError } from "@/lib/errors";
+import { databaseName } from "./sign-in";
+
+// Public endpoints (the solve API, the check page and its API, short-code lookups) answer
+// anyone; each client address gets PUBLIC_RATE_LIMIT_PER_MINUTE requests a minute per kind,
+// counted in MariaDB's rate_limits (the sign-in throttle's table) so every app instance shares them.
+export type PublicKind = "solve" | "check" | "short-code";
+
+export class RateLimitedError extends AppError {
+  constructor(readonly retryAfterSeconds: number) {
+    super(
+      "rate_limited",
+      `Too many requests from your address. Try again in ${retryAfterSeconds} second${retryAfterSeconds === 1 ? "" : "s"}.`,
+    );
+  }
+}
+
+export function createPublicLimiter(opts: { points: number; durationSeconds: number; keyPrefix?: string }) {
+  const limiters = new Map<PublicKind, RateLimiterMySQL>();
+  const limiter = (kind: PublicKind) => {
+    let l = limiters.get(kind);
+    if (!l) {
+      l = new RateLimiterMySQL({
+        storeClient: pool.pool,
+        storeType: "pool",
+        dbName: databaseName(env.DATABASE_URL),
+        tableName: "rate_limits",
+        tableCreated: true,
+        keyPrefix: `${opts.keyPrefix ?? "public"}-${kind}`,
+        points: opts.points,
+        duration: opts.durationSeconds,
+      });
+      limiters.set(kind, l);
+    }
+    return l;
+  };
+  return {
+    /** Counts one request; throws RateLimitedError (429, Retry-After) past the limit. */
+    async take(kind: PublicKind, ip: string): Promise<void> {
+      try {
+        await limiter(kind).consume(ip);
+      } catch (err) {
+        if (err instanceof RateLimiterRes) throw new RateLimitedError(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
+        throw err;
+      }
+    },
+  };
+}
+
+const g = globalThis as unknown as { forkwallPublicLimiter?: ReturnType<typeof createPublicLimiter> };
+
+/** The app's limiter (one per process; counters live in the database). */
+export function limitPublic(kind: PublicKind, ip: string): Promise<void> {
+  g.forkwallPublicLimiter ??= createPublicLimiter({ points: env.PUBLIC_RATE_LIMIT_PER_MINUTE, durationSeconds: 60 });
+  return g.forkwallPublicLimiter.take(kind, ip);
+}
