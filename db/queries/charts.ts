@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { assertChartRules } from "@/lib/charts/rules";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
 import { parseStoredDefinition, type ChartDefinition } from "@/lib/validation/chart";
@@ -9,6 +10,7 @@ import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
 import { lockLab } from "./lab-lock";
 import { deliverPendingNotices } from "./notices";
+import { readStock } from "./stock-read";
 
 export async function createChart({
   labId,
@@ -117,6 +119,7 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
         { path: ["stentPlatformId"], message: "No such stent platform in this lab" },
       ]);
   }
+  assertChartRules(def, await readStock(tx, labId));
 }
 
 export async function getChart({ labId, chartId }: { labId: number; chartId: number }) {

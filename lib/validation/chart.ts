@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ORIENTATIONS, PAPER_IDS } from "@/lib/poster/paper";
 import {
+  DEFAULT_ROUNDING_CAPS,
   FINET_DEFAULT_RATIO,
   FINET_RATIO_MAX,
   FINET_RATIO_MIN,
@@ -14,6 +15,7 @@ export const LOOKUP_KINDS = ["proximal", "side", "main"] as const;
 export const ROUNDING_RULES = ["up", "down", "nearest", "reach"] as const;
 export const READING_DISTANCE_MIN_M = 0.5;
 export const READING_DISTANCE_MAX_M = 10;
+export const ROUNDING_CAP_MAX_MM = 1;
 
 export const lawSpecSchema = z.discriminatedUnion(
   "law",
@@ -50,6 +52,22 @@ const axisSchema = z
     if (!resolved.ok) ctx.addIssue({ code: "custom", message: resolved.reason });
   });
 
+/** How far a printed size may differ from its exact target before the cell is marked. */
+export const roundingCapsSchema = z
+  .object({
+    upMm: z
+      .number()
+      .min(0, "The cap above must be 0 mm or more")
+      .max(ROUNDING_CAP_MAX_MM, `The cap above must be at most ${ROUNDING_CAP_MAX_MM} mm`)
+      .default(DEFAULT_ROUNDING_CAPS.upMm),
+    downMm: z
+      .number()
+      .min(0, "The cap below must be 0 mm or more")
+      .max(ROUNDING_CAP_MAX_MM, `The cap below must be at most ${ROUNDING_CAP_MAX_MM} mm`)
+      .default(DEFAULT_ROUNDING_CAPS.downMm),
+  })
+  .strict();
+
 export const lookupSchema = z
   .object({
     kind: z.enum(LOOKUP_KINDS, { error: "Lookup kind must be proximal, side or main" }),
@@ -84,6 +102,8 @@ export const chartDefinitionSchema = z
       .min(READING_DISTANCE_MIN_M, `Reading distance must be at least ${READING_DISTANCE_MIN_M} m`)
       .max(READING_DISTANCE_MAX_M, `Reading distance must be at most ${READING_DISTANCE_MAX_M} m`),
     notes: z.string().trim().max(600, "Keep notes under 600 characters").default(""),
+    // Until lab rules hold them, the caps live in the chart; stored charts without them take the defaults.
+    roundingCaps: roundingCapsSchema.default({ ...DEFAULT_ROUNDING_CAPS }),
   })
   .strict();
 

@@ -4,7 +4,7 @@ import { Forbidden } from "@/components/ui/forbidden";
 import { getStock } from "@/db/queries/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { defaultLookup } from "@/lib/charts/defaults";
-import { FINET_DEFAULT_RATIO } from "@/lib/sizing";
+import { DEFAULT_ROUNDING_CAPS, FINET_DEFAULT_RATIO } from "@/lib/sizing";
 import type { ChartDefinition } from "@/lib/validation/chart";
 
 export const metadata = { title: "New chart" };
@@ -24,6 +24,7 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
     orientation: "portrait",
     readingDistanceM: 1.5,
     notes: "",
+    roundingCaps: { ...DEFAULT_ROUNDING_CAPS },
   };
   return (
     <div>
