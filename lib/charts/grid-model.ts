@@ -122,3 +122,15 @@ export function fitAdvice(snapshot: Snapshot): FitAdvice[] {
   });
   return out;
 }
+
+/**
+ * A chart's live grid: its live snapshot, with family ids taken from the definition where the
+ * snapshot predates them.
+ */
+export function liveGridJson(live: Snapshot, definition: { lookups: readonly { familyId: number }[] }): GridJson {
+  const withIds: Snapshot = {
+    ...live,
+    lookups: live.lookups.map((l, i) => ({ ...l, familyId: l.familyId ?? definition.lookups[i]?.familyId })),
+  };
+  return gridJson(withIds);
+}
