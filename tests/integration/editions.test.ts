@@ -5,7 +5,7 @@ import { db, pool } from "@/db";
 import { createChart, getChart } from "@/db/queries/charts";
 import { refreshLiveSnapshots } from "@/db/queries/lab-changes";
 import { approveEdition, createEdition, getEdition, rejectEdition, withdrawEdition } from "@/db/queries/editions";
-import { balloonFamilies, balloons, editions, labs, users } from "@/db/schema";
+import { balloonFamilies, balloons, charts, editions, labs, users } from "@/db/schema";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { AppError } from "@/lib/errors";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
@@ -81,6 +81,34 @@ const setInStock = async (diameterMm: number, inStock: boolean) => {
     await refreshLiveSnapshots(tx, labId);
   });
 };
+
+describe("clinical guardrails through the database", () => {
+  it("refuses a chart that breaks a lookup rule with a 400 naming the rule, and writes nothing", async () => {
+    const bad = { ...definition(), title: `Bad rule ${tag}` };
+    bad.lookups = [{ ...bad.lookups[0]!, rounding: "down" }];
+    const before = await db
+      .select({ n: sql<number>`count(*)` })
+      .from(charts)
+      .where(eq(charts.labId, labId));
+    await expectAppError(createChart({ labId, userId: people.educator.id, definition: bad }), 400, /proximal rounding/);
+    const after = await db
+      .select({ n: sql<number>`count(*)` })
+      .from(charts)
+      .where(eq(charts.labId, labId));
+    expect(Number(after[0]!.n)).toBe(Number(before[0]!.n));
+  });
+
+  it("a real (not demo) lab's edition carries no invented-data clause", async () => {
+    const chartId = (
+      await createChart({ labId, userId: people.educator.id, definition: { ...definition(), title: `Real ${tag}` } })
+    ).id;
+    const ed = await createEdition({ labId, chartId, actor: people.educator });
+    const row = await getEdition({ labId, editionId: ed.id });
+    expect(row!.snapshot.caution).toContain("Reference aid only");
+    expect(row!.snapshot.caution).not.toContain("invented");
+    expect(row!.snapshot.caps).toEqual({ upMm: 0.25, downMm: 0.5 });
+  });
+});
 
 describe("editions", () => {
   let chartId = 0;

@@ -12,6 +12,7 @@ describe("GET /api/v1/solve", () => {
     expect(status).toBe(200);
     expect(body).toMatchObject({ law: "finet", solved: "parent" });
     expect(body.diameterMm).toBeCloseTo(4.068, 12);
+    expect(body.diameterLabel).toBe("4.07"); // the one decimal-label function
     expect(body.formula).toContain("0.678");
     // SB/MB = 0.71, below the 0.75 where Finet's ratio fitted best (Huo et al. 2012).
     expect(body.warnings.join(" ")).toMatch(/fit/i);

@@ -1,6 +1,6 @@
 import { route } from "@/lib/auth/guard";
 import { AppError, invalidInput } from "@/lib/errors";
-import { lawFormula, solve } from "@/lib/sizing";
+import { formatExactMm, lawFormula, solve } from "@/lib/sizing";
 import { parseSolveQuery, queryRecord } from "@/lib/validation/solve";
 
 // Public: it holds no lab data.
@@ -16,6 +16,7 @@ export const GET = route(async (req) => {
     ...("n" in spec ? { n: spec.n } : {}),
     solved: result.solved,
     diameterMm: result.diameterMm,
+    diameterLabel: formatExactMm(result.diameterMm),
     formula: lawFormula(spec),
     warnings: result.warnings,
   });
