@@ -7,7 +7,7 @@ import { currentUser, type SessionUser } from "./session";
 
 export type Member = {
   user: SessionUser;
-  lab: { id: number; slug: string; name: string; stockRevision: number };
+  lab: { id: number; slug: string; name: string; stockRevision: number; isDemo: boolean };
   role: Role;
 };
 

@@ -32,7 +32,7 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
       <p className="mt-1 text-ink-soft">
         Axes start at this lab&apos;s stocked range in 0.25 mm steps; change anything and watch the preview.
       </p>
-      <Caution className="my-4" />
+      <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner slug={slug} chartId={null} initial={initial} stock={stock} labName={member.lab.name} canEdit />
     </div>
   );
