@@ -1,3 +1,4 @@
+import { formatDecimal } from "./format";
 import { lawFit } from "./fit";
 
 export type LawId = "finet" | "murray" | "huo-kassab" | "square" | "power";
@@ -157,7 +158,7 @@ export function isSize(parent: number, mb: number, sb: number): boolean {
 }
 
 const fail = (reason: string): SolveFail => ({ ok: false, code: "no_solution", reason });
-const fmt3 = (x: number): string => x.toFixed(3);
+const fmt3 = (x: number): string => formatDecimal(x, 3);
 
 /**
  * Solves the one unknown diameter (mm) from the two given. Throws RangeError when the spec is

@@ -1,9 +1,10 @@
+import { formatExactMm } from "./format";
 export type StentSize = { nominalMm: number; maxPostDilatationMm: number };
 
 /** Stent and post-dilatation comparisons treat sizes within this many mm as equal. */
 export const STENT_TOLERANCE_MM = 0.01;
 
-const mm = (x: number): string => x.toFixed(2);
+const mm = (x: number): string => formatExactMm(x);
 
 export type StentCandidates = { ok: true; stents: StentSize[] } | { ok: false; reason: string };
 

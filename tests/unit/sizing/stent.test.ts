@@ -64,6 +64,8 @@ describe("POT hazard", () => {
       hazard: true,
       detail: "POT 4.00 mm exceeds the 3.00 mm stent's maximum post-dilatation diameter (3.75 mm)",
     });
+    // Words use the one decimal-label function: 5.085 is "5.09", not binary rounding's "5.08".
+    expect(checkPot(5.085, 4.0, platform).detail).toContain("POT 5.09 mm");
     const none = checkPot(5.0, 4.2, platform);
     expect(none.hazard).toBe(true);
     expect(none.detail).toContain("cannot be checked");
