@@ -298,7 +298,7 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
     text:
       "Large: the stocked balloon, mm. Small, in brackets: the exact diameter from the law, mm." +
       (ctx.hasReach
-        ? " “@ 16 atm”: this balloon reaches the target at that pressure (the device's own compliance chart rules)."
+        ? " “@ N atm”: this balloon reaches the target at N atm, never above its rated burst pressure (the device's own compliance chart rules)."
         : ""),
   };
   return [sized, ...MARK_ORDER.map((m) => ({ mark: m, label: `${MARKS[m].symbol} ${MARKS[m].label}`, text: text(m) }))];
