@@ -78,6 +78,9 @@ export const lookupSchema = z
   })
   .strict();
 
+const stentPlatformIdSchema = z.number().int().positive().nullable();
+const notesSchema = z.string().trim().max(600, "Keep notes under 600 characters");
+
 export const chartDefinitionSchema = z
   .object({
     title: z.string().trim().min(1, "Give the chart a title").max(120, "Keep the title under 120 characters"),
@@ -94,14 +97,14 @@ export const chartDefinitionSchema = z
           seen.add(l.kind);
         });
       }),
-    stentPlatformId: z.number().int().positive().nullable().default(null),
+    stentPlatformId: stentPlatformIdSchema.default(null),
     paper: z.enum(PAPER_IDS, { error: `Paper must be one of ${PAPER_IDS.join(", ")}` }),
     orientation: z.enum(ORIENTATIONS, { error: "Orientation must be portrait or landscape" }),
     readingDistanceM: z
       .number()
       .min(READING_DISTANCE_MIN_M, `Reading distance must be at least ${READING_DISTANCE_MIN_M} m`)
       .max(READING_DISTANCE_MAX_M, `Reading distance must be at most ${READING_DISTANCE_MAX_M} m`),
-    notes: z.string().trim().max(600, "Keep notes under 600 characters").default(""),
+    notes: notesSchema.default(""),
     // Until lab rules hold them, the caps live in the chart; stored charts without them take the defaults.
     roundingCaps: roundingCapsSchema.default({ ...DEFAULT_ROUNDING_CAPS }),
   })
@@ -110,8 +113,15 @@ export const chartDefinitionSchema = z
 export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
 export type LookupDefinition = z.infer<typeof lookupSchema>;
 
-/** PATCH accepts any subset of the definition; the merged result is validated whole. */
-export const chartPatchSchema = chartDefinitionSchema.partial().strict();
+/**
+ * PATCH accepts any subset of the definition; the merged result is validated whole. The fields
+ * with defaults lose them here, so a PATCH that leaves a field out keeps the chart's own value
+ * (a title change must not drop the stent platform and with it the stent-limit check).
+ */
+export const chartPatchSchema = chartDefinitionSchema
+  .extend({ stentPlatformId: stentPlatformIdSchema, notes: notesSchema, roundingCaps: roundingCapsSchema })
+  .partial()
+  .strict();
 
 /** A definition read back from the database; one that no longer validates is a server fault. */
 export function parseStoredDefinition(raw: unknown): ChartDefinition {

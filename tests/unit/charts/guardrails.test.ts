@@ -17,7 +17,7 @@ import {
   type BalloonFamilyStock,
   type StentSize,
 } from "@/lib/sizing";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart";
 
 // Invented, illustrative stock for these tests only: no real device's data.
 const steps = (from: number, to: number, step = 0.25) =>
@@ -202,6 +202,21 @@ describe("rounding cap (defaults 0.25 mm up, 0.5 mm down; common practice)", () 
     expect(gap).toBeDefined();
     expect(gap!.oversizeRemoved).toBeGreaterThan(0);
     expect(gap!.message).toMatch(/^Stocking 3\.25 mm NC \(Illustrative NC\) would remove \d+ oversize cells?/);
+  });
+
+  it("a PATCH that leaves fields out keeps the chart's stent platform, notes and caps", () => {
+    // Before: partial() kept the defaults, so PATCH {title} reset stentPlatformId to null and
+    // silently switched the stent-limit check off.
+    expect(chartPatchSchema.parse({ title: "Renamed" })).toEqual({ title: "Renamed" });
+    const merged = chartDefinitionSchema.parse({
+      ...def({ notes: "n" }),
+      ...chartPatchSchema.parse({ title: "Renamed" }),
+    });
+    expect(merged).toMatchObject({ stentPlatformId: 7, notes: "n", roundingCaps: { upMm: 0.25, downMm: 0.5 } });
+    expect(chartPatchSchema.safeParse({ roundingCaps: { upMm: 2 } }).error?.issues[0]?.path).toEqual([
+      "roundingCaps",
+      "upMm",
+    ]);
   });
 
   it("stored definitions without caps still parse, with the defaults", () => {
