@@ -58,6 +58,8 @@ export const labs = mysqlTable("labs", {
   slug: varchar("slug", { length: 64 }).notNull().unique(),
   name: varchar("name", { length: 160 }).notNull(),
   stockRevision: int("stock_revision").notNull().default(0),
+  /** Demo labs print the "invented and illustrative" clause in their caution. */
+  isDemo: boolean("is_demo").notNull().default(false),
   createdAt: createdAt(),
 });
 

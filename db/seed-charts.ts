@@ -47,16 +47,19 @@ const CHARTS: DemoChart[] = [
   },
   {
     title: "Kissing balloon chart (demo)",
-    definition: ({ nc }) => ({
+    // Huo-Kassab, not the square law: the square law's published fit is very asymmetric
+    // bifurcations only (Huo et al. 2012), so on these diameters every cell would sit outside it.
+    // A semi-compliant family, rounded down: side-branch rules (common practice).
+    definition: ({ sc }) => ({
       title: "Kissing balloon chart (demo)",
-      law: { law: "square" },
+      law: { law: "huo-kassab" },
       lookups: [
         {
           kind: "side",
           rows: { from: 3, to: 4.5, step: 0.25 },
           cols: { from: 2.5, to: 4, step: 0.25 },
           rounding: "down",
-          familyId: nc,
+          familyId: sc,
         },
       ],
       stentPlatformId: null,

@@ -39,8 +39,11 @@ export const DEMO_PEOPLE: {
 
 async function upsertLab(db: Database, slug: string, name: string): Promise<number> {
   const [found] = await db.select({ id: labs.id }).from(labs).where(eq(labs.slug, slug));
-  if (found) return found.id;
-  const [row] = await db.insert(labs).values({ slug, name }).$returningId();
+  if (found) {
+    await db.update(labs).set({ isDemo: true }).where(eq(labs.id, found.id));
+    return found.id;
+  }
+  const [row] = await db.insert(labs).values({ slug, name, isDemo: true }).$returningId();
   return row!.id;
 }
 

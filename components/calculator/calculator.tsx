@@ -2,10 +2,18 @@
 
 import { useId, useState } from "react";
 import useSWR from "swr";
+import { formatDecimal } from "@/lib/sizing/format";
 
 type LawOption = { id: string; name: string; formula: string; source: string };
 type Target = "parent" | "mb" | "sb";
-type SolveOk = { law: string; solved: Target; diameterMm: number; formula: string; warnings: string[] };
+type SolveOk = {
+  law: string;
+  solved: Target;
+  diameterMm: number;
+  diameterLabel: string;
+  formula: string;
+  warnings: string[];
+};
 type SolveError = {
   error: { code: string; message: string; issues?: { path: (string | number)[]; message: string }[] };
 };
@@ -174,9 +182,9 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
               title={`${data.diameterMm} mm (exact)`}
               data-testid="solve-result"
             >
-              {data.diameterMm.toFixed(2)} <span className="text-2xl font-semibold">mm</span>
+              {data.diameterLabel} <span className="text-2xl font-semibold">mm</span>
             </p>
-            <p className="mt-1 text-sm tabular-nums text-ink-faint">Exact: {data.diameterMm.toFixed(4)} mm</p>
+            <p className="mt-1 text-sm tabular-nums text-ink-faint">Exact: {formatDecimal(data.diameterMm, 4)} mm</p>
             <p className="mt-3 font-mono text-sm">{data.formula}</p>
             {data.warnings.length ? (
               <ul className="mt-3 list-disc pl-5 text-sm text-warn">

@@ -297,7 +297,31 @@ export function ChartDesigner({
               <input id="distance" type="number" step="0.1" {...register("readingDistanceM", num)} className={field} />
               <FieldError id="distance-err" message={errorAt(formState.errors, "readingDistanceM")} />
             </div>
+            <div>
+              <label htmlFor="cap-up" className={label}>
+                Rounding cap above (mm)
+              </label>
+              <input id="cap-up" type="number" step="0.05" {...register("roundingCaps.upMm", num)} className={field} />
+              <FieldError id="cap-up-err" message={errorAt(formState.errors, "roundingCaps.upMm")} />
+            </div>
+            <div>
+              <label htmlFor="cap-down" className={label}>
+                Rounding cap below (mm)
+              </label>
+              <input
+                id="cap-down"
+                type="number"
+                step="0.05"
+                {...register("roundingCaps.downMm", num)}
+                className={field}
+              />
+              <FieldError id="cap-down-err" message={errorAt(formState.errors, "roundingCaps.downMm")} />
+            </div>
           </div>
+          <p className="text-xs text-ink-soft">
+            A printed balloon further from the exact diameter than a cap is marked ↑ or ↓ (defaults 0.25 mm above, 0.5
+            mm below: common practice, no published source).
+          </p>
 
           <div>
             <label htmlFor="notes" className={label}>

@@ -1,7 +1,10 @@
 "use client";
 
 import { GridPreview } from "@/components/poster/grid-preview";
+import { fitAdvice } from "@/lib/charts/grid-model";
+import { chartRuleIssues } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotGrids, type LabStock } from "@/lib/charts/snapshot";
+import { stockGaps } from "@/lib/charts/stock-gaps";
 import { snapshotLegibility } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { lawFormula, lawName } from "@/lib/sizing";
@@ -25,8 +28,49 @@ export function ChartPreview({
   const snapshot = buildSnapshot({ labName, definition, stock, logoSha256 });
   const grids = snapshotGrids(snapshot);
   const legibility = snapshotLegibility(snapshot);
+  const rules = chartRuleIssues(definition, stock);
+  const fit = fitAdvice(snapshot);
+  const gaps = stockGaps(snapshot, stock);
   return (
     <div className="mt-3 space-y-6">
+      {rules.length > 0 ? (
+        <div
+          role="alert"
+          data-testid="rule-problems"
+          className="rounded-md border border-warn/60 bg-warn-soft px-4 py-3 text-sm"
+        >
+          <p className="font-semibold">! This chart breaks a lookup rule and cannot be saved or printed</p>
+          <ul className="mt-1 list-disc pl-5">
+            {rules.map((r) => (
+              <li key={r.path.join(".")}>{r.message}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {fit.length > 0 ? (
+        <div
+          role="status"
+          data-testid="fit-advice"
+          className="rounded-md border border-warn/60 bg-warn-soft px-4 py-3 text-sm"
+        >
+          <p className="font-semibold">! Mostly outside the law&apos;s published fit</p>
+          {fit.map((f) => (
+            <p key={f.lookupIndex} className="mt-1">
+              {f.message}
+            </p>
+          ))}
+        </div>
+      ) : null}
+      {gaps.length > 0 ? (
+        <div role="status" data-testid="stock-gaps" className="rounded-md border px-4 py-3 text-sm">
+          <p className="font-semibold">Gaps in stock behind the ↑ oversize and ↓ undersize cells</p>
+          <ul className="mt-1 list-disc pl-5">
+            {gaps.slice(0, 6).map((g) => (
+              <li key={`${g.lookupIndex}-${g.diameterMm}`}>{g.message}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
       <div
         role="status"
         data-testid="legibility"

@@ -30,7 +30,8 @@ function cellStyle(view: Pick<CellView, "background" | "hatch" | "border">): CSS
 function Swatch({ mark }: { mark: MarkId | "sized" }) {
   const def = mark === "sized" ? null : MARKS[mark];
   const primary = mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5";
-  const corner = mark === "hazard" || mark === "outsideFit" ? MARKS[mark].symbol : "";
+  const corner =
+    mark === "hazard" || mark === "oversize" || mark === "undersize" || mark === "outsideFit" ? MARKS[mark].symbol : "";
   return (
     <span
       aria-hidden="true"
@@ -73,6 +74,7 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
     stentName,
     hasProximal: grid.kind === "proximal",
     hasReach: pressureLine,
+    caps: grid.caps,
   });
   return (
     <figure className="space-y-4">

@@ -1,7 +1,7 @@
-import { CAUTION_TEXT } from "@/lib/cautions";
+import { cautionFor } from "@/lib/cautions";
 
-/** The clinical caution shown wherever a number is shown (PRODUCT.md). */
-export function Caution({ className = "" }: { className?: string }) {
+/** The clinical caution shown wherever a number is shown; the demo clause only for demo labs. */
+export function Caution({ className = "", demo = false }: { className?: string; demo?: boolean }) {
   return (
     <aside
       role="note"
@@ -9,7 +9,7 @@ export function Caution({ className = "" }: { className?: string }) {
       className={`rounded-md border border-warn/40 bg-warn-soft px-4 py-3 text-sm text-ink ${className}`}
     >
       <strong className="font-semibold">Caution: </strong>
-      {CAUTION_TEXT}
+      {cautionFor(demo)}
     </aside>
   );
 }

@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { assertChartRules } from "@/lib/charts/rules";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
 import { parseStoredDefinition, type ChartDefinition } from "@/lib/validation/chart";
@@ -7,6 +8,7 @@ import { db } from "../index";
 import { balloonFamilies, charts, editions, logos, stentPlatforms, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
+import { readStock } from "./stock-read";
 
 export async function createChart(
   tx: Tx,
@@ -111,6 +113,7 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
         { path: ["stentPlatformId"], message: "No such stent platform in this lab" },
       ]);
   }
+  assertChartRules(def, await readStock(tx, labId));
 }
 
 export async function getChart({ labId, chartId }: { labId: number; chartId: number }) {

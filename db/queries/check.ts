@@ -11,7 +11,7 @@ export type CheckView = {
   since: Date | null;
   edition: { id: number; number: number; approvedAt: Date | null };
   chart: { id: number; title: string };
-  lab: { id: number; slug: string; name: string };
+  lab: { id: number; slug: string; name: string; isDemo: boolean };
   changes: Change[];
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
 };
@@ -28,7 +28,7 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
         liveSnapshot: charts.liveSnapshot,
         liveChangedAt: charts.liveChangedAt,
       },
-      lab: { id: labs.id, slug: labs.slug, name: labs.name },
+      lab: { id: labs.id, slug: labs.slug, name: labs.name, isDemo: labs.isDemo },
     })
     .from(editions)
     .innerJoin(charts, eq(charts.id, editions.chartId))

@@ -3,6 +3,7 @@ import { randomBytes } from "node:crypto";
 import { and, desc, eq, max, ne } from "drizzle-orm";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
+import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
 import { parseStoredDefinition } from "@/lib/validation/chart";
@@ -74,10 +75,13 @@ export async function createEdition(
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!chart) throw notFound("Chart");
   const definition = parseStoredDefinition(chart.definition);
+  const stock = await readStock(tx, labId);
+  assertChartRules(definition, stock);
   const snapshot = buildSnapshot({
     labName: lab.name,
+    labIsDemo: lab.isDemo,
     definition,
-    stock: await readStock(tx, labId),
+    stock,
     logoSha256: chart.logoSha256 ?? null,
   });
   const problems = snapshotProblems(snapshot, definition);

@@ -33,6 +33,7 @@ export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveC
   for (const row of rows) {
     const snapshot = buildSnapshot({
       labName: lab.name,
+      labIsDemo: lab.isDemo,
       definition: parseStoredDefinition(row.definition),
       stock,
       logoSha256: row.logoSha256 ?? null,

@@ -9,9 +9,12 @@ import type { Tx } from "./audit";
  * print, its postings or its members locks the lab row first, before any other read, so what
  * it reads next is what the previous writer committed (on any app instance).
  */
-export async function lockLab(tx: Tx, labId: number): Promise<{ name: string; stockRevision: number }> {
+export async function lockLab(
+  tx: Tx,
+  labId: number,
+): Promise<{ name: string; stockRevision: number; isDemo: boolean }> {
   const [row] = await tx
-    .select({ name: labs.name, stockRevision: labs.stockRevision })
+    .select({ name: labs.name, stockRevision: labs.stockRevision, isDemo: labs.isDemo })
     .from(labs)
     .where(eq(labs.id, labId))
     .for("update");

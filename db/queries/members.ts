@@ -38,6 +38,7 @@ export async function findLabWithRole({ userId, ...lab }: { userId: number } & (
       slug: labs.slug,
       name: labs.name,
       stockRevision: labs.stockRevision,
+      isDemo: labs.isDemo,
       role: memberships.role,
     })
     .from(labs)

@@ -1,8 +1,10 @@
-import { CAUTION_TEXT } from "@/lib/cautions";
+import { cautionFor } from "@/lib/cautions";
 import type { Orientation, PaperId } from "@/lib/poster/paper";
 import {
   buildGrid,
+  DEFAULT_ROUNDING_CAPS,
   STOCK_TOLERANCE_MM,
+  type RoundingCaps,
   type BalloonFamilyStock,
   type Grid,
   type LawSpec,
@@ -30,6 +32,8 @@ export type SnapshotLookup = {
   rows: number[];
   cols: number[];
   rounding: RoundingRule;
+  /** The chart's balloon family id (absent in editions frozen before grids carried it). */
+  familyId?: number;
   /** Only the in-stock sizes that can decide a cell of this grid; null when the family is gone. */
   family: BalloonFamilyStock | null;
 };
@@ -48,6 +52,8 @@ export type Snapshot = {
   stent: { name: string; sizes: StentSize[] } | null;
   logoSha256: string | null;
   caution: string;
+  /** Rounding caps; editions frozen before caps existed print with DEFAULT_ROUNDING_CAPS. */
+  caps?: RoundingCaps;
 };
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
@@ -91,6 +97,8 @@ export function buildSnapshot(input: {
   definition: ChartDefinition;
   stock: LabStock;
   logoSha256: string | null;
+  /** Demo labs carry the "invented and illustrative" clause in their caution; real labs never do. */
+  labIsDemo?: boolean;
 }): Snapshot {
   const { definition: def, stock } = input;
   const lookups = def.lookups.map((l): SnapshotLookup => {
@@ -117,7 +125,14 @@ export function buildSnapshot(input: {
           ),
         }
       : null;
-    return { kind: l.kind, rows: grid.rowAxis.values, cols: grid.colAxis.values, rounding: l.rounding, family };
+    return {
+      kind: l.kind,
+      rows: grid.rowAxis.values,
+      cols: grid.colAxis.values,
+      rounding: l.rounding,
+      familyId: l.familyId,
+      family,
+    };
   });
   const platform = def.stentPlatformId ? stock.stentPlatforms.find((p) => p.id === def.stentPlatformId) : undefined;
   return {
@@ -139,7 +154,8 @@ export function buildSnapshot(input: {
         }
       : null,
     logoSha256: input.logoSha256,
-    caution: CAUTION_TEXT,
+    caution: cautionFor(input.labIsDemo === true),
+    caps: { ...(def.roundingCaps ?? DEFAULT_ROUNDING_CAPS) },
   };
 }
 
@@ -166,6 +182,7 @@ export function snapshotGrids(snapshot: Snapshot): Grid[] {
       rounding: l.rounding,
       family: l.family,
       stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
+      caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
     }),
   );
 }

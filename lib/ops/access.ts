@@ -10,7 +10,7 @@ import type { Caller } from "./caller";
 
 export type Member = {
   user: SessionUser;
-  lab: { id: number; slug: string; name: string; stockRevision: number };
+  lab: { id: number; slug: string; name: string; stockRevision: number; isDemo: boolean };
   role: Role;
 };
 

@@ -3,7 +3,8 @@ import { z } from "zod";
 import * as q from "@/db/queries/charts";
 import { listEditions } from "@/db/queries/editions";
 import { mergePatch } from "@/lib/charts/merge-patch";
-import { notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
+import { liveGridJson } from "@/lib/charts/grid-model";
 import { checkLogo } from "@/lib/logo";
 import { fileInput, readFileInput } from "@/lib/upload";
 import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart";
@@ -102,4 +103,17 @@ export const removeChartLogo = labOperation({
   scope: "chart",
   run: ({ labId, actor, ids }) =>
     labWrite(labId, (tx) => q.setChartLogo(tx, { labId, chartId: ids.chartId, userId: actor.id, logo: null })),
+});
+
+/** What an edition made now would print: the chart's live snapshot, cell by cell (the grid model). */
+export const chartGrid = labOperation({
+  name: "chart.grid",
+  capability: "lab:read",
+  scope: "chart",
+  run: async ({ labId, ids }) => {
+    const chart = await q.getChart({ labId, chartId: ids.chartId });
+    if (!chart) throw notFound("Chart");
+    if (!chart.liveSnapshot) throw new AppError("unavailable", "This chart's grid is being computed; try again.");
+    return liveGridJson(chart.liveSnapshot, chart.definition);
+  },
 });

@@ -1,7 +1,9 @@
 import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/editions";
+import { gridJson } from "@/lib/charts/grid-model";
 import { editionUrls } from "@/lib/charts/present";
+import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
 import { labOperation } from "./operation";
@@ -67,5 +69,17 @@ export const withdrawEdition = labOperation({
       q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason: reason ?? null }),
     );
     return { id: ed.id, number: ed.number, status: "withdrawn" as const, was: ed.was };
+  },
+});
+
+/** The frozen edition's grid, cell by cell, as its poster prints it. */
+export const editionGrid = labOperation({
+  name: "edition.grid",
+  capability: "lab:read",
+  scope: "edition",
+  run: async ({ labId, ids }) => {
+    const edition = await q.getEdition({ labId, editionId: ids.editionId });
+    if (!edition) throw notFound("Edition");
+    return gridJson(edition.snapshot);
   },
 });

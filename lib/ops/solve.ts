@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError, invalidInput } from "@/lib/errors";
-import { lawFormula, solve } from "@/lib/sizing";
+import { formatExactMm, lawFormula, solve } from "@/lib/sizing";
 import { parseSolveQuery, type QueryRecord } from "@/lib/validation/solve";
 
 /** Public: two diameters and a law give the third. Holds no lab data, so anyone may call it. */
@@ -16,6 +16,7 @@ export function solveDiameters(query: QueryRecord) {
     ...("n" in spec ? { n: spec.n } : {}),
     solved: result.solved,
     diameterMm: result.diameterMm,
+    diameterLabel: formatExactMm(result.diameterMm),
     formula: lawFormula(spec),
     warnings: result.warnings,
   };

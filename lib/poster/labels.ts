@@ -1,6 +1,7 @@
 // Words printed around the grids, shared by the PDF poster and the HTML preview.
 import {
   DEFAULT_ROUNDING,
+  hasGrowthData,
   LOOKUP_VESSELS,
   type BalloonFamilyStock,
   type Grid,
@@ -63,9 +64,18 @@ export function gridSubtitle(
   lookup: { kind: LookupKind; rounding: RoundingRule; family: BalloonFamilyStock | null },
   stentName: string | null,
 ): string {
-  const parts = [familyText(lookup.family), roundingText(lookup.kind, lookup.rounding)];
-  if (lookup.kind === "proximal")
-    parts.push(stentName ? `Stent limit: ${stentName}` : "Stent limit not checked (no stent platform)");
+  const growth = lookup.family !== null && hasGrowthData(lookup.family);
+  const rounding =
+    lookup.rounding === "reach" && lookup.family && !growth
+      ? "No growth recorded, so no pressure is printed: balloon rounded up to the next stocked size"
+      : roundingText(lookup.kind, lookup.rounding);
+  const parts = [familyText(lookup.family), rounding];
+  if (lookup.kind === "proximal") {
+    if (!stentName) parts.push("Stent limit not checked (no stent platform)");
+    else if (lookup.family && !growth)
+      parts.push(`Stent limit: ${stentName}, checked at nominal diameter (no growth at RBP recorded)`);
+    else parts.push(`Stent limit: ${stentName}, checked at RBP`);
+  }
   return parts.join(" · ");
 }
 

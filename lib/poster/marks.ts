@@ -2,7 +2,16 @@
 // Every mark has a symbol, a pattern or border AND a word in the legend, so colour is never the
 // only signal. Backgrounds are spaced in lightness so they also separate in greyscale and for
 // colour-blind readers (blue/orange/neutral grey; tests/unit/poster/palette.test.ts checks it).
-import { ASYMMETRIC_FIT_MAX_SB_MB, FINET_FIT_MIN_SB_MB, type BalloonPick, type Cell, type LawSpec } from "@/lib/sizing";
+import {
+  ASYMMETRIC_FIT_MAX_SB_MB,
+  FINET_FIT_MIN_SB_MB,
+  formatExactMm as formatExact,
+  formatSizeMm,
+  type BalloonPick,
+  type Cell,
+  type LawSpec,
+  type RoundingCaps,
+} from "@/lib/sizing";
 
 export const INK = "#17212b";
 export const INK_SOFT = "#3d4b59";
@@ -25,7 +34,7 @@ export const PALETTE = {
   watermark: "#a3261f",
 } as const;
 
-export type MarkId = "noSize" | "noStock" | "hazard" | "outsideFit";
+export type MarkId = "noSize" | "noStock" | "hazard" | "oversize" | "undersize" | "outsideFit";
 
 export type MarkDef = {
   id: MarkId;
@@ -74,6 +83,26 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     hatch: false,
     border: 0.06,
   },
+  oversize: {
+    id: "oversize",
+    symbol: "↑",
+    label: "Above the rounding cap",
+    explanation:
+      "The printed balloon is further above the exact diameter than the lab's cap allows (a gap in stock); choose with care.",
+    background: null,
+    hatch: false,
+    border: 0,
+  },
+  undersize: {
+    id: "undersize",
+    symbol: "↓",
+    label: "Below the rounding cap",
+    explanation:
+      "The printed balloon is further below the exact diameter than the lab's cap allows (a gap in stock); choose with care.",
+    background: null,
+    hatch: false,
+    border: 0,
+  },
   outsideFit: {
     id: "outsideFit",
     symbol: "◇",
@@ -85,7 +114,7 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
   },
 };
 
-export const MARK_ORDER: readonly MarkId[] = ["noSize", "noStock", "hazard", "outsideFit"];
+export const MARK_ORDER: readonly MarkId[] = ["noSize", "noStock", "hazard", "oversize", "undersize", "outsideFit"];
 
 /** Backgrounds a cell can take, for the palette tests. */
 export const CELL_BACKGROUNDS: Readonly<Record<"sized" | "noSize" | "noStock" | "hazard", string>> = {
@@ -105,13 +134,10 @@ export const TEXT_ON_BACKGROUND: readonly { what: string; text: string; backgrou
 ];
 
 /** Balloon diameters as labelled on the shelf: one or two decimals (3.0, 2.75, 2.5). */
-export function formatBalloonMm(mm: number): string {
-  const two = mm.toFixed(2);
-  return two.endsWith("0") ? mm.toFixed(1) : two;
-}
+export const formatBalloonMm = formatSizeMm;
 
-/** Exact diameters from the law, always two decimals. */
-export const formatExactMm = (mm: number): string => mm.toFixed(2);
+/** Exact diameters from the law, always two decimals, rounded half away from zero in decimal. */
+export const formatExactMm = formatExact;
 
 /** Axis headings: the values as entered, one or two decimals. */
 export const formatAxisMm = formatBalloonMm;
@@ -188,6 +214,14 @@ export function cellView(cell: Cell): CellView {
     marks.push("hazard");
     words.push(`Stent limit: ${cell.hazardDetail ?? "above the stent's post-dilatation limit"}`);
   }
+  if (cell.flags.oversize) {
+    marks.push("oversize");
+    words.push(`Above the rounding cap: ${cell.capDetail ?? "further above the exact diameter than the cap"}`);
+  }
+  if (cell.flags.undersize) {
+    marks.push("undersize");
+    words.push(`Below the rounding cap: ${cell.capDetail ?? "further below the exact diameter than the cap"}`);
+  }
   if (cell.flags.outsideFit) {
     marks.push("outsideFit");
     words.push(`Outside published fit: ${cell.fitNote ?? "read with care"}`);
@@ -213,14 +247,21 @@ export function cellView(cell: Cell): CellView {
 /** Symbols shown in a cell's corner: every mark except the one already printed as the primary. */
 export function cornerSymbols(view: CellView): string {
   return view.marks
-    .filter((m) => m === "hazard" || m === "outsideFit")
+    .filter((m) => m === "hazard" || m === "oversize" || m === "undersize" || m === "outsideFit")
     .map((m) => MARKS[m].symbol)
     .join("");
 }
 
 export type LegendEntry = { mark: MarkId | "sized"; label: string; text: string };
 
-export type LegendContext = { law: LawSpec; stentName: string | null; hasProximal: boolean; hasReach: boolean };
+export type LegendContext = {
+  law: LawSpec;
+  stentName: string | null;
+  hasProximal: boolean;
+  hasReach: boolean;
+  /** The chart's rounding caps; the defaults when absent. */
+  caps?: RoundingCaps;
+};
 
 /** Legend lines for a poster: how to read a cell, then each mark made specific to its law and stent. */
 export function legendEntries(ctx: LegendContext): LegendEntry[] {
@@ -228,7 +269,13 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
     if (m === "hazard") {
       if (!ctx.hasProximal) return "Checked on POT grids only; this chart has none.";
       if (!ctx.stentName) return "Not checked: no stent platform was chosen for this chart.";
-      return `POT above the maximum post-dilatation diameter of the ${ctx.stentName} stent sized to the main branch, or no stent of it covers the main branch; orange, heavy border.`;
+      return `POT balloon at rated burst pressure (by its growth; at nominal where none is recorded) above the maximum post-dilatation diameter of any ${ctx.stentName} stent an operator might size to the main branch (the nearest nominal at or below it up to the nearest at or above it), or no stent of it covers the main branch; orange, heavy border.`;
+    }
+    if (m === "oversize" || m === "undersize") {
+      const caps = ctx.caps ?? { upMm: 0.25, downMm: 0.5 };
+      return m === "oversize"
+        ? `The printed balloon is more than ${formatSizeMm(caps.upMm)} mm above the exact diameter (the lab's cap; a gap in stock): choose with care.`
+        : `The printed balloon is more than ${formatSizeMm(caps.downMm)} mm below the exact diameter (the lab's cap; a gap in stock): choose with care.`;
     }
     if (m === "outsideFit") {
       switch (ctx.law.law) {
@@ -251,7 +298,7 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
     text:
       "Large: the stocked balloon, mm. Small, in brackets: the exact diameter from the law, mm." +
       (ctx.hasReach
-        ? " “@ 16 atm”: this balloon reaches the target at that pressure (the device's own compliance chart rules)."
+        ? " “@ N atm”: this balloon reaches the target at N atm, never above its rated burst pressure (the device's own compliance chart rules)."
         : ""),
   };
   return [sized, ...MARK_ORDER.map((m) => ({ mark: m, label: `${MARKS[m].symbol} ${MARKS[m].label}`, text: text(m) }))];

@@ -1,7 +1,7 @@
 // From a frozen snapshot to what the layout and the legend need: used by the poster, and by the
 // designer page to show legibility before anything is rendered.
 import type { Snapshot } from "@/lib/charts/snapshot";
-import { LAWS } from "@/lib/sizing";
+import { DEFAULT_ROUNDING_CAPS, LAWS } from "@/lib/sizing";
 import { gridSubtitle, lookupTitle, statusBanner, shortUrl } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { LayoutInput } from "./layout";
@@ -14,6 +14,7 @@ export function posterLegend(snapshot: Snapshot): LegendEntry[] {
     stentName: snapshot.stent?.name ?? null,
     hasProximal: snapshot.lookups.some((l) => l.kind === "proximal"),
     hasReach: snapshot.lookups.some((l) => l.rounding === "reach"),
+    caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
   });
 }
 

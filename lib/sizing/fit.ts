@@ -1,3 +1,4 @@
+import { formatDecimal } from "./format";
 import type { LawSpec } from "./laws";
 
 /**
@@ -19,7 +20,7 @@ export type LawFit = { withinPublishedFit: boolean; note: string };
  */
 export function lawFit(spec: LawSpec, mb: number, sb: number): LawFit {
   const q = sb / mb;
-  const here = `here Dsb/Dmb = ${q.toFixed(3)}`;
+  const here = `here Dsb/Dmb = ${formatDecimal(q, 3)}`;
   switch (spec.law) {
     case "huo-kassab":
       return {

@@ -1,7 +1,16 @@
 import { resolveAxis, type AxisInput } from "./axis";
+import { formatExactMm } from "./format";
 import { lawFit } from "./fit";
 import { lawSpecProblem, solve, type KnownDiameters, type LawSpec, type Vessel } from "./laws";
-import { pickBalloon, type BalloonFamilyStock, type BalloonPick, type LookupKind, type RoundingRule } from "./rounding";
+import {
+  balloonDiameterAt,
+  hasGrowthData,
+  pickBalloon,
+  type BalloonFamilyStock,
+  type BalloonPick,
+  type LookupKind,
+  type RoundingRule,
+} from "./rounding";
 import { checkPot, type StentSize } from "./stent";
 
 export type GridInput = {
@@ -13,7 +22,19 @@ export type GridInput = {
   family: BalloonFamilyStock | null;
   /** Main-branch stent platform; only proximal lookups use it. Empty or null: no hazard check. */
   stent?: readonly StentSize[] | null;
+  /** How far a printed size may differ from its exact target; DEFAULT_ROUNDING_CAPS when absent. */
+  caps?: RoundingCaps;
 };
+
+export type RoundingCaps = { upMm: number; downMm: number };
+
+/**
+ * Default rounding caps: a printed balloon at most 0.25 mm above or 0.5 mm below its exact
+ * target without a mark (common practice; no published source). The lab may set its own.
+ */
+export const DEFAULT_ROUNDING_CAPS: Readonly<RoundingCaps> = { upMm: 0.25, downMm: 0.5 };
+
+const CAP_SLACK_MM = 1e-9;
 
 export type GridAxis = { vessel: Vessel; label: string; values: number[] };
 
@@ -27,8 +48,10 @@ export type Cell = {
   exact: CellExact;
   /** null when the cell has no exact size or the chart has no balloon family. */
   balloon: BalloonPick | null;
-  flags: { hazard: boolean; outsideFit: boolean };
+  flags: { hazard: boolean; outsideFit: boolean; oversize: boolean; undersize: boolean };
   hazardDetail?: string;
+  /** Printed size minus exact target, mm, when the cap is exceeded. */
+  capDetail?: string;
   fitNote?: string;
 };
 
@@ -39,6 +62,9 @@ export type Grid = {
   colAxis: GridAxis;
   law: LawSpec;
   rounding: RoundingRule;
+  caps: RoundingCaps;
+  /** Proximal grids with a platform: the balloon diameter the stent limit was checked at. */
+  stentCheck: "rbp" | "nominal" | null;
   cells: Cell[][];
 };
 
@@ -72,6 +98,9 @@ export function buildGrid(input: GridInput): Grid {
   if (!cols.ok) throw new GridInputError(`Columns: ${cols.reason}`);
 
   const platform = input.kind === "proximal" && input.stent && input.stent.length > 0 ? input.stent : null;
+  const caps = input.caps ?? DEFAULT_ROUNDING_CAPS;
+  const family = input.family;
+  const growth = family !== null && hasGrowthData(family);
 
   const cells = rows.values.map((row) =>
     cols.values.map((col): Cell => {
@@ -83,7 +112,7 @@ export function buildGrid(input: GridInput): Grid {
           col,
           exact: { ok: false, reason: result.reason },
           balloon: null,
-          flags: { hazard: false, outsideFit: false },
+          flags: { hazard: false, outsideFit: false, oversize: false, undersize: false },
         };
       }
       const exact = result.diameterMm;
@@ -95,12 +124,33 @@ export function buildGrid(input: GridInput): Grid {
         col,
         exact: { ok: true, diameterMm: exact },
         balloon,
-        flags: { hazard: false, outsideFit: !fit.withinPublishedFit },
+        flags: { hazard: false, outsideFit: !fit.withinPublishedFit, oversize: false, undersize: false },
       };
       if (!fit.withinPublishedFit) cell.fitNote = fit.note;
+      if (balloon?.ok) {
+        // What the operator gets: the nominal size, or the stated reach pressure's diameter.
+        const delivered = balloon.pressureAtm === null ? balloon.diameterMm : balloon.expectedMm;
+        const off = delivered - exact;
+        if (off > caps.upMm + CAP_SLACK_MM) {
+          cell.flags.oversize = true;
+          cell.capDetail = `${formatExactMm(delivered)} mm is ${formatExactMm(off)} mm above the exact ${formatExactMm(exact)} mm (cap ${caps.upMm} mm)`;
+        } else if (-off > caps.downMm + CAP_SLACK_MM) {
+          cell.flags.undersize = true;
+          cell.capDetail = `${formatExactMm(delivered)} mm is ${formatExactMm(-off)} mm below the exact ${formatExactMm(exact)} mm (cap ${caps.downMm} mm)`;
+        }
+      }
       if (platform) {
-        const pot = balloon?.ok ? Math.max(balloon.diameterMm, balloon.expectedMm) : exact;
-        const check = checkPot(pot, full.mb, platform);
+        // Checked at the highest pressure the cell allows: rated burst pressure, by the family's
+        // growth (a reach cell's stated pressure is lower, so this also covers it). Without
+        // growth data the balloon is checked at its nominal diameter.
+        const atRbp =
+          balloon?.ok && family
+            ? growth
+              ? balloonDiameterAt(family, balloon.diameterMm, family.rbpAtm)
+              : balloon.diameterMm
+            : exact;
+        const at = balloon?.ok && family ? (growth ? ` at RBP ${family.rbpAtm} atm` : " at nominal") : "";
+        const check = checkPot(atRbp, full.mb, platform, at);
         cell.flags.hazard = check.hazard;
         if (check.detail) cell.hazardDetail = check.detail;
       }
@@ -115,6 +165,8 @@ export function buildGrid(input: GridInput): Grid {
     colAxis: { vessel: vessels.cols, label: VESSEL_LABELS[vessels.cols], values: cols.values },
     law: { ...input.law },
     rounding: input.rounding,
+    caps: { ...caps },
+    stentCheck: platform ? (growth ? "rbp" : "nominal") : null,
     cells,
   };
 }
@@ -127,11 +179,22 @@ export type GridSummary = {
   noStock: number;
   hazard: number;
   outsideFit: number;
+  oversize: number;
+  undersize: number;
 };
 
 /** Counts for legends. */
 export function gridSummary(grid: Grid): GridSummary {
-  const s: GridSummary = { cells: 0, sized: 0, noSize: 0, noStock: 0, hazard: 0, outsideFit: 0 };
+  const s: GridSummary = {
+    cells: 0,
+    sized: 0,
+    noSize: 0,
+    noStock: 0,
+    hazard: 0,
+    outsideFit: 0,
+    oversize: 0,
+    undersize: 0,
+  };
   for (const cell of grid.cells.flat()) {
     s.cells++;
     if (!cell.exact.ok) s.noSize++;
@@ -139,6 +202,39 @@ export function gridSummary(grid: Grid): GridSummary {
     else s.sized++;
     if (cell.flags.hazard) s.hazard++;
     if (cell.flags.outsideFit) s.outsideFit++;
+    if (cell.flags.oversize) s.oversize++;
+    if (cell.flags.undersize) s.undersize++;
   }
   return s;
+}
+
+/** The marks a cell can carry, by their API names (grid API, poster, preview and tests share them). */
+export const GRID_MARKS = [
+  "not-bifurcation",
+  "below-stock",
+  "above-stock",
+  "stent-limit",
+  "oversize",
+  "undersize",
+  "outside-fit",
+] as const;
+export type GridMark = (typeof GRID_MARKS)[number];
+
+/**
+ * A cell's marks in GRID_MARKS order. A family with nothing in stock covers no target at either
+ * end, so such a cell carries both `below-stock` and `above-stock`.
+ */
+export function cellMarks(cell: Cell): GridMark[] {
+  if (!cell.exact.ok) return ["not-bifurcation"];
+  const marks: GridMark[] = [];
+  const pick = cell.balloon;
+  if (pick && !pick.ok) {
+    if (pick.code === "below_stock" || pick.code === "no_stock") marks.push("below-stock");
+    if (pick.code === "above_stock" || pick.code === "no_stock") marks.push("above-stock");
+  }
+  if (cell.flags.hazard) marks.push("stent-limit");
+  if (cell.flags.oversize) marks.push("oversize");
+  if (cell.flags.undersize) marks.push("undersize");
+  if (cell.flags.outsideFit) marks.push("outside-fit");
+  return marks;
 }

@@ -4,3 +4,4 @@ export * from "./rounding";
 export * from "./stent";
 export * from "./axis";
 export * from "./grid";
+export * from "./format";

@@ -1,3 +1,4 @@
+import { formatDecimal } from "./format";
 import { lawFit } from "./fit";
 
 export type LawId = "finet" | "murray" | "huo-kassab" | "square" | "power";
@@ -35,6 +36,15 @@ export const SQUARE_N = 2;
  */
 export const GEOMETRY_EPS_MM = 1e-9;
 
+/**
+ * The meaningful geometry: every diameter given to or produced by the engine lies within
+ * MIN_DIAMETER_MM..MAX_DIAMETER_MM, and a parent less than MIN_PARENT_STEP_MM above the main
+ * branch is not a bifurcation (no size). Bounds of the trade, not of any law (common practice).
+ */
+export const MIN_DIAMETER_MM = 0.5;
+export const MAX_DIAMETER_MM = 10;
+export const MIN_PARENT_STEP_MM = 0.05;
+
 export type LawInfo = {
   id: LawId;
   name: string;
@@ -45,11 +55,13 @@ export type LawInfo = {
 
 export const LAWS: Readonly<Record<LawId, LawInfo>> = {
   finet: {
+    // Title, authors, journal and year are verified against the journal's article page; the
+    // volume and pages (3:490-498, from memory) are not, so nothing printed carries them.
     id: "finet",
     name: "Finet",
     formula: "Dp = 0.678 × (Dmb + Dsb)",
     source:
-      "Finet G, Gilard M, Perrenot B, et al. Fractal geometry of arterial coronary bifurcations: a QCA and IVUS analysis. EuroIntervention 2008;3:490-498 (volume and pages from memory)",
+      "Finet G, Gilard M, Perrenot B, et al. Fractal geometry of arterial coronary bifurcations: a QCA and IVUS analysis. EuroIntervention (2008)",
   },
   murray: {
     id: "murray",
@@ -146,7 +158,7 @@ export function isSize(parent: number, mb: number, sb: number): boolean {
 }
 
 const fail = (reason: string): SolveFail => ({ ok: false, code: "no_solution", reason });
-const fmt3 = (x: number): string => x.toFixed(3);
+const fmt3 = (x: number): string => formatDecimal(x, 3);
 
 /**
  * Solves the one unknown diameter (mm) from the two given. Throws RangeError when the spec is
@@ -162,6 +174,9 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
     const v = known[k] as number;
     if (!Number.isFinite(v)) return fail("Diameters must be numbers in mm");
     if (v <= 0) return fail("Diameters must be greater than zero");
+    if (v < MIN_DIAMETER_MM - GEOMETRY_EPS_MM || v > MAX_DIAMETER_MM + GEOMETRY_EPS_MM) {
+      return fail(`Diameters must be between ${MIN_DIAMETER_MM} and ${MAX_DIAMETER_MM} mm`);
+    }
   }
   const { parent, mb, sb } = known;
   let result: { solved: Vessel; value: number } | SolveFail;
@@ -173,6 +188,18 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
   const triple = { parent, mb, sb, [result.solved]: result.value } as Required<KnownDiameters>;
   if (!isSize(triple.parent, triple.mb, triple.sb)) {
     return fail("These diameters do not form a bifurcation (parent > main branch ≥ side branch > 0)");
+  }
+  if (triple.parent - triple.mb < MIN_PARENT_STEP_MM - GEOMETRY_EPS_MM) {
+    return fail(
+      `Not a bifurcation: the parent is less than ${MIN_PARENT_STEP_MM} mm above the main branch ` +
+        `(here ${fmt3(triple.parent - triple.mb)} mm)`,
+    );
+  }
+  if (result.value < MIN_DIAMETER_MM - GEOMETRY_EPS_MM || result.value > MAX_DIAMETER_MM + GEOMETRY_EPS_MM) {
+    return fail(
+      `The ${result.solved === "mb" ? "main branch" : result.solved === "sb" ? "side branch" : "parent"} ` +
+        `would be ${fmt3(result.value)} mm, outside the meaningful ${MIN_DIAMETER_MM}-${MAX_DIAMETER_MM} mm`,
+    );
   }
   const fit = lawFit(spec, triple.mb, triple.sb);
   return {

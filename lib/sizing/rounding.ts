@@ -1,3 +1,4 @@
+import { formatExactMm } from "./format";
 export type RoundingRule = "up" | "down" | "nearest" | "reach";
 export type LookupKind = "proximal" | "side" | "main";
 
@@ -41,7 +42,7 @@ export type BalloonPickFail = {
 };
 export type BalloonPick = BalloonPickOk | BalloonPickFail;
 
-const mm = (x: number): string => x.toFixed(2);
+const mm = (x: number): string => formatExactMm(x);
 
 /** True when the family carries compliance data that reach-by-pressure can use. */
 export function hasGrowthData(family: BalloonFamilyStock): boolean {

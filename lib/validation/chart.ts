@@ -2,6 +2,7 @@ import { z } from "zod";
 import { freeText } from "./text";
 import { ORIENTATIONS, PAPER_IDS } from "@/lib/poster/paper";
 import {
+  DEFAULT_ROUNDING_CAPS,
   FINET_DEFAULT_RATIO,
   FINET_RATIO_MAX,
   FINET_RATIO_MIN,
@@ -15,6 +16,7 @@ export const LOOKUP_KINDS = ["proximal", "side", "main"] as const;
 export const ROUNDING_RULES = ["up", "down", "nearest", "reach"] as const;
 export const READING_DISTANCE_MIN_M = 0.5;
 export const READING_DISTANCE_MAX_M = 10;
+export const ROUNDING_CAP_MAX_MM = 1;
 
 export const lawSpecSchema = z.discriminatedUnion(
   "law",
@@ -51,6 +53,22 @@ const axisSchema = z
     if (!resolved.ok) ctx.addIssue({ code: "custom", message: resolved.reason });
   });
 
+/** How far a printed size may differ from its exact target before the cell is marked. */
+export const roundingCapsSchema = z
+  .object({
+    upMm: z
+      .number()
+      .min(0, "The cap above must be 0 mm or more")
+      .max(ROUNDING_CAP_MAX_MM, `The cap above must be at most ${ROUNDING_CAP_MAX_MM} mm`)
+      .default(DEFAULT_ROUNDING_CAPS.upMm),
+    downMm: z
+      .number()
+      .min(0, "The cap below must be 0 mm or more")
+      .max(ROUNDING_CAP_MAX_MM, `The cap below must be at most ${ROUNDING_CAP_MAX_MM} mm`)
+      .default(DEFAULT_ROUNDING_CAPS.downMm),
+  })
+  .strict();
+
 export const lookupSchema = z
   .object({
     kind: z.enum(LOOKUP_KINDS, { error: "Lookup kind must be proximal, side or main" }),
@@ -60,6 +78,14 @@ export const lookupSchema = z
     familyId: z.number().int().positive("Choose a balloon family"),
   })
   .strict();
+
+const stentPlatformIdSchema = z.number().int().positive().nullable();
+const notesSchema = freeText({
+  what: "Notes",
+  max: 600,
+  multiline: true,
+  maxMessage: "Keep notes under 600 characters",
+});
 
 export const chartDefinitionSchema = z
   .object({
@@ -83,26 +109,30 @@ export const chartDefinitionSchema = z
           seen.add(l.kind);
         });
       }),
-    stentPlatformId: z.number().int().positive().nullable().default(null),
+    stentPlatformId: stentPlatformIdSchema.default(null),
     paper: z.enum(PAPER_IDS, { error: `Paper must be one of ${PAPER_IDS.join(", ")}` }),
     orientation: z.enum(ORIENTATIONS, { error: "Orientation must be portrait or landscape" }),
     readingDistanceM: z
       .number()
       .min(READING_DISTANCE_MIN_M, `Reading distance must be at least ${READING_DISTANCE_MIN_M} m`)
       .max(READING_DISTANCE_MAX_M, `Reading distance must be at most ${READING_DISTANCE_MAX_M} m`),
-    notes: freeText({
-      what: "Notes",
-      max: 600,
-      multiline: true,
-      maxMessage: "Keep notes under 600 characters",
-    }).default(""),
+    notes: notesSchema.default(""),
+    // Until lab rules hold them, the caps live in the chart; stored charts without them take the defaults.
+    roundingCaps: roundingCapsSchema.default({ ...DEFAULT_ROUNDING_CAPS }),
   })
   .strict();
 
 export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
 
-/** PATCH accepts any subset of the definition; the merged result is validated whole. */
-export const chartPatchSchema = chartDefinitionSchema.partial().strict();
+/**
+ * PATCH accepts any subset of the definition; the merged result is validated whole. The fields
+ * with defaults lose them here, so a PATCH that leaves a field out keeps the chart's own value
+ * (a title change must not drop the stent platform and with it the stent-limit check).
+ */
+export const chartPatchSchema = chartDefinitionSchema
+  .extend({ stentPlatformId: stentPlatformIdSchema, notes: notesSchema, roundingCaps: roundingCapsSchema })
+  .partial()
+  .strict();
 
 /** A definition read back from the database; one that no longer validates is a server fault. */
 export function parseStoredDefinition(raw: unknown): ChartDefinition {

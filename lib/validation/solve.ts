@@ -4,6 +4,8 @@ import {
   FINET_RATIO_MAX,
   FINET_RATIO_MIN,
   LAW_IDS,
+  MAX_DIAMETER_MM,
+  MIN_DIAMETER_MM,
   POWER_N_MAX,
   POWER_N_MIN,
   type KnownDiameters,
@@ -13,7 +15,8 @@ import {
 
 /** Query limits for GET /api/v1/solve. */
 export const SOLVE_MAX_VALUE_LENGTH = 16;
-export const SOLVE_MAX_DIAMETER_MM = 10;
+export const SOLVE_MAX_DIAMETER_MM = MAX_DIAMETER_MM;
+export const SOLVE_MIN_DIAMETER_MM = MIN_DIAMETER_MM;
 
 const KEYS = ["law", "n", "ratio", "parent", "mb", "sb"] as const;
 const DIAMETERS = ["parent", "mb", "sb"] as const;
@@ -96,6 +99,7 @@ export const solveQuerySchema = queryObject.transform((raw, ctx): SolveQuery => 
     const x = decimal(key, s);
     if (x === null) continue;
     if (x <= 0) issue([key], "Must be greater than 0 mm");
+    else if (x < SOLVE_MIN_DIAMETER_MM) issue([key], `Must be at least ${SOLVE_MIN_DIAMETER_MM} mm`);
     else if (x > SOLVE_MAX_DIAMETER_MM) issue([key], `Must be at most ${SOLVE_MAX_DIAMETER_MM} mm`);
     else known[key] = x;
   }

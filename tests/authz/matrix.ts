@@ -324,6 +324,27 @@ export const ROUTES: RouteRow[] = [
   {
     kind: "route",
     method: "GET",
+    route: "/api/v1/charts/[id]/grid",
+    url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/grid`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/charts/[id]/grid",
+    url: "/api/v1/charts/999999999/grid",
+    expect: everyoneSignedIn(404),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/grid",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/grid`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
     route: "/api/v1/charts/[id]/logo",
     url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/logo`,
     expect: everyoneSignedIn(404),

@@ -163,7 +163,9 @@ if (!existsSync(path.join(dist, "BUILD_ID"))) {
   await exec(["node_modules/next/dist/bin/next", "build"], {});
 }
 const { startFakeMail, fakeMailPorts } = await import("@/lib/mail/fake-server");
-const mail = await startFakeMail(fakeMailPorts(process.env.SMTP_URL!, process.env.MAIL_FAKE_URL!, process.env.MAIL_FAKE_SECRET!));
+const mail = await startFakeMail(
+  fakeMailPorts(process.env.SMTP_URL!, process.env.MAIL_FAKE_URL!, process.env.MAIL_FAKE_SECRET!),
+);
 const A = `http://localhost:${portA}`;
 const B = `http://localhost:${portB}`;
 const children: ChildProcess[] = [];

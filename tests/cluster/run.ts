@@ -70,7 +70,9 @@ try {
   await clusterUp({ log: (m) => console.log(m) });
   await provisionCluster({ fresh: true, log: (m) => console.log(m) });
   const { startFakeMail, fakeMailPorts } = await import("@/lib/mail/fake-server");
-  mail = await startFakeMail(fakeMailPorts(process.env.SMTP_URL!, process.env.MAIL_FAKE_URL!, process.env.MAIL_FAKE_SECRET!));
+  mail = await startFakeMail(
+    fakeMailPorts(process.env.SMTP_URL!, process.env.MAIL_FAKE_URL!, process.env.MAIL_FAKE_SECRET!),
+  );
 
   const dist = process.env.NEXT_DIST_DIR!;
   if (!(process.argv.includes("--reuse-build") && existsSync(path.join(dist, "BUILD_ID")))) {

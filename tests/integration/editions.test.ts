@@ -6,7 +6,7 @@ import { getChart } from "@/db/queries/charts";
 import { refreshLiveSnapshots } from "@/db/queries/lab-changes";
 import { getEdition } from "@/db/queries/editions";
 import { approveEdition, createChart, createEdition, rejectEdition, withdrawEdition } from "./support/writes";
-import { balloonFamilies, balloons, editions, labs, users } from "@/db/schema";
+import { balloonFamilies, balloons, charts, editions, labs, users } from "@/db/schema";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { AppError } from "@/lib/errors";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
@@ -85,6 +85,34 @@ const setInStock = async (diameterMm: number, inStock: boolean) => {
 
 // Each test makes what it needs, so any one of them can run alone or in any order.
 const newChart = async () => (await createChart({ labId, userId: people.educator.id, definition: definition() })).id;
+
+describe("clinical guardrails through the database", () => {
+  it("refuses a chart that breaks a lookup rule with a 400 naming the rule, and writes nothing", async () => {
+    const bad = { ...definition(), title: `Bad rule ${tag}` };
+    bad.lookups = [{ ...bad.lookups[0]!, rounding: "down" }];
+    const before = await db
+      .select({ n: sql<number>`count(*)` })
+      .from(charts)
+      .where(eq(charts.labId, labId));
+    await expectAppError(createChart({ labId, userId: people.educator.id, definition: bad }), 400, /proximal rounding/);
+    const after = await db
+      .select({ n: sql<number>`count(*)` })
+      .from(charts)
+      .where(eq(charts.labId, labId));
+    expect(Number(after[0]!.n)).toBe(Number(before[0]!.n));
+  });
+
+  it("a real (not demo) lab's edition carries no invented-data clause", async () => {
+    const chartId = (
+      await createChart({ labId, userId: people.educator.id, definition: { ...definition(), title: `Real ${tag}` } })
+    ).id;
+    const ed = await createEdition({ labId, chartId, actor: people.educator });
+    const row = await getEdition({ labId, editionId: ed.id });
+    expect(row!.snapshot.caution).toContain("Reference aid only");
+    expect(row!.snapshot.caution).not.toContain("invented");
+    expect(row!.snapshot.caps).toEqual({ upMm: 0.25, downMm: 0.5 });
+  });
+});
 
 async function approvedEdition() {
   const chartId = await newChart();

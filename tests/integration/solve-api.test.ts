@@ -12,6 +12,7 @@ describe("GET /api/v1/solve", () => {
     expect(status).toBe(200);
     expect(body).toMatchObject({ law: "finet", solved: "parent" });
     expect(body.diameterMm).toBeCloseTo(4.068, 12);
+    expect(body.diameterLabel).toBe("4.07"); // the one decimal-label function
     expect(body.formula).toContain("0.678");
     // SB/MB = 0.71, below the 0.75 where Finet's ratio fitted best (Huo et al. 2012).
     expect(body.warnings.join(" ")).toMatch(/fit/i);
@@ -28,6 +29,25 @@ describe("GET /api/v1/solve", () => {
     expect(status).toBe(200);
     expect(body.solved).toBe("sb");
     expect(body.diameterMm).toBeCloseTo(Math.cbrt(64 - 42.875), 12);
+  });
+
+  it("refuses input outside the meaningful geometry (400) and results outside it (422)", async () => {
+    const tiny = await call("law=murray&mb=0.001&sb=0.001");
+    expect(tiny.status).toBe(400);
+    expect(tiny.body.error.issues.map((i: { path: string[] }) => i.path[0])).toEqual(["mb", "sb"]);
+    for (const key of ["__proto__", "constructor"]) {
+      const r = await call(`law=murray&mb=3&sb=2&${key}=1`);
+      expect(r.status, key).toBe(400);
+      expect(r.body.error.issues).toEqual([{ path: [key], message: "Unknown query parameter" }]);
+    }
+    // A parent 0.0002 mm above the main branch (Finet: 0.678 x (4 + 1.9) = 4.0002) is no bifurcation.
+    const flat = await call("law=finet&mb=4&sb=1.9");
+    expect(flat.status).toBe(422);
+    expect(flat.body.error.message).toMatch(/Not a bifurcation/);
+    // Murray: (0.65^3 - 0.58^3)^(1/3) = 0.43 mm, a side branch below the meaningful 0.5 mm.
+    const thin = await call("law=murray&parent=0.65&mb=0.58");
+    expect(thin.status).toBe(422);
+    expect(thin.body.error.message).toMatch(/outside the meaningful 0.5-10 mm/);
   });
 
   it("a power law needs n within 1.5..3.5", async () => {

@@ -85,7 +85,8 @@ function swatchView(mark: MarkId | "sized"): CellView {
   const def = mark === "sized" ? null : MARKS[mark];
   return {
     primary: mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5",
-    primaryIsSize: mark === "sized" || mark === "hazard" || mark === "outsideFit",
+    primaryIsSize:
+      mark === "sized" || mark === "hazard" || mark === "oversize" || mark === "undersize" || mark === "outsideFit",
     pressure: null,
     exact: mark === "noSize" ? null : "(3.42)",
     marks: def ? [def.id] : [],

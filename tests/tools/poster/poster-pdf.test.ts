@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { renderPosterPdf } from "@/lib/poster/pdf/render";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
-import { snapshotGrids } from "@/lib/charts/snapshot";
+import { gridJson } from "@/lib/charts/grid-model";
+import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import { CAUTION_TEXT } from "@/lib/cautions";
-import { pickBalloon, type Grid } from "@/lib/sizing";
+import { pickBalloon, type Grid, type GridMark } from "@/lib/sizing";
 import { PNG } from "pngjs";
 import { pdfText } from "@/tests/support/pdf-tools";
 import { kissingDefinition, posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
@@ -37,7 +38,7 @@ function readGrid(text: string, rows: number, cols: number) {
       let exact: string | null = null;
       let corner = "";
       if (/^\(\d+\.\d\d\)$/.test(tokens[i] ?? "")) exact = tokens[i++] as string;
-      if (/^[⚠◇]+$/u.test(tokens[i] ?? "")) corner = tokens[i++] as string;
+      if (/^[⚠↑↓◇]+$/u.test(tokens[i] ?? "")) corner = tokens[i++] as string;
       const primary = tokens[i++] as string;
       let pressure: string | null = null;
       if (tokens[i] === "@") {
@@ -51,23 +52,34 @@ function readGrid(text: string, rows: number, cols: number) {
   return { colHeads, rowHeads, cells, next: tokens[i] };
 }
 
-/** What the grid model says each cell must print. */
-function expectedCells(grid: Grid): ParsedCell[][] {
-  return grid.cells.map((row) =>
+/**
+ * What the grid API's model (gridJson) says each cell must print: the poster read back from its
+ * PDF must agree with it cell for cell (size label, exact label, pressure and every mark).
+ */
+function expectedCells(snapshot: Snapshot, index = 0): ParsedCell[][] {
+  const lookup = gridJson(snapshot).lookups[index]!;
+  const CORNER: Partial<Record<GridMark, string>> = {
+    "stent-limit": "⚠",
+    oversize: "↑",
+    undersize: "↓",
+    "outside-fit": "◇",
+  };
+  return lookup.cells.map((row) =>
     row.map((cell) => {
-      if (!cell.exact.ok) return { exact: null, corner: "", primary: "—", pressure: null };
-      const corner = (cell.flags.hazard ? "⚠" : "") + (cell.flags.outsideFit ? "◇" : "");
-      const b = cell.balloon;
-      const primary = !b
-        ? cell.exact.diameterMm.toFixed(2)
-        : b.ok
-          ? shelf(b.diameterMm)
-          : { above_stock: "▲", below_stock: "▼", no_stock: "○" }[b.code];
+      if (cell.marks.includes("not-bifurcation")) return { exact: null, corner: "", primary: "—", pressure: null };
+      const corner = cell.marks.map((m) => CORNER[m] ?? "").join("");
+      const primary =
+        cell.sizeLabel ??
+        (cell.marks.includes("below-stock") && cell.marks.includes("above-stock")
+          ? "○"
+          : cell.marks.includes("above-stock")
+            ? "▲"
+            : "▼");
       return {
-        exact: b ? `(${cell.exact.diameterMm.toFixed(2)})` : null,
+        exact: `(${cell.exactLabel})`,
         corner,
         primary,
-        pressure: b && b.ok && b.pressureAtm !== null ? `@ ${b.pressureAtm} atm` : null,
+        pressure: cell.atm !== null ? `@ ${cell.atm} atm` : null,
       };
     }),
   );
@@ -99,7 +111,7 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
       "POT balloon chart (illustrative)",
       "Law: Finet (ratio 0.678)",
       "Dp = 0.678 × (Dmb + Dsb)",
-      "EuroIntervention 2008",
+      "EuroIntervention (2008)",
       "Edition 3",
       "Approved 2 Mar 2026 by Dr A. Example (illustrative)",
       `Fingerprint ${shortFingerprint(input.edition.fingerprint)}`,
@@ -116,6 +128,9 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
       expect(flat, s).toContain(s);
     }
     expect(flat).not.toContain("DRAFT");
+    expect(flat).not.toMatch(/from memory/i);
+    // The fixture lab is not flagged demo: no "invented and illustrative" clause.
+    expect(flat).not.toContain("invented and illustrative");
   });
 
   it("explains every mark in the legend, in words", () => {
@@ -126,6 +141,8 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
       "▲▼ No stocked size.",
       "⚠ Stent limit.",
       "◇ Outside published fit.",
+      "↑ Above the rounding cap.",
+      "↓ Below the rounding cap.",
       "grey hatched",
       "heavy border",
       "Dsb/Dmb ≥ 0.75",
@@ -138,7 +155,7 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
     expect(read.colHeads).toEqual(grid.colAxis.values.map(shelf));
     expect(read.rowHeads).toEqual(grid.rowAxis.values.map(shelf));
-    expect(read.cells).toEqual(expectedCells(grid));
+    expect(read.cells).toEqual(expectedCells(snapshot));
     expect(read.next).toBe("CAUTION.");
     // The grid uses every kind of mark, so the check above covers them all.
     const all = read.cells.flat();
@@ -156,7 +173,8 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     const dp = 0.678 * (3 + 2.5); // 3.729
     expect(at(3, 2.5)).toMatchObject({ exact: `(${dp.toFixed(2)})`, primary: "3.75" });
     const dp2 = 0.678 * (3.5 + 3.25); // 4.5765; 4.75 is out of stock in the fixture, so 5.0
-    expect(at(3.5, 3.25)).toMatchObject({ exact: "(4.58)", primary: "5.0", corner: "⚠" });
+    // 5.0 is 0.42 mm above 4.58 (past the 0.25 mm cap above, common practice): ↑ beside ⚠.
+    expect(at(3.5, 3.25)).toMatchObject({ exact: "(4.58)", primary: "5.0", corner: "⚠↑" });
     expect(pickBalloon(dp2, snapshot.lookups[0]!.family!, "up")).toMatchObject({ ok: true, diameterMm: 5 });
     // Finet gives no parent above the main branch when Dsb < 0.4749 Dmb... and for Dsb > Dmb there is no bifurcation.
     expect(at(2.5, 2.75)?.primary).toBe("—");
@@ -181,7 +199,7 @@ describe("the kissing poster read back (square law, Tabloid landscape, draft)", 
     expect(flat).toContain("Side-branch balloon from parent × main branch");
     expect(flat).toContain("Balloon rounded down to the next smaller stocked size (common practice)");
     const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
-    expect(read.cells).toEqual(expectedCells(grid));
+    expect(read.cells).toEqual(expectedCells(snapshot));
   });
 
   it("matches the square law computed here, rounded down to stock (side branch, common practice)", () => {

@@ -2,7 +2,9 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { GridPreview } from "@/components/poster/grid-preview";
+import { gridJson } from "@/lib/charts/grid-model";
 import { snapshotGrids } from "@/lib/charts/snapshot";
+import type { GridMark } from "@/lib/sizing";
 import { CAUTION_TEXT } from "@/lib/cautions";
 import { cellView, MARKS, PALETTE } from "@/lib/poster/marks";
 import { potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
@@ -62,5 +64,39 @@ describe("GridPreview (HTML)", () => {
     ])
       expect(text).toContain(s);
     expect(text).toContain(CAUTION_TEXT);
+  });
+});
+
+describe("the designer preview agrees with the grid API cell for cell", () => {
+  it("prints each cell's size label, exact label, pressure and marks as gridJson answers them", () => {
+    const json = gridJson(snapshot).lookups[0]!;
+    const tds = [...html.matchAll(/<td([^>]*)>(.*?)<\/td>/g)].map(([, attrs, inner]) => [
+      "",
+      /data-marks="([^"]*)"/.exec(attrs!)?.[1],
+      inner,
+    ]);
+    expect(tds).toHaveLength(json.cells.flat().length);
+    const MARK_NAMES: Record<string, GridMark[]> = {
+      noSize: ["not-bifurcation"],
+      hazard: ["stent-limit"],
+      oversize: ["oversize"],
+      undersize: ["undersize"],
+      outsideFit: ["outside-fit"],
+    };
+    json.cells.flat().forEach((cell, k) => {
+      const [, marksAttr, inner] = tds[k]!;
+      const spans = [...decode(inner!).matchAll(/<span class="block text-xl font-bold leading-none">([^<]*)<\/span>/g)];
+      const primary = spans[0]![1];
+      const previewMarks = (marksAttr ?? "")
+        .split(" ")
+        .filter(Boolean)
+        .flatMap((m) => (m === "noStock" ? cell.marks.filter((x) => x.endsWith("-stock")) : (MARK_NAMES[m] ?? [])));
+      expect(previewMarks, `cell ${k}`).toEqual(cell.marks);
+      if (cell.sizeLabel !== null) expect(primary).toBe(cell.sizeLabel);
+      if (cell.exactLabel !== null && cell.sizeLabel !== null) expect(decode(inner!)).toContain(`(${cell.exactLabel})`);
+      if (cell.atm !== null) expect(decode(inner!)).toContain(`@ ${cell.atm} atm`);
+    });
+    expect(json.cells.flat().some((c) => c.marks.includes("oversize"))).toBe(true);
+    expect(json.cells.flat().some((c) => c.marks.includes("stent-limit"))).toBe(true);
   });
 });

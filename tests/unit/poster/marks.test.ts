@@ -36,7 +36,9 @@ describe("cellView", () => {
       background: CELL_BACKGROUNDS.sized,
       border: 0,
     });
-    expect(cellView(cellAt(grid.cells, 3, 2)).marks).toEqual(["outsideFit"]); // Dsb/Dmb 0.67 < 0.75
+    // 0.678 x 5 = 3.39 -> 3.5, which reaches 3.75 mm at RBP (+0.25 mm growth) > the 3.5 limit;
+    // and Dsb/Dmb 0.67 < 0.75 is outside Finet's published fit.
+    expect(cellView(cellAt(grid.cells, 3, 2)).marks).toEqual(["hazard", "outsideFit"]);
     expect(v.description).toContain("3.25 mm balloon at nominal pressure");
     expect(v.description).toContain("exact 3.05 mm");
   });
@@ -134,8 +136,20 @@ describe("labels", () => {
       hasProximal: true,
       hasReach: true,
     });
-    expect(finet.map((e) => e.mark)).toEqual(["sized", "noSize", "noStock", "hazard", "outsideFit"]);
-    expect(finet[0]!.text).toContain("@ 16 atm");
+    expect(finet.map((e) => e.mark)).toEqual([
+      "sized",
+      "noSize",
+      "noStock",
+      "hazard",
+      "oversize",
+      "undersize",
+      "outsideFit",
+    ]);
+    expect(finet.find((e) => e.mark === "oversize")!.text).toContain("more than 0.25 mm above");
+    expect(finet.find((e) => e.mark === "undersize")!.text).toContain("more than 0.5 mm below");
+    // A fixed example pressure could exceed a family's RBP, so the legend names none.
+    expect(finet[0]!.text).toContain("“@ N atm”");
+    expect(finet[0]!.text).toContain("never above its rated burst pressure");
     expect(finet.find((e) => e.mark === "hazard")!.text).toContain("Test DES");
     expect(finet.find((e) => e.mark === "outsideFit")!.text).toContain("Dsb/Dmb ≥ 0.75");
     const hk = legendEntries({ law: { law: "huo-kassab" }, stentName: null, hasProximal: true, hasReach: false });

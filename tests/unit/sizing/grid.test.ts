@@ -81,7 +81,7 @@ describe("proximal lookup (POT from MB x SB), Finet 0.678, round up", () => {
       expect(c.exact).not.toHaveProperty("diameterMm");
       expect(c.exact.ok === false && c.exact.reason.length).toBeGreaterThan(10);
       expect(c.balloon).toBeNull();
-      expect(c.flags).toEqual({ hazard: false, outsideFit: false });
+      expect(c.flags).toEqual({ hazard: false, outsideFit: false, oversize: false, undersize: false });
     }
   });
 
@@ -91,11 +91,16 @@ describe("proximal lookup (POT from MB x SB), Finet 0.678, round up", () => {
   });
 
   it("flags a POT balloon above the main-branch stent's post-dilatation limit", () => {
-    expect(cell(grid, 3.0, 2.0).flags.hazard).toBe(false); // 3.5 <= 3.75
-    expect(cell(grid, 3.0, 2.5).flags.hazard).toBe(true); // 4.0 > 3.75
-    expect(cell(grid, 3.0, 2.5).hazardDetail).toContain("3.75 mm");
-    expect(cell(grid, 3.0, 3.0).flags.hazard).toBe(true); // 4.5 > 3.75
-    expect(cell(grid, 3.5, 2.5).flags.hazard).toBe(false); // 4.5 <= 4.5
+    // Checked at rated burst pressure: nominal + 0.25 mm growth (the illustrative family's
+    // compliance chart, read as a manufacturer's chart states it; common practice).
+    expect(cell(grid, 3.0, 2.0).flags.hazard).toBe(false); // 3.5 -> 3.75 at RBP <= 3.75
+    expect(cell(grid, 3.0, 2.5).flags.hazard).toBe(true); // 4.0 -> 4.25 > 3.75
+    expect(cell(grid, 3.0, 2.5).hazardDetail).toBe(
+      "POT 4.25 mm at RBP 20 atm exceeds the 3.00 mm stent's maximum post-dilatation diameter (3.75 mm)",
+    );
+    expect(cell(grid, 3.0, 3.0).flags.hazard).toBe(true); // 4.5 -> 4.75 > 3.75
+    expect(cell(grid, 3.5, 2.0).flags.hazard).toBe(false); // 4.0 -> 4.25 <= 4.5
+    expect(cell(grid, 3.5, 2.5).flags.hazard).toBe(true); // 4.5 at nominal is 4.5, but 4.75 at RBP > 4.5
     expect(cell(grid, 3.5, 3.5).flags.hazard).toBe(true); // no balloon: exact 4.746 > 4.5
   });
 
@@ -112,8 +117,11 @@ describe("proximal lookup (POT from MB x SB), Finet 0.678, round up", () => {
       sized: 6,
       noSize: 3,
       noStock: 1,
-      hazard: 3, // 3.0 x 2.5, 3.0 x 3.0, 3.5 x 3.5
+      hazard: 5, // 3.0 x 2.5, 3.0 x 3.0, 3.5 x 2.5, 3.5 x 3.0 (at RBP), 3.5 x 3.5 (no stock)
       outsideFit: 3,
+      // Beyond the default 0.25 mm cap above (stock in 0.5 mm steps): 4.0 for 3.729 (twice), 4.5 for 4.068 (twice).
+      oversize: 4,
+      undersize: 0,
     });
   });
 });

@@ -46,7 +46,10 @@ function reference(law: (typeof SPECS)[number], known: { parent?: number; mb?: n
   P = p ?? value;
   M = m ?? value;
   S = s ?? value;
-  return { value, isSize: P.gt(M) && M.gte(S) && S.gt(0) };
+  // The meaningful geometry (common practice): a parent at least 0.05 mm above the main branch,
+  // and the solved diameter within 0.5..10 mm.
+  const meaningful = P.sub(M).gte("0.05") && value.gte("0.5") && value.lte(10);
+  return { value, isSize: P.gt(M) && M.gte(S) && S.gt(0) && meaningful };
 }
 
 // Inputs on the 0.01 mm grid, built from integers so the cases are exact decimals.

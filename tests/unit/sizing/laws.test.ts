@@ -49,7 +49,12 @@ describe("law constants and metadata", () => {
       "Square (area-preserving)",
       "Power",
     ]);
-    expect(LAWS.finet.source).toContain("EuroIntervention 2008");
+    // Verified against the journal's article page: title, authors, journal and year; the volume and
+    // pages (2008;3:490-498, from memory) are not, so the printed citation leaves them out.
+    expect(LAWS.finet.source).toBe(
+      "Finet G, Gilard M, Perrenot B, et al. Fractal geometry of arterial coronary bifurcations: a QCA and IVUS analysis. EuroIntervention (2008)",
+    );
+    for (const law of Object.values(LAWS)) expect(law.source).not.toMatch(/from memory/i);
     expect(LAWS.murray.source).toContain("PNAS 1926");
     expect(LAWS["huo-kassab"].source).toContain("Biophys J 2009");
     expect(LAWS.square.source).toContain("10.4244/EIJV7I11A206");
@@ -135,7 +140,9 @@ describe("no size for impossible geometry", () => {
     expect(reason(r)).toBe(
       "Finet (ratio 0.678) gives a parent no larger than the main branch when the side branch is 0.475 of the main branch or less (here 0.450)",
     );
-    expect(value(solve(finet, { mb: 4, sb: 1.9 }))).toBeCloseTo(4.0002, 12);
+    // 0.678 × 5.9 = 4.0002 is above the main branch but by less than 0.05 mm: not a bifurcation.
+    expect(reason(solve(finet, { mb: 4, sb: 1.9 }))).toContain("Not a bifurcation");
+    expect(value(solve(finet, { mb: 4, sb: 2 }))).toBeCloseTo(4.068, 12);
     // With ratio 0.6 the threshold is 0.4/0.6 = 0.667.
     expect(reason(solve({ law: "finet", ratio: 0.6 }, { mb: 3, sb: 1.95 }))).toContain("0.667");
   });

@@ -36,11 +36,11 @@ describe("valid solve queries", () => {
   });
 
   it("accepts the bounds", () => {
-    expect(parse("law=power&n=1.5&mb=10&sb=0.01").success).toBe(true);
+    expect(parse("law=power&n=1.5&mb=10&sb=0.5").success).toBe(true);
     expect(parse("law=power&n=3.5&mb=3&sb=2").success).toBe(true);
     expect(parse("law=finet&ratio=0.55&mb=3&sb=2").success).toBe(true);
     expect(parse("law=finet&ratio=0.80&mb=3&sb=2").success).toBe(true);
-    expect(parse("law=murray&mb=.5&sb=0.25").success).toBe(true);
+    expect(parse("law=murray&mb=.75&sb=0.5").success).toBe(true);
   });
 
   it("leaves impossible geometry to the solver (not a 400)", () => {
@@ -69,6 +69,14 @@ describe("400 cases", () => {
     expect(issues("law=murray&mb=3&sb=-1")).toEqual([{ path: ["sb"], message: "Must be greater than 0 mm" }]);
     expect(issues("law=murray&parent=10.01&sb=2")).toEqual([{ path: ["parent"], message: "Must be at most 10 mm" }]);
     expect(parse("law=murray&parent=10&sb=2").success).toBe(true);
+  });
+
+  it("below the meaningful 0.5 mm (a 0.001 mm vessel is no vessel)", () => {
+    expect(issues("law=murray&mb=0.001&sb=0.001")).toEqual([
+      { path: ["mb"], message: "Must be at least 0.5 mm" },
+      { path: ["sb"], message: "Must be at least 0.5 mm" },
+    ]);
+    expect(issues("law=murray&mb=3&sb=0.49")).toEqual([{ path: ["sb"], message: "Must be at least 0.5 mm" }]);
   });
 
   it("unknown or missing law", () => {
@@ -113,6 +121,8 @@ describe("400 cases", () => {
   it("unknown and repeated query keys", () => {
     expect(issues("law=murray&mb=3&sb=2&foo=1")).toEqual([{ path: ["foo"], message: "Unknown query parameter" }]);
     expect(pathsOf("law=murray&mb=3&sb=2&__proto__=1")).toEqual(['["__proto__"]']);
+    expect(pathsOf("law=murray&mb=3&sb=2&constructor=1")).toEqual(['["constructor"]']);
+    expect(pathsOf("law=murray&mb=3&sb=2&toString=1&hasOwnProperty=1")).toEqual(['["toString"]', '["hasOwnProperty"]']);
     expect(pathsOf("law=murray&mb=3&sb=2&MB=3")).toEqual(['["MB"]']);
     expect(issues("law=murray&mb=3&mb=3.5&sb=2")).toEqual([{ path: ["mb"], message: "Give this parameter once" }]);
   });

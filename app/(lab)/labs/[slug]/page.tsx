@@ -109,7 +109,7 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
           As a manager you get an e-mail whenever printed copies on the walls go stale.
         </p>
       ) : null}
-      <Caution />
+      <Caution demo={member.lab.isDemo} />
     </div>
   );
 }

@@ -66,7 +66,7 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
           to record where this copy hangs or to print the current edition.
         </p>
       )}
-      <Caution className="mt-8" />
+      <Caution className="mt-8" demo={view.lab.isDemo} />
     </div>
   );
 }

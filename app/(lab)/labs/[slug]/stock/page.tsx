@@ -49,7 +49,7 @@ export default async function StockPage({
             the lab keep it up to date.
           </p>
         )}
-        <Caution />
+        <Caution demo={member.lab.isDemo} />
       </div>
       <BalloonFamiliesTable slug={slug} families={stock.balloonFamilies} canEdit={canEdit} />
       <StentPlatformsTable slug={slug} platforms={stock.stentPlatforms} canEdit={canEdit} />

@@ -23,7 +23,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
-      <Caution className="my-4" />
+      <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner
         slug={slug}
         chartId={chart.id}

@@ -4,7 +4,7 @@ import { Forbidden } from "@/components/ui/forbidden";
 import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { defaultLookup } from "@/lib/charts/defaults";
-import { FINET_DEFAULT_RATIO } from "@/lib/sizing";
+import { DEFAULT_ROUNDING_CAPS, FINET_DEFAULT_RATIO } from "@/lib/sizing";
 import type { ChartDefinition } from "@/lib/validation/chart";
 
 export const metadata = { title: "New chart" };
@@ -24,6 +24,7 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
     orientation: "portrait",
     readingDistanceM: 1.5,
     notes: "",
+    roundingCaps: { ...DEFAULT_ROUNDING_CAPS },
   };
   return (
     <div>
@@ -31,7 +32,7 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
       <p className="mt-1 text-ink-soft">
         Axes start at this lab&apos;s stocked range in 0.25 mm steps; change anything and watch the preview.
       </p>
-      <Caution className="my-4" />
+      <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner slug={slug} chartId={null} initial={initial} stock={stock} labName={member.lab.name} canEdit />
     </div>
   );

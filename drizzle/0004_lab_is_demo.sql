@@ -1,0 +1,1 @@
+ALTER TABLE `labs` ADD `is_demo` boolean DEFAULT false NOT NULL;
