@@ -10,6 +10,7 @@ import {
   mysqlEnum,
   mysqlTable,
   text,
+  tinyint,
   uniqueIndex,
   varchar,
 } from "drizzle-orm/mysql-core";
@@ -330,8 +331,17 @@ export const postings = mysqlTable(
     lastStatus: mysqlEnum("last_status", ["current", "outdated", "superseded", "withdrawn", "draft"])
       .notNull()
       .default("current"),
+    // 1 while the copy hangs, NULL once taken down: with the unique key below the database
+    // holds at most one hanging copy of an edition per room (NULLs never collide).
+    hanging: tinyint("hanging").generatedAlwaysAs(sql`(case when \`removed_at\` is null then 1 else null end)`, {
+      mode: "stored",
+    }),
   },
-  (t) => [index("postings_lab_idx").on(t.labId, t.removedAt), index("postings_edition_idx").on(t.editionId)],
+  (t) => [
+    index("postings_lab_idx").on(t.labId, t.removedAt),
+    index("postings_edition_idx").on(t.editionId),
+    uniqueIndex("postings_one_hanging_uq").on(t.editionId, t.roomId, t.hanging),
+  ],
 );
 
 // One row per change that made posted copies stale: its unique key stops a second e-mail.

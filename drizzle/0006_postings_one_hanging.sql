@@ -1,0 +1,2 @@
+ALTER TABLE `postings` ADD `hanging` tinyint GENERATED ALWAYS AS ((case when `removed_at` is null then 1 else null end)) STORED;--> statement-breakpoint
+ALTER TABLE `postings` ADD CONSTRAINT `postings_one_hanging_uq` UNIQUE(`edition_id`,`room_id`,`hanging`);
