@@ -171,18 +171,21 @@ export function snapshotProblems(snapshot: Snapshot, definition: ChartDefinition
   return problems;
 }
 
+/** One lookup's grid as the snapshot prints it; `family` swaps in other diameters (what-if). */
+export function lookupGrid(snapshot: Snapshot, l: Snapshot["lookups"][number], family = l.family): Grid {
+  return buildGrid({
+    kind: l.kind,
+    rows: l.rows,
+    cols: l.cols,
+    law: snapshot.law,
+    rounding: l.rounding,
+    family,
+    stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
+    caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
+  });
+}
+
 /** The grids a snapshot prints: the one grid model, never recomputed elsewhere. */
 export function snapshotGrids(snapshot: Snapshot): Grid[] {
-  return snapshot.lookups.map((l) =>
-    buildGrid({
-      kind: l.kind,
-      rows: l.rows,
-      cols: l.cols,
-      law: snapshot.law,
-      rounding: l.rounding,
-      family: l.family,
-      stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
-      caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
-    }),
-  );
+  return snapshot.lookups.map((l) => lookupGrid(snapshot, l));
 }

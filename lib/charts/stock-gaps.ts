@@ -1,7 +1,7 @@
 // Which gaps in stock make a chart print sizes beyond its rounding caps, and what stocking one
 // size would change: the designer lists them ("stocking 3.25 mm NC would remove 6 oversize cells").
-import { buildGrid, DEFAULT_ROUNDING_CAPS, formatSizeMm, gridSummary, type LookupKind } from "@/lib/sizing";
-import type { LabStock, Snapshot } from "./snapshot";
+import { formatSizeMm, gridSummary, type LookupKind } from "@/lib/sizing";
+import { lookupGrid, type LabStock, type Snapshot } from "./snapshot";
 
 export type StockGap = {
   lookupIndex: number;
@@ -20,19 +20,7 @@ export function stockGaps(snapshot: Snapshot, stock: LabStock): StockGap[] {
   snapshot.lookups.forEach((l, i) => {
     const family = l.family;
     if (!family) return;
-    const grid = (diameters: number[]) =>
-      gridSummary(
-        buildGrid({
-          kind: l.kind,
-          rows: l.rows,
-          cols: l.cols,
-          law: snapshot.law,
-          rounding: l.rounding,
-          family: { ...family, diameters },
-          stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
-          caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
-        }),
-      );
+    const grid = (diameters: number[]) => gridSummary(lookupGrid(snapshot, l, { ...family, diameters }));
     const before = grid(family.diameters);
     if (before.oversize + before.undersize === 0) return;
     const full = stock.balloonFamilies.find((f) => f.id === l.familyId);
