@@ -123,7 +123,8 @@ async function killDuring(op: () => Promise<unknown>): Promise<unknown> {
       (err: unknown) => err,
     );
     let waiting = false;
-    for (let i = 0; i < 600 && !waiting; i++) {
+    // Up to about 80 s: on a loaded machine the import and the lab pass before the audit row take a while.
+    for (let i = 0; i < 1600 && !waiting; i++) {
       const [rows] = (await watcher.query(
         "SELECT trx_rows_modified AS modified FROM information_schema.innodb_trx WHERE trx_state = 'LOCK WAIT'",
       )) as unknown as [{ modified: number }[]];
