@@ -5,9 +5,9 @@ import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import { PNG } from "pngjs";
 import { AppError } from "@/lib/errors";
-import { ONE_MB } from "@/lib/upload";
+import { LOGO_MAX_BYTES, megabytes } from "@/lib/upload-limits";
 
-export const LOGO_MAX_BYTES = ONE_MB;
+export { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/upload-limits";
 export const LOGO_MAX_PIXELS = 4000;
 export type LogoMime = "image/png" | "image/jpeg";
 export type CheckedLogo = { mime: LogoMime; sha256: string; width: number; height: number };
@@ -41,7 +41,10 @@ export function jpegSize(bytes: Uint8Array): { width: number; height: number } |
 export async function checkLogo(bytes: Uint8Array): Promise<CheckedLogo> {
   if (bytes.length === 0) throw refuse("The file is empty.");
   if (bytes.length > LOGO_MAX_BYTES)
-    throw new AppError("payload_too_large", `The logo is ${(bytes.length / ONE_MB).toFixed(2)} MB; the limit is 1 MB.`);
+    throw new AppError(
+      "payload_too_large",
+      `The logo is ${megabytes(bytes.length)} MB; the limit is ${megabytes(LOGO_MAX_BYTES)} MB.`,
+    );
   const type = await fileTypeFromBuffer(bytes);
   if (!type || (type.mime !== "image/png" && type.mime !== "image/jpeg")) {
     throw refuse(

@@ -1,6 +1,6 @@
 import { api } from "@/lib/http/route";
 import { getChartLogo, removeChartLogo, setChartLogo } from "@/lib/ops/charts";
-import { LOGO_MAX_BYTES } from "@/lib/logo";
+import { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/logo";
 import { readUploadedFile } from "@/lib/upload";
 
 type Params = { id: string };
@@ -14,7 +14,7 @@ export const GET = api<Params>(async ({ caller, params }) => {
 
 /** PUT multipart `file`: a PNG or JPEG of at most 1 MB, checked from its bytes. */
 export const PUT = api<Params>(async ({ req, caller, params }) => {
-  const file = await readUploadedFile(req, { maxBytes: LOGO_MAX_BYTES, tooLargeHint: "Use a smaller PNG or JPEG." });
+  const file = await readUploadedFile(req, { maxBytes: LOGO_MAX_BYTES, tooLargeHint: LOGO_TOO_LARGE_HINT });
   return setChartLogo(caller, { chartId: params.id }, { file });
 });
 
