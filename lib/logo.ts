@@ -12,9 +12,9 @@ import { promisify } from "node:util";
 import { crc32, inflate } from "node:zlib";
 import { fileTypeFromBuffer } from "file-type";
 import { AppError } from "@/lib/errors";
-import { ONE_MB } from "@/lib/upload";
+import { LOGO_MAX_BYTES, megabytes, ONE_MB } from "@/lib/upload-limits";
 
-export const LOGO_MAX_BYTES = ONE_MB;
+export { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/upload-limits";
 /** Longest side, in pixels. */
 export const LOGO_MAX_SIDE = 4000;
 /** Whole picture, in pixels (a poster logo is a few centimetres wide; 4 MP is plenty). */
@@ -169,7 +169,10 @@ function checkDimensions(width: number, height: number, inflatedBytes?: number) 
 export async function checkLogo(bytes: Uint8Array): Promise<CheckedLogo> {
   if (bytes.length === 0) throw refuse("The file is empty.");
   if (bytes.length > LOGO_MAX_BYTES)
-    throw new AppError("payload_too_large", `The logo is ${(bytes.length / ONE_MB).toFixed(2)} MB; the limit is 1 MB.`);
+    throw new AppError(
+      "payload_too_large",
+      `The logo is ${megabytes(bytes.length)} MB; the limit is ${megabytes(LOGO_MAX_BYTES)} MB.`,
+    );
   const type = await fileTypeFromBuffer(bytes);
   if (!type || (type.mime !== "image/png" && type.mime !== "image/jpeg")) {
     throw refuse(

@@ -1,20 +1,14 @@
 // Reads one file from a multipart request without ever holding more than the limit in memory.
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
-
-// Room for the multipart boundaries and part headers around a file at the limit.
-const ENVELOPE_BYTES = 64 * 1024;
+import { ENVELOPE_BYTES, ONE_MB, tooLargeMessage } from "./upload-limits";
 
 export type UploadedFile = { name: string; bytes: Uint8Array };
 
-export const ONE_MB = 1024 * 1024;
+export { ONE_MB };
 
 export function payloadTooLarge(bytes: number, maxBytes: number, hint: string): AppError {
-  const mb = (n: number) => (n % ONE_MB === 0 ? String(n / ONE_MB) : (n / ONE_MB).toFixed(2));
-  return new AppError(
-    "payload_too_large",
-    `The file is ${mb(bytes)} MB; the limit is ${mb(maxBytes)} MB (${maxBytes.toLocaleString("en")} bytes). ${hint}`,
-  );
+  return new AppError("payload_too_large", tooLargeMessage(bytes, maxBytes, hint));
 }
 
 export async function readUploadedFile(

@@ -1,13 +1,14 @@
 "use client";
 
 import { useActionState } from "react";
-import { signInAction, type SignInState } from "@/lib/auth/actions";
+import { signInAction } from "@/lib/auth/actions";
+import type { ActionState } from "@/lib/http/action";
 import { TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 
 export function SignInForm({ callbackUrl, email }: { callbackUrl: string; email?: string }) {
-  const [state, action, pending] = useActionState<SignInState, FormData>(signInAction, {});
+  const [state, action, pending] = useActionState<ActionState, FormData>(signInAction, {});
   return (
     <form action={action} className="mt-6 space-y-4" noValidate aria-busy={pending}>
       <input type="hidden" name="callbackUrl" value={callbackUrl} />
@@ -18,7 +19,7 @@ export function SignInForm({ callbackUrl, email }: { callbackUrl: string; email?
         type="email"
         autoComplete="email"
         required
-        defaultValue={state.email ?? email}
+        defaultValue={String(state.values?.email ?? email ?? "")}
       />
       <TextField
         label="Password"
@@ -28,7 +29,7 @@ export function SignInForm({ callbackUrl, email }: { callbackUrl: string; email?
         autoComplete="current-password"
         required
       />
-      <FormStatus message={state.error} />
+      <FormStatus message={state.message} />
       <button type="submit" disabled={pending} className={buttonClass("primary", "w-full")}>
         {pending ? "Signing in…" : "Sign in"}
       </button>

@@ -3,6 +3,7 @@
 import { useId, useState } from "react";
 import useSWR from "swr";
 import { formatDecimal } from "@/lib/sizing/format";
+import { FINET_RATIO_MAX, FINET_RATIO_MIN, POWER_N_MAX, POWER_N_MIN } from "@/lib/sizing";
 
 type LawOption = { id: string; name: string; formula: string; source: string };
 type Target = "parent" | "mb" | "sb";
@@ -82,7 +83,7 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
         {law === "finet" ? (
           <div>
             <label htmlFor={`${id}-ratio`} className="block text-sm font-medium">
-              Finet ratio (0.55 to 0.80)
+              Finet ratio ({FINET_RATIO_MIN.toFixed(2)} to {FINET_RATIO_MAX.toFixed(2)})
             </label>
             <input
               id={`${id}-ratio`}
@@ -98,7 +99,7 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
         {law === "power" ? (
           <div>
             <label htmlFor={`${id}-n`} className="block text-sm font-medium">
-              Exponent n (1.5 to 3.5)
+              Exponent n ({POWER_N_MIN.toFixed(1)} to {POWER_N_MAX.toFixed(1)})
             </label>
             <input
               id={`${id}-n`}

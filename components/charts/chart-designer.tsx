@@ -2,15 +2,26 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useMemo, useState, useTransition } from "react";
+import { useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type FieldErrors } from "react-hook-form";
 import { saveChartAction } from "@/app/(lab)/labs/[slug]/charts/actions";
+import { useServerAction } from "@/components/ui/use-server-action";
 import { ChartPreview } from "@/components/charts/chart-preview";
 import { Button } from "@/components/ui/button";
+import { FieldError } from "@/components/ui/field";
 import { defaultLookup } from "@/lib/charts/defaults";
 import type { LabStock } from "@/lib/charts/snapshot";
 import { ORIENTATIONS, PAPER_IDS, PAPERS } from "@/lib/poster/paper";
-import { FINET_DEFAULT_RATIO, LAW_IDS, LAWS, type LookupKind } from "@/lib/sizing";
+import {
+  FINET_DEFAULT_RATIO,
+  FINET_RATIO_MAX,
+  FINET_RATIO_MIN,
+  LAW_IDS,
+  LAWS,
+  POWER_N_MAX,
+  POWER_N_MIN,
+  type LookupKind,
+} from "@/lib/sizing";
 import { chartDefinitionSchema, LOOKUP_KINDS, ROUNDING_RULES, type ChartDefinition } from "@/lib/validation/chart";
 
 const KIND_LABELS: Record<LookupKind, string> = {
@@ -34,14 +45,6 @@ function errorAt(errors: FieldErrors<ChartDefinition>, path: string): string | u
   return (node as { message?: string } | undefined)?.message;
 }
 
-function FieldError({ message, id }: { message?: string; id: string }) {
-  return message ? (
-    <p id={id} className="mt-1 text-sm text-danger">
-      {message}
-    </p>
-  ) : null;
-}
-
 export function ChartDesigner({
   slug,
   chartId,
@@ -60,7 +63,7 @@ export function ChartDesigner({
   canEdit: boolean;
 }) {
   const router = useRouter();
-  const [pending, startTransition] = useTransition();
+  const { run: save, pending } = useServerAction(saveChartAction, { refresh: false });
   const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
   const form = useForm<ChartDefinition>({
     resolver: zodResolver(chartDefinitionSchema) as never,
@@ -76,19 +79,17 @@ export function ChartDesigner({
 
   const preview = useMemo(() => chartDefinitionSchema.safeParse(values), [values]);
 
-  const onSubmit = handleSubmit((def) => {
+  const onSubmit = handleSubmit(async (def) => {
     setNotice(null);
-    startTransition(async () => {
-      const res = await saveChartAction(slug, chartId, def);
-      if (!res.ok) {
-        for (const [path, message] of Object.entries(res.fieldErrors ?? {})) setError(path as never, { message });
-        setNotice({ ok: false, text: res.message ?? "The chart was not saved." });
-        return;
-      }
-      setNotice({ ok: true, text: res.message ?? "Saved." });
-      if (chartId === null && res.id) router.push(`/labs/${slug}/charts/${res.id}`);
-      else router.refresh();
-    });
+    const res = await save({ slug, chartId, definition: def });
+    if (!res.ok) {
+      for (const [path, message] of Object.entries(res.fieldErrors ?? {})) setError(path as never, { message });
+      setNotice({ ok: false, text: res.message ?? "The chart was not saved." });
+      return;
+    }
+    setNotice({ ok: true, text: res.message ?? "Saved." });
+    if (chartId === null && res.id) router.push(`/labs/${slug}/charts/${res.id}`);
+    else router.refresh();
   });
 
   const num = { valueAsNumber: true } as const;
@@ -107,7 +108,7 @@ export function ChartDesigner({
               aria-invalid={Boolean(errorAt(formState.errors, "title"))}
               aria-describedby="title-err"
             />
-            <FieldError id="title-err" message={errorAt(formState.errors, "title")} />
+            <FieldError id="title-err" error={errorAt(formState.errors, "title")} />
           </div>
 
           <div className="grid grid-cols-2 gap-3">
@@ -142,19 +143,19 @@ export function ChartDesigner({
             {law === "finet" ? (
               <div>
                 <label htmlFor="ratio" className={label}>
-                  Ratio (0.55–0.80)
+                  Ratio ({FINET_RATIO_MIN.toFixed(2)}–{FINET_RATIO_MAX.toFixed(2)})
                 </label>
                 <input id="ratio" type="number" step="0.001" {...register("law.ratio", num)} className={field} />
-                <FieldError id="ratio-err" message={errorAt(formState.errors, "law.ratio")} />
+                <FieldError id="ratio-err" error={errorAt(formState.errors, "law.ratio")} />
               </div>
             ) : null}
             {law === "power" ? (
               <div>
                 <label htmlFor="n" className={label}>
-                  Exponent n (1.5–3.5)
+                  Exponent n ({POWER_N_MIN.toFixed(1)}–{POWER_N_MAX.toFixed(1)})
                 </label>
                 <input id="n" type="number" step="0.01" {...register("law.n", num)} className={field} />
-                <FieldError id="n-err" message={errorAt(formState.errors, "law.n")} />
+                <FieldError id="n-err" error={errorAt(formState.errors, "law.n")} />
               </div>
             ) : null}
           </div>
@@ -174,7 +175,7 @@ export function ChartDesigner({
                       </option>
                     ))}
                   </select>
-                  <FieldError id={`kind-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.kind`)} />
+                  <FieldError id={`kind-${i}-err`} error={errorAt(formState.errors, `lookups.${i}.kind`)} />
                 </div>
                 <div className="grid grid-cols-2 gap-3">
                   <div>
@@ -189,7 +190,7 @@ export function ChartDesigner({
                         </option>
                       ))}
                     </select>
-                    <FieldError id={`family-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.familyId`)} />
+                    <FieldError id={`family-${i}-err`} error={errorAt(formState.errors, `lookups.${i}.familyId`)} />
                   </div>
                   <div>
                     <label htmlFor={`rounding-${i}`} className={label}>
@@ -219,7 +220,7 @@ export function ChartDesigner({
                         />
                       ))}
                     </div>
-                    <FieldError id={`${axis}-${i}-err`} message={errorAt(formState.errors, `lookups.${i}.${axis}`)} />
+                    <FieldError id={`${axis}-${i}-err`} error={errorAt(formState.errors, `lookups.${i}.${axis}`)} />
                   </div>
                 ))}
                 {lookups.fields.length > 1 ? (
@@ -242,7 +243,7 @@ export function ChartDesigner({
               Add a lookup
             </Button>
           ) : null}
-          <FieldError id="lookups-err" message={errorAt(formState.errors, "lookups")} />
+          <FieldError id="lookups-err" error={errorAt(formState.errors, "lookups")} />
 
           <div>
             <label htmlFor="stent" className={label}>
@@ -295,14 +296,14 @@ export function ChartDesigner({
                 Reading distance (m)
               </label>
               <input id="distance" type="number" step="0.1" {...register("readingDistanceM", num)} className={field} />
-              <FieldError id="distance-err" message={errorAt(formState.errors, "readingDistanceM")} />
+              <FieldError id="distance-err" error={errorAt(formState.errors, "readingDistanceM")} />
             </div>
             <div>
               <label htmlFor="cap-up" className={label}>
                 Rounding cap above (mm)
               </label>
               <input id="cap-up" type="number" step="0.05" {...register("roundingCaps.upMm", num)} className={field} />
-              <FieldError id="cap-up-err" message={errorAt(formState.errors, "roundingCaps.upMm")} />
+              <FieldError id="cap-up-err" error={errorAt(formState.errors, "roundingCaps.upMm")} />
             </div>
             <div>
               <label htmlFor="cap-down" className={label}>
@@ -315,7 +316,7 @@ export function ChartDesigner({
                 {...register("roundingCaps.downMm", num)}
                 className={field}
               />
-              <FieldError id="cap-down-err" message={errorAt(formState.errors, "roundingCaps.downMm")} />
+              <FieldError id="cap-down-err" error={errorAt(formState.errors, "roundingCaps.downMm")} />
             </div>
           </div>
           <p className="text-xs text-ink-soft">
@@ -328,7 +329,7 @@ export function ChartDesigner({
               Notes printed on the poster
             </label>
             <textarea id="notes" rows={3} {...register("notes")} className={field} />
-            <FieldError id="notes-err" message={errorAt(formState.errors, "notes")} />
+            <FieldError id="notes-err" error={errorAt(formState.errors, "notes")} />
           </div>
         </fieldset>
 

@@ -1,7 +1,6 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useState } from "react";
 import {
   approveEditionAction,
   createEditionAction,
@@ -10,7 +9,7 @@ import {
 } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 import { StatusBadge } from "@/components/ui/status-badge";
-import type { ActionState } from "@/lib/http/action";
+import { useServerAction, type Action } from "@/components/ui/use-server-action";
 import type { EditionStatus } from "@/lib/editions/states";
 
 export type EditionRow = {
@@ -43,21 +42,15 @@ export function EditionsPanel({
   editions: EditionRow[];
   can: { create: boolean; approve: boolean; withdraw: boolean };
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [notice, setNotice] = useState<ActionState | null>(null);
+  const { run: runAction, pending, state: notice } = useServerAction(createEditionAction);
   const [rejecting, setRejecting] = useState<number | null>(null);
   const [reason, setReason] = useState("");
 
-  const run = (fn: () => Promise<ActionState>) =>
-    start(async () => {
-      const res = await fn();
-      setNotice(res);
-      if (res.ok) {
-        setRejecting(null);
-        setReason("");
-        router.refresh();
-      }
+  const run = (action: Action, payload: Record<string, unknown>) =>
+    void runAction({ slug, ...payload }, action).then((res) => {
+      if (!res.ok) return;
+      setRejecting(null);
+      setReason("");
     });
 
   return (
@@ -67,7 +60,7 @@ export function EditionsPanel({
           Editions
         </h2>
         {can.create ? (
-          <Button onClick={() => run(() => createEditionAction(slug, chartId))} disabled={pending}>
+          <Button onClick={() => run(createEditionAction, { chartId })} disabled={pending}>
             {pending ? "Working…" : "Create edition"}
           </Button>
         ) : null}
@@ -124,7 +117,7 @@ export function EditionsPanel({
                 {can.approve && e.status === "draft" && !e.createdByMe ? (
                   <>
                     <Button
-                      onClick={() => run(() => approveEditionAction(slug, e.id))}
+                      onClick={() => run(approveEditionAction, { editionId: e.id })}
                       disabled={pending}
                       className="py-1.5"
                     >
@@ -156,7 +149,7 @@ export function EditionsPanel({
                           `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`,
                         )
                       )
-                        run(() => withdrawEditionAction(slug, e.id, ""));
+                        run(withdrawEditionAction, { editionId: e.id, reason: "" });
                     }}
                   >
                     Withdraw
@@ -168,7 +161,7 @@ export function EditionsPanel({
                   className="mt-3 flex flex-wrap items-end gap-2"
                   onSubmit={(ev) => {
                     ev.preventDefault();
-                    run(() => rejectEditionAction(slug, e.id, reason));
+                    run(rejectEditionAction, { editionId: e.id, reason });
                   }}
                 >
                   <label className="min-w-64 flex-1 text-sm font-medium">

@@ -1,37 +1,41 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
+import { removeChartLogoAction, setChartLogoAction } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button } from "@/components/ui/button";
+import { useServerAction } from "@/components/ui/use-server-action";
+import { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT, megabytes, tooLargeMessage } from "@/lib/upload-limits";
 
-/** Upload or remove the lab logo printed on this chart's posters (PNG or JPEG, at most 1 MB). */
+const LIMIT = `PNG or JPEG, at most ${megabytes(LOGO_MAX_BYTES)} MB`;
+
+/** Upload or remove the lab logo printed on this chart's posters. */
 export function LogoField({
+  slug,
   chartId,
   logoSha256,
   canEdit,
 }: {
+  slug: string;
   chartId: number;
   logoSha256: string | null;
   canEdit: boolean;
 }) {
-  const router = useRouter();
   const input = useRef<HTMLInputElement>(null);
-  const [state, setState] = useState<{ busy: boolean; error?: string; ok?: string }>({ busy: false });
+  const { run, pending: busy, state: sent } = useServerAction(setChartLogoAction);
+  const [tooLarge, setTooLarge] = useState<string | null>(null);
+  const state = tooLarge ? { ok: false, message: tooLarge } : sent;
   const url = `/api/v1/charts/${chartId}/logo`;
 
-  async function send(method: "PUT" | "DELETE", file?: File) {
-    setState({ busy: true });
-    const body = file ? new FormData() : undefined;
-    if (file && body) body.set("file", file);
-    const res = await fetch(url, { method, body });
-    if (!res.ok) {
-      const err = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
-      setState({ busy: false, error: err?.error?.message ?? `The logo was not saved (HTTP ${res.status}).` });
-      return;
-    }
-    setState({ busy: false, ok: method === "PUT" ? "Logo saved. New editions will print it." : "Logo removed." });
-    if (input.current) input.current.value = "";
-    router.refresh();
+  async function upload(file: File) {
+    // Refused here, before sending: a file over the limit would also exceed the request limit.
+    setTooLarge(file.size > LOGO_MAX_BYTES ? tooLargeMessage(file.size, LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT) : null);
+    if (file.size > LOGO_MAX_BYTES) return;
+    const form = new FormData();
+    form.set("slug", slug);
+    form.set("chartId", String(chartId));
+    form.set("file", file);
+    const res = await run(form);
+    if (res.ok && input.current) input.current.value = "";
   }
 
   return (
@@ -53,39 +57,39 @@ export function LogoField({
         {canEdit ? (
           <div className="flex flex-wrap items-center gap-2">
             <label className="text-sm font-medium">
-              <span className="sr-only">Logo file (PNG or JPEG, at most 1 MB)</span>
+              <span className="sr-only">Logo file ({LIMIT})</span>
               <input
                 ref={input}
                 type="file"
                 accept="image/png,image/jpeg"
-                disabled={state.busy}
+                disabled={busy}
                 onChange={(e) => {
                   const file = e.target.files?.[0];
-                  if (file) void send("PUT", file);
+                  if (file) void upload(file);
                 }}
                 className="text-sm file:mr-2 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5"
               />
             </label>
             {logoSha256 ? (
-              <Button variant="ghost" disabled={state.busy} onClick={() => void send("DELETE")}>
+              <Button
+                variant="ghost"
+                disabled={busy}
+                onClick={() => {
+                  setTooLarge(null);
+                  void run({ slug, chartId }, removeChartLogoAction);
+                }}
+              >
                 Remove logo
               </Button>
             ) : null}
           </div>
         ) : null}
       </div>
-      <p className="mt-1 text-xs text-ink-faint">
-        PNG or JPEG, at most 1 MB; the file&apos;s type is checked from its contents.
-      </p>
-      {state.busy ? <p className="mt-2 text-sm text-ink-soft">Uploading…</p> : null}
-      {state.error ? (
-        <p role="alert" className="mt-2 text-sm text-danger">
-          {state.error}
-        </p>
-      ) : null}
-      {state.ok ? (
-        <p role="status" className="mt-2 text-sm text-ok">
-          {state.ok}
+      <p className="mt-1 text-xs text-ink-faint">{LIMIT}; the file&apos;s type is checked from its contents.</p>
+      {busy ? <p className="mt-2 text-sm text-ink-soft">Uploading…</p> : null}
+      {state?.message && !busy ? (
+        <p role={state.ok ? "status" : "alert"} className={`mt-2 text-sm ${state.ok ? "text-ok" : "text-danger"}`}>
+          {state.message}
         </p>
       ) : null}
     </section>

@@ -1,10 +1,9 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useState } from "react";
 import { recordPostingAction, takeDownPostingAction } from "@/app/(public)/v/[token]/actions";
 import { Button } from "@/components/ui/button";
-import type { ActionState } from "@/lib/http/action";
+import { useServerAction } from "@/components/ui/use-server-action";
 
 export function PostingForm({
   token,
@@ -17,16 +16,8 @@ export function PostingForm({
   hanging: { postingId: number; roomName: string; postedAt: string }[];
   canPost: boolean;
 }) {
-  const router = useRouter();
   const [roomId, setRoomId] = useState(rooms[0]?.id ?? 0);
-  const [state, setState] = useState<ActionState | null>(null);
-  const [pending, start] = useTransition();
-  const run = (fn: () => Promise<ActionState>) =>
-    start(async () => {
-      const res = await fn();
-      setState(res);
-      if (res.ok) router.refresh();
-    });
+  const { run, pending, state } = useServerAction(recordPostingAction);
   return (
     <section aria-labelledby="posting-h" className="mt-8 rounded-card border border-line bg-paper-raised p-4">
       <h2 id="posting-h" className="font-semibold">
@@ -44,7 +35,7 @@ export function PostingForm({
                 variant="ghost"
                 className="py-1 text-sm"
                 disabled={pending}
-                onClick={() => run(() => takeDownPostingAction(token, h.postingId))}
+                onClick={() => void run({ token, postingId: h.postingId }, takeDownPostingAction)}
               >
                 Taken down
               </Button>
@@ -60,7 +51,7 @@ export function PostingForm({
             className="mt-3 flex flex-wrap items-end gap-2"
             onSubmit={(e) => {
               e.preventDefault();
-              run(() => recordPostingAction(token, roomId));
+              void run({ token, roomId });
             }}
           >
             <label className="text-sm font-medium">

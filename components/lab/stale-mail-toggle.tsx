@@ -1,12 +1,13 @@
 "use client";
 
-import { useState, useTransition } from "react";
+import { useState } from "react";
 import { setStaleMailAction } from "@/app/(lab)/labs/[slug]/actions";
+import { useServerAction } from "@/components/ui/use-server-action";
 
 export function StaleMailToggle({ slug, initial }: { slug: string; initial: boolean }) {
   const [on, setOn] = useState(initial);
-  const [message, setMessage] = useState<string | null>(null);
-  const [pending, start] = useTransition();
+  const { run, pending, state } = useServerAction(setStaleMailAction, { refresh: false });
+  const message = state?.message;
   return (
     <div className="flex flex-wrap items-center gap-3">
       <label className="inline-flex items-center gap-2 text-sm">
@@ -17,11 +18,7 @@ export function StaleMailToggle({ slug, initial }: { slug: string; initial: bool
           onChange={(e) => {
             const next = e.target.checked;
             setOn(next);
-            start(async () => {
-              const res = await setStaleMailAction(slug, next);
-              if (!res.ok) setOn(!next);
-              setMessage(res.message ?? null);
-            });
+            void run({ slug, on: next }).then((res) => res.ok || setOn(!next));
           }}
           className="h-4 w-4"
         />

@@ -1,7 +1,6 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useActionState, useState, useTransition } from "react";
+import { useActionState, useState } from "react";
 import {
   archiveRoomAction,
   createRoomAction,
@@ -9,6 +8,7 @@ import {
   takeDownAction,
 } from "@/app/(lab)/labs/[slug]/rooms/actions";
 import { Button } from "@/components/ui/button";
+import { useServerAction } from "@/components/ui/use-server-action";
 import type { ActionState } from "@/lib/http/action";
 
 function Notice({ state }: { state: ActionState | null }) {
@@ -22,9 +22,10 @@ function Notice({ state }: { state: ActionState | null }) {
 }
 
 export function AddRoomForm({ slug }: { slug: string }) {
-  const [state, action, pending] = useActionState(createRoomAction.bind(null, slug), {});
+  const [state, action, pending] = useActionState(createRoomAction, {});
   return (
     <form action={action} className="flex flex-wrap items-end gap-2">
+      <input type="hidden" name="slug" value={slug} />
       <label className="text-sm font-medium">
         New room
         <input
@@ -55,20 +56,11 @@ export function RoomMenu({
   name: string;
   empty: boolean;
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [state, setState] = useState<ActionState | null>(null);
+  const rename = useServerAction(renameRoomAction);
+  const archive = useServerAction(archiveRoomAction);
   const [editing, setEditing] = useState(false);
   const [value, setValue] = useState(name);
-  const run = (fn: () => Promise<ActionState>) =>
-    start(async () => {
-      const res = await fn();
-      setState(res);
-      if (res.ok) {
-        setEditing(false);
-        router.refresh();
-      }
-    });
+  const pending = rename.pending || archive.pending;
   return (
     <div className="flex flex-wrap items-center gap-2">
       {editing ? (
@@ -76,7 +68,8 @@ export function RoomMenu({
           className="flex gap-2"
           onSubmit={(e) => {
             e.preventDefault();
-            run(() => renameRoomAction(slug, roomId, value));
+            archive.reset();
+            void rename.run({ slug, roomId, name: value }).then((res) => res.ok && setEditing(false));
           }}
         >
           <input
@@ -100,31 +93,28 @@ export function RoomMenu({
         disabled={pending || !empty}
         title={empty ? undefined : "Take the printouts down first"}
         onClick={() => {
-          if (window.confirm(`Remove the room "${name}"?`)) run(() => archiveRoomAction(slug, roomId));
+          if (window.confirm(`Remove the room "${name}"?`)) {
+            rename.reset();
+            void archive.run({ slug, roomId });
+          }
         }}
       >
         Remove
       </Button>
-      <Notice state={state} />
+      <Notice state={rename.state ?? archive.state} />
     </div>
   );
 }
 
 export function TakeDownButton({ slug, postingId, label }: { slug: string; postingId: number; label: string }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
+  const { run, pending } = useServerAction(takeDownAction);
   return (
     <Button
       variant="secondary"
       className="py-1 text-sm"
       disabled={pending}
       aria-label={`Taken down: ${label}`}
-      onClick={() =>
-        start(async () => {
-          const res = await takeDownAction(slug, postingId);
-          if (res.ok) router.refresh();
-        })
-      }
+      onClick={() => void run({ slug, postingId })}
     >
       Taken down
     </Button>

@@ -3,6 +3,7 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
+import { deleteBalloonAction, deleteFamilyAction } from "@/app/(lab)/labs/[slug]/stock/actions";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatAtm, formatMm } from "@/lib/stock/format";
@@ -14,7 +15,6 @@ import { FamilyForm } from "./family-form";
 import { InStockToggle } from "./in-stock-toggle";
 import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
-import { stockUrl } from "./stock-api";
 import { StockDialog } from "./stock-dialog";
 import { StockTable } from "./stock-table";
 
@@ -140,7 +140,8 @@ export function BalloonFamiliesTable({
         ) : null}
         {dialog?.kind === "delete-family" ? (
           <ConfirmDelete
-            url={stockUrl(slug, `/families/${dialog.family.id}`)}
+            action={deleteFamilyAction}
+            payload={{ slug, familyId: dialog.family.id }}
             what={dialog.family.name}
             consequence={`Its ${dialog.family.balloons.length} sizes are deleted with it.`}
             onDone={done}
@@ -149,7 +150,8 @@ export function BalloonFamiliesTable({
         ) : null}
         {dialog?.kind === "delete-balloon" ? (
           <ConfirmDelete
-            url={stockUrl(slug, `/balloons/${dialog.balloon.id}`)}
+            action={deleteBalloonAction}
+            payload={{ slug, balloonId: dialog.balloon.id }}
             what={`${dialog.family.name} ${formatMm(dialog.balloon.diameterMm)} mm`}
             consequence="To keep the size on record but off the charts, mark it out of stock instead."
             onDone={done}

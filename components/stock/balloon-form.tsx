@@ -3,13 +3,15 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { formatMm } from "@/lib/stock/format";
+import { saveBalloonAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { showActionErrors } from "@/components/ui/action-errors";
+import { CheckboxField, TextField } from "@/components/ui/field";
+import { useServerAction } from "@/components/ui/use-server-action";
+import { formatMm, numberFromInput } from "@/lib/stock/format";
 import type { BalloonView } from "@/lib/stock/types";
 import { balloonInput, type BalloonInput } from "@/lib/validation/stock";
 import { FormActions } from "./family-form";
-import { describedBy, FormField, inputClass, numberFromInput } from "./form-field";
-import { showServerError } from "./server-errors";
-import { stockRequest, stockUrl } from "./stock-api";
+import { DIAMETER_HINT } from "./size-form";
 
 export function BalloonForm({
   slug,
@@ -26,6 +28,7 @@ export function BalloonForm({
   onDone: (message: string) => void;
   onCancel: () => void;
 }) {
+  const { run } = useServerAction(saveBalloonAction, { refresh: false });
   const {
     register,
     handleSubmit,
@@ -37,41 +40,24 @@ export function BalloonForm({
   });
 
   const onSubmit = handleSubmit(async (data) => {
-    try {
-      if (balloon) await stockRequest("PATCH", stockUrl(slug, `/balloons/${balloon.id}`), data);
-      else await stockRequest("POST", stockUrl(slug, `/families/${familyId}/balloons`), data);
-      onDone(`${balloon ? "Saved" : "Added"} ${familyName} ${formatMm(data.diameterMm)} mm.`);
-    } catch (err) {
-      showServerError(err, setError, ["diameterMm", "inStock"]);
-    }
+    const res = await run(balloon ? { slug, balloonId: balloon.id, ...data } : { slug, familyId, ...data });
+    if (res.ok) onDone(`${balloon ? "Saved" : "Added"} ${familyName} ${formatMm(data.diameterMm)} mm.`);
+    else showActionErrors(res, setError, ["diameterMm", "inStock"]);
   });
 
   const id = `balloon-${balloon?.id ?? `new-${familyId}`}`;
-  const diameterError = errors.diameterMm?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField
+      <TextField
         id={`${id}-diameter`}
         label="Diameter (mm)"
-        hint="1.00 to 7.00 mm in steps of 0.05 mm"
-        error={diameterError}
-      >
-        <input
-          id={`${id}-diameter`}
-          inputMode="decimal"
-          autoComplete="off"
-          {...register("diameterMm", { setValueAs: numberFromInput })}
-          className={inputClass}
-          aria-invalid={!!diameterError}
-          aria-describedby={describedBy(`${id}-diameter`, "hint", diameterError)}
-        />
-      </FormField>
-      <div className="flex items-center gap-2">
-        <input id={`${id}-stock`} type="checkbox" {...register("inStock")} className="h-4 w-4" />
-        <label htmlFor={`${id}-stock`} className="text-sm font-medium">
-          In stock
-        </label>
-      </div>
+        hint={DIAMETER_HINT}
+        error={errors.diameterMm?.message}
+        inputMode="decimal"
+        autoComplete="off"
+        {...register("diameterMm", { setValueAs: numberFromInput })}
+      />
+      <CheckboxField id={`${id}-stock`} label="In stock" {...register("inStock")} />
       <FormActions
         pending={isSubmitting}
         submitLabel={balloon ? "Save size" : "Add size"}

@@ -1,35 +1,30 @@
 "use client";
 
-import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { StockApiError, stockRequest } from "./stock-api";
+import { useServerAction, type Action } from "@/components/ui/use-server-action";
+import type { ActionPayload } from "@/lib/http/action";
 
-/** The confirmation step before a delete; the delete itself is one API call. */
+/** The confirmation step before a delete; the delete itself is one server action. */
 export function ConfirmDelete({
-  url,
+  action,
+  payload,
   what,
   consequence,
   onDone,
   onCancel,
 }: {
-  url: string;
+  action: Action;
+  payload: ActionPayload;
   what: string;
   consequence: string;
   onDone: (message: string) => void;
   onCancel: () => void;
 }) {
-  const [pending, setPending] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { run, pending, state } = useServerAction(action, { refresh: false });
+  const error = state && !state.ok ? state.message : null;
   const confirm = async () => {
-    setPending(true);
-    setError(null);
-    try {
-      await stockRequest("DELETE", url);
-      onDone(`Deleted ${what}.`);
-    } catch (err) {
-      setError(err instanceof StockApiError ? err.message : "Something went wrong; nothing was deleted.");
-      setPending(false);
-    }
+    const res = await run(payload);
+    if (res.ok) onDone(`Deleted ${what}.`);
   };
   return (
     <div className="space-y-4">

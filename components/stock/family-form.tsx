@@ -3,12 +3,22 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { saveFamilyAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { showActionErrors } from "@/components/ui/action-errors";
 import { Button } from "@/components/ui/button";
+import { SelectField, TextField } from "@/components/ui/field";
+import { useServerAction } from "@/components/ui/use-server-action";
+import { formatMm, numberFromInput } from "@/lib/stock/format";
 import type { BalloonFamilyView } from "@/lib/stock/types";
-import { balloonFamilyInput, COMPLIANCE_LABELS, COMPLIANCES, type BalloonFamilyInput } from "@/lib/validation/stock";
-import { describedBy, FormField, inputClass, numberFromInput } from "./form-field";
-import { showServerError } from "./server-errors";
-import { stockRequest, stockUrl } from "./stock-api";
+import {
+  balloonFamilyInput,
+  COMPLIANCE_LABELS,
+  COMPLIANCES,
+  GROWTH_MAX_MM,
+  PRESSURE_MAX_ATM,
+  PRESSURE_MIN_ATM,
+  type BalloonFamilyInput,
+} from "@/lib/validation/stock";
 
 const FIELDS = ["name", "compliance", "nominalAtm", "rbpAtm", "growthAtRbpMm"] as const;
 
@@ -23,6 +33,7 @@ export function FamilyForm({
   onDone: (message: string) => void;
   onCancel: () => void;
 }) {
+  const { run } = useServerAction(saveFamilyAction, { refresh: false });
   const {
     register,
     handleSubmit,
@@ -42,88 +53,51 @@ export function FamilyForm({
   });
 
   const onSubmit = handleSubmit(async (data) => {
-    const body = { ...data, growthAtRbpMm: data.growthAtRbpMm ?? null };
-    try {
-      if (family) await stockRequest("PATCH", stockUrl(slug, `/families/${family.id}`), body);
-      else await stockRequest("POST", stockUrl(slug, "/families"), body);
-      onDone(family ? `Saved ${data.name}.` : `Added balloon family ${data.name}.`);
-    } catch (err) {
-      showServerError(err, setError, FIELDS);
-    }
+    const res = await run({ slug, familyId: family?.id, ...data, growthAtRbpMm: data.growthAtRbpMm ?? null });
+    if (res.ok) onDone(res.message ?? "Saved.");
+    else showActionErrors(res, setError, FIELDS);
   });
 
   const id = (f: string) => `family-${family?.id ?? "new"}-${f}`;
   const err = (f: (typeof FIELDS)[number]) => errors[f]?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField id={id("name")} label="Name" error={err("name")}>
-        <input
-          id={id("name")}
-          {...register("name")}
-          className={inputClass}
-          autoComplete="off"
-          aria-invalid={!!err("name")}
-          aria-describedby={describedBy(id("name"), undefined, err("name"))}
-        />
-      </FormField>
-      <FormField id={id("compliance")} label="Compliance" error={err("compliance")}>
-        <select
-          id={id("compliance")}
-          {...register("compliance")}
-          className={inputClass}
-          aria-invalid={!!err("compliance")}
-        >
-          {COMPLIANCES.map((c) => (
-            <option key={c} value={c}>
-              {COMPLIANCE_LABELS[c]}
-            </option>
-          ))}
-        </select>
-      </FormField>
+      <TextField id={id("name")} label="Name" error={err("name")} autoComplete="off" {...register("name")} />
+      <SelectField
+        id={id("compliance")}
+        label="Compliance"
+        error={err("compliance")}
+        options={COMPLIANCES.map((c) => ({ value: c, label: COMPLIANCE_LABELS[c] }))}
+        {...register("compliance")}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
-        <FormField id={id("nominal")} label="Nominal pressure (atm)" hint="1 to 40 atm" error={err("nominalAtm")}>
-          <input
-            id={id("nominal")}
-            inputMode="decimal"
-            {...register("nominalAtm", { setValueAs: numberFromInput })}
-            className={inputClass}
-            aria-invalid={!!err("nominalAtm")}
-            aria-describedby={describedBy(id("nominal"), "hint", err("nominalAtm"))}
-          />
-        </FormField>
-        <FormField
+        <TextField
+          id={id("nominal")}
+          label="Nominal pressure (atm)"
+          hint={`${PRESSURE_MIN_ATM} to ${PRESSURE_MAX_ATM} atm`}
+          error={err("nominalAtm")}
+          inputMode="decimal"
+          {...register("nominalAtm", { setValueAs: numberFromInput })}
+        />
+        <TextField
           id={id("rbp")}
           label="Rated burst pressure (atm)"
           hint="above the nominal pressure"
           error={err("rbpAtm")}
-        >
-          <input
-            id={id("rbp")}
-            inputMode="decimal"
-            {...register("rbpAtm", { setValueAs: numberFromInput })}
-            className={inputClass}
-            aria-invalid={!!err("rbpAtm")}
-            aria-describedby={describedBy(id("rbp"), "hint", err("rbpAtm"))}
-          />
-        </FormField>
+          inputMode="decimal"
+          {...register("rbpAtm", { setValueAs: numberFromInput })}
+        />
       </div>
-      <FormField
+      <TextField
         id={id("growth")}
         label="Growth at rated burst pressure (mm, optional)"
-        hint="0 to 1.00 mm over the nominal diameter; leave empty if not recorded"
+        hint={`0 to ${formatMm(GROWTH_MAX_MM)} mm over the nominal diameter; leave empty if not recorded`}
         error={err("growthAtRbpMm")}
-      >
-        <input
-          id={id("growth")}
-          inputMode="decimal"
-          {...register("growthAtRbpMm", {
-            setValueAs: (v) => (String(v ?? "").trim() === "" ? null : numberFromInput(v)),
-          })}
-          className={inputClass}
-          aria-invalid={!!err("growthAtRbpMm")}
-          aria-describedby={describedBy(id("growth"), "hint", err("growthAtRbpMm"))}
-        />
-      </FormField>
+        inputMode="decimal"
+        {...register("growthAtRbpMm", {
+          setValueAs: (v) => (String(v ?? "").trim() === "" ? null : numberFromInput(v)),
+        })}
+      />
       <FormActions
         pending={isSubmitting}
         submitLabel={family ? "Save family" : "Add family"}

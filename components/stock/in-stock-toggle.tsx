@@ -1,9 +1,10 @@
 "use client";
 
 import { useState } from "react";
+import { saveBalloonAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { useServerAction } from "@/components/ui/use-server-action";
 import { formatMm } from "@/lib/stock/format";
 import type { BalloonView } from "@/lib/stock/types";
-import { StockApiError, stockRequest, stockUrl } from "./stock-api";
 
 /** Read-only roles see the word and a mark; managers get a switch that saves at once. */
 export function InStockToggle({
@@ -22,7 +23,7 @@ export function InStockToggle({
   onError: (message: string) => void;
 }) {
   const [shown, setShown] = useState(balloon.inStock);
-  const [pending, setPending] = useState(false);
+  const { run, pending } = useServerAction(saveBalloonAction, { refresh: false });
   const label = (on: boolean) => (
     <>
       <span aria-hidden className="inline-block w-4 text-center font-bold">
@@ -39,15 +40,11 @@ export function InStockToggle({
   const toggle = async () => {
     const next = !shown;
     setShown(next);
-    setPending(true);
-    try {
-      await stockRequest("PATCH", stockUrl(slug, `/balloons/${balloon.id}`), { inStock: next });
-      onSaved(`${family} ${formatMm(balloon.diameterMm)} mm marked ${next ? "in stock" : "out of stock"}.`);
-    } catch (err) {
+    const res = await run({ slug, balloonId: balloon.id, inStock: next });
+    if (res.ok) onSaved(`${family} ${formatMm(balloon.diameterMm)} mm marked ${next ? "in stock" : "out of stock"}.`);
+    else {
       setShown(!next);
-      onError(err instanceof StockApiError ? err.message : "The change was not saved.");
-    } finally {
-      setPending(false);
+      onError(res.message ?? "The change was not saved.");
     }
   };
   return (

@@ -3,12 +3,13 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { savePlatformAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { showActionErrors } from "@/components/ui/action-errors";
+import { TextField } from "@/components/ui/field";
+import { useServerAction } from "@/components/ui/use-server-action";
 import type { StentPlatformView } from "@/lib/stock/types";
 import { stentPlatformInput, type StentPlatformInput } from "@/lib/validation/stock";
 import { FormActions } from "./family-form";
-import { describedBy, FormField, inputClass } from "./form-field";
-import { showServerError } from "./server-errors";
-import { stockRequest, stockUrl } from "./stock-api";
 
 export function PlatformForm({
   slug,
@@ -21,6 +22,7 @@ export function PlatformForm({
   onDone: (message: string) => void;
   onCancel: () => void;
 }) {
+  const { run } = useServerAction(savePlatformAction, { refresh: false });
   const {
     register,
     handleSubmit,
@@ -32,29 +34,20 @@ export function PlatformForm({
   });
 
   const onSubmit = handleSubmit(async (data) => {
-    try {
-      if (platform) await stockRequest("PATCH", stockUrl(slug, `/platforms/${platform.id}`), data);
-      else await stockRequest("POST", stockUrl(slug, "/platforms"), data);
-      onDone(platform ? `Renamed to ${data.name}.` : `Added stent platform ${data.name}.`);
-    } catch (err) {
-      showServerError(err, setError, ["name"]);
-    }
+    const res = await run({ slug, platformId: platform?.id, ...data });
+    if (res.ok) onDone(res.message ?? "Saved.");
+    else showActionErrors(res, setError, ["name"]);
   });
 
-  const id = `platform-${platform?.id ?? "new"}-name`;
-  const error = errors.name?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField id={id} label="Name" error={error}>
-        <input
-          id={id}
-          {...register("name")}
-          autoComplete="off"
-          className={inputClass}
-          aria-invalid={!!error}
-          aria-describedby={describedBy(id, undefined, error)}
-        />
-      </FormField>
+      <TextField
+        id={`platform-${platform?.id ?? "new"}-name`}
+        label="Name"
+        error={errors.name?.message}
+        autoComplete="off"
+        {...register("name")}
+      />
       <FormActions
         pending={isSubmitting}
         submitLabel={platform ? "Save platform" : "Add platform"}

@@ -3,13 +3,23 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { formatMm } from "@/lib/stock/format";
+import { saveSizeAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { showActionErrors } from "@/components/ui/action-errors";
+import { TextField } from "@/components/ui/field";
+import { useServerAction } from "@/components/ui/use-server-action";
+import { formatMm, numberFromInput } from "@/lib/stock/format";
 import type { StentSizeView } from "@/lib/stock/types";
-import { stentSizeInput, type StentSizeInput } from "@/lib/validation/stock";
+import {
+  DIAMETER_MAX_MM,
+  DIAMETER_MIN_MM,
+  DIAMETER_STEP_MM,
+  MAX_POST_DILATATION_OVER_NOMINAL_MM,
+  stentSizeInput,
+  type StentSizeInput,
+} from "@/lib/validation/stock";
 import { FormActions } from "./family-form";
-import { describedBy, FormField, inputClass, numberFromInput } from "./form-field";
-import { showServerError } from "./server-errors";
-import { stockRequest, stockUrl } from "./stock-api";
+
+export const DIAMETER_HINT = `${formatMm(DIAMETER_MIN_MM)} to ${formatMm(DIAMETER_MAX_MM)} mm in steps of ${formatMm(DIAMETER_STEP_MM)} mm`;
 
 export function SizeForm({
   slug,
@@ -26,6 +36,7 @@ export function SizeForm({
   onDone: (message: string) => void;
   onCancel: () => void;
 }) {
+  const { run } = useServerAction(saveSizeAction, { refresh: false });
   const {
     register,
     handleSubmit,
@@ -37,52 +48,32 @@ export function SizeForm({
   });
 
   const onSubmit = handleSubmit(async (data) => {
-    try {
-      if (size) await stockRequest("PATCH", stockUrl(slug, `/sizes/${size.id}`), data);
-      else await stockRequest("POST", stockUrl(slug, `/platforms/${platformId}/sizes`), data);
-      onDone(`${size ? "Saved" : "Added"} ${platformName} ${formatMm(data.nominalMm)} mm.`);
-    } catch (err) {
-      showServerError(err, setError, ["nominalMm", "maxPostDilatationMm"]);
-    }
+    const res = await run(size ? { slug, sizeId: size.id, ...data } : { slug, platformId, ...data });
+    if (res.ok) onDone(`${size ? "Saved" : "Added"} ${platformName} ${formatMm(data.nominalMm)} mm.`);
+    else showActionErrors(res, setError, ["nominalMm", "maxPostDilatationMm"]);
   });
 
   const id = `size-${size?.id ?? `new-${platformId}`}`;
-  const nominalError = errors.nominalMm?.message;
-  const maxError = errors.maxPostDilatationMm?.message;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <FormField
+      <TextField
         id={`${id}-nominal`}
         label="Nominal diameter (mm)"
-        hint="1.00 to 7.00 mm in steps of 0.05 mm"
-        error={nominalError}
-      >
-        <input
-          id={`${id}-nominal`}
-          inputMode="decimal"
-          autoComplete="off"
-          {...register("nominalMm", { setValueAs: numberFromInput })}
-          className={inputClass}
-          aria-invalid={!!nominalError}
-          aria-describedby={describedBy(`${id}-nominal`, "hint", nominalError)}
-        />
-      </FormField>
-      <FormField
+        hint={DIAMETER_HINT}
+        error={errors.nominalMm?.message}
+        inputMode="decimal"
+        autoComplete="off"
+        {...register("nominalMm", { setValueAs: numberFromInput })}
+      />
+      <TextField
         id={`${id}-max`}
         label="Maximum post-dilatation diameter (mm)"
-        hint="from the nominal diameter up to nominal + 2.00 mm, as the device's instructions state"
-        error={maxError}
-      >
-        <input
-          id={`${id}-max`}
-          inputMode="decimal"
-          autoComplete="off"
-          {...register("maxPostDilatationMm", { setValueAs: numberFromInput })}
-          className={inputClass}
-          aria-invalid={!!maxError}
-          aria-describedby={describedBy(`${id}-max`, "hint", maxError)}
-        />
-      </FormField>
+        hint={`from the nominal diameter up to nominal + ${formatMm(MAX_POST_DILATATION_OVER_NOMINAL_MM)} mm, as the device's instructions state`}
+        error={errors.maxPostDilatationMm?.message}
+        inputMode="decimal"
+        autoComplete="off"
+        {...register("maxPostDilatationMm", { setValueAs: numberFromInput })}
+      />
       <FormActions
         pending={isSubmitting}
         submitLabel={size ? "Save size" : "Add size"}

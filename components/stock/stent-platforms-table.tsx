@@ -3,6 +3,7 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
+import { deletePlatformAction, deleteSizeAction } from "@/app/(lab)/labs/[slug]/stock/actions";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatMm } from "@/lib/stock/format";
@@ -12,7 +13,6 @@ import { PlatformForm } from "./platform-form";
 import { SizeForm } from "./size-form";
 import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
-import { stockUrl } from "./stock-api";
 import { StockDialog } from "./stock-dialog";
 import { StockTable } from "./stock-table";
 
@@ -116,7 +116,8 @@ export function StentPlatformsTable({
         ) : null}
         {dialog?.kind === "delete-platform" ? (
           <ConfirmDelete
-            url={stockUrl(slug, `/platforms/${dialog.platform.id}`)}
+            action={deletePlatformAction}
+            payload={{ slug, platformId: dialog.platform.id }}
             what={dialog.platform.name}
             consequence={`Its ${dialog.platform.sizes.length} sizes are deleted with it.`}
             onDone={done}
@@ -125,7 +126,8 @@ export function StentPlatformsTable({
         ) : null}
         {dialog?.kind === "delete-size" ? (
           <ConfirmDelete
-            url={stockUrl(slug, `/sizes/${dialog.size.id}`)}
+            action={deleteSizeAction}
+            payload={{ slug, sizeId: dialog.size.id }}
             what={`${dialog.platform.name} ${formatMm(dialog.size.nominalMm)} mm`}
             consequence="Charts stop checking post-dilatation against this size."
             onDone={done}

@@ -2,38 +2,34 @@
 
 import { useRouter } from "next/navigation";
 import { useId, useRef, useState, type DragEvent } from "react";
+import { importStockAction } from "@/app/(lab)/labs/[slug]/stock/actions";
 import { Button } from "@/components/ui/button";
-import type { FieldIssue } from "@/lib/errors";
+import { UNREACHABLE } from "@/components/ui/use-server-action";
+import type { ActionState } from "@/lib/http/action";
 import { balloonStockCsv } from "@/lib/stock/export";
 import { formatAtm, formatMm } from "@/lib/stock/format";
 import { FIELD_LABELS, formatStockValue } from "@/lib/stock/history";
 import type { ImportResult } from "@/lib/stock/import-plan";
-import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
+import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS } from "@/lib/stock/limits";
 import type { BalloonFamilyView } from "@/lib/stock/types";
-import { stockUrl } from "./stock-api";
+import { megabytes } from "@/lib/upload-limits";
+import { DIAMETER_MAX_MM, DIAMETER_MIN_MM, DIAMETER_STEP_MM } from "@/lib/validation/stock";
 
 type Phase =
   | { step: "idle" }
-  | { step: "sending"; file: File; verb: "Checking" | "Applying"; percent: number }
+  | { step: "sending"; file: File; verb: "Checking" | "Applying" }
   | { step: "preview"; file: File; result: ImportResult }
-  | { step: "failed"; file?: File; message: string; issues: FieldIssue[] }
+  | { step: "failed"; file?: File; message: string; issues: string[] }
   | { step: "applied"; file: File; result: ImportResult };
 
-type Answer = { status: number; body: unknown };
-
-/** multipart upload with progress; XHR because fetch cannot report upload progress. */
-function upload(url: string, file: File, onProgress: (percent: number) => void): Promise<Answer> {
-  return new Promise((resolve) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open("POST", url);
-    xhr.responseType = "json";
-    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(Math.round((e.loaded / e.total) * 100));
-    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
-    xhr.onerror = () => resolve({ status: 0, body: null });
-    const form = new FormData();
-    form.append("file", file);
-    xhr.send(form);
-  });
+/** Sends the file to the import action: a preview (`revision` absent) or the apply of a previewed plan. */
+async function send(slug: string, file: File, revision?: number): Promise<ActionState> {
+  const form = new FormData();
+  form.set("slug", slug);
+  form.set("file", file);
+  if (revision === undefined) form.set("dryRun", "1");
+  else form.set("revision", String(revision));
+  return importStockAction({}, form).catch(() => UNREACHABLE);
 }
 
 export function StockImport({ slug, families }: { slug: string; families: BalloonFamilyView[] }) {
@@ -43,41 +39,33 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
   const [phase, setPhase] = useState<Phase>({ step: "idle" });
   const [dragging, setDragging] = useState(false);
 
-  const failed = (answer: Answer, file: File): Phase => {
-    const error = (answer.body as { error?: { message?: string; issues?: FieldIssue[] } } | null)?.error;
-    const message =
-      answer.status === 0
-        ? "Could not reach the server. Check your connection and try again; nothing was changed."
-        : (error?.message ?? `The server answered ${answer.status}; nothing was changed.`);
-    return { step: "failed", file, message, issues: error?.issues ?? [] };
-  };
+  const failed = (res: ActionState, file: File): Phase => ({
+    step: "failed",
+    file,
+    message: res.message ?? "The file was not imported; nothing was changed.",
+    issues: res.issues ?? [],
+  });
 
   const check = async (file: File) => {
     if (file.size > MAX_IMPORT_BYTES) {
       setPhase({
         step: "failed",
         file,
-        message: `${file.name} is ${(file.size / 1024 / 1024).toFixed(2)} MB; the limit is 1 MB. Split it into smaller files.`,
+        message: `${file.name} is ${megabytes(file.size)} MB; the limit is ${megabytes(MAX_IMPORT_BYTES)} MB. Split it into smaller files.`,
         issues: [],
       });
       return;
     }
-    setPhase({ step: "sending", file, verb: "Checking", percent: 0 });
-    const answer = await upload(`${stockUrl(slug, "/import")}?dryRun=1`, file, (percent) =>
-      setPhase({ step: "sending", file, verb: "Checking", percent }),
-    );
-    setPhase(
-      answer.status === 200 ? { step: "preview", file, result: answer.body as ImportResult } : failed(answer, file),
-    );
+    setPhase({ step: "sending", file, verb: "Checking" });
+    const res = await send(slug, file);
+    setPhase(res.ok ? { step: "preview", file, result: res.data as ImportResult } : failed(res, file));
   };
 
   const apply = async (file: File, preview: ImportResult) => {
-    setPhase({ step: "sending", file, verb: "Applying", percent: 0 });
-    const answer = await upload(`${stockUrl(slug, "/import")}?revision=${preview.revision}`, file, (percent) =>
-      setPhase({ step: "sending", file, verb: "Applying", percent }),
-    );
-    if (answer.status !== 200) return setPhase(failed(answer, file));
-    setPhase({ step: "applied", file, result: answer.body as ImportResult });
+    setPhase({ step: "sending", file, verb: "Applying" });
+    const res = await send(slug, file, preview.revision);
+    if (!res.ok) return setPhase(failed(res, file));
+    setPhase({ step: "applied", file, result: res.data as ImportResult });
     router.refresh();
   };
 
@@ -147,7 +135,9 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
           }}
           className="mx-auto mt-3 block text-sm file:mr-3 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5 file:font-semibold"
         />
-        <p className="mt-2 text-xs text-ink-faint">UTF-8 text, up to 1 MB and 5,000 lines.</p>
+        <p className="mt-2 text-xs text-ink-faint">
+          UTF-8 text, up to {megabytes(MAX_IMPORT_BYTES)} MB and {MAX_IMPORT_ROWS.toLocaleString("en")} lines.
+        </p>
       </div>
 
       <details className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm">
@@ -164,7 +154,8 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
               <code>compliance</code>: <code>nc</code> (non-compliant) or <code>sc</code> (semi-compliant).
             </li>
             <li>
-              <code>diameter_mm</code>: 1.00 to 7.00 in steps of 0.05; each diameter once per family.
+              <code>diameter_mm</code>: {formatMm(DIAMETER_MIN_MM)} to {formatMm(DIAMETER_MAX_MM)} in steps of{" "}
+              {formatMm(DIAMETER_STEP_MM)}; each diameter once per family.
             </li>
             <li>
               <code>in_stock</code>: yes, no, y, n, true, false, 1 or 0 (any letter case).
@@ -187,18 +178,9 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
           <div role="status" className="rounded-md border border-line bg-paper-raised px-4 py-3">
             <p className="font-medium">
               {phase.verb} {phase.file.name}…{" "}
-              {phase.percent < 100
-                ? `uploading ${phase.percent}%`
-                : phase.verb === "Checking"
-                  ? "comparing with the current stock"
-                  : "saving"}
+              {phase.verb === "Checking" ? "comparing with the current stock" : "saving"}
             </p>
-            <progress
-              className="mt-2 w-full"
-              max={100}
-              value={phase.percent < 100 ? phase.percent : undefined}
-              aria-label={`${phase.verb} ${phase.file.name}`}
-            />
+            <progress className="mt-2 w-full" aria-label={`${phase.verb} ${phase.file.name}`} />
           </div>
         ) : null}
 
@@ -215,7 +197,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
                 aria-label="Problems in the file"
               >
                 {phase.issues.map((issue, i) => (
-                  <li key={i}>{issue.message}</li>
+                  <li key={i}>{issue}</li>
                 ))}
               </ul>
             ) : null}

@@ -1,67 +1,78 @@
-import type { InputHTMLAttributes, SelectHTMLAttributes } from "react";
+import type { ComponentProps, ReactNode } from "react";
 
-const inputClass = "mt-1 w-full rounded-md border bg-white px-3 py-2 text-ink aria-[invalid=true]:border-danger";
+// The one field kit: every form (server-action forms and react-hook-form dialogs) labels its
+// controls, ties hint and error to them for screen readers, and names errors in words.
 
-type Common = { label: string; name: string; error?: string; hint?: string };
+export const inputClass =
+  "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 text-ink disabled:bg-paper-sunk aria-[invalid=true]:border-danger";
 
-/** A labelled input whose error is announced with it (aria-describedby) and named in words. */
-export function TextField({
-  label,
-  name,
-  error,
-  hint,
+type Common = { label: ReactNode; error?: string; hint?: ReactNode; className?: string };
+
+/** The ids a control points at with aria-describedby: its hint and its error, when shown. */
+export const describedBy = (id: string, hint?: unknown, error?: string) =>
+  [hint ? `${id}-hint` : "", error ? `${id}-error` : ""].filter(Boolean).join(" ") || undefined;
+
+/** A label, a control (`children`, already given `id`), its hint and its error. */
+export function Field({
   id,
+  label,
+  hint,
+  error,
   className = "",
-  ...input
-}: Common & InputHTMLAttributes<HTMLInputElement>) {
-  const fieldId = id ?? `field-${name}`;
-  const describedBy =
-    [hint ? `${fieldId}-hint` : null, error ? `${fieldId}-error` : null].filter(Boolean).join(" ") || undefined;
+  children,
+}: Common & { id: string; children: ReactNode }) {
   return (
     <div className={className}>
-      <label htmlFor={fieldId} className="block text-sm font-medium">
+      <label htmlFor={id} className="block text-sm font-medium">
         {label}
       </label>
+      {children}
+      {hint ? (
+        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${id}-error`} error={error} />
+    </div>
+  );
+}
+
+/** A labelled input; spreads the rest onto <input>, so `{...register("x")}` (with its ref) works. */
+export function TextField({ label, error, hint, id, name, className, ...input }: Common & ComponentProps<"input">) {
+  const fieldId = id ?? `field-${name}`;
+  return (
+    <Field id={fieldId} label={label} hint={hint} error={error} className={className}>
       <input
         id={fieldId}
         name={name}
         aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        className={`${inputClass} ${error ? "border-danger" : "border-line-strong"}`}
+        aria-describedby={describedBy(fieldId, hint, error)}
+        className={inputClass}
         {...input}
       />
-      {hint ? (
-        <p id={`${fieldId}-hint`} className="mt-1 text-xs text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      <FieldError id={`${fieldId}-error`} error={error} />
-    </div>
+    </Field>
   );
 }
 
 export function SelectField({
   label,
-  name,
   error,
   hint,
   id,
-  className = "",
+  name,
+  className,
   options,
   ...select
-}: Common & SelectHTMLAttributes<HTMLSelectElement> & { options: { value: string; label: string }[] }) {
+}: Common & ComponentProps<"select"> & { options: readonly { value: string; label: string }[] }) {
   const fieldId = id ?? `field-${name}`;
   return (
-    <div className={className}>
-      <label htmlFor={fieldId} className="block text-sm font-medium">
-        {label}
-      </label>
+    <Field id={fieldId} label={label} hint={hint} error={error} className={className}>
       <select
         id={fieldId}
         name={name}
         aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${fieldId}-error` : hint ? `${fieldId}-hint` : undefined}
-        className={`${inputClass} ${error ? "border-danger" : "border-line-strong"}`}
+        aria-describedby={describedBy(fieldId, hint, error)}
+        className={inputClass}
         {...select}
       >
         {options.map((o) => (
@@ -70,12 +81,25 @@ export function SelectField({
           </option>
         ))}
       </select>
-      {hint ? (
-        <p id={`${fieldId}-hint`} className="mt-1 text-xs text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      <FieldError id={`${fieldId}-error`} error={error} />
+    </Field>
+  );
+}
+
+/** A checkbox with its label after it. */
+export function CheckboxField({
+  label,
+  id,
+  name,
+  className = "",
+  ...input
+}: { label: ReactNode; className?: string } & ComponentProps<"input">) {
+  const fieldId = id ?? `field-${name}`;
+  return (
+    <div className={`flex items-center gap-2 ${className}`}>
+      <input id={fieldId} name={name} type="checkbox" className="h-4 w-4" {...input} />
+      <label htmlFor={fieldId} className="text-sm font-medium">
+        {label}
+      </label>
     </div>
   );
 }

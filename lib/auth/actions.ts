@@ -11,42 +11,42 @@ import {
   forgotPasswordSchema,
   resetPasswordSchema,
 } from "@/lib/validation/auth";
-import { formValues, type ActionState } from "@/lib/http/action";
+import { formValues, runAction, type ActionPayload, type ActionState } from "@/lib/http/action";
 import {
   acceptInvitationAsMember,
   acceptInvitationAsNewAccount,
   requestPasswordReset,
   resetPassword,
 } from "@/lib/ops/accounts";
-import { sessionCaller } from "@/lib/ops/caller";
 import { signIn, signOut } from "./config";
 import { throttledMessage } from "./throttle-policy";
 import type { z } from "zod";
 import { log } from "@/lib/log";
 
-export type SignInState = { error?: string; email?: string };
-
 const safeReturn = (url: string) =>
   url.startsWith("/") && !url.startsWith("//") && !url.startsWith("/\\") ? url : "/dashboard";
 
-export async function signInAction(_prev: SignInState, form: FormData): Promise<SignInState> {
-  const email = String(form.get("email") ?? "").trim();
-  const password = String(form.get("password") ?? "");
-  const callbackUrl = safeReturn(String(form.get("callbackUrl") ?? "/dashboard"));
-  if (!email || !password) return { error: "Enter your e-mail address and password.", email };
+export async function signInAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  const values = formValues(payload);
+  const email = String(values.email ?? "").trim();
+  const password = String(values.password ?? "");
+  const callbackUrl = safeReturn(String(values.callbackUrl ?? "/dashboard"));
+  const refused = (message: string): ActionState => ({ ok: false, message, values: { email } });
+  if (!email || !password) return refused("Enter your e-mail address and password.");
   try {
     await signIn("credentials", { email, password, redirectTo: callbackUrl });
-    return {};
+    return { ok: true };
   } catch (err) {
     if (err instanceof AuthError) {
       const code = (err as AuthError & { code?: string }).code;
-      if (code === "throttled") return { error: throttledMessage(env.SIGNIN_THROTTLE_SECONDS), email };
-      return { error: "That e-mail address and password do not match an account.", email };
+      if (code === "throttled") return refused(throttledMessage(env.SIGNIN_THROTTLE_SECONDS));
+      return refused("That e-mail address and password do not match an account.");
     }
     throw err;
   }
 }
 
+/** Ends the caller's own session; a plain form action (no state, no input). */
 export async function signOutAction(): Promise<void> {
   await signOut({ redirectTo: "/sign-in?signedOut=1" });
 }
@@ -58,18 +58,18 @@ function fieldErrors(error: z.ZodError): Record<string, string> {
 }
 
 // Passwords are never sent back to the browser, even to refill a form.
-const withoutSecrets = (form: FormData) =>
-  Object.fromEntries(Object.entries(formValues(form)).filter(([k]) => k !== "password" && k !== "confirm"));
+const withoutSecrets = (payload: ActionPayload) =>
+  Object.fromEntries(Object.entries(formValues(payload)).filter(([k]) => k !== "password" && k !== "confirm"));
 
 /** The same answer whether or not the address has an account; the e-mail goes out after responding. */
-export async function requestPasswordResetAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const parsed = forgotPasswordSchema.safeParse(formValues(form));
+export async function requestPasswordResetAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  const parsed = forgotPasswordSchema.safeParse(formValues(payload));
   if (!parsed.success)
     return {
       ok: false,
       message: "Please correct the highlighted field.",
       fieldErrors: fieldErrors(parsed.error),
-      values: formValues(form),
+      values: formValues(payload),
     };
   const { email } = parsed.data;
   after(() =>
@@ -84,39 +84,39 @@ export async function requestPasswordResetAction(_prev: ActionState, form: FormD
   };
 }
 
-export async function resetPasswordAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const parsed = resetPasswordSchema.safeParse(formValues(form));
+export async function resetPasswordAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  const parsed = resetPasswordSchema.safeParse(formValues(payload));
   if (!parsed.success)
     return {
       ok: false,
       message: "Please correct the highlighted fields.",
       fieldErrors: fieldErrors(parsed.error),
-      values: withoutSecrets(form),
+      values: withoutSecrets(payload),
     };
   try {
     await resetPassword({ token: parsed.data.token, password: parsed.data.password });
   } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(form) };
+    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(payload) };
     throw err;
   }
   redirect("/sign-in?reset=1");
 }
 
 /** Anyone holding a valid invitation link may create the invited account; the link is the key. */
-export async function acceptInvitationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const parsed = acceptNewAccountSchema.safeParse(formValues(form));
+export async function acceptInvitationAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  const parsed = acceptNewAccountSchema.safeParse(formValues(payload));
   if (!parsed.success)
     return {
       ok: false,
       message: "Please correct the highlighted fields.",
       fieldErrors: fieldErrors(parsed.error),
-      values: withoutSecrets(form),
+      values: withoutSecrets(payload),
     };
   let joined: Awaited<ReturnType<typeof acceptInvitationAsNewAccount>>;
   try {
     joined = await acceptInvitationAsNewAccount(parsed.data);
   } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(form) };
+    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(payload) };
     throw err;
   }
   redirect(
@@ -125,16 +125,14 @@ export async function acceptInvitationAction(_prev: ActionState, form: FormData)
 }
 
 /** A signed-in person accepts an invitation addressed to their own account. */
-export async function joinLabAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const parsed = acceptAsMemberSchema.safeParse(formValues(form));
-  if (!parsed.success) return { ok: false, message: "This invitation link is not valid." };
-  let slug: string;
-  try {
-    const joined = await acceptInvitationAsMember(await sessionCaller(), { token: parsed.data.token });
-    slug = joined.lab.slug;
-  } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message };
-    throw err;
-  }
-  redirect(`/labs/${slug}`);
+export async function joinLabAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  let slug: string | null = null;
+  const state = await runAction(payload, async (caller, values) => {
+    const parsed = acceptAsMemberSchema.safeParse(values);
+    if (!parsed.success) return { ok: false, message: "This invitation link is not valid." };
+    slug = (await acceptInvitationAsMember(caller, { token: parsed.data.token })).lab.slug;
+    return { ok: true };
+  });
+  if (slug) redirect(`/labs/${slug}`);
+  return state;
 }

@@ -1,6 +1,8 @@
 import "server-only";
+import { AppError, invalidInput } from "@/lib/errors";
 import { sessionCaller, type Caller } from "@/lib/ops/caller";
 import { log } from "@/lib/log";
+import { payloadTooLarge, type UploadedFile } from "@/lib/upload";
 import { toAppError } from "./respond";
 
 /** What every server action returns: field errors and the values entered, so nothing is lost. */
@@ -11,7 +13,14 @@ export type ActionState = {
   values?: Record<string, unknown>;
   /** The id of what the action created, when it created something. */
   id?: number;
+  /** Every reason in order, for lists that are not form fields (e.g. a CSV file's bad lines). */
+  issues?: string[];
+  /** A result the caller shows, e.g. the plan of a CSV import preview. */
+  data?: unknown;
 };
+
+/** The one signature of every server action: React's form-action shape, refs inside the payload. */
+export type ServerAction = (prev: ActionState, payload: ActionPayload) => Promise<ActionState>;
 
 export type ActionPayload = FormData | Record<string, unknown>;
 
@@ -40,11 +49,27 @@ export async function runAction(
     const known = toAppError(err);
     if (!known) throw err;
     if (known.status >= 500) log.error({ err }, known.message);
-    const fieldErrors = known.issues
-      ? Object.fromEntries(known.issues.map((i) => [i.path.join(".") || "_", i.message]))
-      : undefined;
-    const message =
-      fieldErrors && known.code === "invalid_input" ? "Please correct the highlighted fields." : known.message;
-    return { ok: false, message, fieldErrors, values: keep };
+    if (!known.issues?.length) return { ok: false, message: known.message, values: keep };
+    const fieldErrors: Record<string, string> = {};
+    for (const i of known.issues) fieldErrors[i.path.join(".") || "_"] ??= i.message;
+    // A message that only lists the fields' reasons gives way to a pointer at the fields.
+    const listsFields = known.code === "invalid_input" && known.message === invalidInput(known.issues).message;
+    const message = listsFields ? "Please correct the highlighted fields." : known.message;
+    return { ok: false, message, fieldErrors, issues: known.issues.map((i) => i.message), values: keep };
   }
+}
+
+/**
+ * The file a form sent in `field`, refused above `maxBytes` from its declared size before its
+ * bytes are read (the request body itself is capped by `serverActions.bodySizeLimit`).
+ */
+export async function uploadedFile(
+  payload: ActionPayload,
+  { field = "file", maxBytes, tooLargeHint }: { field?: string; maxBytes: number; tooLargeHint: string },
+): Promise<UploadedFile> {
+  const file = payload instanceof FormData ? payload.get(field) : payload[field];
+  if (!(file instanceof File) || file.size === 0)
+    throw new AppError("invalid_input", "Choose a file to send.", [{ path: [field], message: "No file was sent." }]);
+  if (file.size > maxBytes) throw payloadTooLarge(file.size, maxBytes, tooLargeHint);
+  return { name: file.name.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
 }

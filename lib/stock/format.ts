@@ -16,3 +16,8 @@ export function parseDecimalText(raw: string): number | undefined {
   if (!/^\+?\d{1,4}(?:[.,]\d{1,6})?$/.test(s)) return Number.NaN;
   return Number(s.replace(",", "."));
 }
+
+/** Form text -> number for the zod schemas: "" is missing, a decimal comma is accepted. */
+export function numberFromInput(value: unknown): number | undefined {
+  return typeof value === "number" ? value : parseDecimalText(String(value ?? ""));
+}

@@ -1,3 +1,5 @@
 // How much one stock import may carry.
-export const MAX_IMPORT_BYTES = 1024 * 1024;
+import { ONE_MB } from "@/lib/upload-limits";
+
+export const MAX_IMPORT_BYTES = ONE_MB;
 export const MAX_IMPORT_ROWS = 5000;

@@ -511,6 +511,7 @@ const CHART_ACTIONS = "app/(lab)/labs/[slug]/charts/actions.ts";
 const ROOM_ACTIONS = "app/(lab)/labs/[slug]/rooms/actions.ts";
 const CHECK_ACTIONS = "app/(public)/v/[token]/actions.ts";
 const LAB_ACTIONS = "app/(lab)/labs/[slug]/actions.ts";
+const STOCK_ACTIONS = "app/(lab)/labs/[slug]/stock/actions.ts";
 const AUTH_ACTIONS = "lib/auth/actions.ts";
 
 export const ACTIONS: ActionRow[] = [
@@ -572,6 +573,19 @@ export const ACTIONS: ActionRow[] = [
   },
   { kind: "action", file: CHART_ACTIONS, name: "rejectEditionAction", allowed: ["manager", "lead"] },
   { kind: "action", file: CHART_ACTIONS, name: "withdrawEditionAction", allowed: ["manager"] },
+  { kind: "action", file: CHART_ACTIONS, name: "setChartLogoAction", allowed: ["manager", "educator"] },
+  { kind: "action", file: CHART_ACTIONS, name: "removeChartLogoAction", allowed: ["manager", "educator"] },
+  ...[
+    "saveFamilyAction",
+    "saveBalloonAction",
+    "savePlatformAction",
+    "saveSizeAction",
+    "deleteFamilyAction",
+    "deleteBalloonAction",
+    "deletePlatformAction",
+    "deleteSizeAction",
+    "importStockAction",
+  ].map((name): ActionRow => ({ kind: "action", file: STOCK_ACTIONS, name, allowed: ["manager"] })),
   { kind: "action", file: ROOM_ACTIONS, name: "createRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "renameRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "archiveRoomAction", allowed: ["manager"] },

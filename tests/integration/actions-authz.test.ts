@@ -1,6 +1,8 @@
 // Walks the server-action rows of the authorization matrix: every actor the row does not allow
-// calls the action with input that would work for a manager, and nothing may change.
+// calls the action, with the one signature every action has (previous state, payload), on a
+// payload that would work for an allowed member, and nothing may change.
 import { and, eq } from "drizzle-orm";
+import { PNG } from "pngjs";
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting } from "./support/writes";
@@ -11,11 +13,16 @@ import {
   charts,
   editions,
   invitations,
+  labs,
+  logos,
   memberships,
   postings,
   rooms,
+  stentPlatforms,
+  stentSizes,
   users,
 } from "@/db/schema";
+import type { ActionPayload, ActionState } from "@/lib/http/action";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import type { SessionUser } from "@/lib/auth/session";
 import { newToken } from "@/lib/auth/tokens";
@@ -27,14 +34,15 @@ const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
 vi.mock("next/cache", () => ({ revalidatePath: () => {}, revalidateTag: () => {} }));
 
-type ActionFn = (...args: unknown[]) => Promise<{ ok?: boolean; message?: string }>;
+type ActionFn = (prev: ActionState, payload: ActionPayload) => Promise<ActionState>;
 type Team = Awaited<ReturnType<typeof labWithTeam>>;
 
 let team: Team;
 let invitationId: number;
 let inviteeEmail: string;
 // Chart, editions, room and posting of the fixture lab, for the chart and room actions.
-const wall = { familyId: 0, chartId: 0, draftId: 0, approvedId: 0, token: "", roomId: 0, postingId: 0 };
+const wall = { familyId: 0, balloonId: 0, chartId: 0, draftId: 0, approvedId: 0, token: "", roomId: 0, postingId: 0 };
+const stent = { platformId: 0, sizeId: 0 };
 
 beforeAll(async () => {
   team = await labWithTeam();
@@ -74,6 +82,19 @@ beforeAll(async () => {
       inStock: true,
     })),
   );
+  wall.balloonId = (
+    await db.select({ id: balloons.id }).from(balloons).where(eq(balloons.familyId, wall.familyId)).limit(1)
+  )[0]!.id;
+  const [platform] = await db
+    .insert(stentPlatforms)
+    .values({ labId: team.lab.id, name: "DES fixture platform" })
+    .$returningId();
+  stent.platformId = platform!.id;
+  const [size] = await db
+    .insert(stentSizes)
+    .values({ labId: team.lab.id, platformId: stent.platformId, nominalMm: 3, maxPostDilatationMm: 4 })
+    .$returningId();
+  stent.sizeId = size!.id;
   wall.chartId = (await createChart({ labId: team.lab.id, userId: educator.id, definition: chartDefinition() })).id;
   const approved = await createEdition({ labId: team.lab.id, chartId: wall.chartId, actor: educator });
   await approveEdition({ labId: team.lab.id, editionId: approved.id, actor: lead });
@@ -108,35 +129,69 @@ beforeEach(() => {
   session.user = null;
 });
 
-const form = (fields: Record<string, string | number>) => {
+const form = (fields: Record<string, string | number | Blob>) => {
   const f = new FormData();
-  for (const [k, v] of Object.entries(fields)) f.set(k, String(v));
+  for (const [k, v] of Object.entries(fields)) f.set(k, v instanceof Blob ? v : String(v));
   return f;
 };
 
-/** Arguments each guarded action would accept from a member allowed to run it. */
-const INPUTS: Record<string, (t: Team) => unknown[]> = {
-  inviteMemberAction: (t) => [{}, form({ slug: t.lab.slug, email: `${unique("new")}@example.test`, role: "educator" })],
-  resendInvitationAction: (t) => [{}, form({ slug: t.lab.slug, invitationId })],
-  revokeInvitationAction: (t) => [{}, form({ slug: t.lab.slug, invitationId })],
-  changeMemberRoleAction: (t) => [
-    {},
+const logoPng = () => {
+  const img = new PNG({ width: 8, height: 8 });
+  img.data.fill(180);
+  return new File([new Uint8Array(PNG.sync.write(img))], "logo.png", { type: "image/png" });
+};
+const csv = () =>
+  new File(
+    ["family,compliance,diameter_mm,in_stock,nominal_atm,rbp_atm\nSC fixture import,sc,2.50,yes,8,14\n"],
+    "stock.csv",
+    {
+      type: "text/csv",
+    },
+  );
+
+/** The payload each guarded action would accept from a member allowed to run it. */
+const INPUTS: Record<string, (t: Team) => ActionPayload> = {
+  inviteMemberAction: (t) => form({ slug: t.lab.slug, email: `${unique("new")}@example.test`, role: "educator" }),
+  resendInvitationAction: (t) => form({ slug: t.lab.slug, invitationId }),
+  revokeInvitationAction: (t) => form({ slug: t.lab.slug, invitationId }),
+  changeMemberRoleAction: (t) =>
     form({ slug: t.lab.slug, membershipId: t.people.educator.membershipId, role: "operator" }),
-  ],
-  removeMemberAction: (t) => [{}, form({ slug: t.lab.slug, membershipId: t.people.operator.membershipId })],
-  joinLabAction: () => [{}, form({ token: newToken().token })],
-  saveChartAction: (t) => [t.lab.slug, wall.chartId, chartDefinition("Renamed fixture chart")],
-  createEditionAction: (t) => [t.lab.slug, wall.chartId],
-  approveEditionAction: (t) => [t.lab.slug, wall.draftId],
-  rejectEditionAction: (t) => [t.lab.slug, wall.draftId, "Columns too narrow"],
-  withdrawEditionAction: (t) => [t.lab.slug, wall.approvedId, ""],
-  createRoomAction: (t) => [t.lab.slug, {}, form({ name: unique("room") })],
-  renameRoomAction: (t) => [t.lab.slug, wall.roomId, "Renamed room"],
-  archiveRoomAction: (t) => [t.lab.slug, wall.roomId],
-  takeDownAction: (t) => [t.lab.slug, wall.postingId],
-  recordPostingAction: () => [wall.token, wall.roomId],
-  takeDownPostingAction: () => [wall.token, wall.postingId],
-  setStaleMailAction: (t) => [t.lab.slug, true],
+  removeMemberAction: (t) => form({ slug: t.lab.slug, membershipId: t.people.operator.membershipId }),
+  joinLabAction: () => form({ token: newToken().token }),
+  saveChartAction: (t) => ({
+    slug: t.lab.slug,
+    chartId: wall.chartId,
+    definition: chartDefinition("Renamed fixture chart"),
+  }),
+  createEditionAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
+  approveEditionAction: (t) => ({ slug: t.lab.slug, editionId: wall.draftId }),
+  rejectEditionAction: (t) => ({ slug: t.lab.slug, editionId: wall.draftId, reason: "Columns too narrow" }),
+  withdrawEditionAction: (t) => ({ slug: t.lab.slug, editionId: wall.approvedId, reason: "" }),
+  setChartLogoAction: (t) => form({ slug: t.lab.slug, chartId: wall.chartId, file: logoPng() }),
+  removeChartLogoAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
+  createRoomAction: (t) => form({ slug: t.lab.slug, name: unique("room") }),
+  renameRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId, name: "Renamed room" }),
+  archiveRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId }),
+  takeDownAction: (t) => ({ slug: t.lab.slug, postingId: wall.postingId }),
+  recordPostingAction: () => ({ token: wall.token, roomId: wall.roomId }),
+  takeDownPostingAction: () => ({ token: wall.token, postingId: wall.postingId }),
+  setStaleMailAction: (t) => ({ slug: t.lab.slug, on: true }),
+  saveFamilyAction: (t) => ({
+    slug: t.lab.slug,
+    name: "NC fixture family 2",
+    compliance: "nc",
+    nominalAtm: 10,
+    rbpAtm: 18,
+    growthAtRbpMm: null,
+  }),
+  saveBalloonAction: (t) => ({ slug: t.lab.slug, balloonId: wall.balloonId, inStock: false }),
+  savePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId, name: "DES fixture renamed" }),
+  saveSizeAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId, nominalMm: 3.5, maxPostDilatationMm: 4.5 }),
+  deleteFamilyAction: (t) => ({ slug: t.lab.slug, familyId: wall.familyId }),
+  deleteBalloonAction: (t) => ({ slug: t.lab.slug, balloonId: wall.balloonId }),
+  deletePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId }),
+  deleteSizeAction: (t) => ({ slug: t.lab.slug, sizeId: stent.sizeId }),
+  importStockAction: (t) => form({ slug: t.lab.slug, file: csv() }),
 };
 
 async function snapshot(labId: number) {
@@ -150,6 +205,14 @@ async function snapshot(labId: number) {
     db.select().from(rooms).where(eq(rooms.labId, labId)),
     db.select().from(postings).where(eq(postings.labId, labId)),
   ]);
+  const [f, b, sp, ss, l, lab] = await Promise.all([
+    db.select().from(balloonFamilies).where(eq(balloonFamilies.labId, labId)),
+    db.select().from(balloons).where(eq(balloons.labId, labId)),
+    db.select().from(stentPlatforms).where(eq(stentPlatforms.labId, labId)),
+    db.select().from(stentSizes).where(eq(stentSizes.labId, labId)),
+    db.select({ id: logos.id }).from(logos).where(eq(logos.labId, labId)),
+    db.select({ revision: labs.stockRevision }).from(labs).where(eq(labs.id, labId)),
+  ]);
   return {
     memberships: m,
     invitations: i,
@@ -160,6 +223,8 @@ async function snapshot(labId: number) {
     editions: e,
     rooms: r,
     postings: p,
+    stock: { families: f, balloons: b, platforms: sp, sizes: ss, revision: lab[0]?.revision },
+    logos: l.length,
   };
 }
 
@@ -179,6 +244,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(lab)/labs/[slug]/rooms/actions.ts": () => import("@/app/(lab)/labs/[slug]/rooms/actions"),
   "app/(public)/v/[token]/actions.ts": () => import("@/app/(public)/v/[token]/actions"),
   "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
+  "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);
@@ -197,7 +263,7 @@ describe("server actions refuse disallowed callers and change nothing", () => {
         session.user =
           actor === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[actor]);
         const before = await snapshot(team.lab.id);
-        const result = await mod[row.name]!(...INPUTS[row.name]!(team));
+        const result = await mod[row.name]!({}, INPUTS[row.name]!(team));
         expect(result.ok).not.toBe(true);
         const expected =
           actor === "anonymous" ? /Sign in/ : actor === "outsider" ? /not found/ : /does not allow|not valid|is for/;
@@ -211,7 +277,7 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     const mod = (await MODULES["app/(lab)/labs/[slug]/members/actions.ts"]!()) as Record<string, ActionFn>;
     session.user = (({ id, email, name }) => ({ id, email, name }))(team.people.manager);
     const before = await snapshot(team.lab.id);
-    const result = await mod.changeMemberRoleAction!(...INPUTS.changeMemberRoleAction!(team));
+    const result = await mod.changeMemberRoleAction!({}, INPUTS.changeMemberRoleAction!(team));
     expect(result).toMatchObject({ ok: true });
     const after = await snapshot(team.lab.id);
     expect(after).not.toEqual(before);
@@ -222,11 +288,12 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     expect(m?.role).toBe("operator");
   });
 
-  it("chart, room and posting actions do change things for an allowed member", async () => {
+  it("chart, room, posting and stock actions do change things for an allowed member", async () => {
+    // Not the educator: the test above made them an operator.
     const call = async (file: string, name: string, as: "manager" | "lead" | "operator") => {
       const mod = (await MODULES[file]!()) as Record<string, ActionFn>;
       session.user = (({ id, email, name }) => ({ id, email, name }))(team.people[as]);
-      return mod[name]!(...INPUTS[name]!(team));
+      return mod[name]!({}, INPUTS[name]!(team));
     };
     const before = await snapshot(team.lab.id);
     expect(await call("app/(lab)/labs/[slug]/rooms/actions.ts", "createRoomAction", "manager")).toMatchObject({
@@ -238,7 +305,18 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     expect(await call("app/(public)/v/[token]/actions.ts", "takeDownPostingAction", "operator")).toMatchObject({
       ok: true,
     });
+    const STOCK = "app/(lab)/labs/[slug]/stock/actions.ts";
+    expect(await call(STOCK, "saveBalloonAction", "manager")).toMatchObject({ ok: true });
+    expect(await call(STOCK, "saveSizeAction", "manager")).toMatchObject({ ok: true });
+    expect(await call(STOCK, "importStockAction", "manager")).toMatchObject({ ok: true, data: { applied: true } });
+    expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "setChartLogoAction", "manager")).toMatchObject({
+      ok: true,
+    });
     const after = await snapshot(team.lab.id);
+    expect(after.stock.balloons.find((b) => b.id === wall.balloonId)?.inStock).toBe(false);
+    expect(after.stock.sizes.length).toBe(before.stock.sizes.length + 1);
+    expect(after.stock.families.map((f) => f.name)).toContain("SC fixture import");
+    expect(after.logos).toBe(before.logos + 1);
     expect(after.rooms.length).toBe(before.rooms.length + 1);
     expect(after.editions.find((e) => e.id === wall.draftId)?.status).toBe("approved");
     expect(after.postings.find((p) => p.id === wall.postingId)?.removedAt).not.toBeNull();

@@ -1,16 +1,19 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { runAction, type ActionState } from "@/lib/http/action";
-import { createChart, saveChart } from "@/lib/ops/charts";
+import { runAction, uploadedFile, type ActionPayload, type ActionState } from "@/lib/http/action";
+import { createChart, removeChartLogo, saveChart, setChartLogo } from "@/lib/ops/charts";
 import { approveEdition, createEdition, rejectEdition, withdrawEdition } from "@/lib/ops/editions";
+import { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/logo";
 
-const refresh = (slug: string) => revalidatePath(`/labs/${slug}/charts`, "layout");
+// Payloads name the lab (`slug`, for the page to refresh) and the chart or edition by id.
+const refresh = (slug: unknown) => revalidatePath(`/labs/${String(slug)}/charts`, "layout");
 
-export async function saveChartAction(slug: string, chartId: number | null, definition: unknown): Promise<ActionState> {
-  return runAction({}, async (caller) => {
-    if (chartId === null) {
-      const { id } = await createChart(caller, { lab: slug }, definition);
+/** Creates a chart from `definition`, or replaces the definition of `chartId`. */
+export async function saveChartAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId, definition }) => {
+    if (!chartId) {
+      const { id } = await createChart(caller, { lab: String(slug) }, definition);
       refresh(slug);
       return { ok: true, message: "Chart created.", id };
     }
@@ -20,16 +23,16 @@ export async function saveChartAction(slug: string, chartId: number | null, defi
   });
 }
 
-export async function createEditionAction(slug: string, chartId: number): Promise<ActionState> {
-  return runAction({}, async (caller) => {
+export async function createEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId }) => {
     const ed = await createEdition(caller, { chartId });
     refresh(slug);
     return { ok: true, message: `Edition ${ed.number} created as a draft. Someone other than you must approve it.` };
   });
 }
 
-export async function approveEditionAction(slug: string, editionId: number): Promise<ActionState> {
-  return runAction({}, async (caller) => {
+export async function approveEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, editionId }) => {
     const ed = await approveEdition(caller, { editionId });
     refresh(slug);
     const superseded = ed.superseded.length ? ` Edition ${ed.superseded.join(", ")} is now superseded.` : "";
@@ -37,18 +40,37 @@ export async function approveEditionAction(slug: string, editionId: number): Pro
   });
 }
 
-export async function rejectEditionAction(slug: string, editionId: number, reason: string): Promise<ActionState> {
-  return runAction({ reason }, async (caller) => {
+export async function rejectEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, editionId, reason }) => {
     const ed = await rejectEdition(caller, { editionId }, { reason });
     refresh(slug);
     return { ok: true, message: `Edition ${ed.number} sent back to draft.` };
   });
 }
 
-export async function withdrawEditionAction(slug: string, editionId: number, reason: string): Promise<ActionState> {
-  return runAction({ reason }, async (caller) => {
+export async function withdrawEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, editionId, reason }) => {
     const ed = await withdrawEdition(caller, { editionId }, { reason: reason || undefined });
     refresh(slug);
     return { ok: true, message: `Edition ${ed.number} withdrawn.` };
+  });
+}
+
+/** The lab logo printed on `chartId`'s posters: a PNG or JPEG in `file`. */
+export async function setChartLogoAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId }) => {
+    // Read only after the operation has checked the role.
+    const file = () => uploadedFile(payload, { maxBytes: LOGO_MAX_BYTES, tooLargeHint: LOGO_TOO_LARGE_HINT });
+    await setChartLogo(caller, { chartId }, { file });
+    refresh(slug);
+    return { ok: true, message: "Logo saved. New editions will print it." };
+  });
+}
+
+export async function removeChartLogoAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId }) => {
+    await removeChartLogo(caller, { chartId });
+    refresh(slug);
+    return { ok: true, message: "Logo removed." };
   });
 }

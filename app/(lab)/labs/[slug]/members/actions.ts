@@ -2,19 +2,18 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { runAction, type ActionState } from "@/lib/http/action";
+import { runAction, type ActionPayload, type ActionState } from "@/lib/http/action";
 import { changeMemberRole, inviteMember, removeMember, resendInvitation, revokeInvitation } from "@/lib/ops/members";
 import { ROLE_LABELS } from "@/lib/permissions";
 
-// Every form names its lab in a hidden field; the operation checks the caller's role there.
-const labOf = (form: FormData) => String(form.get("slug") ?? "");
-const refresh = (slug: string) => revalidatePath(`/labs/${slug}/members`);
+// Every form names its lab in a hidden field `slug`; the operation checks the caller's role there.
+const refresh = (slug: unknown) => revalidatePath(`/labs/${String(slug)}/members`);
 const MAIL_FAILED = " The e-mail could not be sent; try Resend in a moment.";
 
-export async function inviteMemberAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  return runAction(form, async (caller, { email, role }) => {
-    const { invitation, emailSent } = await inviteMember(caller, { lab: labOf(form) }, { email, role });
-    refresh(labOf(form));
+export async function inviteMemberAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, email, role }) => {
+    const { invitation, emailSent } = await inviteMember(caller, { lab: String(slug) }, { email, role });
+    refresh(slug);
     const who = `${invitation.email} as ${ROLE_LABELS[invitation.role].toLowerCase()}`;
     return {
       ok: emailSent,
@@ -23,10 +22,10 @@ export async function inviteMemberAction(_prev: ActionState, form: FormData): Pr
   });
 }
 
-export async function resendInvitationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  return runAction(form, async (caller, { invitationId }) => {
-    const { invitation, emailSent } = await resendInvitation(caller, { lab: labOf(form), invitationId });
-    refresh(labOf(form));
+export async function resendInvitationAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, invitationId }) => {
+    const { invitation, emailSent } = await resendInvitation(caller, { lab: String(slug), invitationId });
+    refresh(slug);
     const message = emailSent
       ? `A new link was sent to ${invitation.email}; the previous one no longer works.`
       : `New link saved.${MAIL_FAILED}`;
@@ -34,36 +33,37 @@ export async function resendInvitationAction(_prev: ActionState, form: FormData)
   });
 }
 
-export async function revokeInvitationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  return runAction(form, async (caller, { invitationId }) => {
-    const revoked = await revokeInvitation(caller, { lab: labOf(form), invitationId });
-    refresh(labOf(form));
+export async function revokeInvitationAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, invitationId }) => {
+    const revoked = await revokeInvitation(caller, { lab: String(slug), invitationId });
+    refresh(slug);
     return { ok: true, message: `The invitation to ${revoked.email} was revoked; its link no longer works.` };
   });
 }
 
-export async function changeMemberRoleAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  let selfDemoted = false;
-  const state = await runAction(form, async (caller, { membershipId, role }) => {
-    const changed = await changeMemberRole(caller, { lab: labOf(form), membershipId }, { role });
-    selfDemoted = changed.changed && caller.kind === "user" && changed.userId === caller.user.id && role !== "manager";
-    refresh(labOf(form));
+export async function changeMemberRoleAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  let selfDemoted: string | null = null;
+  const state = await runAction(payload, async (caller, { slug, membershipId, role }) => {
+    const changed = await changeMemberRole(caller, { lab: String(slug), membershipId }, { role });
+    const self = caller.kind === "user" && changed.userId === caller.user.id;
+    if (changed.changed && self && role !== "manager") selfDemoted = String(slug);
+    refresh(slug);
     const label = ROLE_LABELS[changed.role].toLowerCase();
     return {
       ok: true,
       message: changed.changed ? `${changed.name} is now ${label}.` : `${changed.name} already has that role.`,
     };
   });
-  if (selfDemoted) redirect(`/labs/${labOf(form)}`);
+  if (selfDemoted) redirect(`/labs/${selfDemoted}`);
   return state;
 }
 
-export async function removeMemberAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+export async function removeMemberAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
   let removedSelf = false;
-  const state = await runAction(form, async (caller, { membershipId }) => {
-    const removed = await removeMember(caller, { lab: labOf(form), membershipId });
+  const state = await runAction(payload, async (caller, { slug, membershipId }) => {
+    const removed = await removeMember(caller, { lab: String(slug), membershipId });
     removedSelf = caller.kind === "user" && removed.userId === caller.user.id;
-    refresh(labOf(form));
+    refresh(slug);
     return { ok: true, message: `${removed.name} was removed from the lab.` };
   });
   if (removedSelf) redirect("/dashboard");

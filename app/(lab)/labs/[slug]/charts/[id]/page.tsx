@@ -33,7 +33,12 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         logoSha256={chart.logoSha256}
         canEdit={can(member.role, "chart:design")}
       />
-      <LogoField chartId={chart.id} logoSha256={chart.logoSha256} canEdit={can(member.role, "chart:design")} />
+      <LogoField
+        slug={slug}
+        chartId={chart.id}
+        logoSha256={chart.logoSha256}
+        canEdit={can(member.role, "chart:design")}
+      />
       <EditionsPanel
         slug={slug}
         chartId={chart.id}
