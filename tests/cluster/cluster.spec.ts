@@ -41,8 +41,13 @@ let firstNotice: number;
 let mailsBefore: number;
 
 const mailCount = async () =>
-  ((await (await fetch(`${process.env.MAIL_FAKE_URL}/messages?to=${demoEmail("manager")}`)).json()) as unknown[])
-    .length;
+  (
+    (await (
+      await fetch(`${process.env.MAIL_FAKE_URL}/messages?to=${demoEmail("manager")}`, {
+        headers: { authorization: `Bearer ${process.env.MAIL_FAKE_SECRET}` },
+      })
+    ).json()) as unknown[]
+  ).length;
 const revision = async (node = 0) =>
   Number((await q<{ r: number }>(node, "SELECT stock_revision AS r FROM labs WHERE id = ?", [labId]))[0]!.r);
 const check = async (base: string) => {
