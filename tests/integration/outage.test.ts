@@ -123,15 +123,25 @@ async function killDuring(op: () => Promise<unknown>): Promise<unknown> {
       (err: unknown) => err,
     );
     let waiting = false;
-    // Up to about 80 s: on a loaded machine the import and the lab pass before the audit row take a while.
-    for (let i = 0; i < 1600 && !waiting; i++) {
+    // Every half second for up to 80 s: polling much faster than that was seen to hold the
+    // operation back (it started only once the polling stopped).
+    for (let i = 0; i < 160 && !waiting; i++) {
+      // Filtered here, not in SQL: the comparison must not depend on the connection's collation.
       const [rows] = (await watcher.query(
-        "SELECT trx_rows_modified AS modified FROM information_schema.innodb_trx WHERE trx_state = 'LOCK WAIT'",
-      )) as unknown as [{ modified: number }[]];
-      waiting = rows.some((r) => Number(r.modified) > 0);
-      if (!waiting) await new Promise((r) => setTimeout(r, 50));
+        "SELECT trx_state AS state, trx_rows_modified AS modified FROM information_schema.innodb_trx",
+      )) as unknown as [{ state: string; modified: number }[]];
+      waiting = rows.some((r) => String(r.state) === "LOCK WAIT" && Number(r.modified) > 0);
+      if (!waiting) await new Promise((r) => setTimeout(r, 500));
     }
-    expect(waiting, "the operation reached its audit insert with changes written").toBe(true);
+    if (!waiting) {
+      const early = await Promise.race([outcome, new Promise((r) => setTimeout(() => r("still running"), 1000))]);
+      const [trx] = await watcher.query(
+        "SELECT trx_state, trx_rows_modified, trx_started, trx_wait_started, NOW() AS now, LEFT(trx_query, 40) AS q FROM information_schema.innodb_trx",
+      );
+      expect.fail(
+        `the operation never waited at its audit insert; outcome: ${String(early)}; transactions: ${JSON.stringify(trx)}`,
+      );
+    }
     kill();
   } finally {
     blocker.destroy();
