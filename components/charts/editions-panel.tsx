@@ -48,6 +48,8 @@ export function EditionsPanel({
   const [notice, setNotice] = useState<ActionState | null>(null);
   const [rejecting, setRejecting] = useState<number | null>(null);
   const [reason, setReason] = useState("");
+  // The approver states the review before the approve button works (sent as reviewed: true).
+  const [reviewed, setReviewed] = useState<number | null>(null);
 
   const run = (fn: () => Promise<ActionState>) =>
     start(async () => {
@@ -123,9 +125,18 @@ export function EditionsPanel({
                 ) : null}
                 {can.approve && e.status === "draft" && !e.createdByMe ? (
                   <>
+                    <label className="flex basis-full items-center gap-2 text-sm">
+                      <input
+                        type="checkbox"
+                        checked={reviewed === e.id}
+                        onChange={(ev) => setReviewed(ev.target.checked ? e.id : null)}
+                      />
+                      I have reviewed edition {e.number}: its numbers, cautions and notes, against the edition it
+                      replaces.
+                    </label>
                     <Button
-                      onClick={() => run(() => approveEditionAction(slug, e.id))}
-                      disabled={pending}
+                      onClick={() => run(() => approveEditionAction(slug, e.id, true))}
+                      disabled={pending || reviewed !== e.id}
                       className="py-1.5"
                     >
                       Approve edition {e.number}
@@ -142,7 +153,7 @@ export function EditionsPanel({
                 ) : null}
                 {can.approve && e.status === "draft" && e.createdByMe ? (
                   <span className="self-center text-sm text-ink-faint">
-                    You drafted this; another manager or the lead approves it.
+                    You drafted this; someone else who may approve signs it off.
                   </span>
                 ) : null}
                 {can.withdraw && e.status !== "withdrawn" ? (

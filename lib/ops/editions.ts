@@ -5,7 +5,7 @@ import { gridJson } from "@/lib/charts/grid-model";
 import { editionUrls } from "@/lib/charts/present";
 import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
-import { rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
+import { approveEditionSchema, rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
@@ -30,12 +30,15 @@ export const createEdition = labOperation({
   },
 });
 
-/** Approves a draft; never by its author (four eyes), and only while it still matches the lab. */
+/**
+ * Approves a draft after the approver states they reviewed it; never by anyone who changed the
+ * chart since its last approval (four eyes), and only while it still matches the lab.
+ */
 export const approveEdition = labOperation({
   name: "edition.approve",
   capability: "edition:approve",
   scope: "edition",
-  input: noOptions,
+  input: approveEditionSchema,
   run: async ({ labId, actor, ids }) => {
     const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
     return {

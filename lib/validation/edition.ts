@@ -27,3 +27,10 @@ export const withdrawEditionSchema = z
 
 /** Ids in URLs: anything that is not a positive integer cannot name a row. */
 export const idParam = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
+
+/** Approval is a statement: the approver says they reviewed the edition. */
+export const approveEditionSchema = z
+  .object({
+    reviewed: z.literal(true, { error: "Confirm that you reviewed this edition (reviewed: true)" }),
+  })
+  .strict();

@@ -127,7 +127,7 @@ const INPUTS: Record<string, (t: Team) => unknown[]> = {
   joinLabAction: () => [{}, form({ token: newToken().token })],
   saveChartAction: (t) => [t.lab.slug, wall.chartId, chartDefinition("Renamed fixture chart")],
   createEditionAction: (t) => [t.lab.slug, wall.chartId],
-  approveEditionAction: (t) => [t.lab.slug, wall.draftId],
+  approveEditionAction: (t) => [t.lab.slug, wall.draftId, true],
   rejectEditionAction: (t) => [t.lab.slug, wall.draftId, "Columns too narrow"],
   withdrawEditionAction: (t) => [t.lab.slug, wall.approvedId, ""],
   createRoomAction: (t) => [t.lab.slug, {}, form({ name: unique("room") })],

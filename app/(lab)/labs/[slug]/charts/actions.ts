@@ -28,9 +28,9 @@ export async function createEditionAction(slug: string, chartId: number): Promis
   });
 }
 
-export async function approveEditionAction(slug: string, editionId: number): Promise<ActionState> {
+export async function approveEditionAction(slug: string, editionId: number, reviewed: boolean): Promise<ActionState> {
   return runAction({}, async (caller) => {
-    const ed = await approveEdition(caller, { editionId });
+    const ed = await approveEdition(caller, { editionId }, { reviewed });
     refresh(slug);
     const superseded = ed.superseded.length ? ` Edition ${ed.superseded.join(", ")} is now superseded.` : "";
     return { ok: true, message: `Edition ${ed.number} approved.${superseded}` };
