@@ -111,14 +111,14 @@ export function EditionsPanel({
                 Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
                 {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
               </p>
-              {e.rejectionReason && e.status === "draft" ? (
+              {e.rejectionReason && e.status === "returned" ? (
                 <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p>
               ) : null}
               <div className="mt-3 flex flex-wrap gap-2">
                 <a href={e.pdfUrl} className={buttonClass("secondary", "py-1.5")} download>
                   Download PDF
                 </a>
-                {e.status !== "draft" ? (
+                {e.status !== "draft" && e.status !== "returned" ? (
                   <a href={e.checkUrl} className={buttonClass("ghost", "py-1.5")}>
                     Check page
                   </a>
@@ -156,18 +156,16 @@ export function EditionsPanel({
                     You drafted this; someone else who may approve signs it off.
                   </span>
                 ) : null}
-                {can.withdraw && e.status !== "withdrawn" ? (
+                {can.withdraw && e.status !== "withdrawn" && e.status !== "returned" ? (
                   <Button
                     variant="ghost"
                     className="py-1.5 text-danger"
                     disabled={pending}
                     onClick={() => {
-                      if (
-                        window.confirm(
-                          `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`,
-                        )
-                      )
-                        run(() => withdrawEditionAction(slug, e.id, ""));
+                      const why = window.prompt(
+                        `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down. Say why:`,
+                      );
+                      if (why !== null) run(() => withdrawEditionAction(slug, e.id, why));
                     }}
                   >
                     Withdraw
@@ -194,7 +192,7 @@ export function EditionsPanel({
                     />
                   </label>
                   <Button type="submit" variant="secondary" disabled={pending}>
-                    Send back to draft
+                    Send back
                   </Button>
                 </form>
               ) : null}

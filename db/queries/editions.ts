@@ -87,6 +87,21 @@ export async function createEdition(
   const problems = snapshotProblems(snapshot, definition);
   if (problems.length) throw new AppError("unprocessable", problems.join(" "));
   const fingerprint = fingerprintOf(snapshot);
+  // Pressing "Create edition" twice gives the one draft, not two identical ones.
+  const [same] = await tx
+    .select({ id: editions.id, number: editions.number, checkToken: editions.checkToken })
+    .from(editions)
+    .where(
+      and(
+        eq(editions.chartId, chartId),
+        eq(editions.labId, labId),
+        eq(editions.status, "draft"),
+        eq(editions.fingerprint, fingerprint),
+      ),
+    )
+    .orderBy(desc(editions.number))
+    .limit(1);
+  if (same) return { ...same, fingerprint, reused: true };
   const [last] = await tx
     .select({ n: max(editions.number) })
     .from(editions)
@@ -107,26 +122,21 @@ export async function createEdition(
     targetId: row!.id,
     detail: { chartId, number, fingerprint },
   });
-  return { id: row!.id, number, fingerprint, checkToken };
+  return { id: row!.id, number, fingerprint, checkToken, reused: false };
 }
 
 /** The one guarded path for every edition state change; the database triggers agree with it. */
-async function transition(
-  tx: Tx,
-  { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus | "rejected" },
-) {
+async function transition(tx: Tx, { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus }) {
   const [ed] = await tx
     .select()
     .from(editions)
     .where(and(eq(editions.id, editionId), eq(editions.labId, labId)))
     .for("update");
   if (!ed) throw notFound("Edition");
-  const target: EditionStatus = to === "rejected" ? "draft" : to;
-  if (to === "rejected" ? ed.status !== "draft" : !canTransition(ed.status, target)) {
-    throw new AppError(
-      "conflict",
-      `Edition ${ed.number} is ${ed.status}; it cannot be ${to === "rejected" ? "rejected" : `made ${to}`}.`,
-    );
+  if (!canTransition(ed.status, to)) {
+    const state = ed.status === "returned" ? "sent back" : ed.status;
+    const verb = to === "returned" ? "sent back" : `made ${to}`;
+    throw new AppError("conflict", `Edition ${ed.number} is ${state}; it cannot be ${verb}.`);
   }
   return ed;
 }
@@ -258,10 +268,10 @@ export async function rejectEdition(
     reason: string;
   },
 ) {
-  const ed = await transition(tx, { labId, editionId, to: "rejected" });
+  const ed = await transition(tx, { labId, editionId, to: "returned" });
   await tx
     .update(editions)
-    .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
+    .set({ status: "returned", rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await recordAudit({
     tx,
@@ -286,7 +296,7 @@ export async function withdrawEdition(
     labId: number;
     editionId: number;
     actor: Actor;
-    reason: string | null;
+    reason: string;
   },
 ) {
   const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
@@ -297,7 +307,7 @@ export async function withdrawEdition(
   await afterLabChange(tx, {
     labId,
     changeKey: `edition:${ed.id}:withdrawn`,
-    cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}`,
+    cause: `Edition ${ed.number} of a chart was withdrawn: ${reason}`,
   });
   await recordAudit({
     tx,

@@ -41,7 +41,8 @@ export function checkEdition(ed: CheckEdition, chart: CheckChart, newer: NewerEd
       : `A newer edition was approved on ${fmt(ed.supersededAt)}`;
     return { status: "superseded", changes: [{ kind: "lab", detail }] };
   }
-  if (ed.status === "draft") return { status: "draft", changes: [] };
+  // A draft sent back was never approved: it reads as a draft.
+  if (ed.status === "draft" || ed.status === "returned") return { status: "draft", changes: [] };
   if (!chart || !chart.liveFingerprint || !chart.liveSnapshot)
     return { status: "outdated", changes: describeChanges(ed.snapshot, null) };
   if (chart.liveFingerprint === ed.fingerprint) return { status: "current", changes: [] };

@@ -12,7 +12,7 @@ import { labWrite } from "./write";
 // No options yet: the body is empty or {}, and anything else is refused rather than ignored.
 const noOptions = z.object({}).strict();
 
-/** Freezes what the chart prints today into a new numbered draft. */
+/** Freezes what the chart prints today into a new numbered draft, or answers the identical draft that waits. */
 export const createEdition = labOperation({
   name: "edition.create",
   capability: "edition:create",
@@ -25,6 +25,7 @@ export const createEdition = labOperation({
       number: ed.number,
       status: "draft" as const,
       fingerprint: ed.fingerprint,
+      reused: ed.reused,
       ...editionUrls(env.APP_URL, ed),
     };
   },
@@ -50,7 +51,7 @@ export const approveEdition = labOperation({
   },
 });
 
-/** Sends a draft back to its author with a reason. */
+/** Sends a draft back to its author with a reason: it becomes `returned` and can never be approved. */
 export const rejectEdition = labOperation({
   name: "edition.reject",
   capability: "edition:approve",
@@ -58,7 +59,7 @@ export const rejectEdition = labOperation({
   input: rejectEditionSchema,
   run: async ({ labId, actor, ids }, { reason }) => {
     const ed = await labWrite(labId, (tx) => q.rejectEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
-    return { id: ed.id, number: ed.number, status: "draft" as const, rejectionReason: reason };
+    return { id: ed.id, number: ed.number, status: "returned" as const, rejectionReason: reason };
   },
 });
 
@@ -68,9 +69,7 @@ export const withdrawEdition = labOperation({
   scope: "edition",
   input: withdrawEditionSchema,
   run: async ({ labId, actor, ids }, { reason }) => {
-    const ed = await labWrite(labId, (tx) =>
-      q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason: reason ?? null }),
-    );
+    const ed = await labWrite(labId, (tx) => q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
     return { id: ed.id, number: ed.number, status: "withdrawn" as const, was: ed.was };
   },
 });

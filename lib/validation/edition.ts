@@ -18,10 +18,12 @@ export const withdrawEditionSchema = z
   .object({
     reason: freeText({
       what: "Reason",
+      min: 3,
       max: 500,
       multiline: true,
+      minMessage: "Say why it is withdrawn, in a few words",
       maxMessage: "Keep the reason under 500 characters",
-    }).optional(),
+    }),
   })
   .strict();
 

@@ -129,7 +129,7 @@ const INPUTS: Record<string, (t: Team) => unknown[]> = {
   createEditionAction: (t) => [t.lab.slug, wall.chartId],
   approveEditionAction: (t) => [t.lab.slug, wall.draftId, true],
   rejectEditionAction: (t) => [t.lab.slug, wall.draftId, "Columns too narrow"],
-  withdrawEditionAction: (t) => [t.lab.slug, wall.approvedId, ""],
+  withdrawEditionAction: (t) => [t.lab.slug, wall.approvedId, "Wrong family on the wall"],
   createRoomAction: (t) => [t.lab.slug, {}, form({ name: unique("room") })],
   renameRoomAction: (t) => [t.lab.slug, wall.roomId, "Renamed room"],
   archiveRoomAction: (t) => [t.lab.slug, wall.roomId],

@@ -128,3 +128,93 @@ describe("approval", () => {
     ).toBe(403);
   });
 });
+
+describe("returned, repeated drafts and withdrawal reasons", () => {
+  it("sends a draft back as returned with its reason; a returned edition cannot be approved (409)", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("E"),
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    const back = await ops.rejectEdition(as(team.people.lead), { editionId: ed.id }, { reason: "Columns too narrow" });
+    expect(back).toMatchObject({ status: "returned", rejectionReason: "Columns too narrow" });
+    const [row] = await db.select().from(editions).where(eq(editions.id, ed.id));
+    expect(row).toMatchObject({ status: "returned", rejectionReason: "Columns too narrow" });
+    const before = await footprint();
+    const err = await refusal(ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }));
+    expect(err.status).toBe(409);
+    expect(err.message).toMatch(/sent back/);
+    // Sending it back twice is a conflict too, and the manager (no approval rule) may not send back.
+    expect(
+      (await refusal(ops.rejectEdition(as(team.people.lead), { editionId: ed.id }, { reason: "Again" }))).status,
+    ).toBe(409);
+    expect(
+      (await refusal(ops.rejectEdition(as(team.people.manager), { editionId: ed.id }, { reason: "Again" }))).status,
+    ).toBe(403);
+    expect(await footprint()).toEqual(before);
+    // A returned edition does not count as the identical draft: the next one is new.
+    const again = await ops.createEdition(as(team.people.educator), { chartId });
+    expect(again.id).not.toBe(ed.id);
+    expect(again.reused).toBe(false);
+  });
+
+  it("answers the identical waiting draft instead of a second one", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("F"),
+    );
+    const first = await ops.createEdition(as(team.people.educator), { chartId });
+    expect(first.reused).toBe(false);
+    const before = await footprint();
+    const second = await ops.createEdition(as(team.people.manager), { chartId });
+    expect(second).toMatchObject({ id: first.id, number: first.number, reused: true });
+    expect(await footprint()).toEqual(before);
+    // A changed chart gives a new draft.
+    await chartOps.saveChart(as(team.people.educator), { chartId }, definition("F", "New notes"));
+    const third = await ops.createEdition(as(team.people.educator), { chartId });
+    expect(third.id).not.toBe(first.id);
+    expect(third.number).toBe(first.number + 1);
+  });
+
+  it("refuses a withdrawal without a reason (400 naming reason), changing nothing", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("G"),
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    await ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true });
+    const before = await footprint();
+    for (const body of [undefined, {}, { reason: "" }, { reason: "  " }, { reason: 5 }]) {
+      const err = await refusal(ops.withdrawEdition(as(team.people.manager), { editionId: ed.id }, body));
+      expect(err.status, JSON.stringify(body)).toBe(400);
+      expect(JSON.stringify(err.issues)).toMatch(/reason/);
+    }
+    expect(await footprint()).toEqual(before);
+    const ok = await ops.withdrawEdition(as(team.people.manager), { editionId: ed.id }, { reason: "Wrong family" });
+    expect(ok).toMatchObject({ status: "withdrawn", was: "approved" });
+  });
+
+  it("the database refuses to move a returned edition anywhere or to change its reason", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("H"),
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    await ops.rejectEdition(as(team.people.lead), { editionId: ed.id }, { reason: "Not yet" });
+    for (const set of [{ status: "approved" as const }, { status: "draft" as const }, { rejectionReason: "Other" }]) {
+      const err = await db
+        .update(editions)
+        .set(set)
+        .where(eq(editions.id, ed.id))
+        .then(
+          () => null,
+          (e: Error) => e,
+        );
+      expect(err, JSON.stringify(set)).not.toBeNull();
+    }
+  });
+});

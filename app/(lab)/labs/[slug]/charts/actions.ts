@@ -24,6 +24,7 @@ export async function createEditionAction(slug: string, chartId: number): Promis
   return runAction({}, async (caller) => {
     const ed = await createEdition(caller, { chartId });
     refresh(slug);
+    if (ed.reused) return { ok: true, message: `Edition ${ed.number} is already a draft with exactly this content.` };
     return { ok: true, message: `Edition ${ed.number} created as a draft. Someone other than you must approve it.` };
   });
 }
@@ -41,13 +42,13 @@ export async function rejectEditionAction(slug: string, editionId: number, reaso
   return runAction({ reason }, async (caller) => {
     const ed = await rejectEdition(caller, { editionId }, { reason });
     refresh(slug);
-    return { ok: true, message: `Edition ${ed.number} sent back to draft.` };
+    return { ok: true, message: `Edition ${ed.number} sent back with your reason; it can no longer be approved.` };
   });
 }
 
 export async function withdrawEditionAction(slug: string, editionId: number, reason: string): Promise<ActionState> {
   return runAction({ reason }, async (caller) => {
-    const ed = await withdrawEdition(caller, { editionId }, { reason: reason || undefined });
+    const ed = await withdrawEdition(caller, { editionId }, { reason });
     refresh(slug);
     return { ok: true, message: `Edition ${ed.number} withdrawn.` };
   });
