@@ -6,12 +6,14 @@ import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
+import { reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
 import { auditEvents, charts, editions, logos, users } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
+import { getLabRules } from "./lab-rules";
 import { lockLab } from "./lab-lock";
 import { readStock } from "./stock-read";
 
@@ -218,6 +220,9 @@ export async function approveEdition(
     );
   }
   const now = new Date();
+  // The review-by date follows the lab's review period at the time of approval and never moves.
+  const { reviewPeriodMonths } = await getLabRules({ labId }, tx);
+  const reviewBy = reviewByDate(now, reviewPeriodMonths);
   const previous = await tx
     .select({ id: editions.id, number: editions.number })
     .from(editions)
@@ -230,7 +235,7 @@ export async function approveEdition(
   }
   await tx
     .update(editions)
-    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
+    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now, reviewBy })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await afterLabChange(tx, {
     labId,
@@ -249,9 +254,10 @@ export async function approveEdition(
       number: ed.number,
       fingerprint: ed.fingerprint,
       superseded: previous.map((p) => p.number),
+      reviewBy: reviewBy.toISOString(),
     },
   });
-  return { id: ed.id, number: ed.number, superseded: previous };
+  return { id: ed.id, number: ed.number, superseded: previous, reviewBy };
 }
 
 export async function rejectEdition(

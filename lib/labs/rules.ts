@@ -17,6 +17,12 @@ export const labRulesSchema = z
 
 export type LabRules = z.infer<typeof labRulesSchema>;
 
+/** A change to some of the rules; at least one, and no unknown keys. */
+export const labRulesPatchSchema = labRulesSchema
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { error: "Name at least one rule to change" });
+
 export const DEFAULT_LAB_RULES: LabRules = { reviewPeriodMonths: 12, managersMayApprove: false };
 
 /** Stored rules over the defaults: a rule added later reads as its default in older rows. */

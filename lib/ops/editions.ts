@@ -47,6 +47,7 @@ export const approveEdition = labOperation({
       number: ed.number,
       status: "approved" as const,
       superseded: ed.superseded.map((p) => p.number),
+      reviewBy: ed.reviewBy.toISOString(),
     };
   },
 });

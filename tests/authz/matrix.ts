@@ -276,6 +276,40 @@ export const ROUTES: RouteRow[] = [
     expect: everyoneSignedIn(404),
   },
 
+  // the lab's rules: every member reads them, only the medical lead changes them
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo")}/rules`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab(NO_LAB)}/rules`,
+    expect: everyoneSignedIn(404),
+  },
+  {
+    kind: "route",
+    method: "PUT",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo")}/rules`,
+    body: { managersMayApprove: true, approvers: "everyone" },
+    expect: statuses(["lead"], 400),
+    note: "an unknown key: refused whole, nothing changes",
+  },
+  {
+    kind: "route",
+    method: "PUT",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo-north")}/rules`,
+    body: { reviewPeriodMonths: 0 },
+    expect: { ...statuses(["lead"], 400), operator: 404 },
+    note: "the operator is not in demo-north",
+  },
+
   // charts and editions (seeded demo ids; allowed roles get a bad body or a conflict, so nothing changes)
   {
     kind: "route",

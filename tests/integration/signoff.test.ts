@@ -3,10 +3,11 @@
 import { count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { auditEvents, balloonFamilies, balloons, editions } from "@/db/schema";
+import { auditEvents, balloonFamilies, balloons, editions, labRules } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
+import * as rulesOps from "@/lib/ops/lab-rules";
 import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
@@ -43,7 +44,8 @@ async function footprint() {
     .select({ id: editions.id, status: editions.status, approvedAt: editions.approvedAt })
     .from(editions)
     .where(eq(editions.labId, team.lab.id));
-  return { audit: a!.n, editions: rows };
+  const rules = await db.select().from(labRules).where(eq(labRules.labId, team.lab.id));
+  return { audit: a!.n, editions: rows, rules };
 }
 
 beforeAll(async () => {
@@ -216,5 +218,103 @@ describe("returned, repeated drafts and withdrawal reasons", () => {
         );
       expect(err, JSON.stringify(set)).not.toBeNull();
     }
+  });
+});
+
+describe("the lab's rules", () => {
+  it("every member reads them; the defaults are a 12-month review and no approval by managers", async () => {
+    for (const role of ["manager", "lead", "educator", "operator"] as const)
+      expect(await rulesOps.getLabRules(as(team.people[role]), { lab: team.lab.slug })).toEqual({
+        reviewPeriodMonths: 12,
+        managersMayApprove: false,
+      });
+    expect((await refusal(rulesOps.getLabRules(as(team.people.outsider), { lab: team.lab.slug }))).status).toBe(404);
+  });
+
+  it("only the medical lead changes them (403 for the others), bad input is 400 naming the field, and nothing changes", async () => {
+    const before = await footprint();
+    for (const role of ["manager", "educator", "operator"] as const) {
+      const err = await refusal(
+        rulesOps.setLabRules(as(team.people[role]), { lab: team.lab.slug }, { managersMayApprove: true }),
+      );
+      expect(err.status, role).toBe(403);
+    }
+    const bad: [unknown, RegExp][] = [
+      [{ managersMayApprove: true, approvers: "all" }, /approvers/],
+      [{ reviewPeriodMonths: 0 }, /reviewPeriodMonths/],
+      [{ reviewPeriodMonths: 6.5 }, /reviewPeriodMonths/],
+      [{ managersMayApprove: "yes" }, /managersMayApprove/],
+      [{}, /at least one rule/],
+    ];
+    for (const [body, field] of bad) {
+      const err = await refusal(rulesOps.setLabRules(as(team.people.lead), { lab: team.lab.slug }, body));
+      expect(err.status, JSON.stringify(body)).toBe(400);
+      expect(JSON.stringify(err.issues), JSON.stringify(body)).toMatch(field);
+    }
+    expect(await footprint()).toEqual(before);
+  });
+
+  it("a lead's change is audited with only what changed; a repeat writes nothing", async () => {
+    const res = await rulesOps.setLabRules(as(team.people.lead), { lab: team.lab.slug }, { reviewPeriodMonths: 6 });
+    expect(res).toEqual({
+      rules: { reviewPeriodMonths: 6, managersMayApprove: false },
+      changed: ["reviewPeriodMonths"],
+    });
+    const rows = await db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.labId, team.lab.id))
+      .then((r) => r.filter((e) => e.action === "lab.rules_updated"));
+    expect(rows.at(-1)).toMatchObject({
+      actorUserId: team.people.lead.id,
+      detail: { before: { reviewPeriodMonths: 12 }, after: { reviewPeriodMonths: 6 } },
+    });
+    const before = await footprint();
+    await rulesOps.setLabRules(as(team.people.lead), { lab: team.lab.slug }, { reviewPeriodMonths: 6 });
+    expect(await footprint()).toEqual(before);
+  });
+
+  it("sets each approval's review-by date from the review period, and lets managers approve once granted", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("R"),
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    expect(
+      (await refusal(ops.approveEdition(as(team.people.manager), { editionId: ed.id }, { reviewed: true }))).status,
+    ).toBe(403);
+    await rulesOps.setLabRules(
+      as(team.people.lead),
+      { lab: team.lab.slug },
+      { managersMayApprove: true, reviewPeriodMonths: 3 },
+    );
+    const ok = await ops.approveEdition(as(team.people.manager), { editionId: ed.id }, { reviewed: true });
+    const [row] = await db.select().from(editions).where(eq(editions.id, ed.id));
+    const expected = new Date(row!.approvedAt!);
+    expected.setUTCMonth(expected.getUTCMonth() + 3);
+    expect(row!.reviewBy?.toISOString().slice(0, 10)).toBe(expected.toISOString().slice(0, 10));
+    expect(ok.reviewBy).toBe(row!.reviewBy!.toISOString());
+    // The database keeps it with the approval.
+    const err = await db
+      .update(editions)
+      .set({ reviewBy: new Date("2099-01-01T00:00:00Z") })
+      .where(eq(editions.id, ed.id))
+      .then(
+        () => null,
+        (e: Error) => e,
+      );
+    expect(err).not.toBeNull();
+    // Granted, a manager who changed the chart is still refused.
+    await chartOps.saveChart(as(team.people.manager), { chartId }, definition("R", "Manager's wording"));
+    const next = await ops.createEdition(as(team.people.educator), { chartId });
+    expect(
+      (await refusal(ops.approveEdition(as(team.people.manager), { editionId: next.id }, { reviewed: true }))).status,
+    ).toBe(403);
+    await rulesOps.setLabRules(
+      as(team.people.lead),
+      { lab: team.lab.slug },
+      { managersMayApprove: false, reviewPeriodMonths: 12 },
+    );
   });
 });
