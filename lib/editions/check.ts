@@ -62,12 +62,3 @@ export const CHECK_HEADLINES: Record<CheckStatus, string> = {
   withdrawn: "Withdrawn",
   draft: "Draft - not for clinical use",
 };
-
-export const CHECK_ADVICE: Record<CheckStatus, string> = {
-  current: "This printout matches the lab's stock and rules today.",
-  outdated:
-    "The lab's stock, law or chart settings changed after this printout was approved: a new edition would print different numbers. Replace this printout.",
-  superseded: "A newer edition of this chart has been approved. Replace this printout with the current edition.",
-  withdrawn: "This edition was withdrawn. Take this printout down.",
-  draft: "This is an unapproved draft. It must not hang on a wall or be used in a case.",
-};

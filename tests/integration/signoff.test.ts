@@ -11,6 +11,7 @@ import * as rulesOps from "@/lib/ops/lab-rules";
 import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
+import { getCheckByToken } from "@/db/queries/check";
 import { approveEdition } from "./support/writes";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
@@ -316,5 +317,66 @@ describe("the lab's rules", () => {
       { lab: team.lab.slug },
       { managersMayApprove: false, reviewPeriodMonths: 12 },
     );
+  });
+});
+
+describe("the check's action", () => {
+  const check = async (token: string) => (await getCheckByToken({ token }))!;
+
+  it("keep, then replace for the older copy, then take-down for both once the new one is withdrawn", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("K"),
+    );
+    const first = await ops.createEdition(as(team.people.educator), { chartId });
+    const [firstRow] = await db.select().from(editions).where(eq(editions.id, first.id));
+    expect(await check(firstRow!.checkToken)).toMatchObject({ status: "draft", action: "take-down" });
+    await ops.approveEdition(as(team.people.lead), { editionId: first.id }, { reviewed: true });
+    expect(await check(firstRow!.checkToken)).toMatchObject({ status: "current", action: "keep" });
+
+    await chartOps.saveChart(as(team.people.educator), { chartId }, definition("K", "Second wording"));
+    const second = await ops.createEdition(as(team.people.educator), { chartId });
+    await ops.approveEdition(as(team.people.lead), { editionId: second.id }, { reviewed: true });
+    const [secondRow] = await db.select().from(editions).where(eq(editions.id, second.id));
+    expect(await check(firstRow!.checkToken)).toMatchObject({
+      status: "superseded",
+      action: "replace",
+      currentEdition: { number: second.number },
+    });
+    expect(await check(secondRow!.checkToken)).toMatchObject({ status: "current", action: "keep" });
+
+    await ops.withdrawEdition(as(team.people.manager), { editionId: second.id }, { reason: "Wrong law" });
+    expect(await check(secondRow!.checkToken)).toMatchObject({ status: "withdrawn", action: "take-down" });
+    // The older copy no longer says "replace": nothing approved can replace it.
+    expect(await check(firstRow!.checkToken)).toMatchObject({
+      status: "superseded",
+      action: "take-down",
+      currentEdition: null,
+    });
+  });
+
+  it("review once the review-by date has passed (a 1-month period, checked a month and more later)", async () => {
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      definition("V"),
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    await ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true });
+    const [row] = await db.select().from(editions).where(eq(editions.id, ed.id));
+    const view = await check(row!.checkToken);
+    expect(view).toMatchObject({ status: "current", action: "keep" });
+    expect(view.reviewBy?.getTime()).toBe(row!.reviewBy!.getTime());
+    // The same rule with the clock past the stored date (the pure function is the one the query calls).
+    const { copyAction } = await import("@/lib/editions/action");
+    expect(
+      copyAction({
+        status: view.status,
+        reviewBy: view.reviewBy,
+        replacement: null,
+        now: new Date(row!.reviewBy!.getTime() + 1),
+      }),
+    ).toBe("review");
   });
 });
