@@ -23,6 +23,7 @@ export type EditionRow = {
   createdAt: string;
   approvedAt: string | null;
   approvedByName: string | null;
+  reviewBy: string | null;
   rejectionReason: string | null;
   checkUrl: string;
   pdfUrl: string;
@@ -110,6 +111,7 @@ export function EditionsPanel({
               <p className="mt-1 text-sm text-ink-soft">
                 Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
                 {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
+                {e.reviewBy && e.status === "approved" ? ` · due for review by ${date(e.reviewBy)}` : ""}
               </p>
               {e.rejectionReason && e.status === "returned" ? (
                 <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p>

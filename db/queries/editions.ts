@@ -54,6 +54,7 @@ export async function listEditions({ labId, chartId }: { labId: number; chartId:
       createdByName: users.name,
       approvedAt: editions.approvedAt,
       approvedByName: editions.approvedByName,
+      reviewBy: editions.reviewBy,
       rejectedAt: editions.rejectedAt,
       rejectionReason: editions.rejectionReason,
       withdrawnAt: editions.withdrawnAt,

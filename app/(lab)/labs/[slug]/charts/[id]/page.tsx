@@ -53,6 +53,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           createdAt: e.createdAt.toISOString(),
           approvedAt: e.approvedAt?.toISOString() ?? null,
           approvedByName: e.approvedByName,
+          reviewBy: e.reviewBy?.toISOString() ?? null,
           rejectionReason: e.rejectionReason,
           matchesToday: e.fingerprint === chart.liveFingerprint,
           ...editionUrls(env.APP_URL, e),
