@@ -64,6 +64,16 @@ export const labs = mysqlTable("labs", {
   createdAt: createdAt(),
 });
 
+/** The lab's own rules (lib/labs/rules.ts), owned by its medical lead; a lab without a row has the defaults. */
+export const labRules = mysqlTable("lab_rules", {
+  labId: ref("lab_id")
+    .primaryKey()
+    .references(() => labs.id, { onDelete: "cascade" }),
+  rules: jsonText<unknown>("rules").notNull(),
+  updatedBy: ref("updated_by").references(() => users.id, { onDelete: "set null" }),
+  updatedAt: when("updated_at").notNull(),
+});
+
 export const memberships = mysqlTable(
   "memberships",
   {
@@ -273,6 +283,8 @@ export const editions = mysqlTable(
     supersededAt: when("superseded_at"),
     withdrawnBy: ref("withdrawn_by").references(() => users.id, { onDelete: "set null" }),
     withdrawnAt: when("withdrawn_at"),
+    /** Set at approval from the lab's review period: after it the copy is due for review. */
+    reviewBy: when("review_by"),
   },
   (t) => [
     uniqueIndex("editions_chart_number_uq").on(t.chartId, t.number),

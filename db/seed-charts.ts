@@ -68,7 +68,7 @@ const CHARTS: DemoChart[] = [
       readingDistanceM: 1,
       notes: "Demo chart with invented stock. Side-branch balloon: smaller stocked size when between two.",
     }),
-    approveBy: "manager",
+    approveBy: "lead",
     postIn: ["Procedure room 2"],
   },
   {

@@ -17,8 +17,10 @@ export const CAPABILITIES = {
   "audit:read": ["manager"],
   "chart:design": ["manager", "educator"],
   "edition:create": ["manager", "educator"],
-  "edition:approve": ["manager", "lead"],
+  // The medical lead always; a manager only where the lab's rules grant it (lib/ops/access.ts).
+  "edition:approve": ["lead"],
   "edition:withdraw": ["manager"],
+  "rules:manage": ["lead"],
   "posting:record": ["manager", "lead", "educator", "operator"],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -22,6 +22,7 @@ export type EditionRow = {
   createdAt: string;
   approvedAt: string | null;
   approvedByName: string | null;
+  reviewBy: string | null;
   rejectionReason: string | null;
   checkUrl: string;
   pdfUrl: string;
@@ -45,6 +46,8 @@ export function EditionsPanel({
   const { run: runAction, pending, state: notice } = useServerAction(createEditionAction);
   const [rejecting, setRejecting] = useState<number | null>(null);
   const [reason, setReason] = useState("");
+  // The approver states the review before the approve button works (sent as reviewed: true).
+  const [reviewed, setReviewed] = useState<number | null>(null);
 
   const run = (action: Action, payload: Record<string, unknown>) =>
     void runAction({ slug, ...payload }, action).then((res) => {
@@ -101,24 +104,34 @@ export function EditionsPanel({
               <p className="mt-1 text-sm text-ink-soft">
                 Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
                 {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
+                {e.reviewBy && e.status === "approved" ? ` · due for review by ${date(e.reviewBy)}` : ""}
               </p>
-              {e.rejectionReason && e.status === "draft" ? (
+              {e.rejectionReason && e.status === "returned" ? (
                 <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p>
               ) : null}
               <div className="mt-3 flex flex-wrap gap-2">
                 <a href={e.pdfUrl} className={buttonClass("secondary", "py-1.5")} download>
                   Download PDF
                 </a>
-                {e.status !== "draft" ? (
+                {e.status !== "draft" && e.status !== "returned" ? (
                   <a href={e.checkUrl} className={buttonClass("ghost", "py-1.5")}>
                     Check page
                   </a>
                 ) : null}
                 {can.approve && e.status === "draft" && !e.createdByMe ? (
                   <>
+                    <label className="flex basis-full items-center gap-2 text-sm">
+                      <input
+                        type="checkbox"
+                        checked={reviewed === e.id}
+                        onChange={(ev) => setReviewed(ev.target.checked ? e.id : null)}
+                      />
+                      I have reviewed edition {e.number}: its numbers, cautions and notes, against the edition it
+                      replaces.
+                    </label>
                     <Button
-                      onClick={() => run(approveEditionAction, { editionId: e.id })}
-                      disabled={pending}
+                      onClick={() => run(approveEditionAction, { editionId: e.id, reviewed: true })}
+                      disabled={pending || reviewed !== e.id}
                       className="py-1.5"
                     >
                       Approve edition {e.number}
@@ -135,21 +148,19 @@ export function EditionsPanel({
                 ) : null}
                 {can.approve && e.status === "draft" && e.createdByMe ? (
                   <span className="self-center text-sm text-ink-faint">
-                    You drafted this; another manager or the lead approves it.
+                    You drafted this; someone else who may approve signs it off.
                   </span>
                 ) : null}
-                {can.withdraw && e.status !== "withdrawn" ? (
+                {can.withdraw && e.status !== "withdrawn" && e.status !== "returned" ? (
                   <Button
                     variant="ghost"
                     className="py-1.5 text-danger"
                     disabled={pending}
                     onClick={() => {
-                      if (
-                        window.confirm(
-                          `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down.`,
-                        )
-                      )
-                        run(withdrawEditionAction, { editionId: e.id, reason: "" });
+                      const why = window.prompt(
+                        `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down. Say why:`,
+                      );
+                      if (why !== null) run(withdrawEditionAction, { editionId: e.id, reason: why });
                     }}
                   >
                     Withdraw
@@ -176,7 +187,7 @@ export function EditionsPanel({
                     />
                   </label>
                   <Button type="submit" variant="secondary" disabled={pending}>
-                    Send back to draft
+                    Send back
                   </Button>
                 </form>
               ) : null}

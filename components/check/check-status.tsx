@@ -1,4 +1,5 @@
-import { CHECK_ADVICE, CHECK_HEADLINES, type CheckStatus } from "@/lib/editions/check";
+import { actionSentence } from "@/lib/editions/action";
+import { CHECK_HEADLINES, type CheckStatus } from "@/lib/editions/check";
 import type { CheckJson } from "@/lib/editions/check-json";
 
 // A symbol and a word for every status: colour is never the only signal.
@@ -51,7 +52,12 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
           </p>
         ) : null}
       </div>
-      <p className="mt-4 text-lg font-semibold">{CHECK_ADVICE[check.status]}</p>
+      <p className="mt-4 text-lg font-semibold" data-testid="check-action" data-action={check.action}>
+        {actionSentence(check.action, {
+          reviewBy: check.reviewBy ? new Date(check.reviewBy) : null,
+          replacement: check.currentEdition,
+        })}
+      </p>
       {check.changes.length ? (
         <section className="mt-4" aria-labelledby="changes-h">
           <h2 id="changes-h" className="text-base font-semibold">

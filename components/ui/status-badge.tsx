@@ -6,6 +6,7 @@ const STYLES: Record<EditionStatus | "outdated" | "current" | "none", { label: s
     current: { label: "Current", symbol: "✓", cls: "border-ok/40 bg-ok-soft text-ok" },
     approved: { label: "Approved", symbol: "✓", cls: "border-ok/40 bg-ok-soft text-ok" },
     draft: { label: "Draft", symbol: "✎", cls: "border-line-strong bg-paper-sunk text-ink-soft" },
+    returned: { label: "Sent back", symbol: "↩", cls: "border-warn/50 bg-warn-soft text-warn" },
     outdated: { label: "Outdated", symbol: "!", cls: "border-warn/50 bg-warn-soft text-warn" },
     superseded: { label: "Superseded", symbol: "↻", cls: "border-warn/50 bg-warn-soft text-warn" },
     withdrawn: { label: "Withdrawn", symbol: "✕", cls: "border-danger/40 bg-danger-soft text-danger" },

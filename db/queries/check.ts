@@ -1,6 +1,7 @@
 import "server-only";
 import { and, desc, eq, ne } from "drizzle-orm";
 import type { Snapshot } from "@/lib/charts/snapshot";
+import { copyAction, type CopyAction } from "@/lib/editions/action";
 import { checkEdition, type CheckStatus } from "@/lib/editions/check";
 import type { Change } from "@/lib/charts/changes";
 import { db } from "../index";
@@ -8,6 +9,8 @@ import { charts, editions, labs } from "../schema";
 
 export type CheckView = {
   status: CheckStatus;
+  action: CopyAction;
+  reviewBy: Date | null;
   since: Date | null;
   edition: { id: number; number: number; approvedAt: Date | null };
   chart: { id: number; title: string };
@@ -36,7 +39,12 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     .where(eq(editions.checkToken, token));
   if (!row) return null;
   const [current] = await db
-    .select({ id: editions.id, number: editions.number, approvedAt: editions.approvedAt })
+    .select({
+      id: editions.id,
+      number: editions.number,
+      approvedAt: editions.approvedAt,
+      fingerprint: editions.fingerprint,
+    })
     .from(editions)
     .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
     .orderBy(desc(editions.number))
@@ -56,13 +64,23 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
           : result.status === "current"
             ? row.edition.approvedAt
             : row.edition.createdAt;
+  const action = copyAction({
+    status: result.status,
+    reviewBy: row.edition.reviewBy,
+    replacement: current
+      ? { number: current.number, matchesToday: current.fingerprint === row.chart.liveFingerprint }
+      : null,
+    now: new Date(),
+  });
   return {
     status: result.status,
+    action,
+    reviewBy: row.edition.reviewBy,
     since,
     edition: { id: row.edition.id, number: row.edition.number, approvedAt: row.edition.approvedAt },
     chart: { id: row.chart.id, title: row.chart.title },
     lab: row.lab,
     changes: result.changes,
-    currentEdition: current ?? null,
+    currentEdition: current ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
   };
 }

@@ -1,17 +1,19 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { and, desc, eq, max, ne } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, isNotNull, max, ne } from "drizzle-orm";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
+import { reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
-import { charts, editions, logos, users } from "../schema";
+import { auditEvents, charts, editions, logos, users } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
+import { getLabRules } from "./lab-rules";
 import { lockLab } from "./lab-lock";
 import { readStock } from "./stock-read";
 
@@ -52,6 +54,7 @@ export async function listEditions({ labId, chartId }: { labId: number; chartId:
       createdByName: users.name,
       approvedAt: editions.approvedAt,
       approvedByName: editions.approvedByName,
+      reviewBy: editions.reviewBy,
       rejectedAt: editions.rejectedAt,
       rejectionReason: editions.rejectionReason,
       withdrawnAt: editions.withdrawnAt,
@@ -87,6 +90,21 @@ export async function createEdition(
   const problems = snapshotProblems(snapshot, definition);
   if (problems.length) throw new AppError("unprocessable", problems.join(" "));
   const fingerprint = fingerprintOf(snapshot);
+  // Pressing "Create edition" twice gives the one draft, not two identical ones.
+  const [same] = await tx
+    .select({ id: editions.id, number: editions.number, checkToken: editions.checkToken })
+    .from(editions)
+    .where(
+      and(
+        eq(editions.chartId, chartId),
+        eq(editions.labId, labId),
+        eq(editions.status, "draft"),
+        eq(editions.fingerprint, fingerprint),
+      ),
+    )
+    .orderBy(desc(editions.number))
+    .limit(1);
+  if (same) return { ...same, fingerprint, reused: true };
   const [last] = await tx
     .select({ n: max(editions.number) })
     .from(editions)
@@ -107,28 +125,74 @@ export async function createEdition(
     targetId: row!.id,
     detail: { chartId, number, fingerprint },
   });
-  return { id: row!.id, number, fingerprint, checkToken };
+  return { id: row!.id, number, fingerprint, checkToken, reused: false };
 }
 
 /** The one guarded path for every edition state change; the database triggers agree with it. */
-async function transition(
-  tx: Tx,
-  { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus | "rejected" },
-) {
+async function transition(tx: Tx, { labId, editionId, to }: { labId: number; editionId: number; to: EditionStatus }) {
   const [ed] = await tx
     .select()
     .from(editions)
     .where(and(eq(editions.id, editionId), eq(editions.labId, labId)))
     .for("update");
   if (!ed) throw notFound("Edition");
-  const target: EditionStatus = to === "rejected" ? "draft" : to;
-  if (to === "rejected" ? ed.status !== "draft" : !canTransition(ed.status, target)) {
-    throw new AppError(
-      "conflict",
-      `Edition ${ed.number} is ${ed.status}; it cannot be ${to === "rejected" ? "rejected" : `made ${to}`}.`,
-    );
+  if (!canTransition(ed.status, to)) {
+    const state = ed.status === "returned" ? "sent back" : ed.status;
+    const verb = to === "returned" ? "sent back" : `made ${to}`;
+    throw new AppError("conflict", `Edition ${ed.number} is ${state}; it cannot be ${verb}.`);
   }
   return ed;
+}
+
+/** Chart audit actions that change what the chart prints or says. */
+const CHART_CONTENT_ACTIONS = ["chart.created", "chart.updated", "chart.logo_set", "chart.logo_removed"];
+
+/**
+ * Whether this person changed the chart's content since its last approved edition: a chart
+ * audit row by them after the audit row of the last approval (audit ids order the writes, which
+ * run one at a time per lab). With no approval yet, any change since the chart was created counts.
+ */
+export async function changedChartSinceApproval(
+  tx: Tx,
+  { labId, chartId, userId }: { labId: number; chartId: number; userId: number },
+): Promise<boolean> {
+  const approvedIds = await tx
+    .select({ id: editions.id })
+    .from(editions)
+    .where(and(eq(editions.chartId, chartId), eq(editions.labId, labId), isNotNull(editions.approvedAt)));
+  let since = 0;
+  if (approvedIds.length) {
+    const [last] = await tx
+      .select({ id: max(auditEvents.id) })
+      .from(auditEvents)
+      .where(
+        and(
+          eq(auditEvents.labId, labId),
+          eq(auditEvents.action, "edition.approved"),
+          eq(auditEvents.targetType, "edition"),
+          inArray(
+            auditEvents.targetId,
+            approvedIds.map((e) => String(e.id)),
+          ),
+        ),
+      );
+    since = last?.id ?? 0;
+  }
+  const [changed] = await tx
+    .select({ id: auditEvents.id })
+    .from(auditEvents)
+    .where(
+      and(
+        eq(auditEvents.labId, labId),
+        eq(auditEvents.targetType, "chart"),
+        eq(auditEvents.targetId, String(chartId)),
+        eq(auditEvents.actorUserId, userId),
+        inArray(auditEvents.action, CHART_CONTENT_ACTIONS),
+        gt(auditEvents.id, since),
+      ),
+    )
+    .limit(1);
+  return Boolean(changed);
 }
 
 export async function approveEdition(
@@ -137,9 +201,12 @@ export async function approveEdition(
 ) {
   const ed = await transition(tx, { labId, editionId, to: "approved" });
   if (ed.createdBy === actor.id) {
+    throw new AppError("forbidden", "You drafted this edition, so someone else must approve it (four eyes).");
+  }
+  if (await changedChartSinceApproval(tx, { labId, chartId: ed.chartId, userId: actor.id })) {
     throw new AppError(
       "forbidden",
-      "You drafted this edition, so someone else (a manager or the medical lead) must approve it.",
+      "You changed this chart since its last approved edition, so someone else must approve it (four eyes).",
     );
   }
   const [chart] = await tx
@@ -154,6 +221,9 @@ export async function approveEdition(
     );
   }
   const now = new Date();
+  // The review-by date follows the lab's review period at the time of approval and never moves.
+  const { reviewPeriodMonths } = await getLabRules({ labId }, tx);
+  const reviewBy = reviewByDate(now, reviewPeriodMonths);
   const previous = await tx
     .select({ id: editions.id, number: editions.number })
     .from(editions)
@@ -166,7 +236,7 @@ export async function approveEdition(
   }
   await tx
     .update(editions)
-    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now })
+    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now, reviewBy })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await afterLabChange(tx, {
     labId,
@@ -185,9 +255,10 @@ export async function approveEdition(
       number: ed.number,
       fingerprint: ed.fingerprint,
       superseded: previous.map((p) => p.number),
+      reviewBy: reviewBy.toISOString(),
     },
   });
-  return { id: ed.id, number: ed.number, superseded: previous };
+  return { id: ed.id, number: ed.number, superseded: previous, reviewBy };
 }
 
 export async function rejectEdition(
@@ -204,10 +275,10 @@ export async function rejectEdition(
     reason: string;
   },
 ) {
-  const ed = await transition(tx, { labId, editionId, to: "rejected" });
+  const ed = await transition(tx, { labId, editionId, to: "returned" });
   await tx
     .update(editions)
-    .set({ rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
+    .set({ status: "returned", rejectedBy: actor.id, rejectedAt: new Date(), rejectionReason: reason })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await recordAudit({
     tx,
@@ -232,7 +303,7 @@ export async function withdrawEdition(
     labId: number;
     editionId: number;
     actor: Actor;
-    reason: string | null;
+    reason: string;
   },
 ) {
   const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
@@ -243,7 +314,7 @@ export async function withdrawEdition(
   await afterLabChange(tx, {
     labId,
     changeKey: `edition:${ed.id}:withdrawn`,
-    cause: `Edition ${ed.number} of a chart was withdrawn${reason ? `: ${reason}` : ""}`,
+    cause: `Edition ${ed.number} of a chart was withdrawn: ${reason}`,
   });
   await recordAudit({
     tx,

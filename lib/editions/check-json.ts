@@ -1,9 +1,13 @@
 import type { Change } from "@/lib/charts/changes";
+import type { CopyAction } from "./action";
 import type { CheckStatus } from "./check";
 
 /** The public JSON of a check: lab and chart names, never personal data. */
 export type CheckJson = {
   status: CheckStatus;
+  /** What to do with the copy: keep, replace, take-down or review (lib/editions/action.ts). */
+  action: CopyAction;
+  reviewBy: string | null;
   since: string | null;
   edition: { number: number; approvedAt: string | null };
   chart: { title: string };
@@ -14,6 +18,8 @@ export type CheckJson = {
 
 export function checkJson(v: {
   status: CheckStatus;
+  action: CopyAction;
+  reviewBy: Date | null;
   since: Date | null;
   edition: { number: number; approvedAt: Date | null };
   chart: { title: string };
@@ -23,6 +29,8 @@ export function checkJson(v: {
 }): CheckJson {
   return {
     status: v.status,
+    action: v.action,
+    reviewBy: v.reviewBy?.toISOString() ?? null,
     since: v.since?.toISOString() ?? null,
     edition: { number: v.edition.number, approvedAt: v.edition.approvedAt?.toISOString() ?? null },
     chart: { title: v.chart.title },

@@ -41,7 +41,8 @@ export function checkEdition(ed: CheckEdition, chart: CheckChart, newer: NewerEd
       : `A newer edition was approved on ${fmt(ed.supersededAt)}`;
     return { status: "superseded", changes: [{ kind: "lab", detail }] };
   }
-  if (ed.status === "draft") return { status: "draft", changes: [] };
+  // A draft sent back was never approved: it reads as a draft.
+  if (ed.status === "draft" || ed.status === "returned") return { status: "draft", changes: [] };
   if (!chart || !chart.liveFingerprint || !chart.liveSnapshot)
     return { status: "outdated", changes: describeChanges(ed.snapshot, null) };
   if (chart.liveFingerprint === ed.fingerprint) return { status: "current", changes: [] };
@@ -60,13 +61,4 @@ export const CHECK_HEADLINES: Record<CheckStatus, string> = {
   superseded: "Superseded",
   withdrawn: "Withdrawn",
   draft: "Draft - not for clinical use",
-};
-
-export const CHECK_ADVICE: Record<CheckStatus, string> = {
-  current: "This printout matches the lab's stock and rules today.",
-  outdated:
-    "The lab's stock, law or chart settings changed after this printout was approved: a new edition would print different numbers. Replace this printout.",
-  superseded: "A newer edition of this chart has been approved. Replace this printout with the current edition.",
-  withdrawn: "This edition was withdrawn. Take this printout down.",
-  draft: "This is an unapproved draft. It must not hang on a wall or be used in a case.",
 };

@@ -3,6 +3,7 @@ import { cache } from "react";
 import { findChartLab } from "@/db/queries/charts";
 import { findEditionLab } from "@/db/queries/editions";
 import { findLabWithRole } from "@/db/queries/members";
+import { getLabRules } from "@/db/queries/lab-rules";
 import type { SessionUser } from "@/lib/auth/session";
 import { forbidden, notFound, unauthenticated } from "@/lib/errors";
 import { can, type Capability, type Role } from "@/lib/permissions";
@@ -21,7 +22,19 @@ export type LabRef = { lab: string } | { labId: number } | { chartId: number } |
 const labBySlug = cache((slug: string, userId: number) => findLabWithRole({ slug, userId }));
 const labById = cache((labId: number, userId: number) => findLabWithRole({ labId, userId }));
 
+const labRulesFor = cache((labId: number) => getLabRules({ labId }));
+
 const refLabel = (ref: LabRef) => ("chartId" in ref ? "Chart" : "editionId" in ref ? "Edition" : "Lab");
+
+/**
+ * The role table plus what the lab's own rules add to it: approval by managers when the medical
+ * lead grants it. Pages use it to decide which buttons to show; operations check it in `authorize`.
+ */
+export async function labCan(labId: number, role: Role, capability: Capability): Promise<boolean> {
+  if (can(role, capability)) return true;
+  if (capability !== "edition:approve" || role !== "manager") return false;
+  return (await labRulesFor(labId)).managersMayApprove;
+}
 
 export function signedIn(caller: Caller): SessionUser {
   if (caller.kind !== "user") throw unauthenticated();
@@ -47,7 +60,7 @@ export async function authorize(caller: Caller, ref: LabRef, capability: Capabil
   }
   // A lab the person is not in answers exactly like one that does not exist.
   if (!lab || !lab.role) throw notFound(refLabel(ref));
-  if (!can(lab.role, capability)) throw forbidden();
+  if (!(await labCan(lab.id, lab.role, capability))) throw forbidden();
   const { role, ...rest } = lab;
   return { user, lab: rest, role };
 }

@@ -5,14 +5,14 @@ import { gridJson } from "@/lib/charts/grid-model";
 import { editionUrls } from "@/lib/charts/present";
 import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
-import { rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
+import { approveEditionSchema, rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
 // No options yet: the body is empty or {}, and anything else is refused rather than ignored.
 const noOptions = z.object({}).strict();
 
-/** Freezes what the chart prints today into a new numbered draft. */
+/** Freezes what the chart prints today into a new numbered draft, or answers the identical draft that waits. */
 export const createEdition = labOperation({
   name: "edition.create",
   capability: "edition:create",
@@ -25,17 +25,21 @@ export const createEdition = labOperation({
       number: ed.number,
       status: "draft" as const,
       fingerprint: ed.fingerprint,
+      reused: ed.reused,
       ...editionUrls(env.APP_URL, ed),
     };
   },
 });
 
-/** Approves a draft; never by its author (four eyes), and only while it still matches the lab. */
+/**
+ * Approves a draft after the approver states they reviewed it; never by anyone who changed the
+ * chart since its last approval (four eyes), and only while it still matches the lab.
+ */
 export const approveEdition = labOperation({
   name: "edition.approve",
   capability: "edition:approve",
   scope: "edition",
-  input: noOptions,
+  input: approveEditionSchema,
   run: async ({ labId, actor, ids }) => {
     const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
     return {
@@ -43,11 +47,12 @@ export const approveEdition = labOperation({
       number: ed.number,
       status: "approved" as const,
       superseded: ed.superseded.map((p) => p.number),
+      reviewBy: ed.reviewBy.toISOString(),
     };
   },
 });
 
-/** Sends a draft back to its author with a reason. */
+/** Sends a draft back to its author with a reason: it becomes `returned` and can never be approved. */
 export const rejectEdition = labOperation({
   name: "edition.reject",
   capability: "edition:approve",
@@ -55,7 +60,7 @@ export const rejectEdition = labOperation({
   input: rejectEditionSchema,
   run: async ({ labId, actor, ids }, { reason }) => {
     const ed = await labWrite(labId, (tx) => q.rejectEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
-    return { id: ed.id, number: ed.number, status: "draft" as const, rejectionReason: reason };
+    return { id: ed.id, number: ed.number, status: "returned" as const, rejectionReason: reason };
   },
 });
 
@@ -65,9 +70,7 @@ export const withdrawEdition = labOperation({
   scope: "edition",
   input: withdrawEditionSchema,
   run: async ({ labId, actor, ids }, { reason }) => {
-    const ed = await labWrite(labId, (tx) =>
-      q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason: reason ?? null }),
-    );
+    const ed = await labWrite(labId, (tx) => q.withdrawEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
     return { id: ed.id, number: ed.number, status: "withdrawn" as const, was: ed.was };
   },
 });

@@ -57,7 +57,7 @@ export const posterPdf = labOperation({
       targetId: ed.id,
       detail: { number: ed.number, status: ed.status, cached: Boolean(hit) },
     });
-    const fileName = `${slugify(ed.chartTitle)}-edition-${ed.number}${ed.status === "draft" ? "-DRAFT" : ""}.pdf`;
+    const fileName = `${slugify(ed.chartTitle)}-edition-${ed.number}${ed.status === "draft" || ed.status === "returned" ? "-DRAFT" : ""}.pdf`;
     return { pdf, fileName, cached: Boolean(hit) };
   },
 });

@@ -94,7 +94,7 @@ export type EditionLine = {
 
 /** "Approved 2 Mar 2026 by A. Example", or "DRAFT — not approved". */
 export function approvalText(e: EditionLine): string {
-  if (e.status === "draft" || !e.approvedAt) return "DRAFT — not approved";
+  if (e.status === "draft" || e.status === "returned" || !e.approvedAt) return "DRAFT — not approved";
   const by = e.approvedByName ? ` by ${e.approvedByName}` : "";
   return `Approved ${formatDate(e.approvedAt)}${by}`;
 }
@@ -104,6 +104,8 @@ export function statusBanner(status: EditionStatus): string | null {
   switch (status) {
     case "draft":
       return "DRAFT — not approved, not for clinical use";
+    case "returned":
+      return "SENT BACK — not approved, not for clinical use";
     case "superseded":
       return "SUPERSEDED — a newer edition replaces this poster: scan the code and replace it";
     case "withdrawn":

@@ -276,6 +276,40 @@ export const ROUTES: RouteRow[] = [
     expect: everyoneSignedIn(404),
   },
 
+  // the lab's rules: every member reads them, only the medical lead changes them
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo")}/rules`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab(NO_LAB)}/rules`,
+    expect: everyoneSignedIn(404),
+  },
+  {
+    kind: "route",
+    method: "PUT",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo")}/rules`,
+    body: { managersMayApprove: true, approvers: "everyone" },
+    expect: statuses(["lead"], 400),
+    note: "an unknown key: refused whole, nothing changes",
+  },
+  {
+    kind: "route",
+    method: "PUT",
+    route: "/api/v1/labs/[slug]/rules",
+    url: `${lab("demo-north")}/rules`,
+    body: { reviewPeriodMonths: 0 },
+    expect: { ...statuses(["lead"], 400), operator: 404 },
+    note: "the operator is not in demo-north",
+  },
+
   // charts and editions (seeded demo ids; allowed roles get a bad body or a conflict, so nothing changes)
   {
     kind: "route",
@@ -380,8 +414,17 @@ export const ROUTES: RouteRow[] = [
     method: "POST",
     route: "/api/v1/editions/[id]/approve",
     url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/approve`,
-    expect: statuses(["manager", "lead"], 409),
-    note: "already approved: a conflict that changes nothing",
+    body: { reviewed: true },
+    expect: statuses(["lead"], 409),
+    note: "already approved: a conflict that changes nothing; managers only where the lab's rules grant it",
+  },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/editions/[id]/approve",
+    url: (ids) => `/api/v1/editions/${ids["edition:draft"]}/approve`,
+    expect: statuses(["lead"], 400),
+    note: "no statement of review: 400 naming reviewed",
   },
   {
     kind: "route",
@@ -389,7 +432,7 @@ export const ROUTES: RouteRow[] = [
     route: "/api/v1/editions/[id]/reject",
     url: (ids) => `/api/v1/editions/${ids["edition:draft"]}/reject`,
     body: {},
-    expect: statuses(["manager", "lead"], 400),
+    expect: statuses(["lead"], 400),
   },
   {
     kind: "route",
@@ -568,10 +611,10 @@ export const ACTIONS: ActionRow[] = [
     kind: "action",
     file: CHART_ACTIONS,
     name: "approveEditionAction",
-    allowed: ["manager", "lead"],
-    note: "and never by the edition's author",
+    allowed: ["lead"],
+    note: "managers only where the lab's rules grant it; never by anyone who changed the chart since its last approval",
   },
-  { kind: "action", file: CHART_ACTIONS, name: "rejectEditionAction", allowed: ["manager", "lead"] },
+  { kind: "action", file: CHART_ACTIONS, name: "rejectEditionAction", allowed: ["lead"] },
   { kind: "action", file: CHART_ACTIONS, name: "withdrawEditionAction", allowed: ["manager"] },
   { kind: "action", file: CHART_ACTIONS, name: "setChartLogoAction", allowed: ["manager", "educator"] },
   { kind: "action", file: CHART_ACTIONS, name: "removeChartLogoAction", allowed: ["manager", "educator"] },

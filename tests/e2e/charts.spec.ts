@@ -57,6 +57,10 @@ test("design a chart, create an edition, approve it as another role and download
   const lead = await (await browser.newContext()).newPage();
   await signInPage(lead, demoEmail("lead"));
   await lead.goto(chartUrl);
+  await lead
+    .getByTestId("edition-1")
+    .getByLabel(/I have reviewed edition 1/)
+    .check();
   await lead.getByTestId("edition-1").getByRole("button", { name: "Approve edition 1" }).click();
   await expect(lead.getByRole("status").filter({ hasText: "Edition 1 approved" })).toBeVisible();
   await expect(lead.getByTestId("edition-1")).toContainText("Approved");

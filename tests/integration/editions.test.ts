@@ -158,14 +158,17 @@ describe("editions", () => {
     await approveEdition({ labId, editionId: draft.id, actor: people.lead });
   });
 
-  it("rejects back to draft with a reason, and withdraws; status only moves forward", async () => {
+  it("sends a draft back as returned with its reason, which can then never be approved; withdraws a draft", async () => {
     const chartId = await newChart();
     const draft = await createEdition({ labId, chartId, actor: people.educator });
     await rejectEdition({ labId, editionId: draft.id, actor: people.lead, reason: "Side-branch columns too narrow" });
     const rejected = await getEdition({ labId, editionId: draft.id });
-    expect(rejected).toMatchObject({ status: "draft", rejectionReason: "Side-branch columns too narrow" });
-    await withdrawEdition({ labId, editionId: draft.id, actor: people.manager, reason: null });
-    await expectAppError(approveEdition({ labId, editionId: draft.id, actor: people.lead }), 409, /withdrawn/);
+    expect(rejected).toMatchObject({ status: "returned", rejectionReason: "Side-branch columns too narrow" });
+    await expectAppError(approveEdition({ labId, editionId: draft.id, actor: people.lead }), 409, /sent back/);
+    const next = await createEdition({ labId, chartId, actor: people.educator });
+    expect(next.id).not.toBe(draft.id);
+    await withdrawEdition({ labId, editionId: next.id, actor: people.manager, reason: "Drawn up in error" });
+    await expectAppError(approveEdition({ labId, editionId: next.id, actor: people.lead }), 409, /withdrawn/);
   });
 
   it("the database itself refuses to change an approved edition's content, status backwards, or to delete it", async () => {

@@ -9,6 +9,7 @@ import { AppError } from "@/lib/errors";
 import * as audit from "@/lib/ops/audit";
 import * as chartsOps from "@/lib/ops/charts";
 import * as editionsOps from "@/lib/ops/editions";
+import * as labRulesOps from "@/lib/ops/lab-rules";
 import * as members from "@/lib/ops/members";
 import * as postings from "@/lib/ops/postings";
 import * as renders from "@/lib/ops/renders";
@@ -25,7 +26,7 @@ type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Pr
   scope: "lab" | "chart" | "edition";
 };
 
-const ops: Op[] = [audit, chartsOps, editionsOps, members, postings, renders, stock].flatMap((mod) =>
+const ops: Op[] = [audit, chartsOps, editionsOps, labRulesOps, members, postings, renders, stock].flatMap((mod) =>
   Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v),
 );
 

@@ -32,7 +32,8 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
   const { view, role, rooms, hanging } = await forPage(`/v/${token}`, async () =>
     checkPage(await sessionCaller(), { token }),
   );
-  const printId = view.status === "current" ? view.edition.id : view.currentEdition?.id;
+  // Only an approved edition that matches today's chart is offered for printing.
+  const printId = view.action === "replace" ? view.currentEdition?.id : undefined;
 
   return (
     <div className="mx-auto max-w-xl">
@@ -41,7 +42,7 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
       {role ? (
         <>
           <div className="mt-6 flex flex-wrap gap-2">
-            {printId && view.status !== "current" ? (
+            {printId ? (
               <a href={pdfUrlFor(env.APP_URL, printId)} className={buttonClass("primary")}>
                 Print the current edition
               </a>

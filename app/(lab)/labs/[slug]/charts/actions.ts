@@ -27,13 +27,14 @@ export async function createEditionAction(_prev: ActionState, payload: ActionPay
   return runAction(payload, async (caller, { slug, chartId }) => {
     const ed = await createEdition(caller, { chartId });
     refresh(slug);
+    if (ed.reused) return { ok: true, message: `Edition ${ed.number} is already a draft with exactly this content.` };
     return { ok: true, message: `Edition ${ed.number} created as a draft. Someone other than you must approve it.` };
   });
 }
 
 export async function approveEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
-  return runAction(payload, async (caller, { slug, editionId }) => {
-    const ed = await approveEdition(caller, { editionId });
+  return runAction(payload, async (caller, { slug, editionId, reviewed }) => {
+    const ed = await approveEdition(caller, { editionId }, { reviewed });
     refresh(slug);
     const superseded = ed.superseded.length ? ` Edition ${ed.superseded.join(", ")} is now superseded.` : "";
     return { ok: true, message: `Edition ${ed.number} approved.${superseded}` };
@@ -44,13 +45,13 @@ export async function rejectEditionAction(_prev: ActionState, payload: ActionPay
   return runAction(payload, async (caller, { slug, editionId, reason }) => {
     const ed = await rejectEdition(caller, { editionId }, { reason });
     refresh(slug);
-    return { ok: true, message: `Edition ${ed.number} sent back to draft.` };
+    return { ok: true, message: `Edition ${ed.number} sent back with your reason; it can no longer be approved.` };
   });
 }
 
 export async function withdrawEditionAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
   return runAction(payload, async (caller, { slug, editionId, reason }) => {
-    const ed = await withdrawEdition(caller, { editionId }, { reason: reason || undefined });
+    const ed = await withdrawEdition(caller, { editionId }, { reason });
     refresh(slug);
     return { ok: true, message: `Edition ${ed.number} withdrawn.` };
   });

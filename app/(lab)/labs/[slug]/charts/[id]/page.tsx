@@ -9,6 +9,7 @@ import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
 import { env } from "@/lib/env";
+import { labCan } from "@/lib/ops/access";
 import { can } from "@/lib/permissions";
 
 export default async function ChartPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
@@ -44,7 +45,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         chartId={chart.id}
         can={{
           create: can(member.role, "edition:create"),
-          approve: can(member.role, "edition:approve"),
+          approve: await labCan(member.lab.id, member.role, "edition:approve"),
           withdraw: can(member.role, "edition:withdraw"),
         }}
         editions={eds.map((e) => ({
@@ -57,6 +58,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           createdAt: e.createdAt.toISOString(),
           approvedAt: e.approvedAt?.toISOString() ?? null,
           approvedByName: e.approvedByName,
+          reviewBy: e.reviewBy?.toISOString() ?? null,
           rejectionReason: e.rejectionReason,
           matchesToday: e.fingerprint === chart.liveFingerprint,
           ...editionUrls(env.APP_URL, e),

@@ -1,7 +1,8 @@
 import { api } from "@/lib/http/route";
 import { createEdition } from "@/lib/ops/editions";
 
-export const POST = api<{ id: string }>(
-  async ({ caller, params, body }) => createEdition(caller, { chartId: params.id }, await body({ optional: true })),
-  { status: 201 },
-);
+// 201 for a new draft; 200 with the same id when an identical draft already waits.
+export const POST = api<{ id: string }>(async ({ caller, params, body }) => {
+  const ed = await createEdition(caller, { chartId: params.id }, await body({ optional: true }));
+  return Response.json(ed, { status: ed.reused ? 200 : 201 });
+});

@@ -1,0 +1,141 @@
+// The sign-off, rules and check routes as a client calls them: status codes, error bodies naming
+// the field, and the check's action. Only the session (who is calling) is stood in for.
+import { eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { db, pool } from "@/db";
+import { balloonFamilies, balloons, editions, labRules } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session";
+import { env } from "@/lib/env";
+import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
+import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
+import { POST as rejectRoute } from "@/app/api/v1/editions/[id]/reject/route";
+import { POST as withdrawRoute } from "@/app/api/v1/editions/[id]/withdraw/route";
+import { GET as getRules, PUT as putRules } from "@/app/api/v1/labs/[slug]/rules/route";
+import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
+import { labWithTeam } from "./support/fixtures";
+import { createChart } from "./support/writes";
+
+const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
+vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+
+let team: Awaited<ReturnType<typeof labWithTeam>>;
+let chartId = 0;
+type Role = "manager" | "lead" | "educator" | "operator";
+const asRole = (role: Role) => {
+  const p = team.people[role];
+  session.user = { id: p.id, email: p.email, name: p.name };
+};
+
+type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
+async function call<P>(handler: Handler<P>, params: P, method: string, body?: unknown) {
+  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
+  if (body !== undefined) headers["content-type"] = "application/json";
+  const res = await handler(
+    new Request(`${env.APP_URL}/api/v1/x`, {
+      method,
+      headers,
+      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
+    }),
+    { params: Promise.resolve(params) },
+  );
+  // The answers checked here: an operation's result or `{"error": {...}}`.
+  type Answer = Record<string, unknown> & { id?: number; reviewBy?: string; error: { issues: { path: string[] }[] } };
+  return { status: res.status, json: (await res.json()) as Answer };
+}
+
+beforeAll(async () => {
+  team = await labWithTeam();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({ labId: team.lab.id, name: "NC routes", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
+    .$returningId();
+  await db
+    .insert(balloons)
+    .values(
+      [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25].map((d) => ({ labId: team.lab.id, familyId: fam!.id, diameterMm: d })),
+    );
+  const definition = chartDefinitionSchema.parse({
+    title: "Route chart",
+    law: { law: "murray" },
+    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    paper: "A4",
+    orientation: "portrait",
+    readingDistanceM: 1,
+  });
+  chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+});
+
+afterAll(() => pool.end());
+
+describe("sign-off routes", () => {
+  it("create edition: 201 for a new draft, 200 with the same id for the identical one", async () => {
+    asRole("educator");
+    const first = await call(createEditionRoute, { id: String(chartId) }, "POST");
+    expect(first.status).toBe(201);
+    const again = await call(createEditionRoute, { id: String(chartId) }, "POST");
+    expect(again.status).toBe(200);
+    expect(again.json.id).toBe(first.json.id);
+  });
+
+  it("approve: 400 naming reviewed, 403 for a manager, 200 for the lead; then the check says keep", async () => {
+    asRole("educator");
+    const { json: ed } = await call(createEditionRoute, { id: String(chartId) }, "POST");
+    asRole("lead");
+    const missing = await call(approveRoute, { id: String(ed.id) }, "POST");
+    expect(missing.status).toBe(400);
+    expect(missing.json.error.issues.map((i) => i.path.join("."))).toContain("reviewed");
+    asRole("manager");
+    expect((await call(approveRoute, { id: String(ed.id) }, "POST", { reviewed: true })).status).toBe(403);
+    asRole("lead");
+    const ok = await call(approveRoute, { id: String(ed.id) }, "POST", { reviewed: true });
+    expect(ok.status).toBe(200);
+    expect(ok.json).toMatchObject({ status: "approved" });
+    expect(typeof ok.json.reviewBy).toBe("string");
+    const [row] = await db.select().from(editions).where(eq(editions.id, ed.id!));
+    session.user = null;
+    const check = await call(checkRoute, { token: row!.checkToken }, "GET");
+    expect(check.status).toBe(200);
+    expect(check.json).toMatchObject({ status: "current", action: "keep", reviewBy: ok.json.reviewBy });
+
+    // Withdrawn without a reason: 400; with one: the copy reads take-down.
+    asRole("manager");
+    const noReason = await call(withdrawRoute, { id: String(ed.id) }, "POST", {});
+    expect(noReason.status).toBe(400);
+    expect(JSON.stringify(noReason.json.error.issues)).toMatch(/reason/);
+    expect((await call(withdrawRoute, { id: String(ed.id) }, "POST", { reason: "Wrong law" })).status).toBe(200);
+    session.user = null;
+    expect((await call(checkRoute, { token: row!.checkToken }, "GET")).json).toMatchObject({
+      status: "withdrawn",
+      action: "take-down",
+    });
+  });
+
+  it("send back: returned with the reason, then approving it is 409", async () => {
+    asRole("educator");
+    const { json: ed } = await call(createEditionRoute, { id: String(chartId) }, "POST");
+    asRole("lead");
+    const back = await call(rejectRoute, { id: String(ed.id) }, "POST", { reason: "Columns too narrow" });
+    expect(back).toMatchObject({ status: 200, json: { status: "returned", rejectionReason: "Columns too narrow" } });
+    expect((await call(approveRoute, { id: String(ed.id) }, "POST", { reviewed: true })).status).toBe(409);
+  });
+});
+
+describe("lab rules routes", () => {
+  it("GET for members; PUT 403 for others, 400 for unknown keys, 200 for the lead", async () => {
+    asRole("operator");
+    const read = await call(getRules, { slug: team.lab.slug }, "GET");
+    expect(read).toMatchObject({ status: 200, json: { reviewPeriodMonths: 12, managersMayApprove: false } });
+    for (const role of ["manager", "educator", "operator"] as const) {
+      asRole(role);
+      expect((await call(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true })).status).toBe(403);
+    }
+    asRole("lead");
+    const unknown = await call(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true, approvers: 1 });
+    expect(unknown.status).toBe(400);
+    expect(JSON.stringify(unknown.json.error.issues)).toMatch(/approvers/);
+    expect(await db.select().from(labRules).where(eq(labRules.labId, team.lab.id))).toEqual([]);
+    const ok = await call(putRules, { slug: team.lab.slug }, "PUT", { reviewPeriodMonths: 24 });
+    expect(ok).toMatchObject({ status: 200, json: { rules: { reviewPeriodMonths: 24, managersMayApprove: false } } });
+  });
+});
