@@ -261,20 +261,10 @@ export async function approveEdition(
   return { id: ed.id, number: ed.number, superseded: previous, reviewBy };
 }
 
-export async function rejectEdition(
-  tx: Tx,
-  {
-    labId,
-    editionId,
-    actor,
-    reason,
-  }: {
-    labId: number;
-    editionId: number;
-    actor: Actor;
-    reason: string;
-  },
-) {
+/** Who moves which edition, and why (sending back and withdrawing both need a reason). */
+type ReasonedChange = { labId: number; editionId: number; actor: Actor; reason: string };
+
+export async function rejectEdition(tx: Tx, { labId, editionId, actor, reason }: ReasonedChange) {
   const ed = await transition(tx, { labId, editionId, to: "returned" });
   await tx
     .update(editions)
@@ -292,20 +282,7 @@ export async function rejectEdition(
   return { id: ed.id, number: ed.number };
 }
 
-export async function withdrawEdition(
-  tx: Tx,
-  {
-    labId,
-    editionId,
-    actor,
-    reason,
-  }: {
-    labId: number;
-    editionId: number;
-    actor: Actor;
-    reason: string;
-  },
-) {
+export async function withdrawEdition(tx: Tx, { labId, editionId, actor, reason }: ReasonedChange) {
   const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
   await tx
     .update(editions)

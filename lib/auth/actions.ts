@@ -4,7 +4,6 @@ import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
 import { after } from "next/server";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
 import {
   acceptAsMemberSchema,
   acceptNewAccountSchema,
@@ -12,6 +11,7 @@ import {
   resetPasswordSchema,
 } from "@/lib/validation/auth";
 import { formValues, runAction, type ActionPayload, type ActionState } from "@/lib/http/action";
+import { parseInput } from "@/lib/ops/operation";
 import {
   acceptInvitationAsMember,
   acceptInvitationAsNewAccount,
@@ -20,7 +20,6 @@ import {
 } from "@/lib/ops/accounts";
 import { signIn, signOut } from "./config";
 import { throttledMessage } from "./throttle-policy";
-import type { z } from "zod";
 import { log } from "@/lib/log";
 
 const safeReturn = (url: string) =>
@@ -51,76 +50,49 @@ export async function signOutAction(): Promise<void> {
   await signOut({ redirectTo: "/sign-in?signedOut=1" });
 }
 
-function fieldErrors(error: z.ZodError): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of error.issues) out[issue.path.join(".") || "_"] ??= issue.message;
-  return out;
-}
-
 // Passwords are never sent back to the browser, even to refill a form.
-const withoutSecrets = (payload: ActionPayload) =>
-  Object.fromEntries(Object.entries(formValues(payload)).filter(([k]) => k !== "password" && k !== "confirm"));
+const SECRETS = { secret: ["password", "confirm"] };
 
 /** The same answer whether or not the address has an account; the e-mail goes out after responding. */
 export async function requestPasswordResetAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
-  const parsed = forgotPasswordSchema.safeParse(formValues(payload));
-  if (!parsed.success)
-    return {
-      ok: false,
-      message: "Please correct the highlighted field.",
-      fieldErrors: fieldErrors(parsed.error),
-      values: formValues(payload),
-    };
-  const { email } = parsed.data;
-  after(() =>
-    requestPasswordReset({ email }).catch((err) =>
-      log.error({ err, operation: "password-reset.mail" }, "password reset e-mail failed"),
-    ),
-  );
-  return {
-    ok: true,
-    message: `If an account uses ${email}, a link to choose a new password is on its way. It works once, for one hour.`,
-    values: { email },
-  };
+  return runAction(payload, async (_caller, values) => {
+    const { email } = parseInput(forgotPasswordSchema, values);
+    after(() =>
+      requestPasswordReset({ email }).catch((err) =>
+        log.error({ err, operation: "password-reset.mail" }, "password reset e-mail failed"),
+      ),
+    );
+    const message = `If an account uses ${email}, a link to choose a new password is on its way. It works once, for one hour.`;
+    return { ok: true, message, values: { email } };
+  });
 }
 
 export async function resetPasswordAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
-  const parsed = resetPasswordSchema.safeParse(formValues(payload));
-  if (!parsed.success)
-    return {
-      ok: false,
-      message: "Please correct the highlighted fields.",
-      fieldErrors: fieldErrors(parsed.error),
-      values: withoutSecrets(payload),
-    };
-  try {
-    await resetPassword({ token: parsed.data.token, password: parsed.data.password });
-  } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(payload) };
-    throw err;
-  }
-  redirect("/sign-in?reset=1");
+  return runAction(
+    payload,
+    async (_caller, values) => {
+      const { token, password } = parseInput(resetPasswordSchema, values);
+      await resetPassword({ token, password });
+      redirect("/sign-in?reset=1");
+    },
+    SECRETS,
+  );
 }
 
 /** Anyone holding a valid invitation link may create the invited account; the link is the key. */
 export async function acceptInvitationAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
-  const parsed = acceptNewAccountSchema.safeParse(formValues(payload));
-  if (!parsed.success)
-    return {
-      ok: false,
-      message: "Please correct the highlighted fields.",
-      fieldErrors: fieldErrors(parsed.error),
-      values: withoutSecrets(payload),
-    };
-  let joined: Awaited<ReturnType<typeof acceptInvitationAsNewAccount>>;
-  try {
-    joined = await acceptInvitationAsNewAccount(parsed.data);
-  } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message, values: withoutSecrets(payload) };
-    throw err;
-  }
-  redirect(
-    `/sign-in?${new URLSearchParams({ notice: "joined", email: joined.email, callbackUrl: `/labs/${joined.lab.slug}` })}`,
+  return runAction(
+    payload,
+    async (_caller, values) => {
+      const joined = await acceptInvitationAsNewAccount(parseInput(acceptNewAccountSchema, values));
+      const query = new URLSearchParams({
+        notice: "joined",
+        email: joined.email,
+        callbackUrl: `/labs/${joined.lab.slug}`,
+      });
+      redirect(`/sign-in?${query}`);
+    },
+    SECRETS,
   );
 }
 

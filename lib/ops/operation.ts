@@ -17,11 +17,18 @@ type ScopeId<S extends Scope> = S extends "chart" ? "chartId" : S extends "editi
 
 export type OpContext<K extends string> = { member: Member; actor: Actor; labId: number; ids: Record<K, number> };
 
+/** "roomId" -> "Room": the thing a bad id in the input fails to name. */
+const nounOf = (key: PropertyKey | undefined) =>
+  typeof key === "string" && key.endsWith("Id") && key.length > 2
+    ? key[0]!.toUpperCase() + key.slice(1, -2)
+    : undefined;
+
 /** Parses input with its zod schema: an id that cannot name a row is 404, anything else wrong is 400. */
 export function parseInput<S extends z.ZodType>(schema: S, raw: unknown, what = "That"): z.infer<S> {
   const parsed = schema.safeParse(raw);
   if (parsed.success) return parsed.data;
-  if (parsed.error.issues.some((i) => i.message === BAD_ID)) throw notFound(what);
+  const badId = parsed.error.issues.find((i) => i.message === BAD_ID);
+  if (badId) throw notFound(nounOf(badId.path.at(-1)) ?? what);
   throw invalidInput(parsed.error.issues);
 }
 

@@ -1,10 +1,15 @@
 import { z } from "zod";
-import { idField } from "./members";
 
 /** Keyset pages of a lab's audit log: `before` for older entries, `after` for newer. */
+const cursor = z.coerce
+  .number({ error: "Must be a number." })
+  .int("Must be a whole number.")
+  .positive("Must be a positive id.")
+  .max(Number.MAX_SAFE_INTEGER, "Too large.");
+
 export const auditQuerySchema = z.object({
-  before: idField.optional(),
-  after: idField.optional(),
+  before: cursor.optional(),
+  after: cursor.optional(),
   limit: z.coerce
     .number({ error: "Must be a number." })
     .int("Must be a whole number.")

@@ -14,16 +14,3 @@ export const roleField = z.enum(ROLES, { error: `Choose a role: ${ROLES.join(", 
 export const inviteSchema = z.object({ email: emailField, role: roleField });
 
 export const changeRoleSchema = z.object({ role: roleField });
-
-/** Ids in paths and hidden fields. */
-export const idField = z.coerce
-  .number({ error: "Must be a number." })
-  .int("Must be a whole number.")
-  .positive("Must be a positive id.")
-  .max(Number.MAX_SAFE_INTEGER, "Too large.");
-
-export const idParam = z.object({ id: idField });
-
-export const memberIdSchema = z.object({ membershipId: idField });
-export const memberRoleFormSchema = z.object({ membershipId: idField, role: roleField });
-export const invitationIdSchema = z.object({ invitationId: idField });

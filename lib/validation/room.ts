@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { freeText } from "./text";
-import { idParam } from "./edition";
+import { idSchema } from "./id";
 
 export const roomSchema = z
   .object({
@@ -14,4 +14,4 @@ export const roomSchema = z
   })
   .strict();
 
-export const postingSchema = z.object({ roomId: idParam }).strict();
+export const postingSchema = z.object({ roomId: idSchema }).strict();

@@ -136,15 +136,7 @@ export const stentSizePatch = sizeFields.partial().refine(atLeastOneField, NOTHI
 export type StentSizeInput = z.output<typeof stentSizeInput>;
 export type StentSizePatch = z.output<typeof stentSizePatch>;
 
-// ---------- URL parts ----------
-
-export const idParams = z.object({
-  id: z.coerce
-    .number({ error: "The id must be a positive whole number." })
-    .int("The id must be a positive whole number.")
-    .positive("The id must be a positive whole number.")
-    .max(Number.MAX_SAFE_INTEGER),
-});
+// ---------- query strings ----------
 
 const flag = z
   .enum(["1", "0", "true", "false"], { error: "Use 1 or 0 (or true or false)." })

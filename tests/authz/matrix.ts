@@ -464,7 +464,8 @@ export const ROUTES: RouteRow[] = [
     route: "/api/v1/editions/[id]/postings",
     url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/postings`,
     body: { roomId: "x" },
-    expect: everyoneSignedIn(400),
+    expect: everyoneSignedIn(404),
+    note: "a malformed room id names no room: 404, like a room of another lab",
   },
 
   // rooms, postings and the public check

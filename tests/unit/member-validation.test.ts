@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { invitationMail, passwordResetMail } from "@/lib/mail/templates";
 import { acceptNewAccountSchema, resetPasswordSchema } from "@/lib/validation/auth";
 import { auditQuerySchema } from "@/lib/validation/audit";
-import { changeRoleSchema, idParam, inviteSchema } from "@/lib/validation/members";
+import { idSchema } from "@/lib/validation/id";
+import { changeRoleSchema, inviteSchema } from "@/lib/validation/members";
 
 const token = "A".repeat(43);
 const issues = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>
@@ -23,8 +24,8 @@ describe("member and account input", () => {
   });
 
   it("accepts only positive whole ids and bounded audit pages", () => {
-    expect(idParam.parse({ id: "12" })).toEqual({ id: 12 });
-    for (const bad of ["0", "-1", "1.5", "abc", ""]) expect(idParam.safeParse({ id: bad }).success, bad).toBe(false);
+    expect(idSchema.parse("12")).toBe(12);
+    for (const bad of ["0", "-1", "1.5", "abc", ""]) expect(idSchema.safeParse(bad).success, bad).toBe(false);
     expect(auditQuerySchema.parse({})).toEqual({ limit: 50 });
     expect(auditQuerySchema.safeParse({ limit: "500" }).success).toBe(false);
   });
