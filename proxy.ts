@@ -2,12 +2,24 @@
 // boundary cannot set a status (and a rewrite's status is not kept), so the check happens here,
 // before rendering: a probe of the database, and on failure the outage page itself. Route
 // handlers under /api answer their own 503 JSON (lib/errors.ts); the calculator needs no database.
+// Server actions (POSTs to page paths) first get their body checked, so a broken one is a 400.
 import { NextResponse, type NextRequest } from "next/server";
 import { databaseReachable } from "@/db/health";
 import { env } from "@/lib/env";
+import { checkActionPayload, isActionRequest } from "@/lib/http/action-payload";
 import { outageHtml } from "@/lib/outage-page";
 
 export async function proxy(req: NextRequest) {
+  // A server action with a body the framework cannot decode is refused here with 400, not a 500.
+  if (isActionRequest(req.method, req.headers)) {
+    const check = await checkActionPayload(
+      req.headers.get("content-type"),
+      () => req.clone().text(),
+      () => req.clone().formData(),
+    );
+    if (!check.ok)
+      return NextResponse.json({ error: { code: "invalid_input", message: check.reason } }, { status: 400 });
+  }
   if (await databaseReachable(env.DATABASE_URL)) return NextResponse.next();
   const { pathname } = req.nextUrl;
   const kind = pathname.startsWith("/v/") || pathname.startsWith("/c/") ? "check" : "page";

@@ -1,4 +1,6 @@
 // The hardening probe's findings, over HTTP against the built server (server.mjs).
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { expect, test } from "@playwright/test";
 import { craftPng } from "../support/image-bombs";
 import { DEMO_PASSWORD, demoEmail, signInApi } from "./support/auth";
@@ -26,6 +28,27 @@ test("TRACE and unknown methods answer 405, never 500 (finding 13)", async ({ re
       const res = await request.fetch(url, { method });
       expect(res.status(), `${method} ${url}`).toBe(405);
     }
+  }
+});
+
+test("a server action with a body the framework cannot read answers 400, never 500 (finding 13)", async ({
+  request,
+}) => {
+  // A real action id from the build under test; the bodies are what a broken or hostile client sends.
+  const manifest = JSON.parse(
+    readFileSync(
+      path.join(process.env.NEXT_DIST_DIR ?? ".next-test", "server", "server-reference-manifest.json"),
+      "utf8",
+    ),
+  ) as { node: Record<string, unknown> };
+  const actionId = Object.keys(manifest.node)[0]!;
+  for (const contentType of ["text/plain;charset=UTF-8", "multipart/form-data; boundary=xyz"]) {
+    const res = await request.post("/sign-in", {
+      headers: { "next-action": actionId, "content-type": contentType },
+      data: "garbage{",
+    });
+    expect(res.status(), contentType).toBe(400);
+    expect((await res.json()).error.code).toBe("invalid_input");
   }
 });
 

@@ -7,6 +7,7 @@ import { balloonFamilies, balloons, editions, labRules } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { POST as rejectRoute } from "@/app/api/v1/editions/[id]/reject/route";
@@ -109,6 +110,27 @@ describe("sign-off routes", () => {
       status: "withdrawn",
       action: "take-down",
     });
+  });
+
+  it("four eyes over HTTP: a manager granted approval who edits the chart cannot approve its next edition", async () => {
+    // The attack: a manager rewrites the chart and has an educator press "Create edition".
+    asRole("lead");
+    const granted = await call(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true });
+    expect(granted.status).toBe(200);
+    asRole("manager");
+    const edited = await call(patchChartRoute, { id: String(chartId) }, "PATCH", { notes: "Manager's own words" });
+    expect(edited.status).toBe(200);
+    asRole("educator");
+    const created = await call(createEditionRoute, { id: String(chartId) }, "POST", {});
+    expect(created.status).toBe(201);
+    const before = await db.select().from(editions).where(eq(editions.id, created.json.id!));
+    asRole("manager");
+    expect((await call(approveRoute, { id: String(created.json.id) }, "POST", { reviewed: true })).status).toBe(403);
+    expect(await db.select().from(editions).where(eq(editions.id, created.json.id!))).toEqual(before);
+    asRole("lead");
+    expect((await call(approveRoute, { id: String(created.json.id) }, "POST", { reviewed: true })).status).toBe(200);
+    // Leave the lab as the other tests expect it: no rules recorded.
+    await db.delete(labRules).where(eq(labRules.labId, team.lab.id));
   });
 
   it("send back: returned with the reason, then approving it is 409", async () => {
