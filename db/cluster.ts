@@ -9,6 +9,7 @@ import { existsSync, mkdirSync, openSync, readFileSync, rmSync, writeFileSync } 
 import os from "node:os";
 import path from "node:path";
 import * as local from "./local-server";
+import { prepareDatabase } from "./provision";
 
 export const GALERA_PROVIDER = "/usr/lib/galera/libgalera_smm.so";
 
@@ -275,23 +276,7 @@ export async function provisionCluster(
   const { env } = await import("@/lib/env");
   if (new URL(env.DATABASE_URL).port !== String(nodes[0]!.port))
     throw new Error("provisionCluster: lib/env was loaded before DB_PORT pointed at node 1");
-  await local.ensureDatabase(nodes[0]!, {
-    database: env.DB_NAME,
-    user: env.DB_USER,
-    password: env.DB_PASSWORD,
-    fresh: opts.fresh,
-  });
-  const { db, pool } = await import("./index");
-  const { runMigrations } = await import("./migrate");
-  try {
-    await runMigrations(db);
-    if (opts.seed !== false) {
-      const { seedDemo } = await import("./seed");
-      await seedDemo(db);
-    }
-  } finally {
-    await pool.end();
-  }
+  await prepareDatabase(nodes[0]!, env, { fresh: opts.fresh, seed: opts.seed });
   opts.log?.(`database ${env.DB_NAME} migrated${opts.seed !== false ? " and seeded" : ""} through node1`);
   return env;
 }

@@ -1,6 +1,7 @@
 // Can the cell figures be read from where the operator stands? Human-factors guidance asks
-// characters to subtend at least about 20 minutes of arc at the reading distance (value from
-// memory, PRODUCT.md): the required height is h = 2·d·tan(θ/2), about 5.82 mm per metre.
+// characters to subtend at least 16 and preferably 20-22 minutes of arc at the reading distance
+// (US NRC NUREG-0700; ISO 9241-3; the figures are from memory, not checked against the texts):
+// the required height is h = 2·d·tan(θ/2), about 5.82 mm per metre at 20'.
 import { layoutPoster, type LayoutInput } from "./layout";
 import { PAPERS, ptToMm, type PaperId } from "./paper";
 
