@@ -133,7 +133,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             const file = e.target.files?.[0];
             if (file) void check(file);
           }}
-          className="mx-auto mt-3 block text-sm file:mr-3 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5 file:font-semibold"
+          className="mx-auto mt-3 block w-full max-w-full text-sm file:mr-3 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5 file:font-semibold"
         />
         <p className="mt-2 text-xs text-ink-faint">
           UTF-8 text, up to {megabytes(MAX_IMPORT_BYTES)} MB and {MAX_IMPORT_ROWS.toLocaleString("en")} lines.
@@ -142,7 +142,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
 
       <details className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm">
         <summary className="cursor-pointer font-medium">What the file looks like</summary>
-        <div className="mt-2 space-y-2 text-ink-soft">
+        <div className="mt-2 space-y-2 text-ink-soft [overflow-wrap:anywhere]">
           <p>
             First line: the column names <code>family,compliance,diameter_mm,in_stock</code>, optionally followed by{" "}
             <code>nominal_atm,rbp_atm,growth_at_rbp_mm</code>. Then one line per balloon size. Commas or semicolons
