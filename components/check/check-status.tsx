@@ -30,14 +30,15 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
         data-testid="check-status"
         data-status={check.status}
       >
-        <p className="flex items-center gap-3 text-5xl font-bold leading-none sm:text-6xl">
+        {/* The status word scales with the screen so "Superseded" fits a 320 px phone whole. */}
+        <p className="flex items-center gap-3 text-[clamp(1.5rem,8.5vw,3.75rem)] font-bold leading-none">
           <span
             aria-hidden
-            className="inline-flex h-14 w-14 shrink-0 items-center justify-center rounded-full border-4 border-current text-4xl"
+            className="inline-flex h-11 w-11 shrink-0 items-center justify-center rounded-full border-4 border-current text-3xl sm:h-14 sm:w-14 sm:text-4xl"
           >
             {look.symbol}
           </span>
-          {CHECK_HEADLINES[check.status]}
+          <span className="min-w-0 [overflow-wrap:anywhere]">{CHECK_HEADLINES[check.status]}</span>
         </p>
         {since ? (
           <p className="mt-3 text-base font-medium text-ink">
