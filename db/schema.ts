@@ -61,6 +61,12 @@ export const labs = mysqlTable("labs", {
   stockRevision: int("stock_revision").notNull().default(0),
   /** Demo labs print the "invented and illustrative" clause in their caution. */
   isDemo: boolean("is_demo").notNull().default(false),
+  /** IANA time zone every date on pages, posters and mail is shown in (lib/format). */
+  timeZone: varchar("time_zone", { length: 64 }).notNull().default("UTC"),
+  /** Decimal separator printed on posters: "point" (3.25) or "comma" (3,25). */
+  numberFormat: mysqlEnum("number_format", ["point", "comma"]).notNull().default("point"),
+  /** Whom to ask, shown on the check page ("ask the charge nurse in the control room"). */
+  contactLine: varchar("contact_line", { length: 200 }),
   createdAt: createdAt(),
 });
 
@@ -253,6 +259,8 @@ export const charts = mysqlTable(
     createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: when("updated_at"),
+    /** An archived chart leaves the lists and keeps its editions; its posted copies read take-down. */
+    archivedAt: when("archived_at"),
   },
   (t) => [index("charts_lab_idx").on(t.labId)],
 );
@@ -272,6 +280,8 @@ export const editions = mysqlTable(
     snapshot: jsonText<unknown>("snapshot").notNull(),
     fingerprint: char("fingerprint", { length: 64 }).notNull(),
     checkToken: varchar("check_token", { length: 64 }).notNull().unique(),
+    /** Typable code printed under the QR (lib/editions/short-code.ts); `/c/<code>` leads to the check page. */
+    shortCode: char("short_code", { length: 8 }).notNull().unique(),
     createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     approvedBy: ref("approved_by").references(() => users.id, { onDelete: "set null" }),

@@ -5,6 +5,7 @@ import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
+import { newShortCode } from "@/lib/editions/short-code";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
 import { reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
@@ -111,9 +112,20 @@ export async function createEdition(
     .where(eq(editions.chartId, chartId));
   const number = (last?.n ?? 0) + 1;
   const checkToken = newCheckToken();
+  const shortCode = newShortCode();
   const [row] = await tx
     .insert(editions)
-    .values({ labId, chartId, number, status: "draft", snapshot, fingerprint, checkToken, createdBy: actor.id })
+    .values({
+      labId,
+      chartId,
+      number,
+      status: "draft",
+      snapshot,
+      fingerprint,
+      checkToken,
+      shortCode,
+      createdBy: actor.id,
+    })
     .$returningId();
   await refreshLiveSnapshots(tx, labId);
   await recordAudit({
