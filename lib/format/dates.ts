@@ -1,0 +1,44 @@
+/**
+ * The one date format on pages, posters and mail: ISO 8601 calendar dates (2026-12-02) and
+ * 24-hour times (14:05), shown in the lab's IANA time zone (labs.time_zone). Year-month-day is
+ * the order ISO 8601 prescribes and cannot be misread as day-month or month-day.
+ */
+export const DEFAULT_TIME_ZONE = "UTC";
+
+/** True when the runtime's time-zone database knows the IANA name. */
+export function isTimeZone(name: string): boolean {
+  if (typeof name !== "string" || name.length === 0 || name.length > 64) return false;
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function parts(date: Date, timeZone: string) {
+  const fmt = new Intl.DateTimeFormat("en-US", {
+    timeZone,
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+    hour: "2-digit",
+    minute: "2-digit",
+    hourCycle: "h23",
+  });
+  const out: Record<string, string> = {};
+  for (const p of fmt.formatToParts(date)) out[p.type] = p.value;
+  return out as { year: string; month: string; day: string; hour: string; minute: string };
+}
+
+/** 2026-12-02 */
+export function formatDate(date: Date, timeZone: string = DEFAULT_TIME_ZONE): string {
+  const p = parts(date, timeZone);
+  return `${p.year}-${p.month}-${p.day}`;
+}
+
+/** 2026-12-02 14:05 */
+export function formatDateTime(date: Date, timeZone: string = DEFAULT_TIME_ZONE): string {
+  const p = parts(date, timeZone);
+  return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}`;
+}
