@@ -132,12 +132,39 @@ export const passwordResets = mysqlTable(
   (t) => [index("password_resets_user_idx").on(t.userId)],
 );
 
+/**
+ * Machine tokens a lab's manager creates for its inventory system (lib/auth/machine-tokens.ts):
+ * only the SHA-256 of the token is stored; revoked tokens stay so the audit log keeps their name.
+ */
+export const labTokens = mysqlTable(
+  "lab_tokens",
+  {
+    id: id(),
+    labId: ref("lab_id")
+      .notNull()
+      .references(() => labs.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 80 }).notNull(),
+    tokenHash: char("token_hash", { length: 64 }).notNull().unique(),
+    /** The first characters of the token (prefix included), so a person can tell tokens apart. */
+    hint: varchar("hint", { length: 16 }).notNull(),
+    scopes: jsonText<string[]>("scopes").notNull(),
+    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    lastUsedAt: when("last_used_at"),
+    revokedAt: when("revoked_at"),
+    revokedBy: ref("revoked_by").references(() => users.id, { onDelete: "set null" }),
+  },
+  (t) => [index("lab_tokens_lab_idx").on(t.labId)],
+);
+
 export const auditEvents = mysqlTable(
   "audit_events",
   {
     id: id(),
     labId: ref("lab_id").references(() => labs.id, { onDelete: "cascade" }),
     actorUserId: ref("actor_user_id").references(() => users.id, { onDelete: "set null" }),
+    /** Set instead of actor_user_id when a machine token made the change (shown as "token <name>"). */
+    actorTokenId: ref("actor_token_id").references(() => labTokens.id, { onDelete: "set null" }),
     action: varchar("action", { length: 64 }).notNull(),
     targetType: varchar("target_type", { length: 32 }),
     targetId: varchar("target_id", { length: 64 }),

@@ -15,6 +15,7 @@ export const CAPABILITIES = {
   "stock:edit": ["manager"],
   "members:manage": ["manager"],
   "rooms:manage": ["manager"],
+  "settings:manage": ["manager"],
   "audit:read": ["manager"],
   "chart:design": ["manager", "educator"],
   "edition:create": ["manager", "educator"],

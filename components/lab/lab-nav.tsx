@@ -8,6 +8,7 @@ const TABS: { href: string; label: string; capability: Capability }[] = [
   { href: "/rooms", label: "Rooms", capability: "lab:read" },
   { href: "/members", label: "Members", capability: "members:manage" },
   { href: "/audit", label: "Audit log", capability: "audit:read" },
+  { href: "/settings", label: "Settings", capability: "lab:read" },
 ];
 
 /** Tabs a role may open; the pages themselves still check on the server. */

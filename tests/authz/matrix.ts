@@ -547,6 +547,40 @@ export const ROUTES: RouteRow[] = [
   stockWrite("PATCH", "/sizes/[id]", "/sizes/0", {}),
   stockWrite("DELETE", "/sizes/[id]", "/sizes/0"),
   { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
+
+  // ---- tokens area: lab settings and machine tokens ----
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/settings",
+    url: `${lab("demo")}/settings`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/settings",
+    url: `${lab(NO_LAB)}/settings`,
+    expect: everyoneSignedIn(404),
+  },
+  {
+    kind: "route",
+    method: "PATCH",
+    route: "/api/v1/labs/[slug]/settings",
+    url: `${lab("demo")}/settings`,
+    body: { timeZone: "Nowhere/Nothing" },
+    expect: managerBadInput(),
+    note: "not an IANA name: refused whole, nothing changes",
+  },
+  {
+    kind: "route",
+    method: "PATCH",
+    route: "/api/v1/labs/[slug]/settings",
+    url: `${lab("demo-north")}/settings`,
+    body: { isDemo: false },
+    expect: managerBadInput(404),
+    note: "the demo flag is the seed's; the operator is not in demo-north",
+  },
 ];
 
 const ANYONE = ["anonymous", ...ALL_ROLES] as const;
@@ -557,6 +591,7 @@ const CHECK_ACTIONS = "app/(public)/v/[token]/actions.ts";
 const LAB_ACTIONS = "app/(lab)/labs/[slug]/actions.ts";
 const STOCK_ACTIONS = "app/(lab)/labs/[slug]/stock/actions.ts";
 const AUTH_ACTIONS = "lib/auth/actions.ts";
+const SETTINGS_ACTIONS = "app/(lab)/labs/[slug]/settings/actions.ts";
 
 export const ACTIONS: ActionRow[] = [
   {
@@ -648,6 +683,8 @@ export const ACTIONS: ActionRow[] = [
     allowed: ALL_ROLES,
     note: "members of the edition's own lab",
   },
+  // ---- tokens area: lab settings and machine tokens ----
+  { kind: "action", file: SETTINGS_ACTIONS, name: "updateLabSettingsAction", allowed: ["manager"] },
   {
     kind: "action",
     file: LAB_ACTIONS,

@@ -192,6 +192,9 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   deletePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId }),
   deleteSizeAction: (t) => ({ slug: t.lab.slug, sizeId: stent.sizeId }),
   importStockAction: (t) => form({ slug: t.lab.slug, file: csv() }),
+  // tokens area
+  updateLabSettingsAction: (t) =>
+    form({ slug: t.lab.slug, name: "Renamed lab", timeZone: "Europe/Berlin", numberFormat: "comma", contactLine: "" }),
 };
 
 async function snapshot(labId: number) {
@@ -211,7 +214,16 @@ async function snapshot(labId: number) {
     db.select().from(stentPlatforms).where(eq(stentPlatforms.labId, labId)),
     db.select().from(stentSizes).where(eq(stentSizes.labId, labId)),
     db.select({ id: logos.id }).from(logos).where(eq(logos.labId, labId)),
-    db.select({ revision: labs.stockRevision }).from(labs).where(eq(labs.id, labId)),
+    db
+      .select({
+        revision: labs.stockRevision,
+        name: labs.name,
+        timeZone: labs.timeZone,
+        numberFormat: labs.numberFormat,
+        contactLine: labs.contactLine,
+      })
+      .from(labs)
+      .where(eq(labs.id, labId)),
   ]);
   return {
     memberships: m,
@@ -225,6 +237,7 @@ async function snapshot(labId: number) {
     postings: p,
     stock: { families: f, balloons: b, platforms: sp, sizes: ss, revision: lab[0]?.revision },
     logos: l.length,
+    settings: lab[0] && { ...lab[0], revision: undefined },
   };
 }
 
@@ -245,6 +258,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(public)/v/[token]/actions.ts": () => import("@/app/(public)/v/[token]/actions"),
   "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
   "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
+  "app/(lab)/labs/[slug]/settings/actions.ts": () => import("@/app/(lab)/labs/[slug]/settings/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);

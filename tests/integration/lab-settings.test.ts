@@ -1,0 +1,174 @@
+// The lab settings routes as a client calls them: members read, managers change, every bad field
+// refused with 400 naming it and nothing changed; each change audited with only what changed.
+import { and, desc, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { db, pool } from "@/db";
+import { auditEvents, labs } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session";
+import { env } from "@/lib/env";
+import { GET, PATCH } from "@/app/api/v1/labs/[slug]/settings/route";
+import { labWithTeam } from "./support/fixtures";
+
+const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
+vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+
+let team: Awaited<ReturnType<typeof labWithTeam>>;
+type Who = "manager" | "lead" | "educator" | "operator" | "outsider" | "anonymous";
+const as = (who: Who) => {
+  session.user = who === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[who]);
+};
+
+async function call(method: "GET" | "PATCH", body?: unknown, slug = team.lab.slug) {
+  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
+  if (body !== undefined) headers["content-type"] = "application/json";
+  const handler = method === "GET" ? GET : PATCH;
+  const res = await handler(
+    new Request(`${env.APP_URL}/api/v1/labs/${slug}/settings`, {
+      method,
+      headers,
+      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
+    }),
+    { params: Promise.resolve({ slug }) },
+  );
+  type Answer = {
+    changed: string[];
+    settings: Record<string, unknown>;
+    error: { issues: { path: string[]; message: string }[] };
+  } & Record<string, unknown>;
+  return { status: res.status, json: (await res.json()) as Answer };
+}
+
+const labRow = async () => (await db.select().from(labs).where(eq(labs.id, team.lab.id)))[0]!;
+const auditCount = async () =>
+  (await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.labId, team.lab.id))).length;
+
+beforeAll(async () => {
+  team = await labWithTeam();
+});
+afterAll(async () => {
+  await pool.end();
+});
+
+describe("GET /api/v1/labs/:slug/settings", () => {
+  it("every member reads the settings, with the defaults of a new lab", async () => {
+    for (const who of ["manager", "lead", "educator", "operator"] as const) {
+      as(who);
+      const res = await call("GET");
+      expect(res.status).toBe(200);
+      expect(res.json).toEqual({
+        name: team.lab.name,
+        timeZone: "UTC",
+        numberFormat: "point",
+        contactLine: null,
+        isDemo: false,
+      });
+    }
+  });
+
+  it("is 401 for nobody and 404 for a manager of another lab", async () => {
+    as("anonymous");
+    expect((await call("GET")).status).toBe(401);
+    as("outsider");
+    expect((await call("GET")).status).toBe(404);
+  });
+});
+
+describe("PATCH /api/v1/labs/:slug/settings", () => {
+  it("refuses every role but the manager (403) and changes nothing", async () => {
+    const before = await labRow();
+    const audits = await auditCount();
+    for (const who of ["lead", "educator", "operator"] as const) {
+      as(who);
+      expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(403);
+    }
+    as("outsider");
+    expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(404);
+    as("anonymous");
+    expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(401);
+    expect(await labRow()).toEqual(before);
+    expect(await auditCount()).toBe(audits);
+  });
+
+  it.each([
+    [{ timeZone: "Mars/Olympus_Mons" }, "timeZone", /IANA/],
+    [{ timeZone: 3 }, "timeZone", /text/],
+    [{ numberFormat: "dot" }, "numberFormat", /point.*comma/],
+    [{ name: "" }, "name", /lab name/i],
+    [{ name: "x".repeat(161) }, "name", /160/],
+    [{ contactLine: "ask\u202Ethe nurse" }, "contactLine", /direction/],
+    [{ contactLine: "line one\nline two" }, "contactLine", /line breaks/],
+    [{ contactLine: 7 }, "contactLine", /text/],
+    [{ isDemo: false }, "isDemo", /seed/],
+    [{ timezone: "UTC" }, "timezone", /Unknown setting/],
+  ])("refuses %j with 400 naming %s, changing nothing", async (body, field, message) => {
+    as("manager");
+    const before = await labRow();
+    const audits = await auditCount();
+    // A good field beside the bad one is not applied either.
+    const res = await call("PATCH", { ...body, contactLine: (body as { contactLine?: unknown }).contactLine ?? "ok" });
+    expect(res.status).toBe(400);
+    const issue = res.json.error.issues.find((i) => i.path[0] === field);
+    expect(issue?.message).toMatch(message);
+    expect(await labRow()).toEqual(before);
+    expect(await auditCount()).toBe(audits);
+  });
+
+  it("refuses a body that is not JSON (415) or not an object (400)", async () => {
+    as("manager");
+    const res = await PATCH(
+      new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/settings`, {
+        method: "PATCH",
+        headers: { origin: new URL(env.APP_URL).origin, "content-type": "text/plain" },
+        body: JSON.stringify({ timeZone: "UTC" }),
+      }),
+      { params: Promise.resolve({ slug: team.lab.slug }) },
+    );
+    expect(res.status).toBe(415);
+    expect((await call("PATCH", ["timeZone"])).status).toBe(400);
+  });
+
+  it("a manager changes some settings; the audit row holds only the changed fields", async () => {
+    as("manager");
+    const res = await call("PATCH", {
+      timeZone: "America/Sao_Paulo",
+      numberFormat: "comma",
+      contactLine: "  ask the charge nurse in the control room ",
+      name: team.lab.name,
+    });
+    expect(res.status).toBe(200);
+    expect(res.json.changed.sort()).toEqual(["contactLine", "numberFormat", "timeZone"]);
+    expect(res.json.settings).toMatchObject({
+      timeZone: "America/Sao_Paulo",
+      numberFormat: "comma",
+      contactLine: "ask the charge nurse in the control room",
+      name: team.lab.name,
+    });
+    const row = await labRow();
+    expect(row).toMatchObject({ timeZone: "America/Sao_Paulo", numberFormat: "comma" });
+    const [audit] = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.labId, team.lab.id), eq(auditEvents.action, "lab.settings_updated")))
+      .orderBy(desc(auditEvents.id));
+    expect(audit?.actorUserId).toBe(team.people.manager.id);
+    expect(audit?.detail).toEqual({
+      before: { timeZone: "UTC", numberFormat: "point", contactLine: null },
+      after: {
+        timeZone: "America/Sao_Paulo",
+        numberFormat: "comma",
+        contactLine: "ask the charge nurse in the control room",
+      },
+    });
+  });
+
+  it("the same values again change nothing and write no audit row; an empty contact line clears it", async () => {
+    as("manager");
+    const audits = await auditCount();
+    const same = await call("PATCH", { timeZone: "America/Sao_Paulo" });
+    expect(same.json.changed).toEqual([]);
+    expect(await auditCount()).toBe(audits);
+    const cleared = await call("PATCH", { contactLine: "" });
+    expect(cleared.json.settings.contactLine).toBeNull();
+    expect((await labRow()).contactLine).toBeNull();
+  });
+});
