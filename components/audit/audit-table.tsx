@@ -1,25 +1,17 @@
 import type { AuditEntry } from "@/lib/ops/audit";
 import { describeAction, describeDetail } from "@/lib/audit/describe";
+import { formatDateTime } from "@/lib/format/dates";
 
-const when = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "short",
-  year: "numeric",
-  hour: "2-digit",
-  minute: "2-digit",
-  second: "2-digit",
-  timeZone: "UTC",
-});
-
-export function AuditTable({ events }: { events: AuditEntry[] }) {
+/** The lab's audit events; times in the lab's IANA time zone. */
+export function AuditTable({ events, timeZone }: { events: AuditEntry[]; timeZone: string }) {
   return (
     <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full min-w-[48rem] text-left text-sm">
-        <caption className="sr-only">Audit log, newest first (times in UTC)</caption>
+        <caption className="sr-only">Audit log, newest first (times in {timeZone})</caption>
         <thead className="border-b border-line bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
           <tr>
             <th scope="col" className="px-4 py-2">
-              When (UTC)
+              When ({timeZone})
             </th>
             <th scope="col" className="px-4 py-2">
               Who
@@ -38,7 +30,7 @@ export function AuditTable({ events }: { events: AuditEntry[] }) {
             return (
               <tr key={e.id} className="border-b border-line align-top last:border-0" data-action={e.action}>
                 <td className="whitespace-nowrap px-4 py-2 tabular-nums">
-                  <time dateTime={e.createdAt.toISOString()}>{when.format(e.createdAt)}</time>
+                  <time dateTime={e.createdAt.toISOString()}>{formatDateTime(e.createdAt, timeZone)}</time>
                 </td>
                 <td className="px-4 py-2">
                   {e.actorName ? (

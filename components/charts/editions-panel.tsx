@@ -11,6 +11,7 @@ import { Button, buttonClass } from "@/components/ui/button";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { useServerAction, type Action } from "@/components/ui/use-server-action";
 import type { EditionStatus } from "@/lib/editions/states";
+import { formatDate, formatDateTime } from "@/lib/format/dates";
 
 export type EditionRow = {
   id: number;
@@ -29,20 +30,21 @@ export type EditionRow = {
   matchesToday: boolean;
 };
 
-const date = (iso: string) =>
-  new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC";
-
 export function EditionsPanel({
   slug,
   chartId,
   editions,
   can,
+  timeZone,
 }: {
   slug: string;
   chartId: number;
   editions: EditionRow[];
   can: { create: boolean; approve: boolean; withdraw: boolean };
+  /** The lab's IANA time zone: dates are shown in it. */
+  timeZone: string;
 }) {
+  const date = (iso: string) => formatDateTime(new Date(iso), timeZone);
   const { run: runAction, pending, state: notice } = useServerAction(createEditionAction);
   const [rejecting, setRejecting] = useState<number | null>(null);
   const [reason, setReason] = useState("");
@@ -104,7 +106,9 @@ export function EditionsPanel({
               <p className="mt-1 text-sm text-ink-soft">
                 Drafted by {e.createdByName ?? "a former member"} on {date(e.createdAt)}
                 {e.approvedAt ? ` · approved by ${e.approvedByName} on ${date(e.approvedAt)}` : ""}
-                {e.reviewBy && e.status === "approved" ? ` · due for review by ${date(e.reviewBy)}` : ""}
+                {e.reviewBy && e.status === "approved"
+                  ? ` · due for review by ${formatDate(new Date(e.reviewBy), timeZone)}`
+                  : ""}
               </p>
               {e.rejectionReason && e.status === "returned" ? (
                 <p className="mt-1 text-sm text-warn">Sent back: {e.rejectionReason}</p>

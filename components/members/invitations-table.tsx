@@ -7,6 +7,7 @@ import { ROLE_LABELS, type Role } from "@/lib/permissions";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
+import { formatDateTime } from "@/lib/format/dates";
 
 export type InvitationView = {
   id: number;
@@ -18,20 +19,21 @@ export type InvitationView = {
   invitedByName: string | null;
 };
 
-const when = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "short",
-  hour: "2-digit",
-  minute: "2-digit",
-  timeZone: "UTC",
-  timeZoneName: "short",
-});
-
 async function invitationIntent(prev: ActionState, form: FormData): Promise<ActionState> {
   return form.get("intent") === "revoke" ? revokeInvitationAction(prev, form) : resendInvitationAction(prev, form);
 }
 
-export function InvitationsTable({ slug, invitations }: { slug: string; invitations: InvitationView[] }) {
+export function InvitationsTable({
+  slug,
+  invitations,
+  timeZone,
+}: {
+  slug: string;
+  invitations: InvitationView[];
+  /** The lab's IANA time zone: times are shown in it. */
+  timeZone: string;
+}) {
+  const when = (d: Date) => formatDateTime(d, timeZone);
   const [state, action, pending] = useActionState<ActionState, FormData>(invitationIntent, {});
   // Stays mounted when the list empties, so the outcome of the last revoke stays on screen.
   return (
@@ -74,12 +76,12 @@ export function InvitationsTable({ slug, invitations }: { slug: string; invitati
                       <span className="font-medium text-warn">Expired</span>
                     ) : (
                       <span>
-                        Pending <span className="text-ink-faint">until {when.format(inv.expiresAt)}</span>
+                        Pending <span className="text-ink-faint">until {when(inv.expiresAt)}</span>
                       </span>
                     )}
                   </td>
                   <td className="px-4 py-2 text-ink-soft">
-                    {when.format(inv.lastSentAt)}
+                    {when(inv.lastSentAt)}
                     {inv.invitedByName ? (
                       <span className="block text-xs text-ink-faint">by {inv.invitedByName}</span>
                     ) : null}

@@ -14,18 +14,29 @@ import type { ActionState } from "@/lib/http/action";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/permissions";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
+import { formatDate } from "@/lib/format/dates";
 
 export type MemberView = { id: number; userId: number; name: string; email: string; role: Role; joinedAt: Date };
 
 const col = createColumnHelper<MemberView>();
-const dateFmt = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 // One state for every row's forms, so the outcome stays on screen even when the row goes away.
 async function memberIntent(prev: ActionState, form: FormData): Promise<ActionState> {
   return form.get("intent") === "remove" ? removeMemberAction(prev, form) : changeMemberRoleAction(prev, form);
 }
 
-export function MembersTable({ slug, members, meUserId }: { slug: string; members: MemberView[]; meUserId: number }) {
+export function MembersTable({
+  slug,
+  members,
+  meUserId,
+  timeZone,
+}: {
+  slug: string;
+  members: MemberView[];
+  meUserId: number;
+  /** The lab's IANA time zone: dates are shown in it. */
+  timeZone: string;
+}) {
   const [state, action, pending] = useActionState<ActionState, FormData>(memberIntent, {});
   const [sorting, setSorting] = useState<SortingState>([]);
   const managers = members.filter((m) => m.role === "manager").length;
@@ -87,7 +98,7 @@ export function MembersTable({ slug, members, meUserId }: { slug: string; member
     }),
     col.accessor("joinedAt", {
       header: "Joined",
-      cell: (c) => <span className="whitespace-nowrap text-ink-soft">{dateFmt.format(c.getValue())}</span>,
+      cell: (c) => <span className="whitespace-nowrap text-ink-soft">{formatDate(c.getValue(), timeZone)}</span>,
     }),
     col.display({
       id: "actions",

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { EmptyState } from "@/components/ui/empty-state";
 import { describeStockChange, STOCK_ACTION_LABELS } from "@/lib/stock/history";
+import { formatDateTime } from "@/lib/format/dates";
 
 export type StockHistoryEvent = {
   id: number;
@@ -13,7 +14,6 @@ export type StockHistoryEvent = {
 // A big import can touch thousands of sizes; the page lists the first of them.
 const ROWS_SHOWN = 200;
 
-const when = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 const summaryOf = (detail: unknown) =>
   typeof detail === "object" && detail && "summary" in detail ? String((detail as { summary: unknown }).summary) : "";
 const revisionOf = (detail: unknown) =>
@@ -26,11 +26,15 @@ export function StockHistory({
   slug,
   events,
   olderCursor,
+  timeZone,
 }: {
   slug: string;
   events: StockHistoryEvent[];
   olderCursor: number | null;
+  /** The lab's IANA time zone: times are shown in it. */
+  timeZone: string;
 }) {
+  const when = (d: Date) => formatDateTime(d, timeZone);
   return (
     <section aria-labelledby="stock-history-heading" className="space-y-3">
       <div>

@@ -14,7 +14,15 @@ export type CheckView = {
   since: Date | null;
   edition: { id: number; number: number; approvedAt: Date | null };
   chart: { id: number; title: string };
-  lab: { id: number; slug: string; name: string; isDemo: boolean };
+  lab: {
+    id: number;
+    slug: string;
+    name: string;
+    isDemo: boolean;
+    timeZone: string;
+    numberFormat: "point" | "comma";
+    contactLine: string | null;
+  };
   changes: Change[];
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
 };
@@ -31,7 +39,15 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
         liveSnapshot: charts.liveSnapshot,
         liveChangedAt: charts.liveChangedAt,
       },
-      lab: { id: labs.id, slug: labs.slug, name: labs.name, isDemo: labs.isDemo },
+      lab: {
+        id: labs.id,
+        slug: labs.slug,
+        name: labs.name,
+        isDemo: labs.isDemo,
+        timeZone: labs.timeZone,
+        numberFormat: labs.numberFormat,
+        contactLine: labs.contactLine,
+      },
     })
     .from(editions)
     .innerJoin(charts, eq(charts.id, editions.chartId))

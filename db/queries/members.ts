@@ -39,6 +39,9 @@ export async function findLabWithRole({ userId, ...lab }: { userId: number } & (
       name: labs.name,
       stockRevision: labs.stockRevision,
       isDemo: labs.isDemo,
+      timeZone: labs.timeZone,
+      numberFormat: labs.numberFormat,
+      contactLine: labs.contactLine,
       role: memberships.role,
     })
     .from(labs)

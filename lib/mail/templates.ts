@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import { ROLE_LABELS, type Role } from "@/lib/permissions";
 
 // Plain-text messages (with an equivalent minimal HTML part) for the e-mails Forkwall sends.
@@ -6,8 +7,14 @@ export type MailContent = { subject: string; text: string; html: string };
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
+/** The one date format (lib/format/dates.ts) with the zone named, for text read outside the app. */
+export function formatInZone(date: Date, timeZone: string): string {
+  return `${formatDateTime(date, timeZone)} ${timeZone === "UTC" ? "UTC" : `(${timeZone})`}`;
+}
+
+/** For mail about an account rather than a lab (password resets): no lab zone applies. */
 export function formatUtc(date: Date): string {
-  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+  return formatInZone(date, "UTC");
 }
 
 function toHtml(paragraphs: string[], link: { href: string; label: string }): string {
@@ -26,11 +33,13 @@ export function invitationMail(p: {
   inviterName: string;
   link: string;
   expiresAt: Date;
+  /** The lab's IANA time zone; the expiry is shown in it. */
+  timeZone?: string;
 }): MailContent {
   const paragraphs = [
     `${p.inviterName} invites you to join ${p.labName} on Forkwall as ${ROLE_LABELS[p.role].toLowerCase()}.`,
     `Accept the invitation here:\n${p.link}`,
-    `The link works once and expires at ${formatUtc(p.expiresAt)}. If you already have a Forkwall account under this address, sign in with it to accept.`,
+    `The link works once and expires at ${formatInZone(p.expiresAt, p.timeZone ?? "UTC")}. If you already have a Forkwall account under this address, sign in with it to accept.`,
     "If you did not expect this invitation, you can ignore this e-mail.",
   ];
   return {

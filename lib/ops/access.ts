@@ -11,7 +11,19 @@ import type { Caller } from "./caller";
 
 export type Member = {
   user: SessionUser;
-  lab: { id: number; slug: string; name: string; stockRevision: number; isDemo: boolean };
+  lab: {
+    id: number;
+    slug: string;
+    name: string;
+    stockRevision: number;
+    isDemo: boolean;
+    /** IANA zone for every date shown for this lab (lib/format/dates.ts). */
+    timeZone: string;
+    /** Decimal separator printed on posters (lib/format/numbers.ts). */
+    numberFormat: "point" | "comma";
+    /** Whom to ask, for the check page. */
+    contactLine: string | null;
+  };
   role: Role;
 };
 

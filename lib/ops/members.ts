@@ -20,7 +20,14 @@ async function mailInvitation(member: Member, to: string, role: Role, token: str
     const link = invitationLink(token);
     await sendMail({
       to,
-      ...invitationMail({ labName: member.lab.name, role, inviterName: member.user.name, link, expiresAt }),
+      ...invitationMail({
+        labName: member.lab.name,
+        role,
+        inviterName: member.user.name,
+        link,
+        expiresAt,
+        timeZone: member.lab.timeZone,
+      }),
     });
     return true;
   } catch (err) {

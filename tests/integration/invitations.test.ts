@@ -22,7 +22,7 @@ beforeAll(async () => {
   team = await labWithTeam();
   manager = {
     user: { id: team.people.manager.id, email: team.people.manager.email, name: team.people.manager.name },
-    lab: { ...team.lab, stockRevision: 0, isDemo: false },
+    lab: { ...team.lab, stockRevision: 0, isDemo: false, timeZone: "UTC", numberFormat: "point", contactLine: null },
     role: "manager",
   };
 });

@@ -7,7 +7,9 @@ import { auditEvents, labs } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { GET, PATCH } from "@/app/api/v1/labs/[slug]/settings/route";
-import { labWithTeam } from "./support/fixtures";
+import { POST as inviteRoute } from "@/app/api/v1/labs/[slug]/invitations/route";
+import { formatDateTime } from "@/lib/format/dates";
+import { labWithTeam, mailTo, unique } from "./support/fixtures";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
@@ -170,5 +172,28 @@ describe("PATCH /api/v1/labs/:slug/settings", () => {
     const cleared = await call("PATCH", { contactLine: "" });
     expect(cleared.json.settings.contactLine).toBeNull();
     expect((await labRow()).contactLine).toBeNull();
+  });
+});
+
+describe("dates in the lab's time zone", () => {
+  it("an invitation e-mail shows its expiry in the zone the manager chose, in the one format", async () => {
+    as("manager");
+    expect((await call("PATCH", { timeZone: "Pacific/Auckland" })).status).toBe(200);
+    const email = `${unique("tz")}@example.test`;
+    const res = await inviteRoute(
+      new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/invitations`, {
+        method: "POST",
+        headers: { origin: new URL(env.APP_URL).origin, "content-type": "application/json" },
+        body: JSON.stringify({ email, role: "operator" }),
+      }),
+      { params: Promise.resolve({ slug: team.lab.slug }) },
+    );
+    expect(res.status).toBe(201);
+    const { invitation } = (await res.json()) as { invitation: { expiresAt: string } };
+    const [mail] = await mailTo(email);
+    const expected = formatDateTime(new Date(invitation.expiresAt), "Pacific/Auckland");
+    // Auckland is 12 or 13 hours ahead: the UTC wall-clock time would differ.
+    expect(expected).not.toBe(formatDateTime(new Date(invitation.expiresAt), "UTC"));
+    expect(mail?.text).toContain(`expires at ${expected} (Pacific/Auckland)`);
   });
 });

@@ -73,3 +73,19 @@ describe("e-mails", () => {
     expect(reset.text).toContain("http://localhost:3000/reset-password/xyz");
   });
 });
+
+describe("invitation e-mail in the lab's time zone", () => {
+  it("shows the expiry in the one date format, in the lab's zone, naming the zone", () => {
+    const expiresAt = new Date("2026-05-01T22:30:00Z");
+    const mail = invitationMail({
+      labName: "L",
+      role: "operator",
+      inviterName: "M",
+      link: "http://x/invite/a",
+      expiresAt,
+      timeZone: "Asia/Kolkata",
+    });
+    expect(mail.text).toContain("expires at 2026-05-02 04:00 (Asia/Kolkata)");
+    expect(mail.text).not.toContain("UTC");
+  });
+});

@@ -42,7 +42,7 @@ export default async function AuditPage({
           Changes to members, invitations, stock and charts are recorded here with who made them and when.
         </EmptyState>
       ) : (
-        <AuditTable events={page.events} />
+        <AuditTable events={page.events} timeZone={member.lab.timeZone} />
       )}
       <nav aria-label="Audit log pages" className="flex flex-wrap gap-3">
         {paged ? (

@@ -26,7 +26,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
             {members.length} {members.length === 1 ? "person" : "people"}; a lab always keeps at least one manager.
           </p>
         </div>
-        <MembersTable slug={slug} members={members} meUserId={member.user.id} />
+        <MembersTable slug={slug} members={members} meUserId={member.user.id} timeZone={member.lab.timeZone} />
       </section>
 
       <section aria-labelledby="invite-heading" className="rounded-card border border-line bg-paper-raised p-5">
@@ -43,7 +43,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
         <h2 id="invitations-heading" className="mb-3 text-lg font-semibold">
           Open invitations
         </h2>
-        <InvitationsTable slug={slug} invitations={invitations} />
+        <InvitationsTable slug={slug} invitations={invitations} timeZone={member.lab.timeZone} />
       </section>
     </div>
   );

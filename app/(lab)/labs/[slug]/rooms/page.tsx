@@ -8,6 +8,7 @@ import { pdfUrlFor } from "@/lib/charts/present";
 import { STALE } from "@/lib/editions/check";
 import { env } from "@/lib/env";
 import { can } from "@/lib/permissions";
+import { formatDate } from "@/lib/format/dates";
 
 export const metadata = { title: "Rooms" };
 
@@ -72,7 +73,7 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
                           </ul>
                         ) : null}
                         <p className="text-xs text-ink-faint">
-                          Posted {p.postedAt.toISOString().slice(0, 10)}
+                          Posted {formatDate(p.postedAt, member.lab.timeZone)}
                           {p.postedByName ? ` by ${p.postedByName}` : ""}
                         </p>
                       </div>

@@ -56,6 +56,7 @@ export default async function StockPage({
       {canEdit ? <StockImport slug={slug} families={stock.balloonFamilies} /> : null}
       <StockHistory
         slug={slug}
+        timeZone={member.lab.timeZone}
         events={events}
         olderCursor={history.length > HISTORY_PAGE ? (events[events.length - 1]?.id ?? null) : null}
       />

@@ -42,6 +42,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
       />
       <EditionsPanel
         slug={slug}
+        timeZone={member.lab.timeZone}
         chartId={chart.id}
         can={{
           create: can(member.role, "edition:create"),
