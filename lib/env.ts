@@ -36,6 +36,8 @@ const schema = z
     WRITE_RETRIES: z.coerce.number().int().min(0).max(20).default(5),
     // Requests a minute each client address may make to each public endpoint (solve, check).
     PUBLIC_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1_000_000).default(120),
+    // Requests a minute each machine token may make (Authorization: Bearer); then 429.
+    TOKEN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1_000_000).default(120),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .transform((e) => ({

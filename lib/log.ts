@@ -73,6 +73,8 @@ export const log: Logger = createLogger();
 export type LogContext = {
   requestId?: string;
   userId?: number | string | null;
+  /** A machine token's row id (never the token itself). */
+  tokenId?: number | null;
   labId?: number | null;
   operation?: string;
   durationMs?: number;

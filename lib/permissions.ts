@@ -16,6 +16,7 @@ export const CAPABILITIES = {
   "members:manage": ["manager"],
   "rooms:manage": ["manager"],
   "settings:manage": ["manager"],
+  "tokens:manage": ["manager"],
   "audit:read": ["manager"],
   "chart:design": ["manager", "educator"],
   "edition:create": ["manager", "educator"],

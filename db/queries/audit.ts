@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, gt, inArray, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../index";
 import { db as defaultDb } from "../index";
-import { auditEvents, memberships, users } from "../schema";
+import { auditEvents, labTokens, memberships, users } from "../schema";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -12,17 +12,23 @@ export type Actor = { id: number; name: string };
 export type AuditInput = {
   labId: number | null;
   actorUserId: number | null;
+  /** The machine token that made the change, instead of a person (shown as "token <name>"). */
+  actorTokenId?: number | null;
   action: string;
   targetType?: string;
   targetId?: string | number;
   detail?: Record<string, unknown>;
 };
 
+/** The actor as people read it: the person's name, or "token <name>" for a lab's machine token. */
+export const actorNameSql = sql<string | null>`COALESCE(${users.name}, CONCAT('token ', ${labTokens.name}))`;
+
 /** Records who did what; pass the transaction so the record lands with the change itself. */
 export async function recordAudit({ tx, ...event }: AuditInput & { tx?: Tx | Database }): Promise<void> {
   await (tx ?? defaultDb).insert(auditEvents).values({
     labId: event.labId,
     actorUserId: event.actorUserId,
+    actorTokenId: event.actorTokenId ?? null,
     action: event.action,
     targetType: event.targetType ?? null,
     targetId: event.targetId === undefined ? null : String(event.targetId),
@@ -74,11 +80,12 @@ export async function listAuditEvents({
       targetId: auditEvents.targetId,
       detail: auditEvents.detail,
       createdAt: auditEvents.createdAt,
-      actorName: users.name,
+      actorName: actorNameSql,
       actorEmail: users.email,
     })
     .from(auditEvents)
     .leftJoin(users, eq(users.id, auditEvents.actorUserId))
+    .leftJoin(labTokens, eq(labTokens.id, auditEvents.actorTokenId))
     .where(and(inLab, before ? lt(auditEvents.id, before) : undefined, after ? gt(auditEvents.id, after) : undefined))
     .orderBy(after && !before ? asc(auditEvents.id) : desc(auditEvents.id))
     .limit(size + 1);

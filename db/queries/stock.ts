@@ -17,12 +17,13 @@ import {
   type StentSizePatch,
 } from "@/lib/validation/stock";
 import { db } from "../index";
-import { auditEvents, balloonFamilies, balloons, labs, stentPlatforms, stentSizes, users } from "../schema";
-import { recordAudit, type Tx } from "./audit";
+import { auditEvents, balloonFamilies, balloons, labs, labTokens, stentPlatforms, stentSizes, users } from "../schema";
+import { actorNameSql, recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
 import { readFamilies, readPlatforms } from "./stock-read";
 
-type Actor = { labId: number; actorUserId: number | null };
+/** Who a stock write is audited under: a person, or the lab's machine token (lib/auth/machine-tokens.ts). */
+type Actor = { labId: number; actorUserId: number | null; actorTokenId?: number | null };
 
 export type StockChange = { labId: number; actorUserId: number | null; summary: string };
 
@@ -73,10 +74,11 @@ export async function listStockHistory({
       targetId: auditEvents.targetId,
       detail: auditEvents.detail,
       createdAt: auditEvents.createdAt,
-      actorName: users.name,
+      actorName: actorNameSql,
     })
     .from(auditEvents)
     .leftJoin(users, eq(users.id, auditEvents.actorUserId))
+    .leftJoin(labTokens, eq(labTokens.id, auditEvents.actorTokenId))
     .where(before ? and(scope, lt(auditEvents.id, before)) : scope)
     .orderBy(desc(auditEvents.id))
     .limit(Math.min(Math.max(limit, 1), 100));
@@ -103,6 +105,7 @@ async function commit(tx: Tx, actor: Actor, change: Committed): Promise<number> 
     tx,
     labId: actor.labId,
     actorUserId: actor.actorUserId,
+    actorTokenId: actor.actorTokenId ?? null,
     action: change.action,
     targetType: change.targetType,
     targetId: change.targetId,
@@ -149,7 +152,7 @@ async function assertFamilyNameFree(tx: Tx, labId: number, name: string, exceptI
 
 export async function createBalloonFamily(
   tx: Tx,
-  { labId, actorUserId, input }: Actor & { input: BalloonFamilyInput },
+  { labId, actorUserId, actorTokenId, input }: Actor & { input: BalloonFamilyInput },
 ) {
   await assertFamilyNameFree(tx, labId, input.name);
   const values = familyValues({ ...input, growthAtRbpMm: input.growthAtRbpMm ?? null });
@@ -160,7 +163,7 @@ export async function createBalloonFamily(
   const family = await findFamily(tx, labId, row!.id);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.family.create",
       targetType: "balloon_family",
@@ -175,7 +178,7 @@ export async function createBalloonFamily(
 
 export async function updateBalloonFamily(
   tx: Tx,
-  { labId, actorUserId, familyId, patch }: Actor & { familyId: number; patch: BalloonFamilyPatch },
+  { labId, actorUserId, actorTokenId, familyId, patch }: Actor & { familyId: number; patch: BalloonFamilyPatch },
 ) {
   const current = await findFamily(tx, labId, familyId);
   const before = familyValues(current);
@@ -191,7 +194,7 @@ export async function updateBalloonFamily(
   const family = await findFamily(tx, labId, familyId);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.family.update",
       targetType: "balloon_family",
@@ -204,7 +207,10 @@ export async function updateBalloonFamily(
   return { revision, family, changed: true };
 }
 
-export async function deleteBalloonFamily(tx: Tx, { labId, actorUserId, familyId }: Actor & { familyId: number }) {
+export async function deleteBalloonFamily(
+  tx: Tx,
+  { labId, actorUserId, actorTokenId, familyId }: Actor & { familyId: number },
+) {
   const current = await findFamily(tx, labId, familyId);
   await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.familyId, familyId)));
   await tx.delete(balloonFamilies).where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, familyId)));
@@ -214,7 +220,7 @@ export async function deleteBalloonFamily(tx: Tx, { labId, actorUserId, familyId
   };
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.family.delete",
       targetType: "balloon_family",
@@ -266,7 +272,7 @@ const balloonView = (b: { id: number; diameterMm: number; inStock: boolean }) =>
 
 export async function createBalloon(
   tx: Tx,
-  { labId, actorUserId, familyId, input }: Actor & { familyId: number; input: BalloonInput },
+  { labId, actorUserId, actorTokenId, familyId, input }: Actor & { familyId: number; input: BalloonInput },
 ) {
   const family = await findFamily(tx, labId, familyId);
   await assertDiameterFree(tx, familyId, family.name, input.diameterMm);
@@ -277,7 +283,7 @@ export async function createBalloon(
   const balloon = await findBalloon(tx, labId, row!.id);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.balloon.create",
       targetType: "balloon",
@@ -292,7 +298,7 @@ export async function createBalloon(
 
 export async function updateBalloon(
   tx: Tx,
-  { labId, actorUserId, balloonId, patch }: Actor & { balloonId: number; patch: BalloonPatch },
+  { labId, actorUserId, actorTokenId, balloonId, patch }: Actor & { balloonId: number; patch: BalloonPatch },
 ) {
   const current = await findBalloon(tx, labId, balloonId);
   const before = { family: current.family, diameterMm: current.diameterMm, inStock: current.inStock };
@@ -311,18 +317,21 @@ export async function updateBalloon(
       : `Changed ${current.family} ${mm(before.diameterMm)} to ${mm(after.diameterMm)}${after.inStock === before.inStock ? "" : after.inStock ? ", in stock" : ", out of stock"}`;
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     { action: "stock.balloon.update", targetType: "balloon", targetId: balloonId, summary, before, after },
   );
   return { revision, balloon: balloonView({ id: balloonId, ...after }), changed: true };
 }
 
-export async function deleteBalloon(tx: Tx, { labId, actorUserId, balloonId }: Actor & { balloonId: number }) {
+export async function deleteBalloon(
+  tx: Tx,
+  { labId, actorUserId, actorTokenId, balloonId }: Actor & { balloonId: number },
+) {
   const current = await findBalloon(tx, labId, balloonId);
   await tx.delete(balloons).where(and(eq(balloons.labId, labId), eq(balloons.id, balloonId)));
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.balloon.delete",
       targetType: "balloon",
@@ -358,14 +367,14 @@ async function assertPlatformNameFree(tx: Tx, labId: number, name: string, excep
 
 export async function createStentPlatform(
   tx: Tx,
-  { labId, actorUserId, input }: Actor & { input: StentPlatformInput },
+  { labId, actorUserId, actorTokenId, input }: Actor & { input: StentPlatformInput },
 ) {
   await assertPlatformNameFree(tx, labId, input.name);
   const [row] = await tx.insert(stentPlatforms).values({ labId, name: input.name }).$returningId();
   const platform = await findPlatform(tx, labId, row!.id);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.platform.create",
       targetType: "stent_platform",
@@ -380,7 +389,7 @@ export async function createStentPlatform(
 
 export async function updateStentPlatform(
   tx: Tx,
-  { labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentPlatformInput },
+  { labId, actorUserId, actorTokenId, platformId, input }: Actor & { platformId: number; input: StentPlatformInput },
 ) {
   const current = await findPlatform(tx, labId, platformId);
   if (current.name === input.name)
@@ -392,7 +401,7 @@ export async function updateStentPlatform(
     .where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.platform.update",
       targetType: "stent_platform",
@@ -405,7 +414,10 @@ export async function updateStentPlatform(
   return { revision, platform: { ...current, name: input.name }, changed: true };
 }
 
-export async function deleteStentPlatform(tx: Tx, { labId, actorUserId, platformId }: Actor & { platformId: number }) {
+export async function deleteStentPlatform(
+  tx: Tx,
+  { labId, actorUserId, actorTokenId, platformId }: Actor & { platformId: number },
+) {
   const current = await findPlatform(tx, labId, platformId);
   await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.platformId, platformId)));
   await tx.delete(stentPlatforms).where(and(eq(stentPlatforms.labId, labId), eq(stentPlatforms.id, platformId)));
@@ -415,7 +427,7 @@ export async function deleteStentPlatform(tx: Tx, { labId, actorUserId, platform
   };
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.platform.delete",
       targetType: "stent_platform",
@@ -473,7 +485,7 @@ const sizeView = (s: { id: number; nominalMm: number; maxPostDilatationMm: numbe
 
 export async function createStentSize(
   tx: Tx,
-  { labId, actorUserId, platformId, input }: Actor & { platformId: number; input: StentSizeInput },
+  { labId, actorUserId, actorTokenId, platformId, input }: Actor & { platformId: number; input: StentSizeInput },
 ) {
   const platform = await findPlatform(tx, labId, platformId);
   await assertNominalFree(tx, platformId, platform.name, input.nominalMm);
@@ -484,7 +496,7 @@ export async function createStentSize(
   const size = await findSize(tx, labId, row!.id);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.size.create",
       targetType: "stent_size",
@@ -499,7 +511,7 @@ export async function createStentSize(
 
 export async function updateStentSize(
   tx: Tx,
-  { labId, actorUserId, sizeId, patch }: Actor & { sizeId: number; patch: StentSizePatch },
+  { labId, actorUserId, actorTokenId, sizeId, patch }: Actor & { sizeId: number; patch: StentSizePatch },
 ) {
   const current = await findSize(tx, labId, sizeId);
   const merged = stentSizeInput.safeParse({
@@ -524,7 +536,7 @@ export async function updateStentSize(
     .where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.size.update",
       targetType: "stent_size",
@@ -537,12 +549,15 @@ export async function updateStentSize(
   return { revision, size: sizeView({ id: sizeId, ...merged.data }), changed: true };
 }
 
-export async function deleteStentSize(tx: Tx, { labId, actorUserId, sizeId }: Actor & { sizeId: number }) {
+export async function deleteStentSize(
+  tx: Tx,
+  { labId, actorUserId, actorTokenId, sizeId }: Actor & { sizeId: number },
+) {
   const current = await findSize(tx, labId, sizeId);
   await tx.delete(stentSizes).where(and(eq(stentSizes.labId, labId), eq(stentSizes.id, sizeId)));
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.size.delete",
       targetType: "stent_size",
@@ -580,6 +595,7 @@ export async function importBalloons(
   {
     labId,
     actorUserId,
+    actorTokenId,
     rows,
     expectRevision,
     fileName,
@@ -664,7 +680,7 @@ export async function importBalloons(
   const after = await readFamilies(tx, labId, [...touched]);
   const revision = await commit(
     tx,
-    { labId, actorUserId },
+    { labId, actorUserId, actorTokenId },
     {
       action: "stock.import",
       targetType: "lab",

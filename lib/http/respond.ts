@@ -16,11 +16,13 @@ export function errorResponse(err: unknown, context: Record<string, unknown> = {
   else if (known.status >= 500) logger.warn({ err, ...context }, known.message);
   else logger.debug({ code: known.code, status: known.status, ...context }, known.message);
   const retry = (known as { retryAfterSeconds?: unknown }).retryAfterSeconds;
+  const challenge = (known as { wwwAuthenticate?: unknown }).wwwAuthenticate;
   const headers: Record<string, string> =
     known.status === 503
       ? { "cache-control": "no-store", "retry-after": "30" }
       : typeof retry === "number"
         ? { "retry-after": String(retry) }
         : {};
+  if (typeof challenge === "string") headers["www-authenticate"] = challenge;
   return Response.json(errorBody(known), { status: known.status, headers });
 }

@@ -2,10 +2,12 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { requestLog, withLogContext } from "@/lib/request-log";
+import { machineRefused } from "@/lib/ops/access";
+import { annotateLog, requestLog, withLogContext } from "@/lib/request-log";
 import { checkWriteRequest, mediaType } from "./origin";
 import { errorResponse } from "./respond";
 import { ANONYMOUS, sessionCaller, type Caller } from "@/lib/ops/caller";
+import { hasBearer, tokenCaller } from "@/lib/auth/machine-auth";
 
 /** Everything a route handler needs from its request, read only when asked for. */
 export type RouteInput<P> = {
@@ -35,6 +37,21 @@ export async function readJson(req: Request, opts: { optional?: boolean } = {}):
 }
 
 /**
+ * Who calls: a Bearer request is a machine token (never the session, even with a cookie: it
+ * skipped the browser-origin check); otherwise the session. Public routes never read the session:
+ * they answer the same to everyone, and machine tokens are for the stock routes only.
+ */
+async function callerOf(req: Request, opts: { public?: boolean }): Promise<Caller> {
+  if (hasBearer(req)) {
+    const caller = await tokenCaller(req);
+    if (caller.kind === "token") annotateLog({ tokenId: caller.token.id, labId: caller.token.labId });
+    if (opts.public) throw machineRefused();
+    return caller;
+  }
+  return opts.public ? ANONYMOUS : sessionCaller();
+}
+
+/**
  * The one route-handler wrapper: builds the caller from the session, runs the handler (which
  * calls one operation), answers its result as JSON (or passes a Response through), and turns any
  * error into `{"error":{...}}` with its status, logged once.
@@ -56,8 +73,7 @@ export function api<P = Record<string, string>>(
         const result = await fn({
           req,
           params,
-          // Public routes never read the session: they answer the same to everyone.
-          caller: opts.public ? ANONYMOUS : await sessionCaller(),
+          caller: await callerOf(req, opts),
           body: (o) => readJson(req, o),
           query: () => Object.fromEntries(new URL(req.url).searchParams),
         });

@@ -5,7 +5,8 @@ import { findEditionLab } from "@/db/queries/editions";
 import { findLabWithRole } from "@/db/queries/members";
 import { getLabRules } from "@/db/queries/lab-rules";
 import type { SessionUser } from "@/lib/auth/session";
-import { forbidden, notFound, unauthenticated } from "@/lib/errors";
+import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
+import type { TokenScope } from "@/lib/validation/tokens";
 import { can, type Capability, type Role } from "@/lib/permissions";
 import type { Caller } from "./caller";
 
@@ -48,9 +49,41 @@ export async function labCan(labId: number, role: Role, capability: Capability):
   return (await labRulesFor(labId)).managersMayApprove;
 }
 
+/** 403 for a machine token outside the stock routes of its lab. */
+export const machineRefused = () =>
+  new AppError("forbidden", "Machine tokens may use only the stock routes of their own lab.");
+
 export function signedIn(caller: Caller): SessionUser {
+  if (caller.kind === "token") throw machineRefused();
   if (caller.kind !== "user") throw unauthenticated();
   return caller.user;
+}
+
+/**
+ * The lab a machine token may work in, for an operation open to tokens with `scope`: another lab
+ * (or a chart or edition of one) answers 404 like a lab that does not exist; an operation not
+ * open to tokens, or a scope the token lacks, 403.
+ */
+export async function authorizeToken(
+  caller: Extract<Caller, { kind: "token" }>,
+  ref: LabRef,
+  scope: TokenScope | undefined,
+): Promise<{ labId: number }> {
+  const { token } = caller;
+  const labId =
+    "lab" in ref
+      ? ref.lab === token.labSlug
+        ? token.labId
+        : null
+      : "labId" in ref
+        ? ref.labId
+        : "chartId" in ref
+          ? await findChartLab({ chartId: ref.chartId })
+          : await findEditionLab({ editionId: ref.editionId });
+  if (labId !== token.labId) throw notFound(refLabel(ref));
+  if (!scope) throw machineRefused();
+  if (!token.scopes.includes(scope)) throw new AppError("forbidden", `This token lacks the ${scope} scope.`);
+  return { labId };
 }
 
 /**

@@ -1,8 +1,13 @@
 import "server-only";
 import { currentUser, type SessionUser } from "@/lib/auth/session";
+import type { TokenIdentity } from "@/db/queries/tokens";
 
-/** Who asks for an operation. Every operation receives one and checks what it may do. */
-export type Caller = { kind: "anonymous" } | { kind: "user"; user: SessionUser };
+/**
+ * Who asks for an operation. Every operation receives one and checks what it may do. A machine
+ * token (Authorization: Bearer) is a caller of its own: one lab and its scopes, no person.
+ */
+export type Caller =
+  { kind: "anonymous" } | { kind: "user"; user: SessionUser } | { kind: "token"; token: TokenIdentity };
 
 export type { Actor } from "@/db/queries/audit";
 

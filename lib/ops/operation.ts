@@ -4,7 +4,8 @@ import { invalidInput, notFound } from "@/lib/errors";
 import { annotateLog, requestLog } from "@/lib/request-log";
 import type { Capability } from "@/lib/permissions";
 import { BAD_ID, idSchema } from "@/lib/validation/id";
-import { authorize, type LabRef, type Member } from "./access";
+import type { TokenScope } from "@/lib/validation/tokens";
+import { authorize, authorizeToken, type LabRef, type Member } from "./access";
 import type { Actor, Caller } from "./caller";
 
 type Scope = "lab" | "chart" | "edition";
@@ -15,7 +16,17 @@ type ScopeRef<S extends Scope> = S extends "lab"
     : { editionId: unknown };
 type ScopeId<S extends Scope> = S extends "chart" ? "chartId" : S extends "edition" ? "editionId" : never;
 
-export type OpContext<K extends string> = { member: Member; actor: Actor; labId: number; ids: Record<K, number> };
+/** Who a write is audited under: the person, or the machine token ("token <name>"). */
+export type AuditBy = { actorUserId: number | null; actorTokenId: number | null };
+
+type Common<K extends string> = { labId: number; ids: Record<K, number>; by: AuditBy };
+
+/**
+ * What an operation runs with. Operations open to machine tokens (`machine` set) may be called
+ * without a person: their `member` and `actor` are null for a token, and they audit through `by`.
+ */
+export type OpContext<K extends string, M extends boolean = false> = Common<K> &
+  (M extends true ? { member: Member | null; actor: Actor | null } : { member: Member; actor: Actor });
 
 /** "roomId" -> "Room": the thing a bad id in the input fails to name. */
 const nounOf = (key: PropertyKey | undefined) =>
@@ -53,14 +64,22 @@ export async function traced<R>(name: string, fields: Record<string, unknown>, f
  * and validates the input with its zod schema (400), then runs. Every route handler, server action and page that changes or reads lab data
  * goes through one of these.
  */
-export function labOperation<S extends Scope, I extends z.ZodType, R, K extends string = never>(spec: {
+export function labOperation<
+  S extends Scope,
+  I extends z.ZodType,
+  R,
+  K extends string = never,
+  T extends TokenScope | undefined = undefined,
+>(spec: {
   name: string;
   capability: Capability;
   scope: S;
   /** Further ids in the reference, each with the noun a "not found" answer names. */
   ids?: Record<K, string>;
   input?: I;
-  run: (ctx: OpContext<K | ScopeId<S>>, input: z.infer<I>) => Promise<R>;
+  /** The scope a machine token needs to call this operation; without it, tokens are refused (403). */
+  machine?: T;
+  run: (ctx: OpContext<K | ScopeId<S>, T extends TokenScope ? true : false>, input: z.infer<I>) => Promise<R>;
 }) {
   const op = async (caller: Caller, ref: ScopeRef<S> & Record<K, unknown>, input?: unknown): Promise<R> => {
     const r = ref as Record<string, unknown>;
@@ -70,18 +89,27 @@ export function labOperation<S extends Scope, I extends z.ZodType, R, K extends 
         : spec.scope === "chart"
           ? { chartId: parseId(r.chartId, "Chart") }
           : { editionId: parseId(r.editionId, "Edition") };
-    const member = await authorize(caller, labRef, spec.capability);
+    const token = caller.kind === "token" ? caller.token : null;
+    const member = token ? null : await authorize(caller, labRef, spec.capability);
+    const labId = token ? (await authorizeToken({ kind: "token", token }, labRef, spec.machine)).labId : member!.lab.id;
     const ids = Object.fromEntries(
       Object.entries<string>(spec.ids ?? ({} as Record<K, string>)).map(([key, what]) => [key, parseId(r[key], what)]),
     ) as Record<K, number>;
     const data = spec.input ? parseInput(spec.input, input ?? {}) : (undefined as z.infer<I>);
     const ctx = {
       member,
-      actor: { id: member.user.id, name: member.user.name },
-      labId: member.lab.id,
+      actor: member ? { id: member.user.id, name: member.user.name } : null,
+      labId,
       ids: { ...ids, ...labRef } as Record<K | ScopeId<S>, number>,
-    };
-    return traced(spec.name, { userId: member.user.id, labId: member.lab.id }, () => spec.run(ctx, data));
+      by: { actorUserId: member?.user.id ?? null, actorTokenId: token?.id ?? null },
+    } as OpContext<K | ScopeId<S>, T extends TokenScope ? true : false>;
+    const who = token ? { tokenId: token.id } : { userId: member!.user.id };
+    return traced(spec.name, { ...who, labId }, () => spec.run(ctx, data));
   };
-  return Object.assign(op, { operation: spec.name, capability: spec.capability, scope: spec.scope });
+  return Object.assign(op, {
+    operation: spec.name,
+    capability: spec.capability,
+    scope: spec.scope,
+    machine: spec.machine ?? null,
+  });
 }

@@ -20,11 +20,14 @@ import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
 // Stock: every write is one lab write (lab row locked, change, lab pass, audit row), then mail.
+// These are the operations a lab's machine tokens may call (stock:read to read, stock:write to
+// change); a token's change is audited under its name and runs the same lab pass and mail.
 
 export const getStock = labOperation({
   name: "stock.read",
   capability: "lab:read",
   scope: "lab",
+  machine: "stock:read",
   run: ({ labId }) => q.getStock({ labId }),
 });
 
@@ -32,116 +35,122 @@ export const createBalloonFamily = labOperation({
   name: "stock.family.create",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   input: balloonFamilyInput,
-  run: ({ labId, actor }, input) =>
-    labWrite(labId, (tx) => q.createBalloonFamily(tx, { labId, actorUserId: actor.id, input })),
+  run: ({ labId, by }, input) => labWrite(labId, (tx) => q.createBalloonFamily(tx, { labId, ...by, input })),
 });
 
 export const updateBalloonFamily = labOperation({
   name: "stock.family.update",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { familyId: "Balloon family" },
   input: balloonFamilyPatch,
-  run: ({ labId, actor, ids }, patch) =>
-    labWrite(labId, (tx) => q.updateBalloonFamily(tx, { labId, actorUserId: actor.id, familyId: ids.familyId, patch })),
+  run: ({ labId, by, ids }, patch) =>
+    labWrite(labId, (tx) => q.updateBalloonFamily(tx, { labId, ...by, familyId: ids.familyId, patch })),
 });
 
 export const deleteBalloonFamily = labOperation({
   name: "stock.family.delete",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { familyId: "Balloon family" },
-  run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => q.deleteBalloonFamily(tx, { labId, actorUserId: actor.id, familyId: ids.familyId })),
+  run: ({ labId, by, ids }) =>
+    labWrite(labId, (tx) => q.deleteBalloonFamily(tx, { labId, ...by, familyId: ids.familyId })),
 });
 
 export const createBalloon = labOperation({
   name: "stock.balloon.create",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { familyId: "Balloon family" },
   input: balloonInput,
-  run: ({ labId, actor, ids }, input) =>
-    labWrite(labId, (tx) => q.createBalloon(tx, { labId, actorUserId: actor.id, familyId: ids.familyId, input })),
+  run: ({ labId, by, ids }, input) =>
+    labWrite(labId, (tx) => q.createBalloon(tx, { labId, ...by, familyId: ids.familyId, input })),
 });
 
 export const updateBalloon = labOperation({
   name: "stock.balloon.update",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { balloonId: "Balloon" },
   input: balloonPatch,
-  run: ({ labId, actor, ids }, patch) =>
-    labWrite(labId, (tx) => q.updateBalloon(tx, { labId, actorUserId: actor.id, balloonId: ids.balloonId, patch })),
+  run: ({ labId, by, ids }, patch) =>
+    labWrite(labId, (tx) => q.updateBalloon(tx, { labId, ...by, balloonId: ids.balloonId, patch })),
 });
 
 export const deleteBalloon = labOperation({
   name: "stock.balloon.delete",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { balloonId: "Balloon" },
-  run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => q.deleteBalloon(tx, { labId, actorUserId: actor.id, balloonId: ids.balloonId })),
+  run: ({ labId, by, ids }) => labWrite(labId, (tx) => q.deleteBalloon(tx, { labId, ...by, balloonId: ids.balloonId })),
 });
 
 export const createStentPlatform = labOperation({
   name: "stock.platform.create",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   input: stentPlatformInput,
-  run: ({ labId, actor }, input) =>
-    labWrite(labId, (tx) => q.createStentPlatform(tx, { labId, actorUserId: actor.id, input })),
+  run: ({ labId, by }, input) => labWrite(labId, (tx) => q.createStentPlatform(tx, { labId, ...by, input })),
 });
 
 export const updateStentPlatform = labOperation({
   name: "stock.platform.update",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { platformId: "Stent platform" },
   input: stentPlatformInput,
-  run: ({ labId, actor, ids }, input) =>
-    labWrite(labId, (tx) =>
-      q.updateStentPlatform(tx, { labId, actorUserId: actor.id, platformId: ids.platformId, input }),
-    ),
+  run: ({ labId, by, ids }, input) =>
+    labWrite(labId, (tx) => q.updateStentPlatform(tx, { labId, ...by, platformId: ids.platformId, input })),
 });
 
 export const deleteStentPlatform = labOperation({
   name: "stock.platform.delete",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { platformId: "Stent platform" },
-  run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => q.deleteStentPlatform(tx, { labId, actorUserId: actor.id, platformId: ids.platformId })),
+  run: ({ labId, by, ids }) =>
+    labWrite(labId, (tx) => q.deleteStentPlatform(tx, { labId, ...by, platformId: ids.platformId })),
 });
 
 export const createStentSize = labOperation({
   name: "stock.size.create",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { platformId: "Stent platform" },
   input: stentSizeInput,
-  run: ({ labId, actor, ids }, input) =>
-    labWrite(labId, (tx) => q.createStentSize(tx, { labId, actorUserId: actor.id, platformId: ids.platformId, input })),
+  run: ({ labId, by, ids }, input) =>
+    labWrite(labId, (tx) => q.createStentSize(tx, { labId, ...by, platformId: ids.platformId, input })),
 });
 
 export const updateStentSize = labOperation({
   name: "stock.size.update",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { sizeId: "Stent size" },
   input: stentSizePatch,
-  run: ({ labId, actor, ids }, patch) =>
-    labWrite(labId, (tx) => q.updateStentSize(tx, { labId, actorUserId: actor.id, sizeId: ids.sizeId, patch })),
+  run: ({ labId, by, ids }, patch) =>
+    labWrite(labId, (tx) => q.updateStentSize(tx, { labId, ...by, sizeId: ids.sizeId, patch })),
 });
 
 export const deleteStentSize = labOperation({
   name: "stock.size.delete",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   ids: { sizeId: "Stent size" },
-  run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => q.deleteStentSize(tx, { labId, actorUserId: actor.id, sizeId: ids.sizeId })),
+  run: ({ labId, by, ids }) => labWrite(labId, (tx) => q.deleteStentSize(tx, { labId, ...by, sizeId: ids.sizeId })),
 });
 
 /** A balloon CSV: `dryRun` previews; otherwise applies, refusing (409) when `revision` is no longer current. */
@@ -149,8 +158,9 @@ export const importBalloonCsv = labOperation({
   name: "stock.import",
   capability: "stock:edit",
   scope: "lab",
+  machine: "stock:write",
   input: importQuery.extend({ file: fileInput("Choose a CSV file.") }),
-  run: async ({ labId, actor }, { file: upload, ...query }) => {
+  run: async ({ labId, by }, { file: upload, ...query }) => {
     const file = await readFileInput(upload);
     if (file.bytes.byteLength > MAX_IMPORT_BYTES)
       throw payloadTooLarge(file.bytes.byteLength, MAX_IMPORT_BYTES, CSV_TOO_LARGE_HINT);
@@ -160,7 +170,7 @@ export const importBalloonCsv = labOperation({
     return labWrite(labId, (tx) =>
       q.importBalloons(tx, {
         labId,
-        actorUserId: actor.id,
+        ...by,
         rows: parsed.rows,
         expectRevision: query.revision,
         fileName: file.name,
@@ -173,6 +183,7 @@ export const listStockHistory = labOperation({
   name: "stock.history",
   capability: "lab:read",
   scope: "lab",
+  machine: "stock:read",
   input: historyQuery.extend({ limit: z.number().int().min(1).max(100).optional() }),
   run: ({ labId }, { before, limit }) => q.listStockHistory({ labId, before, limit }),
 });

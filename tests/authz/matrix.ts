@@ -581,6 +581,37 @@ export const ROUTES: RouteRow[] = [
     expect: managerBadInput(404),
     note: "the demo flag is the seed's; the operator is not in demo-north",
   },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/tokens",
+    url: `${lab("demo")}/tokens`,
+    expect: managerOnly(),
+  },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/labs/[slug]/tokens",
+    url: `${lab("demo")}/tokens`,
+    body: { name: "", scopes: [] },
+    expect: managerBadInput(),
+  },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/labs/[slug]/tokens",
+    url: `${lab("demo-north")}/tokens`,
+    body: { name: "walker", scopes: ["stock:admin"] },
+    expect: managerBadInput(404),
+    note: "the operator is not in demo-north",
+  },
+  {
+    kind: "route",
+    method: "DELETE",
+    route: "/api/v1/labs/[slug]/tokens/[id]",
+    url: `${lab("demo")}/tokens/0`,
+    expect: managerBadId(),
+  },
 ];
 
 const ANYONE = ["anonymous", ...ALL_ROLES] as const;
@@ -685,6 +716,8 @@ export const ACTIONS: ActionRow[] = [
   },
   // ---- tokens area: lab settings and machine tokens ----
   { kind: "action", file: SETTINGS_ACTIONS, name: "updateLabSettingsAction", allowed: ["manager"] },
+  { kind: "action", file: SETTINGS_ACTIONS, name: "createTokenAction", allowed: ["manager"] },
+  { kind: "action", file: SETTINGS_ACTIONS, name: "revokeTokenAction", allowed: ["manager"] },
   {
     kind: "action",
     file: LAB_ACTIONS,

@@ -14,6 +14,7 @@ import {
   editions,
   invitations,
   labs,
+  labTokens,
   logos,
   memberships,
   postings,
@@ -44,8 +45,21 @@ let inviteeEmail: string;
 const wall = { familyId: 0, balloonId: 0, chartId: 0, draftId: 0, approvedId: 0, token: "", roomId: 0, postingId: 0 };
 const stent = { platformId: 0, sizeId: 0 };
 
+let machineTokenId = 0;
+
 beforeAll(async () => {
   team = await labWithTeam();
+  const [tok] = await db
+    .insert(labTokens)
+    .values({
+      labId: team.lab.id,
+      name: "Fixture feed",
+      scopes: ["stock:read"],
+      tokenHash: newToken().hash,
+      hint: "fwt_fixture",
+    })
+    .$returningId();
+  machineTokenId = tok!.id;
   inviteeEmail = `${unique("pending")}@example.test`;
   const [row] = await db
     .insert(invitations)
@@ -195,6 +209,8 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   // tokens area
   updateLabSettingsAction: (t) =>
     form({ slug: t.lab.slug, name: "Renamed lab", timeZone: "Europe/Berlin", numberFormat: "comma", contactLine: "" }),
+  createTokenAction: (t) => ({ slug: t.lab.slug, name: "New feed", scopes: ["stock:read", "stock:write"] }),
+  revokeTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
 };
 
 async function snapshot(labId: number) {
@@ -238,6 +254,7 @@ async function snapshot(labId: number) {
     stock: { families: f, balloons: b, platforms: sp, sizes: ss, revision: lab[0]?.revision },
     logos: l.length,
     settings: lab[0] && { ...lab[0], revision: undefined },
+    tokens: await db.select().from(labTokens).where(eq(labTokens.labId, labId)),
   };
 }
 

@@ -1,6 +1,8 @@
 import { SettingsForm } from "@/components/settings/settings-form";
+import { TokensPanel } from "@/components/settings/tokens-panel";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { getLabSettings } from "@/lib/ops/lab-settings";
+import { listTokens } from "@/lib/ops/tokens";
 import { can } from "@/lib/permissions";
 
 export const metadata = { title: "Settings" };
@@ -13,6 +15,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ slug:
   if (member === "forbidden") return null;
   const settings = await getLabSettings(member.caller, { lab: slug });
   const manager = can(member.role, "settings:manage");
+  const tokens = can(member.role, "tokens:manage") ? (await listTokens(member.caller, { lab: slug })).tokens : null;
   return (
     <div className="max-w-2xl space-y-10">
       <section aria-labelledby="settings-heading">
@@ -40,6 +43,19 @@ export default async function SettingsPage({ params }: { params: Promise<{ slug:
           </dl>
         )}
       </section>
+      {tokens ? (
+        <section aria-labelledby="tokens-heading">
+          <h2 id="tokens-heading" className="mb-1 text-lg font-semibold">
+            Machine tokens
+          </h2>
+          <p className="mb-4 text-sm text-ink-soft">
+            A token lets the lab&apos;s inventory system read or change the stock through the API (
+            <code>Authorization: Bearer …</code>) without a person signing in. It works only for this lab&apos;s stock;
+            its changes make posted copies outdated and send the same e-mails as a person&apos;s.
+          </p>
+          <TokensPanel slug={slug} tokens={tokens} timeZone={settings.timeZone} />
+        </section>
+      ) : null}
     </div>
   );
 }
