@@ -15,6 +15,9 @@ const ACTIONS: Record<string, string> = {
   "member.removed": "Removed a member",
   "password_reset.requested": "Password reset requested",
   "password_reset.completed": "Password reset completed",
+  "lab.settings_updated": "Changed the lab's settings",
+  "lab.token_created": "Created a machine token",
+  "lab.token_revoked": "Revoked a machine token",
 };
 
 export function describeAction(action: string): string {

@@ -14,6 +14,8 @@ import * as members from "@/lib/ops/members";
 import * as postings from "@/lib/ops/postings";
 import * as renders from "@/lib/ops/renders";
 import * as stock from "@/lib/ops/stock";
+import * as labSettingsOps from "@/lib/ops/lab-settings";
+import * as tokensOps from "@/lib/ops/tokens";
 import type { Caller } from "@/lib/ops/caller";
 import { can, ROLES, type Capability } from "@/lib/permissions";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
@@ -24,11 +26,21 @@ type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Pr
   operation: string;
   capability: Capability;
   scope: "lab" | "chart" | "edition";
+  machine: "stock:read" | "stock:write" | null;
 };
 
-const ops: Op[] = [audit, chartsOps, editionsOps, labRulesOps, members, postings, renders, stock].flatMap((mod) =>
-  Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v),
-);
+const ops: Op[] = [
+  audit,
+  chartsOps,
+  editionsOps,
+  labRulesOps,
+  members,
+  postings,
+  renders,
+  stock,
+  labSettingsOps,
+  tokensOps,
+].flatMap((mod) => Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 const ids = { chartId: 0, editionId: 0 };
@@ -104,6 +116,34 @@ describe("the operations layer refuses by itself", () => {
       }
     }
     expect(refusals).toBeGreaterThan(ops.length * 2);
+    expect(await footprint()).toEqual(before);
+  });
+
+  it("answers a machine token of another lab 404, and one of this lab 403 outside its scopes, changing nothing", async () => {
+    const before = await footprint();
+    const token = (labId: number, labSlug: string, scopes: ("stock:read" | "stock:write")[]): Caller => ({
+      kind: "token",
+      token: { id: 1, name: "ops walker", scopes, labId, labSlug },
+    });
+    const foreign = token(team.other.id, team.other.slug, ["stock:read", "stock:write"]);
+    let refusals = 0;
+    for (const op of ops) {
+      const own = token(team.lab.id, team.lab.slug, op.machine === "stock:read" ? ["stock:write"] : ["stock:read"]);
+      for (const [caller, status] of [
+        [foreign, 404],
+        [own, 403],
+      ] as const) {
+        const err = await op(caller, refFor(op), {}).then(
+          () => null,
+          (e: unknown) => e,
+        );
+        expect((err as AppError).status, `${op.operation} as a token, expected ${status}`).toBe(status);
+        refusals++;
+      }
+    }
+    expect(refusals).toBe(ops.length * 2);
+    // Only stock operations are open to tokens at all.
+    expect(ops.filter((o) => o.machine).every((o) => o.operation.startsWith("stock."))).toBe(true);
     expect(await footprint()).toEqual(before);
   });
 
