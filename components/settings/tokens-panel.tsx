@@ -35,6 +35,7 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
       <form action={action} className="grid gap-4" noValidate aria-busy={pending} aria-label="Create a token">
         <input type="hidden" name="slug" value={slug} />
         <TextField
+          id="token-name"
           label="Token name"
           name="name"
           maxLength={TOKEN_NAME_MAX}
@@ -46,7 +47,14 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
           <legend className="text-sm font-medium">What it may do</legend>
           <div className="mt-2 space-y-2">
             {TOKEN_SCOPES.map((s) => (
-              <CheckboxField key={s} label={SCOPE_LABELS[s]} name="scopes" value={s} defaultChecked />
+              <CheckboxField
+                key={s}
+                id={`token-scope-${s.replace(":", "-")}`}
+                label={SCOPE_LABELS[s]}
+                name="scopes"
+                value={s}
+                defaultChecked
+              />
             ))}
           </div>
           {state.fieldErrors?.scopes ? (

@@ -23,6 +23,8 @@ export type RouteRow = {
   /** Not walked: why this route is outside the lab guard (e.g. next-auth's own endpoints). */
   exempt?: string;
   note?: string;
+  /** The status for a demo-lab machine token with both scopes, when `machineStatus`'s rule does not give it. */
+  machine?: number;
 };
 
 export type ActionRow = {
@@ -36,6 +38,22 @@ export type ActionRow = {
 };
 
 export const ALL_ROLES: readonly Role[] = ["manager", "lead", "educator", "operator"];
+
+/**
+ * What a machine token of the demo lab (stock:read and stock:write) gets (tokens area): the
+ * demo lab's stock routes answer it as they answer a manager; another lab, or a chart or edition
+ * that is not the demo lab's, 404; every other route 403 (the public ones too). No session.
+ */
+export function machineStatus(row: RouteRow, url: string): number {
+  if (row.machine !== undefined) return row.machine;
+  if (url === "/api/health") return 200;
+  const slug = /^\/api\/v1\/labs\/([^/?]+)/.exec(url)?.[1];
+  if (slug !== undefined) {
+    if (slug !== "demo") return 404;
+    return row.route.startsWith("/api/v1/labs/[slug]/stock") ? row.expect!.manager : 403;
+  }
+  return /^\/api\/v1\/(charts|editions)\/999999999/.test(url) ? 404 : 403;
+}
 
 /** Shorthand: the same status for a set of actors, another for the rest. */
 export function statuses(allowed: readonly Actor[], ok: number, denied = 403, anonymous = 401): Record<Actor, number> {

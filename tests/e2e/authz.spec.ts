@@ -1,7 +1,7 @@
 // Walks the authorization matrix over HTTP: every route row, as anonymous and as each seeded
 // role, must answer exactly the status the matrix lists.
 import { expect, test } from "@playwright/test";
-import { ALL_ROLES, ROUTES, type Actor } from "../authz/matrix";
+import { ALL_ROLES, ROUTES, machineStatus, type Actor } from "../authz/matrix";
 import { DEMO_PASSWORD, demoEmail, signInApi } from "./support/auth";
 import { closeDb, demoIds, query } from "./support/db";
 
@@ -56,3 +56,36 @@ for (const actor of ACTORS) {
     await request.dispose();
   });
 }
+
+// Machine tokens (Bearer, no cookie, no Origin): the demo lab's stock routes only.
+test("as a machine token of the demo lab, every route answers machineStatus", async ({ playwright, baseURL }) => {
+  const manager = await playwright.request.newContext({ baseURL });
+  await signInApi(manager, demoEmail("manager"), DEMO_PASSWORD);
+  const tokens: { id: number; token: string }[] = [];
+  // One token per 50 requests, to stay clear of the per-token rate limit.
+  const mint = async () => {
+    const res = await manager.post("/api/v1/labs/demo/tokens", {
+      data: { name: `authz walker ${Date.now()}-${tokens.length}`, scopes: ["stock:read", "stock:write"] },
+    });
+    expect(res.status()).toBe(201);
+    tokens.push((await res.json()) as { id: number; token: string });
+  };
+  const wrong: string[] = [];
+  const rows = ROUTES.filter((r) => r.exempt === undefined);
+  for (const [i, row] of rows.entries()) {
+    if (i % 50 === 0) await mint();
+    const url = typeof row.url === "function" ? row.url(ids) : row.url;
+    const machine = await playwright.request.newContext({
+      baseURL,
+      extraHTTPHeaders: { authorization: `Bearer ${tokens.at(-1)!.token}` },
+    });
+    const res = await machine.fetch(url, { method: row.method, data: row.body, maxRedirects: 0 });
+    const want = machineStatus(row, url);
+    if (res.status() !== want)
+      wrong.push(`${row.method} ${url}: ${res.status()} (machineStatus: ${want}) ${(await res.text()).slice(0, 160)}`);
+    await machine.dispose();
+  }
+  for (const t of tokens) expect((await manager.delete(`/api/v1/labs/demo/tokens/${t.id}`)).status()).toBe(200);
+  await manager.dispose();
+  expect(wrong, "machine token: answers that differ from machineStatus in tests/authz/matrix.ts").toEqual([]);
+});
