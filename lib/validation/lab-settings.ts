@@ -27,7 +27,7 @@ const settingsShape = z
     name: freeText({ what: "Lab name", min: 1, max: LAB_NAME_MAX }),
     timeZone: z
       .string({ error: "Time zone must be text." })
-      .trim()
+      // Not free text: an exact IANA name from the runtime's time-zone database.
       .refine(isTimeZone, "Time zone must be an IANA time-zone name such as Europe/Berlin or UTC."),
     numberFormat: z.enum(NUMBER_FORMATS, { error: 'Number format must be "point" or "comma".' }),
     contactLine: z
