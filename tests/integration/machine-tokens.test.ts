@@ -13,6 +13,7 @@ import { env } from "@/lib/env";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { GET as stockRoute } from "@/app/api/v1/labs/[slug]/stock/route";
 import { PATCH as balloonRoute } from "@/app/api/v1/labs/[slug]/stock/balloons/[id]/route";
+import { POST as importRoute } from "@/app/api/v1/labs/[slug]/stock/import/route";
 import { GET as listTokensRoute, POST as createTokenRoute } from "@/app/api/v1/labs/[slug]/tokens/route";
 import { DELETE as revokeTokenRoute } from "@/app/api/v1/labs/[slug]/tokens/[id]/route";
 import { GET as membersRoute } from "@/app/api/v1/labs/[slug]/members/route";
@@ -246,6 +247,40 @@ describe("a token at work", () => {
         sql`${auditEvents.detail} LIKE ${`%${rw.token.slice(4)}%`} OR ${auditEvents.detail} LIKE ${`%${row!.hash}%`}`,
       );
     expect(leaks).toEqual([]);
+  });
+
+  it("imports a balloon CSV (multipart) with stock:write, audited under the token's name", async () => {
+    const body = new FormData();
+    body.set(
+      "file",
+      new File(
+        ["family,compliance,diameter_mm,in_stock,nominal_atm,rbp_atm\nSC token import,sc,2.50,yes,8,14\n"],
+        "s.csv",
+        {
+          type: "text/csv",
+        },
+      ),
+    );
+    const res = await importRoute(
+      new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/stock/import`, {
+        method: "POST",
+        headers: { authorization: `Bearer ${rw.token}` },
+        body,
+      }),
+      { params: Promise.resolve({ slug: team.lab.slug }) },
+    );
+    expect(res.status).toBe(200);
+    expect(((await res.json()) as { applied: boolean }).applied).toBe(true);
+    const [fam] = await db
+      .select()
+      .from(balloonFamilies)
+      .where(and(eq(balloonFamilies.labId, team.lab.id), eq(balloonFamilies.name, "SC token import")));
+    expect(fam).toBeDefined();
+    const [row] = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.labId, team.lab.id), eq(auditEvents.action, "stock.import")));
+    expect(row?.actorTokenId).toBe(rw.id);
   });
 
   it("is refused on another lab with 404, and nothing changes there", async () => {
