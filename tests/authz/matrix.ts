@@ -655,4 +655,12 @@ export const ACTIONS: ActionRow[] = [
     allowed: ALL_ROLES,
     note: "changes only the caller's own membership",
   },
+  // rules area: the rules page's save (the lab rules API rows are with the routes above)
+  {
+    kind: "action",
+    file: "app/(lab)/labs/[slug]/rules/actions.ts",
+    name: "saveLabRulesAction",
+    allowed: ["lead"],
+    note: "the medical lead only; audited",
+  },
 ];

@@ -13,6 +13,7 @@ import {
   charts,
   editions,
   invitations,
+  labRules,
   labs,
   logos,
   memberships,
@@ -192,6 +193,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   deletePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId }),
   deleteSizeAction: (t) => ({ slug: t.lab.slug, sizeId: stent.sizeId }),
   importStockAction: (t) => form({ slug: t.lab.slug, file: csv() }),
+  saveLabRulesAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
 };
 
 async function snapshot(labId: number) {
@@ -245,6 +247,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(public)/v/[token]/actions.ts": () => import("@/app/(public)/v/[token]/actions"),
   "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
   "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
+  "app/(lab)/labs/[slug]/rules/actions.ts": () => import("@/app/(lab)/labs/[slug]/rules/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);
@@ -312,6 +315,12 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "setChartLogoAction", "manager")).toMatchObject({
       ok: true,
     });
+    expect(await call("app/(lab)/labs/[slug]/rules/actions.ts", "saveLabRulesAction", "lead")).toMatchObject({
+      ok: true,
+      data: { revision: 1 },
+    });
+    const [rules] = await db.select().from(labRules).where(eq(labRules.labId, team.lab.id));
+    expect(rules?.rules).toMatchObject({ reviewPeriodMonths: 6, managersMayApprove: true });
     const after = await snapshot(team.lab.id);
     expect(after.stock.balloons.find((b) => b.id === wall.balloonId)?.inStock).toBe(false);
     expect(after.stock.sizes.length).toBe(before.stock.sizes.length + 1);
