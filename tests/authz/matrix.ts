@@ -456,7 +456,7 @@ export const ROUTES: RouteRow[] = [
     route: "/api/v1/editions/[id]/pdf",
     url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf`,
     expect: everyoneSignedIn(200),
-    note: "every download is audited as a print",
+    note: "every download is audited (edition.downloaded)",
   },
   {
     kind: "route",
