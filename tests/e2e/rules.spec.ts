@@ -86,8 +86,8 @@ test("everyone else reads the rules and cannot change them", async ({ page }) =>
 
 for (const width of [1440, 390, 320]) {
   test(`the rules page fits a ${width} px screen and works from the keyboard`, async ({ page }) => {
-    await page.setViewportSize({ width, height: 900 });
     await signInPage(page, demoEmail("lead"));
+    await page.setViewportSize({ width, height: 900 });
     await page.goto("/labs/demo/rules");
     await expect(page.getByRole("button", { name: "Save the rules" })).toBeVisible();
     await noSideways(page);
