@@ -76,6 +76,8 @@ export const labRules = mysqlTable("lab_rules", {
     .primaryKey()
     .references(() => labs.id, { onDelete: "cascade" }),
   rules: jsonText<unknown>("rules").notNull(),
+  // Bumped by every change; a change made against an older revision is refused (409).
+  revision: int("revision").notNull().default(0),
   updatedBy: ref("updated_by").references(() => users.id, { onDelete: "set null" }),
   updatedAt: when("updated_at").notNull(),
 });

@@ -38,6 +38,9 @@ const schema = z
     PUBLIC_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1_000_000).default(120),
     // Requests a minute each machine token may make (Authorization: Bearer); then 429.
     TOKEN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1_000_000).default(120),
+    // Stale-copy mail waits until a lab has had no new stale copies for this long, then goes out
+    // as one digest (lib/ops/notices.ts); 0 sends after every change.
+    STALE_MAIL_QUIET_SECONDS: z.coerce.number().int().min(0).max(86_400).default(600),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .transform((e) => ({

@@ -19,6 +19,9 @@ Object.assign(process.env, {
   NEXT_DIST_DIR: ".next-test",
   // Request lines would drown the test output; warnings and errors still show.
   LOG_LEVEL: process.env.LOG_LEVEL ?? "warn",
+  // Stale-copy digests go out one quiet second after a lab's last change (the default is ten
+  // minutes), so the mail tests see them.
+  STALE_MAIL_QUIET_SECONDS: process.env.STALE_MAIL_QUIET_SECONDS ?? "1",
 });
 loadLocalEnv();
 

@@ -1,9 +1,28 @@
 import type { AuditEntry } from "@/lib/ops/audit";
 import { describeAction, describeDetail } from "@/lib/audit/describe";
+import { formatShortCode } from "@/lib/editions/short-code";
 import { formatDateTime } from "@/lib/format/dates";
 
+/** What the event is about, in words: the chart, the edition (with its short code) and the room. */
+function subject(e: AuditEntry): string | null {
+  const parts: string[] = [];
+  if (e.chart) parts.push(`"${e.chart.title}"`);
+  if (e.edition)
+    parts.push(`edition ${e.edition.number}${e.edition.shortCode ? ` (${formatShortCode(e.edition.shortCode)})` : ""}`);
+  if (e.room) parts.push(`in ${e.room}`);
+  return parts.length ? parts.join(", ") : null;
+}
+
 /** The lab's audit events; times in the lab's IANA time zone. */
-export function AuditTable({ events, timeZone }: { events: AuditEntry[]; timeZone: string }) {
+export function AuditTable({
+  events,
+  timeZone,
+  chartTitles = {},
+}: {
+  events: AuditEntry[];
+  timeZone: string;
+  chartTitles?: Record<number, string>;
+}) {
   return (
     <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full min-w-[48rem] text-left text-sm">
@@ -26,7 +45,8 @@ export function AuditTable({ events, timeZone }: { events: AuditEntry[]; timeZon
         </thead>
         <tbody>
           {events.map((e) => {
-            const lines = describeDetail(e.detail);
+            const lines = describeDetail(e.detail, { chartTitles });
+            const about = subject(e);
             return (
               <tr key={e.id} className="border-b border-line align-top last:border-0" data-action={e.action}>
                 <td className="whitespace-nowrap px-4 py-2 tabular-nums">
@@ -44,6 +64,11 @@ export function AuditTable({ events, timeZone }: { events: AuditEntry[]; timeZon
                 </td>
                 <td className="px-4 py-2">
                   {describeAction(e.action)}
+                  {about ? (
+                    <span className="block font-medium" data-testid="audit-subject">
+                      {about}
+                    </span>
+                  ) : null}
                   {e.labId === null ? <span className="block text-xs text-ink-faint">account event</span> : null}
                 </td>
                 <td className="px-4 py-2">

@@ -6,6 +6,7 @@ const TABS: { href: string; label: string; capability: Capability }[] = [
   { href: "/charts", label: "Charts", capability: "lab:read" },
   { href: "/stock", label: "Stock", capability: "lab:read" },
   { href: "/rooms", label: "Rooms", capability: "lab:read" },
+  { href: "/rules", label: "Rules", capability: "lab:read" },
   { href: "/members", label: "Members", capability: "members:manage" },
   { href: "/audit", label: "Audit log", capability: "audit:read" },
   { href: "/settings", label: "Settings", capability: "lab:read" },

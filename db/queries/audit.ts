@@ -1,8 +1,9 @@
 import "server-only";
-import { and, asc, desc, eq, gt, inArray, isNull, lt, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, gt, gte, inArray, isNull, like, lt, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../index";
 import { db as defaultDb } from "../index";
-import { auditEvents, labTokens, memberships, users } from "../schema";
+import { AUDIT_KINDS, type AuditKind } from "@/lib/audit/describe";
+import { auditEvents, charts, editions, labTokens, memberships, postings, rooms, users } from "../schema";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -46,12 +47,16 @@ export async function listAuditEvents({
   before,
   after,
   limit = 50,
+  kind,
+  actor,
+  from,
+  to,
 }: {
   labId: number;
   before?: number;
   after?: number;
   limit?: number;
-}) {
+} & AuditFilters) {
   const members = defaultDb
     .select({ userId: memberships.userId })
     .from(memberships)
@@ -60,15 +65,18 @@ export async function listAuditEvents({
     .select({ id: sql<string>`CAST(${memberships.userId} AS CHAR)` })
     .from(memberships)
     .where(eq(memberships.labId, labId));
-  const inLab = or(
-    eq(auditEvents.labId, labId),
-    and(
-      isNull(auditEvents.labId),
-      or(
-        inArray(auditEvents.actorUserId, members),
-        and(eq(auditEvents.targetType, "user"), inArray(auditEvents.targetId, memberIds)),
+  const inLab = and(
+    or(
+      eq(auditEvents.labId, labId),
+      and(
+        isNull(auditEvents.labId),
+        or(
+          inArray(auditEvents.actorUserId, members),
+          and(eq(auditEvents.targetType, "user"), inArray(auditEvents.targetId, memberIds)),
+        ),
       ),
     ),
+    filterWhere({ kind, actor, from, to }),
   );
   const size = Math.min(Math.max(limit, 1), 200);
   const rows = await defaultDb
@@ -102,7 +110,108 @@ export async function listAuditEvents({
       : newest !== undefined &&
         (before !== undefined || after !== undefined) &&
         (await hasEvent(and(inLab, gt(auditEvents.id, newest))));
-  return { events: page, olderBefore: hasOlder ? oldest : undefined, newerAfter: hasNewer ? newest : undefined };
+  const { rows: events, chartTitles } = await withSubjects(labId, page);
+  return {
+    events,
+    chartTitles,
+    olderBefore: hasOlder ? oldest : undefined,
+    newerAfter: hasNewer ? newest : undefined,
+  };
+}
+
+/** Which events to show: one kind of event, one person's, between two calendar dates (UTC, inclusive). */
+export type AuditFilters = { kind?: AuditKind; actor?: number; from?: string; to?: string };
+
+function filterWhere({ kind, actor, from, to }: AuditFilters): SQL | undefined {
+  const parts: (SQL | undefined)[] = [];
+  if (kind)
+    parts.push(
+      or(
+        ...AUDIT_KINDS[kind].actions.map((a) =>
+          a.endsWith(".") ? like(auditEvents.action, `${a.replace(/_/g, "\\_")}%`) : eq(auditEvents.action, a),
+        ),
+      ),
+    );
+  if (actor) parts.push(eq(auditEvents.actorUserId, actor));
+  if (from) parts.push(gte(auditEvents.createdAt, new Date(`${from}T00:00:00.000Z`)));
+  if (to) parts.push(lt(auditEvents.createdAt, new Date(new Date(`${to}T00:00:00.000Z`).getTime() + 86_400_000)));
+  return parts.length ? and(...parts) : undefined;
+}
+
+/**
+ * Names what each event is about, so every row can say it: the chart (by title), the edition
+ * (chart title, number and short code) and the room, looked up for the page's rows at once.
+ */
+async function withSubjects<
+  E extends { action: string; targetType: string | null; targetId: string | null; detail: unknown },
+>(labId: number, events: E[]) {
+  const num = (v: unknown) => (typeof v === "number" || (typeof v === "string" && /^\d+$/.test(v)) ? Number(v) : null);
+  const detailOf = (e: E) => (e.detail && typeof e.detail === "object" ? (e.detail as Record<string, unknown>) : {});
+  const postingIds = events.filter((e) => e.targetType === "posting").map((e) => num(e.targetId)!);
+  const postingRows = postingIds.length
+    ? await defaultDb
+        .select({ id: postings.id, editionId: postings.editionId, roomId: postings.roomId })
+        .from(postings)
+        .where(and(eq(postings.labId, labId), inArray(postings.id, postingIds)))
+    : [];
+  const editionIdOf = (e: E) =>
+    e.targetType === "edition"
+      ? num(e.targetId)
+      : e.targetType === "posting"
+        ? (postingRows.find((p) => p.id === num(e.targetId))?.editionId ?? null)
+        : null;
+  const editionIds = [...new Set(events.map(editionIdOf).filter((x): x is number => x !== null))];
+  const editionRows = editionIds.length
+    ? await defaultDb
+        .select({ id: editions.id, chartId: editions.chartId, number: editions.number, shortCode: editions.shortCode })
+        .from(editions)
+        .where(and(eq(editions.labId, labId), inArray(editions.id, editionIds)))
+    : [];
+  const chartIdOf = (e: E) =>
+    e.targetType === "chart"
+      ? num(e.targetId)
+      : (editionRows.find((x) => x.id === editionIdOf(e))?.chartId ?? num(detailOf(e).chartId));
+  const ruleChartIds = events.flatMap((e) =>
+    e.action === "lab.rules_updated"
+      ? ["before", "after"].flatMap((side) => {
+          const ex = (detailOf(e)[side] as { exceptions?: { chartId?: unknown }[] } | undefined)?.exceptions;
+          return Array.isArray(ex) ? ex.map((x) => num(x.chartId)) : [];
+        })
+      : [],
+  );
+  const chartIds = [...new Set([...events.map(chartIdOf), ...ruleChartIds].filter((x): x is number => x !== null))];
+  const chartRows = chartIds.length
+    ? await defaultDb
+        .select({ id: charts.id, title: charts.title })
+        .from(charts)
+        .where(and(eq(charts.labId, labId), inArray(charts.id, chartIds)))
+    : [];
+  const roomIdOf = (e: E) =>
+    e.targetType === "room"
+      ? num(e.targetId)
+      : e.targetType === "posting"
+        ? (postingRows.find((p) => p.id === num(e.targetId))?.roomId ?? null)
+        : null;
+  const roomIds = [...new Set(events.map(roomIdOf).filter((x): x is number => x !== null))];
+  const roomRows = roomIds.length
+    ? await defaultDb
+        .select({ id: rooms.id, name: rooms.name })
+        .from(rooms)
+        .where(and(eq(rooms.labId, labId), inArray(rooms.id, roomIds)))
+    : [];
+  return {
+    rows: events.map((e) => {
+      const ed = editionRows.find((x) => x.id === editionIdOf(e));
+      const chart = chartRows.find((c) => c.id === chartIdOf(e));
+      return {
+        ...e,
+        chart: chart ? { id: chart.id, title: chart.title } : null,
+        edition: ed ? { id: ed.id, number: ed.number, shortCode: ed.shortCode } : null,
+        room: roomRows.find((r) => r.id === roomIdOf(e))?.name ?? null,
+      };
+    }),
+    chartTitles: Object.fromEntries(chartRows.map((c) => [c.id, c.title])) as Record<number, string>,
+  };
 }
 
 async function hasEvent(where: SQL | undefined): Promise<boolean> {

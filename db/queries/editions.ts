@@ -5,9 +5,10 @@ import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
+import { DEFAULT_ROUNDING_CAPS } from "@/lib/sizing";
 import { newShortCode } from "@/lib/editions/short-code";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
-import { reviewByDate } from "@/lib/labs/rules";
+import { checkChartAgainstRules, ruledDefinition, reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
@@ -81,12 +82,14 @@ export async function createEdition(
   const definition = parseStoredDefinition(chart.definition);
   const stock = await readStock(tx, labId);
   assertChartRules(definition, stock);
+  const rules = await getLabRules({ labId }, tx);
   const snapshot = buildSnapshot({
     labName: lab.name,
     labIsDemo: lab.isDemo,
     definition,
     stock,
     logoSha256: chart.logoSha256 ?? null,
+    ruleExceptions: checkChartAgainstRules(chartId, ruledDefinition(definition), rules).applied,
   });
   const problems = snapshotProblems(snapshot, definition);
   if (problems.length) throw new AppError("unprocessable", problems.join(" "));
@@ -232,9 +235,23 @@ export async function approveEdition(
       `This draft no longer matches the lab's stock and settings${changes.length ? ` (${changes.slice(0, 3).join("; ")})` : ""}. Create a new edition and approve that.`,
     );
   }
+  // A chart outside the lab's rules (and not excepted by the medical lead) is never approved.
+  const rules = await getLabRules({ labId }, tx);
+  const snap = ed.snapshot as Snapshot;
+  const { issues } = checkChartAgainstRules(
+    ed.chartId,
+    { law: snap.law, lookups: snap.lookups, caps: snap.caps ?? DEFAULT_ROUNDING_CAPS },
+    rules,
+  );
+  if (issues.length)
+    throw new AppError(
+      "unprocessable",
+      `This chart is outside the lab's rules, so it cannot be approved. ${issues[0]!.message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}. Change the chart, or the medical lead records an exception on the rules page.`,
+      issues.map((i) => ({ path: i.path, message: i.message })),
+    );
   const now = new Date();
   // The review-by date follows the lab's review period at the time of approval and never moves.
-  const { reviewPeriodMonths } = await getLabRules({ labId }, tx);
+  const { reviewPeriodMonths } = rules;
   const reviewBy = reviewByDate(now, reviewPeriodMonths);
   const previous = await tx
     .select({ id: editions.id, number: editions.number })

@@ -2,10 +2,12 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { buildSnapshot } from "@/lib/charts/snapshot";
+import { checkChartAgainstRules, ruledDefinition } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { charts, logos } from "../schema";
 import type { Tx } from "./audit";
 import { reconcilePostings } from "./notices";
+import { getLabRules } from "./lab-rules";
 import { lockLab } from "./lab-lock";
 import { readStock } from "./stock-read";
 
@@ -19,6 +21,7 @@ export type LiveChange = { chartId: number; before: string | null; after: string
 export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveChange[]> {
   const lab = await lockLab(tx, labId);
   const stock = await readStock(tx, labId);
+  const rules = await getLabRules({ labId }, tx);
   const rows = await tx
     .select({
       id: charts.id,
@@ -31,12 +34,14 @@ export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveC
     .where(eq(charts.labId, labId));
   const changed: LiveChange[] = [];
   for (const row of rows) {
+    const definition = parseStoredDefinition(row.definition);
     const snapshot = buildSnapshot({
       labName: lab.name,
       labIsDemo: lab.isDemo,
-      definition: parseStoredDefinition(row.definition),
+      definition,
       stock,
       logoSha256: row.logoSha256 ?? null,
+      ruleExceptions: checkChartAgainstRules(row.id, ruledDefinition(definition), rules).applied,
     });
     const fingerprint = fingerprintOf(snapshot);
     if (fingerprint === row.liveFingerprint) continue;

@@ -54,6 +54,8 @@ export type Snapshot = {
   caution: string;
   /** Rounding caps; editions frozen before caps existed print with DEFAULT_ROUNDING_CAPS. */
   caps?: RoundingCaps;
+  /** Exceptions to the lab's rules the medical lead recorded for this chart; the poster prints them. Absent when none. */
+  ruleExceptions?: { rule: string; reason: string }[];
 };
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
@@ -99,6 +101,8 @@ export function buildSnapshot(input: {
   logoSha256: string | null;
   /** Demo labs carry the "invented and illustrative" clause in their caution; real labs never do. */
   labIsDemo?: boolean;
+  /** The exceptions that apply to this chart (lib/labs/rules.ts checkChartAgainstRules). */
+  ruleExceptions?: { rule: string; reason: string }[];
 }): Snapshot {
   const { definition: def, stock } = input;
   const lookups = def.lookups.map((l): SnapshotLookup => {
@@ -156,6 +160,8 @@ export function buildSnapshot(input: {
     logoSha256: input.logoSha256,
     caution: cautionFor(input.labIsDemo === true),
     caps: { ...(def.roundingCaps ?? DEFAULT_ROUNDING_CAPS) },
+    // Only when there are some, so charts without exceptions keep their fingerprints.
+    ...(input.ruleExceptions?.length ? { ruleExceptions: input.ruleExceptions.map((e) => ({ ...e })) } : {}),
   };
 }
 

@@ -10,4 +10,11 @@ export type StaleItem = {
   current: { editionId: number; number: number } | null;
 };
 
-export type StaleNotice = { labName: string; labSlug: string; cause: string; items: StaleItem[] };
+export type StaleNotice = {
+  /** "all-clear": every copy of the lab is current again (rows from before digests have no kind: stale). */
+  kind?: "stale" | "all-clear";
+  labName: string;
+  labSlug: string;
+  cause: string;
+  items: StaleItem[];
+};

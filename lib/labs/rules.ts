@@ -1,35 +1,322 @@
 import { z } from "zod";
+import { ALLOWED_ROUNDING } from "@/lib/charts/rules";
+import {
+  DEFAULT_ROUNDING,
+  DEFAULT_ROUNDING_CAPS,
+  FINET_DEFAULT_RATIO,
+  LAW_IDS,
+  LAWS,
+  type LawId,
+  type LawSpec,
+  type LookupKind,
+  type RoundingCaps,
+  type RoundingRule,
+} from "@/lib/sizing";
+import { LOOKUP_KINDS, ROUNDING_CAP_MAX_MM, ROUNDING_RULES, lawSpecSchema } from "@/lib/validation/chart";
+import { freeText } from "@/lib/validation/text";
 
 /**
- * The lab's own rules, owned by its medical lead: how long an approved edition stays valid before
- * it is due for review, and whether managers may approve editions (the lead always may).
+ * The lab's own rules, owned by its medical lead: for each lookup kind the laws allowed, the
+ * default law, the rounding rules and the largest rounding caps; how long an approved edition
+ * stays valid before it is due for review; whether managers may approve editions (the lead
+ * always may); and the exceptions the lead recorded for single charts, each with a reason.
  */
-export const labRulesSchema = z
+
+/** The rules a chart can break, and so the rules an exception can name ("legibility" is the poster's size gate). */
+export const RULE_IDS = ["law", "rounding", "caps", "legibility"] as const;
+export type RuleId = (typeof RULE_IDS)[number];
+
+export const RULE_LABELS: Readonly<Record<RuleId, string>> = {
+  law: "Laws allowed",
+  rounding: "Rounding rules allowed",
+  caps: "Rounding caps",
+  legibility: "Legibility at reading distance",
+};
+
+export const KIND_LABELS: Readonly<Record<LookupKind, string>> = {
+  proximal: "POT (proximal) lookup",
+  side: "Side-branch lookup",
+  main: "Main-branch lookup",
+};
+
+const capSchema = (what: string) =>
+  z
+    .number({ error: `The cap ${what} must be a number of millimetres` })
+    .min(0, { error: `The cap ${what} must be 0 mm or more` })
+    .max(ROUNDING_CAP_MAX_MM, { error: `The cap ${what} must be at most ${ROUNDING_CAP_MAX_MM} mm` });
+
+const lookupRulesSchema = z
   .object({
-    reviewPeriodMonths: z
-      .number({ error: "Review period must be a whole number of months" })
-      .int({ error: "Review period must be a whole number of months" })
-      .min(1, { error: "Review period must be at least 1 month" })
-      .max(60, { error: "Review period must be at most 60 months" }),
-    managersMayApprove: z.boolean({ error: "managersMayApprove must be true or false" }),
+    laws: z
+      .array(z.enum(LAW_IDS as [LawId, ...LawId[]], { error: `A law must be one of ${LAW_IDS.join(", ")}` }), {
+        error: "Laws must be a list of law names",
+      })
+      .min(1, { error: "Allow at least one law" })
+      .max(LAW_IDS.length)
+      .refine((v) => new Set(v).size === v.length, { error: "Name each law once" }),
+    defaultLaw: lawSpecSchema,
+    rounding: z
+      .array(z.enum(ROUNDING_RULES, { error: "A rounding rule must be up, down, nearest or reach" }), {
+        error: "Rounding must be a list of rounding rules",
+      })
+      .min(1, { error: "Allow at least one rounding rule" })
+      .max(ROUNDING_RULES.length)
+      .refine((v) => new Set(v).size === v.length, { error: "Name each rounding rule once" }),
+    caps: z
+      .object({ upMm: capSchema("above"), downMm: capSchema("below") }, { error: "Caps must be { upMm, downMm }" })
+      .strict(),
   })
   .strict();
 
+export type LookupRules = z.infer<typeof lookupRulesSchema>;
+
+export const ruleExceptionSchema = z
+  .object({
+    chartId: z
+      .number({ error: "chartId must be a chart id" })
+      .int({ error: "chartId must be a chart id" })
+      .positive({ error: "chartId must be a chart id" }),
+    rule: z.enum(RULE_IDS, { error: `The rule must be one of ${RULE_IDS.join(", ")}` }),
+    reason: freeText({
+      what: "Reason",
+      min: 1,
+      max: 300,
+      minMessage: "Give the reason for the exception",
+      maxMessage: "Keep the reason under 300 characters",
+    }),
+  })
+  .strict();
+
+export type RuleException = z.infer<typeof ruleExceptionSchema>;
+
+const lookupsSchema = z
+  .object(
+    { proximal: lookupRulesSchema, side: lookupRulesSchema, main: lookupRulesSchema },
+    { error: "lookups must name proximal, side and main" },
+  )
+  .strict();
+
+const baseShape = {
+  reviewPeriodMonths: z
+    .number({ error: "Review period must be a whole number of months" })
+    .int({ error: "Review period must be a whole number of months" })
+    .min(1, { error: "Review period must be at least 1 month" })
+    .max(60, { error: "Review period must be at most 60 months" }),
+  managersMayApprove: z.boolean({ error: "managersMayApprove must be true or false" }),
+  lookups: lookupsSchema,
+  exceptions: z
+    .array(ruleExceptionSchema, { error: "exceptions must be a list" })
+    .max(200, { error: "At most 200 exceptions" }),
+};
+
+/** Rules that agree with themselves: the default law is allowed, the rounding within the guardrails, one exception per chart and rule. */
+function checkConsistency(
+  v: { lookups?: Partial<Record<LookupKind, Partial<LookupRules>>>; exceptions?: RuleException[] },
+  ctx: z.RefinementCtx,
+) {
+  for (const kind of LOOKUP_KINDS) {
+    const r = v.lookups?.[kind];
+    if (!r) continue;
+    if (r.laws && r.defaultLaw && !r.laws.includes(r.defaultLaw.law))
+      ctx.addIssue({
+        code: "custom",
+        path: ["lookups", kind, "defaultLaw"],
+        message: `The default law (${LAWS[r.defaultLaw.law].name}) must be one of the laws allowed`,
+      });
+    r.rounding?.forEach((rule, i) => {
+      if (!ALLOWED_ROUNDING[kind].includes(rule))
+        ctx.addIssue({
+          code: "custom",
+          path: ["lookups", kind, "rounding", i],
+          message: `A ${KIND_LABELS[kind].toLowerCase()} rounds ${ALLOWED_ROUNDING[kind].join(", ")} (the clinical guardrail), not ${rule}`,
+        });
+    });
+  }
+  const seen = new Set<string>();
+  v.exceptions?.forEach((e, i) => {
+    const key = `${e.chartId}:${e.rule}`;
+    if (seen.has(key))
+      ctx.addIssue({
+        code: "custom",
+        path: ["exceptions", i, "rule"],
+        message: "This chart already has an exception to this rule",
+      });
+    seen.add(key);
+  });
+}
+
+export const labRulesSchema = z.object(baseShape).strict().superRefine(checkConsistency);
+
 export type LabRules = z.infer<typeof labRulesSchema>;
 
-/** A change to some of the rules; at least one, and no unknown keys. */
-export const labRulesPatchSchema = labRulesSchema
-  .partial()
+/**
+ * A change to some of the rules; at least one, and no unknown keys. A lookup kind may name only
+ * the parts it changes; `exceptions` replaces the whole list. `revision`, when given, must be the
+ * revision the change was made against (409 otherwise).
+ */
+export const labRulesPatchSchema = z
+  .object({
+    reviewPeriodMonths: baseShape.reviewPeriodMonths.optional(),
+    managersMayApprove: baseShape.managersMayApprove.optional(),
+    lookups: z
+      .object(
+        {
+          proximal: lookupRulesSchema.partial().strict().optional(),
+          side: lookupRulesSchema.partial().strict().optional(),
+          main: lookupRulesSchema.partial().strict().optional(),
+        },
+        { error: "lookups must be an object by lookup kind" },
+      )
+      .strict()
+      .optional(),
+    exceptions: baseShape.exceptions.optional(),
+    revision: z
+      .number({ error: "revision must be the revision you read" })
+      .int({ error: "revision must be the revision you read" })
+      .min(0, { error: "revision must be the revision you read" })
+      .optional(),
+  })
   .strict()
-  .refine((v) => Object.keys(v).length > 0, { error: "Name at least one rule to change" });
+  .refine((v) => Object.keys(v).some((k) => k !== "revision"), { error: "Name at least one rule to change" })
+  .superRefine(checkConsistency);
 
-export const DEFAULT_LAB_RULES: LabRules = { reviewPeriodMonths: 12, managersMayApprove: false };
+export type LabRulesPatch = z.infer<typeof labRulesPatchSchema>;
+
+const defaultLookupRules = (kind: LookupKind): LookupRules => ({
+  laws: [...LAW_IDS],
+  defaultLaw: { law: "finet", ratio: FINET_DEFAULT_RATIO },
+  rounding: [...ALLOWED_ROUNDING[kind]],
+  caps: { ...DEFAULT_ROUNDING_CAPS },
+});
+
+// The defaults allow everything the clinical guardrails allow, so a lab without rules behaves as before.
+export const DEFAULT_LAB_RULES: LabRules = {
+  reviewPeriodMonths: 12,
+  managersMayApprove: false,
+  lookups: {
+    proximal: defaultLookupRules("proximal"),
+    side: defaultLookupRules("side"),
+    main: defaultLookupRules("main"),
+  },
+  exceptions: [],
+};
+
+const isObject = (v: unknown): v is Record<string, unknown> => Boolean(v) && typeof v === "object" && !Array.isArray(v);
+
+/** `patch` over `rules`: lookup kinds merged part by part, everything else replaced. */
+export function mergeLabRules(rules: LabRules, patch: Omit<LabRulesPatch, "revision">): unknown {
+  const lookups = { ...rules.lookups } as Record<LookupKind, unknown>;
+  for (const kind of LOOKUP_KINDS) {
+    const p = patch.lookups?.[kind];
+    if (p) lookups[kind] = { ...rules.lookups[kind], ...p };
+  }
+  return { ...rules, ...patch, lookups };
+}
 
 /** Stored rules over the defaults: a rule added later reads as its default in older rows. */
 export function readLabRules(stored: unknown): LabRules {
-  const merged = { ...DEFAULT_LAB_RULES, ...(stored && typeof stored === "object" ? stored : {}) };
-  const parsed = labRulesSchema.safeParse(merged);
+  const s = isObject(stored) ? stored : {};
+  const lookups = Object.fromEntries(
+    LOOKUP_KINDS.map((k) => [
+      k,
+      { ...DEFAULT_LAB_RULES.lookups[k], ...(isObject(s.lookups) && isObject(s.lookups[k]) ? s.lookups[k] : {}) },
+    ]),
+  );
+  const parsed = labRulesSchema.safeParse({ ...DEFAULT_LAB_RULES, ...s, lookups });
   return parsed.success ? parsed.data : DEFAULT_LAB_RULES;
+}
+
+/** The rule names of the top-level rules that differ (lookups compared by value). */
+export function changedRules(before: LabRules, after: LabRules): (keyof LabRules)[] {
+  return (Object.keys(after) as (keyof LabRules)[]).filter(
+    (k) => JSON.stringify(before[k]) !== JSON.stringify(after[k]),
+  );
+}
+
+/** What a chart or a frozen snapshot says about the rules: its law, its lookups and its caps. */
+export type RuledChart = {
+  law: LawSpec;
+  lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
+  caps: RoundingCaps;
+};
+
+export type RuleIssue = { rule: RuleId; path: (string | number)[]; message: string };
+
+const lawName = (id: LawId) => LAWS[id].name;
+
+/** Every lab rule the chart breaks, waived or not. */
+export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
+  const issues: RuleIssue[] = [];
+  chart.lookups.forEach((l, i) => {
+    const r = rules.lookups[l.kind];
+    const kind = KIND_LABELS[l.kind].toLowerCase();
+    if (!r.laws.includes(chart.law.law))
+      issues.push({
+        rule: "law",
+        path: ["law"],
+        message: `Lab rule "laws allowed": the medical lead allows ${r.laws.map(lawName).join(", ")} for a ${kind}, not ${lawName(chart.law.law)}`,
+      });
+    if (!r.rounding.includes(l.rounding))
+      issues.push({
+        rule: "rounding",
+        path: ["lookups", i, "rounding"],
+        message: `Lab rule "rounding rules allowed": a ${kind} rounds ${r.rounding.join(" or ")} in this lab, not ${l.rounding}`,
+      });
+    for (const side of ["upMm", "downMm"] as const)
+      if (chart.caps[side] > r.caps[side] + 1e-9)
+        issues.push({
+          rule: "caps",
+          path: ["roundingCaps", side],
+          message: `Lab rule "rounding caps": a ${kind} may be at most ${r.caps[side]} mm ${side === "upMm" ? "above" : "below"} its target in this lab; the chart allows ${chart.caps[side]} mm`,
+        });
+  });
+  // One issue per rule and field is enough to act on.
+  const seen = new Set<string>();
+  return issues.filter((i) => {
+    const key = `${i.rule}:${i.path.join(".")}`;
+    return seen.has(key) ? false : (seen.add(key), true);
+  });
+}
+
+/**
+ * The chart against the rules: `issues` the lead has not waived (approval is refused while there
+ * are any) and the exceptions that apply, which the poster prints: those whose rule the chart
+ * breaks, and every legibility exception (the poster's own gate decides when it is needed).
+ */
+export function checkChartAgainstRules(
+  chartId: number,
+  chart: RuledChart,
+  rules: LabRules,
+): { issues: RuleIssue[]; applied: { rule: string; reason: string }[] } {
+  const own = rules.exceptions.filter((e) => e.chartId === chartId);
+  const all = labRuleIssues(chart, rules);
+  const waived = new Set(own.map((e) => e.rule));
+  const broken = new Set(all.map((i) => i.rule));
+  return {
+    issues: all.filter((i) => !waived.has(i.rule)),
+    applied: own
+      .filter((e) => e.rule === "legibility" || broken.has(e.rule))
+      .map((e) => ({ rule: e.rule, reason: e.reason })),
+  };
+}
+
+/** A chart definition as the rules see it. */
+export function ruledDefinition(def: {
+  law: LawSpec;
+  lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
+  roundingCaps?: RoundingCaps;
+}): RuledChart {
+  return { law: def.law, lookups: def.lookups, caps: def.roundingCaps ?? DEFAULT_ROUNDING_CAPS };
+}
+
+/** Where a new chart starts: the lab's default law, rounding and caps for its first lookup. */
+export function chartDefaults(rules: LabRules, kind: LookupKind) {
+  const r = rules.lookups[kind];
+  return {
+    law: r.defaultLaw,
+    rounding: r.rounding.includes(DEFAULT_ROUNDING[kind]) ? DEFAULT_ROUNDING[kind] : r.rounding[0]!,
+    roundingCaps: { ...r.caps },
+  };
 }
 
 /** The review-by date of an edition approved at `approvedAt`: the same day `months` later (UTC), clamped to month end. */

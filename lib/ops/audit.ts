@@ -5,11 +5,11 @@ import { labOperation } from "./operation";
 
 export type { AuditEntry } from "@/db/queries/audit";
 
-/** A lab's audit log, newest first, in keyset pages. */
+/** A lab's audit log, newest first, in keyset pages, filtered by kind, person and dates. */
 export const listAudit = labOperation({
   name: "audit.list",
   capability: "audit:read",
   scope: "lab",
   input: auditQuerySchema,
-  run: ({ labId }, { before, after, limit }) => listAuditEvents({ labId, before, after, limit }),
+  run: ({ labId }, query) => listAuditEvents({ labId, ...query }),
 });

@@ -7,6 +7,7 @@ import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { approveEditionSchema, rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
 import { labOperation } from "./operation";
+import { mailSignoff } from "./signoff-mail";
 import { labWrite } from "./write";
 
 // No options yet: the body is empty or {}, and anything else is refused rather than ignored.
@@ -20,6 +21,7 @@ export const createEdition = labOperation({
   input: noOptions,
   run: async ({ labId, actor, ids }) => {
     const ed = await labWrite(labId, (tx) => q.createEdition(tx, { labId, chartId: ids.chartId, actor }));
+    if (!ed.reused) await mailSignoff({ kind: "submitted", labId, editionId: ed.id, byUserId: actor.id });
     return {
       id: ed.id,
       number: ed.number,
@@ -42,6 +44,7 @@ export const approveEdition = labOperation({
   input: approveEditionSchema,
   run: async ({ labId, actor, ids }) => {
     const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
+    await mailSignoff({ kind: "approved", labId, editionId: ed.id, byName: actor.name, reviewBy: ed.reviewBy });
     return {
       id: ed.id,
       number: ed.number,
@@ -60,6 +63,7 @@ export const rejectEdition = labOperation({
   input: rejectEditionSchema,
   run: async ({ labId, actor, ids }, { reason }) => {
     const ed = await labWrite(labId, (tx) => q.rejectEdition(tx, { labId, editionId: ids.editionId, actor, reason }));
+    await mailSignoff({ kind: "returned", labId, editionId: ed.id, byName: actor.name, reason });
     return { id: ed.id, number: ed.number, status: "returned" as const, rejectionReason: reason };
   },
 });

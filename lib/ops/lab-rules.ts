@@ -4,22 +4,28 @@ import { labRulesPatchSchema } from "@/lib/labs/rules";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
-/** The lab's rules, for every member: who may approve and how long an approval lasts. */
+/** The lab's rules and their revision, for every member. */
 export const getLabRules = labOperation({
   name: "lab.rules.get",
   capability: "lab:read",
   scope: "lab",
-  run: async ({ labId }) => q.getLabRules({ labId }),
+  run: async ({ labId }) => {
+    const { rules, revision } = await q.getLabRulesWithRevision({ labId });
+    return { ...rules, revision };
+  },
 });
 
-/** Changes the lab's rules: the medical lead only; every change audited with before and after. */
+/**
+ * Changes the lab's rules: the medical lead only; a stale `revision` is 409; every change
+ * audited with before and after.
+ */
 export const setLabRules = labOperation({
   name: "lab.rules.set",
   capability: "rules:manage",
   scope: "lab",
   input: labRulesPatchSchema,
   run: async ({ labId, actor }, changes) => {
-    const { rules, changed } = await labWrite(labId, (tx) => q.setLabRules(tx, { labId, changes, actor }));
-    return { rules, changed };
+    const { rules, revision, changed } = await labWrite(labId, (tx) => q.setLabRules(tx, { labId, changes, actor }));
+    return { rules, revision, changed };
   },
 });

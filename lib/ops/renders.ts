@@ -52,7 +52,7 @@ export const posterPdf = labOperation({
     await recordAudit({
       labId,
       actorUserId: actor.id,
-      action: "edition.printed",
+      action: "edition.downloaded",
       targetType: "edition",
       targetId: ed.id,
       detail: { number: ed.number, status: ed.status, cached: Boolean(hit) },

@@ -474,7 +474,7 @@ export const ROUTES: RouteRow[] = [
     route: "/api/v1/editions/[id]/pdf",
     url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf`,
     expect: everyoneSignedIn(200),
-    note: "every download is audited as a print",
+    note: "every download is audited (edition.downloaded)",
   },
   {
     kind: "route",
@@ -742,5 +742,13 @@ export const ACTIONS: ActionRow[] = [
     name: "setStaleMailAction",
     allowed: ALL_ROLES,
     note: "changes only the caller's own membership",
+  },
+  // rules area: the rules page's save (the lab rules API rows are with the routes above)
+  {
+    kind: "action",
+    file: "app/(lab)/labs/[slug]/rules/actions.ts",
+    name: "saveLabRulesAction",
+    allowed: ["lead"],
+    note: "the medical lead only; audited",
   },
 ];

@@ -27,6 +27,8 @@ Object.assign(process.env, {
   MAIL_FAKE_URL: `http://127.0.0.1:${testPort + 9}`,
   NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? ".next-cluster",
   LOG_LEVEL: "warn",
+  // Stale-copy digests after one quiet second, so the test sees them go out.
+  STALE_MAIL_QUIET_SECONDS: process.env.STALE_MAIL_QUIET_SECONDS ?? "1",
 });
 delete process.env.DATABASE_URL;
 loadLocalEnv();

@@ -5,7 +5,7 @@ import { expect, test, type Page } from "@playwright/test";
 import { jsqrDecode, rasterise, zbarDecode } from "../support/pdf-tools";
 import { demoEmail, signInPage } from "./support/auth";
 import { demoIds } from "./support/db";
-import { mailTo, waitForMail } from "./support/mail";
+import { mailTo, settleStaleMail, waitForMail } from "./support/mail";
 
 const SWITCH = "NC family A (illustrative) 3.75 mm in stock";
 
@@ -23,6 +23,7 @@ test("a posted poster's QR code reports current, outdated with the size named, a
 }) => {
   const ids = await demoIds();
   await signInPage(page, demoEmail("manager"));
+  await settleStaleMail();
   const mailsBefore = (await mailTo(demoEmail("manager"))).length;
 
   // Download the approved POT poster and read its QR code with two independent decoders.
@@ -56,8 +57,11 @@ test("a posted poster's QR code reports current, outdated with the size named, a
   await setInStock(page, true);
   await page.goto(url!);
   await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
-  // Restoring sent nothing more.
-  expect(await mailTo(demoEmail("manager"))).toHaveLength(mailsBefore + 1);
+  // Restoring sends one all-clear after the quiet period, and nothing else.
+  const cleared = await waitForMail(demoEmail("manager"), mailsBefore + 2);
+  expect(cleared.at(-1)!.subject).toContain("is current again");
+  await page.waitForTimeout(2_000);
+  expect(await mailTo(demoEmail("manager"))).toHaveLength(mailsBefore + 2);
 });
 
 test("the check page works without JavaScript and without signing in, and an unknown token is a 404", async ({

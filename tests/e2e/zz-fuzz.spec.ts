@@ -154,7 +154,7 @@ for (const actor of ACTORS) {
             const now = await fingerprint();
             expect(now, `${row.method} ${url} was refused (${status}) but changed the database`).toBe(before);
           } else {
-            // Accepted requests may write (a PDF download is audited as a print; writes finish
+            // Accepted requests may write (a PDF download is audited; writes finish
             // work after answering, like stale-notice e-mail): let it settle, then re-baseline.
             await new Promise((r) => setTimeout(r, 200));
             before = await fingerprint();

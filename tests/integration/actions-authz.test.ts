@@ -13,6 +13,7 @@ import {
   charts,
   editions,
   invitations,
+  labRules,
   labs,
   labTokens,
   logos,
@@ -211,6 +212,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
     form({ slug: t.lab.slug, name: "Renamed lab", timeZone: "Europe/Berlin", numberFormat: "comma", contactLine: "" }),
   createTokenAction: (t) => ({ slug: t.lab.slug, name: "New feed", scopes: ["stock:read", "stock:write"] }),
   revokeTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
+  saveLabRulesAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
 };
 
 async function snapshot(labId: number) {
@@ -276,6 +278,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
   "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
   "app/(lab)/labs/[slug]/settings/actions.ts": () => import("@/app/(lab)/labs/[slug]/settings/actions"),
+  "app/(lab)/labs/[slug]/rules/actions.ts": () => import("@/app/(lab)/labs/[slug]/rules/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);
@@ -343,6 +346,12 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "setChartLogoAction", "manager")).toMatchObject({
       ok: true,
     });
+    expect(await call("app/(lab)/labs/[slug]/rules/actions.ts", "saveLabRulesAction", "lead")).toMatchObject({
+      ok: true,
+      data: { revision: 1 },
+    });
+    const [rules] = await db.select().from(labRules).where(eq(labRules.labId, team.lab.id));
+    expect(rules?.rules).toMatchObject({ reviewPeriodMonths: 6, managersMayApprove: true });
     const after = await snapshot(team.lab.id);
     expect(after.stock.balloons.find((b) => b.id === wall.balloonId)?.inStock).toBe(false);
     expect(after.stock.sizes.length).toBe(before.stock.sizes.length + 1);

@@ -160,4 +160,50 @@ describe("lab rules routes", () => {
     const ok = await call(putRules, { slug: team.lab.slug }, "PUT", { reviewPeriodMonths: 24 });
     expect(ok).toMatchObject({ status: 200, json: { rules: { reviewPeriodMonths: 24, managersMayApprove: false } } });
   });
+
+  it("PUT per lookup kind: 400 naming nested fields and missing reasons, 409 for a stale revision; approval of a chart outside them is 422 naming the rule", async () => {
+    asRole("lead");
+    const { json: read } = await call(getRules, { slug: team.lab.slug }, "GET");
+    const revision = read.revision as number;
+    for (const [body, path] of [
+      [{ lookups: { proximal: { laws: ["murray", "murray"] } } }, ["lookups", "proximal", "laws"]],
+      [{ lookups: { proximal: { caps: { upMm: 0.25 } } } }, ["lookups", "proximal", "caps", "downMm"]],
+      [{ exceptions: [{ chartId, rule: "law" }] }, ["exceptions", 0, "reason"]],
+      [{ exceptions: [{ chartId, rule: "law", reason: "ok", note: 1 }] }, ["exceptions", 0]],
+    ] as const) {
+      const res = await call(putRules, { slug: team.lab.slug }, "PUT", body);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(
+        res.json.error.issues.map((i) => JSON.stringify(i.path)),
+        JSON.stringify(body),
+      ).toContain(JSON.stringify(path));
+    }
+    const stale = await call(putRules, { slug: team.lab.slug }, "PUT", {
+      revision: revision + 5,
+      reviewPeriodMonths: 6,
+    });
+    expect(stale.status).toBe(409);
+    expect(JSON.stringify(stale.json.error.issues)).toContain("revision");
+    const narrowed = await call(putRules, { slug: team.lab.slug }, "PUT", {
+      revision,
+      lookups: { proximal: { laws: ["murray"] } },
+    });
+    // The default law (Finet) would no longer be allowed.
+    expect(narrowed.status).toBe(400);
+    expect(JSON.stringify(narrowed.json.error.issues)).toContain("defaultLaw");
+    const ok = await call(putRules, { slug: team.lab.slug }, "PUT", {
+      revision,
+      lookups: { proximal: { laws: ["finet", "huo-kassab"], defaultLaw: { law: "huo-kassab" } } },
+    });
+    expect(ok).toMatchObject({ status: 200, json: { revision: revision + 1, changed: ["lookups"] } });
+
+    asRole("educator");
+    const { json: ed } = await call(createEditionRoute, { id: String(chartId) }, "POST");
+    asRole("lead");
+    const refused = await call(approveRoute, { id: String(ed.id) }, "POST", { reviewed: true });
+    expect(refused.status).toBe(422);
+    expect(String((refused.json.error as unknown as { message: string }).message)).toMatch(/laws allowed.*not Murray/);
+    // Leave the lab as the other tests expect it: no rules recorded.
+    await db.delete(labRules).where(eq(labRules.labId, team.lab.id));
+  });
 });

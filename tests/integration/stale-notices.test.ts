@@ -8,6 +8,7 @@ import { roomBoard } from "@/db/queries/rooms";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting, updateBalloon } from "./support/writes";
 import { balloonFamilies, balloons, labs, memberships, postings, staleNotices, users } from "@/db/schema";
 import { env } from "@/lib/env";
+import { deliverDigest } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 
 // An invented lab of its own; mail goes over SMTP to the fake that `npm test` runs.
@@ -105,6 +106,12 @@ beforeAll(async () => {
 
 afterAll(() => pool.end());
 
+// What the timer does once the lab has been quiet (STALE_MAIL_QUIET_SECONDS, 1 s under npm test).
+async function afterQuietPeriod() {
+  await new Promise((r) => setTimeout(r, env.STALE_MAIL_QUIET_SECONDS * 1000 + 100));
+  return deliverDigest({ labId: ids.lab });
+}
+
 describe("stale copies", () => {
   it("a posted current edition starts current, on the check page and the room board", async () => {
     expect((await getCheckByToken({ token: ids.token }))!.status).toBe("current");
@@ -124,6 +131,9 @@ describe("stale copies", () => {
     expect(check!.status).toBe("outdated");
     expect(check!.changes.map((c) => c.detail)).toContain("3.75 mm NC balloon no longer stocked (NC test family)");
 
+    // Nothing before the quiet period; then one digest.
+    if (env.STALE_MAIL_QUIET_SECONDS > 0) expect(await mailTo(emails.manager)).toEqual([]);
+    expect(await afterQuietPeriod()).toBe("digest");
     const [mail, ...more] = await mailTo(emails.manager);
     expect(more).toEqual([]);
     expect(mail!.subject).toContain("1 wall printout to replace");
@@ -140,6 +150,7 @@ describe("stale copies", () => {
       balloonId: await balloonId(3.5),
       patch: { inStock: false },
     });
+    expect(await afterQuietPeriod()).toBeNull();
     expect(await mailTo(emails.manager)).toHaveLength(1);
     const notices = await db.select().from(staleNotices).where(eq(staleNotices.labId, ids.lab));
     expect(notices).toHaveLength(1);
@@ -171,16 +182,21 @@ describe("stale copies", () => {
       patch: { inStock: false },
     });
     expect((await getCheckByToken({ token: ids.token }))!.status).toBe("current");
-    expect(await mailTo(emails.manager)).toHaveLength(1);
+    // Every copy is current again: one all-clear after the quiet period.
+    expect(await afterQuietPeriod()).toBe("all-clear");
+    const cleared = await mailTo(emails.manager);
+    expect(cleared).toHaveLength(2);
+    expect(cleared[1]!.subject).toContain("current again");
 
     // A newer approved edition supersedes the posted one: one more e-mail, pointing at it.
     const next = await createEdition({ labId: ids.lab, chartId: ids.chart, actor: people.educator });
     await approveEdition({ labId: ids.lab, editionId: next.id, actor: people.manager });
     const check = await getCheckByToken({ token: ids.token });
     expect(check).toMatchObject({ status: "superseded", currentEdition: { number: 2 } });
+    expect(await afterQuietPeriod()).toBe("digest");
     const mails = await mailTo(emails.manager);
-    expect(mails).toHaveLength(2);
-    expect(mails[1]!.text).toContain(`/api/v1/editions/${next.id}/pdf`);
+    expect(mails).toHaveLength(3);
+    expect(mails[2]!.text).toContain(`/api/v1/editions/${next.id}/pdf`);
     expect((await getEdition({ labId: ids.lab, editionId: ids.edition }))!.status).toBe("superseded");
   });
 });

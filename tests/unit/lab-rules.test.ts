@@ -1,23 +1,141 @@
 import { describe, expect, it } from "vitest";
-import { DEFAULT_LAB_RULES, labRulesPatchSchema, readLabRules, reviewByDate } from "@/lib/labs/rules";
+import {
+  checkChartAgainstRules,
+  chartDefaults,
+  DEFAULT_LAB_RULES,
+  labRulesPatchSchema,
+  labRulesSchema,
+  mergeLabRules,
+  readLabRules,
+  reviewByDate,
+  type LabRules,
+  type RuledChart,
+} from "@/lib/labs/rules";
+
+const potChart: RuledChart = {
+  law: { law: "murray" },
+  lookups: [{ kind: "proximal", rounding: "up" }],
+  caps: { upMm: 0.25, downMm: 0.5 },
+};
+
+const strict: LabRules = {
+  ...DEFAULT_LAB_RULES,
+  lookups: {
+    ...DEFAULT_LAB_RULES.lookups,
+    proximal: {
+      laws: ["finet", "huo-kassab"],
+      defaultLaw: { law: "huo-kassab" },
+      rounding: ["up"],
+      caps: { upMm: 0.25, downMm: 0.25 },
+    },
+  },
+};
 
 describe("lab rules", () => {
-  it("reads stored rules over the defaults and falls back on a broken row", () => {
+  it("reads stored rules over the defaults, kind by kind, and falls back on a broken row", () => {
     expect(readLabRules(null)).toEqual(DEFAULT_LAB_RULES);
-    expect(readLabRules({ reviewPeriodMonths: 6 })).toEqual({ reviewPeriodMonths: 6, managersMayApprove: false });
+    expect(readLabRules({ reviewPeriodMonths: 6 })).toEqual({ ...DEFAULT_LAB_RULES, reviewPeriodMonths: 6 });
     expect(readLabRules({ reviewPeriodMonths: "six" })).toEqual(DEFAULT_LAB_RULES);
+    const partial = readLabRules({ lookups: { side: { rounding: ["down"] } } });
+    expect(partial.lookups.side).toEqual({ ...DEFAULT_LAB_RULES.lookups.side, rounding: ["down"] });
+    expect(partial.lookups.proximal).toEqual(DEFAULT_LAB_RULES.lookups.proximal);
   });
 
-  it("refuses unknown keys, wrong types and an empty change", () => {
+  it("the defaults allow what the clinical guardrails allow, starting from Finet", () => {
+    expect(DEFAULT_LAB_RULES.lookups.proximal.rounding).toEqual(["up", "nearest", "reach"]);
+    expect(DEFAULT_LAB_RULES.lookups.side.laws).toHaveLength(5);
+    expect(checkChartAgainstRules(1, potChart, DEFAULT_LAB_RULES)).toEqual({ issues: [], applied: [] });
+  });
+
+  it("refuses unknown keys, wrong types, missing reasons and an empty change, naming the field", () => {
     expect(labRulesPatchSchema.safeParse({ managersMayApprove: true }).success).toBe(true);
-    for (const bad of [
-      {},
-      { other: 1 },
-      { reviewPeriodMonths: 0 },
-      { reviewPeriodMonths: 61 },
-      { managersMayApprove: 1 },
-    ])
-      expect(labRulesPatchSchema.safeParse(bad).success, JSON.stringify(bad)).toBe(false);
+    expect(labRulesPatchSchema.safeParse({ lookups: { side: { rounding: ["down"] } }, revision: 3 }).success).toBe(
+      true,
+    );
+    const bad: [unknown, string][] = [
+      [{}, ""],
+      [{ revision: 2 }, ""],
+      [{ other: 1 }, ""],
+      [{ reviewPeriodMonths: 0 }, "reviewPeriodMonths"],
+      [{ reviewPeriodMonths: 61 }, "reviewPeriodMonths"],
+      [{ managersMayApprove: 1 }, "managersMayApprove"],
+      [{ lookups: { proximal: { laws: [] } } }, "lookups.proximal.laws"],
+      [{ lookups: { proximal: { laws: ["bernoulli"] } } }, "lookups.proximal.laws.0"],
+      [
+        { lookups: { proximal: { laws: ["murray"], defaultLaw: { law: "finet", ratio: 0.7 } } } },
+        "lookups.proximal.defaultLaw",
+      ],
+      [{ lookups: { side: { rounding: ["up"] } } }, "lookups.side.rounding.0"],
+      [{ lookups: { side: { caps: { upMm: 2, downMm: 0.5 } } } }, "lookups.side.caps.upMm"],
+      [{ lookups: { side: { caps: { upMm: "0.2", downMm: 0.5 } } } }, "lookups.side.caps.upMm"],
+      [{ lookups: { distal: {} } }, "lookups"],
+      [{ exceptions: [{ chartId: 4, rule: "law" }] }, "exceptions.0.reason"],
+      [{ exceptions: [{ chartId: 4, rule: "law", reason: "  " }] }, "exceptions.0.reason"],
+      [{ exceptions: [{ chartId: 4, rule: "speed", reason: "x" }] }, "exceptions.0.rule"],
+      [{ exceptions: [{ chartId: "4", rule: "law", reason: "x" }] }, "exceptions.0.chartId"],
+      [{ revision: -1, managersMayApprove: true }, "revision"],
+    ];
+    for (const [body, field] of bad) {
+      const r = labRulesPatchSchema.safeParse(body);
+      expect(r.success, JSON.stringify(body)).toBe(false);
+      if (field)
+        expect(
+          r.error!.issues.map((i) => i.path.join(".")),
+          JSON.stringify(body),
+        ).toContain(field);
+    }
+  });
+
+  it("merges a change kind by kind and checks the whole", () => {
+    const merged = mergeLabRules(DEFAULT_LAB_RULES, { lookups: { proximal: { laws: ["murray"] } } });
+    // The default (Finet) is no longer allowed: the whole refuses it, naming the default.
+    const r = labRulesSchema.safeParse(merged);
+    expect(r.success).toBe(false);
+    expect(r.error!.issues[0]!.path).toEqual(["lookups", "proximal", "defaultLaw"]);
+  });
+
+  it("names each rule a chart breaks; an exception waives it and is printed", () => {
+    const res = checkChartAgainstRules(7, { ...potChart, caps: { upMm: 0.25, downMm: 0.5 } }, strict);
+    expect(res.issues.map((i) => [i.rule, i.path.join(".")])).toEqual([
+      ["law", "law"],
+      ["caps", "roundingCaps.downMm"],
+    ]);
+    expect(res.issues[0]!.message).toMatch(/laws allowed.*Finet, Huo-Kassab.*not Murray/);
+    const excepted: LabRules = {
+      ...strict,
+      exceptions: [
+        { chartId: 7, rule: "law", reason: "Murray agreed for the teaching chart" },
+        { chartId: 7, rule: "rounding", reason: "Not broken, so not printed" },
+        { chartId: 7, rule: "legibility", reason: "Hung at the table" },
+        { chartId: 8, rule: "caps", reason: "Another chart" },
+      ],
+    };
+    const after = checkChartAgainstRules(7, potChart, excepted);
+    expect(after.issues.map((i) => i.rule)).toEqual(["caps"]);
+    expect(after.applied).toEqual([
+      { rule: "law", reason: "Murray agreed for the teaching chart" },
+      { rule: "legibility", reason: "Hung at the table" },
+    ]);
+    expect(
+      checkChartAgainstRules(
+        7,
+        { ...potChart, lookups: [{ kind: "proximal", rounding: "nearest" }] },
+        strict,
+      ).issues.map((i) => i.rule),
+    ).toContain("rounding");
+  });
+
+  it("new charts start from the lab's default law, an allowed rounding and its caps", () => {
+    expect(chartDefaults(strict, "proximal")).toEqual({
+      law: { law: "huo-kassab" },
+      rounding: "up",
+      roundingCaps: { upMm: 0.25, downMm: 0.25 },
+    });
+    const noDown: LabRules = {
+      ...strict,
+      lookups: { ...strict.lookups, side: { ...strict.lookups.side, rounding: ["nearest"] } },
+    };
+    expect(chartDefaults(noDown, "side").rounding).toBe("nearest");
   });
 
   it("puts the review-by date the period later, clamped to the end of a shorter month", () => {

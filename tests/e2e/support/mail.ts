@@ -1,5 +1,6 @@
 // Reads what the SMTP fake received, over the fake's own HTTP interface (not the app's tables).
 import { expect } from "@playwright/test";
+import { query } from "./db";
 
 export type FakeMessage = { id: number; envelopeTo: string[]; subject: string; text: string };
 
@@ -29,4 +30,23 @@ export function linkIn(message: FakeMessage, kind: "invite" | "reset-password"):
   const m = message.text.match(new RegExp(`https?://\\S+/${kind}/[A-Za-z0-9_-]{43}`));
   if (!m) throw new Error(`no ${kind} link in: ${message.text}`);
   return m[0];
+}
+
+/**
+ * Waits until no stale-copy notice waits for its digest (they go out one quiet period after a
+ * lab's last change, STALE_MAIL_QUIET_SECONDS), so a test counting e-mails starts from a settled
+ * mailbox rather than catching an earlier test's digest.
+ */
+export async function settleStaleMail(): Promise<void> {
+  await expect
+    .poll(
+      async () => (await query<{ n: number }>("SELECT COUNT(*) AS n FROM stale_notices WHERE sent_at IS NULL"))[0]!.n,
+      {
+        message: "stale-copy digests still waiting",
+        timeout: 15_000,
+      },
+    )
+    .toBe(0);
+  // The claim commits before the SMTP send; give the send a moment to land.
+  await new Promise((r) => setTimeout(r, 500));
 }

@@ -2,6 +2,7 @@ import { notFound } from "next/navigation";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
+import { RuleIssues } from "@/components/rules/rule-issues";
 import { Caution } from "@/components/ui/caution";
 import { forPage } from "@/lib/auth/page-guard";
 import { getChart } from "@/lib/ops/charts";
@@ -9,18 +10,25 @@ import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
 import { env } from "@/lib/env";
+import { checkChartAgainstRules, ruledDefinition } from "@/lib/labs/rules";
 import { labCan } from "@/lib/ops/access";
+import { getLabRules } from "@/lib/ops/lab-rules";
 import { can } from "@/lib/permissions";
 
 export default async function ChartPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
   const { slug, id } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts/${id}`);
   if (member === "forbidden") return null;
-  const [{ chart, editions: eds }, stock] = await forPage(`/labs/${slug}/charts/${id}`, () =>
-    Promise.all([getChart(member.caller, { chartId: id }), getStock(member.caller, { lab: slug })]),
+  const [{ chart, editions: eds }, stock, rules] = await forPage(`/labs/${slug}/charts/${id}`, () =>
+    Promise.all([
+      getChart(member.caller, { chartId: id }),
+      getStock(member.caller, { lab: slug }),
+      getLabRules(member.caller, { lab: slug }),
+    ]),
   );
   // A chart of another lab is not found through this lab's address.
   if (chart.labId !== member.lab.id) notFound();
+  const ruled = checkChartAgainstRules(chart.id, ruledDefinition(chart.definition), rules);
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
@@ -40,6 +48,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         logoSha256={chart.logoSha256}
         canEdit={can(member.role, "chart:design")}
       />
+      <RuleIssues slug={slug} issues={ruled.issues} applied={ruled.applied} />
       <EditionsPanel
         slug={slug}
         timeZone={member.lab.timeZone}

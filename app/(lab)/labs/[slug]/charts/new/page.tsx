@@ -4,7 +4,8 @@ import { Forbidden } from "@/components/ui/forbidden";
 import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { defaultLookup } from "@/lib/charts/defaults";
-import { DEFAULT_ROUNDING_CAPS, FINET_DEFAULT_RATIO } from "@/lib/sizing";
+import { chartDefaults } from "@/lib/labs/rules";
+import { getLabRules } from "@/lib/ops/lab-rules";
 import type { ChartDefinition } from "@/lib/validation/chart";
 
 export const metadata = { title: "New chart" };
@@ -13,18 +14,23 @@ export default async function NewChartPage({ params }: { params: Promise<{ slug:
   const { slug } = await params;
   const member = await memberForPage(slug, "chart:design", `/labs/${slug}/charts/new`);
   if (member === "forbidden") return <Forbidden what="design charts" slug={slug} />;
-  const stock = await getStock(member.caller, { lab: slug });
+  const [stock, rules] = await Promise.all([
+    getStock(member.caller, { lab: slug }),
+    getLabRules(member.caller, { lab: slug }),
+  ]);
   const family = stock.balloonFamilies.find((f) => f.compliance === "nc") ?? stock.balloonFamilies[0];
+  // A new chart starts from the law, rounding and caps the lab's medical lead set as defaults.
+  const start = chartDefaults(rules, "proximal");
   const initial: ChartDefinition = {
     title: "POT balloon chart",
-    law: { law: "finet", ratio: FINET_DEFAULT_RATIO },
-    lookups: [defaultLookup("proximal", family)],
+    law: start.law,
+    lookups: [{ ...defaultLookup("proximal", family), rounding: start.rounding }],
     stentPlatformId: stock.stentPlatforms[0]?.id ?? null,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,
     notes: "",
-    roundingCaps: { ...DEFAULT_ROUNDING_CAPS },
+    roundingCaps: start.roundingCaps,
   };
   return (
     <div>

@@ -1,0 +1,1 @@
+ALTER TABLE `lab_rules` ADD `revision` int DEFAULT 0 NOT NULL;
