@@ -2,6 +2,7 @@
 // system pushes stock with it (Authorization: Bearer), posted copies turn outdated and the
 // managers are mailed, exactly as when a person makes the change; every refusal (another lab,
 // another route, a missing scope, a revoked or unknown token, the rate limit) changes nothing.
+import { deliverDigest } from "@/lib/ops/notices";
 import { and, desc, eq, like, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
@@ -222,6 +223,8 @@ describe("a token at work", () => {
     expect((await balloonAt(team.lab.id, 3.25)).inStock).toBe(false);
     const check = await getCheckByToken({ token: ids.checkToken });
     expect(check!.status).toBe("outdated");
+    // The same digest path as a person's change: one mail once the lab has been quiet.
+    expect(await deliverDigest({ labId: team.lab.id, quietSeconds: 0 })).toBe("digest");
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(1);
     expect(mails[0]!.text).toContain("Procedure room T");
