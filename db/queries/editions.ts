@@ -42,6 +42,32 @@ export async function getEdition({ labId, editionId }: { labId: number; editionI
   };
 }
 
+/** The chart's approved edition other than this one: what approving this edition would replace. */
+export async function getReplacedEdition({
+  labId,
+  chartId,
+  editionId,
+}: {
+  labId: number;
+  chartId: number;
+  editionId: number;
+}) {
+  const [row] = await db
+    .select({ id: editions.id, number: editions.number, snapshot: editions.snapshot })
+    .from(editions)
+    .where(
+      and(
+        eq(editions.labId, labId),
+        eq(editions.chartId, chartId),
+        eq(editions.status, "approved"),
+        ne(editions.id, editionId),
+      ),
+    )
+    .orderBy(desc(editions.number))
+    .limit(1);
+  return row ? { id: row.id, number: row.number, snapshot: row.snapshot as Snapshot } : null;
+}
+
 export async function listEditions({ labId, chartId }: { labId: number; chartId: number }) {
   return db
     .select({

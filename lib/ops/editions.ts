@@ -2,6 +2,7 @@ import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/editions";
 import { gridJson } from "@/lib/charts/grid-model";
+import { diffCells, type EditionDiff } from "@/lib/editions/diff";
 import { editionUrls } from "@/lib/charts/present";
 import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
@@ -84,5 +85,18 @@ export const editionGrid = labOperation({
     const edition = await q.getEdition({ labId, editionId: ids.editionId });
     if (!edition) throw notFound("Edition");
     return gridJson(edition.snapshot);
+  },
+});
+
+/** The printed cells that differ from the edition this one would replace (every cell when none). */
+export const editionDiff = labOperation({
+  name: "edition.diff",
+  capability: "lab:read",
+  scope: "edition",
+  run: async ({ labId, ids }): Promise<EditionDiff> => {
+    const edition = await q.getEdition({ labId, editionId: ids.editionId });
+    if (!edition) throw notFound("Edition");
+    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    return { against: against?.id ?? null, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
   },
 });

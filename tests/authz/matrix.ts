@@ -547,6 +547,22 @@ export const ROUTES: RouteRow[] = [
   stockWrite("PATCH", "/sizes/[id]", "/sizes/0", {}),
   stockWrite("DELETE", "/sizes/[id]", "/sizes/0"),
   { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
+
+  // area signoff: edition diff, chart archive
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/diff",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/diff`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/diff",
+    url: "/api/v1/editions/999999999/diff",
+    expect: everyoneSignedIn(404),
+  },
 ];
 
 const ANYONE = ["anonymous", ...ALL_ROLES] as const;
