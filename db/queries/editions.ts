@@ -1,6 +1,6 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { and, desc, eq, gt, inArray, isNotNull, max, ne } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, max, ne } from "drizzle-orm";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
@@ -53,7 +53,13 @@ export async function getReplacedEdition({
   editionId: number;
 }) {
   const [row] = await db
-    .select({ id: editions.id, number: editions.number, snapshot: editions.snapshot })
+    .select({
+      id: editions.id,
+      number: editions.number,
+      snapshot: editions.snapshot,
+      approvedAt: editions.approvedAt,
+      approvedByName: editions.approvedByName,
+    })
     .from(editions)
     .where(
       and(
@@ -65,7 +71,26 @@ export async function getReplacedEdition({
     )
     .orderBy(desc(editions.number))
     .limit(1);
-  return row ? { id: row.id, number: row.number, snapshot: row.snapshot as Snapshot } : null;
+  return row ? { ...row, snapshot: row.snapshot as Snapshot } : null;
+}
+
+/** Drafts waiting for sign-off in a lab, oldest first; archived charts' drafts do not wait. */
+export async function listWaitingDrafts({ labId }: { labId: number }) {
+  return db
+    .select({
+      id: editions.id,
+      number: editions.number,
+      chartId: editions.chartId,
+      chartTitle: charts.title,
+      createdAt: editions.createdAt,
+      createdBy: editions.createdBy,
+      createdByName: users.name,
+    })
+    .from(editions)
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .leftJoin(users, eq(users.id, editions.createdBy))
+    .where(and(eq(editions.labId, labId), eq(editions.status, "draft"), isNull(charts.archivedAt)))
+    .orderBy(asc(editions.createdAt), asc(editions.id));
 }
 
 export async function listEditions({ labId, chartId }: { labId: number; chartId: number }) {

@@ -100,3 +100,24 @@ export const editionDiff = labOperation({
     return { against: against?.id ?? null, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
   },
 });
+
+/** What an approver reviews: the edition, the approved edition it would replace, and the changed cells. */
+export const editionReview = labOperation({
+  name: "edition.review",
+  capability: "lab:read",
+  scope: "edition",
+  run: async ({ labId, ids }) => {
+    const edition = await q.getEdition({ labId, editionId: ids.editionId });
+    if (!edition) throw notFound("Edition");
+    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    return { edition, against, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
+  },
+});
+
+/** The approvers' queue: drafts waiting for sign-off, oldest first. */
+export const signOffQueue = labOperation({
+  name: "edition.queue",
+  capability: "edition:approve",
+  scope: "lab",
+  run: async ({ labId }) => q.listWaitingDrafts({ labId }),
+});
