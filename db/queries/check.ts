@@ -1,8 +1,9 @@
 import "server-only";
 import { and, desc, eq, ne } from "drizzle-orm";
+import { sameClinical } from "@/lib/charts/clinical";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { copyAction, type CopyAction } from "@/lib/editions/action";
-import { checkEdition, type CheckStatus } from "@/lib/editions/check";
+import { checkEdition, type CheckStatus, type Reworded } from "@/lib/editions/check";
 import type { Change } from "@/lib/charts/changes";
 import { db } from "../index";
 import { charts, editions, labs } from "../schema";
@@ -17,6 +18,8 @@ export type CheckView = {
   lab: { id: number; slug: string; name: string; isDemo: boolean };
   changes: Change[];
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
+  /** An edition that only rewords this copy (its clinical content is the same), when one exists. */
+  reworded: Reworded | null;
 };
 
 /** Everything the public check page shows for one QR token: no personal data. */
@@ -44,15 +47,24 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
       number: editions.number,
       approvedAt: editions.approvedAt,
       fingerprint: editions.fingerprint,
+      snapshot: editions.snapshot,
     })
     .from(editions)
     .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
     .orderBy(desc(editions.number))
     .limit(1);
+  const [draft] = await db
+    .select({ number: editions.number, fingerprint: editions.fingerprint, snapshot: editions.snapshot })
+    .from(editions)
+    .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "draft")))
+    .orderBy(desc(editions.number))
+    .limit(1);
+  const liveSnapshot = row.chart.liveSnapshot as Snapshot | null;
   const result = checkEdition(
     { ...row.edition, snapshot: row.edition.snapshot as Snapshot },
-    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot: row.chart.liveSnapshot as Snapshot | null },
-    current ?? null,
+    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot },
+    current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
+    draft ? { ...draft, snapshot: draft.snapshot as Snapshot } : null,
   );
   const since =
     result.status === "withdrawn"
@@ -68,7 +80,13 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     status: result.status,
     reviewBy: row.edition.reviewBy,
     replacement: current
-      ? { number: current.number, matchesToday: current.fingerprint === row.chart.liveFingerprint }
+      ? {
+          number: current.number,
+          // A replacement that only rewords today's chart still prints today's clinical content.
+          matchesToday:
+            current.fingerprint === row.chart.liveFingerprint ||
+            (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
+        }
       : null,
     now: new Date(),
   });
@@ -82,5 +100,6 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     lab: row.lab,
     changes: result.changes,
     currentEdition: current ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
+    reworded: result.reworded ?? null,
   };
 }

@@ -51,7 +51,13 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
     .orderBy(desc(postings.postedAt));
   if (rows.length === 0) return [];
   const approved = await conn
-    .select({ id: editions.id, chartId: editions.chartId, number: editions.number, approvedAt: editions.approvedAt })
+    .select({
+      id: editions.id,
+      chartId: editions.chartId,
+      number: editions.number,
+      approvedAt: editions.approvedAt,
+      snapshot: editions.snapshot,
+    })
     .from(editions)
     .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
   return rows.map((r) => {
@@ -59,7 +65,7 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
     const result = checkEdition(
       { ...r.edition, snapshot: r.edition.snapshot as Snapshot },
       { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null },
-      current,
+      current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
     );
     return {
       postingId: r.posting.id,

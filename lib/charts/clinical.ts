@@ -1,7 +1,8 @@
 // Which part of a snapshot is clinical content: what a posted copy must agree with to stay on the
 // wall. Wording and layout (title, notes, logo, lab name, paper) may change without making a copy
-// wrong; the full fingerprint still tells editions apart.
-import { fingerprintOf } from "./fingerprint";
+// wrong; the full fingerprint still tells editions apart. No node: imports (the check page's
+// client code reaches this file through lib/editions/check.ts).
+import canonicalize from "canonicalize";
 import type { Snapshot } from "./snapshot";
 
 /**
@@ -26,10 +27,12 @@ export function clinicalPart(snapshot: Snapshot): ClinicalPart {
   return out as ClinicalPart;
 }
 
-/** SHA-256 over the clinical part only: equal when two snapshots print the same clinical content. */
-export const clinicalFingerprint = (snapshot: Snapshot): string => fingerprintOf(clinicalPart(snapshot));
+/** The clinical part as RFC 8785 canonical JSON: equal strings, equal clinical content. */
+export const clinicalKey = (snapshot: Snapshot): string => canonicalize(clinicalPart(snapshot)) ?? "";
+
+export const sameClinical = (a: Snapshot, b: Snapshot): boolean => clinicalKey(a) === clinicalKey(b);
 
 /** Whether two snapshots differ only in wording or layout (false when they are identical). */
 export function wordingOnly(a: Snapshot, b: Snapshot): boolean {
-  return fingerprintOf(a) !== fingerprintOf(b) && clinicalFingerprint(a) === clinicalFingerprint(b);
+  return canonicalize(a) !== canonicalize(b) && sameClinical(a, b);
 }

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { clinicalFingerprint, wordingOnly } from "@/lib/charts/clinical";
-import { fingerprintOf } from "@/lib/charts/fingerprint";
+import { wordingOnly } from "@/lib/charts/clinical";
+import { clinicalFingerprint, fingerprintOf } from "@/lib/charts/fingerprint";
 import { buildSnapshot, type Snapshot } from "@/lib/charts/snapshot";
 import { diffCells, printedCells } from "@/lib/editions/diff";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
