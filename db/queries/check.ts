@@ -33,6 +33,7 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
         liveFingerprint: charts.liveFingerprint,
         liveSnapshot: charts.liveSnapshot,
         liveChangedAt: charts.liveChangedAt,
+        archivedAt: charts.archivedAt,
       },
       lab: { id: labs.id, slug: labs.slug, name: labs.name, isDemo: labs.isDemo },
     })
@@ -62,13 +63,15 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
   const liveSnapshot = row.chart.liveSnapshot as Snapshot | null;
   const result = checkEdition(
     { ...row.edition, snapshot: row.edition.snapshot as Snapshot },
-    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot },
+    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot, archivedAt: row.chart.archivedAt },
     current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
     draft ? { ...draft, snapshot: draft.snapshot as Snapshot } : null,
   );
+  // An archived chart has nothing to replace its copies with: they come down.
+  const archived = row.chart.archivedAt !== null;
   const since =
     result.status === "withdrawn"
-      ? row.edition.withdrawnAt
+      ? (row.edition.withdrawnAt ?? row.chart.archivedAt)
       : result.status === "superseded"
         ? row.edition.supersededAt
         : result.status === "outdated"
@@ -79,15 +82,16 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
   const action = copyAction({
     status: result.status,
     reviewBy: row.edition.reviewBy,
-    replacement: current
-      ? {
-          number: current.number,
-          // A replacement that only rewords today's chart still prints today's clinical content.
-          matchesToday:
-            current.fingerprint === row.chart.liveFingerprint ||
-            (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
-        }
-      : null,
+    replacement:
+      current && !archived
+        ? {
+            number: current.number,
+            // A replacement that only rewords today's chart still prints today's clinical content.
+            matchesToday:
+              current.fingerprint === row.chart.liveFingerprint ||
+              (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
+          }
+        : null,
     now: new Date(),
   });
   return {
@@ -99,7 +103,8 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     chart: { id: row.chart.id, title: row.chart.title },
     lab: row.lab,
     changes: result.changes,
-    currentEdition: current ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
+    currentEdition:
+      current && !archived ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
     reworded: result.reworded ?? null,
   };
 }

@@ -124,11 +124,18 @@ export async function createEdition(
 ) {
   const lab = await lockLab(tx, labId);
   const [chart] = await tx
-    .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
+    .select({
+      id: charts.id,
+      title: charts.title,
+      definition: charts.definition,
+      logoSha256: logos.sha256,
+      archivedAt: charts.archivedAt,
+    })
     .from(charts)
     .leftJoin(logos, eq(logos.id, charts.logoId))
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!chart) throw notFound("Chart");
+  if (chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is archived: it cannot get new editions.`);
   const definition = parseStoredDefinition(chart.definition);
   const stock = await readStock(tx, labId);
   assertChartRules(definition, stock);
@@ -273,9 +280,15 @@ export async function approveEdition(
     );
   }
   const [chart] = await tx
-    .select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot })
+    .select({
+      title: charts.title,
+      liveFingerprint: charts.liveFingerprint,
+      liveSnapshot: charts.liveSnapshot,
+      archivedAt: charts.archivedAt,
+    })
     .from(charts)
     .where(eq(charts.id, ed.chartId));
+  if (chart?.archivedAt) throw new AppError("conflict", `"${chart.title}" is archived: its drafts cannot be approved.`);
   if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
     const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
     throw new AppError(

@@ -40,6 +40,7 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
         title: charts.title,
         liveFingerprint: charts.liveFingerprint,
         liveSnapshot: charts.liveSnapshot,
+        archivedAt: charts.archivedAt,
       },
     })
     .from(postings)
@@ -61,10 +62,17 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
     .from(editions)
     .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
   return rows.map((r) => {
-    const current = approved.find((a) => a.chartId === r.chart.id && a.id !== r.edition.id) ?? null;
+    // An archived chart's copies have nothing to be replaced with.
+    const current = r.chart.archivedAt
+      ? null
+      : (approved.find((a) => a.chartId === r.chart.id && a.id !== r.edition.id) ?? null);
     const result = checkEdition(
       { ...r.edition, snapshot: r.edition.snapshot as Snapshot },
-      { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null },
+      {
+        liveFingerprint: r.chart.liveFingerprint,
+        liveSnapshot: r.chart.liveSnapshot as Snapshot | null,
+        archivedAt: r.chart.archivedAt,
+      },
       current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
     );
     return {

@@ -19,7 +19,12 @@ export type CheckEdition = {
   withdrawnAt: Date | null;
 };
 
-export type CheckChart = { liveFingerprint: string | null; liveSnapshot: Snapshot | null } | null;
+export type CheckChart = {
+  liveFingerprint: string | null;
+  liveSnapshot: Snapshot | null;
+  /** Set when the lab archived the chart: every copy of it reads withdrawn. */
+  archivedAt?: Date | null;
+} | null;
 /** The chart's approved edition other than this copy; with its snapshot a wording-only successor is recognised. */
 export type NewerEdition = { number: number; approvedAt: Date | null; snapshot?: Snapshot } | null;
 /** The newest draft of the chart, when one waits. */
@@ -50,6 +55,11 @@ export function checkEdition(
     return {
       status: "withdrawn",
       changes: [{ kind: "lab", detail: `Edition ${ed.number} was withdrawn on ${fmt(ed.withdrawnAt)}` }],
+    };
+  if (chart?.archivedAt)
+    return {
+      status: "withdrawn",
+      changes: [{ kind: "lab", detail: `The chart was archived on ${fmt(chart.archivedAt)}` }],
     };
   if (ed.status === "superseded") {
     // Superseded by an edition that only rewords it, and still true today: the copy stays current.

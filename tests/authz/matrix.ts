@@ -563,6 +563,23 @@ export const ROUTES: RouteRow[] = [
     url: "/api/v1/editions/999999999/diff",
     expect: everyoneSignedIn(404),
   },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/charts/[id]/archive",
+    url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/archive`,
+    body: { confirm: "yes" },
+    expect: statuses(["manager", "lead"], 400),
+    note: "an unknown key is refused (400) after the role check, so walking archives nothing",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/charts",
+    url: `${lab("demo")}/charts?archived=1`,
+    expect: everyoneSignedIn(200),
+    note: "the archived charts",
+  },
 ];
 
 const ANYONE = ["anonymous", ...ALL_ROLES] as const;
@@ -635,6 +652,8 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: CHART_ACTIONS, name: "withdrawEditionAction", allowed: ["manager"] },
   { kind: "action", file: CHART_ACTIONS, name: "setChartLogoAction", allowed: ["manager", "educator"] },
   { kind: "action", file: CHART_ACTIONS, name: "removeChartLogoAction", allowed: ["manager", "educator"] },
+  // area signoff: archive a chart
+  { kind: "action", file: CHART_ACTIONS, name: "archiveChartAction", allowed: ["manager", "lead"] },
   ...[
     "saveFamilyAction",
     "saveBalloonAction",

@@ -3,7 +3,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { balloonFamilies, balloons, editions, postings, staleNotices } from "@/db/schema";
+import { balloonFamilies, balloons, charts, editions, postings, staleNotices } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
@@ -11,6 +11,8 @@ import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
+import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
+import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import type { CheckJson } from "@/lib/editions/check-json";
 import { labWithTeam } from "./support/fixtures";
 import { createChart, createRoom, recordPosting } from "./support/writes";
@@ -142,5 +144,76 @@ describe("wording-only changes", () => {
     expect(await check(first)).toMatchObject({ status: "superseded", action: "take-down" });
     expect(await check(second)).toMatchObject({ status: "outdated", action: "take-down", reworded: false });
     expect((await notices()).length).toBe(1);
+  });
+});
+
+describe("archiving a chart", () => {
+  it("managers and the lead archive; copies read take-down; the chart leaves the list, keeps its editions, gets no new ones", async () => {
+    const definition = chartDefinitionSchema.parse({
+      title: "Chart to archive",
+      law: { law: "murray" },
+      lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+      paper: "A4",
+      orientation: "portrait",
+      readingDistanceM: 1,
+    });
+    const archivedChart = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+    as("educator");
+    const made = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(archivedChart) }, "POST");
+    await approve(made.json.id);
+    const room = await createRoom({
+      labId: team.lab.id,
+      name: "Room 2",
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    await recordPosting({
+      labId: team.lab.id,
+      editionId: made.json.id,
+      roomId: (room as { id: number }).id,
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    expect(await check(made.json.id)).toMatchObject({ status: "current", action: "keep" });
+
+    for (const who of ["educator", "operator"] as const) {
+      as(who);
+      expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
+    }
+    as("outsider");
+    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
+    as("lead");
+    const bad = await call<{ id: string }, { error: { issues: { path: string[] }[] } }>(
+      archiveRoute,
+      { id: String(archivedChart) },
+      "POST",
+      { confirm: true },
+    );
+    expect(bad.status).toBe(400);
+    const [still] = await db.select().from(charts).where(eq(charts.id, archivedChart));
+    expect(still!.archivedAt).toBeNull();
+
+    const ok = await call<{ id: string }, { archivedAt: string }>(archiveRoute, { id: String(archivedChart) }, "POST");
+    expect(ok.status).toBe(200);
+    expect(typeof ok.json.archivedAt).toBe("string");
+    as("manager");
+    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+
+    expect(await check(made.json.id)).toMatchObject({ status: "withdrawn", action: "take-down", currentEdition: null });
+    const [posting] = await db.select().from(postings).where(eq(postings.editionId, made.json.id));
+    expect(posting!.lastStatus).toBe("withdrawn");
+
+    as("operator");
+    const listed = await call<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
+    expect(listed.json.map((c) => c.id)).not.toContain(archivedChart);
+    expect(listed.json.map((c) => c.id)).toContain(chartId);
+    const res = await listChartsRoute(new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/charts?archived=1`), {
+      params: Promise.resolve({ slug: team.lab.slug }),
+    });
+    const archivedList = (await res.json()) as { id: number; archivedAt: string | null }[];
+    expect(archivedList.map((c) => c.id)).toEqual([archivedChart]);
+    expect(archivedList[0]!.archivedAt).toBe(ok.json.archivedAt);
+    expect(await db.select().from(editions).where(eq(editions.chartId, archivedChart))).toHaveLength(1);
+
+    as("educator");
+    expect((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
   });
 });
