@@ -10,7 +10,8 @@ function cellStyle(view: ReturnType<typeof cellView>, changed: boolean): CSSProp
   const hatch = view.hatch
     ? { backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)` }
     : {};
-  // A changed cell carries a heavy dashed outline and a ◆ with the word "changed": never colour alone.
+  // A changed cell carries a heavy dashed outline and a ◆ (explained above the grids, and "Changed." for
+  // screen readers): never colour alone.
   const outline: CSSProperties = changed ? { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-5px" } : {};
   return {
     backgroundColor: view.background,
@@ -86,16 +87,14 @@ export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<str
                       key={c}
                       title={view.description}
                       data-changed={isChanged ? "true" : undefined}
-                      className="relative min-w-14 border px-1 pb-1 pt-3.5 align-bottom"
+                      className="min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
                       style={cellStyle(view, isChanged)}
                     >
                       <span aria-hidden="true">
-                        {isChanged ? (
-                          <span className="absolute left-1 top-0.5 text-[0.6rem] font-bold uppercase">◆ changed</span>
-                        ) : null}
-                        {corner ? (
-                          <span className="absolute right-1 top-0.5 text-[0.65rem] font-bold">{corner}</span>
-                        ) : null}
+                        <span className="flex min-h-4 justify-between gap-1 text-[0.65rem] font-bold leading-4">
+                          <span>{isChanged ? "◆" : ""}</span>
+                          <span>{corner}</span>
+                        </span>
                         <span className="block text-lg font-bold leading-none">{view.primary}</span>
                         {grid.rounding === "reach" && view.pressure ? (
                           <span className="block text-[0.6rem] font-semibold">{view.pressure}</span>

@@ -60,7 +60,7 @@ export default async function ReviewEditionPage({ params }: { params: Promise<{ 
             {cells.length} changed {cells.length === 1 ? "cell" : "cells"}
           </strong>
           {cells.length === 0 ? " (only the wording or layout differs, or nothing)." : "."} Changed cells are outlined
-          with a dashed border and marked ◆ changed.
+          with a dashed border and marked ◆ in both grids; the list below gives each in words.
         </p>
         {against &&
         (against.snapshot.title !== edition.snapshot.title || against.snapshot.notes !== edition.snapshot.notes) ? (
