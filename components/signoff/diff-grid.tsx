@@ -12,7 +12,7 @@ function cellStyle(view: ReturnType<typeof cellView>, changed: boolean): CSSProp
     : {};
   // A changed cell carries a heavy dashed outline and a ◆ (explained above the grids, and "Changed." for
   // screen readers): never colour alone.
-  const outline: CSSProperties = changed ? { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-5px" } : {};
+  const outline: CSSProperties = changed ? { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-3px" } : {};
   return {
     backgroundColor: view.background,
     ...hatch,
@@ -87,7 +87,7 @@ export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<str
                       key={c}
                       title={view.description}
                       data-changed={isChanged ? "true" : undefined}
-                      className="min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
+                      className="relative min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
                       style={cellStyle(view, isChanged)}
                     >
                       <span aria-hidden="true">
