@@ -135,7 +135,8 @@ test("manager: hangs edition 1; after edition 2 is approved the copy reads repla
   await expect(changed).toHaveCount(diff.cells.length);
   await expect(changed.first()).toContainText("Changed.");
   await expect(changed.first()).toContainText("◆");
-  await expect(leadPage.getByTestId("diff-table").locator("tbody tr")).toHaveCount(diff.cells.length);
+  await expect(leadPage.getByTestId("diff-list").getByRole("listitem")).toHaveCount(diff.cells.length);
+  await expect(leadPage.getByTestId("diff-list")).toContainText("not printed →");
   // What the lead sees, at a desktop and two phone widths, with no sideways page scroll.
   for (const width of [1440, 390, 320]) {
     await leadPage.setViewportSize({ width, height: 900 });

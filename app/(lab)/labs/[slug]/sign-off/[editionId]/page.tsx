@@ -95,40 +95,16 @@ export default async function ReviewEditionPage({ params }: { params: Promise<{ 
       {cells.length > 0 ? (
         <details className="rounded-card border border-line bg-paper-raised p-4" open={cells.length <= 30}>
           <summary className="cursor-pointer font-semibold">Every changed cell in words ({cells.length})</summary>
-          <div className="mt-2 overflow-x-auto">
-            <table className="text-left text-sm tabular-nums" data-testid="diff-table">
-              <thead>
-                <tr>
-                  <th scope="col" className="px-2 py-1">
-                    Lookup
-                  </th>
-                  <th scope="col" className="px-2 py-1">
-                    Row, mm
-                  </th>
-                  <th scope="col" className="px-2 py-1">
-                    Column, mm
-                  </th>
-                  <th scope="col" className="px-2 py-1">
-                    Before
-                  </th>
-                  <th scope="col" className="px-2 py-1">
-                    After
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {cells.map((c) => (
-                  <tr key={`${c.lookup}|${c.row}|${c.col}`} className="border-t border-line">
-                    <td className="px-2 py-1">{c.lookup}</td>
-                    <td className="px-2 py-1">{formatAxisMm(c.row)}</td>
-                    <td className="px-2 py-1">{formatAxisMm(c.col)}</td>
-                    <td className="px-2 py-1">{printedWords(c.before)}</td>
-                    <td className="px-2 py-1 font-semibold">{printedWords(c.after)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <ol className="mt-2 space-y-1 text-sm tabular-nums" data-testid="diff-list">
+            {cells.map((c) => (
+              <li key={`${c.lookup}|${c.row}|${c.col}`} className="border-t border-line pt-1">
+                <span className="font-medium">
+                  {c.lookup}, row {formatAxisMm(c.row)} mm × column {formatAxisMm(c.col)} mm:
+                </span>{" "}
+                {printedWords(c.before)} → <strong>{printedWords(c.after)}</strong>
+              </li>
+            ))}
+          </ol>
         </details>
       ) : null}
       <Caution demo={member.lab.isDemo} />
