@@ -3,7 +3,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { balloonFamilies, balloons } from "@/db/schema";
+import { balloonFamilies, balloons, editions, labRules } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import type { EditionDiff } from "@/lib/editions/diff";
@@ -12,6 +12,9 @@ import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as diffRoute } from "@/app/api/v1/editions/[id]/diff/route";
+import { PUT as putRules } from "@/app/api/v1/labs/[slug]/rules/route";
+import { signOffQueue } from "@/lib/ops/editions";
+import type { Caller } from "@/lib/ops/caller";
 import { labWithTeam } from "./support/fixtures";
 import { createChart } from "./support/writes";
 
@@ -142,5 +145,34 @@ describe("GET /api/v1/editions/:id/diff", () => {
     const first = await newEdition();
     expect((await diff(first, "outsider")).status).toBe(404);
     expect((await diff(999999999, "lead")).status).toBe(404);
+  });
+});
+
+describe("the approvers' queue", () => {
+  const caller = (who: Who): Caller => {
+    const p = team.people[who];
+    return { kind: "user", user: { id: p.id, email: p.email, name: p.name } };
+  };
+
+  it("lists waiting drafts oldest first, for the lead; managers only once the rules grant approval", async () => {
+    const queue = await signOffQueue(caller("lead"), { lab: team.lab.slug });
+    const drafts = await db.select().from(editions).where(eq(editions.labId, team.lab.id));
+    const waiting = drafts
+      .filter((e) => e.status === "draft")
+      .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || a.id - b.id);
+    expect(queue.map((d) => d.id)).toEqual(waiting.map((e) => e.id));
+    expect(queue.length).toBeGreaterThan(1);
+    expect(queue[0]).toMatchObject({ chartTitle: "Diff chart", createdByName: team.people.educator.name });
+
+    for (const who of ["manager", "educator", "operator"] as const)
+      await expect(signOffQueue(caller(who), { lab: team.lab.slug })).rejects.toMatchObject({ status: 403 });
+    await expect(signOffQueue(caller("outsider"), { lab: team.lab.slug })).rejects.toMatchObject({ status: 404 });
+
+    as("lead");
+    expect((await call(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true })).status).toBe(200);
+    expect((await signOffQueue(caller("manager"), { lab: team.lab.slug })).map((d) => d.id)).toEqual(
+      queue.map((d) => d.id),
+    );
+    await db.delete(labRules).where(eq(labRules.labId, team.lab.id));
   });
 });
