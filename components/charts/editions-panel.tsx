@@ -122,6 +122,11 @@ export function EditionsPanel({
                     Check page
                   </a>
                 ) : null}
+                {e.status === "draft" ? (
+                  <a href={`/labs/${slug}/sign-off/${e.id}`} className={buttonClass("ghost", "py-1.5")}>
+                    Review changes
+                  </a>
+                ) : null}
                 {can.approve && e.status === "draft" && !e.createdByMe ? (
                   <>
                     <label className="flex basis-full items-center gap-2 text-sm">

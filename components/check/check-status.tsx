@@ -1,6 +1,6 @@
 import { actionSentence } from "@/lib/editions/action";
 import { CHECK_HEADLINES, type CheckStatus } from "@/lib/editions/check";
-import type { CheckJson } from "@/lib/editions/check-json";
+import { rewordedSentence, type CheckJson } from "@/lib/editions/check-json";
 
 // A symbol and a word for every status: colour is never the only signal.
 const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
@@ -59,6 +59,11 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
           replacement: check.currentEdition,
         })}
       </p>
+      {check.rewordedEdition ? (
+        <p className="mt-2 text-base" data-testid="check-reworded">
+          {rewordedSentence(check.rewordedEdition)}
+        </p>
+      ) : null}
       {check.changes.length ? (
         <section className="mt-4" aria-labelledby="changes-h">
           <h2 id="changes-h" className="text-base font-semibold">

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
 import { assertChartRules } from "@/lib/charts/rules";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
@@ -137,9 +137,13 @@ export async function findChartLab({ chartId }: { chartId: number }) {
   return row?.labId ?? null;
 }
 
-/** Charts with their current edition: the newest approved, else the newest draft. */
-export async function listCharts({ labId }: { labId: number }) {
-  const chartRows = await db.select().from(charts).where(eq(charts.labId, labId)).orderBy(asc(charts.title));
+/** Charts with their current edition: the newest approved, else the newest draft. Archived charts only when asked. */
+export async function listCharts({ labId, archived = false }: { labId: number; archived?: boolean }) {
+  const chartRows = await db
+    .select()
+    .from(charts)
+    .where(and(eq(charts.labId, labId), archived ? isNotNull(charts.archivedAt) : isNull(charts.archivedAt)))
+    .orderBy(asc(charts.title));
   const eds = await db
     .select({
       id: editions.id,
@@ -235,4 +239,41 @@ export async function readChartDefinition(tx: Tx, { labId, chartId }: { labId: n
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!row) throw notFound("Chart");
   return parseStoredDefinition(row.definition);
+}
+
+/**
+ * Archives a chart: it leaves the lists, keeps its editions, and every posted copy of it reads
+ * take-down (the lab pass records the copies that went stale). Archiving twice is a conflict.
+ */
+export async function archiveChart(
+  tx: Tx,
+  { labId, chartId, actor }: { labId: number; chartId: number; actor: { id: number; name: string } },
+) {
+  const [chart] = await tx
+    .select({ id: charts.id, title: charts.title, archivedAt: charts.archivedAt })
+    .from(charts)
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)))
+    .for("update");
+  if (!chart) throw notFound("Chart");
+  if (chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is already archived.`);
+  const archivedAt = new Date();
+  await tx
+    .update(charts)
+    .set({ archivedAt })
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  await afterLabChange(tx, {
+    labId,
+    changeKey: `chart:${chartId}:archived`,
+    cause: `Chart "${chart.title}" was archived by ${actor.name}`,
+  });
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "chart.archived",
+    targetType: "chart",
+    targetId: chartId,
+    detail: { title: chart.title },
+  });
+  return { id: chartId, title: chart.title, archivedAt };
 }

@@ -1,8 +1,9 @@
 import "server-only";
 import { and, desc, eq, ne } from "drizzle-orm";
+import { sameClinical } from "@/lib/charts/clinical";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { copyAction, type CopyAction } from "@/lib/editions/action";
-import { checkEdition, type CheckStatus } from "@/lib/editions/check";
+import { checkEdition, type CheckStatus, type Reworded } from "@/lib/editions/check";
 import type { Change } from "@/lib/charts/changes";
 import { db } from "../index";
 import { charts, editions, labs } from "../schema";
@@ -25,6 +26,8 @@ export type CheckView = {
   };
   changes: Change[];
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
+  /** An edition that only rewords this copy (its clinical content is the same), when one exists. */
+  reworded: Reworded | null;
 };
 
 /** Everything the public check page shows for one QR token: no personal data. */
@@ -38,6 +41,7 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
         liveFingerprint: charts.liveFingerprint,
         liveSnapshot: charts.liveSnapshot,
         liveChangedAt: charts.liveChangedAt,
+        archivedAt: charts.archivedAt,
       },
       lab: {
         id: labs.id,
@@ -60,19 +64,30 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
       number: editions.number,
       approvedAt: editions.approvedAt,
       fingerprint: editions.fingerprint,
+      snapshot: editions.snapshot,
     })
     .from(editions)
     .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
     .orderBy(desc(editions.number))
     .limit(1);
+  const [draft] = await db
+    .select({ number: editions.number, fingerprint: editions.fingerprint, snapshot: editions.snapshot })
+    .from(editions)
+    .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "draft")))
+    .orderBy(desc(editions.number))
+    .limit(1);
+  const liveSnapshot = row.chart.liveSnapshot as Snapshot | null;
   const result = checkEdition(
     { ...row.edition, snapshot: row.edition.snapshot as Snapshot },
-    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot: row.chart.liveSnapshot as Snapshot | null },
-    current ?? null,
+    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot, archivedAt: row.chart.archivedAt },
+    current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
+    draft ? { ...draft, snapshot: draft.snapshot as Snapshot } : null,
   );
+  // An archived chart has nothing to replace its copies with: they come down.
+  const archived = row.chart.archivedAt !== null;
   const since =
     result.status === "withdrawn"
-      ? row.edition.withdrawnAt
+      ? (row.edition.withdrawnAt ?? row.chart.archivedAt)
       : result.status === "superseded"
         ? row.edition.supersededAt
         : result.status === "outdated"
@@ -83,9 +98,16 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
   const action = copyAction({
     status: result.status,
     reviewBy: row.edition.reviewBy,
-    replacement: current
-      ? { number: current.number, matchesToday: current.fingerprint === row.chart.liveFingerprint }
-      : null,
+    replacement:
+      current && !archived
+        ? {
+            number: current.number,
+            // A replacement that only rewords today's chart still prints today's clinical content.
+            matchesToday:
+              current.fingerprint === row.chart.liveFingerprint ||
+              (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
+          }
+        : null,
     now: new Date(),
   });
   return {
@@ -97,6 +119,8 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     chart: { id: row.chart.id, title: row.chart.title },
     lab: row.lab,
     changes: result.changes,
-    currentEdition: current ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
+    currentEdition:
+      current && !archived ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
+    reworded: result.reworded ?? null,
   };
 }

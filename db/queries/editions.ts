@@ -1,6 +1,6 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { and, desc, eq, gt, inArray, isNotNull, max, ne } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, max, ne } from "drizzle-orm";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
@@ -43,6 +43,57 @@ export async function getEdition({ labId, editionId }: { labId: number; editionI
   };
 }
 
+/** The chart's approved edition other than this one: what approving this edition would replace. */
+export async function getReplacedEdition({
+  labId,
+  chartId,
+  editionId,
+}: {
+  labId: number;
+  chartId: number;
+  editionId: number;
+}) {
+  const [row] = await db
+    .select({
+      id: editions.id,
+      number: editions.number,
+      snapshot: editions.snapshot,
+      approvedAt: editions.approvedAt,
+      approvedByName: editions.approvedByName,
+    })
+    .from(editions)
+    .where(
+      and(
+        eq(editions.labId, labId),
+        eq(editions.chartId, chartId),
+        eq(editions.status, "approved"),
+        ne(editions.id, editionId),
+      ),
+    )
+    .orderBy(desc(editions.number))
+    .limit(1);
+  return row ? { ...row, snapshot: row.snapshot as Snapshot } : null;
+}
+
+/** Drafts waiting for sign-off in a lab, oldest first; archived charts' drafts do not wait. */
+export async function listWaitingDrafts({ labId }: { labId: number }) {
+  return db
+    .select({
+      id: editions.id,
+      number: editions.number,
+      chartId: editions.chartId,
+      chartTitle: charts.title,
+      createdAt: editions.createdAt,
+      createdBy: editions.createdBy,
+      createdByName: users.name,
+    })
+    .from(editions)
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .leftJoin(users, eq(users.id, editions.createdBy))
+    .where(and(eq(editions.labId, labId), eq(editions.status, "draft"), isNull(charts.archivedAt)))
+    .orderBy(asc(editions.createdAt), asc(editions.id));
+}
+
 export async function listEditions({ labId, chartId }: { labId: number; chartId: number }) {
   return db
     .select({
@@ -74,11 +125,18 @@ export async function createEdition(
 ) {
   const lab = await lockLab(tx, labId);
   const [chart] = await tx
-    .select({ id: charts.id, definition: charts.definition, logoSha256: logos.sha256 })
+    .select({
+      id: charts.id,
+      title: charts.title,
+      definition: charts.definition,
+      logoSha256: logos.sha256,
+      archivedAt: charts.archivedAt,
+    })
     .from(charts)
     .leftJoin(logos, eq(logos.id, charts.logoId))
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!chart) throw notFound("Chart");
+  if (chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is archived: it cannot get new editions.`);
   const definition = parseStoredDefinition(chart.definition);
   const stock = await readStock(tx, labId);
   assertChartRules(definition, stock);
@@ -225,9 +283,15 @@ export async function approveEdition(
     );
   }
   const [chart] = await tx
-    .select({ title: charts.title, liveFingerprint: charts.liveFingerprint, liveSnapshot: charts.liveSnapshot })
+    .select({
+      title: charts.title,
+      liveFingerprint: charts.liveFingerprint,
+      liveSnapshot: charts.liveSnapshot,
+      archivedAt: charts.archivedAt,
+    })
     .from(charts)
     .where(eq(charts.id, ed.chartId));
+  if (chart?.archivedAt) throw new AppError("conflict", `"${chart.title}" is archived: its drafts cannot be approved.`);
   if (chart?.liveFingerprint && chart.liveFingerprint !== ed.fingerprint) {
     const changes = describeChanges(ed.snapshot as Snapshot, chart.liveSnapshot as Snapshot).map((c) => c.detail);
     throw new AppError(

@@ -40,6 +40,7 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
         title: charts.title,
         liveFingerprint: charts.liveFingerprint,
         liveSnapshot: charts.liveSnapshot,
+        archivedAt: charts.archivedAt,
       },
     })
     .from(postings)
@@ -51,15 +52,28 @@ export async function readPostings(conn: Tx | Database, labId: number): Promise<
     .orderBy(desc(postings.postedAt));
   if (rows.length === 0) return [];
   const approved = await conn
-    .select({ id: editions.id, chartId: editions.chartId, number: editions.number, approvedAt: editions.approvedAt })
+    .select({
+      id: editions.id,
+      chartId: editions.chartId,
+      number: editions.number,
+      approvedAt: editions.approvedAt,
+      snapshot: editions.snapshot,
+    })
     .from(editions)
     .where(and(eq(editions.labId, labId), eq(editions.status, "approved")));
   return rows.map((r) => {
-    const current = approved.find((a) => a.chartId === r.chart.id && a.id !== r.edition.id) ?? null;
+    // An archived chart's copies have nothing to be replaced with.
+    const current = r.chart.archivedAt
+      ? null
+      : (approved.find((a) => a.chartId === r.chart.id && a.id !== r.edition.id) ?? null);
     const result = checkEdition(
       { ...r.edition, snapshot: r.edition.snapshot as Snapshot },
-      { liveFingerprint: r.chart.liveFingerprint, liveSnapshot: r.chart.liveSnapshot as Snapshot | null },
-      current,
+      {
+        liveFingerprint: r.chart.liveFingerprint,
+        liveSnapshot: r.chart.liveSnapshot as Snapshot | null,
+        archivedAt: r.chart.archivedAt,
+      },
+      current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
     );
     return {
       postingId: r.posting.id,

@@ -18,13 +18,18 @@ export type ActionInput = {
 };
 
 /**
- * The rules: a current copy is kept until its review-by date passes (then `review`). Any other
+ * The rules: a current copy is kept until its review-by date passes (then `review`, or `replace`
+ * when a newer approved edition that only rewords it matches today's chart). Any other
  * copy (outdated, superseded, withdrawn, a draft) is replaced when an approved edition that
  * still matches today's chart exists, and otherwise taken down: no approved edition can replace
  * it, and numbers that no longer match the stock must not hang on the wall.
  */
 export function copyAction({ status, reviewBy, replacement, now }: ActionInput): CopyAction {
-  if (status === "current") return reviewBy && reviewBy.getTime() <= now.getTime() ? "review" : "keep";
+  if (status === "current") {
+    if (!reviewBy || reviewBy.getTime() > now.getTime()) return "keep";
+    // A copy kept current past a reworded edition is replaced by it once its own review date passes.
+    return replacement?.matchesToday ? "replace" : "review";
+  }
   if (replacement?.matchesToday) return "replace";
   return "take-down";
 }

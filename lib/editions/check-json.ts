@@ -1,6 +1,6 @@
 import type { Change } from "@/lib/charts/changes";
 import type { CopyAction } from "./action";
-import type { CheckStatus } from "./check";
+import type { CheckStatus, Reworded } from "./check";
 
 /** The public JSON of a check: lab and chart names, never personal data. */
 export type CheckJson = {
@@ -14,6 +14,9 @@ export type CheckJson = {
   lab: { name: string };
   changes: Change[];
   currentEdition: { number: number; approvedAt: string | null } | null;
+  /** True when an edition that only rewords this copy exists (same clinical content); it is named below. */
+  reworded: boolean;
+  rewordedEdition: Reworded | null;
 };
 
 export function checkJson(v: {
@@ -26,6 +29,7 @@ export function checkJson(v: {
   lab: { name: string };
   changes: Change[];
   currentEdition: { number: number; approvedAt: Date | null } | null;
+  reworded?: Reworded | null;
 }): CheckJson {
   return {
     status: v.status,
@@ -39,5 +43,13 @@ export function checkJson(v: {
     currentEdition: v.currentEdition
       ? { number: v.currentEdition.number, approvedAt: v.currentEdition.approvedAt?.toISOString() ?? null }
       : null,
+    reworded: Boolean(v.reworded),
+    rewordedEdition: v.reworded ? { number: v.reworded.number, status: v.reworded.status } : null,
   };
+}
+
+/** The one line the check page adds when a reworded edition exists. */
+export function rewordedSentence(r: Reworded): string {
+  const which = r.status === "approved" ? `edition ${r.number}` : `edition ${r.number}, waiting for sign-off`;
+  return `A reworded edition is available (${which}): only its wording or layout differs, so this printout may stay up.`;
 }

@@ -11,12 +11,28 @@ import { chartDefinitionSchema, chartPatchSchema } from "@/lib/validation/chart"
 import { labOperation, parseInput } from "./operation";
 import { labWrite } from "./write";
 
+// `?archived=1` lists the archived charts instead of the others.
+const chartListQuery = z.object({ archived: z.enum(["0", "1"]).optional() }).strict();
+
 /** The lab's charts, each with its current edition (newest approved, else newest draft) and all editions. */
 export const listCharts = labOperation({
   name: "chart.list",
   capability: "lab:read",
   scope: "lab",
-  run: ({ labId }) => q.listCharts({ labId }),
+  input: chartListQuery,
+  run: ({ labId }, { archived }) => q.listCharts({ labId, archived: archived === "1" }),
+});
+
+/** Archives a chart (managers and the medical lead): it leaves the lists and its posted copies read take-down. */
+export const archiveChart = labOperation({
+  name: "chart.archive",
+  capability: "chart:archive",
+  scope: "chart",
+  input: z.object({}).strict(),
+  run: async ({ labId, actor, ids }) => {
+    const r = await labWrite(labId, (tx) => q.archiveChart(tx, { labId, chartId: ids.chartId, actor }));
+    return { id: r.id, title: r.title, archivedAt: r.archivedAt.toISOString() };
+  },
 });
 
 /** One chart with its definition and every edition, newest first. */

@@ -2,6 +2,7 @@ import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/editions";
 import { gridJson } from "@/lib/charts/grid-model";
+import { diffCells, type EditionDiff } from "@/lib/editions/diff";
 import { editionUrls } from "@/lib/charts/present";
 import { notFound } from "@/lib/errors";
 import { env } from "@/lib/env";
@@ -89,4 +90,38 @@ export const editionGrid = labOperation({
     if (!edition) throw notFound("Edition");
     return gridJson(edition.snapshot);
   },
+});
+
+/** The printed cells that differ from the edition this one would replace (every cell when none). */
+export const editionDiff = labOperation({
+  name: "edition.diff",
+  capability: "lab:read",
+  scope: "edition",
+  run: async ({ labId, ids }): Promise<EditionDiff> => {
+    const edition = await q.getEdition({ labId, editionId: ids.editionId });
+    if (!edition) throw notFound("Edition");
+    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    return { against: against?.id ?? null, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
+  },
+});
+
+/** What an approver reviews: the edition, the approved edition it would replace, and the changed cells. */
+export const editionReview = labOperation({
+  name: "edition.review",
+  capability: "lab:read",
+  scope: "edition",
+  run: async ({ labId, ids }) => {
+    const edition = await q.getEdition({ labId, editionId: ids.editionId });
+    if (!edition) throw notFound("Edition");
+    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    return { edition, against, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
+  },
+});
+
+/** The approvers' queue: drafts waiting for sign-off, oldest first. */
+export const signOffQueue = labOperation({
+  name: "edition.queue",
+  capability: "edition:approve",
+  scope: "lab",
+  run: async ({ labId }) => q.listWaitingDrafts({ labId }),
 });

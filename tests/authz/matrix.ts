@@ -630,6 +630,39 @@ export const ROUTES: RouteRow[] = [
     url: `${lab("demo")}/tokens/0`,
     expect: managerBadId(),
   },
+
+  // area signoff: edition diff, chart archive
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/diff",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/diff`,
+    expect: everyoneSignedIn(200),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/diff",
+    url: "/api/v1/editions/999999999/diff",
+    expect: everyoneSignedIn(404),
+  },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/charts/[id]/archive",
+    url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/archive`,
+    body: { confirm: "yes" },
+    expect: statuses(["manager", "lead"], 400),
+    note: "an unknown key is refused (400) after the role check, so walking archives nothing",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/labs/[slug]/charts",
+    url: `${lab("demo")}/charts?archived=1`,
+    expect: everyoneSignedIn(200),
+    note: "the archived charts",
+  },
 ];
 
 const ANYONE = ["anonymous", ...ALL_ROLES] as const;
@@ -703,6 +736,8 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: CHART_ACTIONS, name: "withdrawEditionAction", allowed: ["manager"] },
   { kind: "action", file: CHART_ACTIONS, name: "setChartLogoAction", allowed: ["manager", "educator"] },
   { kind: "action", file: CHART_ACTIONS, name: "removeChartLogoAction", allowed: ["manager", "educator"] },
+  // area signoff: archive a chart
+  { kind: "action", file: CHART_ACTIONS, name: "archiveChartAction", allowed: ["manager", "lead"] },
   ...[
     "saveFamilyAction",
     "saveBalloonAction",

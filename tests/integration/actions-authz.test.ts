@@ -184,6 +184,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   withdrawEditionAction: (t) => ({ slug: t.lab.slug, editionId: wall.approvedId, reason: "Wrong family on the wall" }),
   setChartLogoAction: (t) => form({ slug: t.lab.slug, chartId: wall.chartId, file: logoPng() }),
   removeChartLogoAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
+  archiveChartAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
   createRoomAction: (t) => form({ slug: t.lab.slug, name: unique("room") }),
   renameRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId, name: "Renamed room" }),
   archiveRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId }),

@@ -338,7 +338,8 @@ describe("the check's action", () => {
     await ops.approveEdition(as(team.people.lead), { editionId: first.id }, { reviewed: true });
     expect(await check(firstRow!.checkToken)).toMatchObject({ status: "current", action: "keep" });
 
-    await chartOps.saveChart(as(team.people.educator), { chartId }, definition("K", "Second wording"));
+    // A clinical change (the law): a wording-only change would leave the first copy current.
+    await chartOps.saveChart(as(team.people.educator), { chartId }, { ...definition("K"), law: { law: "square" } });
     const second = await ops.createEdition(as(team.people.educator), { chartId });
     await ops.approveEdition(as(team.people.lead), { editionId: second.id }, { reviewed: true });
     const [secondRow] = await db.select().from(editions).where(eq(editions.id, second.id));

@@ -19,7 +19,8 @@ const REPLACEMENT = {
 const EXPECTED: Record<CheckStatus, Record<keyof typeof REPLACEMENT, Record<keyof typeof REVIEW, CopyAction>>> = {
   current: {
     none: { none: "keep", future: "keep", exactlyNow: "review", past: "review" },
-    matching: { none: "keep", future: "keep", exactlyNow: "review", past: "review" },
+    // Only a copy kept current past a reworded edition has a replacement: once due, replace it.
+    matching: { none: "keep", future: "keep", exactlyNow: "replace", past: "replace" },
     stale: { none: "keep", future: "keep", exactlyNow: "review", past: "review" },
   },
   outdated: {

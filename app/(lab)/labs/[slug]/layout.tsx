@@ -1,5 +1,6 @@
 import { LabNav } from "@/components/lab/lab-nav";
 import { memberForPage } from "@/lib/auth/page-guard";
+import { labCan } from "@/lib/ops/access";
 import { ROLE_LABELS } from "@/lib/permissions";
 
 export default async function LabLayout({
@@ -18,7 +19,7 @@ export default async function LabLayout({
         <p className="text-sm text-ink-faint">Your role: {ROLE_LABELS[member.role]}</p>
         <p className="text-xl font-bold">{member.lab.name}</p>
       </div>
-      <LabNav slug={slug} role={member.role} />
+      <LabNav slug={slug} role={member.role} canApprove={await labCan(member.lab.id, member.role, "edition:approve")} />
       <div className="pt-6">{children}</div>
     </div>
   );

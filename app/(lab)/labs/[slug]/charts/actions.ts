@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { runAction, uploadedFile, type ActionPayload, type ActionState } from "@/lib/http/action";
-import { createChart, removeChartLogo, saveChart, setChartLogo } from "@/lib/ops/charts";
+import { archiveChart, createChart, removeChartLogo, saveChart, setChartLogo } from "@/lib/ops/charts";
 import { approveEdition, createEdition, rejectEdition, withdrawEdition } from "@/lib/ops/editions";
 import { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/logo";
 
@@ -73,5 +73,15 @@ export async function removeChartLogoAction(_prev: ActionState, payload: ActionP
     await removeChartLogo(caller, { chartId });
     refresh(slug);
     return { ok: true, message: "Logo removed." };
+  });
+}
+
+/** Archives `chartId` (managers and the medical lead): it leaves the lists and its posted copies read take-down. */
+export async function archiveChartAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId }) => {
+    const r = await archiveChart(caller, { chartId });
+    refresh(slug);
+    revalidatePath(`/labs/${String(slug)}`);
+    return { ok: true, message: `"${r.title}" is archived. Its posted copies now read "take down".` };
   });
 }

@@ -11,23 +11,48 @@ import { lawName } from "@/lib/sizing";
 
 export const metadata = { title: "Charts" };
 
-export default async function ChartsPage({ params }: { params: Promise<{ slug: string }> }) {
+export default async function ChartsPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts`);
   if (member === "forbidden") return <Forbidden what="see charts" slug={slug} />;
-  const rows = await listCharts(member.caller, { lab: slug });
+  const archived = (await searchParams).archived === "1";
+  const rows = await listCharts(member.caller, { lab: slug }, archived ? { archived: "1" } : {});
   const canDesign = can(member.role, "chart:design");
   return (
     <div>
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h1 className="text-2xl font-bold">Wall charts</h1>
-        {canDesign ? (
+        <h1 className="text-2xl font-bold">{archived ? "Archived charts" : "Wall charts"}</h1>
+        {canDesign && !archived ? (
           <Link href={`/labs/${slug}/charts/new`} className={buttonClass("primary")}>
             New chart
           </Link>
         ) : null}
       </div>
-      {rows.length === 0 ? (
+      <nav aria-label="Which charts" className="mt-3 flex gap-4 text-sm">
+        {archived ? (
+          <Link href={`/labs/${slug}/charts`} className="text-brand-700 underline">
+            ← Charts in use
+          </Link>
+        ) : (
+          <Link href={`/labs/${slug}/charts?archived=1`} className="text-brand-700 underline">
+            Archived charts
+          </Link>
+        )}
+      </nav>
+      {rows.length === 0 && archived ? (
+        <div className="mt-6">
+          <EmptyState title="No archived charts">
+            A manager or the medical lead can archive a chart that is no longer used; it then appears here with its
+            editions, and its posted copies read &quot;take down&quot;.
+          </EmptyState>
+        </div>
+      ) : rows.length === 0 ? (
         <div className="mt-6">
           <EmptyState title="No charts yet">
             {canDesign
@@ -66,7 +91,12 @@ export default async function ChartsPage({ params }: { params: Promise<{ slug: s
                   ) : (
                     <StatusBadge status="none" />
                   )}
-                  {stale ? <StatusBadge status="outdated" label="Stock or settings changed" /> : null}
+                  {stale && !archived ? <StatusBadge status="outdated" label="Stock or settings changed" /> : null}
+                  {chart.archivedAt ? (
+                    <span className="rounded-md border border-line-strong px-2 py-0.5 text-xs font-semibold">
+                      ▣ Archived {chart.archivedAt.toISOString().slice(0, 10)}
+                    </span>
+                  ) : null}
                 </div>
               </li>
             );

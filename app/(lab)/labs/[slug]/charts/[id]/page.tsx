@@ -1,4 +1,5 @@
 import { notFound } from "next/navigation";
+import { ArchiveChart } from "@/components/charts/archive-chart";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
@@ -32,6 +33,15 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
+      {chart.archivedAt ? (
+        <p
+          role="status"
+          className="mt-2 rounded-md border border-line-strong bg-paper-sunk px-3 py-2 text-sm font-semibold"
+        >
+          ▣ Archived on {chart.archivedAt.toISOString().slice(0, 10)}: this chart gets no new editions, and its posted
+          copies read &quot;take down&quot;.
+        </p>
+      ) : null}
       <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner
         slug={slug}
@@ -54,7 +64,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         timeZone={member.lab.timeZone}
         chartId={chart.id}
         can={{
-          create: can(member.role, "edition:create"),
+          create: can(member.role, "edition:create") && !chart.archivedAt,
           approve: await labCan(member.lab.id, member.role, "edition:approve"),
           withdraw: can(member.role, "edition:withdraw"),
         }}
@@ -74,6 +84,9 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           ...editionUrls(env.APP_URL, e),
         }))}
       />
+      {can(member.role, "chart:archive") && !chart.archivedAt ? (
+        <ArchiveChart slug={slug} chartId={chart.id} title={chart.title} />
+      ) : null}
     </div>
   );
 }

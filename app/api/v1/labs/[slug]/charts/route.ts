@@ -3,8 +3,8 @@ import { env } from "@/lib/env";
 import { api } from "@/lib/http/route";
 import { createChart, listCharts } from "@/lib/ops/charts";
 
-export const GET = api<{ slug: string }>(async ({ caller, params }) =>
-  (await listCharts(caller, { lab: params.slug })).map(({ chart, current }) => ({
+export const GET = api<{ slug: string }>(async ({ caller, params, query }) =>
+  (await listCharts(caller, { lab: params.slug }, query())).map(({ chart, current }) => ({
     id: chart.id,
     title: chart.title,
     paper: chart.definition.paper,
@@ -12,6 +12,7 @@ export const GET = api<{ slug: string }>(async ({ caller, params }) =>
     law: chart.definition.law.law,
     lawSpec: chart.definition.law,
     currentEdition: current ? editionSummary(env.APP_URL, current) : null,
+    archivedAt: chart.archivedAt?.toISOString() ?? null,
   })),
 );
 

@@ -1,0 +1,127 @@
+import type { CSSProperties } from "react";
+import type { DiffCell } from "@/lib/editions/diff";
+import { axisTitles, lookupTitle, VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { cellView, cornerSymbols, formatAxisMm, PALETTE } from "@/lib/poster/marks";
+import type { Grid } from "@/lib/sizing";
+
+export const cellKey = (row: number, col: number) => `${row}|${col}`;
+
+function cellStyle(view: ReturnType<typeof cellView>, changed: boolean): CSSProperties {
+  const hatch = view.hatch
+    ? { backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)` }
+    : {};
+  // A changed cell carries a heavy dashed outline and a ◆ (explained above the grids, and "Changed." for
+  // screen readers): never colour alone.
+  const outline: CSSProperties = changed ? { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-3px" } : {};
+  return {
+    backgroundColor: view.background,
+    ...hatch,
+    ...(view.border > 0 ? { boxShadow: `inset 0 0 0 3px ${PALETTE.ink}` } : {}),
+    ...outline,
+    color: PALETTE.ink,
+    borderColor: PALETTE.rule,
+  };
+}
+
+/**
+ * One lookup's grid as the poster prints it, with the cells that differ from the other edition
+ * outlined and labelled. No client JavaScript; every cell is also in words for screen readers.
+ */
+export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<string>; side: "before" | "after" }) {
+  const titles = axisTitles(grid);
+  return (
+    <div className="overflow-x-auto" data-testid={`diff-grid-${side}-${grid.kind}`}>
+      <table className="border-collapse text-center tabular-nums" style={{ color: PALETTE.ink }}>
+        <caption className="mb-2 text-left text-sm">
+          <span className="block font-bold">{lookupTitle(grid.kind)}</span>
+          <span className="block text-xs text-ink-soft">
+            Rows: {titles.rows}; columns: {titles.cols}
+          </span>
+        </caption>
+        <thead>
+          <tr>
+            <th
+              scope="col"
+              className="border px-1 py-1 text-[0.6rem] font-semibold leading-tight"
+              style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+            >
+              <span aria-hidden="true">
+                {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
+                {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
+              </span>
+              <span className="sr-only">
+                {titles.rows} down, {titles.cols} across
+              </span>
+            </th>
+            {grid.colAxis.values.map((c) => (
+              <th
+                key={c}
+                scope="col"
+                className="border px-1 py-1 text-xs font-bold"
+                style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+              >
+                {formatAxisMm(c)}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {grid.cells.map((row, i) => {
+            const r = grid.rowAxis.values[i] as number;
+            return (
+              <tr key={r}>
+                <th
+                  scope="row"
+                  className="border px-1 py-1 text-xs font-bold"
+                  style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+                >
+                  {formatAxisMm(r)}
+                </th>
+                {row.map((cell, j) => {
+                  const c = grid.colAxis.values[j] as number;
+                  const view = cellView(cell);
+                  const isChanged = changed.has(cellKey(r, c));
+                  const corner = cornerSymbols(view);
+                  return (
+                    <td
+                      key={c}
+                      title={view.description}
+                      data-changed={isChanged ? "true" : undefined}
+                      className="relative min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
+                      style={cellStyle(view, isChanged)}
+                    >
+                      <span aria-hidden="true">
+                        <span className="flex min-h-4 justify-between gap-1 text-[0.65rem] font-bold leading-4">
+                          <span>{isChanged ? "◆" : ""}</span>
+                          <span>{corner}</span>
+                        </span>
+                        <span className="block text-lg font-bold leading-none">{view.primary}</span>
+                        {grid.rounding === "reach" && view.pressure ? (
+                          <span className="block text-[0.6rem] font-semibold">{view.pressure}</span>
+                        ) : null}
+                      </span>
+                      <span className="sr-only">
+                        {isChanged ? "Changed. " : ""}
+                        {view.description}
+                      </span>
+                    </td>
+                  );
+                })}
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** A changed cell's print in a few words: the figure, its pressure and its marks. */
+export function printedWords(p: DiffCell["before"]): string {
+  if (!p) return "not printed";
+  const parts = [p.printed];
+  if (p.pressure) parts.push(p.pressure);
+  if (p.exact && p.exact !== p.printed) parts.push(`(exact ${p.exact})`);
+  if (p.marks.length) parts.push(`[${p.marks.join(", ")}]`);
+  return parts.join(" ");
+}

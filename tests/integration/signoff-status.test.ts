@@ -1,0 +1,219 @@
+// What a status means, as a client reads it on MariaDB: a wording-only change keeps posted copies
+// current and names the reworded edition. Only the session (who is calling) is stood in for.
+import { eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { db, pool } from "@/db";
+import { balloonFamilies, balloons, charts, editions, postings, staleNotices } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session";
+import { env } from "@/lib/env";
+import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
+import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
+import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
+import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
+import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
+import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
+import type { CheckJson } from "@/lib/editions/check-json";
+import { labWithTeam } from "./support/fixtures";
+import { createChart, createRoom, recordPosting } from "./support/writes";
+
+const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
+vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+
+let team: Awaited<ReturnType<typeof labWithTeam>>;
+let chartId = 0;
+type Who = "manager" | "lead" | "educator" | "operator" | "outsider";
+const as = (who: Who) => {
+  const p = team.people[who];
+  session.user = { id: p.id, email: p.email, name: p.name };
+};
+
+type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
+async function call<P, T = Record<string, unknown>>(handler: Handler<P>, params: P, method: string, body?: unknown) {
+  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
+  if (body !== undefined) headers["content-type"] = "application/json";
+  const res = await handler(
+    new Request(`${env.APP_URL}/api/v1/x`, {
+      method,
+      headers,
+      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
+    }),
+    { params: Promise.resolve(params) },
+  );
+  return { status: res.status, json: (await res.json()) as T };
+}
+
+const newEdition = async () => {
+  as("educator");
+  const r = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(chartId) }, "POST");
+  expect([200, 201]).toContain(r.status);
+  return r.json.id;
+};
+const approve = async (id: number) => {
+  as("lead");
+  expect((await call(approveRoute, { id: String(id) }, "POST", { reviewed: true })).status).toBe(200);
+};
+const patch = async (body: unknown) => {
+  as("educator");
+  expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", body)).status).toBe(200);
+};
+
+let familyId = 0;
+
+beforeAll(async () => {
+  team = await labWithTeam();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({ labId: team.lab.id, name: "NC status", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
+    .$returningId();
+  familyId = fam!.id;
+  await db
+    .insert(balloons)
+    .values(
+      [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25, 4.5].map((d) => ({ labId: team.lab.id, familyId, diameterMm: d })),
+    );
+  const definition = chartDefinitionSchema.parse({
+    title: "Status chart",
+    law: { law: "murray" },
+    lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    paper: "A4",
+    orientation: "portrait",
+    readingDistanceM: 1,
+  });
+  chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+});
+
+afterAll(() => pool.end());
+
+const tokenOf = async (id: number) =>
+  (await db.select({ t: editions.checkToken }).from(editions).where(eq(editions.id, id)))[0]!.t;
+const check = async (id: number) => {
+  session.user = null;
+  const r = await call<{ token: string }, CheckJson>(checkRoute, { token: await tokenOf(id) }, "GET");
+  expect(r.status).toBe(200);
+  return r.json;
+};
+const notices = async () => db.select().from(staleNotices).where(eq(staleNotices.labId, team.lab.id));
+
+describe("wording-only changes", () => {
+  it("a notes change keeps the posted copy current; the reworded draft, then its approval, are named; copies stay keep", async () => {
+    const first = await newEdition();
+    await approve(first);
+    const room = await createRoom({
+      labId: team.lab.id,
+      name: "Room 1",
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    await recordPosting({
+      labId: team.lab.id,
+      editionId: first,
+      roomId: (room as { id: number }).id,
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    expect(await check(first)).toMatchObject({
+      status: "current",
+      action: "keep",
+      reworded: false,
+      rewordedEdition: null,
+    });
+
+    await patch({ notes: "Measure at the reference segments." });
+    expect(await check(first)).toMatchObject({ status: "current", action: "keep", reworded: false });
+
+    const second = await newEdition();
+    expect(await check(first)).toMatchObject({
+      status: "current",
+      action: "keep",
+      reworded: true,
+      rewordedEdition: { number: 2, status: "draft" },
+    });
+
+    await approve(second);
+    expect(await check(first)).toMatchObject({
+      status: "current",
+      action: "keep",
+      reworded: true,
+      rewordedEdition: { number: 2, status: "approved" },
+    });
+    const [posting] = await db.select().from(postings).where(eq(postings.editionId, first));
+    expect(posting!.lastStatus).toBe("current");
+    expect(await notices()).toEqual([]);
+
+    // A size change is clinical: both copies' numbers no longer match.
+    await patch({ lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5, 4], cols: [2.5, 3] }] });
+    expect(await check(first)).toMatchObject({ status: "superseded", action: "take-down" });
+    expect(await check(second)).toMatchObject({ status: "outdated", action: "take-down", reworded: false });
+    expect((await notices()).length).toBe(1);
+  });
+});
+
+describe("archiving a chart", () => {
+  it("managers and the lead archive; copies read take-down; the chart leaves the list, keeps its editions, gets no new ones", async () => {
+    const definition = chartDefinitionSchema.parse({
+      title: "Chart to archive",
+      law: { law: "murray" },
+      lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+      paper: "A4",
+      orientation: "portrait",
+      readingDistanceM: 1,
+    });
+    const archivedChart = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+    as("educator");
+    const made = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(archivedChart) }, "POST");
+    await approve(made.json.id);
+    const room = await createRoom({
+      labId: team.lab.id,
+      name: "Room 2",
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    await recordPosting({
+      labId: team.lab.id,
+      editionId: made.json.id,
+      roomId: (room as { id: number }).id,
+      actor: { id: team.people.manager.id, name: "M" },
+    });
+    expect(await check(made.json.id)).toMatchObject({ status: "current", action: "keep" });
+
+    for (const who of ["educator", "operator"] as const) {
+      as(who);
+      expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
+    }
+    as("outsider");
+    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
+    as("lead");
+    const bad = await call<{ id: string }, { error: { issues: { path: string[] }[] } }>(
+      archiveRoute,
+      { id: String(archivedChart) },
+      "POST",
+      { confirm: true },
+    );
+    expect(bad.status).toBe(400);
+    const [still] = await db.select().from(charts).where(eq(charts.id, archivedChart));
+    expect(still!.archivedAt).toBeNull();
+
+    const ok = await call<{ id: string }, { archivedAt: string }>(archiveRoute, { id: String(archivedChart) }, "POST");
+    expect(ok.status).toBe(200);
+    expect(typeof ok.json.archivedAt).toBe("string");
+    as("manager");
+    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+
+    expect(await check(made.json.id)).toMatchObject({ status: "withdrawn", action: "take-down", currentEdition: null });
+    const [posting] = await db.select().from(postings).where(eq(postings.editionId, made.json.id));
+    expect(posting!.lastStatus).toBe("withdrawn");
+
+    as("operator");
+    const listed = await call<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
+    expect(listed.json.map((c) => c.id)).not.toContain(archivedChart);
+    expect(listed.json.map((c) => c.id)).toContain(chartId);
+    const res = await listChartsRoute(new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/charts?archived=1`), {
+      params: Promise.resolve({ slug: team.lab.slug }),
+    });
+    const archivedList = (await res.json()) as { id: number; archivedAt: string | null }[];
+    expect(archivedList.map((c) => c.id)).toEqual([archivedChart]);
+    expect(archivedList[0]!.archivedAt).toBe(ok.json.archivedAt);
+    expect(await db.select().from(editions).where(eq(editions.chartId, archivedChart))).toHaveLength(1);
+
+    as("educator");
+    expect((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+  });
+});
