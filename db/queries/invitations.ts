@@ -41,7 +41,8 @@ export async function createInvitation(
     labId: number;
     email: string;
     role: Role;
-    invitedBy: number;
+    /** null: the operator's command-line tool (npm run lab:create), not a person in the app. */
+    invitedBy: number | null;
     tokenHash: string;
     expiresAt: Date;
   },

@@ -15,19 +15,28 @@ import { labWrite } from "./write";
 
 export const invitationLink = (token: string) => `${env.APP_URL}/invite/${token}`;
 
-async function mailInvitation(member: Member, to: string, role: Role, token: string, expiresAt: Date) {
+/** Mails an invitation's link; false (logged) when the mail could not be handed to SMTP. */
+export async function mailInvitation(
+  from: { labId: number; labName: string; inviterName: string },
+  to: string,
+  role: Role,
+  token: string,
+  expiresAt: Date,
+) {
   try {
     const link = invitationLink(token);
     await sendMail({
       to,
-      ...invitationMail({ labName: member.lab.name, role, inviterName: member.user.name, link, expiresAt }),
+      ...invitationMail({ labName: from.labName, role, inviterName: from.inviterName, link, expiresAt }),
     });
     return true;
   } catch (err) {
-    log.warn({ err, labId: member.lab.id }, "invitation e-mail failed");
+    log.warn({ err, labId: from.labId }, "invitation e-mail failed");
     return false;
   }
 }
+
+const sender = (member: Member) => ({ labId: member.lab.id, labName: member.lab.name, inviterName: member.user.name });
 
 export const listMembers = labOperation({
   name: "member.list",
@@ -55,7 +64,7 @@ export const inviteMember = labOperation({
     const invitation = await labWrite(labId, (tx) =>
       invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
     );
-    const emailSent = await mailInvitation(member, input.email, input.role, token, expiresAt);
+    const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
     return { invitation, emailSent };
   },
 });
@@ -78,7 +87,7 @@ export const resendInvitation = labOperation({
         expiresAt,
       }),
     );
-    const emailSent = await mailInvitation(member, invitation.email, invitation.role, token, expiresAt);
+    const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
     return { invitation, emailSent };
   },
 });

@@ -192,6 +192,14 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   deletePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId }),
   deleteSizeAction: (t) => ({ slug: t.lab.slug, sizeId: stent.sizeId }),
   importStockAction: (t) => form({ slug: t.lab.slug, file: csv() }),
+  // onboard
+  resendVerificationAction: () => form({}),
+  createLabAction: () => form({ name: "Refused lab (illustrative)", slug: unique("refused") }),
+  changeNameAction: () => form({ name: "Someone else" }),
+  changeEmailAction: () => form({ email: `${unique("moved")}@example.test`, currentPassword: "fixture-password-2026" }),
+  changePasswordAction: () =>
+    form({ currentPassword: "fixture-password-2026", password: "another long phrase", confirm: "another long phrase" }),
+  leaveLabAction: (t) => form({ slug: t.lab.slug }),
 };
 
 async function snapshot(labId: number) {
@@ -199,7 +207,7 @@ async function snapshot(labId: number) {
     db.select().from(memberships).where(eq(memberships.labId, labId)),
     db.select().from(invitations).where(eq(invitations.labId, labId)),
     db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.labId, labId)),
-    db.select({ id: users.id }).from(users),
+    db.select({ id: users.id, name: users.name, email: users.email, hash: users.passwordHash }).from(users),
     db.select().from(charts).where(eq(charts.labId, labId)),
     db.select().from(editions).where(eq(editions.labId, labId)),
     db.select().from(rooms).where(eq(rooms.labId, labId)),
@@ -217,7 +225,8 @@ async function snapshot(labId: number) {
     memberships: m,
     invitations: i,
     audit: a.length,
-    users: u.length,
+    users: u,
+    labCount: (await db.select({ id: labs.id }).from(labs)).length,
     mail: (await mailTo(inviteeEmail)).length,
     charts: c,
     editions: e,
@@ -245,6 +254,9 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(public)/v/[token]/actions.ts": () => import("@/app/(public)/v/[token]/actions"),
   "app/(lab)/labs/[slug]/actions.ts": () => import("@/app/(lab)/labs/[slug]/actions"),
   "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
+  "lib/auth/sign-up-actions.ts": () => import("@/lib/auth/sign-up-actions"),
+  "app/(lab)/labs/new/actions.ts": () => import("@/app/(lab)/labs/new/actions"),
+  "app/(lab)/account/actions.ts": () => import("@/app/(lab)/account/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, charts, editions } from "@/db/schema";
 import { AppError } from "@/lib/errors";
+import * as accountSettings from "@/lib/ops/account-settings";
 import * as audit from "@/lib/ops/audit";
 import * as chartsOps from "@/lib/ops/charts";
 import * as editionsOps from "@/lib/ops/editions";
@@ -26,9 +27,17 @@ type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Pr
   scope: "lab" | "chart" | "edition";
 };
 
-const ops: Op[] = [audit, chartsOps, editionsOps, labRulesOps, members, postings, renders, stock].flatMap((mod) =>
-  Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v),
-);
+const ops: Op[] = [
+  accountSettings,
+  audit,
+  chartsOps,
+  editionsOps,
+  labRulesOps,
+  members,
+  postings,
+  renders,
+  stock,
+].flatMap((mod) => Object.values(mod).filter((v): v is Op => typeof v === "function" && "capability" in v));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 const ids = { chartId: 0, editionId: 0 };
