@@ -9,7 +9,7 @@ import { createLabSchema, type CreateLabInput } from "@/lib/validation/lab";
 import { emailField } from "@/lib/validation/members";
 import { signedIn } from "./access";
 import type { Caller } from "./caller";
-import { mailInvitation } from "./members";
+import { invitationLink, mailInvitation } from "./members";
 import { parseInput, traced } from "./operation";
 import { accountWrite, duplicateKey } from "./write";
 import type { Tx } from "@/db/queries/audit";
@@ -84,6 +84,12 @@ export async function createLabByOperator(raw: z.input<typeof operatorLabSchema>
       token,
       expiresAt,
     );
-    return { lab: { slug: lab.slug, name: lab.name }, invitation: { email: invitation.email, expiresAt }, emailSent };
+    // Without mail the operator (who holds the database anyway) hands the link over by hand.
+    return {
+      lab: { slug: lab.slug, name: lab.name },
+      invitation: { email: invitation.email, expiresAt },
+      emailSent,
+      ...(emailSent ? {} : { link: invitationLink(token) }),
+    };
   });
 }

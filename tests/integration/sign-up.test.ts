@@ -3,13 +3,14 @@ import { randomBytes } from "node:crypto";
 import { count, eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { emailVerifications, labs, rateLimits, users } from "@/db/schema";
-import { hashToken } from "@/lib/auth/tokens";
+import { emailVerifications, invitations, labs, rateLimits, users } from "@/db/schema";
+import { hashToken, newToken } from "@/lib/auth/tokens";
+import { acceptInvitationAsMember } from "@/lib/ops/accounts";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { createLab } from "@/lib/ops/lab-create";
 import { admitSignUp, completeSignUp, resendVerification, signUp, verifyEmail } from "@/lib/ops/sign-up";
-import { createUser, mailTo, unique } from "./support/fixtures";
+import { createLab as createFixtureLab, createUser, mailTo, unique } from "./support/fixtures";
 
 afterAll(() => pool.end());
 
@@ -160,6 +161,25 @@ describe("sign-up", () => {
     await verifyEmail({ token: linkIn(mails[4]!.text) });
     expect((await failure(resendVerification(me))).status).toBe(409);
     expect((await failure(resendVerification({ kind: "anonymous" }))).status).toBe(401);
+  });
+
+  it("an unconfirmed account that accepts an invitation to its address is confirmed by it", async () => {
+    const address = email("invited");
+    await signUp({ name: "Invited Later", email: address, password: PASSWORD }, { ip: ip() });
+    const user = (await userRow(address))!;
+    const lab = await createFixtureLab("invite-verifies");
+    const { token, hash } = newToken();
+    await db.insert(invitations).values({
+      labId: lab.id,
+      email: address,
+      role: "educator",
+      tokenHash: hash,
+      invitedBy: null,
+      expiresAt: new Date(Date.now() + 3600_000),
+      lastSentAt: new Date(),
+    });
+    await acceptInvitationAsMember(caller({ id: user.id, email: address, name: user.name }), { token });
+    expect((await userRow(address))!.emailVerifiedAt).toBeInstanceOf(Date);
   });
 
   it("treats a mangled or unknown link as not found", async () => {
