@@ -709,6 +709,13 @@ export const ACTIONS: ActionRow[] = [
   })),
   {
     kind: "action",
+    file: "app/(lab)/labs/[slug]/stock/ladder/actions.ts",
+    name: "createLadderFamilyAction",
+    allowed: ["manager"],
+    note: "the first-run size ladder; the pressures are the manager's own",
+  },
+  {
+    kind: "action",
     file: ACCOUNT_ACTIONS,
     name: "leaveLabAction",
     allowed: ALL_ROLES,

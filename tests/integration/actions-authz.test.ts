@@ -200,6 +200,14 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   changePasswordAction: () =>
     form({ currentPassword: "fixture-password-2026", password: "another long phrase", confirm: "another long phrase" }),
   leaveLabAction: (t) => form({ slug: t.lab.slug }),
+  createLadderFamilyAction: (t) => ({
+    slug: t.lab.slug,
+    name: "Ladder fixture family",
+    compliance: "nc",
+    nominalAtm: 12,
+    rbpAtm: 20,
+    diameters: [2, 2.5],
+  }),
 };
 
 async function snapshot(labId: number) {
@@ -257,6 +265,7 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "lib/auth/sign-up-actions.ts": () => import("@/lib/auth/sign-up-actions"),
   "app/(lab)/labs/new/actions.ts": () => import("@/app/(lab)/labs/new/actions"),
   "app/(lab)/account/actions.ts": () => import("@/app/(lab)/account/actions"),
+  "app/(lab)/labs/[slug]/stock/ladder/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/ladder/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);

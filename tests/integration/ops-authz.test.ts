@@ -10,6 +10,7 @@ import * as accountSettings from "@/lib/ops/account-settings";
 import * as audit from "@/lib/ops/audit";
 import * as chartsOps from "@/lib/ops/charts";
 import * as editionsOps from "@/lib/ops/editions";
+import * as firstRunOps from "@/lib/ops/first-run";
 import * as labRulesOps from "@/lib/ops/lab-rules";
 import * as members from "@/lib/ops/members";
 import * as postings from "@/lib/ops/postings";
@@ -32,6 +33,7 @@ const ops: Op[] = [
   audit,
   chartsOps,
   editionsOps,
+  firstRunOps,
   labRulesOps,
   members,
   postings,

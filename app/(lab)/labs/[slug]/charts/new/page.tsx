@@ -9,16 +9,31 @@ import type { ChartDefinition } from "@/lib/validation/chart";
 
 export const metadata = { title: "New chart" };
 
-export default async function NewChartPage({ params }: { params: Promise<{ slug: string }> }) {
+// Templates offered by a new lab's first-run path: a POT chart (proximal lookup) or a chart for
+// kissing-balloon inflation (side-branch and main-branch lookups).
+const TEMPLATES = {
+  pot: { title: "POT balloon chart", kinds: ["proximal"] },
+  kissing: { title: "Kissing-balloon chart", kinds: ["side", "main"] },
+} as const;
+
+export default async function NewChartPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<{ template?: string }>;
+}) {
   const { slug } = await params;
+  const asked = (await searchParams).template;
+  const template = asked === "kissing" ? TEMPLATES.kissing : TEMPLATES.pot;
   const member = await memberForPage(slug, "chart:design", `/labs/${slug}/charts/new`);
   if (member === "forbidden") return <Forbidden what="design charts" slug={slug} />;
   const stock = await getStock(member.caller, { lab: slug });
   const family = stock.balloonFamilies.find((f) => f.compliance === "nc") ?? stock.balloonFamilies[0];
   const initial: ChartDefinition = {
-    title: "POT balloon chart",
+    title: template.title,
     law: { law: "finet", ratio: FINET_DEFAULT_RATIO },
-    lookups: [defaultLookup("proximal", family)],
+    lookups: template.kinds.map((kind) => defaultLookup(kind, family)),
     stentPlatformId: stock.stentPlatforms[0]?.id ?? null,
     paper: "A2",
     orientation: "portrait",
