@@ -8,9 +8,11 @@ import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 import { NewPasswordFields } from "@/components/auth/new-password-fields";
 
-function CurrentPassword({ error }: { error?: string }) {
+/** Two forms on the page ask for it: each gets its own id, so each label names its own input. */
+function CurrentPassword({ id, error }: { id: string; error?: string }) {
   return (
     <TextField
+      id={id}
       label="Current password"
       name="currentPassword"
       type="password"
@@ -58,7 +60,7 @@ export function EmailForm({ email }: { email: string }) {
         defaultValue={state.ok ? "" : String(state.values?.email ?? "")}
         error={state.fieldErrors?.email}
       />
-      <CurrentPassword error={state.fieldErrors?.currentPassword} />
+      <CurrentPassword id="email-current-password" error={state.fieldErrors?.currentPassword} />
       <FormStatus ok={state.ok} message={state.message} />
       <button type="submit" disabled={pending} className={buttonClass("secondary")}>
         Send the link
@@ -71,7 +73,7 @@ export function PasswordForm() {
   const [state, action, pending] = useActionState<ActionState, FormData>(changePasswordAction, {});
   return (
     <form action={action} aria-label="Change your password" className="space-y-3" noValidate aria-busy={pending}>
-      <CurrentPassword error={state.fieldErrors?.currentPassword} />
+      <CurrentPassword id="password-current-password" error={state.fieldErrors?.currentPassword} />
       <NewPasswordFields errors={state.fieldErrors} />
       <FormStatus ok={state.ok} message={state.message} />
       <button type="submit" disabled={pending} className={buttonClass("secondary")}>

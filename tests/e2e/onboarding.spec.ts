@@ -5,8 +5,8 @@
 import { readFileSync } from "node:fs";
 import { expect, test, type Browser, type Page } from "@playwright/test";
 import { pdfInfo, pdfText } from "../support/pdf-tools";
-import { demoEmail } from "./support/auth";
-import { closeDb, query, uniqueEmail } from "./support/db";
+import { demoEmail, signInPage } from "./support/auth";
+import { closeDb, createPerson, query, uniqueEmail } from "./support/db";
 import { linkIn, mailTo, waitForMail } from "./support/mail";
 
 test.afterAll(closeDb);
@@ -214,4 +214,58 @@ test("POST /api/v1/accounts answers 202 alike for a new and an existing address,
   expect(bad.status()).toBe(400);
   const body = await bad.json();
   expect(body.error.issues.map((i: { path: string[] }) => i.path[0]).sort()).toEqual(["email", "name", "password"]);
+});
+
+test("the account page: name, password (current one required), e-mail through a link, and leaving labs", async ({
+  page,
+}) => {
+  const person = await createPerson({ prefix: "account", password: PASSWORD, lab: "demo-north", role: "educator" });
+  await signInPage(page, person.email, PASSWORD);
+  await page.getByTestId("signed-in-as").click();
+  await expect(page).toHaveURL(/\/account$/);
+  await expect(page.getByTestId("lab-demo-north")).toContainText("Educator");
+
+  const nameForm = page.getByRole("form", { name: "Change your name" });
+  await nameForm.getByLabel("Name", { exact: true }).fill("E2E Renamed Person");
+  await nameForm.getByRole("button", { name: "Save name" }).click();
+  await expect(nameForm.getByRole("status")).toHaveText(/Your name was saved/);
+  await expect(page.getByTestId("signed-in-as")).toHaveText("E2E Renamed Person");
+
+  const pw = page.getByRole("form", { name: "Change your password" });
+  await pw.getByLabel("Current password").fill("not my password");
+  await pw.getByLabel("New password").fill("another long phrase");
+  await pw.getByLabel("Repeat the password").fill("another long phrase");
+  await pw.getByRole("button", { name: /Change password/ }).click();
+  await expect(pw.getByText("That is not your current password.")).toBeVisible();
+
+  // A lab of one's own cannot be left by its only manager.
+  const slug = `e2e-own-${Date.now().toString(36)}`;
+  const created = await page.request.post("/api/v1/labs", { data: { name: "Own lab (e2e)", slug } });
+  expect(created.status()).toBe(201);
+  expect((await page.request.post("/api/v1/labs", { data: { name: "Again", slug } })).status()).toBe(409);
+  await page.reload();
+  const own = page.getByTestId(`lab-${slug}`);
+  await own.getByRole("button", { name: "Leave Own lab (e2e)" }).click();
+  await expect(own.getByRole("alert")).toContainText("You are the only manager of Own lab (e2e)");
+  await page
+    .getByTestId("lab-demo-north")
+    .getByRole("button", { name: /^Leave/ })
+    .click();
+  await expect(page.getByTestId("lab-demo-north")).toHaveCount(0);
+
+  // A new address takes effect only through the link sent to it.
+  const next = uniqueEmail("account-moved");
+  const emailForm = page.getByRole("form", { name: "Change your e-mail address" });
+  await emailForm.getByLabel("New e-mail address").fill(next);
+  await emailForm.getByLabel("Current password").fill(PASSWORD);
+  await emailForm.getByRole("button", { name: "Send the link" }).click();
+  await expect(emailForm.getByRole("status")).toContainText(`A link is on its way to ${next}`);
+  await expect(page.getByTestId("pending-email")).toContainText(next);
+  await page.goto(linkIn((await waitForMail(next))[0]!, "verify-email"));
+  await page.getByRole("button", { name: "Use this address from now on" }).click();
+  await expect(page).toHaveURL(/\/account$/);
+  await expect(emailForm.getByText(next)).toBeVisible();
+  await expect
+    .poll(async () => (await mailTo(person.email)).map((m) => m.subject))
+    .toContain("Your Forkwall e-mail address was changed");
 });
