@@ -8,7 +8,10 @@ import { AppError } from "@/lib/errors";
 import { SIZE_LADDER } from "@/lib/labs/first-run";
 import { createLadderFamily, firstRun } from "@/lib/ops/first-run";
 import { inviteMember } from "@/lib/ops/members";
+import { templateDefinition } from "@/lib/charts/templates";
+import { createChart } from "@/lib/ops/charts";
 import { createLab } from "@/lib/ops/lab-create";
+import { getStock } from "@/lib/ops/stock";
 import { addMember, createUser, labWithTeam, unique } from "./support/fixtures";
 
 afterAll(() => pool.end());
@@ -108,6 +111,42 @@ describe("the generic size ladder", () => {
     expect(again.status).toBe(409);
     expect(again.issues?.[0]?.path).toEqual(["name"]);
     expect(await stockState(team.lab.id)).toEqual(after);
+  });
+});
+
+describe("chart templates on ladder stock", () => {
+  it("both templates make charts the lab's rules accept, with axes inside the stocked range", async () => {
+    const stock = await getStock(as(team.people.manager), { lab: team.lab.slug });
+    const [family] = stock.balloonFamilies;
+    const stocked = family!.balloons.filter((b) => b.inStock).map((b) => b.diameterMm);
+    for (const template of ["pot", "kissing"] as const) {
+      const definition = templateDefinition(template, stock);
+      expect(definition.lookups.map((l) => l.kind)).toEqual(template === "pot" ? ["proximal"] : ["side", "main"]);
+      for (const l of definition.lookups) {
+        expect(l.familyId).toBe(family!.id);
+        for (const axis of [l.rows, l.cols]) {
+          const { from, to } = axis as { from: number; to: number };
+          expect(from).toBeGreaterThanOrEqual(Math.min(...stocked));
+          expect(to).toBeLessThanOrEqual(Math.max(...stocked));
+        }
+      }
+      const chart = await createChart(as(team.people.educator), { lab: team.lab.slug }, definition);
+      expect(chart.title).toBe(definition.title);
+    }
+    const steps = await firstRun(as(team.people.manager), { lab: team.lab.slug });
+    expect(steps.find((s) => s.key === "chart")).toMatchObject({ done: true, state: "2 charts designed." });
+  });
+
+  it("a balloon family cannot exist without its pressures (the database refuses it)", async () => {
+    await expect(
+      db.insert(balloonFamilies).values({
+        labId: team.lab.id,
+        name: "No pressures",
+        compliance: "nc",
+        nominalAtm: null as unknown as number,
+        rbpAtm: null as unknown as number,
+      }),
+    ).rejects.toThrow();
   });
 });
 
