@@ -16,6 +16,7 @@ const COMMANDS = {
   "db:up": { entry: "db/start.ts", args: ["up"], packages: ["server"] },
   "db:backup": { entry: "db/backup.ts", args: ["backup"], packages: ["server"] },
   "db:restore": { entry: "db/backup.ts", args: ["restore"], packages: ["server"] },
+  "lab:create": { entry: "db/lab-create.ts", args: [], packages: ["server"] },
   test: { entry: "tests/run.ts", args: [], packages: ["server", "galera", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
   "cluster:up": { entry: "db/cluster-cmd.ts", args: ["up"], packages: ["server", "galera"] },

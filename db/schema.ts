@@ -51,6 +51,10 @@ export const users = mysqlTable("users", {
   // Signed session cookies carry the version they were issued under; a password reset, a
   // sign-out, or removal from a lab bumps it, and every request compares (lib/auth/session.ts).
   sessionVersion: int("session_version").notNull().default(0),
+  // When the address was proven. Only a self sign-up starts without it (NULL until its link is
+  // used); accounts created by accepting an invitation (the link proved the address), by the
+  // seed, or before sign-up existed take the time they were written.
+  emailVerifiedAt: datetime("email_verified_at", { mode: "date", fsp: 3 }).default(sql`CURRENT_TIMESTAMP(3)`),
   createdAt: createdAt(),
 });
 
@@ -157,6 +161,24 @@ export const labTokens = mysqlTable(
     revokedBy: ref("revoked_by").references(() => users.id, { onDelete: "set null" }),
   },
   (t) => [index("lab_tokens_lab_idx").on(t.labId)],
+);
+
+/** Links that prove an address: a new account's, or the new address of an e-mail change. */
+export const emailVerifications = mysqlTable(
+  "email_verifications",
+  {
+    id: id(),
+    userId: ref("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    /** The address the link was sent to; differs from users.email for an e-mail change. */
+    email: varchar("email", { length: 254 }).notNull(),
+    tokenHash: char("token_hash", { length: 64 }).notNull().unique(),
+    expiresAt: when("expires_at").notNull(),
+    usedAt: when("used_at"),
+    createdAt: createdAt(),
+  },
+  (t) => [index("email_verifications_user_idx").on(t.userId)],
 );
 
 export const auditEvents = mysqlTable(

@@ -41,15 +41,23 @@ const schema = z
     // Stale-copy mail waits until a lab has had no new stale copies for this long, then goes out
     // as one digest (lib/ops/notices.ts); 0 sends after every change.
     STALE_MAIL_QUIET_SECONDS: z.coerce.number().int().min(0).max(86_400).default(600),
+    // Who may create an account: "open" (anyone, through /sign-up and POST /api/v1/accounts) or
+    // "invite-only" (only invitations create accounts). Unset: open on a loopback APP_URL
+    // (development, tests, a local `npm start`), invite-only on a public address.
+    SIGNUP: z.enum(["open", "invite-only"], { error: 'SIGNUP must be "open" or "invite-only"' }).optional(),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
-  .transform((e) => ({
-    ...e,
-    APP_URL: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, ""),
-    DATABASE_URL:
-      e.DATABASE_URL ??
-      `mysql://${encodeURIComponent(e.DB_USER)}:${encodeURIComponent(e.DB_PASSWORD)}@${e.DB_HOST}:${e.DB_PORT}/${e.DB_NAME}`,
-  }))
+  .transform((e) => {
+    const APP_URL = (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, "");
+    return {
+      ...e,
+      APP_URL,
+      SIGNUP: e.SIGNUP ?? (isLoopbackUrl(APP_URL) ? "open" : "invite-only"),
+      DATABASE_URL:
+        e.DATABASE_URL ??
+        `mysql://${encodeURIComponent(e.DB_USER)}:${encodeURIComponent(e.DB_PASSWORD)}@${e.DB_HOST}:${e.DB_PORT}/${e.DB_NAME}`,
+    };
+  })
   .superRefine((e, ctx) => {
     if (!e.MAIL_FAKE_URL) return;
     // The fake's mail (invitations, password-reset links) is readable at /dev/mail: only on a

@@ -62,9 +62,14 @@ export async function SiteHeader() {
                   </ul>
                 </details>
               ) : null}
-              <span className="hidden text-ink-soft sm:inline" data-testid="signed-in-as">
+              <Link
+                href="/account"
+                className="hidden text-ink-soft underline-offset-2 hover:underline sm:inline"
+                data-testid="signed-in-as"
+                title="Your account"
+              >
                 {user.name}
-              </span>
+              </Link>
               <form action={signOutAction}>
                 <button type="submit" className={buttonClass("secondary", "py-1.5")}>
                   Sign out

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { linkState } from "@/lib/auth/tokens";
 import { AppError, notFound } from "@/lib/errors";
 import type { Role } from "@/lib/permissions";
@@ -41,7 +41,8 @@ export async function createInvitation(
     labId: number;
     email: string;
     role: Role;
-    invitedBy: number;
+    /** null: the operator's command-line tool (npm run lab:create), not a person in the app. */
+    invitedBy: number | null;
     tokenHash: string;
     expiresAt: Date;
   },
@@ -209,6 +210,11 @@ export async function acceptInvitation(tx: Tx, input: { tokenHash: string } & Jo
     if (!user || user.email !== inv.email)
       throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
     userId = user.id;
+    // The link reached this address: an account still waiting to confirm it is confirmed now.
+    await tx
+      .update(users)
+      .set({ emailVerifiedAt: sql`COALESCE(${users.emailVerifiedAt}, CURRENT_TIMESTAMP(3))` })
+      .where(eq(users.id, userId));
   }
 
   const [already] = await tx

@@ -8,6 +8,8 @@ const NOTICES: Record<string, string> = {
   joined: "Your account is ready and you have joined the lab. Sign in to open it.",
   reset: "Your password was changed. Sign in with the new one.",
   "signed-out": "You are signed out.",
+  verified: "Your e-mail address is confirmed. Sign in to create your lab.",
+  "password-changed": "Your password was changed and every session ended. Sign in with the new one.",
 };
 
 export function signInNotice(q: SignInQuery, throttleSeconds: number): { ok: boolean; message: string } | null {

@@ -4,6 +4,7 @@ import { createHash, randomBytes } from "node:crypto";
 // database cannot be turned into working links.
 export const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
+export const EMAIL_VERIFICATION_TTL_MS = 24 * 60 * 60 * 1000;
 
 export function hashToken(token: string): string {
   return createHash("sha256").update(token, "utf8").digest("hex");

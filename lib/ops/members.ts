@@ -15,26 +15,40 @@ import { labWrite } from "./write";
 
 export const invitationLink = (token: string) => `${env.APP_URL}/invite/${token}`;
 
-async function mailInvitation(member: Member, to: string, role: Role, token: string, expiresAt: Date) {
+/** Mails an invitation's link; false (logged) when the mail could not be handed to SMTP. */
+export async function mailInvitation(
+  from: { labId: number; labName: string; inviterName: string; timeZone: string },
+  to: string,
+  role: Role,
+  token: string,
+  expiresAt: Date,
+) {
   try {
     const link = invitationLink(token);
     await sendMail({
       to,
       ...invitationMail({
-        labName: member.lab.name,
+        labName: from.labName,
         role,
-        inviterName: member.user.name,
+        inviterName: from.inviterName,
         link,
         expiresAt,
-        timeZone: member.lab.timeZone,
+        timeZone: from.timeZone,
       }),
     });
     return true;
   } catch (err) {
-    log.warn({ err, labId: member.lab.id }, "invitation e-mail failed");
+    log.warn({ err, labId: from.labId }, "invitation e-mail failed");
     return false;
   }
 }
+
+const sender = (member: Member) => ({
+  labId: member.lab.id,
+  labName: member.lab.name,
+  inviterName: member.user.name,
+  timeZone: member.lab.timeZone,
+});
 
 export const listMembers = labOperation({
   name: "member.list",
@@ -62,7 +76,7 @@ export const inviteMember = labOperation({
     const invitation = await labWrite(labId, (tx) =>
       invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
     );
-    const emailSent = await mailInvitation(member, input.email, input.role, token, expiresAt);
+    const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
     return { invitation, emailSent };
   },
 });
@@ -85,7 +99,7 @@ export const resendInvitation = labOperation({
         expiresAt,
       }),
     );
-    const emailSent = await mailInvitation(member, invitation.email, invitation.role, token, expiresAt);
+    const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
     return { invitation, emailSent };
   },
 });

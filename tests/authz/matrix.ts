@@ -566,6 +566,26 @@ export const ROUTES: RouteRow[] = [
   stockWrite("DELETE", "/sizes/[id]", "/sizes/0"),
   { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
 
+  // onboard: sign-up and new labs
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/accounts",
+    url: "/api/v1/accounts",
+    body: {},
+    expect: statuses(["anonymous", ...ALL_ROLES], 400),
+    note: "public sign-up (SIGNUP=open): 202 for any valid body, existing address or not; 403 when invite-only",
+  },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/labs",
+    url: "/api/v1/labs",
+    body: {},
+    expect: everyoneSignedIn(400),
+    note: "any signed-in person with a confirmed address; the creator becomes the lab's manager",
+  },
+
   // ---- tokens area: lab settings and machine tokens ----
   {
     kind: "route",
@@ -673,6 +693,9 @@ const CHECK_ACTIONS = "app/(public)/v/[token]/actions.ts";
 const LAB_ACTIONS = "app/(lab)/labs/[slug]/actions.ts";
 const STOCK_ACTIONS = "app/(lab)/labs/[slug]/stock/actions.ts";
 const AUTH_ACTIONS = "lib/auth/actions.ts";
+const SIGN_UP_ACTIONS = "lib/auth/sign-up-actions.ts";
+const NEW_LAB_ACTIONS = "app/(lab)/labs/new/actions.ts";
+const ACCOUNT_ACTIONS = "app/(lab)/account/actions.ts";
 const SETTINGS_ACTIONS = "app/(lab)/labs/[slug]/settings/actions.ts";
 
 export const ACTIONS: ActionRow[] = [
@@ -759,6 +782,56 @@ export const ACTIONS: ActionRow[] = [
     name: "recordPostingAction",
     allowed: ALL_ROLES,
     note: "members of the edition's own lab",
+  },
+  // onboard: sign-up, the account page, new labs
+  {
+    kind: "action",
+    file: SIGN_UP_ACTIONS,
+    name: "signUpAction",
+    allowed: ANYONE,
+    note: "same answer for every address; 10 sign-ups per client address per hour; refused when invite-only",
+  },
+  {
+    kind: "action",
+    file: SIGN_UP_ACTIONS,
+    name: "verifyEmailAction",
+    allowed: ANYONE,
+    note: "the single-use e-mailed token is the credential",
+  },
+  {
+    kind: "action",
+    file: SIGN_UP_ACTIONS,
+    name: "resendVerificationAction",
+    allowed: ["any-signed-in"],
+    note: "only for the caller's own unconfirmed address; 5 e-mails per address per hour",
+  },
+  {
+    kind: "action",
+    file: NEW_LAB_ACTIONS,
+    name: "createLabAction",
+    allowed: ["any-signed-in"],
+    note: "needs a confirmed address",
+  },
+  ...["changeNameAction", "changeEmailAction", "changePasswordAction"].map((name): ActionRow => ({
+    kind: "action",
+    file: ACCOUNT_ACTIONS,
+    name,
+    allowed: ["any-signed-in"],
+    note: "the caller's own account; e-mail and password need the current password",
+  })),
+  {
+    kind: "action",
+    file: "app/(lab)/labs/[slug]/stock/ladder/actions.ts",
+    name: "createLadderFamilyAction",
+    allowed: ["manager"],
+    note: "the first-run size ladder; the pressures are the manager's own",
+  },
+  {
+    kind: "action",
+    file: ACCOUNT_ACTIONS,
+    name: "leaveLabAction",
+    allowed: ALL_ROLES,
+    note: "members leave their own membership; never the lab's last manager",
   },
   {
     kind: "action",

@@ -214,6 +214,22 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   createTokenAction: (t) => ({ slug: t.lab.slug, name: "New feed", scopes: ["stock:read", "stock:write"] }),
   revokeTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
   saveLabRulesAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
+  // onboard
+  resendVerificationAction: () => form({}),
+  createLabAction: () => form({ name: "Refused lab (illustrative)", slug: unique("refused") }),
+  changeNameAction: () => form({ name: "Someone else" }),
+  changeEmailAction: () => form({ email: `${unique("moved")}@example.test`, currentPassword: "fixture-password-2026" }),
+  changePasswordAction: () =>
+    form({ currentPassword: "fixture-password-2026", password: "another long phrase", confirm: "another long phrase" }),
+  leaveLabAction: (t) => form({ slug: t.lab.slug }),
+  createLadderFamilyAction: (t) => ({
+    slug: t.lab.slug,
+    name: "Ladder fixture family",
+    compliance: "nc",
+    nominalAtm: 12,
+    rbpAtm: 20,
+    diameters: [2, 2.5],
+  }),
 };
 
 async function snapshot(labId: number) {
@@ -221,7 +237,7 @@ async function snapshot(labId: number) {
     db.select().from(memberships).where(eq(memberships.labId, labId)),
     db.select().from(invitations).where(eq(invitations.labId, labId)),
     db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.labId, labId)),
-    db.select({ id: users.id }).from(users),
+    db.select({ id: users.id, name: users.name, email: users.email, hash: users.passwordHash }).from(users),
     db.select().from(charts).where(eq(charts.labId, labId)),
     db.select().from(editions).where(eq(editions.labId, labId)),
     db.select().from(rooms).where(eq(rooms.labId, labId)),
@@ -248,7 +264,8 @@ async function snapshot(labId: number) {
     memberships: m,
     invitations: i,
     audit: a.length,
-    users: u.length,
+    users: u,
+    labCount: (await db.select({ id: labs.id }).from(labs)).length,
     mail: (await mailTo(inviteeEmail)).length,
     charts: c,
     editions: e,
@@ -280,6 +297,10 @@ const MODULES: Record<string, () => Promise<unknown>> = {
   "app/(lab)/labs/[slug]/stock/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/actions"),
   "app/(lab)/labs/[slug]/settings/actions.ts": () => import("@/app/(lab)/labs/[slug]/settings/actions"),
   "app/(lab)/labs/[slug]/rules/actions.ts": () => import("@/app/(lab)/labs/[slug]/rules/actions"),
+  "lib/auth/sign-up-actions.ts": () => import("@/lib/auth/sign-up-actions"),
+  "app/(lab)/labs/new/actions.ts": () => import("@/app/(lab)/labs/new/actions"),
+  "app/(lab)/account/actions.ts": () => import("@/app/(lab)/account/actions"),
+  "app/(lab)/labs/[slug]/stock/ladder/actions.ts": () => import("@/app/(lab)/labs/[slug]/stock/ladder/actions"),
 };
 
 const guarded = ACTIONS.filter((row) => actorsRefused(row.allowed).length > 0);

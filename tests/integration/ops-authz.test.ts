@@ -6,9 +6,11 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, charts, editions } from "@/db/schema";
 import { AppError } from "@/lib/errors";
+import * as accountSettings from "@/lib/ops/account-settings";
 import * as audit from "@/lib/ops/audit";
 import * as chartsOps from "@/lib/ops/charts";
 import * as editionsOps from "@/lib/ops/editions";
+import * as firstRunOps from "@/lib/ops/first-run";
 import * as labRulesOps from "@/lib/ops/lab-rules";
 import * as members from "@/lib/ops/members";
 import * as postings from "@/lib/ops/postings";
@@ -30,9 +32,11 @@ type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Pr
 };
 
 const ops: Op[] = [
+  accountSettings,
   audit,
   chartsOps,
   editionsOps,
+  firstRunOps,
   labRulesOps,
   members,
   postings,

@@ -31,7 +31,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   return (
     <div>
       <h1 className="text-2xl font-bold">Sign in</h1>
-      <p className="mt-1 text-sm text-ink-soft">Use the e-mail address your lab invited.</p>
+      <p className="mt-1 text-sm text-ink-soft">Use the e-mail address of your Forkwall account.</p>
       {user ? (
         <p className="mt-4 rounded-md border border-line bg-paper-sunk px-3 py-2 text-sm">
           You are signed in as <strong>{user.email}</strong>.{" "}
@@ -49,7 +49,17 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         </Link>
       </p>
       <p className="mt-2 text-xs text-ink-faint">
-        No account? Forkwall accounts are created from an invitation sent by a lab manager.
+        {env.SIGNUP === "open" ? (
+          <>
+            No account? Joining a lab: open the invitation its manager sent you. Setting up a new lab:{" "}
+            <Link href="/sign-up" className="text-brand-700 underline">
+              create an account
+            </Link>
+            .
+          </>
+        ) : (
+          "No account? Forkwall accounts are created from an invitation sent by a lab manager."
+        )}
       </p>
     </div>
   );

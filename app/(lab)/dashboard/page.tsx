@@ -1,7 +1,9 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
+import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { listMyLabs } from "@/lib/ops/accounts";
+import { needsVerification } from "@/lib/ops/sign-up";
 import { currentUser } from "@/lib/auth/session";
 import { ROLE_LABELS } from "@/lib/permissions";
 
@@ -10,14 +12,26 @@ export const metadata = { title: "Dashboard" };
 export default async function DashboardPage() {
   const user = await currentUser();
   if (!user) redirect("/sign-in?callbackUrl=/dashboard");
-  const labs = await listMyLabs({ kind: "user", user });
+  const caller = { kind: "user" as const, user };
+  // An account whose address is not confirmed yet can only wait for (or ask again for) its link.
+  if (await needsVerification(caller)) redirect("/check-email");
+  const labs = await listMyLabs(caller);
   return (
     <div>
-      <h1 className="text-2xl font-bold">Your labs</h1>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-2xl font-bold">Your labs</h1>
+        <Link href="/labs/new" className={buttonClass("secondary", "py-1.5")}>
+          Create a lab
+        </Link>
+      </div>
       {labs.length === 0 ? (
         <div className="mt-6">
           <EmptyState title="You are not in any lab yet">
-            Ask your lab&apos;s manager for an invitation. Once you join, its charts, stock and rooms appear here.
+            Joining a lab that uses Forkwall: ask its manager for an invitation. Setting one up:{" "}
+            <Link href="/labs/new" className="text-brand-700 underline">
+              create your lab
+            </Link>{" "}
+            and you become its manager.
           </EmptyState>
         </div>
       ) : (

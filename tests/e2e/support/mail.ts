@@ -26,7 +26,7 @@ export async function waitForMail(address: string, count = 1): Promise<FakeMessa
   return found;
 }
 
-export function linkIn(message: FakeMessage, kind: "invite" | "reset-password"): string {
+export function linkIn(message: FakeMessage, kind: "invite" | "reset-password" | "verify-email"): string {
   const m = message.text.match(new RegExp(`https?://\\S+/${kind}/[A-Za-z0-9_-]{43}`));
   if (!m) throw new Error(`no ${kind} link in: ${message.text}`);
   return m[0];

@@ -1,10 +1,12 @@
 import Link from "next/link";
 import { StaleMailToggle } from "@/components/lab/stale-mail-toggle";
+import { FirstRun } from "@/components/labs/first-run";
 import { buttonClass } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { listCharts } from "@/lib/ops/charts";
+import { firstRun } from "@/lib/ops/first-run";
 import { getStaleMail } from "@/lib/ops/members";
 import { roomBoard } from "@/lib/ops/postings";
 import { memberForPage } from "@/lib/auth/page-guard";
@@ -16,11 +18,14 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}`);
   if (member === "forbidden") return null;
-  const [charts, board, mail] = await Promise.all([
+  const [charts, board, mail, steps] = await Promise.all([
     listCharts(member.caller, { lab: slug }),
     roomBoard(member.caller, { lab: slug }),
     getStaleMail(member.caller, { lab: slug }),
+    firstRun(member.caller, { lab: slug }),
   ]);
+  // Managers of a lab that has not printed its first approved chart yet are walked through it.
+  const showFirstRun = member.role === "manager" && steps.some((s) => !s.done);
   const stale = board.flatMap((r) =>
     r.postings.filter((p) => STALE.includes(p.status)).map((p) => ({ ...p, room: r.name })),
   );
@@ -28,6 +33,7 @@ export default async function LabPage({ params }: { params: Promise<{ slug: stri
   return (
     <div className="space-y-8">
       <h1 className="sr-only">{member.lab.name}: overview</h1>
+      {showFirstRun ? <FirstRun steps={steps} /> : null}
       <section
         aria-labelledby="walls-h"
         className={`rounded-card border p-5 ${stale.length ? "border-warn/60 bg-warn-soft" : "border-line bg-paper-raised"}`}

@@ -1,0 +1,93 @@
+import "server-only";
+import * as q from "@/db/queries/accounts";
+import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
+import { mayMail } from "@/lib/auth/account-limits";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { AppError } from "@/lib/errors";
+import { sendMail } from "@/lib/mail/send";
+import { emailTakenMail } from "@/lib/mail/templates/account";
+import { changeEmailSchema, changeNameSchema, changePasswordSchema } from "@/lib/validation/account";
+import { signedIn } from "./access";
+import type { Caller } from "./caller";
+import { labOperation, parseInput, traced } from "./operation";
+import { mailNewLink } from "./sign-up";
+import { accountWrite, labWrite } from "./write";
+
+// The account page: a person's own name, address, password and labs. Each needs a confirmed
+// address (an unconfirmed account can only ask for a new link).
+
+async function verifiedAccount(caller: Caller) {
+  const user = signedIn(caller);
+  const account = await q.findAccount({ userId: user.id });
+  if (!account) throw new AppError("unauthenticated", "Sign in to continue.");
+  if (!account.emailVerifiedAt)
+    throw new AppError("forbidden", "Confirm your e-mail address first: open the link we sent you.");
+  return account;
+}
+
+const wrongPassword = () =>
+  new AppError("invalid_input", "currentPassword: That is not your current password.", [
+    { path: ["currentPassword"], message: "That is not your current password." },
+  ]);
+
+export async function readAccount(caller: Caller) {
+  const account = await verifiedAccount(caller);
+  const [labs, pendingEmail] = await Promise.all([
+    listLabsForUser({ userId: account.id }),
+    q.findPendingEmail({ userId: account.id }),
+  ]);
+  return { id: account.id, name: account.name, email: account.email, pendingEmail, labs };
+}
+
+export async function changeName(caller: Caller, raw: unknown) {
+  const account = await verifiedAccount(caller);
+  const { name } = parseInput(changeNameSchema, raw);
+  return traced("account.name.change", { userId: account.id }, () =>
+    accountWrite((tx) => q.updateAccountName(tx, { userId: account.id, name })),
+  );
+}
+
+/**
+ * A new address takes effect only when a link sent to it is used. The answer is the same whether
+ * or not another account has that address (that account's owner gets a note instead).
+ */
+export async function requestEmailChange(caller: Caller, raw: unknown) {
+  const account = await verifiedAccount(caller);
+  const { email, currentPassword } = parseInput(changeEmailSchema, raw);
+  return traced("account.email.change", { userId: account.id }, async () => {
+    if (!(await verifyPassword(currentPassword, account.passwordHash))) throw wrongPassword();
+    if (email === account.email)
+      throw new AppError("invalid_input", "email: That is already your address.", [
+        { path: ["email"], message: "That is already your address." },
+      ]);
+    const allowed = await mayMail(account.email);
+    if (!allowed.ok)
+      throw new AppError(
+        "rate_limited",
+        `Several links went out in the last hour. Try again in ${allowed.retryMinutes} minutes.`,
+      );
+    if (await findUserByEmail({ email })) await sendMail({ to: email, ...emailTakenMail() });
+    else await mailNewLink(account, email, "change");
+    return { pendingEmail: email };
+  });
+}
+
+/** Needs the current password; every session ends, so the person signs in again with the new one. */
+export async function changePassword(caller: Caller, raw: unknown) {
+  const account = await verifiedAccount(caller);
+  const { currentPassword, password } = parseInput(changePasswordSchema, raw);
+  return traced("account.password.change", { userId: account.id }, async () => {
+    if (!(await verifyPassword(currentPassword, account.passwordHash))) throw wrongPassword();
+    const passwordHash = await hashPassword(password);
+    await accountWrite((tx) => q.updateAccountPassword(tx, { userId: account.id, passwordHash }));
+    return { signedOut: true };
+  });
+}
+
+/** The caller leaves a lab; refused (409) for its last manager. */
+export const leaveLab = labOperation({
+  name: "member.leave",
+  capability: "lab:read",
+  scope: "lab",
+  run: ({ labId, member }) => labWrite(labId, (tx) => q.leaveLab(tx, { labId, userId: member.user.id })),
+});
