@@ -12,11 +12,13 @@ export type CheckView = {
   action: CopyAction;
   reviewBy: Date | null;
   since: Date | null;
-  edition: { id: number; number: number; approvedAt: Date | null };
+  edition: { id: number; number: number; approvedAt: Date | null; shortCode: string };
   chart: { id: number; title: string };
-  lab: { id: number; slug: string; name: string; isDemo: boolean };
+  lab: { id: number; slug: string; name: string; isDemo: boolean; timeZone: string; contactLine: string | null };
   changes: Change[];
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
+  /** The snapshots the check page compares cell by cell (lib/editions/check-cells.ts). */
+  snapshots: { printed: Snapshot; current: Snapshot | null; live: Snapshot | null };
 };
 
 /** Everything the public check page shows for one QR token: no personal data. */
@@ -31,7 +33,14 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
         liveSnapshot: charts.liveSnapshot,
         liveChangedAt: charts.liveChangedAt,
       },
-      lab: { id: labs.id, slug: labs.slug, name: labs.name, isDemo: labs.isDemo },
+      lab: {
+        id: labs.id,
+        slug: labs.slug,
+        name: labs.name,
+        isDemo: labs.isDemo,
+        timeZone: labs.timeZone,
+        contactLine: labs.contactLine,
+      },
     })
     .from(editions)
     .innerJoin(charts, eq(charts.id, editions.chartId))
@@ -44,6 +53,7 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
       number: editions.number,
       approvedAt: editions.approvedAt,
       fingerprint: editions.fingerprint,
+      snapshot: editions.snapshot,
     })
     .from(editions)
     .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
@@ -77,10 +87,30 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     action,
     reviewBy: row.edition.reviewBy,
     since,
-    edition: { id: row.edition.id, number: row.edition.number, approvedAt: row.edition.approvedAt },
+    edition: {
+      id: row.edition.id,
+      number: row.edition.number,
+      approvedAt: row.edition.approvedAt,
+      shortCode: row.edition.shortCode,
+    },
     chart: { id: row.chart.id, title: row.chart.title },
     lab: row.lab,
     changes: result.changes,
     currentEdition: current ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
+    snapshots: {
+      printed: row.edition.snapshot as Snapshot,
+      current: current ? (current.snapshot as Snapshot) : null,
+      live: row.chart.liveSnapshot as Snapshot | null,
+    },
   };
+}
+
+/** The check token of the edition with this short code (already parsed by parseShortCode), or null. */
+export async function getCheckTokenByShortCode({ code }: { code: string }): Promise<string | null> {
+  const [row] = await db
+    .select({ token: editions.checkToken })
+    .from(editions)
+    .where(eq(editions.shortCode, code))
+    .limit(1);
+  return row?.token ?? null;
 }
