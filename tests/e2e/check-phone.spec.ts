@@ -1,7 +1,11 @@
 // The check page on a phone: every status fits a 320 px screen with no sideways scrolling and
 // says what to do; a replaced copy lists the cells that differ with both values; an outdated copy
 // nothing replaces strikes its affected cells and names whom to ask; unknown codes are a 404.
+import { execFileSync } from "node:child_process";
 import { expect, test, type Page } from "@playwright/test";
+import { parseShortCode } from "@/lib/editions/short-code";
+import { jsqrDecode, rasterise } from "../support/pdf-tools";
+import { demoEmail, signInApi } from "./support/auth";
 import { makeCheckFixtures, type CheckFixtures } from "./support/check-fixtures";
 import { demoIds, query } from "./support/db";
 
@@ -141,4 +145,36 @@ test("a typed short code, in any case and with look-alike letters, leads to the 
   expect(new URL(page.url()).pathname).toBe(`/v/${fx.current.token}`);
   await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
   expect((await demoIds())["token:pot"]).toBeTruthy();
+});
+
+/** The short code a poster prints, read from its text layer with poppler's pdftotext: after `/c/` if the address is printed, else a lone XXXX-XXXX group. */
+function shortCodeInText(text: string): string | null {
+  const joined = text.replace(/\s+/g, "");
+  const inUrl = /\/c\/([0-9A-Za-z]{4}-?[0-9A-Za-z]{4})/.exec(joined)?.[1];
+  const group = /(?:^|[^0-9A-Za-z-])([0-9A-HJKMNP-TV-Z]{4}-[0-9A-HJKMNP-TV-Z]{4})(?![0-9A-Za-z-])/.exec(text)?.[1];
+  return parseShortCode(inUrl ?? group ?? "");
+}
+
+test("the short code printed on a poster leads to the same check page as its QR code", async ({
+  playwright,
+  baseURL,
+  page,
+}) => {
+  const ids = await demoIds();
+  const member = await playwright.request.newContext({ baseURL });
+  await signInApi(member, demoEmail("manager"));
+  const res = await member.get(`/api/v1/editions/${ids["edition:pot"]}/pdf`);
+  expect(res.status()).toBe(200);
+  const pdf = Buffer.from(await res.body());
+  await member.dispose();
+  const qrUrl = jsqrDecode(rasterise(pdf, 100))?.text;
+  expect(qrUrl).toBe(`${baseURL}/v/${ids["token:pot"]}`);
+  const text = execFileSync("pdftotext", ["-layout", "-", "-"], { input: pdf }).toString("utf8");
+  const code = shortCodeInText(text);
+  // The poster gains its printed short code in the posters work; until then there is nothing to type.
+  test.skip(code === null, "this poster prints no short code yet");
+  await page.goto(`/c/${code}`);
+  expect(page.url()).toBe(qrUrl);
+  await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
+  await expect(page.getByTestId("check-code")).toHaveText(`${code!.slice(0, 4)}-${code!.slice(4)}`);
 });

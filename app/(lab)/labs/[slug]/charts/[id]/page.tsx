@@ -1,4 +1,5 @@
-import { notFound } from "next/navigation";
+import Link from "next/link";
+import { notFound, redirect } from "next/navigation";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
@@ -10,12 +11,23 @@ import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
 import { env } from "@/lib/env";
 import { labCan } from "@/lib/ops/access";
-import { can } from "@/lib/permissions";
+import { can, type Role } from "@/lib/permissions";
+
+async function designerUseful(labId: number, role: Role) {
+  return (
+    can(role, "chart:design") ||
+    can(role, "edition:create") ||
+    can(role, "edition:withdraw") ||
+    (await labCan(labId, role, "edition:approve"))
+  );
+}
 
 export default async function ChartPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
   const { slug, id } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts/${id}`);
   if (member === "forbidden") return null;
+  // A role with nothing to do in the designer (an operator) reads the approved chart on the wall view.
+  if (!(await designerUseful(member.lab.id, member.role))) redirect(`/labs/${slug}/charts/${id}/wall`);
   const [{ chart, editions: eds }, stock] = await forPage(`/labs/${slug}/charts/${id}`, () =>
     Promise.all([getChart(member.caller, { chartId: id }), getStock(member.caller, { lab: slug })]),
   );
@@ -24,6 +36,11 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
+      <p className="mt-1">
+        <Link href={`/labs/${slug}/charts/${id}/wall`} className="text-brand-700 underline">
+          Wall view of the approved edition
+        </Link>
+      </p>
       <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner
         slug={slug}
