@@ -554,6 +554,24 @@ export const ROUTES: RouteRow[] = [
     expect: statuses(["anonymous", ...ALL_ROLES], 404),
   },
 
+  // phone: the calculator's lab data (loaded once) and the header's account part (prerendered pages)
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/calculator",
+    url: "/api/v1/calculator",
+    expect: statuses(ALL_ROLES, 200),
+    note: "only the caller's own labs",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/header",
+    url: "/api/v1/header",
+    expect: statuses(["anonymous", ...ALL_ROLES], 200),
+    note: "anonymous: nobody",
+  },
+
   // public sizing
   {
     kind: "route",
