@@ -149,6 +149,11 @@ export function Calculator({ laws }: { laws: LawOption[] }) {
             ) : null}
           </div>
         )}
+        {ready && answer?.ok ? (
+          <p className="mt-3 border-t border-line pt-2 text-xs text-ink-soft">
+            Reference aid only: confirm by imaging and the device&apos;s own compliance chart (full caution below).
+          </p>
+        ) : null}
       </section>
 
       {labs && labs.length ? (
