@@ -19,6 +19,7 @@ const COMMANDS = {
   "lab:create": { entry: "db/lab-create.ts", args: [], packages: ["server"] },
   test: { entry: "tests/run.ts", args: [], packages: ["server", "galera", "browser", "tools"] },
   bench: { entry: "tests/bench/poster.ts", args: [], packages: ["server"] },
+  "bench:http": { entry: "tests/bench/http.ts", args: [], packages: ["server"] },
   "cluster:up": { entry: "db/cluster-cmd.ts", args: ["up"], packages: ["server", "galera"] },
   "cluster:down": { entry: "db/cluster-cmd.ts", args: ["down"], packages: ["server"] },
   "cluster:status": { entry: "db/cluster-cmd.ts", args: ["status"], packages: ["server"] },

@@ -1,6 +1,9 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 
+// Prerendered: nothing here depends on the visitor (the header's account part loads separately).
+export const dynamic = "force-static";
+
 export default function LandingPage() {
   return (
     <div className="py-10">

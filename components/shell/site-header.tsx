@@ -1,15 +1,8 @@
 import Link from "next/link";
-import { signOutAction } from "@/lib/auth/actions";
-import { listMyLabs } from "@/lib/ops/accounts";
-import { sessionCaller } from "@/lib/ops/caller";
-import { mailFakeConfigured } from "@/lib/mail/send";
-import { ROLE_LABELS } from "@/lib/permissions";
-import { buttonClass } from "@/components/ui/button";
+import { HeaderAccount } from "./header-account";
 
-export async function SiteHeader() {
-  const caller = await sessionCaller().catch(() => null);
-  const user = caller?.kind === "user" ? caller.user : null;
-  const labs = caller ? await listMyLabs(caller).catch(() => []) : [];
+/** The site header: static, so pages that depend on nobody can be prerendered; the account part loads after. */
+export function SiteHeader() {
   return (
     <header className="border-b border-line bg-paper-raised">
       <div className="mx-auto flex w-full max-w-page flex-wrap items-center gap-4 px-gutter py-3">
@@ -24,64 +17,8 @@ export async function SiteHeader() {
           <Link href="/calculator" className="rounded px-2 py-1 text-ink-soft hover:text-ink">
             Calculator
           </Link>
-          {user ? (
-            <Link href="/dashboard" className="rounded px-2 py-1 text-ink-soft hover:text-ink">
-              Dashboard
-            </Link>
-          ) : null}
-          {labs.some((l) => l.role === "manager") && mailFakeConfigured() ? (
-            <Link
-              href="/dev/mail"
-              className="rounded px-2 py-1 text-ink-soft hover:text-ink"
-              title="Messages kept by the local mail fake (development only)"
-            >
-              Mail (local)
-            </Link>
-          ) : null}
         </nav>
-        <div className="ml-auto flex items-center gap-3 text-sm">
-          {user ? (
-            <>
-              {labs.length > 0 ? (
-                <details className="relative">
-                  <summary className="cursor-pointer list-none rounded-md border border-line px-3 py-1.5 hover:bg-paper-sunk">
-                    Labs ▾
-                  </summary>
-                  <ul
-                    className="absolute right-0 z-20 mt-1 w-72 rounded-md border border-line bg-white py-1 shadow-lg"
-                    aria-label="Switch lab"
-                  >
-                    {labs.map((lab) => (
-                      <li key={lab.slug}>
-                        <Link href={`/labs/${lab.slug}`} className="block px-3 py-2 hover:bg-paper-sunk">
-                          <span className="block font-medium">{lab.name}</span>
-                          <span className="text-xs text-ink-faint">{ROLE_LABELS[lab.role]}</span>
-                        </Link>
-                      </li>
-                    ))}
-                  </ul>
-                </details>
-              ) : null}
-              <Link
-                href="/account"
-                className="hidden text-ink-soft underline-offset-2 hover:underline sm:inline"
-                data-testid="signed-in-as"
-                title="Your account"
-              >
-                {user.name}
-              </Link>
-              <form action={signOutAction}>
-                <button type="submit" className={buttonClass("secondary", "py-1.5")}>
-                  Sign out
-                </button>
-              </form>
-            </>
-          ) : (
-            <Link href="/sign-in" className={buttonClass("primary", "py-1.5")}>
-              Sign in
-            </Link>
-          )}
-        </div>
+        <HeaderAccount />
       </div>
     </header>
   );

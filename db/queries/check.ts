@@ -13,7 +13,7 @@ export type CheckView = {
   action: CopyAction;
   reviewBy: Date | null;
   since: Date | null;
-  edition: { id: number; number: number; approvedAt: Date | null };
+  edition: { id: number; number: number; approvedAt: Date | null; shortCode: string };
   chart: { id: number; title: string };
   lab: {
     id: number;
@@ -28,6 +28,8 @@ export type CheckView = {
   currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
   /** An edition that only rewords this copy (its clinical content is the same), when one exists. */
   reworded: Reworded | null;
+  /** The snapshots the check page compares cell by cell (lib/editions/check-cells.ts). */
+  snapshots: { printed: Snapshot; current: Snapshot | null; live: Snapshot | null };
 };
 
 /** Everything the public check page shows for one QR token: no personal data. */
@@ -115,12 +117,32 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
     action,
     reviewBy: row.edition.reviewBy,
     since,
-    edition: { id: row.edition.id, number: row.edition.number, approvedAt: row.edition.approvedAt },
+    edition: {
+      id: row.edition.id,
+      number: row.edition.number,
+      approvedAt: row.edition.approvedAt,
+      shortCode: row.edition.shortCode,
+    },
     chart: { id: row.chart.id, title: row.chart.title },
     lab: row.lab,
     changes: result.changes,
     currentEdition:
       current && !archived ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
     reworded: result.reworded ?? null,
+    snapshots: {
+      printed: row.edition.snapshot as Snapshot,
+      current: current && !archived ? (current.snapshot as Snapshot) : null,
+      live: row.chart.liveSnapshot as Snapshot | null,
+    },
   };
+}
+
+/** The check token of the edition with this short code (already parsed by parseShortCode), or null. */
+export async function getCheckTokenByShortCode({ code }: { code: string }): Promise<string | null> {
+  const [row] = await db
+    .select({ token: editions.checkToken })
+    .from(editions)
+    .where(eq(editions.shortCode, code))
+    .limit(1);
+  return row?.token ?? null;
 }

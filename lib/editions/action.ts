@@ -1,3 +1,4 @@
+import { formatDate } from "@/lib/format/dates";
 import type { CheckStatus } from "./check";
 
 /** What to do with a printed copy, in one word: the answer a person at the wall needs. */
@@ -34,14 +35,15 @@ export function copyAction({ status, reviewBy, replacement, now }: ActionInput):
   return "take-down";
 }
 
-const day = (d: Date) =>
-  d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
-
-/** The one sentence the check page shows for the action. */
+/** The one sentence the check page shows for the action; with `timeZone`, dates read 2026-12-02 in it. */
 export function actionSentence(
   action: CopyAction,
-  v: { reviewBy: Date | null; replacement: { number: number } | null },
+  v: { reviewBy: Date | null; replacement: { number: number } | null; timeZone?: string },
 ): string {
+  const day = (d: Date) =>
+    v.timeZone
+      ? formatDate(d, v.timeZone)
+      : d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
   switch (action) {
     case "keep":
       return v.reviewBy

@@ -2,6 +2,7 @@ import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/charts";
 import { listEditions } from "@/db/queries/editions";
+import { getWallEdition } from "@/db/queries/wall";
 import { mergePatch } from "@/lib/charts/merge-patch";
 import { AppError, notFound } from "@/lib/errors";
 import { liveGridJson } from "@/lib/charts/grid-model";
@@ -131,5 +132,17 @@ export const chartGrid = labOperation({
     if (!chart) throw notFound("Chart");
     if (!chart.liveSnapshot) throw new AppError("unavailable", "This chart's grid is being computed; try again.");
     return liveGridJson(chart.liveSnapshot, chart.definition);
+  },
+});
+
+/** The wall view: the chart's current approved edition, read-only, for every member. */
+export const chartWall = labOperation({
+  name: "chart.wall",
+  capability: "lab:read",
+  scope: "chart",
+  run: async ({ labId, ids }) => {
+    const wall = await getWallEdition({ labId, chartId: ids.chartId });
+    if (!wall) throw notFound("Chart");
+    return wall;
   },
 });

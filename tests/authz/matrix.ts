@@ -540,6 +540,56 @@ export const ROUTES: RouteRow[] = [
     expect: statuses(["anonymous", ...ALL_ROLES], 404),
   },
 
+  // phone: the check page and the short code, plain HTML route handlers (public, rate-limited per address)
+  {
+    kind: "route",
+    method: "GET",
+    route: "/v/[token]",
+    url: (ids) => `/v/${ids["token:pot"]}`,
+    expect: statuses(["anonymous"], 200, 303),
+    note: "public; a member of the edition's lab goes on (303) to /v/<token>/lab with rooms and printing",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/v/[token]",
+    url: "/v/AAAAAAAAAAAAAAAAAAAAAAAA",
+    expect: statuses(["anonymous", ...ALL_ROLES], 404),
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/c/[code]",
+    url: (ids) => `/c/${ids["code:pot"]}`,
+    expect: statuses(["anonymous", ...ALL_ROLES], 303),
+    note: "public: redirects to /v/<token>",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/c/[code]",
+    url: "/c/0000-0000",
+    expect: statuses(["anonymous", ...ALL_ROLES], 404),
+  },
+
+  // phone: the calculator's lab data (loaded once) and the header's account part (prerendered pages)
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/calculator",
+    url: "/api/v1/calculator",
+    expect: statuses(ALL_ROLES, 200),
+    note: "only the caller's own labs",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/header",
+    url: "/api/v1/header",
+    expect: statuses(["anonymous", ...ALL_ROLES], 200),
+    note: "anonymous: nobody",
+  },
+
   // public sizing
   {
     kind: "route",

@@ -6,7 +6,8 @@ test.describe("calculator", () => {
     await expect(page.getByRole("note", { name: "Clinical caution" })).toContainText("Reference aid only");
     // Defaults: Finet 0.678, MB 3.5, SB 2.5 -> 4.068 (Finet et al., EuroIntervention 2008).
     await expect(page.getByTestId("solve-result")).toContainText("4.07");
-    await expect(page.getByText("Exact: 4.0680 mm")).toBeVisible();
+    // Two decimals, never four.
+    await expect(page.getByRole("region", { name: "Result" })).not.toContainText("4.0680");
 
     await page.getByLabel("Side branch (Dsb), mm").fill("1.2");
     await expect(page.getByRole("region", { name: "Result" }).getByRole("alert")).toContainText("No size");
@@ -30,4 +31,64 @@ test.describe("calculator", () => {
     expect(overflow).toBeLessThanOrEqual(0);
     await context.close();
   });
+});
+
+test("computes in the browser: no request to the solve API while typing, and it keeps working offline", async ({
+  page,
+  context,
+}) => {
+  const solveCalls: string[] = [];
+  page.on("request", (req) => {
+    if (new URL(req.url()).pathname.startsWith("/api/v1/solve")) solveCalls.push(req.url());
+  });
+  await page.goto("/calculator");
+  await expect(page.getByTestId("solve-result")).toContainText("4.07");
+  await context.setOffline(true);
+  const sb = page.getByLabel("Side branch (Dsb), mm");
+  await sb.fill("");
+  await sb.pressSequentially("2.75", { delay: 30 });
+  // Finet: 0.678 x (3.5 + 2.75) = 4.2375 -> 4.24 (Finet et al., EuroIntervention 2008).
+  await expect(page.getByTestId("solve-result")).toContainText("4.24");
+  await page.getByLabel("Main branch (Dmb), mm").fill("12");
+  await expect(page.getByRole("region", { name: "Result" }).getByRole("alert")).toContainText(
+    "Main branch: must be at most 10 mm",
+  );
+  await expect(page.getByText("Main branch: must be at most 10 mm").first()).toBeVisible();
+  await context.setOffline(false);
+  expect(solveCalls).toEqual([]);
+});
+
+test("on a phone the answer sits at the top, above the inputs", async ({ browser }) => {
+  const context = await browser.newContext({ viewport: { width: 320, height: 640 } });
+  const page = await context.newPage();
+  await page.goto("/calculator");
+  const result = (await page.getByRole("region", { name: "Result" }).boundingBox())!;
+  const firstInput = (await page.getByLabel("Law").boundingBox())!;
+  expect(result.y).toBeLessThan(firstInput.y);
+  expect(result.y + result.height).toBeLessThan(640);
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
+  await context.close();
+});
+
+test("a signed-in member chooses a lab chart and reads its stocked size, as the chart cell prints it", async ({
+  page,
+}) => {
+  const { demoEmail, signInPage } = await import("./support/auth");
+  const solveCalls: string[] = [];
+  page.on("request", (req) => {
+    if (new URL(req.url()).pathname.startsWith("/api/v1/solve")) solveCalls.push(req.url());
+  });
+  await signInPage(page, demoEmail("operator"));
+  await page.goto("/calculator");
+  const picker = page.getByLabel("Size as a chart of my lab");
+  const option = picker.locator("option", { hasText: "POT balloon chart (demo) · POT balloon" }).first();
+  await picker.selectOption((await option.getAttribute("value"))!);
+  await page.getByLabel("Main branch (Dmb), mm").fill("3");
+  await page.getByLabel("Side branch (Dsb), mm").fill("2.5");
+  // Finet 0.678 x 5.5 = 3.729 -> the demo NC family's next stocked size up is 3.75 mm; the chart's
+  // own cell (the wall view) prints the same.
+  await expect(page.getByTestId("lab-size")).toContainText("3.75");
+  await expect(page.getByTestId("lab-result")).toContainText("Exact by the law: 3.73 mm");
+  expect(solveCalls).toEqual([]);
 });

@@ -109,6 +109,8 @@ const rows = ROUTES.filter(
     r.kind === "route" &&
     !r.exempt &&
     r.url !== undefined &&
+    // JSON routes only: the check page and short code (phone) answer HTML.
+    r.route.startsWith("/api/") &&
     (typeof r.url === "function" || r.url.startsWith("/api/v1/")),
 );
 

@@ -45,8 +45,8 @@ export async function demoIds(): Promise<Record<string, number | string>> {
   const ids: Record<string, number | string> = Object.fromEntries(
     rows.map((r) => [`${r.slug}:${r.role}`, Number(r.id)]),
   );
-  const [pot] = await query<{ chart: number; edition: number; token: string }>(
-    "SELECT c.id AS chart, e.id AS edition, e.check_token AS token FROM charts c JOIN labs l ON l.id = c.lab_id JOIN editions e ON e.chart_id = c.id WHERE l.slug = 'demo' AND c.title = 'POT balloon chart (demo)' AND e.status = 'approved'",
+  const [pot] = await query<{ chart: number; edition: number; token: string; code: string }>(
+    "SELECT c.id AS chart, e.id AS edition, e.check_token AS token, e.short_code AS code FROM charts c JOIN labs l ON l.id = c.lab_id JOIN editions e ON e.chart_id = c.id WHERE l.slug = 'demo' AND c.title = 'POT balloon chart (demo)' AND e.status = 'approved'",
   );
   const [draft] = await query<{ id: number }>(
     "SELECT e.id FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = 'demo' AND e.status = 'draft' ORDER BY e.id LIMIT 1",
@@ -55,7 +55,12 @@ export async function demoIds(): Promise<Record<string, number | string>> {
     "SELECT r.id FROM rooms r JOIN labs l ON l.id = r.lab_id WHERE l.slug = 'demo' AND r.name = 'Procedure room 1'",
   );
   if (pot)
-    Object.assign(ids, { "chart:pot": Number(pot.chart), "edition:pot": Number(pot.edition), "token:pot": pot.token });
+    Object.assign(ids, {
+      "chart:pot": Number(pot.chart),
+      "edition:pot": Number(pot.edition),
+      "token:pot": pot.token,
+      "code:pot": pot.code,
+    });
   if (draft) ids["edition:draft"] = Number(draft.id);
   if (room) ids["room:1"] = Number(room.id);
   return ids;

@@ -9,7 +9,7 @@ export async function recordPostingAction(_prev: ActionState, payload: ActionPay
   return runAction(payload, async (caller, { token, roomId }) => {
     const check = await checkByToken(caller, { token: String(token) });
     const res = await recordPosting(caller, { editionId: check.edition.id }, { roomId });
-    revalidatePath(`/v/${String(token)}`);
+    revalidatePath(`/v/${String(token)}/lab`);
     return {
       ok: true,
       message: res.created ? "Recorded: this copy hangs there." : "That room already has this copy recorded.",
@@ -21,7 +21,7 @@ export async function takeDownPostingAction(_prev: ActionState, payload: ActionP
   return runAction(payload, async (caller, { token, postingId }) => {
     const check = await checkByToken(caller, { token: String(token) });
     await takeDownPosting(caller, { lab: check.lab.slug, postingId });
-    revalidatePath(`/v/${String(token)}`);
+    revalidatePath(`/v/${String(token)}/lab`);
     return { ok: true, message: "Recorded as taken down." };
   });
 }

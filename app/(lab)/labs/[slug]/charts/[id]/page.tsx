@@ -1,4 +1,5 @@
-import { notFound } from "next/navigation";
+import Link from "next/link";
+import { notFound, redirect } from "next/navigation";
 import { ArchiveChart } from "@/components/charts/archive-chart";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
@@ -14,12 +15,23 @@ import { env } from "@/lib/env";
 import { checkChartAgainstRules, ruledDefinition } from "@/lib/labs/rules";
 import { labCan } from "@/lib/ops/access";
 import { getLabRules } from "@/lib/ops/lab-rules";
-import { can } from "@/lib/permissions";
+import { can, type Role } from "@/lib/permissions";
+
+async function designerUseful(labId: number, role: Role) {
+  return (
+    can(role, "chart:design") ||
+    can(role, "edition:create") ||
+    can(role, "edition:withdraw") ||
+    (await labCan(labId, role, "edition:approve"))
+  );
+}
 
 export default async function ChartPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
   const { slug, id } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/charts/${id}`);
   if (member === "forbidden") return null;
+  // A role with nothing to do in the designer (an operator) reads the approved chart on the wall view.
+  if (!(await designerUseful(member.lab.id, member.role))) redirect(`/labs/${slug}/charts/${id}/wall`);
   const [{ chart, editions: eds }, stock, rules] = await forPage(`/labs/${slug}/charts/${id}`, () =>
     Promise.all([
       getChart(member.caller, { chartId: id }),
@@ -42,6 +54,11 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           copies read &quot;take down&quot;.
         </p>
       ) : null}
+      <p className="mt-1">
+        <Link href={`/labs/${slug}/charts/${id}/wall`} className="text-brand-700 underline">
+          Wall view of the approved edition
+        </Link>
+      </p>
       <Caution className="my-4" demo={member.lab.isDemo} />
       <ChartDesigner
         slug={slug}

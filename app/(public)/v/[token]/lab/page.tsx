@@ -29,7 +29,7 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
         <p className="mt-2">{limited.message} Until it is verified, do not rely on its numbers.</p>
       </div>
     );
-  const { view, role, rooms, hanging } = await forPage(`/v/${token}`, async () =>
+  const { view, role, rooms, hanging } = await forPage(`/v/${token}/lab`, async () =>
     checkPage(await sessionCaller(), { token }),
   );
   // Only an approved edition that matches today's chart is offered for printing.
@@ -61,7 +61,7 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
       ) : (
         <p className="mt-6 text-sm text-ink-soft">
           Lab members can{" "}
-          <Link href={`/sign-in?callbackUrl=/v/${token}`} className="text-brand-700 underline">
+          <Link href={`/sign-in?callbackUrl=/v/${token}/lab`} className="text-brand-700 underline">
             sign in
           </Link>{" "}
           to record where this copy hangs or to print the current edition.

@@ -1,0 +1,118 @@
+import Link from "next/link";
+import { WallGrid } from "@/components/charts/wall-grid";
+import { Caution } from "@/components/ui/caution";
+import { forPage, memberForPage } from "@/lib/auth/page-guard";
+import { snapshotGrids } from "@/lib/charts/snapshot";
+import { askLine } from "@/lib/editions/check-cells";
+import { formatDate } from "@/lib/format/dates";
+import { chartWall } from "@/lib/ops/charts";
+import { posterLegend } from "@/lib/poster/model";
+import { MARKS, PALETTE } from "@/lib/poster/marks";
+import { can } from "@/lib/permissions";
+
+export const metadata = { title: "Wall view" };
+
+/** The chart's current approved edition, read-only, large, for every member of the lab. */
+export default async function WallPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
+  const { slug, id } = await params;
+  const here = `/labs/${slug}/charts/${id}/wall`;
+  const member = await memberForPage(slug, "lab:read", here);
+  if (member === "forbidden") return null;
+  const { chart, edition } = await forPage(here, () => chartWall(member.caller, { chartId: id }));
+  const tz = chart.timeZone;
+  const designer = can(member.role, "chart:design") || can(member.role, "edition:create");
+  const now = new Date();
+  const current = edition ? edition.fingerprint === chart.liveFingerprint : false;
+  const reviewDue = edition?.reviewBy ? edition.reviewBy.getTime() <= now.getTime() : false;
+
+  return (
+    <div className="min-w-0">
+      <h1 className="text-2xl font-bold [overflow-wrap:anywhere]">{chart.title}</h1>
+      {edition ? (
+        <div
+          className={`mt-3 rounded-card border-4 px-4 py-3 ${current && !reviewDue ? "border-ok bg-ok-soft" : "border-warn bg-warn-soft"}`}
+          data-testid="wall-status"
+          data-status={current ? (reviewDue ? "review" : "current") : "outdated"}
+        >
+          <p className="text-xl font-bold">
+            Edition {edition.number} · {current ? (reviewDue ? "Due for review" : "Current") : "Outdated"}
+          </p>
+          <p className="mt-1 text-sm text-ink">
+            Approved{" "}
+            {edition.approvedAt ? (
+              <span className="whitespace-nowrap">{formatDate(edition.approvedAt, tz)}</span>
+            ) : null}
+            {edition.reviewBy ? (
+              <>
+                {" "}
+                · review by <span className="whitespace-nowrap">{formatDate(edition.reviewBy, tz)}</span>
+              </>
+            ) : null}
+          </p>
+          {!current ? (
+            <p className="mt-2 font-semibold text-ink">
+              The lab&apos;s stock or settings changed since this edition was approved: some cells may no longer hold.
+              Confirm each size before use; {askLine(chart.contactLine).replace(/^No approved replacement yet: /, "")}
+            </p>
+          ) : reviewDue ? (
+            <p className="mt-2 font-semibold text-ink">
+              Its review date has passed: ask the lab&apos;s medical lead to review the chart before relying on it.
+            </p>
+          ) : null}
+        </div>
+      ) : (
+        <div
+          className="mt-3 rounded-card border-4 border-danger bg-danger-soft px-4 py-3"
+          data-testid="wall-status"
+          data-status="none"
+        >
+          <p className="text-xl font-bold">No approved edition</p>
+          <p className="mt-1 text-ink">This chart has no approved numbers to show. {askLine(chart.contactLine)}</p>
+        </div>
+      )}
+      <Caution className="mt-4" demo={member.lab.isDemo} />
+      {edition ? (
+        <div className="mt-6 space-y-8">
+          {snapshotGrids(edition.snapshot).map((grid, i) => (
+            <WallGrid
+              key={i}
+              grid={grid}
+              family={edition.snapshot.lookups[i]?.family ?? null}
+              stentName={edition.snapshot.stent?.name ?? null}
+            />
+          ))}
+          <section aria-labelledby="legend-h">
+            <h2 id="legend-h" className="text-lg font-bold">
+              How to read a cell
+            </h2>
+            <ul className="mt-2 space-y-2 text-sm">
+              {posterLegend(edition.snapshot).map((e) => (
+                <li key={e.mark} className="flex items-start gap-2">
+                  <span
+                    aria-hidden="true"
+                    className="mt-0.5 inline-block h-5 w-8 shrink-0 border"
+                    style={{
+                      backgroundColor: (e.mark === "sized" ? null : MARKS[e.mark].background) ?? PALETTE.cell,
+                      borderColor: PALETTE.rule,
+                    }}
+                  />
+                  <span>
+                    <strong>{e.label}.</strong> {e.text}
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </section>
+          {edition.snapshot.notes ? <p className="text-sm text-ink-soft">{edition.snapshot.notes}</p> : null}
+        </div>
+      ) : null}
+      {designer ? (
+        <p className="mt-8">
+          <Link href={`/labs/${slug}/charts/${id}`} className="text-brand-700 underline">
+            Open the chart designer
+          </Link>
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import "server-only";
+import { mailFakeConfigured } from "@/lib/mail/send";
+import { listMyLabs } from "./accounts";
+import type { Caller } from "./caller";
+
+/**
+ * What the site header shows the visitor, fetched by the page after it loads so that pages that
+ * depend on nobody (the landing page, the calculator) can be prerendered.
+ */
+export async function headerInfo(caller: Caller) {
+  if (caller.kind !== "user") return { user: null, labs: [], mailLink: false };
+  const labs = await listMyLabs(caller);
+  return {
+    user: { name: caller.user.name },
+    labs: labs.map((l) => ({ slug: l.slug, name: l.name, role: l.role })),
+    mailLink: labs.some((l) => l.role === "manager") && mailFakeConfigured(),
+  };
+}

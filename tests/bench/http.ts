@@ -1,0 +1,181 @@
+// `npm run bench` (second part; `npm run bench:http` alone): what a phone scanning a poster costs
+// the server. A production build in its own folder served by server.mjs on a throwaway
+// `forkwall_bench_http` database with the demo data; then
+// - the transfer of an anonymous scan of /v/<token>: the page and everything it links (styles,
+//   scripts, fonts, icon), each fetched as a browser would with `Accept-Encoding: gzip`;
+// - autocannon, 16 connections, in one run: /icon.svg (a static file), /v/<token>, /calculator;
+//   each with its throughput and its ratio to the static file.
+// It asserts no speed: the figures go into README "Speed".
+import { spawn, type ChildProcess } from "node:child_process";
+import { request } from "node:http";
+import { setTimeout as sleep } from "node:timers/promises";
+import autocannon from "autocannon";
+import mysql from "mysql2/promise";
+import { loadLocalEnv } from "../../db/local-env";
+
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const CONNECTIONS = 16;
+const port = Number(process.env.BENCH_HTTP_PORT ?? Number(process.env.PORT ?? 3000) + 10);
+Object.assign(process.env, {
+  DB_NAME: "forkwall_bench_http",
+  PORT: String(port),
+  APP_URL: `http://localhost:${port}`,
+  NEXT_DIST_DIR: ".next-bench",
+  LOG_LEVEL: "warn",
+  // Every request comes from one address; the limit must not turn the bench into 429s.
+  PUBLIC_RATE_LIMIT_PER_MINUTE: "1000000",
+  NEXT_TELEMETRY_DISABLED: "1",
+});
+loadLocalEnv();
+const { env } = await import("@/lib/env");
+const { provision } = await import("../../db/provision");
+const local = await import("../../db/local-server");
+
+const say = (m: string) => console.log(`[bench:http] ${m}`);
+
+function run(cmd: string, args: string[]): Promise<number> {
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { stdio: ["ignore", "ignore", "inherit"], env: process.env });
+    child.on("exit", (code) => resolve(code ?? 1));
+  });
+}
+
+/** Bytes on the wire (body as sent, gzip when the server compresses) and the decoded text. */
+function get(path: string): Promise<{ status: number; wire: number; encoding: string; body: Buffer }> {
+  return new Promise((resolve, reject) => {
+    const req = request(
+      { host: "127.0.0.1", port, path, headers: { "accept-encoding": "gzip", host: `localhost:${port}` } },
+      (res) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c: Buffer) => chunks.push(c));
+        res.on("end", async () => {
+          const raw = Buffer.concat(chunks);
+          const encoding = String(res.headers["content-encoding"] ?? "identity");
+          const { gunzipSync } = await import("node:zlib");
+          resolve({
+            status: res.statusCode ?? 0,
+            wire: raw.length,
+            encoding,
+            body: encoding === "gzip" ? gunzipSync(raw) : raw,
+          });
+        });
+      },
+    );
+    req.on("error", reject);
+    req.end();
+  });
+}
+
+/** Every sub-resource a browser would fetch for a page: scripts, styles, preloads, icons, and fonts named in CSS. */
+async function transfer(path: string) {
+  const page = await get(path);
+  const html = page.body.toString("utf8");
+  const refs = new Set<string>();
+  for (const m of html.matchAll(/<(?:script|link)\b[^>]*?(?:src|href)="([^"]+)"/g)) {
+    const url = m[1]!.replace(/&amp;/g, "&");
+    if (url.startsWith("/") && !url.startsWith("//")) refs.add(url);
+  }
+  const items = [{ path, wire: page.wire, encoding: page.encoding }];
+  for (const ref of refs) {
+    const r = await get(ref);
+    items.push({ path: ref, wire: r.wire, encoding: r.encoding });
+    if (ref.endsWith(".css"))
+      for (const f of r.body.toString("utf8").matchAll(/url\(([^)]+\.(?:woff2?|ttf|otf))\)/g)) {
+        const font = await get(f[1]!.replace(/["']/g, ""));
+        items.push({ path: f[1]!, wire: font.wire, encoding: font.encoding });
+      }
+  }
+  return { status: page.status, items, total: items.reduce((s, i) => s + i.wire, 0) };
+}
+
+async function load(path: string) {
+  const result = await autocannon({
+    url: `http://127.0.0.1:${port}${path}`,
+    connections: CONNECTIONS,
+    duration: SECONDS,
+    headers: { host: `localhost:${port}`, "accept-encoding": "gzip" },
+  });
+  return {
+    path,
+    rps: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    non2xx: result.non2xx,
+    errors: result.errors,
+  };
+}
+
+let server: ChildProcess | null = null;
+let startedDb = false;
+try {
+  say(`provisioning ${env.DB_NAME} (fresh, demo data)`);
+  startedDb = (await provision(env, { fresh: true, log: () => undefined })).startedHere;
+  say("building into .next-bench (next build)");
+  const t0 = Date.now();
+  if ((await run(process.execPath, ["node_modules/next/dist/bin/next", "build"])) !== 0)
+    throw new Error("build failed");
+  say(`built in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+
+  server = spawn(process.execPath, ["server.mjs"], {
+    stdio: ["ignore", "ignore", "inherit"],
+    env: { ...process.env, HOST: "127.0.0.1" },
+  });
+  for (let i = 0; ; i++) {
+    const ok = await get("/api/health").then(
+      (r) => r.status === 200,
+      () => false,
+    );
+    if (ok) break;
+    if (i > 120) throw new Error("server did not come up");
+    await sleep(500);
+  }
+
+  const db = await mysql.createConnection({
+    host: env.DB_HOST,
+    port: env.DB_PORT,
+    user: env.DB_USER,
+    password: env.DB_PASSWORD,
+    database: env.DB_NAME,
+  });
+  const [rows] = await db.query(
+    "SELECT e.check_token AS token FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = 'demo' AND e.status = 'approved' ORDER BY e.id LIMIT 1",
+  );
+  await db.end();
+  const token = (rows as { token: string }[])[0]?.token;
+  if (!token) throw new Error("no approved demo edition");
+  const check = `/v/${token}`;
+
+  // Warm each path once so the first-request compile and caches do not count.
+  for (const p of ["/icon.svg", check, "/calculator"]) await get(p);
+
+  const scan = await transfer(check);
+  say(`anonymous scan of /v/<token> (status ${scan.status}): ${(scan.total / 1024).toFixed(1)} KB on the wire`);
+  for (const i of scan.items) say(`  ${i.path.slice(0, 60).padEnd(60)} ${String(i.wire).padStart(7)} B  ${i.encoding}`);
+  const calc = await transfer("/calculator");
+  say(`/calculator for comparison: ${(calc.total / 1024).toFixed(1)} KB in ${calc.items.length} files`);
+
+  say(`autocannon: ${CONNECTIONS} connections, ${SECONDS} s per path, one after another on the same server`);
+  const results = [];
+  for (const p of ["/icon.svg", check, "/calculator", "/icon.svg"]) results.push(await load(p));
+  // The static file's figure is the mean of its runs before and after, so drift counts against no one.
+  const base = (results[0]!.rps + results[3]!.rps) / 2;
+  console.log("\npath                         req/s   p50 ms   p99 ms   non-2xx  ratio to /icon.svg");
+  for (const r of results.slice(0, 3)) {
+    const name = r.path.startsWith("/v/") ? "/v/<token>" : r.path;
+    console.log(
+      `${name.padEnd(26)} ${r.rps.toFixed(0).padStart(7)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(
+        r.non2xx + r.errors,
+      ).padStart(9)}  ${(r.rps / base).toFixed(2)}`,
+    );
+  }
+  console.log(
+    `\n/v/<token> throughput: ${((results[1]!.rps / base) * 100).toFixed(0)} % of /icon.svg (target at least 40 %); ` +
+      `scan transfer: ${(scan.total / 1024).toFixed(1)} KB gzip (target at most 50 KB)`,
+  );
+} finally {
+  if (server) {
+    server.kill("SIGTERM");
+    await new Promise((r) => server!.once("exit", r));
+  }
+  if (startedDb) await local.stop(local.localServer({ port: env.DB_PORT }));
+}

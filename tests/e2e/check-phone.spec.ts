@@ -1,0 +1,180 @@
+// The check page on a phone: every status fits a 320 px screen with no sideways scrolling and
+// says what to do; a replaced copy lists the cells that differ with both values; an outdated copy
+// nothing replaces strikes its affected cells and names whom to ask; unknown codes are a 404.
+import { execFileSync } from "node:child_process";
+import { expect, test, type Page } from "@playwright/test";
+import { parseShortCode } from "@/lib/editions/short-code";
+import { jsqrDecode, rasterise } from "../support/pdf-tools";
+import { demoEmail, signInApi } from "./support/auth";
+import { makeCheckFixtures, type CheckFixtures } from "./support/check-fixtures";
+import { demoIds, query } from "./support/db";
+
+let fx: CheckFixtures;
+test.beforeAll(async () => {
+  fx = await makeCheckFixtures();
+});
+
+const SIZES = [
+  { width: 320, height: 640 },
+  { width: 390, height: 844 },
+];
+
+async function noSidewaysScroll(page: Page) {
+  const widths = await page.evaluate(() => ({
+    doc: document.documentElement.scrollWidth,
+    body: document.body.scrollWidth,
+    view: window.innerWidth,
+  }));
+  expect(widths.doc, JSON.stringify(widths)).toBeLessThanOrEqual(widths.view);
+  expect(widths.body, JSON.stringify(widths)).toBeLessThanOrEqual(widths.view);
+}
+
+for (const size of SIZES) {
+  test(`at ${size.width}x${size.height} every status fits and says what to do`, async ({ browser }) => {
+    const context = await browser.newContext({ viewport: size, javaScriptEnabled: false });
+    const page = await context.newPage();
+    const want = {
+      current: ["Current", "keep"],
+      review: ["Current", "review"],
+      outdated: ["Outdated", "take-down"],
+      superseded: ["Superseded", "replace"],
+      withdrawn: ["Withdrawn", "replace"],
+      draft: ["Draft - not for clinical use", "replace"],
+    } as const;
+    for (const [name, [word, action]] of Object.entries(want)) {
+      const f = fx[name as keyof typeof want];
+      const res = await page.goto(`/v/${f.token}`);
+      expect(res?.status(), name).toBe(200);
+      await expect(page.getByTestId("check-status")).toContainText(word);
+      await expect(page.getByTestId("check-action")).toHaveAttribute("data-action", action);
+      await expect(page.getByTestId("check-date")).toHaveText(/^\w[\w ]+ \d{4}-\d{2}-\d{2}$/);
+      await expect(page.getByTestId("check-code")).toHaveText(`${f.shortCode.slice(0, 4)}-${f.shortCode.slice(4)}`);
+      await expect(page.getByRole("note", { name: "Clinical caution" })).toBeVisible();
+      await noSidewaysScroll(page);
+      // The status word is shown whole: its box is not clipping it.
+      const clipped = await page
+        .getByTestId("check-status")
+        .locator("span")
+        .last()
+        .evaluate((el) => el.scrollWidth > el.clientWidth + 1);
+      expect(clipped, `${name}: status word clipped`).toBe(false);
+    }
+    await context.close();
+  });
+}
+
+test("a replaced copy lists each differing cell with this copy's value and the new edition's", async ({ page }) => {
+  await page.goto(`/v/${fx.superseded.token}`);
+  await expect(page.getByTestId("check-action")).toContainText(`edition ${fx.replacementNumber}`);
+  const cells = page.getByTestId("check-cells");
+  await expect(cells).toHaveAttribute("data-kind", "replace");
+  const first = cells.getByRole("listitem").first();
+  await expect(first).toContainText(/Main branch \d\.\d+ mm × side branch \d\.\d+ mm/);
+  await expect(first.locator("del")).toHaveText(/^3\.6 mm/);
+  await expect(first.locator("b")).toHaveText(/^3\.75 mm/);
+  await expect(page.getByTestId("check-ask")).toHaveCount(0);
+});
+
+test("an outdated copy with no approved replacement strikes its affected cells and names whom to ask", async ({
+  page,
+}) => {
+  await query("UPDATE labs SET contact_line = NULL WHERE slug = 'demo'");
+  await page.goto(`/v/${fx.outdated.token}`);
+  await expect(page.getByTestId("check-action")).toHaveAttribute("data-action", "take-down");
+  const cells = page.getByTestId("check-cells");
+  await expect(cells).toHaveAttribute("data-kind", "affected");
+  await expect(cells.locator("del").first()).toHaveText(/^3\.6 mm/);
+  // Never a number no one approved: today's values are not shown.
+  await expect(cells.locator("b")).toHaveCount(0);
+  await expect(cells).not.toContainText("3.75");
+  await expect(page.getByTestId("check-ask")).toHaveText(
+    "No approved replacement yet: ask the lab's medical lead or manager.",
+  );
+  await query("UPDATE labs SET contact_line = ? WHERE slug = 'demo'", ["ask the charge nurse in the control room"]);
+  try {
+    await page.reload();
+    await expect(page.getByTestId("check-ask")).toHaveText(
+      "No approved replacement yet: ask the charge nurse in the control room.",
+    );
+  } finally {
+    await query("UPDATE labs SET contact_line = NULL WHERE slug = 'demo'");
+  }
+});
+
+test("dates are shown in the lab's time zone", async ({ page }) => {
+  await query("UPDATE labs SET time_zone = 'Pacific/Auckland' WHERE slug = 'demo'");
+  try {
+    await page.goto(`/v/${fx.superseded.token}`);
+    // Superseded 2026-11-25 09:00 UTC is 22:00 the same day in Auckland (UTC+13).
+    await expect(page.getByTestId("check-date")).toHaveText("Since 2026-11-25");
+    await page.goto(`/v/${fx.current.token}`);
+    await expect(page.getByTestId("check-date")).toHaveText("Approved 2026-11-20");
+    await query("UPDATE labs SET time_zone = 'Pacific/Kiritimati' WHERE slug = 'demo'");
+    // UTC+14: 2026-11-20 09:00 UTC is 23:00 that day; review-by 2026-01-01 00:00 UTC is 14:00 on 1 January.
+    await page.goto(`/v/${fx.review.token}`);
+    await expect(page.getByTestId("check-action")).toContainText("2026-01-01");
+  } finally {
+    await query("UPDATE labs SET time_zone = 'UTC' WHERE slug = 'demo'");
+  }
+});
+
+test("unknown and malformed tokens and codes get the same 404 page", async ({ page }) => {
+  const bodies: string[] = [];
+  for (const path of [
+    "/v/AAAAAAAAAAAAAAAAAAAAAAAA",
+    "/v/short",
+    "/v/%27%3B--%20drop",
+    "/c/ZZZZ-ZZZZ",
+    "/c/not-a-code-at-all",
+    "/c/U!",
+  ]) {
+    const res = await page.goto(path);
+    expect(res?.status(), path).toBe(404);
+    await expect(page.getByRole("heading", { name: "This code is not a Forkwall poster" })).toBeVisible();
+    await expect(page.getByText("Do not rely on the printout")).toBeVisible();
+    bodies.push(await page.locator("main").innerHTML());
+  }
+  expect(new Set(bodies).size).toBe(1);
+});
+
+test("a typed short code, in any case and with look-alike letters, leads to the check page", async ({ page }) => {
+  const code = fx.current.shortCode;
+  const typed = `${code.slice(0, 4).toLowerCase()} ${code.slice(4)}`.replace(/1/g, "l").replace(/0/g, "o");
+  const res = await page.goto(`/c/${encodeURIComponent(typed)}`);
+  expect(res?.status()).toBe(200);
+  expect(new URL(page.url()).pathname).toBe(`/v/${fx.current.token}`);
+  await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
+  expect((await demoIds())["token:pot"]).toBeTruthy();
+});
+
+/** The short code a poster prints, read from its text layer with poppler's pdftotext: after `/c/` if the address is printed, else a lone XXXX-XXXX group. */
+function shortCodeInText(text: string): string | null {
+  const joined = text.replace(/\s+/g, "");
+  const inUrl = /\/c\/([0-9A-Za-z]{4}-?[0-9A-Za-z]{4})/.exec(joined)?.[1];
+  const group = /(?:^|[^0-9A-Za-z-])([0-9A-HJKMNP-TV-Z]{4}-[0-9A-HJKMNP-TV-Z]{4})(?![0-9A-Za-z-])/.exec(text)?.[1];
+  return parseShortCode(inUrl ?? group ?? "");
+}
+
+test("the short code printed on a poster leads to the same check page as its QR code", async ({
+  playwright,
+  baseURL,
+  page,
+}) => {
+  const ids = await demoIds();
+  const member = await playwright.request.newContext({ baseURL });
+  await signInApi(member, demoEmail("manager"));
+  const res = await member.get(`/api/v1/editions/${ids["edition:pot"]}/pdf`);
+  expect(res.status()).toBe(200);
+  const pdf = Buffer.from(await res.body());
+  await member.dispose();
+  const qrUrl = jsqrDecode(rasterise(pdf, 100))?.text;
+  expect(qrUrl).toBe(`${baseURL}/v/${ids["token:pot"]}`);
+  const text = execFileSync("pdftotext", ["-layout", "-", "-"], { input: pdf }).toString("utf8");
+  const code = shortCodeInText(text);
+  // The poster gains its printed short code in the posters work; until then there is nothing to type.
+  test.skip(code === null, "this poster prints no short code yet");
+  await page.goto(`/c/${code}`);
+  expect(page.url()).toBe(qrUrl);
+  await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
+  await expect(page.getByTestId("check-code")).toHaveText(`${code!.slice(0, 4)}-${code!.slice(4)}`);
+});
