@@ -54,6 +54,11 @@ export type Snapshot = {
   caution: string;
   /** Rounding caps; editions frozen before caps existed print with DEFAULT_ROUNDING_CAPS. */
   caps?: RoundingCaps;
+  /**
+   * Exceptions to the lab's rules that the medical lead recorded for this chart, each with its
+   * reason; the poster prints them (e.g. rule "legibility": figures below the reading guide).
+   */
+  ruleExceptions?: { rule: string; reason: string }[];
 };
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
