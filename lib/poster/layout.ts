@@ -420,12 +420,34 @@ export function urlFontPt(chars: number, fonts: Fonts, width: number): number {
 
 const offset = (b: Box, dx: number, dy: number): Box => ({ ...b, x: b.x + dx, y: b.y + dy });
 
+/**
+ * The poster's layout. Labels are sized for the reading distance, but never beyond 60 % of the
+ * figure the page would give with its base label sizes: a crowded page keeps its figures, and
+ * the legibility check then says the figures are too small rather than the labels crowding
+ * them out.
+ */
 export function layoutPoster(input: LayoutInput): PosterLayout {
   if (input.grids.length < 1 || input.grids.length > 3) throw new RangeError("A poster has one to three grids");
   const page = pageSizePt(input.paper, input.orientation);
+  const scale = Math.min(page.width, page.height) / A4_SHORT_PT;
+  const base = fontsFor(scale);
+  if (!input.readingDistanceM) return layoutWith(input, base);
+  const f0 = layoutWith(input, base).figurePt;
+  const wanted = fontsFor(scale, input.readingDistanceM);
+  const cap = (k: keyof Fonts) => Math.max(base[k], Math.min(wanted[k], f0 * 0.6));
+  return layoutWith(input, {
+    ...wanted,
+    law: cap("law"),
+    gridTitle: cap("gridTitle"),
+    gridSub: cap("gridSub"),
+    axis: cap("axis"),
+  });
+}
+
+function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
+  const page = pageSizePt(input.paper, input.orientation);
   const short = Math.min(page.width, page.height);
   const scale = short / A4_SHORT_PT;
-  const fonts = fontsFor(scale, input.readingDistanceM);
   const margin = 24 * scale;
   const gap = 10 * scale;
   const innerW = page.width - 2 * margin;

@@ -80,3 +80,18 @@ export function layoutInputFor(
 export function snapshotLegibility(snapshot: Snapshot, edition?: EditionLike): Legibility {
   return posterLegibility({ ...layoutInputFor(snapshot, edition), readingDistanceM: snapshot.readingDistanceM });
 }
+
+/** The lab rule an edition whose figures are too small to read breaks, as refusals name it. */
+export const LEGIBILITY_RULE = "legibility";
+
+/**
+ * Why an edition cannot be approved for legibility, or null: its figures, as the approved poster
+ * prints them, fall below the 20′ guide at its stated reading distance, and the medical lead
+ * recorded no exception to the rule for this chart (snapshot.ruleExceptions).
+ */
+export function legibilityRefusal(snapshot: Snapshot): string | null {
+  if ((snapshot.ruleExceptions ?? []).some((e) => e.rule === LEGIBILITY_RULE)) return null;
+  const l = snapshotLegibility(snapshot, { status: "approved" });
+  if (l.ok) return null;
+  return `Lab rule "${LEGIBILITY_RULE}": the figures are too small to read from ${snapshot.readingDistanceM} m. ${l.suggestion ?? ""}`.trim();
+}
