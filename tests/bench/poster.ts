@@ -229,13 +229,40 @@ async function main() {
       warm: median(warm),
     };
   }
-  const { renderPosterPdf } = await import("@/lib/poster/pdf/render");
+  const { renderPosterPdf, renderCardPdf } = await import("@/lib/poster/pdf/render");
+  const { tilePoster, stampBands } = await import("@/lib/poster/pdf/variants");
   const pdf = await renderPosterPdf(input);
+  // The variants, warm, as the PDF route makes them: a tiled set is one poster render plus the
+  // sheets; the NOT CURRENT band is one render plus the stamp; the card is its own document.
+  const timed = async (fn: () => Promise<unknown>) => {
+    await fn();
+    const xs: number[] = [];
+    for (let i = 0; i < WARM_RUNS; i++) {
+      const t0 = performance.now();
+      await fn();
+      xs.push(performance.now() - t0);
+    }
+    return median(xs);
+  };
+  const tileOpts = {
+    title: input.snapshot.title,
+    edition: 3,
+    shortCode: "K7QM-2XHD",
+    shortUrl: "forkwall.example/c/K7QM-2XHD",
+    band: null,
+  };
+  const singleMs = await timed(() => renderPosterPdf(input));
+  const tiledA4 = await timed(async () => tilePoster(await renderPosterPdf(input), { ...tileOpts, sheet: "A4" }));
+  const tiledA3 = await timed(async () => tilePoster(await renderPosterPdf(input), { ...tileOpts, sheet: "A3" }));
+  const banded = await timed(async () =>
+    stampBands(await renderPosterPdf(input), { kind: "not-current", date: "2026-12-02", reason: "bench" }),
+  );
+  const cardMs = await timed(() => renderCardPdf(input));
   const cached = await cachedReadMs(pdf);
   const r = results["react-pdf"];
   const p = results.pdfkit;
   const ms = (x: number) => `${Math.round(x)} ms`;
-  const ratio = (a: number, b: number) => `${(a / b).toFixed(1)}×`;
+  const ratio = (a: number, b: number) => `${(a / b).toFixed(2)}×`;
   const load = os
     .loadavg()
     .map((x) => x.toFixed(1))
@@ -255,6 +282,15 @@ async function main() {
   console.log(
     `| ratio react-pdf / pdfkit | ${ratio(r.coldFirst, p.coldFirst)} | ${ratio(r.coldImport, p.coldImport)} | ${ratio(r.warm, p.warm)} |`,
   );
+  console.log(
+    `\nvariants, warm (median of ${WARM_RUNS}), against the single poster rendered in the same stretch (${ms(singleMs)}):\n`,
+  );
+  console.log("| variant | warm | ratio to the single poster |");
+  console.log("|---|---|---|");
+  console.log(`| tiled on A4 sheets (render + sheets) | ${ms(tiledA4)} | ${ratio(tiledA4, singleMs)} |`);
+  console.log(`| tiled on A3 sheets (render + sheets) | ${ms(tiledA3)} | ${ratio(tiledA3, singleMs)} |`);
+  console.log(`| NOT CURRENT band (render + stamp) | ${ms(banded)} | ${ratio(banded, singleMs)} |`);
+  console.log(`| badge card (two sides) | ${ms(cardMs)} | ${ratio(cardMs, singleMs)} |`);
   console.log(
     `\ncached download: the ${Math.round(pdf.length / 1024)} KB render read back from MariaDB by its key, median of 20: ${cached === null ? "not measured" : `${cached.toFixed(1)} ms`}`,
   );

@@ -1,6 +1,7 @@
 import path from "node:path";
 import { Document, Font, Image, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import type { Style } from "@react-pdf/stylesheet";
+import { installShapingCache } from "./shaping-cache";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
@@ -84,6 +85,7 @@ export function registerPosterFonts(): void {
     ],
   });
   Font.registerHyphenationCallback((word) => [word]);
+  installShapingCache(file("Inter-Regular.ttf"));
   fontsRegistered = true;
 }
 

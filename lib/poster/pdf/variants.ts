@@ -2,9 +2,6 @@
 // of an edition that must not be posted, the archive-copy stamp, and the tiled set for office
 // printers. The poster page is embedded once as a form XObject and referenced by every sheet, so
 // a tiled set costs one poster render plus a little bookkeeping.
-import { readFileSync } from "node:fs";
-import path from "node:path";
-import fontkit from "@pdf-lib/fontkit";
 import {
   clip,
   concatTransformationMatrix,
@@ -17,6 +14,7 @@ import {
   pushGraphicsState,
   rectangle,
   rgb,
+  StandardFonts,
 } from "pdf-lib";
 import { mmToPt } from "../paper";
 import { columnLetter, tileCaption, tilePlan, TILE_MARGIN_MM, TILE_OVERLAP_MM, type TileSheet } from "../tiles";
@@ -37,24 +35,23 @@ const WHITE = rgb(1, 1, 1);
 const INK = rgb(0x17 / 255, 0x21 / 255, 0x2b / 255);
 const ARCHIVE_GREY = rgb(0.25, 0.25, 0.25);
 
-let fontBytes: { regular: Buffer; bold: Buffer } | null = null;
-function interBytes() {
-  if (!fontBytes) {
-    const file = (name: string) => readFileSync(path.join(process.cwd(), "fonts", name));
-    fontBytes = { regular: file("Inter-Regular.ttf"), bold: file("Inter-Bold.ttf") };
-  }
-  return fontBytes;
+/**
+ * The words pdf-lib adds (bands, sheet labels, the assembly map) are set in the PDF standard
+ * Helvetica, which every viewer and printer carries, so nothing is embedded: embedding Inter
+ * whole costs about a second per set (@pdf-lib/fontkit 1.1.1's subsetter drops most of Inter's
+ * glyphs, so it cannot be subset). Helvetica's encoding is WinAnsi: text it cannot encode, such
+ * as a chart title with Greek letters, prints with those characters replaced by "?".
+ */
+async function fontsFor(doc: PDFDocument) {
+  const regular = await doc.embedFont(StandardFonts.Helvetica);
+  const bold = await doc.embedFont(StandardFonts.HelveticaBold);
+  return { regular, bold };
 }
 
-async function fontsFor(doc: PDFDocument) {
-  doc.registerFontkit(fontkit);
-  const bytes = interBytes();
-  // Whole fonts: @pdf-lib/fontkit 1.1.1's subsetter drops most of Inter's glyphs (the text still
-  // extracts, but prints blank), so the fonts are embedded complete.
-  return {
-    regular: await doc.embedFont(bytes.regular, { subset: false }),
-    bold: await doc.embedFont(bytes.bold, { subset: false }),
-  };
+/** Text the standard fonts can encode (WinAnsi); anything else becomes "?". */
+export function winAnsi(font: PDFFont, text: string): string {
+  const known = new Set(font.getCharacterSet());
+  return [...text].map((ch) => (known.has(ch.codePointAt(0) as number) ? ch : "?")).join("");
 }
 
 function fixMetadata(doc: PDFDocument) {
@@ -66,7 +63,7 @@ function fixMetadata(doc: PDFDocument) {
 
 /** The largest size up to `max` at which `text` fits `width`. */
 const fitSize = (font: PDFFont, text: string, width: number, max: number) =>
-  Math.min(max, (max * width) / Math.max(1, font.widthOfTextAtSize(text, max)));
+  Math.min(max, (max * width) / Math.max(1, font.widthOfTextAtSize(winAnsi(font, text), max)));
 
 function centred(
   page: PDFPage,
@@ -78,6 +75,7 @@ function centred(
   x0 = 0,
   w?: number,
 ) {
+  text = winAnsi(font, text);
   const width = w ?? page.getWidth();
   const s = fitSize(font, text, width * 0.96, size);
   page.drawText(text, { x: x0 + (width - font.widthOfTextAtSize(text, s)) / 2, y, size: s, font, color });
@@ -145,7 +143,7 @@ export type TileOptions = {
 const mm = mmToPt;
 
 function label(page: PDFPage, font: PDFFont, text: string, x: number, y: number, size: number, color = INK) {
-  page.drawText(text, { x, y, size, font, color });
+  page.drawText(winAnsi(font, text), { x, y, size, font, color });
 }
 
 function drawMap(
@@ -163,7 +161,7 @@ function drawMap(
     `${plan.tiles.length} sheets at 100 % scale (${plan.cols} across, columns A-${columnLetter(plan.cols - 1)}; ${plan.rows} down, rows 1-${plan.rows}). Print at actual size, not "fit to page".`,
     `Each sheet overlaps its neighbours by ${TILE_OVERLAP_MM} mm: trim the left and top margins of every sheet except column A and row 1 along the corner marks, lay it over its neighbour up to the dashed line, and tape it from behind.`,
     `Code ${opts.shortCode}: ${opts.shortUrl}`,
-  ];
+  ].map((l) => winAnsi(fonts.regular, l));
   let y = h - m - 14;
   label(page, fonts.bold, lines[0] as string, m, y, fitSize(fonts.bold, lines[0] as string, w - 2 * m, 13));
   y -= 6;
