@@ -191,7 +191,7 @@ async function cachedReadMs(pdf: Buffer): Promise<number | null> {
     await db.execute(sql`INSERT INTO labs (slug, name) VALUES ('bench', 'Bench lab (illustrative)')`);
     await db.execute(sql`INSERT INTO charts (lab_id, title, definition) VALUES (1, 'Bench', '{}')`);
     await db.execute(
-      sql`INSERT INTO editions (lab_id, chart_id, number, snapshot, fingerprint, check_token) VALUES (1, 1, 1, '{}', REPEAT('a', 64), 'bench-token-0000000000000')`,
+      sql`INSERT INTO editions (lab_id, chart_id, number, snapshot, fingerprint, check_token, short_code) VALUES (1, 1, 1, '{}', REPEAT('a', 64), 'bench-token-0000000000000', 'BENCH000')`,
     );
     await db.execute(sql`INSERT INTO poster_renders (edition_id, render_key, pdf) VALUES (1, REPEAT('b', 64), ${pdf})`);
     const times: number[] = [];

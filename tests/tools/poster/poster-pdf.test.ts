@@ -253,3 +253,30 @@ describe("the lab's logo", () => {
     expect(without).not.toMatch(/\/Subtype \/Image/);
   });
 });
+
+describe("the lab's print settings and rule exceptions", () => {
+  it(
+    "prints decimal commas, dates in the lab's time zone and the recorded exceptions",
+    { timeout: 60_000 },
+    async () => {
+      const snapshot = {
+        ...snapshotOf(potDefinition),
+        ruleExceptions: [{ rule: "legibility", reason: "Hangs beside the table, read from 1 m (illustrative)" }],
+      };
+      const input = {
+        ...posterInput(snapshot, { approvedAt: new Date(Date.UTC(2026, 2, 2, 20, 0)) }),
+        lab: { timeZone: "Australia/Sydney", numberFormat: "comma" as const },
+      };
+      const flat = squash((await pdfText(await renderPosterPdf(input))).text);
+      // 20:00 UTC on 2 March is 07:00 on 3 March in Sydney (UTC+11 in March).
+      expect(flat).toContain("Approved 2026-03-03 by Dr A. Example (illustrative)");
+      expect(flat).toContain("Dates in Australia/Sydney time");
+      expect(flat).toContain("Dp = 0,678 × (Dmb + Dsb)");
+      expect(flat).toMatch(/\(3,05\) 3,25/);
+      expect(flat).not.toMatch(/\(3\.05\)/);
+      expect(flat).toContain(
+        "Exception to the lab rule “legibility”: Hangs beside the table, read from 1 m (illustrative)",
+      );
+    },
+  );
+});
