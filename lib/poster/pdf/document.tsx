@@ -29,7 +29,6 @@ import {
   type GridLayout,
   type PosterLayout,
 } from "@/lib/poster/layout";
-import { posterLegibility } from "@/lib/poster/legibility";
 import {
   cellView,
   cornerSymbols,
@@ -98,8 +97,9 @@ export function posterModel(input: PosterInput) {
   const grids = snapshotGrids(snapshot);
   const layoutInput = layoutInputFor(snapshot, edition, input.logo !== null, grids);
   const layout = layoutPoster(layoutInput);
-  const legibility = posterLegibility({ ...layoutInput, readingDistanceM: snapshot.readingDistanceM });
-  return { grids, layout, legibility, legend: posterLegend(snapshot, grids), qr: qrSymbol(edition.checkUrl) };
+  // The legibility figures stay in the designer and the approval gate: the poster does not print
+  // them, so the render does not compute them (twenty-odd layouts of other papers and widths).
+  return { grids, layout, legend: posterLegend(snapshot, grids), qr: qrSymbol(edition.checkUrl) };
 }
 
 /** The legend's sample: a real cell of the chart with that mark, or a made-up one when none exists. */
