@@ -10,91 +10,9 @@ import { recordPosting } from "./queries/postings";
 import { createRoom } from "./queries/rooms";
 import { labWrite } from "@/lib/ops/write";
 import { balloonFamilies, charts, labs, rooms, stentPlatforms, users } from "./schema";
+import { DEMO_CHARTS as CHARTS } from "./demo-charts";
 
 const ROOMS = ["Procedure room 1", "Procedure room 2", "Control room"];
-
-type DemoChart = {
-  title: string;
-  definition: (ids: { nc: number; sc: number; stent: number }) => unknown;
-  approveBy: "lead" | "manager" | null;
-  postIn: string[];
-};
-
-const CHARTS: DemoChart[] = [
-  {
-    title: "POT balloon chart (demo)",
-    definition: ({ nc, stent }) => ({
-      title: "POT balloon chart (demo)",
-      law: { law: "finet", ratio: 0.678 },
-      lookups: [
-        {
-          kind: "proximal",
-          rows: { from: 2.5, to: 4, step: 0.25 },
-          cols: { from: 2, to: 3.5, step: 0.25 },
-          rounding: "up",
-          familyId: nc,
-        },
-      ],
-      stentPlatformId: stent,
-      paper: "A2",
-      orientation: "portrait",
-      readingDistanceM: 1.5,
-      notes:
-        "Demo chart with invented stock. POT balloon sized 1:1 to the proximal main vessel; larger stocked size when between two.",
-    }),
-    approveBy: "lead",
-    postIn: ["Procedure room 1", "Control room"],
-  },
-  {
-    title: "Kissing balloon chart (demo)",
-    // Huo-Kassab, not the square law: the square law's published fit is very asymmetric
-    // bifurcations only (Huo et al. 2012), so on these diameters every cell would sit outside it.
-    // A semi-compliant family, rounded down: side-branch rules (common practice).
-    definition: ({ sc }) => ({
-      title: "Kissing balloon chart (demo)",
-      law: { law: "huo-kassab" },
-      lookups: [
-        {
-          kind: "side",
-          rows: { from: 3, to: 4.5, step: 0.25 },
-          cols: { from: 2.5, to: 4, step: 0.25 },
-          rounding: "down",
-          familyId: sc,
-        },
-      ],
-      stentPlatformId: null,
-      paper: "TABLOID",
-      orientation: "landscape",
-      readingDistanceM: 1,
-      notes: "Demo chart with invented stock. Side-branch balloon: smaller stocked size when between two.",
-    }),
-    approveBy: "lead",
-    postIn: ["Procedure room 2"],
-  },
-  {
-    title: "Main-branch balloon chart (demo draft)",
-    definition: ({ sc }) => ({
-      title: "Main-branch balloon chart (demo draft)",
-      law: { law: "huo-kassab" },
-      lookups: [
-        {
-          kind: "main",
-          rows: { from: 3, to: 4, step: 0.25 },
-          cols: { from: 1.5, to: 2.75, step: 0.25 },
-          rounding: "nearest",
-          familyId: sc,
-        },
-      ],
-      stentPlatformId: null,
-      paper: "A3",
-      orientation: "landscape",
-      readingDistanceM: 1,
-      notes: "",
-    }),
-    approveBy: null,
-    postIn: [],
-  },
-];
 
 export async function seedDemoCharts(db: Database): Promise<void> {
   const [lab] = await db.select({ id: labs.id }).from(labs).where(eq(labs.slug, "demo"));

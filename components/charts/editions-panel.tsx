@@ -40,7 +40,8 @@ export function EditionsPanel({
   slug: string;
   chartId: number;
   editions: EditionRow[];
-  can: { create: boolean; approve: boolean; withdraw: boolean };
+  /** archive: managers may download the archive copy (the poster as approved, stamped as such). */
+  can: { create: boolean; approve: boolean; withdraw: boolean; archive?: boolean };
   /** The lab's IANA time zone: dates are shown in it. */
   timeZone: string;
 }) {
@@ -117,6 +118,40 @@ export function EditionsPanel({
                 <a href={e.pdfUrl} className={buttonClass("secondary", "py-1.5")} download>
                   Download PDF
                 </a>
+                <details className="text-sm" data-testid={`office-paper-${e.number}`}>
+                  <summary className={buttonClass("ghost", "py-1.5")}>Print on office paper</summary>
+                  <p className="mt-2 text-ink-soft">
+                    The poster at full size over several sheets, with an assembly map, alignment marks and 10 mm
+                    overlaps. Print at actual size.
+                  </p>
+                  <div className="mt-2 flex flex-wrap gap-2">
+                    {(
+                      [
+                        ["A4", "A4 sheets"],
+                        ["A3", "A3 sheets"],
+                        ["LETTER", "US Letter sheets"],
+                        ["TABLOID", "Tabloid sheets"],
+                      ] as const
+                    ).map(([tiles, label]) => (
+                      <a
+                        key={tiles}
+                        href={`${e.pdfUrl}?tiles=${tiles}`}
+                        className={buttonClass("secondary", "py-1.5")}
+                        download
+                      >
+                        {label}
+                      </a>
+                    ))}
+                    <a href={`${e.pdfUrl}?format=card`} className={buttonClass("secondary", "py-1.5")} download>
+                      Badge card (two sides)
+                    </a>
+                    {can.archive && e.status !== "draft" && e.status !== "returned" ? (
+                      <a href={`${e.pdfUrl}?copy=archive`} className={buttonClass("ghost", "py-1.5")} download>
+                        Archive copy (as approved)
+                      </a>
+                    ) : null}
+                  </div>
+                </details>
                 {e.status !== "draft" && e.status !== "returned" ? (
                   <a href={e.checkUrl} className={buttonClass("ghost", "py-1.5")}>
                     Check page

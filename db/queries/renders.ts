@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db } from "../index";
-import { logos, posterRenders } from "../schema";
+import { labs, logos, posterRenders } from "../schema";
 
 /** A stored render by the key over everything that decides its bytes. */
 export async function findRender({ renderKey }: { renderKey: string }) {
@@ -31,4 +31,13 @@ export async function findLogoBytes({ labId, sha256 }: { labId: number; sha256: 
     .from(logos)
     .where(and(eq(logos.labId, labId), eq(logos.sha256, sha256)));
   return row ? { bytes: row.bytes, mime: row.mime as "image/png" | "image/jpeg" } : null;
+}
+
+/** What a poster prints from the lab itself rather than from the frozen snapshot. */
+export async function findLabPrintSettings({ labId }: { labId: number }) {
+  const [row] = await db
+    .select({ timeZone: labs.timeZone, numberFormat: labs.numberFormat })
+    .from(labs)
+    .where(eq(labs.id, labId));
+  return row ?? { timeZone: "UTC", numberFormat: "point" as const };
 }

@@ -55,6 +55,7 @@ const ACTIONS: Record<string, string> = {
   "edition.withdrawn": "Withdrew an edition",
   "edition.printed": "Downloaded an edition's PDF",
   "edition.downloaded": "Downloaded an edition's PDF",
+  "edition.archive_copy": "Downloaded an archive copy of an edition",
   "posting.created": "Recorded a copy on the wall",
   "posting.removed": "Took a copy off the wall",
   "room.created": "Added a room",

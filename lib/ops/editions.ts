@@ -4,7 +4,8 @@ import * as q from "@/db/queries/editions";
 import { gridJson } from "@/lib/charts/grid-model";
 import { diffCells, type EditionDiff } from "@/lib/editions/diff";
 import { editionUrls } from "@/lib/charts/present";
-import { notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
+import { legibilityRefusal, LEGIBILITY_RULE } from "@/lib/poster/model";
 import { env } from "@/lib/env";
 import { approveEditionSchema, rejectEditionSchema, withdrawEditionSchema } from "@/lib/validation/edition";
 import { labOperation } from "./operation";
@@ -44,6 +45,10 @@ export const approveEdition = labOperation({
   scope: "edition",
   input: approveEditionSchema,
   run: async ({ labId, actor, ids }) => {
+    // Legibility gate: the snapshot is frozen, so this reads it before the write transaction.
+    const frozen = await q.getEdition({ labId, editionId: ids.editionId });
+    const illegible = frozen && frozen.status === "draft" ? legibilityRefusal(frozen.snapshot) : null;
+    if (illegible) throw new AppError("conflict", illegible, [{ path: ["rule"], message: LEGIBILITY_RULE }]);
     const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
     await mailSignoff({ kind: "approved", labId, editionId: ed.id, byName: actor.name, reviewBy: ed.reviewBy });
     return {

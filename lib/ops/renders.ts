@@ -1,12 +1,19 @@
 import "server-only";
+import { z } from "zod";
 import { recordAudit } from "@/db/queries/audit";
+import { getCheckByToken } from "@/db/queries/check";
 import { getEdition } from "@/db/queries/editions";
-import { findLogoBytes, findRender, storeRender } from "@/db/queries/renders";
+import { findLabPrintSettings, findLogoBytes, findRender, storeRender } from "@/db/queries/renders";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { editionUrls } from "@/lib/charts/present";
+import { formatShortCode } from "@/lib/editions/short-code";
 import { env } from "@/lib/env";
-import { notFound } from "@/lib/errors";
-import { renderPosterPdf } from "@/lib/poster/pdf/render";
+import { AppError, notFound } from "@/lib/errors";
+import { formatDate } from "@/lib/format/dates";
+import { renderCardPdf, renderPosterPdf } from "@/lib/poster/pdf/render";
+import { stampBands, tilePoster, type Band } from "@/lib/poster/pdf/variants";
+import { shortCodeUrl } from "@/lib/poster/labels";
+import { TILE_SHEETS } from "@/lib/poster/tiles";
 import { POSTER_RENDERER_VERSION } from "@/lib/poster/version";
 import { labOperation } from "./operation";
 
@@ -18,46 +25,129 @@ const slugify = (s: string) =>
     .slice(0, 60) || "chart";
 
 /**
- * The poster PDF of an edition. Renders are cached in the database by everything that decides
- * the bytes (snapshot fingerprint, state, approval, check URL, renderer version), so a second
- * download, on any app instance, does not render again. Every download is audited.
+ * The query of GET /api/v1/editions/:id/pdf: `tiles` (office sheets), `format` (poster or badge
+ * card) and `copy=archive` (managers: the edition as approved, stamped as an archive copy).
+ */
+export const pdfVariantSchema = z
+  .object({
+    tiles: z.enum(TILE_SHEETS, { error: `tiles must be one of ${TILE_SHEETS.join(", ")}` }).optional(),
+    format: z.enum(["poster", "card"], { error: "format must be poster or card" }).optional(),
+    copy: z.enum(["archive"], { error: "copy must be archive" }).optional(),
+  })
+  .strict()
+  .refine((q) => !(q.tiles && q.format === "card"), {
+    path: ["tiles"],
+    message: "tiles cannot be combined with format=card",
+  });
+export type PdfVariant = z.infer<typeof pdfVariantSchema>;
+
+const NOT_CURRENT_REASON = {
+  outdated: "the lab's stock or rules changed since this edition was approved",
+  superseded: "a newer edition replaces this one",
+  withdrawn: "this edition was withdrawn",
+} as const;
+
+/**
+ * The poster PDF of an edition, or one of its variants (tiled on office sheets, badge card).
+ * An edition that is not current (superseded, withdrawn, or approved but outdated) gets the
+ * NOT CURRENT band on every page; a manager may ask for the archive copy instead, which keeps
+ * the poster as approved and is stamped ARCHIVE COPY. Renders are cached in the database by
+ * everything that decides the bytes (snapshot fingerprint, state, approval, check URL, lab print
+ * settings, variant, band and its date, renderer version), so a second download, on any app
+ * instance, does not render again. Every download is audited.
  */
 export const posterPdf = labOperation({
   name: "edition.pdf",
   capability: "lab:read",
   scope: "edition",
-  run: async ({ labId, actor, ids }) => {
+  input: pdfVariantSchema,
+  run: async ({ labId, actor, ids, member }, variant) => {
+    const archive = variant.copy === "archive";
+    if (archive && member.role !== "manager")
+      throw new AppError("forbidden", "Only a manager may download the archive copy of an edition.");
     const ed = await getEdition({ labId, editionId: ids.editionId });
     if (!ed) throw notFound("Edition");
+    const lab = await findLabPrintSettings({ labId });
+    const shortCode = formatShortCode(ed.shortCode);
     const edition = {
       number: ed.number,
       status: ed.status,
       approvedAt: ed.approvedAt,
       approvedByName: ed.approvedByName,
+      reviewBy: ed.reviewBy ?? null,
       fingerprint: ed.fingerprint,
+      shortCode,
       checkUrl: editionUrls(env.APP_URL, ed).checkUrl,
+      codeUrl: shortCodeUrl(env.APP_URL, ed.shortCode),
     };
+    const today = formatDate(new Date(), lab.timeZone);
+    let band: Band | null = null;
+    let checkStatus: string = ed.status;
+    if (archive) band = { kind: "archive", date: today };
+    else if (ed.status !== "draft" && ed.status !== "returned") {
+      const check = await getCheckByToken({ token: ed.checkToken });
+      checkStatus = check?.status ?? ed.status;
+      if (checkStatus === "outdated" || checkStatus === "superseded" || checkStatus === "withdrawn")
+        band = { kind: "not-current", date: today, reason: NOT_CURRENT_REASON[checkStatus] };
+    }
+    const format = variant.format ?? "poster";
     const renderKey = fingerprintOf({
       renderer: POSTER_RENDERER_VERSION,
       ...edition,
       approvedAt: edition.approvedAt?.toISOString() ?? null,
+      reviewBy: edition.reviewBy?.toISOString() ?? null,
+      lab,
+      format,
+      tiles: variant.tiles ?? null,
+      band,
     });
     const hit = await findRender({ renderKey });
-    let pdf = hit;
-    if (!pdf) {
+    let pdf: Buffer;
+    if (hit) pdf = hit;
+    else {
       const logo = ed.snapshot.logoSha256 ? await findLogoBytes({ labId, sha256: ed.snapshot.logoSha256 }) : null;
-      pdf = await renderPosterPdf({ snapshot: ed.snapshot, edition, logo });
+      // The archive copy is the poster as approved: its own state's banner is not re-printed.
+      const printed = archive && ed.approvedAt ? { ...edition, status: "approved" as const } : edition;
+      const input = { snapshot: ed.snapshot, edition: printed, logo, lab };
+      if (format === "card") {
+        pdf = await renderCardPdf(input);
+        if (band) pdf = await stampBands(pdf, band);
+      } else {
+        pdf = await renderPosterPdf(input);
+        if (variant.tiles)
+          pdf = await tilePoster(pdf, {
+            sheet: variant.tiles,
+            title: ed.snapshot.title,
+            edition: ed.number,
+            shortCode,
+            shortUrl: edition.codeUrl.replace(/^https?:\/\//, ""),
+            band,
+          });
+        else if (band) pdf = await stampBands(pdf, band);
+      }
       await storeRender({ editionId: ed.id, renderKey, pdf });
     }
     await recordAudit({
       labId,
       actorUserId: actor.id,
-      action: "edition.downloaded",
+      action: archive ? "edition.archive_copy" : "edition.downloaded",
       targetType: "edition",
       targetId: ed.id,
-      detail: { number: ed.number, status: ed.status, cached: Boolean(hit) },
+      detail: {
+        number: ed.number,
+        status: checkStatus,
+        format,
+        ...(variant.tiles ? { tiles: variant.tiles } : {}),
+        ...(band ? { band: band.kind } : {}),
+        cached: Boolean(hit),
+      },
     });
-    const fileName = `${slugify(ed.chartTitle)}-edition-${ed.number}${ed.status === "draft" || ed.status === "returned" ? "-DRAFT" : ""}.pdf`;
-    return { pdf, fileName, cached: Boolean(hit) };
+    const suffix =
+      (ed.status === "draft" || ed.status === "returned" ? "-DRAFT" : "") +
+      (archive ? "-ARCHIVE-COPY" : band ? "-NOT-CURRENT" : "") +
+      (format === "card" ? "-card" : "") +
+      (variant.tiles ? `-tiles-${variant.tiles}` : "");
+    const fileName = `${slugify(ed.chartTitle)}-edition-${ed.number}${suffix}.pdf`;
+    return { pdf, fileName, cached: Boolean(hit), band: band?.kind ?? null };
   },
 });

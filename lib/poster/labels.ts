@@ -10,6 +10,9 @@ import {
   type RoundingRule,
 } from "@/lib/sizing";
 import type { EditionStatus } from "@/lib/editions/states";
+import { formatShortCode } from "@/lib/editions/short-code";
+import { formatDate as isoDate } from "@/lib/format/dates";
+import type { NumberFormat } from "@/lib/format/numbers";
 
 const VESSEL_WORDS: Readonly<Record<Vessel, string>> = {
   parent: "parent",
@@ -48,9 +51,12 @@ const RULE_WORDS: Readonly<Record<RoundingRule, string>> = {
   reach: "the smallest stocked size that reaches the target by rated burst pressure (linear compliance)",
 };
 
-/** The rounding rule in words; marks the trade's usual choice for the lookup as common practice. */
-export function roundingText(kind: LookupKind, rule: RoundingRule): string {
-  const usual = DEFAULT_ROUNDING[kind] === rule && rule !== "nearest" ? " (common practice)" : "";
+/**
+ * The rounding rule in words; the designer marks the trade's usual choice for the lookup as
+ * common practice, the poster (`plain`) says only what was done.
+ */
+export function roundingText(kind: LookupKind, rule: RoundingRule, plain = false): string {
+  const usual = !plain && DEFAULT_ROUNDING[kind] === rule && rule !== "nearest" ? " (common practice)" : "";
   return `Balloon ${RULE_WORDS[rule]}${usual}`;
 }
 
@@ -64,11 +70,20 @@ export function gridSubtitle(
   lookup: { kind: LookupKind; rounding: RoundingRule; family: BalloonFamilyStock | null },
   stentName: string | null,
 ): string {
+  return gridSubtitleParts(lookup, stentName).join(" · ");
+}
+
+/** The same lines one by one, as the poster prints them (plain words: no "common practice"). */
+export function gridSubtitleParts(
+  lookup: { kind: LookupKind; rounding: RoundingRule; family: BalloonFamilyStock | null },
+  stentName: string | null,
+  plain = false,
+): string[] {
   const growth = lookup.family !== null && hasGrowthData(lookup.family);
   const rounding =
     lookup.rounding === "reach" && lookup.family && !growth
       ? "No growth recorded, so no pressure is printed: balloon rounded up to the next stocked size"
-      : roundingText(lookup.kind, lookup.rounding);
+      : roundingText(lookup.kind, lookup.rounding, plain);
   const parts = [familyText(lookup.family), rounding];
   if (lookup.kind === "proximal") {
     if (!stentName) parts.push("Stent limit not checked (no stent platform)");
@@ -76,15 +91,11 @@ export function gridSubtitle(
       parts.push(`Stent limit: ${stentName}, checked at nominal diameter (no growth at RBP recorded)`);
     else parts.push(`Stent limit: ${stentName}, checked at RBP`);
   }
-  return parts.join(" · ");
+  return parts;
 }
 
-const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
-
-/** "2 Mar 2026" in UTC: unambiguous in every locale and the same on every server. */
-export function formatDate(d: Date): string {
-  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}`;
-}
+/** ISO 8601 date in the lab's time zone (lib/format/dates.ts): the one date format on a poster. */
+export const formatDate = (d: Date, timeZone = "UTC") => isoDate(d, timeZone);
 
 export type EditionLine = {
   status: EditionStatus;
@@ -92,11 +103,51 @@ export type EditionLine = {
   approvedByName: string | null;
 };
 
-/** "Approved 2 Mar 2026 by A. Example", or "DRAFT — not approved". */
-export function approvalText(e: EditionLine): string {
+/** "Approved 2026-03-02 by A. Example", or "DRAFT — not approved". */
+export function approvalText(e: EditionLine, timeZone = "UTC"): string {
   if (e.status === "draft" || e.status === "returned" || !e.approvedAt) return "DRAFT — not approved";
   const by = e.approvedByName ? ` by ${e.approvedByName}` : "";
-  return `Approved ${formatDate(e.approvedAt)}${by}`;
+  return `Approved ${formatDate(e.approvedAt, timeZone)}${by}`;
+}
+
+/** "Review by 2027-03-02": when the approved content is due for review; null for drafts. */
+export function reviewText(reviewBy: Date | null | undefined, timeZone = "UTC"): string | null {
+  return reviewBy ? `Review by ${formatDate(reviewBy, timeZone)}` : null;
+}
+
+/** Decimal points between digits become the lab's separator (3.25 -> 3,25 where the lab chose the comma). */
+export function localiseNumbers(text: string, format: NumberFormat = "point"): string {
+  return format === "comma" ? text.replace(/(\d)\.(\d)/g, "$1,$2") : text;
+}
+
+/** The address printed under the QR code: the app's /c/ route and the edition's short code. */
+export function shortCodeUrl(appUrl: string, code: string): string {
+  return `${appUrl.replace(/\/$/, "")}/c/${formatShortCode(code)}`;
+}
+
+export type FormulaRun = { text: string; sup: boolean };
+
+/**
+ * A law's formula as runs of normal and superscript text: "Dp^(7/3)" and "Dp³" both become
+ * "Dp" with a raised "7/3" or "3", so the poster typesets real exponents instead of code.
+ */
+export function formulaRuns(formula: string): FormulaRun[] {
+  const SUP: Record<string, string> = { "²": "2", "³": "3" };
+  const runs: FormulaRun[] = [];
+  const push = (text: string, sup: boolean) => {
+    const last = runs[runs.length - 1];
+    if (last && last.sup === sup) last.text += text;
+    else if (text) runs.push({ text, sup });
+  };
+  const re = /\^\(([^)]*)\)|\^([0-9.,a-z]+)|([²³])/g;
+  let at = 0;
+  for (let m = re.exec(formula); m; m = re.exec(formula)) {
+    push(formula.slice(at, m.index), false);
+    push(m[1] ?? m[2] ?? SUP[m[3] as string] ?? "", true);
+    at = m.index + m[0].length;
+  }
+  push(formula.slice(at), false);
+  return runs;
 }
 
 /** The banner across a poster that must not be used as current, or null for approved ones. */

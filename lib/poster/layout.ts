@@ -31,21 +31,44 @@ export const CELL = {
 
 export type Box = { x: number; y: number; width: number; height: number };
 
+/**
+ * Height of Inter's figures and capitals as a fraction of the font size: OS/2 sCapHeight 1490
+ * over unitsPerEm 2048 in fonts/Inter-*.ttf (tests/unit/poster/legibility.test.ts reads both).
+ */
+export const CAP_HEIGHT_EM = 1490 / 2048;
+/**
+ * Axis titles, balloon family, rounding rule and law are printed at least this many minutes of
+ * arc high at the poster's reading distance: the lower bound of the human-factors guidance the
+ * figures follow at 20′ (lib/poster/legibility.ts), so they can be found from where the figures
+ * are read.
+ */
+export const LABEL_MIN_ARCMIN = 16;
+
+/** Font size (pt) whose capitals subtend `arcmin` at `distanceM`. */
+export function fontPtForArcmin(distanceM: number, arcmin: number): number {
+  const mm = 2 * distanceM * 1000 * Math.tan(((arcmin / 60) * Math.PI) / 180 / 2);
+  return ((mm / CAP_HEIGHT_EM) * 72) / 25.4;
+}
+
 export type LayoutGridInput = {
   rows: number;
   cols: number;
   /** True when some cell may print "@ N atm" (reach rounding). */
   pressureLine: boolean;
-  /** Characters in the grid's title and in its subtitle. */
+  /** Characters in the grid's title and in each line under it (family, rule, stent limit). */
   titleChars: number;
-  subtitleChars: number;
+  subtitleLines: readonly number[];
 };
 
 /** Character counts of the texts printed around the grids. */
 export type LayoutTexts = {
   title: number;
+  /** Law name and formula, one line when it fits. */
+  law: number;
   source: number;
   notes: number;
+  /** One count per rule exception printed in the edition block. */
+  exceptions?: readonly number[];
   caution: number;
   /** One count per legend line (label and explanation). */
   legend: readonly number[];
@@ -55,6 +78,8 @@ export type LayoutTexts = {
 export type LayoutInput = {
   paper: PaperId;
   orientation: Orientation;
+  /** Stated reading distance (m): axis titles, family, rule and law are sized for it. */
+  readingDistanceM?: number;
   grids: readonly LayoutGridInput[];
   texts: LayoutTexts;
   /** Draft, superseded or withdrawn editions print a banner under the header. */
@@ -115,6 +140,8 @@ export type PosterLayout = {
   grids: GridLayout[];
   /** Figure font size, pt: the same for every grid on the poster. */
   figurePt: number;
+  /** Cells are this much taller than their figure needs, to fill the page (1 = not stretched). */
+  cellStretch: number;
   /** Where legend, edition and QR sit: below the grids or in a column at their right. */
   footer: "bottom" | "side";
   caution: Box;
@@ -138,16 +165,18 @@ const LINE = 1.3;
 export const linesFor = (chars: number, fontPt: number, widthPt: number) =>
   chars <= 0 ? 0 : Math.max(1, Math.ceil((chars * fontPt * INTER.textEm) / Math.max(widthPt, 1))) + 0.3;
 
-export function fontsFor(scale: number): Fonts {
+export function fontsFor(scale: number, readingDistanceM?: number): Fonts {
+  // The labels an operator reads from the wall never fall below LABEL_MIN_ARCMIN there.
+  const label = readingDistanceM ? fontPtForArcmin(readingDistanceM, LABEL_MIN_ARCMIN) : 0;
   return {
     lab: 12 * scale,
     title: 22 * scale,
-    law: 12 * scale,
+    law: Math.max(13 * scale, label),
     source: 6.5 * scale,
     banner: 12 * scale,
-    gridTitle: 12 * scale,
-    gridSub: 7.5 * scale,
-    axis: 9 * scale,
+    gridTitle: Math.max(13 * scale, label * 1.1),
+    gridSub: Math.max(9 * scale, label),
+    axis: Math.max(11 * scale, label),
     legend: 7.5 * scale,
     edition: 9 * scale,
     small: 7 * scale,
@@ -157,15 +186,20 @@ export function fontsFor(scale: number): Fonts {
 
 type GridSize = { width: number; height: number; titleH: number; axisH: number; cellH: number };
 
+/** Cells may grow taller than their figure needs, up to this factor, to fill the page's height. */
+export const MAX_CELL_STRETCH = 2.5;
+
 /** Grid block size at a figure size f: fixed text parts plus parts proportional to f. */
-function gridSize(g: LayoutGridInput, f: number, fonts: Fonts, scale: number): GridSize {
+function gridSize(g: LayoutGridInput, f: number, fonts: Fonts, scale: number, stretch = 1, slotW = 0): GridSize {
   const axisH = fonts.axis * 1.5;
-  const cellH = f * (CELL.heightEm + (g.pressureLine ? CELL.pressureLineEm : 0));
+  const cellH = f * (CELL.heightEm + (g.pressureLine ? CELL.pressureLineEm : 0)) * stretch;
   // A narrow grid still keeps room for its title to wrap into a few lines.
   const width = Math.max(axisH + f * CELL.rowHeadWidthEm + g.cols * f * CELL.widthEm, 200 * scale);
+  // The title spans the grid's whole slot in its band, not only the grid's width.
+  const titleW = Math.max(width, slotW);
   const titleH =
-    fonts.gridTitle * 1.25 * linesFor(g.titleChars, fonts.gridTitle * 1.1, width) +
-    fonts.gridSub * 1.25 * linesFor(g.subtitleChars, fonts.gridSub, width) +
+    fonts.gridTitle * 1.25 * linesFor(g.titleChars, fonts.gridTitle * 1.1, titleW) +
+    g.subtitleLines.reduce((h, chars) => h + fonts.gridSub * 1.2 * (linesFor(chars, fonts.gridSub, titleW) - 0.2), 0) +
     4 * scale;
   return {
     width,
@@ -194,7 +228,8 @@ function bandsFit(
 ) {
   let height = 0;
   for (const band of bands) {
-    const sizes = band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale));
+    const slot = band.length === 1 ? area.width : 0;
+    const sizes = band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale, 1, slot));
     const width = sizes.reduce((s, z) => s + z.width, 0) + gap * (band.length - 1);
     if (width > area.width) return false;
     height += Math.max(...sizes.map((z) => z.height));
@@ -234,6 +269,50 @@ function bestArrangement(grids: readonly LayoutGridInput[], area: Box, fonts: Fo
   return best;
 }
 
+/** Total height of the bands at figure size f with cells stretched by `stretch`. */
+function bandsHeight(
+  bands: number[][],
+  grids: readonly LayoutGridInput[],
+  f: number,
+  fonts: Fonts,
+  scale: number,
+  gap: number,
+  stretch: number,
+  areaW: number,
+) {
+  const slot = (band: number[]) => (band.length === 1 ? areaW : 0);
+  return (
+    bands.reduce(
+      (h, band) =>
+        h +
+        Math.max(
+          ...band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale, stretch, slot(band)).height),
+        ),
+      0,
+    ) +
+    gap * (bands.length - 1)
+  );
+}
+
+/** How much taller the cells may be so the grids fill the area's height (1 when they already do). */
+function fillStretch(
+  bands: number[][],
+  grids: readonly LayoutGridInput[],
+  f: number,
+  area: Box,
+  fonts: Fonts,
+  scale: number,
+  gap: number,
+) {
+  if (f <= 0) return 1;
+  const h1 = bandsHeight(bands, grids, f, fonts, scale, gap, 1, area.width);
+  const h2 = bandsHeight(bands, grids, f, fonts, scale, gap, 2, area.width);
+  if (h2 <= h1) return 1;
+  // Height grows linearly with the stretch; a hair under the exact fit absorbs rounding.
+  const s = 1 + ((area.height - h1) / (h2 - h1)) * 0.999;
+  return Math.min(MAX_CELL_STRETCH, Math.max(1, s));
+}
+
 function placeGrids(
   grids: readonly LayoutGridInput[],
   bands: number[][],
@@ -242,8 +321,13 @@ function placeGrids(
   fonts: Fonts,
   scale: number,
   gap: number,
+  stretch = 1,
 ): GridLayout[] {
-  const bandSizes = bands.map((band) => band.map((i) => gridSize(grids[i] as LayoutGridInput, f, fonts, scale)));
+  const bandSizes = bands.map((band) =>
+    band.map((i) =>
+      gridSize(grids[i] as LayoutGridInput, f, fonts, scale, stretch, band.length === 1 ? area.width : 0),
+    ),
+  );
   const bandHeights = bandSizes.map((s) => Math.max(...s.map((z) => z.height)));
   const totalH = bandHeights.reduce((a, b) => a + b, 0) + gap * (bands.length - 1);
   let y = area.y + Math.max(0, (area.height - totalH) / 2);
@@ -255,6 +339,8 @@ function placeGrids(
     band.forEach((gi, k) => {
       const z = sizes[k] as GridSize;
       const g = grids[gi] as LayoutGridInput;
+      // A grid alone in its band titles across the band; grids side by side keep to their width.
+      const titleW = band.length === 1 ? Math.max(z.width, area.width) : z.width;
       const rowHeadWidth = f * CELL.rowHeadWidthEm;
       const colHeadHeight = f * CELL.colHeadHeightEm;
       const cellsX = x + z.axisH + rowHeadWidth;
@@ -262,7 +348,8 @@ function placeGrids(
       const cellsY = colAxisY + z.axisH + colHeadHeight;
       out[gi] = {
         box: { x, y, width: z.width, height: z.height },
-        title: { x, y, width: z.width, height: z.titleH },
+        // Centred over the grid, as wide as the grid's slot allows.
+        title: { x: x + (z.width - titleW) / 2, y, width: titleW, height: z.titleH },
         colAxis: { x: cellsX, y: colAxisY, width: g.cols * f * CELL.widthEm, height: z.axisH },
         rowAxis: { x, y: cellsY, width: z.axisH, height: g.rows * z.cellH },
         cellsX,
@@ -304,36 +391,78 @@ function legendBlock(texts: LayoutTexts, fonts: Fonts, scale: number, width: num
   return { rows, height: Math.max(...ys) };
 }
 
+/** Edition number, approval, review-by date, time zone and paper, rule exceptions and notes. */
 function editionHeight(texts: LayoutTexts, fonts: Fonts, scale: number, width: number) {
   return (
     fonts.edition * 1.6 * LINE +
-    fonts.edition * LINE * 2 * linesFor(40, fonts.edition, width) +
-    fonts.small * LINE * linesFor(140, fonts.small, width) +
+    fonts.edition * LINE * (linesFor(60, fonts.edition, width) + linesFor(22, fonts.edition, width)) +
+    fonts.small * LINE * linesFor(70, fonts.small, width) +
+    (texts.exceptions ?? []).reduce((h, chars) => h + fonts.small * LINE * linesFor(chars, fonts.small, width), 0) +
     (texts.notes > 0 ? fonts.small * LINE * linesFor(texts.notes + 7, fonts.small, width) : 0) +
-    8 * scale
+    10 * scale
   );
+}
+
+/** Under the QR code: the short code, large; the short address; one line of what it is for. */
+function qrTextHeight(fonts: Fonts, scale: number, width: number) {
+  return (
+    fonts.edition * 1.5 * LINE +
+    fonts.small * 1.1 * LINE +
+    fonts.small * LINE * linesFor(70, fonts.small, width) +
+    4 * scale
+  );
+}
+
+/** Font size (pt) at which the short address fits `width` on one line (never cut off). */
+export function urlFontPt(chars: number, fonts: Fonts, width: number): number {
+  return Math.min(fonts.small * 1.1, width / Math.max(1, chars * 0.62));
 }
 
 const offset = (b: Box, dx: number, dy: number): Box => ({ ...b, x: b.x + dx, y: b.y + dy });
 
+/**
+ * The poster's layout. Labels are sized for the reading distance, but never beyond 60 % of the
+ * figure the page would give with its base label sizes: a crowded page keeps its figures, and
+ * the legibility check then says the figures are too small rather than the labels crowding
+ * them out.
+ */
 export function layoutPoster(input: LayoutInput): PosterLayout {
   if (input.grids.length < 1 || input.grids.length > 3) throw new RangeError("A poster has one to three grids");
   const page = pageSizePt(input.paper, input.orientation);
+  const scale = Math.min(page.width, page.height) / A4_SHORT_PT;
+  const base = fontsFor(scale);
+  if (!input.readingDistanceM) return layoutWith(input, base);
+  const f0 = layoutWith(input, base).figurePt;
+  const wanted = fontsFor(scale, input.readingDistanceM);
+  const cap = (k: keyof Fonts) => Math.max(base[k], Math.min(wanted[k], f0 * 0.6));
+  return layoutWith(input, {
+    ...wanted,
+    law: cap("law"),
+    gridTitle: cap("gridTitle"),
+    gridSub: cap("gridSub"),
+    axis: cap("axis"),
+  });
+}
+
+function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
+  const page = pageSizePt(input.paper, input.orientation);
   const short = Math.min(page.width, page.height);
   const scale = short / A4_SHORT_PT;
-  const fonts = fontsFor(scale);
   const margin = 24 * scale;
   const gap = 10 * scale;
   const innerW = page.width - 2 * margin;
   const { texts } = input;
 
   // Header: lab and title at the left, law at the right.
-  const lawW = Math.min(innerW * 0.42, 320 * scale);
+  const lawW = Math.min(innerW * 0.5, Math.max(320 * scale, texts.law * fonts.law * 0.6));
   const logoW = input.logo ? 72 * scale : 0;
   const titleX = margin + (input.logo ? logoW + gap : 0);
   const titleW = innerW - lawW - gap - (titleX - margin);
   const leftH = fonts.lab * LINE + fonts.title * 1.15 * linesFor(texts.title, fonts.title * 1.1, titleW);
-  const rightH = fonts.law * LINE * 2 + fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) + 2 * scale;
+  const rightH =
+    fonts.law * 1.25 * linesFor(texts.law, fonts.law, lawW) +
+    fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) +
+    2 * scale;
   const header: Box = {
     x: margin,
     y: margin,
@@ -365,14 +494,11 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
 
   // Option 1: legend, edition and QR side by side below the grids.
   const qrColW = Math.max(qrSide, 130 * scale, Math.min(texts.url * fonts.small * 1.1 * 0.62, innerW * 0.25));
+  const qrTextH = qrTextHeight(fonts, scale, qrColW);
   const restW = innerW - qrColW - 2 * gap;
   const editionW = restW * 0.36;
   const legendW = restW - editionW;
   const legend1 = legendBlock(texts, fonts, scale, legendW);
-  const qrTextH =
-    fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrColW) +
-    fonts.small * LINE * linesFor(60, fonts.small, qrColW) +
-    4 * scale;
   const footerH = Math.max(legend1.height, editionHeight(texts, fonts, scale, editionW), qrSide + qrTextH);
   const footerY = bottom - footerH;
   const area1: Box = { x: margin, y: top, width: innerW, height: footerY - gap - top };
@@ -386,10 +512,7 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
   const qrCol2W = Math.max(qrSide, Math.min(urlW, sideW * 0.5));
   const edition2W = sideW - qrCol2W - gap;
   const edition2H = editionHeight(texts, fonts, scale, edition2W);
-  const qrText2H =
-    fonts.small * 1.1 * LINE * linesFor(texts.url, fonts.small * 1.1, qrCol2W) +
-    fonts.small * LINE * linesFor(60, fonts.small, qrCol2W) +
-    4 * scale;
+  const qrText2H = qrTextHeight(fonts, scale, qrCol2W);
   const sideH = legend2.height + gap + Math.max(edition2H, qrSide + qrText2H);
   const sideFits = top + sideH <= bottom;
   const area2: Box = { x: margin, y: top, width: innerW - sideW - 2 * gap, height: bottom - top };
@@ -398,7 +521,8 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
   const side = best2.f > best1.f * 1.02;
   const best = side ? best2 : best1;
   const area = side ? area2 : area1;
-  const grids = placeGrids(input.grids, best.bands, best.f, area, fonts, scale, gridGap);
+  const stretch = fillStretch(best.bands, input.grids, best.f, area, fonts, scale, gridGap);
+  const grids = placeGrids(input.grids, best.bands, best.f, area, fonts, scale, gridGap, stretch);
 
   let legend: Box, edition: Box, qr: Box, qrText: Box, legendRows: LegendRow[];
   if (side) {
@@ -436,6 +560,7 @@ export function layoutPoster(input: LayoutInput): PosterLayout {
     gridArea: area,
     grids,
     figurePt: best.f,
+    cellStretch: stretch,
     footer: side ? "side" : "bottom",
     caution,
     legend,

@@ -79,9 +79,13 @@ export function posterLegibility(input: LayoutInput & { readingDistanceM: number
     }
   }
 
+  const otherOrientation = input.orientation === "portrait" ? "landscape" : "portrait";
+  const turnPasses = !ok && passes({ ...input, orientation: otherOrientation }, requiredMm);
+
   let suggestion: string | null = null;
   if (!ok) {
     const options: string[] = [];
+    if (turnPasses) options.push(`print it ${otherOrientation}`);
     const bigger = smallestPaper && series.indexOf(smallestPaper) > series.indexOf(input.paper) ? smallestPaper : null;
     if (bigger) options.push(`use ${PAPERS[bigger].label} or larger`);
     if (maxColumns !== null && maxColumns < widest)

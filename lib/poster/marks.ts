@@ -75,7 +75,9 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
   },
   hazard: {
     id: "hazard",
-    symbol: "⚠",
+    // A square, so no two marks share a shape: triangles say "no stocked size", arrows the caps,
+    // the diamond the published fit, the dash "no size".
+    symbol: "■",
     label: "Stent limit",
     explanation:
       "POT above the main-branch stent's maximum post-dilatation diameter, or no stent covers this main branch; orange, heavy border.",
@@ -252,7 +254,13 @@ export function cornerSymbols(view: CellView): string {
     .join("");
 }
 
-export type LegendEntry = { mark: MarkId | "sized"; label: string; text: string };
+export type LegendEntry = {
+  mark: MarkId | "sized";
+  label: string;
+  text: string;
+  /** A real cell of the chart that shows the mark, printed as the legend's sample. */
+  sample?: CellView;
+};
 
 export type LegendContext = {
   law: LawSpec;

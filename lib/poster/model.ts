@@ -1,51 +1,75 @@
 // From a frozen snapshot to what the layout and the legend need: used by the poster, and by the
 // designer page to show legibility before anything is rendered.
-import type { Snapshot } from "@/lib/charts/snapshot";
-import { DEFAULT_ROUNDING_CAPS, LAWS } from "@/lib/sizing";
-import { gridSubtitle, lookupTitle, statusBanner, shortUrl } from "./labels";
+import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
+import { DEFAULT_ROUNDING_CAPS, LAWS, lawFormula, lawName, type Grid } from "@/lib/sizing";
+import { gridSubtitleParts, lookupTitle, statusBanner } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { LayoutInput } from "./layout";
 import { posterLegibility, type Legibility } from "./legibility";
-import { legendEntries, type LegendEntry } from "./marks";
+import { cellView, legendEntries, type CellView, type LegendEntry, type MarkId } from "./marks";
 
-export function posterLegend(snapshot: Snapshot): LegendEntry[] {
-  return legendEntries({
+/**
+ * The first cell of the chart that shows `mark`, as printed; for "sized", a stocked balloon with
+ * no mark if there is one, else one whose only marks sit in the corner.
+ */
+function sampleCell(grids: readonly Grid[], mark: MarkId | "sized"): CellView | undefined {
+  const views = grids.flatMap((g) => g.cells.flatMap((row) => row.map(cellView)));
+  if (mark !== "sized") return views.find((v) => v.marks.includes(mark));
+  const sized = views.filter((v) => v.primaryIsSize && !v.marks.includes("noStock") && !v.marks.includes("hazard"));
+  return sized.find((v) => v.marks.length === 0) ?? sized[0];
+}
+
+/** Legend lines for the marks this chart's grids use, each with a real cell of the chart as its sample. */
+export function posterLegend(snapshot: Snapshot, grids: readonly Grid[] = snapshotGrids(snapshot)): LegendEntry[] {
+  const all = legendEntries({
     law: snapshot.law,
     stentName: snapshot.stent?.name ?? null,
     hasProximal: snapshot.lookups.some((l) => l.kind === "proximal"),
     hasReach: snapshot.lookups.some((l) => l.rounding === "reach"),
     caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
   });
+  return all.flatMap((e) => {
+    const sample = sampleCell(grids, e.mark);
+    return sample ? [{ ...e, sample }] : [];
+  });
 }
 
-/** A typical printed check URL length, for layouts made before an edition exists. */
-const TYPICAL_URL_CHARS = 40;
+/** A typical printed short address (host, /c/ and the 9-character code), for layouts made before an edition exists. */
+const TYPICAL_URL_CHARS = 34;
 
-type EditionLike = { status: EditionStatus; checkUrl?: string };
+type EditionLike = { status: EditionStatus; codeUrl?: string; checkUrl?: string; reviewBy?: Date | null };
+
+/** The law as printed in the header: its name and formula. */
+export const lawHeading = (snapshot: Snapshot) => `${lawName(snapshot.law)}: ${lawFormula(snapshot.law)}`;
 
 /** The layout's input for a snapshot; a logo is assumed when the snapshot records one. */
 export function layoutInputFor(
   snapshot: Snapshot,
   edition: EditionLike = { status: "draft" },
   hasLogo = snapshot.logoSha256 !== null,
+  grids: readonly Grid[] = snapshotGrids(snapshot),
 ): LayoutInput {
+  const url = edition.codeUrl ?? edition.checkUrl;
   return {
     paper: snapshot.paper,
     orientation: snapshot.orientation,
+    readingDistanceM: snapshot.readingDistanceM,
     grids: snapshot.lookups.map((l) => ({
       rows: l.rows.length,
       cols: l.cols.length,
       pressureLine: l.rounding === "reach",
       titleChars: lookupTitle(l.kind).length,
-      subtitleChars: gridSubtitle(l, snapshot.stent?.name ?? null).length,
+      subtitleLines: gridSubtitleParts(l, snapshot.stent?.name ?? null, true).map((p) => p.length),
     })),
     texts: {
       title: snapshot.title.length,
+      law: lawHeading(snapshot).length,
       source: LAWS[snapshot.law.law].source.length,
       notes: snapshot.notes.length,
+      exceptions: (snapshot.ruleExceptions ?? []).map((e) => e.rule.length + e.reason.length + 30),
       caution: snapshot.caution.length,
-      legend: posterLegend(snapshot).map((e) => e.label.length + e.text.length + 2),
-      url: edition.checkUrl ? shortUrl(edition.checkUrl).length : TYPICAL_URL_CHARS,
+      legend: posterLegend(snapshot, grids).map((e) => e.label.length + e.text.length + 2),
+      url: url ? url.replace(/^https?:\/\//, "").length : TYPICAL_URL_CHARS,
     },
     banner: statusBanner(edition.status) !== null,
     logo: hasLogo,
@@ -55,4 +79,19 @@ export function layoutInputFor(
 /** Whether the chart's figures can be read at its stated reading distance, with advice if not. */
 export function snapshotLegibility(snapshot: Snapshot, edition?: EditionLike): Legibility {
   return posterLegibility({ ...layoutInputFor(snapshot, edition), readingDistanceM: snapshot.readingDistanceM });
+}
+
+/** The lab rule an edition whose figures are too small to read breaks, as refusals name it. */
+export const LEGIBILITY_RULE = "legibility";
+
+/**
+ * Why an edition cannot be approved for legibility, or null: its figures, as the approved poster
+ * prints them, fall below the 20′ guide at its stated reading distance, and the medical lead
+ * recorded no exception to the rule for this chart (snapshot.ruleExceptions).
+ */
+export function legibilityRefusal(snapshot: Snapshot): string | null {
+  if ((snapshot.ruleExceptions ?? []).some((e) => e.rule === LEGIBILITY_RULE)) return null;
+  const l = snapshotLegibility(snapshot, { status: "approved" });
+  if (l.ok) return null;
+  return `Lab rule "${LEGIBILITY_RULE}": the figures are too small to read from ${snapshot.readingDistanceM} m. ${l.suggestion ?? ""}`.trim();
 }

@@ -476,6 +476,31 @@ export const ROUTES: RouteRow[] = [
     expect: everyoneSignedIn(200),
     note: "every download is audited (edition.downloaded)",
   },
+  // posters: the PDF's variants (tiles, badge card, archive copy); each is the same route.
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/pdf",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf?tiles=B5`,
+    expect: everyoneSignedIn(400),
+    note: "posters: tiles takes A4, A3, LETTER or TABLOID only (400 naming tiles)",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/pdf",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf?format=zip`,
+    expect: everyoneSignedIn(400),
+    note: "posters: format takes poster or card only (400 naming format)",
+  },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/api/v1/editions/[id]/pdf",
+    url: (ids) => `/api/v1/editions/${ids["edition:pot"]}/pdf?copy=archive`,
+    expect: statuses(["manager"], 200),
+    note: "posters: the archive copy is for managers only, audited as edition.archive_copy",
+  },
   {
     kind: "route",
     method: "POST",

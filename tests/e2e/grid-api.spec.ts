@@ -69,7 +69,7 @@ test("the approved poster PDF prints what the grid API answers, cell for cell", 
   expect(pdf.status()).toBe(200);
   const text = (await pdfText(Buffer.from(await pdf.body()))).text.replace(/\s+/g, " ");
   // Each printed cell appears in reading order as "(exact) [marks] size".
-  const CORNER: Record<string, string> = { "stent-limit": "⚠", oversize: "↑", undersize: "↓", "outside-fit": "◇" };
+  const CORNER: Record<string, string> = { "stent-limit": "■", oversize: "↑", undersize: "↓", "outside-fit": "◇" };
   let from = text.indexOf("Dmb ↓");
   expect(from).toBeGreaterThan(0);
   for (const cell of grid.cells.flat() as Cell[]) {

@@ -1,22 +1,34 @@
 import path from "node:path";
 import { Document, Font, Image, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import type { Style } from "@react-pdf/stylesheet";
+import { installShapingCache } from "./shaping-cache";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
+import type { NumberFormat } from "@/lib/format/numbers";
 import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
   axisTitles,
   DRAFT_WATERMARK,
-  gridSubtitle,
+  formulaRuns,
+  gridSubtitleParts,
+  localiseNumbers,
   lookupTitle,
+  reviewText,
   VESSEL_SYMBOLS,
   shortUrl,
   statusBanner,
 } from "@/lib/poster/labels";
-import { cellBox, CELL, layoutPoster, type Box, type GridLayout, type PosterLayout } from "@/lib/poster/layout";
-import { legibilityLine, posterLegibility } from "@/lib/poster/legibility";
+import {
+  cellBox,
+  CELL,
+  layoutPoster,
+  urlFontPt,
+  type Box,
+  type GridLayout,
+  type PosterLayout,
+} from "@/lib/poster/layout";
 import {
   cellView,
   cornerSymbols,
@@ -39,10 +51,18 @@ export type PosterInput = {
     status: EditionStatus;
     approvedAt: Date | null;
     approvedByName: string | null;
+    /** When the approved content is due for review (approved editions). */
+    reviewBy?: Date | null;
     fingerprint: string;
+    /** What the QR code encodes: the check page. */
     checkUrl: string;
+    /** As printed, K7QM-2XHD, and the short address printed under the QR code (APP_URL/c/<code>). */
+    shortCode?: string;
+    codeUrl?: string;
   };
   logo: { bytes: Buffer; mime: "image/png" | "image/jpeg" } | null;
+  /** How the lab prints dates and decimals; UTC and a decimal point when absent. */
+  lab?: { timeZone: string; numberFormat: NumberFormat };
 };
 
 export const POSTER_FONT = "Inter";
@@ -64,21 +84,26 @@ export function registerPosterFonts(): void {
     ],
   });
   Font.registerHyphenationCallback((word) => [word]);
+  installShapingCache(file("Inter-Regular.ttf"));
   fontsRegistered = true;
 }
 
-const TNUM: Style = { fontFeatureSettings: ["tnum"] };
-const at = (b: Box): Style => ({ position: "absolute", left: b.x, top: b.y, width: b.width, height: b.height });
+export const TNUM: Style = { fontFeatureSettings: ["tnum"] };
+export const at = (b: Box): Style => ({ position: "absolute", left: b.x, top: b.y, width: b.width, height: b.height });
 
 /** Everything the document draws, computed once from the input (pure). */
 export function posterModel(input: PosterInput) {
   const { snapshot, edition } = input;
   const grids = snapshotGrids(snapshot);
-  const layoutInput = layoutInputFor(snapshot, edition, input.logo !== null);
+  const layoutInput = layoutInputFor(snapshot, edition, input.logo !== null, grids);
   const layout = layoutPoster(layoutInput);
-  const legibility = posterLegibility({ ...layoutInput, readingDistanceM: snapshot.readingDistanceM });
-  return { grids, layout, legibility, legend: posterLegend(snapshot), qr: qrSymbol(edition.checkUrl) };
+  // The legibility figures stay in the designer and the approval gate: the poster does not print
+  // them, so the render does not compute them (twenty-odd layouts of other papers and widths).
+  return { grids, layout, legend: posterLegend(snapshot, grids), qr: qrSymbol(edition.checkUrl) };
 }
+
+/** The legend's sample: a real cell of the chart with that mark, or a made-up one when none exists. */
+const sampleView = (e: LegendEntry): CellView => e.sample ?? swatchView(e.mark);
 
 /** A sample cell for each legend line, drawn with the same marks as the grid. */
 function swatchView(mark: MarkId | "sized"): CellView {
@@ -98,8 +123,23 @@ function swatchView(mark: MarkId | "sized"): CellView {
 }
 
 /** The words of one cell; its background, hatching, rule and border are drawn by CellGraphicsSvg. */
-function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f: number; pressureLine: boolean }) {
+export function CellText({
+  view,
+  box,
+  f,
+  pressureLine,
+  nf = "point",
+}: {
+  view: CellView;
+  box: Box;
+  f: number;
+  pressureLine: boolean;
+  nf?: NumberFormat;
+}) {
   const small = f * CELL.smallRatio;
+  // Cells stretched to fill the page keep the figure in their middle.
+  const lift = Math.max(0, (box.height - f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))) / 2);
+  const loc = (t: string) => localiseNumbers(t, nf);
   const inset = view.border * Math.min(box.width, box.height);
   const pad = f * 0.1 + inset;
   const top = f * 0.05 + inset * 0.6;
@@ -110,7 +150,7 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
         <Text
           style={{ position: "absolute", left: box.x + pad, top: box.y + top, fontSize: small, lineHeight: 1, ...TNUM }}
         >
-          {view.exact}
+          {loc(view.exact)}
         </Text>
       ) : null}
       {corner ? (
@@ -134,7 +174,7 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
           position: "absolute",
           left: box.x,
           width: box.width,
-          top: box.y + f * CELL.figureTopEm,
+          top: box.y + lift + f * CELL.figureTopEm,
           fontSize: f,
           lineHeight: 1,
           fontWeight: 700,
@@ -142,7 +182,7 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
           ...TNUM,
         }}
       >
-        {view.primary}
+        {loc(view.primary)}
       </Text>
       {pressureLine && view.pressure ? (
         <Text
@@ -150,7 +190,7 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
             position: "absolute",
             left: box.x,
             width: box.width,
-            top: box.y + f * (CELL.figureTopEm + 1.02),
+            top: box.y + lift + f * (CELL.figureTopEm + 1.02),
             fontSize: small,
             lineHeight: 1,
             fontWeight: 600,
@@ -158,14 +198,14 @@ function CellText({ view, box, f, pressureLine }: { view: CellView; box: Box; f:
             ...TNUM,
           }}
         >
-          {view.pressure}
+          {loc(view.pressure)}
         </Text>
       ) : null}
     </>
   );
 }
 
-function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
+export function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
   const g = cellGraphics(cells);
   // The SVG spans just the drawn cells (in page coordinates through its viewBox), never the page.
   const x0 = Math.min(...cells.map((c) => c.box.x)) - rule;
@@ -200,7 +240,10 @@ function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule
   );
 }
 
-const heading = (box: Box): DrawnCell => ({ box, view: { background: PALETTE.heading, hatch: false, border: 0 } });
+export const heading = (box: Box): DrawnCell => ({
+  box,
+  view: { background: PALETTE.heading, hatch: false, border: 0 },
+});
 
 /** Headings, corner and cells of every grid, plus the legend's swatches: what the SVG layer draws. */
 function drawnCells(grids: Grid[], layout: PosterLayout, legend: LegendEntry[]): DrawnCell[] {
@@ -239,13 +282,26 @@ function drawnCells(grids: Grid[], layout: PosterLayout, legend: LegendEntry[]):
   });
   legend.forEach((e, i) => {
     const row = layout.legendRows[i];
-    if (row) out.push({ box: row.swatch, view: swatchView(e.mark) });
+    if (row) out.push({ box: row.swatch, view: sampleView(e) });
   });
   return out;
 }
 
-function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout: PosterLayout; sub: string }) {
+function GridTexts({
+  grid,
+  g,
+  layout,
+  sub,
+  nf,
+}: {
+  grid: Grid;
+  g: GridLayout;
+  layout: PosterLayout;
+  sub: string[];
+  nf: NumberFormat;
+}) {
   const { fonts } = layout;
+  const loc = (t: string) => localiseNumbers(t, nf);
   const f = layout.figurePt;
   const titles = axisTitles(grid);
   const head = f * CELL.headingRatio;
@@ -274,7 +330,11 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
     <>
       <View style={at(g.title)}>
         <Text style={{ fontSize: fonts.gridTitle, fontWeight: 700, lineHeight: 1.25 }}>{lookupTitle(grid.kind)}</Text>
-        <Text style={{ fontSize: fonts.gridSub, lineHeight: 1.25, color: PALETTE.inkSoft }}>{sub}</Text>
+        {sub.map((line, i) => (
+          <Text key={i} style={{ fontSize: fonts.gridSub, lineHeight: 1.2, fontWeight: i === 1 ? 700 : 600 }}>
+            {loc(line)}
+          </Text>
+        ))}
       </View>
       <Text
         style={{
@@ -328,26 +388,33 @@ function GridTexts({ grid, g, layout, sub }: { grid: Grid; g: GridLayout; layout
         headText(
           `c${j}`,
           { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight },
-          formatAxisMm(c),
+          loc(formatAxisMm(c)),
         ),
       )}
       {grid.rowAxis.values.map((r, i) =>
         headText(
           `r${i}`,
           { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight },
-          formatAxisMm(r),
+          loc(formatAxisMm(r)),
         ),
       )}
       {grid.cells.map((row, i) =>
         row.map((cell, j) => (
-          <CellText key={`${i}-${j}`} view={cellView(cell)} box={cellBox(g, i, j)} f={f} pressureLine={pressureLine} />
+          <CellText
+            key={`${i}-${j}`}
+            view={cellView(cell)}
+            box={cellBox(g, i, j)}
+            f={f}
+            pressureLine={pressureLine}
+            nf={nf}
+          />
         )),
       )}
     </>
   );
 }
 
-function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntry[] }) {
+function Legend({ layout, entries, nf }: { layout: PosterLayout; entries: LegendEntry[]; nf: NumberFormat }) {
   const { fonts, legend } = layout;
   return (
     <>
@@ -369,10 +436,11 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
         return (
           <View key={e.mark}>
             <CellText
-              view={swatchView(e.mark)}
+              view={sampleView(e)}
               box={row.swatch}
               f={row.swatch.height / CELL.heightEm}
               pressureLine={false}
+              nf={nf}
             />
             <Text
               style={{
@@ -385,7 +453,7 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
               }}
             >
               <Text style={{ fontWeight: 700 }}>{`${e.label}. `}</Text>
-              {e.text}
+              {localiseNumbers(e.text, nf)}
             </Text>
           </View>
         );
@@ -394,9 +462,20 @@ function Legend({ layout, entries }: { layout: PosterLayout; entries: LegendEntr
   );
 }
 
-function Qr({ layout, url, qr }: { layout: PosterLayout; url: string; qr: ReturnType<typeof qrSymbol> }) {
+function Qr({
+  layout,
+  url,
+  code,
+  qr,
+}: {
+  layout: PosterLayout;
+  url: string;
+  code: string | null;
+  qr: ReturnType<typeof qrSymbol>;
+}) {
   const n = qr.size + 2 * QR_QUIET_MODULES;
   const { fonts } = layout;
+  const printed = shortUrl(url);
   return (
     <>
       <Svg style={at(layout.qr)} width={layout.qr.width} height={layout.qr.height} viewBox={`0 0 ${n} ${n}`}>
@@ -404,11 +483,22 @@ function Qr({ layout, url, qr }: { layout: PosterLayout; url: string; qr: Return
         <Path d={qrPath(qr)} fill="#000000" />
       </Svg>
       <View style={{ ...at(layout.qrText), alignItems: "center" }}>
-        <Text style={{ fontSize: fonts.small * 1.1, fontWeight: 700, textAlign: "center" }}>{shortUrl(url)}</Text>
+        {code ? (
+          <Text style={{ fontSize: fonts.edition * 1.5, fontWeight: 700, textAlign: "center", ...TNUM }}>{code}</Text>
+        ) : null}
+        <Text
+          style={{
+            fontSize: urlFontPt(printed.length, fonts, layout.qrText.width),
+            fontWeight: 600,
+            textAlign: "center",
+          }}
+        >
+          {printed}
+        </Text>
         <Text
           style={{ fontSize: fonts.small, textAlign: "center", color: PALETTE.inkSoft, marginTop: fonts.small * 0.3 }}
         >
-          Scan or type to check this poster is still the current edition
+          Scan the code, or type the address, to check this is the current edition
         </Text>
       </View>
     </>
@@ -417,8 +507,12 @@ function Qr({ layout, url, qr }: { layout: PosterLayout; url: string; qr: Return
 
 export function PosterDocument({ input }: { input: PosterInput }) {
   const { snapshot, edition, logo } = input;
-  const { grids, layout, legibility, legend, qr } = posterModel(input);
+  const { grids, layout, legend, qr } = posterModel(input);
   const { fonts, page, scale } = layout;
+  const tz = input.lab?.timeZone ?? "UTC";
+  const nf = input.lab?.numberFormat ?? "point";
+  const loc = (t: string) => localiseNumbers(t, nf);
+  const review = edition.status === "approved" ? reviewText(edition.reviewBy, tz) : null;
   const banner = statusBanner(edition.status);
   const created = edition.approvedAt ?? POSTER_EPOCH;
   const diagonal = Math.hypot(page.width, page.height);
@@ -431,7 +525,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
       title={snapshot.title}
       author={snapshot.lab.name}
       subject={`Edition ${edition.number}`}
-      keywords={`bifurcation, balloon sizing, ${lawName(snapshot.law)}, edition ${edition.number}, ${shortFingerprint(edition.fingerprint)}`}
+      keywords={`bifurcation, balloon sizing, ${lawName(snapshot.law)}, edition ${edition.number}, ${edition.shortCode ?? shortFingerprint(edition.fingerprint)}`}
       creator="Forkwall"
       producer="Forkwall"
       language="en"
@@ -454,11 +548,17 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
         </View>
         <View style={at(layout.law)}>
-          <Text
-            style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right" }}
-          >{`Law: ${lawName(snapshot.law)}`}</Text>
-          <Text style={{ fontSize: fonts.law, fontWeight: 600, textAlign: "right", ...TNUM }}>
-            {lawFormula(snapshot.law)}
+          <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>
+            {`Law: ${loc(lawName(snapshot.law))}: `}
+            {formulaRuns(loc(lawFormula(snapshot.law))).map((r, i) =>
+              r.sup ? (
+                <Text key={i} style={{ verticalAlign: "super", fontSize: fonts.law * 0.62 }}>
+                  {r.text}
+                </Text>
+              ) : (
+                r.text
+              ),
+            )}
           </Text>
           <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
             {LAWS[snapshot.law.law].source}
@@ -484,10 +584,12 @@ export function PosterDocument({ input }: { input: PosterInput }) {
             grid={grid}
             g={layout.grids[i] as GridLayout}
             layout={layout}
-            sub={gridSubtitle(
+            sub={gridSubtitleParts(
               { kind: grid.kind, rounding: grid.rounding, family: snapshot.lookups[i]?.family ?? null },
               snapshot.stent?.name ?? null,
+              true,
             )}
+            nf={nf}
           />
         ))}
 
@@ -506,7 +608,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           </Text>
         </View>
 
-        <Legend layout={layout} entries={legend} />
+        <Legend layout={layout} entries={legend} nf={nf} />
 
         <View style={at(layout.edition)}>
           <Text style={{ fontSize: fonts.edition * 1.6, fontWeight: 700 }}>{`Edition ${edition.number}`}</Text>
@@ -517,14 +619,18 @@ export function PosterDocument({ input }: { input: PosterInput }) {
               marginTop: fonts.edition * 0.2,
             }}
           >
-            {approvalText(edition)}
+            {approvalText(edition, tz)}
           </Text>
-          <Text
-            style={{ fontSize: fonts.edition, ...TNUM }}
-          >{`Fingerprint ${shortFingerprint(edition.fingerprint)}`}</Text>
+          {review ? <Text style={{ fontSize: fonts.edition, fontWeight: 700 }}>{review}</Text> : null}
           <Text style={{ fontSize: fonts.small, color: PALETTE.inkSoft, marginTop: fonts.small * 0.4 }}>
-            {`${PAPERS[snapshot.paper].label} ${snapshot.orientation}. ${legibilityLine(legibility, snapshot.readingDistanceM)}.`}
+            {`Dates in ${tz} time. Printed on ${PAPERS[snapshot.paper].label} ${snapshot.orientation}, to be read from ${loc(snapshot.readingDistanceM.toFixed(1))} m.`}
           </Text>
+          {(snapshot.ruleExceptions ?? []).map((e, i) => (
+            <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
+              <Text style={{ fontWeight: 700 }}>{`Exception to the lab rule “${e.rule}”: `}</Text>
+              {e.reason}
+            </Text>
+          ))}
           {snapshot.notes ? (
             <Text style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.4 }}>
               <Text style={{ fontWeight: 700 }}>Notes: </Text>
@@ -533,7 +639,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           ) : null}
         </View>
 
-        <Qr layout={layout} url={edition.checkUrl} qr={qr} />
+        <Qr layout={layout} url={edition.codeUrl ?? edition.checkUrl} code={edition.shortCode ?? null} qr={qr} />
 
         {edition.status === "draft" ? (
           <View

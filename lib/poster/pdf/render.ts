@@ -1,5 +1,6 @@
 import { createElement, type ReactElement } from "react";
 import { renderToBuffer, type DocumentProps } from "@react-pdf/renderer";
+import { CardDocument } from "./card";
 import { PosterDocument, registerPosterFonts, type PosterInput } from "./document";
 
 /**
@@ -10,5 +11,12 @@ import { PosterDocument, registerPosterFonts, type PosterInput } from "./documen
 export async function renderPosterPdf(input: PosterInput): Promise<Buffer> {
   registerPosterFonts();
   const doc = createElement(PosterDocument, { input }) as unknown as ReactElement<DocumentProps>;
+  return renderToBuffer(doc);
+}
+
+/** The two-sided badge card (ISO/IEC 7810 ID-1) of an edition; deterministic like the poster. */
+export async function renderCardPdf(input: PosterInput): Promise<Buffer> {
+  registerPosterFonts();
+  const doc = createElement(CardDocument, { input }) as unknown as ReactElement<DocumentProps>;
   return renderToBuffer(doc);
 }

@@ -38,7 +38,7 @@ function readGrid(text: string, rows: number, cols: number) {
       let exact: string | null = null;
       let corner = "";
       if (/^\(\d+\.\d\d\)$/.test(tokens[i] ?? "")) exact = tokens[i++] as string;
-      if (/^[⚠↑↓◇]+$/u.test(tokens[i] ?? "")) corner = tokens[i++] as string;
+      if (/^[■↑↓◇]+$/u.test(tokens[i] ?? "")) corner = tokens[i++] as string;
       const primary = tokens[i++] as string;
       let pressure: string | null = null;
       if (tokens[i] === "@") {
@@ -59,7 +59,7 @@ function readGrid(text: string, rows: number, cols: number) {
 function expectedCells(snapshot: Snapshot, index = 0): ParsedCell[][] {
   const lookup = gridJson(snapshot).lookups[index]!;
   const CORNER: Partial<Record<GridMark, string>> = {
-    "stent-limit": "⚠",
+    "stent-limit": "■",
     oversize: "↑",
     undersize: "↓",
     "outside-fit": "◇",
@@ -105,50 +105,66 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     expect(info.CreationDate).toBe("D:20260302093000Z");
   });
 
-  it("prints lab, title, law with formula and source, edition, approval, fingerprint, notes and the cautions", () => {
+  it("prints lab, title, law with formula and source, edition, approval, review date, short code, notes and the cautions", () => {
     for (const s of [
       "Illustrative Cath Lab (demo)",
       "POT balloon chart (illustrative)",
-      "Law: Finet (ratio 0.678)",
-      "Dp = 0.678 × (Dmb + Dsb)",
+      "Law: Finet (ratio 0.678): Dp = 0.678 × (Dmb + Dsb)",
       "EuroIntervention (2008)",
       "Edition 3",
-      "Approved 2 Mar 2026 by Dr A. Example (illustrative)",
-      `Fingerprint ${shortFingerprint(input.edition.fingerprint)}`,
+      "Approved 2026-03-02 by Dr A. Example (illustrative)",
+      "Review by 2027-03-02",
+      "Dates in UTC time",
+      "K7QM-2XHD",
       "Measure the distal main branch",
       `CAUTION. ${CAUTION_TEXT}`,
       "POT balloon (parent) from main branch × side branch",
       "Side branch, mm →",
       "Main branch, mm",
       "Illustrative NC balloon: NC, nominal 12 atm, RBP 20 atm",
-      "Balloon rounded up to the next stocked size (common practice)",
+      "Balloon rounded up to the next stocked size",
       "Stent limit: Illustrative DES",
-      "forkwall.example/c/7Qk2xB9m",
+      "forkwall.example/c/K7QM-2XHD",
     ]) {
       expect(flat, s).toContain(s);
     }
+    // Plain words on the wall: no fingerprint, no arc-minutes, no trade hedging, no code-style exponents.
+    expect(flat).not.toContain(shortFingerprint(input.edition.fingerprint));
+    expect(flat).not.toMatch(/Fingerprint|′|arc|common practice|\^/);
+    // The QR code's long check address is not printed; the short one is.
+    expect(flat).not.toContain("7Qk2xB9mPq4tW8zR3nY6cH1d");
     expect(flat).not.toContain("DRAFT");
     expect(flat).not.toMatch(/from memory/i);
     // The fixture lab is not flagged demo: no "invented and illustrative" clause.
     expect(flat).not.toContain("invented and illustrative");
   });
 
-  it("explains every mark in the legend, in words", () => {
+  it("explains every mark the chart uses in the legend, in words, and no other", () => {
     for (const s of [
       "How to read a cell",
       "Stocked balloon.",
       "— No size.",
       "▲▼ No stocked size.",
-      "⚠ Stent limit.",
+      "■ Stent limit.",
       "◇ Outside published fit.",
       "↑ Above the rounding cap.",
-      "↓ Below the rounding cap.",
       "grey hatched",
       "heavy border",
       "Dsb/Dmb ≥ 0.75",
     ]) {
       expect(flat, s).toContain(s);
     }
+    // No cell is below the cap, so the legend does not explain it.
+    expect(flat).not.toContain("Below the rounding cap");
+    expect(flat).not.toContain("this chart has none");
+  });
+
+  it("samples each legend line from a real cell, so the sample follows the chart's rounding rule", () => {
+    const legend = flat.slice(flat.indexOf("How to read a cell"));
+    const sample = /^How to read a cell \((\d\.\d\d)\) (\d\.\d+) Stocked balloon/.exec(legend);
+    expect(sample).not.toBeNull();
+    // Rounded up: the printed balloon is never below the exact diameter.
+    expect(Number(sample![2])).toBeGreaterThanOrEqual(Number(sample![1]));
   });
 
   it("prints every cell as the grid model decides it", () => {
@@ -161,7 +177,7 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     const all = read.cells.flat();
     expect(all.some((c) => c.primary === "—")).toBe(true);
     expect(all.some((c) => c.primary === "▲")).toBe(true);
-    expect(all.some((c) => c.corner.includes("⚠"))).toBe(true);
+    expect(all.some((c) => c.corner.includes("■"))).toBe(true);
     expect(all.some((c) => c.corner.includes("◇"))).toBe(true);
   });
 
@@ -173,8 +189,8 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     const dp = 0.678 * (3 + 2.5); // 3.729
     expect(at(3, 2.5)).toMatchObject({ exact: `(${dp.toFixed(2)})`, primary: "3.75" });
     const dp2 = 0.678 * (3.5 + 3.25); // 4.5765; 4.75 is out of stock in the fixture, so 5.0
-    // 5.0 is 0.42 mm above 4.58 (past the 0.25 mm cap above, common practice): ↑ beside ⚠.
-    expect(at(3.5, 3.25)).toMatchObject({ exact: "(4.58)", primary: "5.0", corner: "⚠↑" });
+    // 5.0 is 0.42 mm above 4.58 (past the 0.25 mm cap above, common practice): ↑ beside ■.
+    expect(at(3.5, 3.25)).toMatchObject({ exact: "(4.58)", primary: "5.0", corner: "■↑" });
     expect(pickBalloon(dp2, snapshot.lookups[0]!.family!, "up")).toMatchObject({ ok: true, diameterMm: 5 });
     // Finet gives no parent above the main branch when Dsb < 0.4749 Dmb... and for Dsb > Dmb there is no bifurcation.
     expect(at(2.5, 2.75)?.primary).toBe("—");
@@ -194,10 +210,14 @@ describe("the kissing poster read back (square law, Tabloid landscape, draft)", 
   it("prints the square law and every cell as the model decides, with the draft marks", () => {
     const flat = squash(text);
     expect(flat).toContain("Law: Square (area-preserving)");
-    expect(flat).toContain("Dp² = Dmb² + Dsb²");
+    // Exponents are typeset raised (real superscripts), so the text layer reads plain digits.
+    expect(flat).toMatch(/Dp ?2 = Dmb ?2 \+ Dsb ?2/);
+    expect(flat).not.toContain("^");
     expect(flat).toContain("DRAFT — not approved");
     expect(flat).toContain("Side-branch balloon from parent × main branch");
-    expect(flat).toContain("Balloon rounded down to the next smaller stocked size (common practice)");
+    expect(flat).toContain("Balloon rounded down to the next smaller stocked size");
+    expect(flat).not.toContain("common practice");
+    expect(flat).toContain("Stocked balloon.");
     const read = readGrid(text, grid.rowAxis.values.length, grid.colAxis.values.length);
     expect(read.cells).toEqual(expectedCells(snapshot));
   });
@@ -232,4 +252,31 @@ describe("the lab's logo", () => {
     expect(withLogo).toMatch(/\/Subtype \/Image/);
     expect(without).not.toMatch(/\/Subtype \/Image/);
   });
+});
+
+describe("the lab's print settings and rule exceptions", () => {
+  it(
+    "prints decimal commas, dates in the lab's time zone and the recorded exceptions",
+    { timeout: 60_000 },
+    async () => {
+      const snapshot = {
+        ...snapshotOf(potDefinition),
+        ruleExceptions: [{ rule: "legibility", reason: "Hangs beside the table, read from 1 m (illustrative)" }],
+      };
+      const input = {
+        ...posterInput(snapshot, { approvedAt: new Date(Date.UTC(2026, 2, 2, 20, 0)) }),
+        lab: { timeZone: "Australia/Sydney", numberFormat: "comma" as const },
+      };
+      const flat = squash((await pdfText(await renderPosterPdf(input))).text);
+      // 20:00 UTC on 2 March is 07:00 on 3 March in Sydney (UTC+11 in March).
+      expect(flat).toContain("Approved 2026-03-03 by Dr A. Example (illustrative)");
+      expect(flat).toContain("Dates in Australia/Sydney time");
+      expect(flat).toContain("Dp = 0,678 × (Dmb + Dsb)");
+      expect(flat).toMatch(/\(3,05\) 3,25/);
+      expect(flat).not.toMatch(/\(3\.05\)/);
+      expect(flat).toContain(
+        "Exception to the lab rule “legibility”: Hangs beside the table, read from 1 m (illustrative)",
+      );
+    },
+  );
 });

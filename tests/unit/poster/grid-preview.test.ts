@@ -49,7 +49,7 @@ describe("GridPreview (HTML)", () => {
     expect(text).toContain(`box-shadow:inset 0 0 0 3px ${PALETTE.ink}`);
     expect(text).toContain(`data-marks="noStock hazard"`);
     expect(text).toContain(">▲<");
-    expect(text).toContain("⚠");
+    expect(text).toContain("■");
     expect(text).toContain("◇");
   });
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { cellBox, layoutPoster, type Box, type LayoutInput } from "@/lib/poster/layout";
 import { mmToPt, ORIENTATIONS, PAPER_IDS } from "@/lib/poster/paper";
 
-const texts = { title: 60, source: 160, notes: 600, caution: 250, legend: [110, 140, 150, 180, 130], url: 40 };
+const texts = { title: 60, law: 40, source: 160, notes: 600, caution: 250, legend: [110, 140, 150, 180, 130], url: 40 };
 const input = (over: Partial<LayoutInput> & Pick<LayoutInput, "grids">): LayoutInput => ({
   paper: "A2",
   orientation: "portrait",
@@ -16,7 +16,7 @@ const grid = (rows: number, cols: number, pressureLine = false) => ({
   cols,
   pressureLine,
   titleChars: 52,
-  subtitleChars: 150,
+  subtitleLines: [60, 40, 50],
 });
 
 const EPS = 1e-6;

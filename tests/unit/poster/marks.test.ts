@@ -57,13 +57,13 @@ describe("cellView", () => {
     expect(tooSmall.marks).toEqual(["noSize"]);
   });
 
-  it("marks a size above the stocked range with ▲ on blue, and the stent hazard with ⚠ and a heavy border", () => {
+  it("marks a size above the stocked range with ▲ on blue, and the stent hazard with ■ and a heavy border", () => {
     const v = cellView(cellAt(grid.cells, 3.5, 3)); // 0.678 x 6.5 = 4.407: above 3.5, and MB 3.5 has no stent
     expect(v.primary).toBe("▲");
     expect(v.marks).toEqual(["noStock", "hazard"]);
     expect(v.background).toBe(CELL_BACKGROUNDS.hazard);
     expect(v.border).toBeGreaterThan(0);
-    expect(cornerSymbols(v)).toBe("⚠");
+    expect(cornerSymbols(v)).toBe("■");
     expect(v.description).toContain("No stocked size");
     expect(v.description).toContain("Stent limit");
   });
@@ -116,7 +116,7 @@ describe("labels", () => {
         approvedAt: new Date(Date.UTC(2026, 0, 5, 23, 59)),
         approvedByName: "B. Test",
       }),
-    ).toBe("Approved 5 Jan 2026 by B. Test");
+    ).toBe("Approved 2026-01-05 by B. Test");
     expect(approvalText({ status: "draft", approvedAt: null, approvedByName: null })).toBe("DRAFT — not approved");
     expect(statusBanner("approved")).toBeNull();
     expect(statusBanner("withdrawn")).toContain("WITHDRAWN");

@@ -84,6 +84,8 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           create: can(member.role, "edition:create") && !chart.archivedAt,
           approve: await labCan(member.lab.id, member.role, "edition:approve"),
           withdraw: can(member.role, "edition:withdraw"),
+          // The archive copy is a managers-only download (lib/ops/renders.ts refuses anyone else).
+          archive: member.role === "manager",
         }}
         editions={eds.map((e) => ({
           id: e.id,

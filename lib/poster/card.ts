@@ -1,0 +1,145 @@
+// The badge card: ISO/IEC 7810 ID-1 (85.60 x 53.98 mm), one lookup per side, read in the hand.
+// Pure geometry in PDF points; lib/poster/pdf/card.tsx draws it. The figures are at least the
+// 20′ guide at CARD_READING_DISTANCE_M; a lookup wider or taller than fits is narrowed to a
+// range of rows and columns (the chart's card choice, or the middle of its axes).
+import type { Snapshot } from "@/lib/charts/snapshot";
+import type { Grid } from "@/lib/sizing";
+import { CELL, fontPtForArcmin, type Box } from "./layout";
+import { mmToPt } from "./paper";
+
+export const CARD_WIDTH_MM = 85.6;
+export const CARD_HEIGHT_MM = 53.98;
+export const CARD_READING_DISTANCE_M = 0.4;
+export const CARD_MIN_ARCMIN = 20;
+
+export const CARD_PAGE = { width: mmToPt(CARD_WIDTH_MM), height: mmToPt(CARD_HEIGHT_MM) };
+/** Smallest figure (pt) legible at the card's reading distance. */
+export const CARD_MIN_FIGURE_PT = fontPtForArcmin(CARD_READING_DISTANCE_M, CARD_MIN_ARCMIN);
+
+/** A side of the card: which lookup, and optionally which rows and columns (axis values, inclusive). */
+export type CardSide = { lookup: number; rows?: [number, number]; cols?: [number, number] };
+
+export type CardLayout = {
+  page: { width: number; height: number };
+  margin: number;
+  /** Lookup title and the code, above the grid (below the space kept for a status band). */
+  head: Box;
+  grid: {
+    cellsX: number;
+    cellsY: number;
+    cellWidth: number;
+    cellHeight: number;
+    rowHeadWidth: number;
+    colHeadHeight: number;
+  };
+  figurePt: number;
+  qr: Box;
+  code: Box;
+  key: Box;
+  caution: Box;
+};
+
+const MARGIN = mmToPt(2.5);
+/** Kept clear at the top for the NOT CURRENT band (lib/poster/pdf/variants.ts draws 12 pt). */
+const BAND = 12.5;
+const QR_SIDE = mmToPt(17);
+
+/** Which lookup and range each side prints: the chart's choice, else lookup 1 then 2 (or 1 twice). */
+export function cardSides(snapshot: Snapshot): CardSide[] {
+  const chosen = (snapshot as Snapshot & { card?: { sides?: CardSide[] } }).card?.sides;
+  if (chosen && chosen.length > 0) return [chosen[0] as CardSide, (chosen[1] ?? chosen[0]) as CardSide];
+  const n = snapshot.lookups.length;
+  return [{ lookup: 0 }, { lookup: n > 1 ? 1 : 0 }];
+}
+
+function box(x: number, y: number, width: number, height: number): Box {
+  return { x, y, width, height };
+}
+
+/** Rows and columns that fit at the minimum figure size. */
+export function cardCapacity(pressureLine: boolean): { rows: number; cols: number } {
+  const l = cardFrame();
+  const f = CARD_MIN_FIGURE_PT;
+  const cols = Math.floor((l.gridArea.width - f * CELL.rowHeadWidthEm) / (f * CELL.widthEm));
+  const rows = Math.floor(
+    (l.gridArea.height - f * CELL.colHeadHeightEm) / (f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))),
+  );
+  return { rows, cols };
+}
+
+function cardFrame() {
+  const { width: W, height: H } = CARD_PAGE;
+  const headH = 9;
+  const cautionH = 15;
+  const keyH = 6;
+  const top = BAND + 1;
+  const head = box(MARGIN, top, W - 2 * MARGIN, headH);
+  const caution = box(MARGIN, H - MARGIN - cautionH, W - 2 * MARGIN, cautionH);
+  const key = box(MARGIN, caution.y - keyH, W - 2 * MARGIN, keyH);
+  const gridTop = head.y + headH + 1;
+  const qrCol = QR_SIDE + 2;
+  const gridArea = box(MARGIN, gridTop, W - 2 * MARGIN - qrCol, key.y - gridTop - 1);
+  const qr = box(W - MARGIN - QR_SIDE, gridTop, QR_SIDE, QR_SIDE);
+  const code = box(qr.x - 2, qr.y + QR_SIDE, QR_SIDE + 4, 16);
+  return { head, caution, key, gridArea, qr, code };
+}
+
+/** Narrows an axis to at most `max` values: the chosen range, else the middle of the axis. */
+export function narrowAxis(values: readonly number[], max: number, range?: [number, number]): number[] {
+  const chosen = range ? values.filter((v) => v >= range[0] - 1e-9 && v <= range[1] + 1e-9) : [...values];
+  if (chosen.length <= max) return chosen;
+  const start = Math.floor((chosen.length - max) / 2);
+  return chosen.slice(start, start + max);
+}
+
+/** The grid cut down to the side's rows and columns. */
+export function cardGrid(grid: Grid, side: CardSide): Grid {
+  const cap = cardCapacity(grid.rounding === "reach");
+  const rows = narrowAxis(grid.rowAxis.values, cap.rows, side.rows);
+  const cols = narrowAxis(grid.colAxis.values, cap.cols, side.cols);
+  const ri = rows.map((v) => grid.rowAxis.values.indexOf(v));
+  const ci = cols.map((v) => grid.colAxis.values.indexOf(v));
+  return {
+    ...grid,
+    rowAxis: { ...grid.rowAxis, values: rows },
+    colAxis: { ...grid.colAxis, values: cols },
+    cells: ri.map((r) => ci.map((c) => grid.cells[r]?.[c] as Grid["cells"][number][number])),
+  };
+}
+
+export function layoutCard(grid: Grid): CardLayout {
+  const frame = cardFrame();
+  const rows = grid.rowAxis.values.length;
+  const cols = grid.colAxis.values.length;
+  const hEm = CELL.heightEm + (grid.rounding === "reach" ? CELL.pressureLineEm : 0);
+  const a = frame.gridArea;
+  const f = Math.min(
+    a.width / (CELL.rowHeadWidthEm + cols * CELL.widthEm),
+    a.height / (CELL.colHeadHeightEm + rows * hEm),
+    CARD_MIN_FIGURE_PT * 1.6,
+  );
+  const rowHeadWidth = f * CELL.rowHeadWidthEm;
+  const colHeadHeight = f * CELL.colHeadHeightEm;
+  const w = rowHeadWidth + cols * f * CELL.widthEm;
+  const h = colHeadHeight + rows * f * hEm;
+  const x = a.x + (a.width - w) / 2;
+  const y = a.y + (a.height - h) / 2;
+  return {
+    page: CARD_PAGE,
+    margin: MARGIN,
+    head: frame.head,
+    grid: {
+      cellsX: x + rowHeadWidth,
+      cellsY: y + colHeadHeight,
+      cellWidth: f * CELL.widthEm,
+      cellHeight: f * hEm,
+      rowHeadWidth,
+      colHeadHeight,
+    },
+    figurePt: f,
+    qr: frame.qr,
+    code: frame.code,
+    key: frame.key,
+    caution: frame.caution,
+  };
+}

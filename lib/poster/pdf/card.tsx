@@ -1,0 +1,226 @@
+import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
+import { snapshotGrids } from "@/lib/charts/snapshot";
+import { cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
+import { type DrawnCell } from "@/lib/poster/draw";
+import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { cellView, formatAxisMm, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
+import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
+import { lawName, type Grid } from "@/lib/sizing";
+import { at, CellGraphicsSvg, CellText, heading, POSTER_EPOCH, POSTER_FONT, TNUM, type PosterInput } from "./document";
+
+const KEY_WORDS: Record<MarkId, string> = {
+  noSize: "no size",
+  noStock: "no stocked size",
+  hazard: "stent limit",
+  oversize: "above cap",
+  undersize: "below cap",
+  outsideFit: "outside fit",
+};
+
+const cellAt = (l: CardLayout, i: number, j: number) => ({
+  x: l.grid.cellsX + j * l.grid.cellWidth,
+  y: l.grid.cellsY + i * l.grid.cellHeight,
+  width: l.grid.cellWidth,
+  height: l.grid.cellHeight,
+});
+
+function cardCells(grid: Grid, l: CardLayout): DrawnCell[] {
+  const g = { ...l.grid };
+  const out: DrawnCell[] = [
+    heading({
+      x: g.cellsX - g.rowHeadWidth,
+      y: g.cellsY - g.colHeadHeight,
+      width: g.rowHeadWidth,
+      height: g.colHeadHeight,
+    }),
+  ];
+  grid.colAxis.values.forEach((_, j) =>
+    out.push(
+      heading({
+        x: g.cellsX + j * g.cellWidth,
+        y: g.cellsY - g.colHeadHeight,
+        width: g.cellWidth,
+        height: g.colHeadHeight,
+      }),
+    ),
+  );
+  grid.rowAxis.values.forEach((_, i) =>
+    out.push(
+      heading({
+        x: g.cellsX - g.rowHeadWidth,
+        y: g.cellsY + i * g.cellHeight,
+        width: g.rowHeadWidth,
+        height: g.cellHeight,
+      }),
+    ),
+  );
+  grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellAt(l, i, j), view: cellView(cell) })));
+  return out;
+}
+
+function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayout }) {
+  const { snapshot, edition } = input;
+  const nf = input.lab?.numberFormat ?? "point";
+  const loc = (t: string) => localiseNumbers(t, nf);
+  const f = l.figurePt;
+  const g = l.grid;
+  const head = f * 0.56;
+  const qr = qrSymbol(edition.checkUrl);
+  const n = qr.size + 2 * QR_QUIET_MODULES;
+  const used = MARK_ORDER.filter((m) => grid.cells.some((row) => row.some((c) => cellView(c).marks.includes(m))));
+  const banner = statusBanner(edition.status);
+  const headText = (key: string, x: number, y: number, w: number, h: number, text: string) => (
+    <Text
+      key={key}
+      style={{
+        position: "absolute",
+        left: x,
+        top: y + (h - head) / 2,
+        width: w,
+        fontSize: head,
+        lineHeight: 1,
+        fontWeight: 700,
+        textAlign: "center",
+        ...TNUM,
+      }}
+    >
+      {loc(text)}
+    </Text>
+  );
+  return (
+    <Page
+      size={[l.page.width, l.page.height]}
+      style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}
+    >
+      {banner ? (
+        <View
+          style={{
+            position: "absolute",
+            left: 0,
+            top: 0,
+            width: l.page.width,
+            height: 12,
+            backgroundColor: PALETTE.banner,
+            justifyContent: "center",
+          }}
+        >
+          <Text style={{ fontSize: 5.5, fontWeight: 700, color: PALETTE.bannerText, textAlign: "center" }}>
+            {banner}
+          </Text>
+        </View>
+      ) : null}
+      <View style={at(l.head)}>
+        <Text style={{ fontSize: 6, fontWeight: 700, lineHeight: 1.1 }}>{lookupTitle(grid.kind)}</Text>
+        <Text style={{ fontSize: 4.6, lineHeight: 1.1 }}>
+          {loc(`${lawName(snapshot.law)} · ${snapshot.title} · edition ${edition.number}`)}
+        </Text>
+      </View>
+      <CellGraphicsSvg cells={cardCells(grid, l)} rule={0.4} hatchWidth={0.4} />
+      <Text
+        style={{
+          position: "absolute",
+          left: g.cellsX - g.rowHeadWidth,
+          width: g.rowHeadWidth - 1,
+          top: g.cellsY - g.colHeadHeight + 0.5,
+          fontSize: head * 0.45,
+          fontWeight: 600,
+          textAlign: "right",
+        }}
+      >{`${VESSEL_SYMBOLS[grid.colAxis.vessel]} →`}</Text>
+      <Text
+        style={{
+          position: "absolute",
+          left: g.cellsX - g.rowHeadWidth + 1,
+          top: g.cellsY - head * 0.45 * 1.2 - 0.5,
+          fontSize: head * 0.45,
+          fontWeight: 600,
+        }}
+      >{`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}</Text>
+      {grid.colAxis.values.map((c, j) =>
+        headText(
+          `c${j}`,
+          g.cellsX + j * g.cellWidth,
+          g.cellsY - g.colHeadHeight,
+          g.cellWidth,
+          g.colHeadHeight,
+          formatAxisMm(c),
+        ),
+      )}
+      {grid.rowAxis.values.map((r, i) =>
+        headText(
+          `r${i}`,
+          g.cellsX - g.rowHeadWidth,
+          g.cellsY + i * g.cellHeight,
+          g.rowHeadWidth,
+          g.cellHeight,
+          formatAxisMm(r),
+        ),
+      )}
+      {grid.cells.map((row, i) =>
+        row.map((cell, j) => (
+          <CellText
+            key={`${i}-${j}`}
+            view={cellView(cell)}
+            box={cellAt(l, i, j)}
+            f={f}
+            pressureLine={grid.rounding === "reach"}
+            nf={nf}
+          />
+        )),
+      )}
+      <Svg style={at(l.qr)} width={l.qr.width} height={l.qr.height} viewBox={`0 0 ${n} ${n}`}>
+        <Rect x={0} y={0} width={n} height={n} fill="#ffffff" />
+        <Path d={qrPath(qr)} fill="#000000" />
+      </Svg>
+      <View style={{ ...at(l.code), alignItems: "center" }}>
+        <Text style={{ fontSize: 6.5, fontWeight: 700, textAlign: "center", ...TNUM }}>{edition.shortCode ?? ""}</Text>
+        <Text style={{ fontSize: 3.6, textAlign: "center" }}>scan or type to check</Text>
+      </View>
+      <Text style={{ ...at(l.key), fontSize: 4.4, lineHeight: 1.1 }}>
+        {loc(
+          ["Large: balloon, mm; small: exact", ...used.map((m) => `${MARKS[m].symbol} ${KEY_WORDS[m]}`)].join(" · "),
+        )}
+      </Text>
+      <View
+        style={{
+          ...at(l.caution),
+          backgroundColor: PALETTE.caution,
+          borderWidth: 0.5,
+          borderColor: PALETTE.cautionBorder,
+          padding: 1.2,
+        }}
+      >
+        <Text style={{ fontSize: 3.9, lineHeight: 1.15 }}>
+          <Text style={{ fontWeight: 700 }}>CAUTION. </Text>
+          {snapshot.caution}
+        </Text>
+      </View>
+    </Page>
+  );
+}
+
+/** Two pages, front and back, each one lookup narrowed to what is legible at arm's length. */
+export function CardDocument({ input }: { input: PosterInput }) {
+  const { snapshot, edition } = input;
+  const grids = snapshotGrids(snapshot);
+  const created = edition.approvedAt ?? POSTER_EPOCH;
+  return (
+    <Document
+      title={`${snapshot.title} (badge card)`}
+      author={snapshot.lab.name}
+      subject={`Edition ${edition.number}`}
+      keywords={`badge card, edition ${edition.number}, ${edition.shortCode ?? ""}`}
+      creator="Forkwall"
+      producer="Forkwall"
+      language="en"
+      creationDate={created}
+      modificationDate={created}
+    >
+      {cardSides(snapshot).map((side, i) => {
+        const full = grids[side.lookup] ?? (grids[0] as Grid);
+        const grid = cardGrid(full, side);
+        return <Side key={i} input={input} grid={grid} l={layoutCard(grid)} />;
+      })}
+    </Document>
+  );
+}

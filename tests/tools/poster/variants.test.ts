@@ -1,0 +1,232 @@
+// Every printed variant read back with poppler and zbarimg: the status bands, the archive copy,
+// tiled office sheets and the badge card.
+import { execFileSync } from "node:child_process";
+import { writeFileSync } from "node:fs";
+import path from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
+import { renderCardPdf, renderPosterPdf } from "@/lib/poster/pdf/render";
+import { ARCHIVE_STAMP, NOT_CURRENT_BAND, stampBands, tilePoster } from "@/lib/poster/pdf/variants";
+import { CARD_HEIGHT_MM, CARD_MIN_FIGURE_PT, cardCapacity } from "@/lib/poster/card";
+import { tilePlan, TILE_OVERLAP_MM, TILE_SHEETS, type TileSheet } from "@/lib/poster/tiles";
+import { withTempDir, zbarDecode } from "@/tests/support/pdf-tools";
+import { posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
+
+const MM = 72 / 25.4;
+
+/** pdftotext per page (layout order), as an operator's copy-paste would read each sheet. */
+function pageTexts(pdf: Buffer): string[] {
+  return withTempDir((dir) => {
+    const file = path.join(dir, "v.pdf");
+    writeFileSync(file, pdf);
+    const out = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
+    return out.split("\f").slice(0, -1);
+  });
+}
+
+/** Every page's size from pdfinfo -f 1 -l N, in points. */
+function pageSizes(pdf: Buffer): { w: number; h: number }[] {
+  return withTempDir((dir) => {
+    const file = path.join(dir, "v.pdf");
+    writeFileSync(file, pdf);
+    const out = execFileSync("pdfinfo", ["-f", "1", "-l", "9999", file], { encoding: "utf8" });
+    return [...out.matchAll(/^Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts/gm)].map((m) => ({
+      w: Number(m[1]),
+      h: Number(m[2]),
+    }));
+  });
+}
+
+function rasterPage(pdf: Buffer, page: number, dpi: number): Buffer {
+  return withTempDir((dir) => {
+    const file = path.join(dir, "v.pdf");
+    writeFileSync(file, pdf);
+    execFileSync("pdftoppm", [
+      "-r",
+      String(dpi),
+      "-f",
+      String(page),
+      "-l",
+      String(page),
+      "-png",
+      "-singlefile",
+      file,
+      path.join(dir, "p"),
+    ]);
+    return execFileSync("cat", [path.join(dir, "p.png")]);
+  });
+}
+
+const snapshot = snapshotOf(potDefinition);
+const input = posterInput(snapshot);
+
+describe("status bands and the archive copy", () => {
+  let poster: Buffer;
+  beforeAll(async () => {
+    poster = await renderPosterPdf(input);
+  }, 60_000);
+
+  it("prints NOT CURRENT - DO NOT POST with the date at the top and bottom of every page", async () => {
+    const banded = await stampBands(poster, {
+      kind: "not-current",
+      date: "2026-12-02",
+      reason: "a newer edition replaces this one",
+    });
+    const pages = pageTexts(banded);
+    expect(pages).toHaveLength(1);
+    for (const p of pages) {
+      expect(p).toContain(`${NOT_CURRENT_BAND} 2026-12-02`);
+      expect(p).toContain(`${NOT_CURRENT_BAND} 2026-12-02: a newer edition replaces this one`);
+    }
+    // The poster beneath is untouched: its figures still read back.
+    expect(pages[0]).toContain("K7QM-2XHD");
+    expect(pageTexts(poster)[0]).not.toContain(NOT_CURRENT_BAND);
+  });
+
+  it("stamps the archive copy as such, and never as not current", async () => {
+    const archived = await stampBands(poster, { kind: "archive", date: "2026-12-02" });
+    const [p] = pageTexts(archived);
+    expect(p).toContain(`${ARCHIVE_STAMP} 2026-12-02`);
+    expect(p).toContain("not for posting");
+    expect(p).not.toContain(NOT_CURRENT_BAND);
+  });
+
+  it("is deterministic: the same band gives the same bytes", async () => {
+    const band = { kind: "archive", date: "2026-12-02" } as const;
+    expect(Buffer.compare(await stampBands(poster, band), await stampBands(poster, band))).toBe(0);
+  });
+});
+
+describe("tiled printing on office sheets", () => {
+  let poster: Buffer;
+  beforeAll(async () => {
+    poster = await renderPosterPdf(input);
+  }, 60_000);
+
+  // Portrait sizes typed from the standards: ISO 216 in mm, ANSI in inches.
+  const SHEETS: Record<TileSheet, [number, number]> = {
+    A4: [595.28, 841.89],
+    A3: [841.89, 1190.55],
+    LETTER: [612, 792],
+    TABLOID: [792, 1224],
+  };
+
+  for (const sheet of TILE_SHEETS) {
+    it(
+      `${sheet}: exact sheet sizes, labels that match the assembly map, the code on every sheet`,
+      { timeout: 60_000 },
+      async () => {
+        const pdf = await tilePoster(poster, {
+          sheet,
+          title: snapshot.title,
+          edition: 3,
+          shortCode: "K7QM-2XHD",
+          shortUrl: "forkwall.example/c/K7QM-2XHD",
+          band: null,
+        });
+        const sizes = pageSizes(pdf);
+        const plan = tilePlan(420, 594, sheet);
+        expect(sizes).toHaveLength(plan.tiles.length + 1);
+        const [pw, ph] = SHEETS[sheet];
+        const [w, h] = plan.orientation === "portrait" ? [pw, ph] : [ph, pw];
+        for (const s of sizes) {
+          expect(Math.abs(s.w - w)).toBeLessThanOrEqual(0.01);
+          expect(Math.abs(s.h - h)).toBeLessThanOrEqual(0.01);
+        }
+        // Fewer sheets than the other orientation would need (or as few).
+        const other = tilePlan(420, 594, sheet);
+        expect(plan.tiles.length).toBeLessThanOrEqual(other.tiles.length);
+        const texts = pageTexts(pdf);
+        const map = texts[0] as string;
+        expect(map).toContain("Assembly map");
+        expect(map).toContain(`${plan.tiles.length} sheets at 100 %`);
+        const last = plan.tiles[plan.tiles.length - 1]!.label;
+        texts.slice(1).forEach((t, i) => {
+          const label = plan.tiles[i]!.label;
+          expect(map).toMatch(new RegExp(`\\b${label}\\b`));
+          expect(t).toContain(`Sheet ${label} of ${last}`);
+          expect(t).toContain("K7QM-2XHD");
+        });
+        // The labels on the map are exactly the sheets: no more.
+        const onMap = new Set(
+          [...map.matchAll(/\b([A-Z]{1,2}[0-9]{1,2})\b/g)]
+            .map((m) => m[1])
+            .filter((l) => l !== "A2" || plan.tiles.some((t) => t.label === "A2")),
+        );
+        for (const l of onMap) if (/^[A-Z][0-9]$/.test(l!)) expect(plan.tiles.map((t) => t.label)).toContain(l);
+      },
+    );
+  }
+
+  it("covers the poster with 10 mm overlaps at 100 % scale", () => {
+    const plan = tilePlan(594, 841, "A4");
+    const stepX = plan.windowWidthMm - TILE_OVERLAP_MM;
+    const right = plan.tiles.reduce((m, t) => Math.max(m, t.x + t.width), 0);
+    const bottom = plan.tiles.reduce((m, t) => Math.max(m, t.y + t.height), 0);
+    expect(right).toBeGreaterThanOrEqual(594 - 1e-6);
+    expect(bottom).toBeGreaterThanOrEqual(841 - 1e-6);
+    expect(plan.tiles[0]!.x).toBeLessThanOrEqual(0);
+    expect(plan.tiles[1]!.x - plan.tiles[0]!.x).toBeCloseTo(stepX, 6);
+  });
+
+  it("the sheet holding the QR code decodes to the check address", { timeout: 60_000 }, async () => {
+    const pdf = await tilePoster(poster, {
+      sheet: "A4",
+      title: snapshot.title,
+      edition: 3,
+      shortCode: "K7QM-2XHD",
+      shortUrl: "forkwall.example/c/K7QM-2XHD",
+      band: null,
+    });
+    const texts = pageTexts(pdf);
+    let decoded: string[] = [];
+    for (let i = 2; i <= texts.length && decoded.length === 0; i++) {
+      try {
+        decoded = zbarDecode(rasterPage(pdf, i, 150));
+      } catch {
+        decoded = [];
+      }
+    }
+    expect(decoded).toContain(input.edition.checkUrl);
+  });
+});
+
+describe("the badge card", () => {
+  let card: Buffer;
+  beforeAll(async () => {
+    card = await renderCardPdf(input);
+  }, 60_000);
+
+  it("is two pages of ISO/IEC 7810 ID-1, 85.60 x 53.98 mm", () => {
+    const sizes = pageSizes(card);
+    expect(sizes).toHaveLength(2);
+    for (const s of sizes) {
+      expect(Math.abs(s.w - 85.6 * MM)).toBeLessThanOrEqual(0.01);
+      expect(Math.abs(s.h - CARD_HEIGHT_MM * MM)).toBeLessThanOrEqual(0.01);
+    }
+  });
+
+  it("carries the short code, the lookup title and the caution on each side", () => {
+    for (const t of pageTexts(card)) {
+      expect(t).toContain("K7QM-2XHD");
+      expect(t).toContain("POT balloon (parent)");
+      expect(t).toContain("CAUTION.");
+    }
+  });
+
+  it("narrows the grid to what stays legible at 40 cm", () => {
+    const cap = cardCapacity(false);
+    expect(cap.rows).toBeGreaterThanOrEqual(3);
+    expect(cap.cols).toBeGreaterThanOrEqual(3);
+    // 20′ at 0.4 m is 2.33 mm of figure height: Inter's figures are 0.7275 of the size.
+    expect(CARD_MIN_FIGURE_PT).toBeCloseTo(((2 * 400 * Math.tan(((20 / 60) * Math.PI) / 360)) / (1490 / 2048)) * MM, 3);
+  });
+
+  it("has a QR code that decodes to the check page", () => {
+    expect(zbarDecode(rasterPage(card, 1, 600))).toContain(input.edition.checkUrl);
+  });
+
+  it("gets the NOT CURRENT band on both sides when stamped", async () => {
+    const banded = await stampBands(card, { kind: "not-current", date: "2026-12-02", reason: "withdrawn" });
+    for (const t of pageTexts(banded)) expect(t).toContain(`${NOT_CURRENT_BAND} 2026-12-02`);
+  });
+});
