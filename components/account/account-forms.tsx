@@ -1,12 +1,13 @@
 "use client";
 
-import { useActionState } from "react";
+import { useActionState, useEffect } from "react";
 import { changeEmailAction, changeNameAction, changePasswordAction, leaveLabAction } from "@/app/(lab)/account/actions";
 import type { ActionState } from "@/lib/http/action";
 import { TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 import { NewPasswordFields } from "@/components/auth/new-password-fields";
+import { ACCOUNT_CHANGED_EVENT } from "@/components/shell/header-account";
 
 /** Two forms on the page ask for it: each gets its own id, so each label names its own input. */
 function CurrentPassword({ id, error }: { id: string; error?: string }) {
@@ -25,6 +26,10 @@ function CurrentPassword({ id, error }: { id: string; error?: string }) {
 
 export function NameForm({ name }: { name: string }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(changeNameAction, {});
+  // The header shows the name: tell it to read it again.
+  useEffect(() => {
+    if (state.ok) window.dispatchEvent(new Event(ACCOUNT_CHANGED_EVENT));
+  }, [state]);
   return (
     <form action={action} aria-label="Change your name" className="space-y-3" noValidate aria-busy={pending}>
       <TextField

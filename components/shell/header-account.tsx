@@ -13,9 +13,18 @@ type HeaderInfo = {
   mailLink: boolean;
 };
 
+/** Dispatched on `window` when the signed-in person's name or labs change without a navigation. */
+export const ACCOUNT_CHANGED_EVENT = "forkwall:account-changed";
+
 /** The visitor-dependent part of the header, read from /api/v1/header after the page loads. */
 export function HeaderAccount() {
   const [info, setInfo] = useState<HeaderInfo | null>(null);
+  const [changes, setChanges] = useState(0);
+  useEffect(() => {
+    const bump = () => setChanges((n) => n + 1);
+    window.addEventListener(ACCOUNT_CHANGED_EVENT, bump);
+    return () => window.removeEventListener(ACCOUNT_CHANGED_EVENT, bump);
+  }, []);
   // Read again on every navigation: signing in or out changes it without reloading the layout.
   const pathname = usePathname();
   useEffect(() => {
@@ -27,7 +36,7 @@ export function HeaderAccount() {
     return () => {
       live = false;
     };
-  }, [pathname]);
+  }, [pathname, changes]);
   if (!info) return <div className="ml-auto h-8" aria-hidden />;
   const { user, labs } = info;
   return (

@@ -12,8 +12,12 @@ export const AUDIT_KINDS = {
   stock: { label: "Stock", actions: ["stock."] },
   rooms: { label: "Rooms and copies on the wall", actions: ["room.", "posting."] },
   members: { label: "Members and invitations", actions: ["member.", "invitation."] },
-  rules: { label: "Lab rules", actions: ["lab."] },
-  accounts: { label: "Sign-ins and passwords", actions: ["signin.", "signout", "password_reset."] },
+  rules: { label: "Lab rules", actions: ["lab.rules"] },
+  settings: { label: "Lab settings and machine tokens", actions: ["lab.settings", "lab.token", "lab.created"] },
+  accounts: {
+    label: "Sign-ins, passwords and accounts",
+    actions: ["signin.", "signout", "password_reset.", "account."],
+  },
 } as const;
 export type AuditKind = keyof typeof AUDIT_KINDS;
 export const AUDIT_KIND_IDS = Object.keys(AUDIT_KINDS) as [AuditKind, ...AuditKind[]];

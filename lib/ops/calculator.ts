@@ -1,7 +1,7 @@
 import "server-only";
 import { listLabsForCalculator, listLiveCharts } from "@/db/queries/wall";
 import type { Snapshot } from "@/lib/charts/snapshot";
-import { unauthenticated } from "@/lib/errors";
+import { signedIn } from "./access";
 import type { Caller } from "./caller";
 
 export type CalculatorLab = {
@@ -17,8 +17,8 @@ export type CalculatorLab = {
  * family, rounding rule, caps, stent platform). Only the caller's own labs.
  */
 export async function calculatorLabs(caller: Caller): Promise<{ labs: CalculatorLab[] }> {
-  if (caller.kind !== "user") throw unauthenticated();
-  const labs = await listLabsForCalculator({ userId: caller.user.id });
+  const user = signedIn(caller);
+  const labs = await listLabsForCalculator({ userId: user.id });
   const charts = await listLiveCharts({ labIds: labs.map((l) => l.id) });
   return {
     labs: labs.map((l) => ({

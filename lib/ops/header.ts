@@ -2,12 +2,14 @@ import "server-only";
 import { mailFakeConfigured } from "@/lib/mail/send";
 import { listMyLabs } from "./accounts";
 import type { Caller } from "./caller";
+import { machineRefused } from "./access";
 
 /**
  * What the site header shows the visitor, fetched by the page after it loads so that pages that
  * depend on nobody (the landing page, the calculator) can be prerendered.
  */
 export async function headerInfo(caller: Caller) {
+  if (caller.kind === "token") throw machineRefused();
   if (caller.kind !== "user") return { user: null, labs: [], mailLink: false };
   const labs = await listMyLabs(caller);
   return {

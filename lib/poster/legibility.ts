@@ -91,13 +91,15 @@ export function posterLegibility(input: LayoutInput & { readingDistanceM: number
     if (maxColumns !== null && maxColumns < widest)
       options.push(`show at most ${maxColumns} column${maxColumns === 1 ? "" : "s"}`);
     else if (maxColumns === null) options.push("show fewer rows");
-    options.push(`read it from ${fmt1(maxReadingDistanceM(heightMm))} m or closer`);
+    // Headings grow with the reading distance; on a small sheet they can leave the grid no room.
+    const fits = heightMm >= 0.5;
+    if (fits) options.push(`read it from ${fmt1(maxReadingDistanceM(heightMm))} m or closer`);
+    else if (!options.length) options.push("use larger paper or a shorter reading distance");
     const advice = options.join(", or ");
-    suggestion =
-      `Figures are ${fmt1(heightMm)} mm high; at ${fmt1(d)} m they need ${fmt1(requiredMm)} mm (${MIN_ARCMIN}′ of arc). ` +
-      advice.charAt(0).toUpperCase() +
-      advice.slice(1) +
-      ".";
+    const found = fits
+      ? `Figures are ${fmt1(heightMm)} mm high; at ${fmt1(d)} m they need ${fmt1(requiredMm)} mm (${MIN_ARCMIN}′ of arc). `
+      : `At ${fmt1(d)} m the headings leave this paper no room for the grid; its figures need ${fmt1(requiredMm)} mm (${MIN_ARCMIN}′ of arc). `;
+    suggestion = found + advice.charAt(0).toUpperCase() + advice.slice(1) + ".";
   }
 
   return {

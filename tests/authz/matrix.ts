@@ -572,7 +572,8 @@ export const ROUTES: RouteRow[] = [
     route: "/v/[token]",
     url: (ids) => `/v/${ids["token:pot"]}`,
     expect: statuses(["anonymous"], 200, 303),
-    note: "public; a member of the edition's lab goes on (303) to /v/<token>/lab with rooms and printing",
+    machine: 200,
+    note: "public; a member of the edition's lab goes on (303) to /v/<token>/lab with rooms and printing; a token is no one",
   },
   {
     kind: "route",
@@ -580,6 +581,7 @@ export const ROUTES: RouteRow[] = [
     route: "/v/[token]",
     url: "/v/AAAAAAAAAAAAAAAAAAAAAAAA",
     expect: statuses(["anonymous", ...ALL_ROLES], 404),
+    machine: 404,
   },
   {
     kind: "route",
@@ -587,6 +589,7 @@ export const ROUTES: RouteRow[] = [
     route: "/c/[code]",
     url: (ids) => `/c/${ids["code:pot"]}`,
     expect: statuses(["anonymous", ...ALL_ROLES], 303),
+    machine: 303,
     note: "public: redirects to /v/<token>",
   },
   {
@@ -595,6 +598,7 @@ export const ROUTES: RouteRow[] = [
     route: "/c/[code]",
     url: "/c/0000-0000",
     expect: statuses(["anonymous", ...ALL_ROLES], 404),
+    machine: 404,
   },
 
   // phone: the calculator's lab data (loaded once) and the header's account part (prerendered pages)

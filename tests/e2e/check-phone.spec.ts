@@ -78,7 +78,7 @@ test("a replaced copy lists each differing cell with this copy's value and the n
 test("an outdated copy with no approved replacement strikes its affected cells and names whom to ask", async ({
   page,
 }) => {
-  await query("UPDATE labs SET contact_line = NULL WHERE slug = 'demo'");
+  await query("UPDATE labs SET contact_line = NULL WHERE slug = ?", [fx.labSlug]);
   await page.goto(`/v/${fx.outdated.token}`);
   await expect(page.getByTestId("check-action")).toHaveAttribute("data-action", "take-down");
   const cells = page.getByTestId("check-cells");
@@ -90,31 +90,34 @@ test("an outdated copy with no approved replacement strikes its affected cells a
   await expect(page.getByTestId("check-ask")).toHaveText(
     "No approved replacement yet: ask the lab's medical lead or manager.",
   );
-  await query("UPDATE labs SET contact_line = ? WHERE slug = 'demo'", ["ask the charge nurse in the control room"]);
+  await query("UPDATE labs SET contact_line = ? WHERE slug = ?", [
+    "ask the charge nurse in the control room",
+    fx.labSlug,
+  ]);
   try {
     await page.reload();
     await expect(page.getByTestId("check-ask")).toHaveText(
       "No approved replacement yet: ask the charge nurse in the control room.",
     );
   } finally {
-    await query("UPDATE labs SET contact_line = NULL WHERE slug = 'demo'");
+    await query("UPDATE labs SET contact_line = NULL WHERE slug = ?", [fx.labSlug]);
   }
 });
 
 test("dates are shown in the lab's time zone", async ({ page }) => {
-  await query("UPDATE labs SET time_zone = 'Pacific/Auckland' WHERE slug = 'demo'");
+  await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["Pacific/Auckland", fx.labSlug]);
   try {
     await page.goto(`/v/${fx.superseded.token}`);
     // Superseded 2026-11-25 09:00 UTC is 22:00 the same day in Auckland (UTC+13).
     await expect(page.getByTestId("check-date")).toHaveText("Since 2026-11-25");
     await page.goto(`/v/${fx.current.token}`);
     await expect(page.getByTestId("check-date")).toHaveText("Approved 2026-11-20");
-    await query("UPDATE labs SET time_zone = 'Pacific/Kiritimati' WHERE slug = 'demo'");
+    await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["Pacific/Kiritimati", fx.labSlug]);
     // UTC+14: 2026-11-20 09:00 UTC is 23:00 that day; review-by 2026-01-01 00:00 UTC is 14:00 on 1 January.
     await page.goto(`/v/${fx.review.token}`);
     await expect(page.getByTestId("check-action")).toContainText("2026-01-01");
   } finally {
-    await query("UPDATE labs SET time_zone = 'UTC' WHERE slug = 'demo'");
+    await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["UTC", fx.labSlug]);
   }
 });
 

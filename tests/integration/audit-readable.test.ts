@@ -24,7 +24,7 @@ const definition = (readingDistanceM: number) =>
     title: "Audit POT chart",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId: ids.family, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
-    paper: "A4",
+    paper: "A2",
     orientation: "portrait",
     readingDistanceM,
   });

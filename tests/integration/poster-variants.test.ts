@@ -151,9 +151,10 @@ describe("GET /api/v1/editions/:id/pdf variants", () => {
 
   it("a superseded edition carries NOT CURRENT - DO NOT POST with today's date on every page, in every variant", async () => {
     asRole("manager");
-    expect(
-      (await call(patchChartRoute, { id: String(chartId) }, "PATCH", { notes: "A second edition's notes" })).status,
-    ).toBe(200);
+    // A clinical change (the law): a notes-only edition would leave the first copy current.
+    expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", { law: { law: "square" } })).status).toBe(
+      200,
+    );
     await approvedEdition(chartId);
     asRole("operator");
     const today = formatDate(new Date(), "UTC");

@@ -1,6 +1,7 @@
 // Copies of the demo POT chart with editions in every state, inserted straight into the test
 // database (the immutability triggers guard updates, not inserts), for the check page's tests.
-// Archived, so the lab's chart lists stay as the other tests expect.
+// They live in a lab of their own (an archived chart's copies read "take down"), so the demo
+// lab's chart lists and settings stay as the other tests expect.
 import { randomBytes } from "node:crypto";
 import { newShortCode } from "@/lib/editions/short-code";
 import { demoIds, query } from "./db";
@@ -9,15 +10,21 @@ export type Fixture = { token: string; shortCode: string };
 export type CheckFixtures = Record<
   "current" | "review" | "outdated" | "superseded" | "withdrawn" | "draft",
   Fixture
-> & { replacementNumber: number };
+> & { replacementNumber: number; labSlug: string };
 
 type Snap = { lookups: { family: { diameters: number[] } | null }[] };
 
-async function copyChart(fromChart: number, title: string): Promise<number> {
+async function fixtureLab(slug: string): Promise<number> {
+  await query("INSERT INTO labs (slug, name, is_demo) VALUES (?, ?, 1)", [slug, "Phone fixture lab (illustrative)"]);
+  const [row] = await query<{ id: number }>("SELECT id FROM labs WHERE slug = ?", [slug]);
+  return Number(row!.id);
+}
+
+async function copyChart(labId: number, fromChart: number, title: string): Promise<number> {
   await query(
-    `INSERT INTO charts (lab_id, title, definition, logo_id, live_fingerprint, live_snapshot, live_changed_at, created_by, archived_at)
-     SELECT lab_id, ?, definition, logo_id, live_fingerprint, live_snapshot, NOW(), created_by, NOW() FROM charts WHERE id = ?`,
-    [title, fromChart],
+    `INSERT INTO charts (lab_id, title, definition, logo_id, live_fingerprint, live_snapshot, live_changed_at, created_by)
+     SELECT ?, ?, definition, NULL, live_fingerprint, live_snapshot, NOW(), created_by FROM charts WHERE id = ?`,
+    [labId, title, fromChart],
   );
   const [row] = await query<{ id: number }>("SELECT MAX(id) AS id FROM charts WHERE title = ?", [title]);
   return Number(row!.id);
@@ -68,16 +75,18 @@ export async function makeCheckFixtures(): Promise<CheckFixtures> {
   for (const l of older.lookups) if (l.family) l.family.diameters = [...l.family.diameters, 3.6].sort((a, b) => a - b);
   const stale = "f".repeat(64);
   const suffix = randomBytes(3).toString("hex");
+  const labSlug = `phone-fixtures-${suffix}`;
+  const lab = await fixtureLab(labSlug);
 
-  const a = await copyChart(Number(ids["chart:pot"]), `Phone fixture A ${suffix}`);
+  const a = await copyChart(lab, Number(ids["chart:pot"]), `Phone fixture A ${suffix}`);
   const current = await addEdition(a, 5, "approved", live, pot!.live_fingerprint);
   const superseded = await addEdition(a, 4, "superseded", older, stale);
   const withdrawn = await addEdition(a, 3, "withdrawn", older, stale);
   const draft = await addEdition(a, 6, "draft", older, stale);
 
-  const b = await copyChart(Number(ids["chart:pot"]), `Phone fixture B ${suffix}`);
+  const b = await copyChart(lab, Number(ids["chart:pot"]), `Phone fixture B ${suffix}`);
   const outdated = await addEdition(b, 1, "approved", older, stale);
-  const c = await copyChart(Number(ids["chart:pot"]), `Phone fixture C ${suffix}`);
+  const c = await copyChart(lab, Number(ids["chart:pot"]), `Phone fixture C ${suffix}`);
   const review = await addEdition(c, 1, "approved", live, pot!.live_fingerprint, { reviewBy: "2026-01-01 00:00:00" });
-  return { current, review, outdated, superseded, withdrawn, draft, replacementNumber: 5 };
+  return { current, review, outdated, superseded, withdrawn, draft, replacementNumber: 5, labSlug };
 }
