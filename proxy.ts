@@ -1,7 +1,9 @@
 // Pages answer 503 with a readable outage page while the database cannot be reached. An error
 // boundary cannot set a status (and a rewrite's status is not kept), so the check happens here,
 // before rendering: a probe of the database, and on failure the outage page itself. Route
-// handlers under /api answer their own 503 JSON (lib/errors.ts); the calculator needs no database.
+// handlers under /api answer their own 503 JSON (lib/errors.ts); the calculator needs no database;
+// the check page and short codes (/v/, /c/: plain route handlers, lib/http/check-page.ts) answer
+// their own outage page, so a scan does not pay for this hop.
 // Server actions (POSTs to page paths) first get their body checked, so a broken one is a 400.
 import { NextResponse, type NextRequest } from "next/server";
 import { databaseReachable } from "@/db/health";
@@ -30,8 +32,9 @@ export async function proxy(req: NextRequest) {
 }
 
 export const config = {
-  // Every page except the static files, the API and the calculator.
+  // Every page except the static files, the API, the calculator and the check page's handlers
+  // (/v/<token> and /c/<code>; the members' page /v/<token>/lab is a page and stays matched).
   matcher: [
-    "/((?!api/|_next/|calculator|icon|apple-icon|manifest|robots\\.txt|favicon\\.ico|.*\\.(?:svg|png|ico|webmanifest|txt)$).*)",
+    "/((?!api/|_next/|calculator|v/[^/]+$|c/|icon|apple-icon|manifest|robots\\.txt|favicon\\.ico|.*\\.(?:svg|png|ico|webmanifest|txt)$).*)",
   ],
 };

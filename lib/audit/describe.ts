@@ -12,8 +12,11 @@ export const AUDIT_KINDS = {
   stock: { label: "Stock", actions: ["stock."] },
   rooms: { label: "Rooms and copies on the wall", actions: ["room.", "posting."] },
   members: { label: "Members and invitations", actions: ["member.", "invitation."] },
-  rules: { label: "Lab rules", actions: ["lab.rules"] },
-  settings: { label: "Lab settings and machine tokens", actions: ["lab.settings", "lab.token", "lab.created"] },
+  rules: { label: "Lab rules", actions: ["lab.rules_updated"] },
+  settings: {
+    label: "Lab settings and machine tokens",
+    actions: ["lab.settings_updated", "lab.token_created", "lab.token_revoked", "lab.created"],
+  },
   accounts: {
     label: "Sign-ins, passwords and accounts",
     actions: ["signin.", "signout", "password_reset.", "account."],

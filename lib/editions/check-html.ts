@@ -24,6 +24,8 @@ export type CheckPageModel = {
   /** "No approved replacement yet: ask ..."; null unless the copy must come down. */
   ask: string | null;
   currentLine: string | null;
+  /** "A reworded edition is available (...)": only wording or layout differs; null when none. */
+  reworded: string | null;
   isDemo: boolean;
   signInHref: string;
 };
@@ -122,6 +124,7 @@ ${m.dateLine ? `<p class="date" data-testid="check-date">${text(m.dateLine)}</p>
 </div>
 <p class="act" data-testid="check-action" data-action="${m.action}">${text(m.sentence)}</p>
 ${m.ask ? `<p class="ask" data-testid="check-ask">${escapeHtml(m.ask)}</p>` : ""}
+${m.reworded ? `<p data-testid="check-reworded">${text(m.reworded)}</p>` : ""}
 ${cellsSection(m.cells)}
 ${changes}
 ${m.currentLine ? `<p class="soft">${text(m.currentLine)}</p>` : ""}

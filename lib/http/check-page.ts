@@ -4,6 +4,7 @@ import { limitPublic, RateLimitedError, type PublicKind } from "@/lib/auth/publi
 import { addressOf } from "@/lib/auth/request-address";
 import { actionSentence } from "@/lib/editions/action";
 import { CHECK_HEADLINES } from "@/lib/editions/check";
+import { rewordedSentence } from "@/lib/editions/check-json";
 import { askLine, checkCells } from "@/lib/editions/check-cells";
 import { checkPageHtml, rateLimitedHtml, unknownCodeHtml, type CheckPageModel } from "@/lib/editions/check-html";
 import { formatShortCode, parseShortCode } from "@/lib/editions/short-code";
@@ -47,6 +48,7 @@ export function checkPageModel(view: CheckView, token: string): CheckPageModel {
     currentLine: current
       ? `The current edition of this chart is edition ${current.number}${current.approvedAt ? `, approved ${formatDate(current.approvedAt, tz)}` : ""}.`
       : null,
+    reworded: view.reworded ? rewordedSentence(view.reworded) : null,
     isDemo: view.lab.isDemo,
     signInHref: `/sign-in?callbackUrl=${encodeURIComponent(`/v/${token}/lab`)}`,
   };

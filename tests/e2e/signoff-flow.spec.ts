@@ -6,11 +6,25 @@
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { apiAs, demoEmail, signInPage } from "./support/auth";
 import { demoIds, query } from "./support/db";
+import { mailTo } from "./support/mail";
 
 test.describe.configure({ mode: "serial" });
 
 const title = `Sign-off flow chart ${Date.now().toString(36)}`;
 const state = { chartId: 0, roomId: 0, ed1: 0, ed2: 0, ed3: 0, posting1: 0, posting2: 0 };
+const roomName = `Sign-off room ${Date.now()}`;
+
+/** Waits for an e-mail to `role` whose subject (and text, when given) match, through the local SMTP fake. */
+async function expectMail(role: "manager" | "lead" | "educator", subject: RegExp, text?: string) {
+  await expect
+    .poll(
+      async () =>
+        (await mailTo(demoEmail(role))).some((m) => subject.test(m.subject) && (!text || m.text.includes(text))),
+      { message: `e-mail to the ${role}: ${subject}`, timeout: 20_000 },
+    )
+    .toBe(true);
+}
+const quoted = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
 let educator: APIRequestContext;
 let manager: APIRequestContext;
 
@@ -22,7 +36,7 @@ test.beforeAll(async ({ baseURL }) => {
   const made = await educator.post("/api/v1/labs/demo/charts", { data: { ...pot.definition, title } });
   expect(made.status()).toBe(201);
   state.chartId = (await made.json()).id;
-  const room = await manager.post("/api/v1/labs/demo/rooms", { data: { name: `Sign-off room ${Date.now()}` } });
+  const room = await manager.post("/api/v1/labs/demo/rooms", { data: { name: roomName } });
   expect(room.status()).toBe(201);
   state.roomId = (await room.json()).id;
 });
@@ -72,6 +86,8 @@ async function approveFromQueue(page: Page, editionId: number, number: number) {
 test("educator: creates the first edition of a chart from the designer", async ({ page }) => {
   await signInPage(page, demoEmail("educator"));
   state.ed1 = await createEditionInDesigner(page, 1);
+  // The medical lead, who may approve, is told it waits.
+  await expectMail("lead", new RegExp(`Edition 1 of "${quoted(title)}" is waiting for sign-off`));
   // The educator may not approve: no Sign-off tab, and the queue page says so.
   await expect(page.getByRole("navigation", { name: "Lab" }).getByRole("link", { name: "Sign-off" })).toHaveCount(0);
   await page.goto("/labs/demo/sign-off");
@@ -96,6 +112,8 @@ test("medical lead: the queue lists it oldest first; every cell is new; approves
     diff.cells.length,
   );
   await approveFromQueue(page, state.ed1, 1);
+  // Its author hears that it was approved.
+  await expectMail("educator", new RegExp(`Edition 1 of "${quoted(title)}" was approved`));
 });
 
 test("manager: hangs edition 1; after edition 2 is approved the copy reads replace, the new copy keep", async ({
@@ -151,6 +169,8 @@ test("manager: hangs edition 1; after edition 2 is approved the copy reads repla
 
   await expectCheck(page, state.ed1, "superseded", "replace");
   await expect(page.getByTestId("check-action")).toContainText("edition 2");
+  // The manager's digest, after the quiet period, names the room whose copy to replace.
+  await expectMail("manager", /wall printouts? to replace/, roomName);
   // The manager hangs edition 2 and takes edition 1 down: the copy on the wall reads keep.
   const posted2 = await manager.post(`/api/v1/editions/${state.ed2}/postings`, { data: { roomId: state.roomId } });
   expect(posted2.status()).toBe(201);
