@@ -1,13 +1,16 @@
 import "server-only";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMemory, RateLimiterMySQL, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { databaseName } from "./sign-in";
 
 // Public endpoints (the solve API, the check page and its API, short-code lookups) answer
-// anyone; each client address gets PUBLIC_RATE_LIMIT_PER_MINUTE requests a minute per kind,
-// counted in MariaDB's rate_limits (the sign-in throttle's table) so every app instance shares them.
+// anyone; each client address gets PUBLIC_RATE_LIMIT_PER_MINUTE requests a minute per kind.
+// Short codes (40 bits, worth guessing) and the solve API are counted in MariaDB's rate_limits
+// (the sign-in throttle's table) so every app instance shares them. The check page (a 144-bit
+// token nobody can guess) is counted in each instance's memory: a scan costs no database write,
+// and with N instances an address gets at most N times the limit.
 export type PublicKind = "solve" | "check" | "short-code";
 
 export class RateLimitedError extends AppError {
@@ -20,20 +23,26 @@ export class RateLimitedError extends AppError {
 }
 
 export function createPublicLimiter(opts: { points: number; durationSeconds: number; keyPrefix?: string }) {
-  const limiters = new Map<PublicKind, RateLimiterMySQL>();
+  const limiters = new Map<PublicKind, RateLimiterAbstract>();
   const limiter = (kind: PublicKind) => {
     let l = limiters.get(kind);
     if (!l) {
-      l = new RateLimiterMySQL({
-        storeClient: pool.pool,
-        storeType: "pool",
-        dbName: databaseName(env.DATABASE_URL),
-        tableName: "rate_limits",
-        tableCreated: true,
+      const common = {
         keyPrefix: `${opts.keyPrefix ?? "public"}-${kind}`,
         points: opts.points,
         duration: opts.durationSeconds,
-      });
+      };
+      l =
+        kind === "check"
+          ? new RateLimiterMemory(common)
+          : new RateLimiterMySQL({
+              ...common,
+              storeClient: pool.pool,
+              storeType: "pool",
+              dbName: databaseName(env.DATABASE_URL),
+              tableName: "rate_limits",
+              tableCreated: true,
+            });
       limiters.set(kind, l);
     }
     return l;
