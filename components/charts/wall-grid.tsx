@@ -1,5 +1,6 @@
 import type { CSSProperties } from "react";
-import { axisTitles, gridSubtitle, lookupTitle, VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { GridHeadRow } from "@/components/poster/grid-head";
+import { axisTitles, gridSubtitle, lookupTitle } from "@/lib/poster/labels";
 import { cellView, cornerSymbols, formatAxisMm, PALETTE, type CellView } from "@/lib/poster/marks";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
 
@@ -50,31 +51,12 @@ export function WallGrid({
       >
         <table className="border-separate border-spacing-0 text-center tabular-nums" data-testid="wall-grid">
           <thead>
-            <tr>
-              <th
-                scope="col"
-                className="sticky left-0 top-0 z-20 border-b border-r px-2 py-1 text-xs font-semibold leading-tight"
-                style={heading}
-              >
-                <span aria-hidden="true">
-                  {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
-                  {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
-                </span>
-                <span className="sr-only">
-                  {titles.rows} down, {titles.cols} across
-                </span>
-              </th>
-              {grid.colAxis.values.map((c) => (
-                <th
-                  key={c}
-                  scope="col"
-                  className="sticky top-0 z-10 border-b border-r px-2 py-2 text-lg font-bold"
-                  style={heading}
-                >
-                  {formatAxisMm(c)}
-                </th>
-              ))}
-            </tr>
+            <GridHeadRow
+              grid={grid}
+              titles={titles}
+              cornerClassName="sticky left-0 top-0 z-20 border-b border-r px-2 py-1 text-xs font-semibold leading-tight"
+              colClassName="sticky top-0 z-10 border-b border-r px-2 py-2 text-lg font-bold"
+            />
           </thead>
           <tbody>
             {grid.cells.map((row, i) => (

@@ -1,7 +1,8 @@
 import type { CSSProperties } from "react";
+import { GridHeadRow } from "@/components/poster/grid-head";
 import { Caution } from "@/components/ui/caution";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
-import { axisTitles, gridSubtitle, lookupTitle, VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { axisTitles, gridSubtitle, lookupTitle } from "@/lib/poster/labels";
 import {
   cellView,
   cornerSymbols,
@@ -90,31 +91,12 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
             </span>
           </caption>
           <thead>
-            <tr>
-              <th
-                scope="col"
-                className="border px-2 py-1 text-[0.65rem] font-semibold leading-tight"
-                style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
-              >
-                <span aria-hidden="true">
-                  {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
-                  {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
-                </span>
-                <span className="sr-only">
-                  {titles.rows} down, {titles.cols} across
-                </span>
-              </th>
-              {grid.colAxis.values.map((c) => (
-                <th
-                  key={c}
-                  scope="col"
-                  className="border px-2 py-1 text-sm font-bold"
-                  style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
-                >
-                  {formatAxisMm(c)}
-                </th>
-              ))}
-            </tr>
+            <GridHeadRow
+              grid={grid}
+              titles={titles}
+              cornerClassName="border px-2 py-1 text-[0.65rem] font-semibold leading-tight"
+              colClassName="border px-2 py-1 text-sm font-bold"
+            />
           </thead>
           <tbody>
             {grid.cells.map((row, i) => (

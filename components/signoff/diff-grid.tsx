@@ -1,6 +1,7 @@
 import type { CSSProperties } from "react";
+import { GridHeadRow } from "@/components/poster/grid-head";
 import type { DiffCell } from "@/lib/editions/diff";
-import { axisTitles, lookupTitle, VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { axisTitles, lookupTitle } from "@/lib/poster/labels";
 import { cellView, cornerSymbols, formatAxisMm, PALETTE } from "@/lib/poster/marks";
 import type { Grid } from "@/lib/sizing";
 
@@ -39,31 +40,12 @@ export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<str
           </span>
         </caption>
         <thead>
-          <tr>
-            <th
-              scope="col"
-              className="border px-1 py-1 text-[0.6rem] font-semibold leading-tight"
-              style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
-            >
-              <span aria-hidden="true">
-                {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
-                {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
-              </span>
-              <span className="sr-only">
-                {titles.rows} down, {titles.cols} across
-              </span>
-            </th>
-            {grid.colAxis.values.map((c) => (
-              <th
-                key={c}
-                scope="col"
-                className="border px-1 py-1 text-xs font-bold"
-                style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
-              >
-                {formatAxisMm(c)}
-              </th>
-            ))}
-          </tr>
+          <GridHeadRow
+            grid={grid}
+            titles={titles}
+            cornerClassName="border px-1 py-1 text-[0.6rem] font-semibold leading-tight"
+            colClassName="border px-1 py-1 text-xs font-bold"
+          />
         </thead>
         <tbody>
           {grid.cells.map((row, i) => {

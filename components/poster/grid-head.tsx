@@ -1,0 +1,42 @@
+import type { CSSProperties } from "react";
+import { VESSEL_SYMBOLS } from "@/lib/poster/labels";
+import { formatAxisMm, PALETTE } from "@/lib/poster/marks";
+import type { Grid } from "@/lib/sizing";
+
+const HEADING: CSSProperties = { backgroundColor: PALETTE.heading, borderColor: PALETTE.rule };
+
+/**
+ * A lookup grid's heading row, as the poster draws it: the corner names both axes (vessel symbols,
+ * and in words for screen readers), then one heading per column value. Shared by the designer's
+ * preview, the wall view and the approval screen, which differ only in size and stickiness.
+ */
+export function GridHeadRow({
+  grid,
+  titles,
+  cornerClassName,
+  colClassName,
+}: {
+  grid: Pick<Grid, "rowAxis" | "colAxis">;
+  titles: { rows: string; cols: string };
+  cornerClassName: string;
+  colClassName: string;
+}) {
+  return (
+    <tr>
+      <th scope="col" className={cornerClassName} style={HEADING}>
+        <span aria-hidden="true">
+          {VESSEL_SYMBOLS[grid.colAxis.vessel]} →<br />
+          {VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓
+        </span>
+        <span className="sr-only">
+          {titles.rows} down, {titles.cols} across
+        </span>
+      </th>
+      {grid.colAxis.values.map((c) => (
+        <th key={c} scope="col" className={colClassName} style={HEADING}>
+          {formatAxisMm(c)}
+        </th>
+      ))}
+    </tr>
+  );
+}
