@@ -3,7 +3,7 @@ import { GridHeadRow } from "@/components/poster/grid-head";
 import type { DiffCell } from "@/lib/editions/diff";
 import { axisTitles, lookupTitle } from "@/lib/poster/labels";
 import { cellView, cornerSymbols, formatAxisMm, PALETTE } from "@/lib/poster/marks";
-import type { Grid } from "@/lib/sizing";
+import type { Grid, GridMark } from "@/lib/sizing";
 
 export const cellKey = (row: number, col: number) => `${row}|${col}`;
 
@@ -98,12 +98,23 @@ export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<str
   );
 }
 
+/** Each mark in the words of the poster's legend, not its API name. */
+const MARK_WORDS: Readonly<Record<GridMark, string>> = {
+  "not-bifurcation": "no size: not a bifurcation",
+  "below-stock": "no stocked size (below the smallest)",
+  "above-stock": "no stocked size (above the largest)",
+  "stent-limit": "stent limit",
+  oversize: "above the rounding cap",
+  undersize: "below the rounding cap",
+  "outside-fit": "outside the law's published fit",
+};
+
 /** A changed cell's print in a few words: the figure, its pressure and its marks. */
 export function printedWords(p: DiffCell["before"]): string {
   if (!p) return "not printed";
   const parts = [p.printed];
   if (p.pressure) parts.push(p.pressure);
   if (p.exact && p.exact !== p.printed) parts.push(`(exact ${p.exact})`);
-  if (p.marks.length) parts.push(`[${p.marks.join(", ")}]`);
+  if (p.marks.length) parts.push(`(${p.marks.map((m) => MARK_WORDS[m]).join("; ")})`);
   return parts.join(" ");
 }

@@ -70,7 +70,8 @@ export function cardCapacity(pressureLine: boolean): { rows: number; cols: numbe
 function cardFrame() {
   const { width: W, height: H } = CARD_PAGE;
   const headH = 9;
-  const cautionH = 15;
+  // Four lines of the 3.9 pt caution (4.5 pt each) and its padding: the demo lab's caution, the longest, needs all four.
+  const cautionH = 20;
   const keyH = 6;
   const top = BAND + 1;
   const head = box(MARGIN, top, W - 2 * MARGIN, headH);
