@@ -1,20 +1,8 @@
 import type { CSSProperties } from "react";
-import { GridHeadRow } from "@/components/poster/grid-head";
+import { GridHeadRow, posterCellStyle } from "@/components/poster/grid-head";
 import { axisTitles, gridSubtitle, lookupTitle } from "@/lib/poster/labels";
-import { cellView, cornerSymbols, formatAxisMm, PALETTE, type CellView } from "@/lib/poster/marks";
+import { cellView, cornerSymbols, formatAxisMm, PALETTE } from "@/lib/poster/marks";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
-
-function cellStyle(view: Pick<CellView, "background" | "hatch" | "border">): CSSProperties {
-  return {
-    backgroundColor: view.background,
-    ...(view.hatch
-      ? { backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)` }
-      : {}),
-    ...(view.border > 0 ? { boxShadow: `inset 0 0 0 3px ${PALETTE.ink}` } : {}),
-    color: PALETTE.ink,
-    borderColor: PALETTE.rule,
-  };
-}
 
 const heading: CSSProperties = { backgroundColor: PALETTE.heading, borderColor: PALETTE.rule };
 
@@ -77,7 +65,7 @@ export function WallGrid({
                       title={view.description}
                       data-marks={view.marks.join(" ") || undefined}
                       className="relative min-w-[5.5rem] border-b border-r px-2 pb-2 pt-5 align-bottom"
-                      style={cellStyle(view)}
+                      style={posterCellStyle(view)}
                     >
                       <span aria-hidden="true">
                         {view.exact ? <span className="absolute left-1.5 top-1 text-xs">{view.exact}</span> : null}

@@ -1,9 +1,22 @@
 import type { CSSProperties } from "react";
 import { VESSEL_SYMBOLS } from "@/lib/poster/labels";
-import { formatAxisMm, PALETTE } from "@/lib/poster/marks";
+import { formatAxisMm, PALETTE, type CellView } from "@/lib/poster/marks";
 import type { Grid } from "@/lib/sizing";
 
 const HEADING: CSSProperties = { backgroundColor: PALETTE.heading, borderColor: PALETTE.rule };
+
+/** A cell drawn as the poster draws it (lib/poster/marks): background, hatching, heavy border, rule colour. */
+export function posterCellStyle(view: Pick<CellView, "background" | "hatch" | "border">): CSSProperties {
+  return {
+    backgroundColor: view.background,
+    ...(view.hatch
+      ? { backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)` }
+      : {}),
+    ...(view.border > 0 ? { boxShadow: `inset 0 0 0 3px ${PALETTE.ink}` } : {}),
+    color: PALETTE.ink,
+    borderColor: PALETTE.rule,
+  };
+}
 
 /**
  * A lookup grid's heading row, as the poster draws it: the corner names both axes (vessel symbols,

@@ -1,32 +1,8 @@
-import type { CSSProperties } from "react";
-import { GridHeadRow } from "@/components/poster/grid-head";
+import { GridHeadRow, posterCellStyle } from "@/components/poster/grid-head";
 import { Caution } from "@/components/ui/caution";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
 import { axisTitles, gridSubtitle, lookupTitle } from "@/lib/poster/labels";
-import {
-  cellView,
-  cornerSymbols,
-  formatAxisMm,
-  legendEntries,
-  MARKS,
-  PALETTE,
-  type CellView,
-  type MarkId,
-} from "@/lib/poster/marks";
-
-const hatchStyle = (background: string): CSSProperties => ({
-  backgroundColor: background,
-  backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)`,
-});
-
-/** The same look as a poster cell: background, hatching and heavy border from lib/poster/marks. */
-function cellStyle(view: Pick<CellView, "background" | "hatch" | "border">): CSSProperties {
-  return {
-    ...(view.hatch ? hatchStyle(view.background) : { backgroundColor: view.background }),
-    ...(view.border > 0 ? { boxShadow: `inset 0 0 0 3px ${PALETTE.ink}` } : {}),
-    color: PALETTE.ink,
-  };
-}
+import { cellView, cornerSymbols, formatAxisMm, legendEntries, MARKS, PALETTE, type MarkId } from "@/lib/poster/marks";
 
 function Swatch({ mark }: { mark: MarkId | "sized" }) {
   const def = mark === "sized" ? null : MARKS[mark];
@@ -38,7 +14,7 @@ function Swatch({ mark }: { mark: MarkId | "sized" }) {
       aria-hidden="true"
       className="relative inline-flex h-10 w-16 shrink-0 items-end justify-center border pb-0.5 text-lg font-bold tabular-nums"
       style={{
-        ...cellStyle({
+        ...posterCellStyle({
           background: def?.background ?? PALETTE.cell,
           hatch: def?.hatch ?? false,
           border: def?.border ?? 0,
@@ -117,7 +93,7 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
                       title={view.description}
                       data-marks={view.marks.join(" ") || undefined}
                       className="relative min-w-16 border px-1 pb-1 pt-3.5 align-bottom"
-                      style={{ ...cellStyle(view), borderColor: PALETTE.rule }}
+                      style={posterCellStyle(view)}
                     >
                       <span aria-hidden="true">
                         {view.exact ? (

@@ -1,5 +1,5 @@
 import type { CSSProperties } from "react";
-import { GridHeadRow } from "@/components/poster/grid-head";
+import { GridHeadRow, posterCellStyle } from "@/components/poster/grid-head";
 import type { DiffCell } from "@/lib/editions/diff";
 import { axisTitles, lookupTitle } from "@/lib/poster/labels";
 import { cellView, cornerSymbols, formatAxisMm, PALETTE } from "@/lib/poster/marks";
@@ -7,22 +7,9 @@ import type { Grid, GridMark } from "@/lib/sizing";
 
 export const cellKey = (row: number, col: number) => `${row}|${col}`;
 
-function cellStyle(view: ReturnType<typeof cellView>, changed: boolean): CSSProperties {
-  const hatch = view.hatch
-    ? { backgroundImage: `repeating-linear-gradient(135deg, ${PALETTE.hatch} 0 1px, transparent 1px 9px)` }
-    : {};
-  // A changed cell carries a heavy dashed outline and a ◆ (explained above the grids, and "Changed." for
-  // screen readers): never colour alone.
-  const outline: CSSProperties = changed ? { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-3px" } : {};
-  return {
-    backgroundColor: view.background,
-    ...hatch,
-    ...(view.border > 0 ? { boxShadow: `inset 0 0 0 3px ${PALETTE.ink}` } : {}),
-    ...outline,
-    color: PALETTE.ink,
-    borderColor: PALETTE.rule,
-  };
-}
+// A changed cell carries a heavy dashed outline and a ◆ (explained above the grids, and "Changed." for
+// screen readers): never colour alone.
+const CHANGED: CSSProperties = { outline: `3px dashed ${PALETTE.ink}`, outlineOffset: "-3px" };
 
 /**
  * One lookup's grid as the poster prints it, with the cells that differ from the other edition
@@ -70,7 +57,7 @@ export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<str
                       title={view.description}
                       data-changed={isChanged ? "true" : undefined}
                       className="relative min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
-                      style={cellStyle(view, isChanged)}
+                      style={isChanged ? { ...posterCellStyle(view), ...CHANGED } : posterCellStyle(view)}
                     >
                       <span aria-hidden="true">
                         <span className="flex min-h-4 justify-between gap-1 text-[0.65rem] font-bold leading-4">
