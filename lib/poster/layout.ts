@@ -572,6 +572,10 @@ function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
 }
 
 /** Cell box (row r, column c) of a laid-out grid. */
-export function cellBox(g: GridLayout, r: number, c: number): Box {
+export function cellBox(
+  g: Pick<GridLayout, "cellsX" | "cellsY" | "cellWidth" | "cellHeight">,
+  r: number,
+  c: number,
+): Box {
   return { x: g.cellsX + c * g.cellWidth, y: g.cellsY + r * g.cellHeight, width: g.cellWidth, height: g.cellHeight };
 }

@@ -1,12 +1,21 @@
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { snapshotGrids } from "@/lib/charts/snapshot";
 import { cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
-import { type DrawnCell } from "@/lib/poster/draw";
+import { cellBox } from "@/lib/poster/layout";
 import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
 import { cellView, formatAxisMm, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
 import { lawName, type Grid } from "@/lib/sizing";
-import { at, CellGraphicsSvg, CellText, heading, POSTER_EPOCH, POSTER_FONT, TNUM, type PosterInput } from "./document";
+import {
+  at,
+  CellGraphicsSvg,
+  CellText,
+  gridCells,
+  POSTER_EPOCH,
+  POSTER_FONT,
+  TNUM,
+  type PosterInput,
+} from "./document";
 
 const KEY_WORDS: Record<MarkId, string> = {
   noSize: "no size",
@@ -16,47 +25,6 @@ const KEY_WORDS: Record<MarkId, string> = {
   undersize: "below cap",
   outsideFit: "outside fit",
 };
-
-const cellAt = (l: CardLayout, i: number, j: number) => ({
-  x: l.grid.cellsX + j * l.grid.cellWidth,
-  y: l.grid.cellsY + i * l.grid.cellHeight,
-  width: l.grid.cellWidth,
-  height: l.grid.cellHeight,
-});
-
-function cardCells(grid: Grid, l: CardLayout): DrawnCell[] {
-  const g = { ...l.grid };
-  const out: DrawnCell[] = [
-    heading({
-      x: g.cellsX - g.rowHeadWidth,
-      y: g.cellsY - g.colHeadHeight,
-      width: g.rowHeadWidth,
-      height: g.colHeadHeight,
-    }),
-  ];
-  grid.colAxis.values.forEach((_, j) =>
-    out.push(
-      heading({
-        x: g.cellsX + j * g.cellWidth,
-        y: g.cellsY - g.colHeadHeight,
-        width: g.cellWidth,
-        height: g.colHeadHeight,
-      }),
-    ),
-  );
-  grid.rowAxis.values.forEach((_, i) =>
-    out.push(
-      heading({
-        x: g.cellsX - g.rowHeadWidth,
-        y: g.cellsY + i * g.cellHeight,
-        width: g.rowHeadWidth,
-        height: g.cellHeight,
-      }),
-    ),
-  );
-  grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellAt(l, i, j), view: cellView(cell) })));
-  return out;
-}
 
 function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayout }) {
   const { snapshot, edition } = input;
@@ -115,7 +83,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           {loc(`${lawName(snapshot.law)} · ${snapshot.title} · edition ${edition.number}`)}
         </Text>
       </View>
-      <CellGraphicsSvg cells={cardCells(grid, l)} rule={0.4} hatchWidth={0.4} />
+      <CellGraphicsSvg cells={gridCells(grid, l.grid)} rule={0.4} hatchWidth={0.4} />
       <Text
         style={{
           position: "absolute",
@@ -161,7 +129,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           <CellText
             key={`${i}-${j}`}
             view={cellView(cell)}
-            box={cellAt(l, i, j)}
+            box={cellBox(l.grid, i, j)}
             f={f}
             pressureLine={grid.rounding === "reach"}
             nf={nf}

@@ -245,40 +245,48 @@ export const heading = (box: Box): DrawnCell => ({
   view: { background: PALETTE.heading, hatch: false, border: 0 },
 });
 
+/** Where a grid's cells go: the poster's GridLayout, or the badge card's smaller frame. */
+type GridFrame = Pick<GridLayout, "cellsX" | "cellsY" | "cellWidth" | "cellHeight" | "rowHeadWidth" | "colHeadHeight">;
+
+/** One grid's corner, column and row headings, and cells, placed by `g`: the poster and the card draw grids alike. */
+export function gridCells(grid: Grid, g: GridFrame): DrawnCell[] {
+  const out: DrawnCell[] = [
+    heading({
+      x: g.cellsX - g.rowHeadWidth,
+      y: g.cellsY - g.colHeadHeight,
+      width: g.rowHeadWidth,
+      height: g.colHeadHeight,
+    }),
+  ];
+  grid.colAxis.values.forEach((_, j) =>
+    out.push(
+      heading({
+        x: g.cellsX + j * g.cellWidth,
+        y: g.cellsY - g.colHeadHeight,
+        width: g.cellWidth,
+        height: g.colHeadHeight,
+      }),
+    ),
+  );
+  grid.rowAxis.values.forEach((_, i) =>
+    out.push(
+      heading({
+        x: g.cellsX - g.rowHeadWidth,
+        y: g.cellsY + i * g.cellHeight,
+        width: g.rowHeadWidth,
+        height: g.cellHeight,
+      }),
+    ),
+  );
+  grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellBox(g, i, j), view: cellView(cell) })));
+  return out;
+}
+
 /** Headings, corner and cells of every grid, plus the legend's swatches: what the SVG layer draws. */
 function drawnCells(grids: Grid[], layout: PosterLayout, legend: LegendEntry[]): DrawnCell[] {
   const out: DrawnCell[] = [];
   grids.forEach((grid, gi) => {
-    const g = layout.grids[gi] as GridLayout;
-    out.push(
-      heading({
-        x: g.cellsX - g.rowHeadWidth,
-        y: g.cellsY - g.colHeadHeight,
-        width: g.rowHeadWidth,
-        height: g.colHeadHeight,
-      }),
-    );
-    grid.colAxis.values.forEach((_, j) =>
-      out.push(
-        heading({
-          x: g.cellsX + j * g.cellWidth,
-          y: g.cellsY - g.colHeadHeight,
-          width: g.cellWidth,
-          height: g.colHeadHeight,
-        }),
-      ),
-    );
-    grid.rowAxis.values.forEach((_, i) =>
-      out.push(
-        heading({
-          x: g.cellsX - g.rowHeadWidth,
-          y: g.cellsY + i * g.cellHeight,
-          width: g.rowHeadWidth,
-          height: g.cellHeight,
-        }),
-      ),
-    );
-    grid.cells.forEach((row, i) => row.forEach((cell, j) => out.push({ box: cellBox(g, i, j), view: cellView(cell) })));
+    out.push(...gridCells(grid, layout.grids[gi] as GridLayout));
   });
   legend.forEach((e, i) => {
     const row = layout.legendRows[i];
