@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, ne } from "drizzle-orm";
+import { and, desc, eq, ne, sql } from "drizzle-orm";
 import { sameClinical } from "@/lib/charts/clinical";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { copyAction, type CopyAction } from "@/lib/editions/action";
@@ -32,8 +32,18 @@ export type CheckView = {
   snapshots: { printed: Snapshot; current: Snapshot | null; live: Snapshot | null };
 };
 
-/** Everything the public check page shows for one QR token: no personal data. */
-export async function getCheckByToken({ token }: { token: string }): Promise<CheckView | null> {
+/**
+ * Everything the public check page shows for one QR token: no personal data. Every column this
+ * reads is also in getCheckVersion (snapshots through their fingerprints), so a page cached
+ * under that version is the page this would build.
+ */
+export async function getCheckByToken({
+  token,
+  now = new Date(),
+}: {
+  token: string;
+  now?: Date;
+}): Promise<CheckView | null> {
   const [row] = await db
     .select({
       edition: editions,
@@ -110,7 +120,7 @@ export async function getCheckByToken({ token }: { token: string }): Promise<Che
               (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
           }
         : null,
-    now: new Date(),
+    now,
   });
   return {
     status: result.status,
@@ -145,4 +155,42 @@ export async function getCheckTokenByShortCode({ code }: { code: string }): Prom
     .where(eq(editions.shortCode, code))
     .limit(1);
   return row?.token ?? null;
+}
+
+/**
+ * What the check page for this token depends on, in one indexed query without the snapshots
+ * (each snapshot is stood for by its SHA-256 fingerprint): the page built by getCheckByToken
+ * is the same for as long as this string is, except for the review-by date passing
+ * (lib/http/check-page.ts keys on that too). Null for an unknown token.
+ */
+export async function getCheckVersion({
+  token,
+}: {
+  token: string;
+}): Promise<{ version: string; reviewBy: Date | null } | null> {
+  const [row] = await db
+    .select({
+      edition: sql<string>`json_array(${editions.id}, ${editions.status}, ${editions.fingerprint}, ${editions.number},
+        ${editions.shortCode}, ${editions.createdAt}, ${editions.approvedAt}, ${editions.approvedByName},
+        ${editions.rejectedAt}, ${editions.supersededAt}, ${editions.withdrawnAt}, ${editions.reviewBy})`,
+      chart: sql<string>`json_array(${charts.id}, ${charts.title}, ${charts.liveFingerprint}, ${charts.liveChangedAt},
+        ${charts.archivedAt})`,
+      lab: sql<string>`json_array(${labs.id}, ${labs.slug}, ${labs.name}, ${labs.isDemo}, ${labs.timeZone},
+        ${labs.numberFormat}, ${labs.contactLine})`,
+      current: sql<string | null>`(select json_array(o.id, o.number, o.fingerprint, o.approved_at) from ${editions} o
+        where o.chart_id = ${editions.chartId} and o.status = 'approved' and o.id <> ${editions.id}
+        order by o.number desc limit 1)`,
+      draft: sql<string | null>`(select json_array(d.number, d.fingerprint) from ${editions} d
+        where d.chart_id = ${editions.chartId} and d.status = 'draft' order by d.number desc limit 1)`,
+      reviewBy: editions.reviewBy,
+    })
+    .from(editions)
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .innerJoin(labs, eq(labs.id, editions.labId))
+    .where(eq(editions.checkToken, token));
+  if (!row) return null;
+  return {
+    version: JSON.stringify([row.edition, row.chart, row.lab, row.current, row.draft]),
+    reviewBy: row.reviewBy,
+  };
 }

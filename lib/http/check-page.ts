@@ -1,5 +1,5 @@
 import "server-only";
-import { getCheckByToken, getCheckTokenByShortCode, type CheckView } from "@/db/queries/check";
+import { getCheckByToken, getCheckTokenByShortCode, getCheckVersion, type CheckView } from "@/db/queries/check";
 import { limitPublic, RateLimitedError, type PublicKind } from "@/lib/auth/public-limit";
 import { addressOf } from "@/lib/auth/request-address";
 import { actionSentence } from "@/lib/editions/action";
@@ -17,14 +17,6 @@ import { checkTokenSchema } from "@/lib/validation/check";
 
 // The public check page and the short-code redirect: plain HTML route handlers, so a scan
 // downloads no framework runtime (lib/editions/check-html.ts).
-
-const html = (body: string, status: number, extra: Record<string, string> = {}) =>
-  new Response(body, {
-    status,
-    headers: { "content-type": "text/html; charset=utf-8", "cache-control": "private, no-store", ...extra },
-  });
-
-const unknown = () => html(unknownCodeHtml(), 404);
 
 const DATE_WORD = { current: "Approved", outdated: "Stock or settings last changed", draft: "Drafted" } as const;
 
@@ -54,46 +46,112 @@ export function checkPageModel(view: CheckView, token: string): CheckPageModel {
   };
 }
 
+/** An answer as status, headers and body: a Response for Next, or written straight to the socket by server.mjs. */
+export type Reply = {
+  status: number;
+  headers: Record<string, string>;
+  body: string | null;
+  /** Where server.mjs's direct path keeps this body's gzip form (a cached page's). */
+  memo?: { gzip?: Buffer };
+};
+
+const htmlReply = (body: string, status: number, extra: Record<string, string> = {}): Reply => ({
+  status,
+  headers: { "content-type": "text/html; charset=utf-8", "cache-control": "private, no-store", ...extra },
+  body,
+});
+
+const unknown = () => htmlReply(unknownCodeHtml(), 404);
+
 /** Runs a public lookup under the per-address limit, answering 429 / 503 pages itself. */
-async function guarded(req: Request, kind: PublicKind, fn: () => Promise<Response>): Promise<Response> {
+async function guarded(headers: Headers, kind: PublicKind, fn: () => Promise<Reply>): Promise<Reply> {
   try {
-    await limitPublic(kind, addressOf(req.headers));
+    await limitPublic(kind, addressOf(headers));
     return await fn();
   } catch (err) {
     if (err instanceof RateLimitedError)
-      return html(rateLimitedHtml(err.message), 429, { "retry-after": String(err.retryAfterSeconds) });
-    if (isDatabaseUnreachable(err)) return html(outageHtml("check"), 503, { "retry-after": "30" });
+      return htmlReply(rateLimitedHtml(err.message), 429, { "retry-after": String(err.retryAfterSeconds) });
+    if (isDatabaseUnreachable(err)) return htmlReply(outageHtml("check"), 503, { "retry-after": "30" });
     throw err;
   }
 }
 
-const hasSessionCookie = (req: Request) =>
-  /(?:^|;\s*)(?:__Secure-)?authjs\.session-token/.test(req.headers.get("cookie") ?? "");
+export const hasSessionCookie = (headers: Headers) =>
+  /(?:^|;\s*)(?:__Secure-)?authjs\.session-token/.test(headers.get("cookie") ?? "");
+
+// Built pages by token, kept while nothing they show has changed. Each scan still asks MariaDB
+// (getCheckVersion: one indexed row, no snapshots), so a change made on any instance or Galera
+// node shows on the next scan; only the building (snapshots parsed, cells compared, HTML
+// written) is saved. Scans of one token that arrive while its version query runs share it.
+export type CheckPage = { labId: number; html: string; gzip?: Buffer };
+type Cached = { key: string; page: CheckPage };
+const CACHE_SIZE = 500;
+const g = globalThis as unknown as {
+  forkwallCheckPages?: Map<string, Cached>;
+  forkwallCheckVersions?: Map<string, ReturnType<typeof getCheckVersion>>;
+};
+const pages = (g.forkwallCheckPages ??= new Map());
+const inFlight = (g.forkwallCheckVersions ??= new Map());
+
+function versionOf(token: string) {
+  let q = inFlight.get(token);
+  if (!q) {
+    q = getCheckVersion({ token }).finally(() => inFlight.delete(token));
+    inFlight.set(token, q);
+  }
+  return q;
+}
+
+// The page also changes when the review-by date passes (keep becomes review).
+const keyOf = (v: { version: string; reviewBy: Date | null }, now: Date) =>
+  `${v.version}${v.reviewBy !== null && v.reviewBy.getTime() <= now.getTime() ? " due" : ""}`;
+
+/** The check page for a well-formed token (cached while its version holds), or null when no edition has it. */
+export async function checkPageFor(token: string): Promise<CheckPage | null> {
+  const v = await versionOf(token);
+  if (!v) return null;
+  const hit = pages.get(token);
+  if (hit && hit.key === keyOf(v, new Date())) return hit.page;
+  const now = new Date();
+  const view = await getCheckByToken({ token, now });
+  if (!view) return null;
+  const page: CheckPage = { labId: view.lab.id, html: checkPageHtml(checkPageModel(view, token)) };
+  // Kept only when nothing changed while it was built, so a cached page is never older than its key.
+  const after = await getCheckVersion({ token });
+  if (after && after.version === v.version) {
+    pages.delete(token);
+    pages.set(token, { key: keyOf(after, now), page });
+    if (pages.size > CACHE_SIZE) pages.delete(pages.keys().next().value as string);
+  }
+  return page;
+}
 
 /** GET /v/<token>: the check page; members of the edition's lab go on to /v/<token>/lab (rooms, printing). */
-export function checkPageResponse(req: Request, token: string): Promise<Response> {
+export async function checkPageReply(headers: Headers, token: string): Promise<Reply> {
   // The shape is checked before anything touches the database.
-  if (!checkTokenSchema.safeParse(token).success) return Promise.resolve(unknown());
-  return guarded(req, "check", async () => {
-    const view = await getCheckByToken({ token });
-    if (!view) return unknown();
-    if (hasSessionCookie(req)) {
+  if (!checkTokenSchema.safeParse(token).success) return unknown();
+  return guarded(headers, "check", async () => {
+    const page = await checkPageFor(token);
+    if (!page) return unknown();
+    if (hasSessionCookie(headers)) {
       const caller = await sessionCaller();
       const member =
-        caller.kind === "user" ? await authorize(caller, { labId: view.lab.id }, "lab:read").catch(() => null) : null;
-      if (member) return new Response(null, { status: 303, headers: { location: `/v/${token}/lab` } });
+        caller.kind === "user" ? await authorize(caller, { labId: page.labId }, "lab:read").catch(() => null) : null;
+      if (member) return { status: 303, headers: { location: `/v/${token}/lab` }, body: null };
     }
-    return html(checkPageHtml(checkPageModel(view, token)), 200);
+    return { ...htmlReply(page.html, 200), memo: page };
   });
 }
 
 /** GET /c/<code>: the typed short code leads to the same check page as the QR code. */
-export function shortCodeResponse(req: Request, input: string): Promise<Response> {
+export async function shortCodeReply(headers: Headers, input: string): Promise<Reply> {
   const code = parseShortCode(input);
-  if (!code) return Promise.resolve(unknown());
-  return guarded(req, "short-code", async () => {
+  if (!code) return unknown();
+  return guarded(headers, "short-code", async () => {
     const token = await getCheckTokenByShortCode({ code });
     if (!token) return unknown();
-    return new Response(null, { status: 303, headers: { location: `/v/${token}`, "cache-control": "no-store" } });
+    return { status: 303, headers: { location: `/v/${token}`, "cache-control": "no-store" }, body: null };
   });
 }
+
+export const toResponse = (r: Reply) => new Response(r.body, { status: r.status, headers: r.headers });

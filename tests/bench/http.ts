@@ -88,15 +88,17 @@ async function transfer(path: string) {
   return { status: page.status, items, total: items.reduce((s, i) => s + i.wire, 0) };
 }
 
-async function load(path: string) {
+async function load(path: string, rotate: string[] = []) {
   const result = await autocannon({
     url: `http://127.0.0.1:${port}${path}`,
     connections: CONNECTIONS,
     duration: SECONDS,
     headers: { host: `localhost:${port}`, "accept-encoding": "gzip" },
+    // Each connection walks the list in turn, so concurrent scans rarely share a token.
+    ...(rotate.length > 0 ? { requests: rotate.map((p) => ({ method: "GET" as const, path: p })) } : {}),
   });
   return {
-    path,
+    path: rotate.length > 0 ? `/v/<${rotate.length} tokens in turn>` : path,
     rps: result.requests.average,
     p50: result.latency.p50,
     p99: result.latency.p99,
@@ -138,15 +140,15 @@ try {
     database: env.DB_NAME,
   });
   const [rows] = await db.query(
-    "SELECT e.check_token AS token FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = 'demo' AND e.status = 'approved' ORDER BY e.id LIMIT 1",
+    "SELECT e.check_token AS token FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = 'demo' ORDER BY e.status <> 'approved', e.id",
   );
   await db.end();
-  const token = (rows as { token: string }[])[0]?.token;
-  if (!token) throw new Error("no approved demo edition");
-  const check = `/v/${token}`;
+  const tokens = (rows as { token: string }[]).map((r) => `/v/${r.token}`);
+  const check = tokens[0];
+  if (!check) throw new Error("no approved demo edition");
 
   // Warm each path once so the first-request compile and caches do not count.
-  for (const p of ["/icon.svg", check, "/calculator"]) await get(p);
+  for (const p of ["/icon.svg", ...tokens, "/calculator"]) await get(p);
 
   const scan = await transfer(check);
   say(`anonymous scan of /v/<token> (status ${scan.status}): ${(scan.total / 1024).toFixed(1)} KB on the wire`);
@@ -156,20 +158,24 @@ try {
 
   say(`autocannon: ${CONNECTIONS} connections, ${SECONDS} s per path, one after another on the same server`);
   const results = [];
-  for (const p of ["/icon.svg", check, "/calculator", "/icon.svg"]) results.push(await load(p));
+  // The first /v/ run is the issue's measure (one poster scanned over and over); the second
+  // spreads the scans over every demo edition, the case where no two scans share a lookup.
+  const runs: [string, string[]?][] = [["/icon.svg"], [check], [check, tokens], ["/calculator"], ["/icon.svg"]];
+  for (const [p, rotate] of runs) results.push(await load(p, rotate));
   // The static file's figure is the mean of its runs before and after, so drift counts against no one.
-  const base = (results[0]!.rps + results[3]!.rps) / 2;
-  console.log("\npath                         req/s   p50 ms   p99 ms   non-2xx  ratio to /icon.svg");
-  for (const r of results.slice(0, 3)) {
-    const name = r.path.startsWith("/v/") ? "/v/<token>" : r.path;
+  const base = (results[0]!.rps + results[4]!.rps) / 2;
+  console.log("\npath                             req/s   p50 ms   p99 ms   non-2xx  ratio to /icon.svg");
+  for (const r of results.slice(0, 4)) {
+    const name = r.path === check ? "/v/<token>" : r.path;
     console.log(
-      `${name.padEnd(26)} ${r.rps.toFixed(0).padStart(7)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(
+      `${name.padEnd(30)} ${r.rps.toFixed(0).padStart(7)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(
         r.non2xx + r.errors,
       ).padStart(9)}  ${(r.rps / base).toFixed(2)}`,
     );
   }
   console.log(
-    `\n/v/<token> throughput: ${((results[1]!.rps / base) * 100).toFixed(0)} % of /icon.svg (target at least 40 %); ` +
+    `\n/v/<token> throughput: ${((results[1]!.rps / base) * 100).toFixed(0)} % of /icon.svg (target at least 40 %), ` +
+      `${((results[2]!.rps / base) * 100).toFixed(0)} % with every demo token in turn; ` +
       `scan transfer: ${(scan.total / 1024).toFixed(1)} KB gzip (target at most 50 KB)`,
   );
 } finally {

@@ -181,3 +181,41 @@ test("the short code printed on a poster leads to the same check page as its QR 
   await expect(page.getByTestId("check-status")).toHaveAttribute("data-status", "current");
   await expect(page.getByTestId("check-code")).toHaveText(`${code!.slice(0, 4)}-${code!.slice(4)}`);
 });
+
+test("an anonymous scan, answered ahead of Next, is the page and headers Next gives a signed-in visitor", async ({
+  playwright,
+}) => {
+  // server.mjs answers cookie-less scans itself (lib/http/direct.ts); any session cookie, even
+  // one that is not valid, sends the request through Next's route handler instead.
+  const direct = await playwright.request.newContext({ baseURL: test.info().project.use.baseURL });
+  const viaNext = await playwright.request.newContext({
+    baseURL: test.info().project.use.baseURL,
+    extraHTTPHeaders: { cookie: "authjs.session-token=not-a-session" },
+  });
+  const SAME = [
+    "content-type",
+    "cache-control",
+    "content-security-policy",
+    "x-content-type-options",
+    "referrer-policy",
+    "x-frame-options",
+    "permissions-policy",
+  ];
+  for (const path of [`/v/${fx.current.token}`, `/v/${fx.outdated.token}`, "/v/not-a-poster-token-at-all"]) {
+    const a = await direct.get(path, { headers: { "accept-encoding": "gzip" } });
+    const b = await viaNext.get(path, { headers: { "accept-encoding": "gzip" } });
+    expect(a.status(), path).toBe(b.status());
+    expect(await a.text(), path).toBe(await b.text());
+    for (const h of SAME) expect(a.headers()[h], `${path} ${h}`).toBe(b.headers()[h]);
+    expect(a.headers()["content-security-policy"]).toContain("frame-ancestors 'none'");
+    const head = await direct.head(path);
+    expect(head.status()).toBe(a.status());
+    expect((await head.body()).length).toBe(0);
+  }
+  const code = await direct.get(`/c/${fx.current.shortCode.toLowerCase()}`, { maxRedirects: 0 });
+  expect(code.status()).toBe(303);
+  expect(code.headers()["location"]).toBe(`/v/${fx.current.token}`);
+  expect(code.headers()["x-frame-options"]).toBe("DENY");
+  await direct.dispose();
+  await viaNext.dispose();
+});
