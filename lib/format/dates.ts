@@ -16,16 +16,23 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
+// Building an Intl formatter loads the zone's rules: one per zone, kept (a few zones per server).
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
 function parts(date: Date, timeZone: string) {
-  const fmt = new Intl.DateTimeFormat("en-US", {
-    timeZone,
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    hourCycle: "h23",
-  });
+  let fmt = formatters.get(timeZone);
+  if (!fmt) {
+    fmt = new Intl.DateTimeFormat("en-US", {
+      timeZone,
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      hourCycle: "h23",
+    });
+    formatters.set(timeZone, fmt);
+  }
   const out: Record<string, string> = {};
   for (const p of fmt.formatToParts(date)) out[p.type] = p.value;
   return out as { year: string; month: string; day: string; hour: string; minute: string };

@@ -167,8 +167,11 @@ async function child(engine: Engine) {
   if (engine === "react-pdf") await import("@/lib/poster/pdf/render");
   else await pdfkitModules();
   const importMs = performance.now() - t0;
+  const cpu0 = process.cpuUsage();
   const firstMs = await renderOnce(engine, input);
-  console.log(JSON.stringify({ importMs, firstMs }));
+  const cpu = process.cpuUsage(cpu0);
+  // CPU time too: on a shared machine it varies less than wall time (all threads, so GC helpers count).
+  console.log(JSON.stringify({ importMs, firstMs, firstCpuMs: (cpu.user + cpu.system) / 1000 }));
 }
 
 /** Median time to read a stored render by its key, as a second download does; null without a database. */

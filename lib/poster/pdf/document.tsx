@@ -219,11 +219,11 @@ export function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[
       height={y1 - y0}
       viewBox={`${x0} ${y0} ${x1 - x0} ${y1 - y0}`}
     >
-      {g.fills.map((f, i) => (
-        <Rect key={i} x={f.box.x} y={f.box.y} width={f.box.width} height={f.box.height} fill={f.color} />
+      {g.fills.map((f) => (
+        <Path key={f.color} d={f.d} fill={f.color} />
       ))}
       {g.hatch ? <Path d={g.hatch} stroke={PALETTE.hatch} strokeWidth={hatchWidth} /> : null}
-      <Path d={g.rules} stroke={PALETTE.rule} strokeWidth={rule} fill="none" />
+      <Path d={g.rules} stroke={PALETTE.rule} strokeWidth={rule} strokeLinecap="square" fill="none" />
       {g.borders.map((b, i) => (
         <Rect
           key={`b${i}`}
