@@ -6,9 +6,11 @@ import { useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type FieldErrors } from "react-hook-form";
 import { saveChartAction } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { useServerAction } from "@/components/ui/use-server-action";
+import { CardSidesField, type CardIssue } from "@/components/charts/card-sides-field";
 import { ChartPreview } from "@/components/charts/chart-preview";
 import { Button } from "@/components/ui/button";
 import { FieldError } from "@/components/ui/field";
+import { cardAfterRemovingLookup } from "@/lib/charts/card-choice";
 import { defaultLookup } from "@/lib/charts/defaults";
 import type { LabStock } from "@/lib/charts/snapshot";
 import { ORIENTATIONS, PAPER_IDS, PAPERS } from "@/lib/poster/paper";
@@ -45,6 +47,16 @@ function errorAt(errors: FieldErrors<ChartDefinition>, path: string): string | u
   return (node as { message?: string } | undefined)?.message;
 }
 
+/** Every message at or under `path` in the form's errors (the schema's on submit, or the server's). */
+function errorsUnder(node: unknown, path: string, out: CardIssue[] = []): CardIssue[] {
+  if (!node || typeof node !== "object") return out;
+  const { message, ...rest } = node as Record<string, unknown>;
+  if (typeof message === "string" && message) out.push({ path, message });
+  for (const [key, child] of Object.entries(rest))
+    if (key !== "ref" && key !== "type" && key !== "types") errorsUnder(child, `${path}.${key}`, out);
+  return out;
+}
+
 export function ChartDesigner({
   slug,
   chartId,
@@ -78,6 +90,16 @@ export function ChartDesigner({
   const families = stock.balloonFamilies;
 
   const preview = useMemo(() => chartDefinitionSchema.safeParse(values), [values]);
+  // The card's problems as the form stands now, and any left from the last save.
+  const cardIssues = useMemo(() => {
+    const live: CardIssue[] = preview.success
+      ? []
+      : preview.error.issues
+          .filter((i) => i.path[0] === "card")
+          .map((i) => ({ path: i.path.join("."), message: i.message }));
+    const seen = new Set(live.map((i) => i.message));
+    return [...live, ...errorsUnder(formState.errors.card, "card").filter((i) => !seen.has(i.message))];
+  }, [preview, formState.errors.card]);
 
   const onSubmit = handleSubmit(async (def) => {
     setNotice(null);
@@ -224,7 +246,15 @@ export function ChartDesigner({
                   </div>
                 ))}
                 {lookups.fields.length > 1 ? (
-                  <Button type="button" variant="ghost" onClick={() => lookups.remove(i)}>
+                  <Button
+                    type="button"
+                    variant="ghost"
+                    onClick={() => {
+                      lookups.remove(i);
+                      // The card's sides name lookups by place: keep them on the same lookups.
+                      if (values.card) setValue("card", cardAfterRemovingLookup(values.card, i), { shouldDirty: true });
+                    }}
+                  >
                     Remove lookup {i + 1}
                   </Button>
                 ) : null}
@@ -331,6 +361,13 @@ export function ChartDesigner({
             <textarea id="notes" rows={3} {...register("notes")} className={field} />
             <FieldError id="notes-err" error={errorAt(formState.errors, "notes")} />
           </div>
+
+          <CardSidesField
+            lookups={values.lookups ?? []}
+            card={values.card}
+            issues={cardIssues}
+            onChange={(card) => setValue("card", card, { shouldDirty: true, shouldValidate: true })}
+          />
         </fieldset>
 
         {notice ? (

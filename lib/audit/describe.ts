@@ -106,6 +106,7 @@ const LABELS: Record<string, string> = {
   readingDistanceM: "Reading distance",
   notes: "Notes",
   roundingCaps: "Rounding caps",
+  card: "Badge card",
   stentPlatformId: "Stent platform",
   inStock: "In stock",
   diameterMm: "Diameter",
@@ -198,6 +199,19 @@ function lookupWords(v: unknown): string {
   return `${kind}: rows ${axisWords(v.rows)}, columns ${axisWords(v.cols)}, rounds ${ROUNDING[String(v.rounding)] ?? String(v.rounding)}`;
 }
 
+/** The card's sides as the designer names them: lookups counted from 1, ranges in mm. */
+function cardWords(v: Record<string, unknown>): string {
+  if (!Array.isArray(v.sides)) return show("", v, {});
+  const range = (r: unknown, what: string) => (Array.isArray(r) ? `${what} ${r.join(" to ")} mm` : `all ${what}`);
+  return v.sides
+    .map((side: Record<string, unknown>, i) =>
+      isPlain(side)
+        ? `side ${i + 1}: lookup ${Number(side.lookup) + 1}, ${range(side.rows, "rows")}, ${range(side.cols, "columns")}`
+        : String(side),
+    )
+    .join("; ");
+}
+
 function show(key: string, value: unknown, ctx: DescribeContext): string {
   if (value === null || value === undefined) return "none";
   if (key === "role" && isRole(value)) return ROLE_LABELS[value];
@@ -210,6 +224,7 @@ function show(key: string, value: unknown, ctx: DescribeContext): string {
   if (key === "rounding" && Array.isArray(value)) return value.map((r) => ROUNDING[String(r)] ?? String(r)).join(", ");
   if (key === "rounding") return ROUNDING[String(value)] ?? String(value);
   if (key === "lookups" && Array.isArray(value)) return value.map(lookupWords).join("; ");
+  if (key === "card" && isPlain(value)) return cardWords(value);
   if ((key === "roundingCaps" || key === "caps") && isPlain(value))
     return `${String(value.upMm)} mm above, ${String(value.downMm)} mm below`;
   if (key === "exceptions" && Array.isArray(value))
@@ -247,7 +262,8 @@ function changedLines(
     const after = a?.[key];
     if (a !== null && same(before, after)) continue;
     const name = prefix ? `${prefix} › ${label(key)}` : label(key);
-    const opens = isPlain(before) && isPlain(after) && !["law", "defaultLaw", "roundingCaps", "caps"].includes(key);
+    const opens =
+      isPlain(before) && isPlain(after) && !["law", "defaultLaw", "roundingCaps", "caps", "card"].includes(key);
     if (opens) {
       lines.push(...changedLines(before, after, name, ctx));
       continue;

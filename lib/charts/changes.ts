@@ -112,6 +112,8 @@ export function describeChanges(then: Snapshot, now: Snapshot | null): Change[] 
     out.push({ kind: "layout", detail: `Paper changed to ${PAPERS[now.paper].label} ${now.orientation}` });
   if (then.readingDistanceM !== now.readingDistanceM)
     out.push({ kind: "layout", detail: `Reading distance changed to ${now.readingDistanceM} m` });
+  if (JSON.stringify(then.card ?? null) !== JSON.stringify(now.card ?? null))
+    out.push({ kind: "layout", detail: "The badge card's sides changed" });
   if (then.logoSha256 !== now.logoSha256)
     out.push({ kind: "logo", detail: now.logoSha256 ? "The lab logo changed" : "The lab logo was removed" });
   return out;

@@ -1,7 +1,7 @@
 // Which part of a snapshot is clinical content: what a posted copy must agree with to stay on the
-// wall. Wording and layout (title, notes, logo, lab name, paper) may change without making a copy
-// wrong; the full fingerprint still tells editions apart. No node: imports (the check page's
-// client code reaches this file through lib/editions/check.ts).
+// wall. Wording and layout (title, notes, logo, lab name, paper, the badge card's sides) may
+// change without making a copy wrong; the full fingerprint still tells editions apart. No node:
+// imports (the check page's client code reaches this file through lib/editions/check.ts).
 import canonicalize from "canonicalize";
 import type { Snapshot } from "./snapshot";
 
@@ -19,6 +19,8 @@ export const WORDING_FIELDS = [
   "readingDistanceM",
   // The medical lead's recorded exceptions are printed as words; they change no cell.
   "ruleExceptions",
+  // Which lookup and range each side of the badge card prints: a cut of the same cells, no cell changes.
+  "card",
 ] as const satisfies readonly (keyof Snapshot)[];
 
 export type ClinicalPart = Omit<Snapshot, (typeof WORDING_FIELDS)[number]>;

@@ -12,7 +12,7 @@ import {
   type RoundingRule,
   type StentSize,
 } from "@/lib/sizing";
-import type { ChartDefinition } from "@/lib/validation/chart";
+import type { CardSide, ChartDefinition } from "@/lib/validation/chart";
 
 /** The lab's stock as the stock API returns it. */
 export type StockFamily = {
@@ -56,7 +56,16 @@ export type Snapshot = {
   caps?: RoundingCaps;
   /** Exceptions to the lab's rules the medical lead recorded for this chart; the poster prints them. Absent when none. */
   ruleExceptions?: { rule: string; reason: string }[];
+  /** The badge card's sides as the designer chose them (lib/poster/card.ts). Absent when not chosen. */
+  card?: { sides: [CardSide, CardSide] };
 };
+
+/** A side with only the keys it sets, so an unset range never reaches the fingerprint. */
+const cardSide = (side: CardSide): CardSide => ({
+  lookup: side.lookup,
+  ...(side.rows ? { rows: [side.rows[0], side.rows[1]] } : {}),
+  ...(side.cols ? { cols: [side.cols[0], side.cols[1]] } : {}),
+});
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
 
@@ -162,6 +171,8 @@ export function buildSnapshot(input: {
     caps: { ...(def.roundingCaps ?? DEFAULT_ROUNDING_CAPS) },
     // Only when there are some, so charts without exceptions keep their fingerprints.
     ...(input.ruleExceptions?.length ? { ruleExceptions: input.ruleExceptions.map((e) => ({ ...e })) } : {}),
+    // Likewise only when chosen: charts without a card choice keep their fingerprints.
+    ...(def.card ? { card: { sides: [cardSide(def.card.sides[0]), cardSide(def.card.sides[1])] } } : {}),
   };
 }
 

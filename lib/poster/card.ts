@@ -4,6 +4,7 @@
 // range of rows and columns (the chart's card choice, or the middle of its axes).
 import type { Snapshot } from "@/lib/charts/snapshot";
 import type { Grid } from "@/lib/sizing";
+import type { CardSide } from "@/lib/validation/chart";
 import { CELL, fontPtForArcmin, type Box } from "./layout";
 import { mmToPt } from "./paper";
 
@@ -17,7 +18,7 @@ export const CARD_PAGE = { width: mmToPt(CARD_WIDTH_MM), height: mmToPt(CARD_HEI
 export const CARD_MIN_FIGURE_PT = fontPtForArcmin(CARD_READING_DISTANCE_M, CARD_MIN_ARCMIN);
 
 /** A side of the card: which lookup, and optionally which rows and columns (axis values, inclusive). */
-export type CardSide = { lookup: number; rows?: [number, number]; cols?: [number, number] };
+export type { CardSide };
 
 export type CardLayout = {
   page: { width: number; height: number };
@@ -44,12 +45,14 @@ const MARGIN = mmToPt(2.5);
 const BAND = 12.5;
 const QR_SIDE = mmToPt(17);
 
-/** Which lookup and range each side prints: the chart's choice, else lookup 1 then 2 (or 1 twice). */
-export function cardSides(snapshot: Snapshot): CardSide[] {
-  const chosen = (snapshot as Snapshot & { card?: { sides?: CardSide[] } }).card?.sides;
-  if (chosen && chosen.length > 0) return [chosen[0] as CardSide, (chosen[1] ?? chosen[0]) as CardSide];
-  const n = snapshot.lookups.length;
-  return [{ lookup: 0 }, { lookup: n > 1 ? 1 : 0 }];
+/** The sides of a chart with no card choice: lookup 1 then 2 (or 1 twice), the middle of each axis. */
+export function defaultCardSides(lookupCount: number): [CardSide, CardSide] {
+  return [{ lookup: 0 }, { lookup: lookupCount > 1 ? 1 : 0 }];
+}
+
+/** Which lookup and range each side prints: the chart's choice, else the default. */
+export function cardSides(snapshot: Snapshot): [CardSide, CardSide] {
+  return snapshot.card?.sides ?? defaultCardSides(snapshot.lookups.length);
 }
 
 function box(x: number, y: number, width: number, height: number): Box {

@@ -79,6 +79,33 @@ export const lookupSchema = z
   })
   .strict();
 
+/** Axis values in mm, both ends included; checked against the lookup's axis with the whole definition. */
+const cardRangeSchema = z.tuple([z.number(), z.number()], { error: "A range is [from, to] in mm" });
+
+export const cardSideSchema = z
+  .object({
+    lookup: z
+      .number({ error: "Choose a lookup for this side" })
+      .int("Choose a lookup for this side")
+      .min(0, "Choose a lookup for this side"),
+    rows: cardRangeSchema.optional(),
+    cols: cardRangeSchema.optional(),
+  })
+  .strict();
+
+/**
+ * The badge card's two sides: which lookup each prints (its index in `lookups`, from 0) and
+ * optionally which rows and columns. Null or absent: lookup 1 then 2, the middle of each axis.
+ */
+export const cardSchema = z
+  .object({
+    sides: z.tuple([cardSideSchema, cardSideSchema], { error: "The badge card has two sides: give one for each" }),
+  })
+  .strict();
+
+export type CardSide = z.infer<typeof cardSideSchema>;
+export type CardChoice = z.infer<typeof cardSchema>;
+
 const stentPlatformIdSchema = z.number().int().positive().nullable();
 const notesSchema = freeText({
   what: "Notes",
@@ -87,7 +114,7 @@ const notesSchema = freeText({
   maxMessage: "Keep notes under 600 characters",
 });
 
-export const chartDefinitionSchema = z
+const chartFields = z
   .object({
     title: freeText({
       what: "Title",
@@ -119,8 +146,57 @@ export const chartDefinitionSchema = z
     notes: notesSchema.default(""),
     // Until lab rules hold them, the caps live in the chart; stored charts without them take the defaults.
     roundingCaps: roundingCapsSchema.default({ ...DEFAULT_ROUNDING_CAPS }),
+    card: cardSchema.nullish(),
   })
   .strict();
+
+const mmText = (v: number) => `${v.toFixed(2)} mm`;
+const onAxis = (values: readonly number[], v: number) => values.some((a) => Math.abs(a - v) < 1e-6);
+
+/** Each card side names a lookup the chart has, and its ranges run forwards over values on that lookup's axes. */
+function checkCard(def: z.infer<typeof chartFields>, ctx: z.RefinementCtx) {
+  def.card?.sides.forEach((side, s) => {
+    const where = `Badge card side ${s + 1}`;
+    const path = ["card", "sides", s];
+    const lookup = def.lookups[side.lookup];
+    if (!lookup) {
+      const has = def.lookups.length === 1 ? "1 lookup" : `${def.lookups.length} lookups`;
+      ctx.addIssue({
+        code: "custom",
+        path: [...path, "lookup"],
+        message: `${where}: the chart has no lookup ${side.lookup + 1} (it has ${has})`,
+      });
+      return;
+    }
+    for (const axis of ["rows", "cols"] as const) {
+      const range = side[axis];
+      if (!range) continue;
+      const name = axis === "rows" ? "rows" : "columns";
+      const [from, to] = range;
+      if (from > to) {
+        ctx.addIssue({
+          code: "custom",
+          path: [...path, axis],
+          message: `${where}: the ${name} run from ${mmText(from)} to ${mmText(to)}; "from" must not be above "to"`,
+        });
+        continue;
+      }
+      // An unusable axis has its own issue on the lookup.
+      const values = resolveAxis(lookup[axis] as AxisInput);
+      if (!values.ok) continue;
+      range.forEach((v, k) => {
+        if (!onAxis(values.values, v))
+          ctx.addIssue({
+            code: "custom",
+            path: [...path, axis, k],
+            message: `${where}: ${mmText(v)} is not one of lookup ${side.lookup + 1}'s ${name} (${values.values.map((x) => x.toFixed(2)).join(", ")} mm)`,
+          });
+      });
+    }
+  });
+}
+
+export const chartDefinitionSchema = chartFields.superRefine(checkCard);
 
 export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
 
@@ -129,7 +205,7 @@ export type ChartDefinition = z.infer<typeof chartDefinitionSchema>;
  * with defaults lose them here, so a PATCH that leaves a field out keeps the chart's own value
  * (a title change must not drop the stent platform and with it the stent-limit check).
  */
-export const chartPatchSchema = chartDefinitionSchema
+export const chartPatchSchema = chartFields
   .extend({ stentPlatformId: stentPlatformIdSchema, notes: notesSchema, roundingCaps: roundingCapsSchema })
   .partial()
   .strict();

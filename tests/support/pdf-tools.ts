@@ -86,3 +86,36 @@ export async function pdfText(pdf: Buffer): Promise<{ text: string; info: Record
     await parser.destroy();
   }
 }
+
+/** A word as poppler's pdftotext -bbox places it, in points from the page's top left. */
+export type PdfWord = { text: string; xMin: number; yMin: number; xMax: number; yMax: number };
+
+/** Every page's words with their boxes (pdftotext -bbox). */
+export function pdfWords(pdf: Buffer): PdfWord[][] {
+  const xml = withTempDir((dir) => {
+    const file = path.join(dir, "p.pdf");
+    writeFileSync(file, pdf);
+    return execFileSync("pdftotext", ["-bbox", file, "-"], { encoding: "utf8" });
+  });
+  const unescape = (t: string) =>
+    t
+      .replace(/&lt;/g, "<")
+      .replace(/&gt;/g, ">")
+      .replace(/&quot;/g, '"')
+      .replace(/&apos;/g, "'")
+      .replace(/&amp;/g, "&");
+  return xml
+    .split(/<page /)
+    .slice(1)
+    .map((page) =>
+      [...page.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/g)].map(
+        (m) => ({
+          text: unescape(m[5] as string),
+          xMin: Number(m[1]),
+          yMin: Number(m[2]),
+          xMax: Number(m[3]),
+          yMax: Number(m[4]),
+        }),
+      ),
+    );
+}

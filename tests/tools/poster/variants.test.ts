@@ -8,6 +8,7 @@ import { renderCardPdf, renderPosterPdf } from "@/lib/poster/pdf/render";
 import { ARCHIVE_STAMP, NOT_CURRENT_BAND, stampBands, tilePoster } from "@/lib/poster/pdf/variants";
 import { CARD_HEIGHT_MM, CARD_MIN_FIGURE_PT, cardCapacity } from "@/lib/poster/card";
 import { tilePlan, TILE_OVERLAP_MM, TILE_SHEETS, type TileSheet } from "@/lib/poster/tiles";
+import { cardHeadings } from "@/tests/support/card-headings";
 import { withTempDir, zbarDecode } from "@/tests/support/pdf-tools";
 import { posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
 
@@ -229,4 +230,56 @@ describe("the badge card", () => {
     const banded = await stampBands(card, { kind: "not-current", date: "2026-12-02", reason: "withdrawn" });
     for (const t of pageTexts(banded)) expect(t).toContain(`${NOT_CURRENT_BAND} 2026-12-02`);
   });
+});
+
+describe("a badge card whose sides the designer chose", () => {
+  // Side 1: the POT lookup's whole axes (7 x 7, more than fit); side 2: the side-branch lookup,
+  // rows (parent) 3.25-3.75 of 3.0-4.5 and columns (main branch) 2.75-3.25 of 2.5-4.0.
+  const chosen = snapshotOf({
+    ...potDefinition,
+    lookups: [
+      potDefinition.lookups[0],
+      {
+        kind: "side",
+        rows: { from: 3, to: 4.5, step: 0.25 },
+        cols: { from: 2.5, to: 4, step: 0.25 },
+        rounding: "down",
+        familyId: 2,
+      },
+    ],
+    card: { sides: [{ lookup: 0 }, { lookup: 1, rows: [3.25, 3.75], cols: [2.75, 3.25] }] },
+  });
+  let card: Buffer;
+  beforeAll(async () => {
+    card = await renderCardPdf(posterInput(chosen));
+  }, 60_000);
+
+  it("prints the chosen lookup on side 2 with exactly the chosen rows and columns", () => {
+    const texts = pageTexts(card);
+    expect(texts).toHaveLength(2);
+    expect(texts[1]).toContain("Side-branch balloon from parent × main branch");
+    expect(texts[1]).not.toContain("POT balloon (parent)");
+    const [, back] = cardHeadings(card, chosen);
+    expect(back).toEqual({ rows: ["3.25", "3.5", "3.75"], cols: ["2.75", "3.0", "3.25"] });
+  });
+
+  it("prints the middle of an axis wider than fits on side 1", () => {
+    const texts = pageTexts(card);
+    expect(texts[0]).toContain("POT balloon (parent)");
+    const [front] = cardHeadings(card, chosen);
+    const cap = cardCapacity(false);
+    // 7 values each way, 6 fit: the middle 6 drops the last value (the odd one goes above).
+    expect(cap).toEqual({ rows: 6, cols: 6 });
+    expect(front).toEqual({
+      rows: ["2.5", "2.75", "3.0", "3.25", "3.5", "3.75"],
+      cols: ["2.0", "2.25", "2.5", "2.75", "3.0", "3.25"],
+    });
+  });
+
+  it("without a choice, a one-lookup chart prints lookup 1 on both sides", async () => {
+    const plain = snapshotOf(potDefinition);
+    const [front, back] = cardHeadings(await renderCardPdf(posterInput(plain)), plain);
+    expect(back).toEqual(front);
+    expect(front!.cols).toEqual(["2.0", "2.25", "2.5", "2.75", "3.0", "3.25"]);
+  }, 60_000);
 });

@@ -63,6 +63,32 @@ describe("wording-only changes", () => {
     expect(rewordedSentence(r.reworded!)).toMatch(/reworded edition is available \(edition 2\)/);
   });
 
+  it("a new badge card choice is wording too: the copy stays current and names the edition that carries it", () => {
+    const carded: Snapshot = {
+      ...base,
+      card: {
+        sides: [
+          { lookup: 0, rows: [3, 3.5] },
+          { lookup: 0, cols: [2.5, 3] },
+        ],
+      },
+    };
+    expect(checkEdition(edition(), liveOf(carded), null)).toEqual({ status: "current", changes: [] });
+    const draft = { number: 2, fingerprint: fingerprintOf(carded), snapshot: carded };
+    expect(checkEdition(edition(), liveOf(carded), null, draft).reworded).toEqual({ number: 2, status: "draft" });
+    const sup = edition({ status: "superseded", supersededAt: new Date("2026-11-20T00:00:00Z") });
+    expect(checkEdition(sup, liveOf(carded), { number: 2, approvedAt: new Date(), snapshot: carded })).toEqual({
+      status: "current",
+      changes: [],
+      reworded: { number: 2, status: "approved" },
+    });
+    // The card choice rides along with a clinical change but does not hide it.
+    const both: Snapshot = { ...clinicalChange, card: carded.card! };
+    const r = checkEdition(edition(), liveOf(both), null);
+    expect(r.status).toBe("outdated");
+    expect(r.changes.map((c) => c.detail)).toContain("The badge card's sides changed");
+  });
+
   it("a clinical change still makes copies outdated, and a superseding clinical change supersedes", () => {
     expect(checkEdition(edition(), liveOf(clinicalChange), null).status).toBe("outdated");
     const sup = edition({ status: "superseded", supersededAt: new Date("2026-11-20T00:00:00Z") });
