@@ -56,7 +56,7 @@ export function LogoField({
         )}
         {canEdit ? (
           <div className="flex flex-wrap items-center gap-2">
-            <label className="text-sm font-medium">
+            <label className="min-w-0 max-w-full text-sm font-medium">
               <span className="sr-only">Logo file ({LIMIT})</span>
               <input
                 ref={input}
@@ -67,7 +67,7 @@ export function LogoField({
                   const file = e.target.files?.[0];
                   if (file) void upload(file);
                 }}
-                className="text-sm file:mr-2 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5"
+                className="w-full max-w-full text-sm file:mr-2 file:rounded-md file:border file:border-line-strong file:bg-white file:px-3 file:py-1.5"
               />
             </label>
             {logoSha256 ? (
