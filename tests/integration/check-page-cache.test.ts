@@ -8,40 +8,18 @@ import { db, pool } from "@/db";
 import { getCheckByToken } from "@/db/queries/check";
 import { archiveChart } from "@/db/queries/charts";
 import { updateLabSettings } from "@/db/queries/lab-settings";
-import { balloonFamilies, balloons, editions } from "@/db/schema";
+import { editions } from "@/db/schema";
 import { checkPageHtml } from "@/lib/editions/check-html";
 import { checkPageFor, checkPageModel } from "@/lib/http/check-page";
 import { labWrite } from "@/lib/ops/write";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
-import { approveEdition, createChart, createEdition, deleteBalloon, withdrawEdition } from "./support/writes";
+import { approveEdition, createEdition, deleteBalloon, labWithSmallChart, withdrawEdition } from "./support/writes";
 
-let team: Awaited<ReturnType<typeof labWithTeam>>;
+let team: Awaited<ReturnType<typeof labWithSmallChart>>["team"];
 let chartId = 0;
-const balloonIds: number[] = [];
+let balloonIds: number[] = [];
 
 beforeAll(async () => {
-  team = await labWithTeam();
-  const [fam] = await db
-    .insert(balloonFamilies)
-    .values({ labId: team.lab.id, name: "NC cache", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
-    .$returningId();
-  for (const d of [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25, 4.5]) {
-    const [b] = await db
-      .insert(balloons)
-      .values({ labId: team.lab.id, familyId: fam!.id, diameterMm: d })
-      .$returningId();
-    balloonIds.push(b!.id);
-  }
-  const definition = chartDefinitionSchema.parse({
-    title: "Cache chart",
-    law: { law: "murray" },
-    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
-    paper: "A4",
-    orientation: "portrait",
-    readingDistanceM: 1,
-  });
-  chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+  ({ team, chartId, balloonIds } = await labWithSmallChart({ name: "Cache" }));
 });
 
 afterEach(() => vi.useRealTimers());

@@ -3,11 +3,10 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { balloonFamilies, balloons, editions, labRules } from "@/db/schema";
+import { balloonFamilies, editions, labRules } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import type { EditionDiff } from "@/lib/editions/diff";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
@@ -15,13 +14,12 @@ import { GET as diffRoute } from "@/app/api/v1/editions/[id]/diff/route";
 import { PUT as putRules } from "@/app/api/v1/labs/[slug]/rules/route";
 import { signOffQueue } from "@/lib/ops/editions";
 import type { Caller } from "@/lib/ops/caller";
-import { labWithTeam } from "./support/fixtures";
-import { createChart } from "./support/writes";
+import { labWithSmallChart } from "./support/writes";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
 
-let team: Awaited<ReturnType<typeof labWithTeam>>;
+let team: Awaited<ReturnType<typeof labWithSmallChart>>["team"];
 let chartId = 0;
 type Who = "manager" | "lead" | "educator" | "operator" | "outsider";
 const as = (who: Who) => {
@@ -64,27 +62,7 @@ const patch = async (body: unknown) => {
 };
 
 beforeAll(async () => {
-  team = await labWithTeam();
-  const [fam] = await db
-    .insert(balloonFamilies)
-    .values({ labId: team.lab.id, name: "NC diff", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
-    .$returningId();
-  await db.insert(balloons).values(
-    [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25, 4.5].map((d) => ({
-      labId: team.lab.id,
-      familyId: fam!.id,
-      diameterMm: d,
-    })),
-  );
-  const definition = chartDefinitionSchema.parse({
-    title: "Diff chart",
-    law: { law: "murray" },
-    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
-    paper: "A4",
-    orientation: "portrait",
-    readingDistanceM: 1,
-  });
-  chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+  ({ team, chartId } = await labWithSmallChart({ name: "Diff" }));
 });
 
 afterAll(() => pool.end());

@@ -3,10 +3,9 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { balloonFamilies, balloons, editions, labRules } from "@/db/schema";
+import { editions, labRules } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
@@ -14,13 +13,12 @@ import { POST as rejectRoute } from "@/app/api/v1/editions/[id]/reject/route";
 import { POST as withdrawRoute } from "@/app/api/v1/editions/[id]/withdraw/route";
 import { GET as getRules, PUT as putRules } from "@/app/api/v1/labs/[slug]/rules/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
-import { labWithTeam } from "./support/fixtures";
-import { createChart } from "./support/writes";
+import { labWithSmallChart } from "./support/writes";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
 
-let team: Awaited<ReturnType<typeof labWithTeam>>;
+let team: Awaited<ReturnType<typeof labWithSmallChart>>["team"];
 let chartId = 0;
 type Role = "manager" | "lead" | "educator" | "operator";
 const asRole = (role: Role) => {
@@ -46,25 +44,7 @@ async function call<P>(handler: Handler<P>, params: P, method: string, body?: un
 }
 
 beforeAll(async () => {
-  team = await labWithTeam();
-  const [fam] = await db
-    .insert(balloonFamilies)
-    .values({ labId: team.lab.id, name: "NC routes", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
-    .$returningId();
-  await db
-    .insert(balloons)
-    .values(
-      [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25].map((d) => ({ labId: team.lab.id, familyId: fam!.id, diameterMm: d })),
-    );
-  const definition = chartDefinitionSchema.parse({
-    title: "Route chart",
-    law: { law: "murray" },
-    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
-    paper: "A4",
-    orientation: "portrait",
-    readingDistanceM: 1,
-  });
-  chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+  ({ team, chartId } = await labWithSmallChart({ name: "Route", diameters: [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25] }));
 });
 
 afterAll(() => pool.end());

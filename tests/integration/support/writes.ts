@@ -1,6 +1,7 @@
 // The query-level writes, each run through the operations layer's one write path (lab row
 // locked, change, lab pass, audit row, then mail), for tests that set up or exercise data below
 // the authorisation step. Tests of who may do what call lib/ops with a caller instead.
+import { db } from "@/db";
 import type { Tx } from "@/db/queries/audit";
 import * as charts from "@/db/queries/charts";
 import * as editions from "@/db/queries/editions";
@@ -9,8 +10,11 @@ import * as members from "@/db/queries/members";
 import * as postings from "@/db/queries/postings";
 import * as rooms from "@/db/queries/rooms";
 import * as stock from "@/db/queries/stock";
+import { balloonFamilies, balloons } from "@/db/schema";
 import type { CsvRow } from "@/lib/stock/csv";
+import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { accountWrite, labWrite } from "@/lib/ops/write";
+import { labWithTeam } from "./fixtures";
 
 type Write<A> = (tx: Tx, args: A) => Promise<unknown>;
 function inLab<A extends { labId: number }, R>(fn: (tx: Tx, args: A) => Promise<R>) {
@@ -60,4 +64,38 @@ export const revokeInvitation = inLab(invitations.revokeInvitation);
 /** Accepting belongs to no lab until the invitation is read: one plain transaction. */
 export function acceptInvitation(args: Parameters<typeof invitations.acceptInvitation>[1]) {
   return accountWrite((tx) => invitations.acceptInvitation(tx, args));
+}
+
+/**
+ * A lab with one person in each role, an invented NC balloon family (nominal 10 atm, RBP 18 atm)
+ * stocked at `diameters`, and a small Murray POT chart over it (rows 3-3.5, columns 2.5-3, A4 at
+ * 1 m, legible) drafted by the educator: what the sign-off and check tests start from.
+ */
+export async function labWithSmallChart({
+  name,
+  diameters = [2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25, 4.5],
+}: {
+  name: string;
+  diameters?: number[];
+}) {
+  const team = await labWithTeam();
+  const [fam] = await db
+    .insert(balloonFamilies)
+    .values({ labId: team.lab.id, name: `NC ${name}`, compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
+    .$returningId();
+  const balloonIds: number[] = [];
+  for (const diameterMm of diameters) {
+    const [b] = await db.insert(balloons).values({ labId: team.lab.id, familyId: fam!.id, diameterMm }).$returningId();
+    balloonIds.push(b!.id);
+  }
+  const definition = chartDefinitionSchema.parse({
+    title: `${name} chart`,
+    law: { law: "murray" },
+    lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    paper: "A4",
+    orientation: "portrait",
+    readingDistanceM: 1,
+  });
+  const chartId = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
+  return { team, familyId: fam!.id, balloonIds, chartId };
 }
