@@ -1,6 +1,7 @@
 import { actionSentence } from "@/lib/editions/action";
 import { CHECK_HEADLINES, type CheckStatus } from "@/lib/editions/check";
 import { rewordedSentence, type CheckJson } from "@/lib/editions/check-json";
+import { formatDate } from "@/lib/format/dates";
 
 // A symbol and a word for every status: colour is never the only signal.
 const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
@@ -11,15 +12,12 @@ const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
   draft: { symbol: "✎", cls: "border-danger bg-danger-soft text-danger" },
 };
 
-const day = (iso: string | null) =>
-  iso
-    ? new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" })
-    : null;
+const day = (iso: string | null, timeZone: string) => (iso ? formatDate(new Date(iso), timeZone) : null);
 
 /** The status block of the check page: plain server HTML, readable without JavaScript. */
 export function CheckStatusView({ check }: { check: CheckJson }) {
   const look = LOOK[check.status];
-  const since = day(check.since);
+  const since = day(check.since, check.lab.timeZone);
   return (
     <div>
       <p className="text-sm text-ink-soft">
@@ -57,6 +55,7 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
         {actionSentence(check.action, {
           reviewBy: check.reviewBy ? new Date(check.reviewBy) : null,
           replacement: check.currentEdition,
+          timeZone: check.lab.timeZone,
         })}
       </p>
       {check.rewordedEdition ? (
@@ -79,7 +78,10 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
       {check.currentEdition ? (
         <p className="mt-4 text-ink-soft">
           The current edition of this chart is edition {check.currentEdition.number}
-          {check.currentEdition.approvedAt ? `, approved ${day(check.currentEdition.approvedAt)}` : ""}.
+          {check.currentEdition.approvedAt
+            ? `, approved ${day(check.currentEdition.approvedAt, check.lab.timeZone)}`
+            : ""}
+          .
         </p>
       ) : null}
     </div>

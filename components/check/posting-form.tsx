@@ -13,7 +13,8 @@ export function PostingForm({
 }: {
   token: string;
   rooms: { id: number; name: string }[];
-  hanging: { postingId: number; roomName: string; postedAt: string }[];
+  /** `postedOn`: the date it went up, already written in the lab's time zone. */
+  hanging: { postingId: number; roomName: string; postedOn: string }[];
   canPost: boolean;
 }) {
   const [roomId, setRoomId] = useState(rooms[0]?.id ?? 0);
@@ -28,9 +29,7 @@ export function PostingForm({
           {hanging.map((h) => (
             <li key={h.postingId} className="flex flex-wrap items-center gap-2">
               <span>{h.roomName}</span>
-              <span className="text-sm text-ink-faint">
-                since {new Date(h.postedAt).toLocaleDateString("en-GB", { timeZone: "UTC" })}
-              </span>
+              <span className="text-sm text-ink-faint">since {h.postedOn}</span>
               <Button
                 variant="ghost"
                 className="py-1 text-sm"

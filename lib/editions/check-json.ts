@@ -1,4 +1,5 @@
 import type { Change } from "@/lib/charts/changes";
+import { DEFAULT_TIME_ZONE } from "@/lib/format/dates";
 import type { CopyAction } from "./action";
 import type { CheckStatus, Reworded } from "./check";
 
@@ -11,7 +12,8 @@ export type CheckJson = {
   since: string | null;
   edition: { number: number; approvedAt: string | null };
   chart: { title: string };
-  lab: { name: string };
+  /** `timeZone`: the lab's IANA zone, in which pages show these dates (lib/format/dates.ts). */
+  lab: { name: string; timeZone: string };
   changes: Change[];
   currentEdition: { number: number; approvedAt: string | null } | null;
   /** True when an edition that only rewords this copy exists (same clinical content); it is named below. */
@@ -26,7 +28,7 @@ export function checkJson(v: {
   since: Date | null;
   edition: { number: number; approvedAt: Date | null };
   chart: { title: string };
-  lab: { name: string };
+  lab: { name: string; timeZone?: string };
   changes: Change[];
   currentEdition: { number: number; approvedAt: Date | null } | null;
   reworded?: Reworded | null;
@@ -38,7 +40,7 @@ export function checkJson(v: {
     since: v.since?.toISOString() ?? null,
     edition: { number: v.edition.number, approvedAt: v.edition.approvedAt?.toISOString() ?? null },
     chart: { title: v.chart.title },
-    lab: { name: v.lab.name },
+    lab: { name: v.lab.name, timeZone: v.lab.timeZone ?? DEFAULT_TIME_ZONE },
     changes: v.changes.map((c) => ({ kind: c.kind, detail: c.detail })),
     currentEdition: v.currentEdition
       ? { number: v.currentEdition.number, approvedAt: v.currentEdition.approvedAt?.toISOString() ?? null }

@@ -5,7 +5,7 @@ import { execFileSync } from "node:child_process";
 import { expect, test, type Page } from "@playwright/test";
 import { parseShortCode } from "@/lib/editions/short-code";
 import { jsqrDecode, rasterise } from "../support/pdf-tools";
-import { demoEmail, signInApi } from "./support/auth";
+import { demoEmail, signInApi, signInPage } from "./support/auth";
 import { makeCheckFixtures, type CheckFixtures } from "./support/check-fixtures";
 import { demoIds, query } from "./support/db";
 
@@ -117,6 +117,29 @@ test("dates are shown in the lab's time zone", async ({ page }) => {
     await page.goto(`/v/${fx.review.token}`);
     await expect(page.getByTestId("check-action")).toContainText("2026-01-01");
   } finally {
+    await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["UTC", fx.labSlug]);
+  }
+});
+
+test("a member's check page shows its dates in the lab's time zone too", async ({ page }) => {
+  // Etc/GMT+12 is UTC-12: approved 2026-11-20 09:00 UTC is the evening of 19 November there.
+  await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["Etc/GMT+12", fx.labSlug]);
+  await query(
+    `INSERT INTO memberships (lab_id, user_id, role)
+     SELECT l.id, u.id, 'operator' FROM labs l, users u WHERE l.slug = ? AND u.email = ?`,
+    [fx.labSlug, demoEmail("operator")],
+  );
+  try {
+    await signInPage(page, demoEmail("operator"), undefined, `/v/${fx.current.token}/lab`);
+    await page.goto(`/v/${fx.current.token}`);
+    await expect(page).toHaveURL(new RegExp(`/v/${fx.current.token}/lab$`));
+    await expect(page.getByTestId("check-status")).toContainText("Approved 2026-11-19");
+  } finally {
+    await query(
+      `DELETE m FROM memberships m JOIN labs l ON l.id = m.lab_id JOIN users u ON u.id = m.user_id
+       WHERE l.slug = ? AND u.email = ?`,
+      [fx.labSlug, demoEmail("operator")],
+    );
     await query("UPDATE labs SET time_zone = ? WHERE slug = ?", ["UTC", fx.labSlug]);
   }
 });

@@ -8,6 +8,7 @@ import { requestAddress } from "@/lib/auth/request-address";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { checkJson } from "@/lib/editions/check-json";
 import { env } from "@/lib/env";
+import { formatDate } from "@/lib/format/dates";
 import { forPage } from "@/lib/auth/page-guard";
 import { sessionCaller } from "@/lib/ops/caller";
 import { checkPage } from "@/lib/ops/postings";
@@ -54,7 +55,11 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
           <PostingForm
             token={token}
             rooms={rooms.map((r) => ({ id: r.id, name: r.name }))}
-            hanging={hanging.map((h) => ({ ...h, postedAt: h.postedAt.toISOString() }))}
+            hanging={hanging.map((h) => ({
+              postingId: h.postingId,
+              roomName: h.roomName,
+              postedOn: formatDate(h.postedAt, view.lab.timeZone),
+            }))}
             canPost={can(role, "posting:record") && (view.status === "current" || view.status === "outdated")}
           />
         </>
