@@ -11,15 +11,21 @@ import { readPostings } from "./postings";
 /**
  * Inside the transaction of a change, after the lab's live snapshots were refreshed: works out
  * every hanging copy's status, stores it, and when copies newly went stale records ONE notice
- * for this change (its key is unique per lab, so a change never mails twice).
+ * for this change (its key is unique per lab, so a change never mails twice). `cleared`: the
+ * change itself ended a stale copy (it was taken down), so an all-clear is due if none is left.
  */
 export async function reconcilePostings(
   tx: Tx,
-  { labId, changeKey, cause }: { labId: number; changeKey: string; cause: string },
+  {
+    labId,
+    changeKey,
+    cause,
+    cleared: clearedByChange = false,
+  }: { labId: number; changeKey: string; cause: string; cleared?: boolean },
 ) {
   const newlyStale: StaleItem[] = [];
   const copies = await readPostings(tx, labId);
-  let cleared = false;
+  let cleared = clearedByChange;
   for (const copy of copies) {
     if (copy.status === copy.lastStatus) continue;
     if (STALE.includes(copy.lastStatus) && !STALE.includes(copy.status)) cleared = true;

@@ -1,12 +1,12 @@
 import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import type { Snapshot } from "@/lib/charts/snapshot";
-import { checkEdition, type CheckStatus } from "@/lib/editions/check";
+import { checkEdition, STALE, type CheckStatus } from "@/lib/editions/check";
 import { AppError, notFound } from "@/lib/errors";
 import type { Database } from "../index";
 import { charts, editions, postings, rooms, users } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
-import { initialPostingStatus } from "./notices";
+import { initialPostingStatus, reconcilePostings } from "./notices";
 
 export type PostingView = {
   postingId: number;
@@ -168,4 +168,21 @@ export async function takeDownPosting(
     targetId: postingId,
     detail: { editionId: p.editionId, roomId: p.roomId },
   });
+  // The last stale copy coming down leaves every wall right: the manager hears so, as when the
+  // copies turn current again.
+  if (STALE.includes(p.lastStatus)) {
+    const [what] = await tx
+      .select({ room: rooms.name, chart: charts.title, edition: editions.number })
+      .from(postings)
+      .innerJoin(rooms, eq(rooms.id, postings.roomId))
+      .innerJoin(editions, eq(editions.id, postings.editionId))
+      .innerJoin(charts, eq(charts.id, editions.chartId))
+      .where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
+    await reconcilePostings(tx, {
+      labId,
+      changeKey: `posting:${postingId}:removed`,
+      cause: `The ${p.lastStatus} printout of "${what!.chart}" (edition ${what!.edition}) was taken down in ${what!.room}.`,
+      cleared: true,
+    });
+  }
 }

@@ -1,11 +1,11 @@
 // Mail that helps, over SMTP to the local fake: stale copies are reported as one digest per lab
 // after a quiet period (sent once, however many deliverers race for it), an all-clear follows
-// when every copy is current again, a change undone within the quiet period mails nothing, and
-// sign-off mails reach the approvers and the author.
-import { and, eq } from "drizzle-orm";
+// when every copy is current again (or the last stale one is taken down), a change undone
+// within the quiet period mails nothing, and sign-off mails reach the approvers and the author.
+import { and, eq, isNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { balloonFamilies, balloons, staleNotices } from "@/db/schema";
+import { balloonFamilies, balloons, postings, rooms, staleNotices } from "@/db/schema";
 import { env } from "@/lib/env";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
@@ -13,7 +13,7 @@ import type { Caller } from "@/lib/ops/caller";
 import { deliverDigest, deliverDueDigests } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam, mailTo } from "./support/fixtures";
-import { createRoom, recordPosting, updateBalloon } from "./support/writes";
+import { createRoom, recordPosting, takeDownPosting, updateBalloon } from "./support/writes";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 type Person = { id: number; email: string; name: string };
@@ -147,6 +147,32 @@ describe("stale-copy digest", () => {
     await quiet();
     expect(await deliverDigest({ labId: team.lab.id })).toBe("quiet");
     expect(await mailTo(team.people.manager.email)).toHaveLength(before);
+  });
+});
+
+describe("a stale copy taken down", () => {
+  it("when it was the last stale copy, an all-clear follows that names what came down", async () => {
+    const before = (await mailTo(team.people.manager.email)).length;
+    await setStock(0, false);
+    await quiet();
+    expect(await deliverDigest({ labId: team.lab.id })).toBe("digest");
+    const [hanging] = await db
+      .select({ id: postings.id })
+      .from(postings)
+      .innerJoin(rooms, eq(rooms.id, postings.roomId))
+      .where(and(eq(rooms.labId, team.lab.id), eq(rooms.name, families[0]!.room), isNull(postings.removedAt)));
+    await takeDownPosting({ labId: team.lab.id, postingId: hanging!.id, actor: team.people.operator });
+    await quiet();
+    expect(await deliverDigest({ labId: team.lab.id })).toBe("all-clear");
+    const mails = await mailTo(team.people.manager.email);
+    expect(mails).toHaveLength(before + 2);
+    expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in ${team.lab.name} is current again`);
+    expect(mails.at(-1)!.text).toContain(`was taken down in ${families[0]!.room}`);
+    // The stock comes back with nothing hanging in that room: no mail.
+    await setStock(0, true);
+    await quiet();
+    expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
+    expect(await mailTo(team.people.manager.email)).toHaveLength(before + 2);
   });
 });
 
