@@ -263,7 +263,8 @@ export async function archiveChart(
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   await afterLabChange(tx, {
     labId,
-    changeKey: `chart:${chartId}:archived`,
+    // A chart can be archived again after a restore: each time is its own change.
+    changeKey: `chart:${chartId}:archived:${archivedAt.getTime()}`,
     cause: `Chart "${chart.title}" was archived by ${actor.name}`,
   });
   await recordAudit({
@@ -276,4 +277,42 @@ export async function archiveChart(
     detail: { title: chart.title },
   });
   return { id: chartId, title: chart.title, archivedAt };
+}
+
+/**
+ * Restores an archived chart (an archive made by mistake, or a chart back in use): it returns to
+ * the lists and can get editions again, and its posted copies read what they are (the lab pass
+ * records it; an all-clear follows when no copy is stale). Restoring a chart that is not
+ * archived is a conflict.
+ */
+export async function restoreChart(
+  tx: Tx,
+  { labId, chartId, actor }: { labId: number; chartId: number; actor: { id: number; name: string } },
+) {
+  const [chart] = await tx
+    .select({ id: charts.id, title: charts.title, archivedAt: charts.archivedAt })
+    .from(charts)
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)))
+    .for("update");
+  if (!chart) throw notFound("Chart");
+  if (!chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is not archived.`);
+  await tx
+    .update(charts)
+    .set({ archivedAt: null })
+    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  await afterLabChange(tx, {
+    labId,
+    changeKey: `chart:${chartId}:restored:${Date.now()}`,
+    cause: `Chart "${chart.title}" was restored from the archive by ${actor.name}`,
+  });
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "chart.restored",
+    targetType: "chart",
+    targetId: chartId,
+    detail: { title: chart.title, archivedAt: chart.archivedAt.toISOString() },
+  });
+  return { id: chartId, title: chart.title };
 }

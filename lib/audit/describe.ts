@@ -56,6 +56,7 @@ const ACTIONS: Record<string, string> = {
   "chart.logo_set": "Set a chart's logo",
   "chart.logo_removed": "Removed a chart's logo",
   "chart.archived": "Archived a chart",
+  "chart.restored": "Restored an archived chart",
   "edition.created": "Submitted an edition for sign-off",
   "edition.approved": "Approved an edition",
   "edition.rejected": "Returned an edition",

@@ -36,6 +36,18 @@ export const archiveChart = labOperation({
   },
 });
 
+/** Restores an archived chart (managers and the medical lead): back in the lists, its copies read what they are. */
+export const restoreChart = labOperation({
+  name: "chart.restore",
+  capability: "chart:archive",
+  scope: "chart",
+  input: z.object({}).strict(),
+  run: async ({ labId, actor, ids }) => {
+    const r = await labWrite(labId, (tx) => q.restoreChart(tx, { labId, chartId: ids.chartId, actor }));
+    return { id: r.id, title: r.title, archivedAt: null };
+  },
+});
+
 /** One chart with its definition and every edition, newest first. */
 export const getChart = labOperation({
   name: "chart.read",

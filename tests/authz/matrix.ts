@@ -756,6 +756,15 @@ export const ROUTES: RouteRow[] = [
   },
   {
     kind: "route",
+    method: "POST",
+    route: "/api/v1/charts/[id]/restore",
+    url: (ids) => `/api/v1/charts/${ids["chart:pot"]}/restore`,
+    body: { confirm: "yes" },
+    expect: statuses(["manager", "lead"], 400),
+    note: "an unknown key is refused (400) after the role check, so walking restores nothing",
+  },
+  {
+    kind: "route",
     method: "GET",
     route: "/api/v1/labs/[slug]/charts",
     url: `${lab("demo")}/charts?archived=1`,
@@ -840,6 +849,7 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: CHART_ACTIONS, name: "removeChartLogoAction", allowed: ["manager", "educator"] },
   // area signoff: archive a chart
   { kind: "action", file: CHART_ACTIONS, name: "archiveChartAction", allowed: ["manager", "lead"] },
+  { kind: "action", file: CHART_ACTIONS, name: "restoreChartAction", allowed: ["manager", "lead"] },
   ...[
     "saveFamilyAction",
     "saveBalloonAction",

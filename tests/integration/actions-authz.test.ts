@@ -185,6 +185,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   setChartLogoAction: (t) => form({ slug: t.lab.slug, chartId: wall.chartId, file: logoPng() }),
   removeChartLogoAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
   archiveChartAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
+  restoreChartAction: (t) => ({ slug: t.lab.slug, chartId: wall.chartId }),
   createRoomAction: (t) => form({ slug: t.lab.slug, name: unique("room") }),
   renameRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId, name: "Renamed room" }),
   archiveRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId }),

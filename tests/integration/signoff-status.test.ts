@@ -12,6 +12,7 @@ import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/ro
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
+import { POST as restoreRoute } from "@/app/api/v1/charts/[id]/restore/route";
 import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import type { CheckJson } from "@/lib/editions/check-json";
 import { labWithTeam } from "./support/fixtures";
@@ -215,5 +216,36 @@ describe("archiving a chart", () => {
 
     as("educator");
     expect((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+
+    // Restoring undoes it: the same roles, the copy reads keep again, the chart is listed, it gets editions.
+    for (const who of ["educator", "operator"] as const) {
+      as(who);
+      expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
+    }
+    as("outsider");
+    expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
+    as("manager");
+    const restored = await call<{ id: string }, { archivedAt: string | null }>(
+      restoreRoute,
+      { id: String(archivedChart) },
+      "POST",
+    );
+    expect(restored.status).toBe(200);
+    expect(restored.json.archivedAt).toBeNull();
+    expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+    expect(await check(made.json.id)).toMatchObject({ status: "current", action: "keep" });
+    const [back] = await db.select().from(postings).where(eq(postings.editionId, made.json.id));
+    expect(back!.lastStatus).toBe("current");
+    as("operator");
+    const relisted = await call<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
+    expect(relisted.json.map((c) => c.id)).toContain(archivedChart);
+    as("educator");
+    expect([200, 201]).toContain((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status);
+    // Archived again: a change of its own, so its copies go stale again and a notice is recorded.
+    as("lead");
+    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(200);
+    expect(await check(made.json.id)).toMatchObject({ status: "withdrawn", action: "take-down" });
+    const archivedNotices = (await notices()).filter((n) => n.changeKey.startsWith(`chart:${archivedChart}:archived:`));
+    expect(archivedNotices).toHaveLength(2);
   });
 });

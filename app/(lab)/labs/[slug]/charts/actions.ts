@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { runAction, uploadedFile, type ActionPayload, type ActionState } from "@/lib/http/action";
-import { archiveChart, createChart, removeChartLogo, saveChart, setChartLogo } from "@/lib/ops/charts";
+import { archiveChart, createChart, removeChartLogo, restoreChart, saveChart, setChartLogo } from "@/lib/ops/charts";
 import { approveEdition, createEdition, rejectEdition, withdrawEdition } from "@/lib/ops/editions";
 import { LOGO_MAX_BYTES, LOGO_TOO_LARGE_HINT } from "@/lib/logo";
 
@@ -83,5 +83,18 @@ export async function archiveChartAction(_prev: ActionState, payload: ActionPayl
     refresh(slug);
     revalidatePath(`/labs/${String(slug)}`);
     return { ok: true, message: `"${r.title}" is archived. Its posted copies now read "take down".` };
+  });
+}
+
+/** Restores an archived `chartId` (managers and the medical lead): back in the lists; its copies read what they are. */
+export async function restoreChartAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, chartId }) => {
+    const r = await restoreChart(caller, { chartId });
+    refresh(slug);
+    revalidatePath(`/labs/${String(slug)}`);
+    return {
+      ok: true,
+      message: `"${r.title}" is restored. Its posted copies' check pages say again whether they are current.`,
+    };
   });
 }

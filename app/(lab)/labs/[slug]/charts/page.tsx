@@ -3,6 +3,7 @@ import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Forbidden } from "@/components/ui/forbidden";
 import { StatusBadge } from "@/components/ui/status-badge";
+import { formatDate } from "@/lib/format/dates";
 import { listCharts } from "@/lib/ops/charts";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { PAPERS } from "@/lib/poster/paper";
@@ -94,7 +95,7 @@ export default async function ChartsPage({
                   {stale && !archived ? <StatusBadge status="outdated" label="Stock or settings changed" /> : null}
                   {chart.archivedAt ? (
                     <span className="rounded-md border border-line-strong px-2 py-0.5 text-xs font-semibold">
-                      ▣ Archived {chart.archivedAt.toISOString().slice(0, 10)}
+                      ▣ Archived {formatDate(chart.archivedAt, member.lab.timeZone)}
                     </span>
                   ) : null}
                 </div>

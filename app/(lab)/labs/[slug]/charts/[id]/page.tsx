@@ -4,6 +4,7 @@ import { ArchiveChart } from "@/components/charts/archive-chart";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
+import { RestoreChart } from "@/components/charts/restore-chart";
 import { RuleIssues } from "@/components/rules/rule-issues";
 import { Caution } from "@/components/ui/caution";
 import { forPage } from "@/lib/auth/page-guard";
@@ -12,6 +13,7 @@ import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
 import { env } from "@/lib/env";
+import { formatDate } from "@/lib/format/dates";
 import { checkChartAgainstRules, ruledDefinition } from "@/lib/labs/rules";
 import { labCan } from "@/lib/ops/access";
 import { getLabRules } from "@/lib/ops/lab-rules";
@@ -50,8 +52,8 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           role="status"
           className="mt-2 rounded-md border border-line-strong bg-paper-sunk px-3 py-2 text-sm font-semibold"
         >
-          ▣ Archived on {chart.archivedAt.toISOString().slice(0, 10)}: this chart gets no new editions, and its posted
-          copies read &quot;take down&quot;.
+          ▣ Archived on {formatDate(chart.archivedAt, member.lab.timeZone)}: this chart gets no new editions, and its
+          posted copies read &quot;take down&quot;.
         </p>
       ) : null}
       <p className="mt-1">
@@ -103,8 +105,12 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           ...editionUrls(env.APP_URL, e),
         }))}
       />
-      {can(member.role, "chart:archive") && !chart.archivedAt ? (
-        <ArchiveChart slug={slug} chartId={chart.id} title={chart.title} />
+      {can(member.role, "chart:archive") ? (
+        chart.archivedAt ? (
+          <RestoreChart slug={slug} chartId={chart.id} />
+        ) : (
+          <ArchiveChart slug={slug} chartId={chart.id} title={chart.title} />
+        )
       ) : null}
     </div>
   );
