@@ -99,6 +99,7 @@ const LABELS: Record<string, string> = {
   status: "Status",
   superseded: "Replaced editions",
   reviewBy: "Review by",
+  archivedAt: "Archived on",
   title: "Title",
   law: "Law",
   lookups: "Lookups",
