@@ -8,8 +8,11 @@ export function AuditFilters({
   action,
   values,
   people,
+  timeZone,
 }: {
   action: string;
+  /** The lab's zone: the dates are its calendar days. */
+  timeZone: string;
   values: { kind?: AuditKind; actor?: number; from?: string; to?: string };
   people: { id: number; name: string; email: string }[];
 }) {
@@ -49,13 +52,13 @@ export function AuditFilters({
         </div>
         <div>
           <label htmlFor="audit-from" className="block text-sm font-medium">
-            From (UTC date)
+            From (date in {timeZone})
           </label>
           <input id="audit-from" name="from" type="date" defaultValue={values.from ?? ""} className={inputClass} />
         </div>
         <div>
           <label htmlFor="audit-to" className="block text-sm font-medium">
-            To (UTC date, inclusive)
+            To (date in {timeZone}, inclusive)
           </label>
           <input id="audit-to" name="to" type="date" defaultValue={values.to ?? ""} className={inputClass} />
         </div>

@@ -3,7 +3,8 @@ import { and, asc, desc, eq, gt, gte, inArray, isNull, like, lt, or, sql, type S
 import type { Database } from "../index";
 import { db as defaultDb } from "../index";
 import { AUDIT_KINDS, type AuditKind } from "@/lib/audit/describe";
-import { auditEvents, charts, editions, labTokens, memberships, postings, rooms, users } from "../schema";
+import { DEFAULT_TIME_ZONE, nextDay, zonedDayStart } from "@/lib/format/dates";
+import { auditEvents, charts, editions, labs, labTokens, memberships, postings, rooms, users } from "../schema";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -76,7 +77,7 @@ export async function listAuditEvents({
         ),
       ),
     ),
-    filterWhere({ kind, actor, from, to }),
+    filterWhere({ kind, actor, from, to }, from || to ? await labTimeZone(labId) : undefined),
   );
   const size = Math.min(Math.max(limit, 1), 200);
   const rows = await defaultDb
@@ -119,10 +120,16 @@ export async function listAuditEvents({
   };
 }
 
-/** Which events to show: one kind of event, one person's, between two calendar dates (UTC, inclusive). */
+/** Which events to show: one kind of event, one person's, between two calendar dates (the lab's, inclusive). */
 export type AuditFilters = { kind?: AuditKind; actor?: number; from?: string; to?: string };
 
-function filterWhere({ kind, actor, from, to }: AuditFilters): SQL | undefined {
+async function labTimeZone(labId: number): Promise<string> {
+  const [lab] = await defaultDb.select({ timeZone: labs.timeZone }).from(labs).where(eq(labs.id, labId));
+  return lab?.timeZone ?? DEFAULT_TIME_ZONE;
+}
+
+/** `from` and `to` are calendar days in `timeZone` (the lab's): from the first day's start to the last day's end. */
+function filterWhere({ kind, actor, from, to }: AuditFilters, timeZone = DEFAULT_TIME_ZONE): SQL | undefined {
   const parts: (SQL | undefined)[] = [];
   if (kind)
     parts.push(
@@ -133,8 +140,8 @@ function filterWhere({ kind, actor, from, to }: AuditFilters): SQL | undefined {
       ),
     );
   if (actor) parts.push(eq(auditEvents.actorUserId, actor));
-  if (from) parts.push(gte(auditEvents.createdAt, new Date(`${from}T00:00:00.000Z`)));
-  if (to) parts.push(lt(auditEvents.createdAt, new Date(new Date(`${to}T00:00:00.000Z`).getTime() + 86_400_000)));
+  if (from) parts.push(gte(auditEvents.createdAt, zonedDayStart(from, timeZone)));
+  if (to) parts.push(lt(auditEvents.createdAt, zonedDayStart(nextDay(to), timeZone)));
   return parts.length ? and(...parts) : undefined;
 }
 

@@ -49,3 +49,29 @@ export function formatDateTime(date: Date, timeZone: string = DEFAULT_TIME_ZONE)
   const p = parts(date, timeZone);
   return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}`;
 }
+
+/** Minutes east of UTC that `timeZone`'s clocks read at the instant `t` (ms). */
+function offsetMinutes(t: number, timeZone: string): number {
+  const p = parts(new Date(t), timeZone);
+  const wall = Date.UTC(Number(p.year), Number(p.month) - 1, Number(p.day), Number(p.hour), Number(p.minute));
+  return Math.round((wall - Math.floor(t / 60_000) * 60_000) / 60_000);
+}
+
+/**
+ * The instant the calendar day `day` (YYYY-MM-DD) begins in `timeZone`: its local midnight, or
+ * the first minute after it when clocks skip midnight. Two passes, so a change of offset
+ * between UTC midnight and local midnight (a daylight-saving day) is accounted for.
+ */
+export function zonedDayStart(day: string, timeZone: string = DEFAULT_TIME_ZONE): Date {
+  const [y, m, d] = day.split("-").map(Number) as [number, number, number];
+  const utcMidnight = Date.UTC(y, m - 1, d);
+  let t = utcMidnight - offsetMinutes(utcMidnight, timeZone) * 60_000;
+  t = utcMidnight - offsetMinutes(t, timeZone) * 60_000;
+  return new Date(t);
+}
+
+/** The calendar day after `day` (YYYY-MM-DD). */
+export function nextDay(day: string): string {
+  const [y, m, d] = day.split("-").map(Number) as [number, number, number];
+  return new Date(Date.UTC(y, m - 1, d + 1)).toISOString().slice(0, 10);
+}

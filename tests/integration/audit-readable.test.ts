@@ -4,9 +4,10 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { auditEvents, balloonFamilies, balloons } from "@/db/schema";
+import { auditEvents, balloonFamilies, balloons, labs } from "@/db/schema";
 import { describeAction, describeDetail } from "@/lib/audit/describe";
 import { AppError } from "@/lib/errors";
+import { formatDate } from "@/lib/format/dates";
 import { listAudit } from "@/lib/ops/audit";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
@@ -86,6 +87,16 @@ describe("a readable audit log", () => {
     const today = new Date().toISOString().slice(0, 10);
     expect((await log({ from: today, to: today, kind: "charts" })).events).toHaveLength(5);
     expect((await log({ to: "2020-01-01" })).events).toEqual([]);
+    // The dates are the lab's calendar days: at UTC+14 the same events fall on that zone's date.
+    await db.update(labs).set({ timeZone: "Pacific/Kiritimati" }).where(eq(labs.id, team.lab.id));
+    try {
+      const there = formatDate(new Date(), "Pacific/Kiritimati");
+      expect((await log({ from: there, to: there, kind: "charts" })).events).toHaveLength(5);
+      const before = formatDate(new Date(Date.now() - 86_400_000), "Pacific/Kiritimati");
+      expect((await log({ from: before, to: before, kind: "charts" })).events).toEqual([]);
+    } finally {
+      await db.update(labs).set({ timeZone: "UTC" }).where(eq(labs.id, team.lab.id));
+    }
     const first = await log({ kind: "charts", limit: 2 });
     expect(first.events).toHaveLength(2);
     const second = await log({ kind: "charts", limit: 2, before: first.olderBefore });

@@ -62,6 +62,7 @@ export default async function AuditPage({
         action={base}
         values={parsed.success ? { kind: query.kind, actor: query.actor, from: query.from, to: query.to } : {}}
         people={people.map((p) => ({ id: p.userId, name: p.name, email: p.email }))}
+        timeZone={member.lab.timeZone}
       />
       {!parsed.success ? (
         <FormStatus
