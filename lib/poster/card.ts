@@ -40,6 +40,14 @@ export type CardLayout = {
   caution: Box;
 };
 
+/** The head's two lines (lib/poster/pdf/card.tsx): the lookup's title, then law, chart title and edition. */
+export const CARD_HEAD_LINES = {
+  title: { fontSize: 6, lineHeight: 1.05 },
+  detail: { fontSize: 4.6, lineHeight: 1 },
+} as const;
+/** Both head lines and a little air: they must not reach the grid below (tests/unit/poster/card.test.ts). */
+export const CARD_HEAD_HEIGHT = 11;
+
 const MARGIN = mmToPt(2.5);
 /** Kept clear at the top for the NOT CURRENT band (lib/poster/pdf/variants.ts draws 12 pt). */
 const BAND = 12.5;
@@ -72,7 +80,7 @@ export function cardCapacity(pressureLine: boolean): { rows: number; cols: numbe
 
 function cardFrame() {
   const { width: W, height: H } = CARD_PAGE;
-  const headH = 9;
+  const headH = CARD_HEAD_HEIGHT;
   // Four lines of the 3.9 pt caution (4.5 pt each) and its padding: the demo lab's caution, the longest, needs all four.
   const cautionH = 20;
   const keyH = 6;

@@ -1,6 +1,6 @@
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { snapshotGrids } from "@/lib/charts/snapshot";
-import { cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
+import { CARD_HEAD_LINES, cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
 import { cellBox } from "@/lib/poster/layout";
 import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
 import { cellView, formatAxisMm, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
@@ -78,8 +78,8 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
         </View>
       ) : null}
       <View style={at(l.head)}>
-        <Text style={{ fontSize: 6, fontWeight: 700, lineHeight: 1.1 }}>{lookupTitle(grid.kind)}</Text>
-        <Text style={{ fontSize: 4.6, lineHeight: 1.1 }}>
+        <Text style={{ ...CARD_HEAD_LINES.title, fontWeight: 700 }}>{lookupTitle(grid.kind)}</Text>
+        <Text style={CARD_HEAD_LINES.detail}>
           {loc(`${lawName(snapshot.law)} · ${snapshot.title} · edition ${edition.number}`)}
         </Text>
       </View>
