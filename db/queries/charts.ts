@@ -242,12 +242,20 @@ export async function readChartDefinition(tx: Tx, { labId, chartId }: { labId: n
 }
 
 /**
- * Archives a chart: it leaves the lists, keeps its editions, and every posted copy of it reads
- * take-down (the lab pass records the copies that went stale). Archiving twice is a conflict.
+ * Archives a chart (`archive: true`): it leaves the lists, keeps its editions, and every posted
+ * copy of it reads take-down. Restores one (`archive: false`): back in the lists, its copies read
+ * what they are. Either way the lab pass records the copies whose status changed (a stale notice,
+ * or an all-clear), and each time is its own change, so a chart archived again mails again.
+ * Archiving an archived chart, or restoring one that is not, is a conflict.
  */
-export async function archiveChart(
+export async function setChartArchived(
   tx: Tx,
-  { labId, chartId, actor }: { labId: number; chartId: number; actor: { id: number; name: string } },
+  {
+    labId,
+    chartId,
+    actor,
+    archive,
+  }: { labId: number; chartId: number; actor: { id: number; name: string }; archive: boolean },
 ) {
   const [chart] = await tx
     .select({ id: charts.id, title: charts.title, archivedAt: charts.archivedAt })
@@ -255,64 +263,28 @@ export async function archiveChart(
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)))
     .for("update");
   if (!chart) throw notFound("Chart");
-  if (chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is already archived.`);
-  const archivedAt = new Date();
+  if (archive === (chart.archivedAt !== null))
+    throw new AppError("conflict", `"${chart.title}" is ${archive ? "already" : "not"} archived.`);
+  const now = new Date();
+  const archivedAt = archive ? now : null;
   await tx
     .update(charts)
     .set({ archivedAt })
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
+  const verb = archive ? "archived" : "restored";
   await afterLabChange(tx, {
     labId,
-    // A chart can be archived again after a restore: each time is its own change.
-    changeKey: `chart:${chartId}:archived:${archivedAt.getTime()}`,
-    cause: `Chart "${chart.title}" was archived by ${actor.name}`,
+    changeKey: `chart:${chartId}:${verb}:${now.getTime()}`,
+    cause: `Chart "${chart.title}" was ${archive ? "archived" : "restored from the archive"} by ${actor.name}`,
   });
   await recordAudit({
     tx,
     labId,
     actorUserId: actor.id,
-    action: "chart.archived",
+    action: `chart.${verb}`,
     targetType: "chart",
     targetId: chartId,
-    detail: { title: chart.title },
+    detail: archive ? { title: chart.title } : { title: chart.title, archivedAt: chart.archivedAt!.toISOString() },
   });
   return { id: chartId, title: chart.title, archivedAt };
-}
-
-/**
- * Restores an archived chart (an archive made by mistake, or a chart back in use): it returns to
- * the lists and can get editions again, and its posted copies read what they are (the lab pass
- * records it; an all-clear follows when no copy is stale). Restoring a chart that is not
- * archived is a conflict.
- */
-export async function restoreChart(
-  tx: Tx,
-  { labId, chartId, actor }: { labId: number; chartId: number; actor: { id: number; name: string } },
-) {
-  const [chart] = await tx
-    .select({ id: charts.id, title: charts.title, archivedAt: charts.archivedAt })
-    .from(charts)
-    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)))
-    .for("update");
-  if (!chart) throw notFound("Chart");
-  if (!chart.archivedAt) throw new AppError("conflict", `"${chart.title}" is not archived.`);
-  await tx
-    .update(charts)
-    .set({ archivedAt: null })
-    .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
-  await afterLabChange(tx, {
-    labId,
-    changeKey: `chart:${chartId}:restored:${Date.now()}`,
-    cause: `Chart "${chart.title}" was restored from the archive by ${actor.name}`,
-  });
-  await recordAudit({
-    tx,
-    labId,
-    actorUserId: actor.id,
-    action: "chart.restored",
-    targetType: "chart",
-    targetId: chartId,
-    detail: { title: chart.title, archivedAt: chart.archivedAt.toISOString() },
-  });
-  return { id: chartId, title: chart.title };
 }

@@ -110,9 +110,9 @@ const keyOf = (v: { version: string; reviewBy: Date | null }, now: Date) =>
 export async function checkPageFor(token: string): Promise<CheckPage | null> {
   const v = await versionOf(token);
   if (!v) return null;
-  const hit = pages.get(token);
-  if (hit && hit.key === keyOf(v, new Date())) return hit.page;
   const now = new Date();
+  const hit = pages.get(token);
+  if (hit && hit.key === keyOf(v, now)) return hit.page;
   const view = await getCheckByToken({ token, now });
   if (!view) return null;
   const page: CheckPage = { labId: view.lab.id, html: checkPageHtml(checkPageModel(view, token)) };

@@ -31,8 +31,10 @@ export const archiveChart = labOperation({
   scope: "chart",
   input: z.object({}).strict(),
   run: async ({ labId, actor, ids }) => {
-    const r = await labWrite(labId, (tx) => q.archiveChart(tx, { labId, chartId: ids.chartId, actor }));
-    return { id: r.id, title: r.title, archivedAt: r.archivedAt.toISOString() };
+    const r = await labWrite(labId, (tx) =>
+      q.setChartArchived(tx, { labId, chartId: ids.chartId, actor, archive: true }),
+    );
+    return { id: r.id, title: r.title, archivedAt: r.archivedAt!.toISOString() };
   },
 });
 
@@ -43,7 +45,9 @@ export const restoreChart = labOperation({
   scope: "chart",
   input: z.object({}).strict(),
   run: async ({ labId, actor, ids }) => {
-    const r = await labWrite(labId, (tx) => q.restoreChart(tx, { labId, chartId: ids.chartId, actor }));
+    const r = await labWrite(labId, (tx) =>
+      q.setChartArchived(tx, { labId, chartId: ids.chartId, actor, archive: false }),
+    );
     return { id: r.id, title: r.title, archivedAt: null };
   },
 });

@@ -211,7 +211,7 @@ test("manager: withdrawing the current edition turns every copy of the chart to 
   await expectCheck(page, state.ed1, "superseded", "take-down");
 });
 
-test("medical lead: archives the chart with a confirmation; it leaves the list and its copies read take-down", async ({
+test("medical lead: archives the chart with a confirmation; it leaves the list and its copies read take-down; restoring undoes it", async ({
   page,
 }) => {
   await signInPage(page, demoEmail("lead"));
@@ -230,6 +230,13 @@ test("medical lead: archives the chart with a confirmation; it leaves the list a
   // The reworded draft of an archived chart no longer waits for sign-off.
   await page.goto("/labs/demo/sign-off");
   await expect(page.getByTestId("queue-item").filter({ hasText: title })).toHaveCount(0);
+  // Restored on a phone: the outcome stays on screen while the panel turns back into "Archive".
+  await page.setViewportSize({ width: 320, height: 800 });
+  await page.goto(`/labs/demo/charts/${state.chartId}`);
+  await page.getByRole("button", { name: "Restore chart" }).click();
+  await expect(page.getByRole("status").filter({ hasText: "is restored" })).toBeVisible();
+  await expect(page.getByRole("button", { name: "Archive chart…" })).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: /Archived on/ })).toHaveCount(0);
 });
 
 test("operator: no Sign-off tab and no approval; the review page reads without controls", async ({ page }) => {

@@ -6,7 +6,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { getCheckByToken } from "@/db/queries/check";
-import { archiveChart } from "@/db/queries/charts";
+import { setChartArchived } from "@/db/queries/charts";
 import { updateLabSettings } from "@/db/queries/lab-settings";
 import { editions } from "@/db/schema";
 import { checkPageHtml } from "@/lib/editions/check-html";
@@ -94,7 +94,9 @@ describe("the check page's cache", () => {
     expect((await served(t3)).html).toContain("Keep this printout");
 
     // Archiving the chart: every copy comes down.
-    await labWrite(team.lab.id, (tx) => archiveChart(tx, { labId: team.lab.id, chartId, actor: actor("lead") }));
+    await labWrite(team.lab.id, (tx) =>
+      setChartArchived(tx, { labId: team.lab.id, chartId, actor: actor("lead"), archive: true }),
+    );
     const archived = await served(t3);
     expect(archived.html).toContain("Take this printout down");
   });

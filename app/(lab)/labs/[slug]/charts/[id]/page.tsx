@@ -1,10 +1,9 @@
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
-import { ArchiveChart } from "@/components/charts/archive-chart";
+import { ChartArchive } from "@/components/charts/archive-chart";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
 import { LogoField } from "@/components/charts/logo-field";
-import { RestoreChart } from "@/components/charts/restore-chart";
 import { RuleIssues } from "@/components/rules/rule-issues";
 import { Caution } from "@/components/ui/caution";
 import { forPage } from "@/lib/auth/page-guard";
@@ -106,11 +105,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         }))}
       />
       {can(member.role, "chart:archive") ? (
-        chart.archivedAt ? (
-          <RestoreChart slug={slug} chartId={chart.id} />
-        ) : (
-          <ArchiveChart slug={slug} chartId={chart.id} title={chart.title} />
-        )
+        <ChartArchive slug={slug} chartId={chart.id} title={chart.title} archived={chart.archivedAt !== null} />
       ) : null}
     </div>
   );
