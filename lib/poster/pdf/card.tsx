@@ -9,7 +9,7 @@ import { lawName, type Grid } from "@/lib/sizing";
 import {
   at,
   CellGraphicsSvg,
-  CellText,
+  CellTexts,
   gridCells,
   POSTER_EPOCH,
   POSTER_FONT,
@@ -57,8 +57,9 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
   );
   return (
     <Page
+      wrap={false}
       size={[l.page.width, l.page.height]}
-      style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}
+      style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell, minHeight: l.page.height }}
     >
       {banner ? (
         <View
@@ -124,18 +125,17 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           formatAxisMm(r),
         ),
       )}
-      {grid.cells.map((row, i) =>
-        row.map((cell, j) => (
-          <CellText
-            key={`${i}-${j}`}
-            view={cellView(cell)}
-            box={cellBox(l.grid, i, j)}
-            f={f}
-            pressureLine={grid.rounding === "reach"}
-            nf={nf}
-          />
-        )),
-      )}
+      <CellTexts
+        cells={grid.cells.flatMap((row, i) =>
+          row.map((cell, j) => ({
+            view: cellView(cell),
+            box: cellBox(l.grid, i, j),
+            f,
+            pressureLine: grid.rounding === "reach",
+          })),
+        )}
+        nf={nf}
+      />
       <Svg style={at(l.qr)} width={l.qr.width} height={l.qr.height} viewBox={`0 0 ${n} ${n}`}>
         <Rect x={0} y={0} width={n} height={n} fill="#ffffff" />
         <Path d={qrPath(qr)} fill="#000000" />

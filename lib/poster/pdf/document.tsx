@@ -1,11 +1,12 @@
 import path from "node:path";
-import { Document, Font, Image, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
+import { Canvas, Document, Font, Image, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import type { Style } from "@react-pdf/stylesheet";
 import { installShapingCache } from "./shaping-cache";
 import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { NumberFormat } from "@/lib/format/numbers";
+import { cellTextRuns, type CellTextRun, type WordedCell } from "@/lib/poster/cell-text";
 import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
@@ -31,7 +32,6 @@ import {
 } from "@/lib/poster/layout";
 import {
   cellView,
-  cornerSymbols,
   formatAxisMm,
   MARKS,
   PALETTE,
@@ -66,26 +66,34 @@ export type PosterInput = {
 };
 
 export const POSTER_FONT = "Inter";
+/** The weights the poster prints, from the files in fonts/. */
+const WEIGHT_FILES = { 400: "Inter-Regular.ttf", 600: "Inter-SemiBold.ttf", 700: "Inter-Bold.ttf" } as const;
 /** Metadata date of editions that carry no approval date: fixed, so drafts render byte-identically. */
 export const POSTER_EPOCH = new Date(Date.UTC(2000, 0, 1));
 
 let fontsRegistered = false;
+let shapingCached = false;
 
-/** Registers Inter from fonts/ (absolute paths) and turns hyphenation off; safe to call often. */
-export function registerPosterFonts(): void {
-  if (fontsRegistered) return;
-  const file = (name: string) => path.join(process.cwd(), "fonts", name);
-  Font.register({
-    family: POSTER_FONT,
-    fonts: [
-      { src: file("Inter-Regular.ttf"), fontWeight: 400 },
-      { src: file("Inter-SemiBold.ttf"), fontWeight: 600 },
-      { src: file("Inter-Bold.ttf"), fontWeight: 700 },
-    ],
-  });
-  Font.registerHyphenationCallback((word) => [word]);
-  installShapingCache(file("Inter-Regular.ttf"));
-  fontsRegistered = true;
+/**
+ * Registers Inter from fonts/ (absolute paths), turns hyphenation off and puts the shaping cache
+ * on the fonts react-pdf loads (lib/poster/pdf/shaping-cache.ts); safe to call often.
+ */
+export async function preparePosterFonts(): Promise<void> {
+  if (!fontsRegistered) {
+    const file = (name: string) => path.join(process.cwd(), "fonts", name);
+    Font.register({
+      family: POSTER_FONT,
+      fonts: ([400, 600, 700] as const).map((fontWeight) => ({ src: file(WEIGHT_FILES[fontWeight]), fontWeight })),
+    });
+    Font.registerHyphenationCallback((word) => [word]);
+    fontsRegistered = true;
+  }
+  if (!shapingCached) {
+    await Font.load({ fontFamily: POSTER_FONT, fontWeight: 400 });
+    const loaded: unknown = Font.getFont({ fontFamily: POSTER_FONT, fontWeight: 400 })?.data;
+    if (loaded && typeof loaded === "object") installShapingCache(loaded);
+    shapingCached = true;
+  }
 }
 
 export const TNUM: Style = { fontFeatureSettings: ["tnum"] };
@@ -122,87 +130,54 @@ function swatchView(mark: MarkId | "sized"): CellView {
   };
 }
 
-/** The words of one cell; its background, hatching, rule and border are drawn by CellGraphicsSvg. */
-export function CellText({
-  view,
-  box,
-  f,
-  pressureLine,
-  nf = "point",
-}: {
-  view: CellView;
-  box: Box;
-  f: number;
-  pressureLine: boolean;
-  nf?: NumberFormat;
-}) {
-  const small = f * CELL.smallRatio;
-  // Cells stretched to fill the page keep the figure in their middle.
-  const lift = Math.max(0, (box.height - f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))) / 2);
-  const loc = (t: string) => localiseNumbers(t, nf);
-  const inset = view.border * Math.min(box.width, box.height);
-  const pad = f * 0.1 + inset;
-  const top = f * 0.05 + inset * 0.6;
-  const corner = cornerSymbols(view);
-  return (
-    <>
-      {view.exact ? (
-        <Text
-          style={{ position: "absolute", left: box.x + pad, top: box.y + top, fontSize: small, lineHeight: 1, ...TNUM }}
-        >
-          {loc(view.exact)}
-        </Text>
-      ) : null}
-      {corner ? (
-        <Text
-          style={{
-            position: "absolute",
-            left: box.x,
-            width: box.width - pad,
-            top: box.y + top,
-            fontSize: small * 1.1,
-            lineHeight: 1,
-            fontWeight: 700,
-            textAlign: "right",
-          }}
-        >
-          {corner}
-        </Text>
-      ) : null}
-      <Text
-        style={{
-          position: "absolute",
-          left: box.x,
-          width: box.width,
-          top: box.y + lift + f * CELL.figureTopEm,
-          fontSize: f,
-          lineHeight: 1,
-          fontWeight: 700,
-          textAlign: "center",
-          ...TNUM,
-        }}
-      >
-        {loc(view.primary)}
-      </Text>
-      {pressureLine && view.pressure ? (
-        <Text
-          style={{
-            position: "absolute",
-            left: box.x,
-            width: box.width,
-            top: box.y + lift + f * (CELL.figureTopEm + 1.02),
-            fontSize: small,
-            lineHeight: 1,
-            fontWeight: 600,
-            textAlign: "center",
-            ...TNUM,
-          }}
-        >
-          {loc(view.pressure)}
-        </Text>
-      ) : null}
-    </>
-  );
+/** The subset of pdfkit's document that react-pdf's Canvas hands to `paint` (methods used here). */
+type Painter = {
+  font(src: unknown): Painter;
+  fontSize(size: number): Painter;
+  fillColor(color: string): Painter;
+  translate(x: number, y: number): Painter;
+  text(text: string, x: number, y: number, options: Record<string, unknown>): Painter;
+};
+
+/**
+ * The words of many cells in one Canvas element, drawn with pdfkit's own text calls. A poster
+ * has several hundred cell lines; as react-pdf Text elements each one costs a layout node, a
+ * text-layout pass and a font switch, which made up most of a first render. Each line keeps
+ * the place, font, size, features and colour the Text elements gave it: pdfkit puts a line's
+ * baseline one ascent below `y`, as react-pdf does at a line height of 1 (the poster's tools
+ * test checks centring and insets from the rendered PDF). Lines are grouped by weight, so the
+ * font changes at most three times; the font react-pdf has already loaded for that weight is
+ * reused, else pdfkit opens the same file.
+ */
+export function CellTexts({ cells, nf = "point" }: { cells: WordedCell[]; nf?: NumberFormat }) {
+  if (cells.length === 0) return null;
+  const runs = cells.flatMap((c) => cellTextRuns(c, nf));
+  const x0 = Math.min(...cells.map((c) => c.box.x));
+  const y0 = Math.min(...cells.map((c) => c.box.y));
+  const width = Math.max(...cells.map((c) => c.box.x + c.box.width)) - x0;
+  const height = Math.max(...cells.map((c) => c.box.y + c.box.height)) - y0;
+  // Headings grown for a long reading distance can leave a small sheet's grid no room at all; the
+  // approval gate names that case, and there is nothing legible to draw.
+  if (!(width > 0 && height > 0)) return null;
+  const paint = (painter: Painter) => {
+    // The Canvas origin is its top left corner; the runs are in page coordinates.
+    painter.translate(-x0, -y0).fillColor(PALETTE.ink);
+    let current: CellTextRun["weight"] | null = null;
+    for (const r of runs) {
+      if (r.weight !== current) {
+        const loaded: unknown = Font.getFont({ fontFamily: POSTER_FONT, fontWeight: r.weight })?.data;
+        painter.font(loaded ?? path.join(process.cwd(), "fonts", WEIGHT_FILES[r.weight]));
+        current = r.weight;
+      }
+      const features = r.tnum ? ["tnum"] : [];
+      const options = r.align
+        ? { width: r.align.width, align: r.align.to, lineBreak: false, features }
+        : { lineBreak: false, features };
+      painter.fontSize(r.size).text(r.text, r.x, r.y, options);
+    }
+    return null;
+  };
+  return <Canvas style={at({ x: x0, y: y0, width, height })} paint={paint} />;
 }
 
 export function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
@@ -406,18 +381,12 @@ function GridTexts({
           loc(formatAxisMm(r)),
         ),
       )}
-      {grid.cells.map((row, i) =>
-        row.map((cell, j) => (
-          <CellText
-            key={`${i}-${j}`}
-            view={cellView(cell)}
-            box={cellBox(g, i, j)}
-            f={f}
-            pressureLine={pressureLine}
-            nf={nf}
-          />
-        )),
-      )}
+      <CellTexts
+        cells={grid.cells.flatMap((row, i) =>
+          row.map((cell, j) => ({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine })),
+        )}
+        nf={nf}
+      />
     </>
   );
 }
@@ -443,11 +412,11 @@ function Legend({ layout, entries, nf }: { layout: PosterLayout; entries: Legend
         if (!row) return null;
         return (
           <View key={e.mark}>
-            <CellText
-              view={sampleView(e)}
-              box={row.swatch}
-              f={row.swatch.height / CELL.heightEm}
-              pressureLine={false}
+            {/* One layer per line keeps each sample before its words in the PDF's reading order. */}
+            <CellTexts
+              cells={[
+                { view: sampleView(e), box: row.swatch, f: row.swatch.height / CELL.heightEm, pressureLine: false },
+              ]}
               nf={nf}
             />
             <Text
@@ -541,8 +510,9 @@ export function PosterDocument({ input }: { input: PosterInput }) {
       modificationDate={created}
     >
       <Page
+        wrap={false}
         size={[page.width, page.height]}
-        style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell }}
+        style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell, minHeight: page.height }}
       >
         {logo && layout.logo ? (
           // eslint-disable-next-line jsx-a11y/alt-text -- react-pdf's Image has no alt; the lab name is printed beside it

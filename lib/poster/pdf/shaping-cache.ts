@@ -2,26 +2,34 @@
 // every text run, and a poster repeats the same few strings hundreds of times ("3.25", "(3.05)",
 // headings). Profiling the bench's A1 poster put over half the render in fontkit's lookups. The
 // shaped glyph run of a string depends only on the font, the string, the features and the
-// direction, and textkit never mutates it (it maps positions into new objects), so one shaping
-// per distinct string is kept per font.
-import { readFileSync } from "node:fs";
-import * as fontkit from "fontkit";
+// direction, so one shaping per distinct string is kept per font. Callers may change what they
+// get (pdfkit scales a run's positions in place when it draws), so each call gets its own copy.
+//
+// The cache is put on the class of a font react-pdf itself loaded, never on a fontkit imported
+// here: a server bundle may hold its own copy of fontkit, whose class react-pdf never uses.
 
 type GlyphRun = unknown;
 type Layout = (this: object, s: string, f?: unknown, script?: string, lang?: string, dir?: string) => GlyphRun;
 
+const copyOf = <T extends object>(o: T): T => Object.assign(Object.create(Object.getPrototypeOf(o) as object) as T, o);
+/** A fresh run over fresh positions: pdfkit scales a run's positions in place. */
+const copyRun = (run: GlyphRun): GlyphRun => {
+  const r = copyOf(run as { positions: object[] });
+  r.positions = r.positions.map(copyOf);
+  return r;
+};
+
 const MAX_ENTRIES_PER_FONT = 20_000;
 let installed = false;
 
-/** Wraps fontkit's TTF layout with a per-font cache; `fontFile` names any TrueType font of the family. */
-export function installShapingCache(fontFile: string): void {
+/** Wraps fontkit's layout with a per-font cache, on the class of `loadedFont` (a fontkit font). */
+export function installShapingCache(loadedFont: object): void {
   if (installed) return;
-  const sample = fontkit.create(readFileSync(fontFile)) as unknown as object;
-  const proto = Object.getPrototypeOf(sample) as { layout: Layout };
+  const proto = Object.getPrototypeOf(loadedFont) as { layout: Layout };
   const original = proto.layout;
   const caches = new WeakMap<object, Map<string, GlyphRun>>();
   proto.layout = function cachedLayout(string, features, script, language, direction) {
-    // Only the calls react-pdf's textkit makes (no script or language) are cached.
+    // Only the calls react-pdf and pdfkit make (no script or language) are cached.
     if (script !== undefined || language !== undefined || typeof string !== "string")
       return original.call(this, string, features, script, language, direction);
     let cache = caches.get(this);
@@ -33,7 +41,7 @@ export function installShapingCache(fontFile: string): void {
       if (cache.size >= MAX_ENTRIES_PER_FONT) cache.clear();
       cache.set(key, run);
     }
-    return run;
+    return copyRun(run);
   };
   installed = true;
 }

@@ -1,0 +1,78 @@
+import type { NumberFormat } from "@/lib/format/numbers";
+import { localiseNumbers } from "./labels";
+import { CELL, type Box } from "./layout";
+import { cornerSymbols, type CellView } from "./marks";
+
+/** One line of words in a cell: where it goes on the page, in which weight and size. */
+export type CellTextRun = {
+  text: string;
+  weight: 400 | 600 | 700;
+  /** Font size, pt. */
+  size: number;
+  /** Left edge of the line, or of the span it is aligned in, pt from the page's left. */
+  x: number;
+  /** Top of the line box, pt from the page's top; the baseline sits one font ascent below. */
+  y: number;
+  /** Width of the span the line is centred or right-aligned in. */
+  align?: { width: number; to: "center" | "right" };
+  /** Tabular figures, so digits line up from cell to cell. */
+  tnum: boolean;
+};
+
+/** A cell to be worded: its marks, its box on the page, and the figure size of its grid. */
+export type WordedCell = { view: CellView; box: Box; f: number; pressureLine: boolean };
+
+/**
+ * The words of one cell (its background, hatching, rule and border are drawn apart): the exact
+ * diameter small at the top left, the mark symbols small at the top right, the printed balloon
+ * large in the middle, and the pressure line under it in grids that can push a balloon.
+ */
+export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: NumberFormat = "point"): CellTextRun[] {
+  const small = f * CELL.smallRatio;
+  // Cells stretched to fill the page keep the figure in their middle.
+  const lift = Math.max(0, (box.height - f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))) / 2);
+  const inset = view.border * Math.min(box.width, box.height);
+  const pad = f * 0.1 + inset;
+  const top = f * 0.05 + inset * 0.6;
+  const corner = cornerSymbols(view);
+  const runs: CellTextRun[] = [];
+  if (view.exact)
+    runs.push({
+      text: localiseNumbers(view.exact, nf),
+      weight: 400,
+      size: small,
+      x: box.x + pad,
+      y: box.y + top,
+      tnum: true,
+    });
+  if (corner)
+    runs.push({
+      text: corner,
+      weight: 700,
+      size: small * 1.1,
+      x: box.x,
+      y: box.y + top,
+      align: { width: box.width - pad, to: "right" },
+      tnum: false,
+    });
+  runs.push({
+    text: localiseNumbers(view.primary, nf),
+    weight: 700,
+    size: f,
+    x: box.x,
+    y: box.y + lift + f * CELL.figureTopEm,
+    align: { width: box.width, to: "center" },
+    tnum: true,
+  });
+  if (pressureLine && view.pressure)
+    runs.push({
+      text: localiseNumbers(view.pressure, nf),
+      weight: 600,
+      size: small,
+      x: box.x,
+      y: box.y + lift + f * (CELL.figureTopEm + 1.02),
+      align: { width: box.width, to: "center" },
+      tnum: true,
+    });
+  return runs;
+}
