@@ -3,10 +3,10 @@ import { localiseNumbers } from "./labels";
 import { CELL, type Box } from "./layout";
 import { cornerSymbols, type CellView } from "./marks";
 
-/** One line of words in a cell: where it goes on the page, in which weight and size. */
+/** One line of words in a cell or grid heading: where it goes on the page, in which weight and size. */
 export type CellTextRun = {
   text: string;
-  weight: 400 | 600 | 700;
+  weight: 400 | 700;
   /** Font size, pt. */
   size: number;
   /** Left edge of the line, or of the span it is aligned in, pt from the page's left. */
@@ -67,7 +67,7 @@ export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: Num
   if (pressureLine && view.pressure)
     runs.push({
       text: localiseNumbers(view.pressure, nf),
-      weight: 600,
+      weight: 700,
       size: small,
       x: box.x,
       y: box.y + lift + f * (CELL.figureTopEm + 1.02),
@@ -75,4 +75,17 @@ export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: Num
       tnum: true,
     });
   return runs;
+}
+
+/** A row or column heading: bold tabular figures centred in their box, as large as `size`. */
+export function headingRun(box: Box, text: string, size: number): CellTextRun {
+  return {
+    text,
+    weight: 700,
+    size,
+    x: box.x,
+    y: box.y + (box.height - size) / 2,
+    align: { width: box.width, to: "center" },
+    tnum: true,
+  };
 }

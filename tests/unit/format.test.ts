@@ -11,6 +11,36 @@ describe("dates in the lab's time zone (ISO 8601 order)", () => {
     expect(formatDateTime(late, "America/New_York")).toBe("2026-12-01 18:30");
     expect(formatDateTime(new Date(Date.UTC(2026, 0, 5, 0, 5)), "UTC")).toBe("2026-01-05 00:05");
   });
+  it("reads UTC without zone rules exactly as an Intl formatter for UTC does", () => {
+    // Independent reference: the runtime's ICU formatter, built here for the UTC zone.
+    const icu = new Intl.DateTimeFormat("en-CA", {
+      timeZone: "UTC",
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      hourCycle: "h23",
+    });
+    const reference = (d: Date) => {
+      const p = Object.fromEntries(icu.formatToParts(d).map((x) => [x.type, x.value]));
+      return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}`;
+    };
+    const instants = [
+      Date.UTC(2026, 11, 2, 0, 0),
+      Date.UTC(2026, 11, 31, 23, 59, 59, 999),
+      Date.UTC(2024, 1, 29, 12, 30),
+      Date.UTC(1999, 0, 1, 0, 0, 30),
+      Date.UTC(2038, 0, 19, 3, 14, 7),
+    ];
+    for (let t = Date.UTC(2020, 0, 1); t < Date.UTC(2031, 0, 1); t += 7_777_777_777) instants.push(t);
+    for (const t of instants) {
+      const d = new Date(t);
+      expect(formatDateTime(d, "UTC")).toBe(reference(d));
+      expect(formatDate(d)).toBe(reference(d).slice(0, 10));
+    }
+  });
+
   it("knows IANA names and refuses others", () => {
     expect(isTimeZone("Europe/Berlin")).toBe(true);
     expect(isTimeZone("Mars/Olympus")).toBe(false);

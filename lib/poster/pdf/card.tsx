@@ -1,6 +1,7 @@
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { snapshotGrids } from "@/lib/charts/snapshot";
 import { CARD_HEAD_LINES, cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
+import { headingRun } from "@/lib/poster/cell-text";
 import { cellBox } from "@/lib/poster/layout";
 import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
 import { cellView, formatAxisMm, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
@@ -9,7 +10,8 @@ import { lawName, type Grid } from "@/lib/sizing";
 import {
   at,
   CellGraphicsSvg,
-  CellTexts,
+  cellRuns,
+  TextLayer,
   gridCells,
   POSTER_EPOCH,
   POSTER_FONT,
@@ -37,24 +39,6 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
   const n = qr.size + 2 * QR_QUIET_MODULES;
   const used = MARK_ORDER.filter((m) => grid.cells.some((row) => row.some((c) => cellView(c).marks.includes(m))));
   const banner = statusBanner(edition.status);
-  const headText = (key: string, x: number, y: number, w: number, h: number, text: string) => (
-    <Text
-      key={key}
-      style={{
-        position: "absolute",
-        left: x,
-        top: y + (h - head) / 2,
-        width: w,
-        fontSize: head,
-        lineHeight: 1,
-        fontWeight: 700,
-        textAlign: "center",
-        ...TNUM,
-      }}
-    >
-      {loc(text)}
-    </Text>
-  );
   return (
     <Page
       wrap={false}
@@ -92,7 +76,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           width: g.rowHeadWidth - 1,
           top: g.cellsY - g.colHeadHeight + 0.5,
           fontSize: head * 0.45,
-          fontWeight: 600,
+          fontWeight: 700,
           textAlign: "right",
         }}
       >{`${VESSEL_SYMBOLS[grid.colAxis.vessel]} →`}</Text>
@@ -102,39 +86,47 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           left: g.cellsX - g.rowHeadWidth + 1,
           top: g.cellsY - head * 0.45 * 1.2 - 0.5,
           fontSize: head * 0.45,
-          fontWeight: 600,
+          fontWeight: 700,
         }}
       >{`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}</Text>
-      {grid.colAxis.values.map((c, j) =>
-        headText(
-          `c${j}`,
-          g.cellsX + j * g.cellWidth,
-          g.cellsY - g.colHeadHeight,
-          g.cellWidth,
-          g.colHeadHeight,
-          formatAxisMm(c),
-        ),
-      )}
-      {grid.rowAxis.values.map((r, i) =>
-        headText(
-          `r${i}`,
-          g.cellsX - g.rowHeadWidth,
-          g.cellsY + i * g.cellHeight,
-          g.rowHeadWidth,
-          g.cellHeight,
-          formatAxisMm(r),
-        ),
-      )}
-      <CellTexts
-        cells={grid.cells.flatMap((row, i) =>
-          row.map((cell, j) => ({
-            view: cellView(cell),
-            box: cellBox(l.grid, i, j),
-            f,
-            pressureLine: grid.rounding === "reach",
-          })),
-        )}
-        nf={nf}
+      <TextLayer
+        runs={[
+          ...grid.colAxis.values.map((c, j) =>
+            headingRun(
+              {
+                x: g.cellsX + j * g.cellWidth,
+                y: g.cellsY - g.colHeadHeight,
+                width: g.cellWidth,
+                height: g.colHeadHeight,
+              },
+              loc(formatAxisMm(c)),
+              head,
+            ),
+          ),
+          ...grid.rowAxis.values.map((r, i) =>
+            headingRun(
+              {
+                x: g.cellsX - g.rowHeadWidth,
+                y: g.cellsY + i * g.cellHeight,
+                width: g.rowHeadWidth,
+                height: g.cellHeight,
+              },
+              loc(formatAxisMm(r)),
+              head,
+            ),
+          ),
+          ...cellRuns(
+            grid.cells.flatMap((row, i) =>
+              row.map((cell, j) => ({
+                view: cellView(cell),
+                box: cellBox(l.grid, i, j),
+                f,
+                pressureLine: grid.rounding === "reach",
+              })),
+            ),
+            nf,
+          ),
+        ]}
       />
       <Svg style={at(l.qr)} width={l.qr.width} height={l.qr.height} viewBox={`0 0 ${n} ${n}`}>
         <Rect x={0} y={0} width={n} height={n} fill="#ffffff" />

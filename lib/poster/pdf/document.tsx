@@ -6,7 +6,7 @@ import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { NumberFormat } from "@/lib/format/numbers";
-import { cellTextRuns, type CellTextRun, type WordedCell } from "@/lib/poster/cell-text";
+import { cellTextRuns, headingRun, type CellTextRun, type WordedCell } from "@/lib/poster/cell-text";
 import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
@@ -66,8 +66,12 @@ export type PosterInput = {
 };
 
 export const POSTER_FONT = "Inter";
-/** The weights the poster prints, from the files in fonts/. */
-const WEIGHT_FILES = { 400: "Inter-Regular.ttf", 600: "Inter-SemiBold.ttf", 700: "Inter-Bold.ttf" } as const;
+/**
+ * The poster prints two weights, from the files in fonts/: bold for what is read from the wall
+ * (figures, headings, axis titles, the rounding rule) and regular for the rest. Each further
+ * weight costs a first render another font's layout tables to read.
+ */
+const WEIGHT_FILES = { 400: "Inter-Regular.ttf", 700: "Inter-Bold.ttf" } as const;
 /** Metadata date of editions that carry no approval date: fixed, so drafts render byte-identically. */
 export const POSTER_EPOCH = new Date(Date.UTC(2000, 0, 1));
 
@@ -83,7 +87,7 @@ export async function preparePosterFonts(): Promise<void> {
     const file = (name: string) => path.join(process.cwd(), "fonts", name);
     Font.register({
       family: POSTER_FONT,
-      fonts: ([400, 600, 700] as const).map((fontWeight) => ({ src: file(WEIGHT_FILES[fontWeight]), fontWeight })),
+      fonts: ([400, 700] as const).map((fontWeight) => ({ src: file(WEIGHT_FILES[fontWeight]), fontWeight })),
     });
     Font.registerHyphenationCallback((word) => [word]);
     fontsRegistered = true;
@@ -140,25 +144,24 @@ type Painter = {
 };
 
 /**
- * The words of many cells in one Canvas element, drawn with pdfkit's own text calls. A poster
- * has several hundred cell lines; as react-pdf Text elements each one costs a layout node, a
- * text-layout pass and a font switch, which made up most of a first render. Each line keeps
- * the place, font, size, features and colour the Text elements gave it: pdfkit puts a line's
- * baseline one ascent below `y`, as react-pdf does at a line height of 1 (the poster's tools
- * test checks centring and insets from the rendered PDF). Lines are grouped by weight, so the
- * font changes at most three times; the font react-pdf has already loaded for that weight is
- * reused, else pdfkit opens the same file.
+ * Many single lines (cell words, grid headings) in one Canvas element, drawn with pdfkit's own
+ * text calls. A poster has several hundred such lines; as react-pdf Text elements each one cost a
+ * layout node, a text-layout pass and a font switch, which made up most of a first render. Each
+ * line keeps the place, font, size, features and colour the Text elements gave it: pdfkit puts a
+ * line's baseline one ascent below `y`, as react-pdf does at a line height of 1 (the poster's
+ * tools tests check centring and insets in the rendered PDF). Lines are drawn in the order given,
+ * which is the PDF's reading order; the font changes only where the weight does, and the font
+ * react-pdf has already loaded for that weight is reused, else pdfkit opens the same file.
  */
-export function CellTexts({ cells, nf = "point" }: { cells: WordedCell[]; nf?: NumberFormat }) {
-  if (cells.length === 0) return null;
-  const runs = cells.flatMap((c) => cellTextRuns(c, nf));
-  const x0 = Math.min(...cells.map((c) => c.box.x));
-  const y0 = Math.min(...cells.map((c) => c.box.y));
-  const width = Math.max(...cells.map((c) => c.box.x + c.box.width)) - x0;
-  const height = Math.max(...cells.map((c) => c.box.y + c.box.height)) - y0;
+export function TextLayer({ runs: all }: { runs: CellTextRun[] }) {
   // Headings grown for a long reading distance can leave a small sheet's grid no room at all; the
   // approval gate names that case, and there is nothing legible to draw.
-  if (!(width > 0 && height > 0)) return null;
+  const runs = all.filter((r) => r.size > 0 && (!r.align || r.align.width > 0));
+  if (runs.length === 0) return null;
+  const x0 = Math.min(...runs.map((r) => r.x));
+  const y0 = Math.min(...runs.map((r) => r.y));
+  const width = Math.max(...runs.map((r) => r.x + (r.align?.width ?? r.size))) - x0;
+  const height = Math.max(...runs.map((r) => r.y + r.size)) - y0;
   const paint = (painter: Painter) => {
     // The Canvas origin is its top left corner; the runs are in page coordinates.
     painter.translate(-x0, -y0).fillColor(PALETTE.ink);
@@ -179,6 +182,9 @@ export function CellTexts({ cells, nf = "point" }: { cells: WordedCell[]; nf?: N
   };
   return <Canvas style={at({ x: x0, y: y0, width, height })} paint={paint} />;
 }
+
+/** The words of the given cells (their backgrounds, rules and borders are CellGraphicsSvg's). */
+export const cellRuns = (cells: WordedCell[], nf: NumberFormat = "point") => cells.flatMap((c) => cellTextRuns(c, nf));
 
 export function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
   const g = cellGraphics(cells);
@@ -291,30 +297,12 @@ function GridTexts({
   const pressureLine = grid.rounding === "reach";
   const rowAxisPt = Math.min(fonts.axis, g.rowAxis.height / ((titles.rows.length + 2) * 0.6));
   const centre = { x: g.rowAxis.x + g.rowAxis.width / 2, y: g.rowAxis.y + g.rowAxis.height / 2 };
-  const headText = (key: string, box: Box, text: string) => (
-    <Text
-      key={key}
-      style={{
-        position: "absolute",
-        left: box.x,
-        width: box.width,
-        top: box.y + (box.height - head) / 2,
-        fontSize: head,
-        lineHeight: 1,
-        fontWeight: 700,
-        textAlign: "center",
-        ...TNUM,
-      }}
-    >
-      {text}
-    </Text>
-  );
   return (
     <>
       <View style={at(g.title)}>
         <Text style={{ fontSize: fonts.gridTitle, fontWeight: 700, lineHeight: 1.25 }}>{lookupTitle(grid.kind)}</Text>
         {sub.map((line, i) => (
-          <Text key={i} style={{ fontSize: fonts.gridSub, lineHeight: 1.2, fontWeight: i === 1 ? 700 : 600 }}>
+          <Text key={i} style={{ fontSize: fonts.gridSub, lineHeight: 1.2, fontWeight: i === 1 ? 700 : 400 }}>
             {loc(line)}
           </Text>
         ))}
@@ -323,7 +311,7 @@ function GridTexts({
         style={{
           ...at(g.colAxis),
           fontSize: fonts.axis,
-          fontWeight: 600,
+          fontWeight: 700,
           textAlign: "center",
           paddingTop: fonts.axis * 0.2,
         }}
@@ -340,7 +328,7 @@ function GridTexts({
         }}
       >
         <Text
-          style={{ fontSize: rowAxisPt, fontWeight: 600, textAlign: "center", paddingTop: fonts.axis * 0.2 }}
+          style={{ fontSize: rowAxisPt, fontWeight: 700, textAlign: "center", paddingTop: fonts.axis * 0.2 }}
         >{`${titles.rows} ←`}</Text>
       </View>
       <Text
@@ -350,7 +338,7 @@ function GridTexts({
           width: g.rowHeadWidth - f * 0.08,
           top: g.cellsY - g.colHeadHeight + f * 0.04,
           fontSize: head * 0.5,
-          fontWeight: 600,
+          fontWeight: 700,
           textAlign: "right",
         }}
       >
@@ -362,30 +350,44 @@ function GridTexts({
           left: g.cellsX - g.rowHeadWidth + f * 0.08,
           top: g.cellsY - head * 0.5 * 1.2 - f * 0.04,
           fontSize: head * 0.5,
-          fontWeight: 600,
+          fontWeight: 700,
         }}
       >
         {`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}
       </Text>
-      {grid.colAxis.values.map((c, j) =>
-        headText(
-          `c${j}`,
-          { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight },
-          loc(formatAxisMm(c)),
-        ),
-      )}
-      {grid.rowAxis.values.map((r, i) =>
-        headText(
-          `r${i}`,
-          { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight },
-          loc(formatAxisMm(r)),
-        ),
-      )}
-      <CellTexts
-        cells={grid.cells.flatMap((row, i) =>
-          row.map((cell, j) => ({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine })),
-        )}
-        nf={nf}
+      <TextLayer
+        runs={[
+          ...grid.colAxis.values.map((c, j) =>
+            headingRun(
+              {
+                x: g.cellsX + j * g.cellWidth,
+                y: g.cellsY - g.colHeadHeight,
+                width: g.cellWidth,
+                height: g.colHeadHeight,
+              },
+              loc(formatAxisMm(c)),
+              head,
+            ),
+          ),
+          ...grid.rowAxis.values.map((r, i) =>
+            headingRun(
+              {
+                x: g.cellsX - g.rowHeadWidth,
+                y: g.cellsY + i * g.cellHeight,
+                width: g.rowHeadWidth,
+                height: g.cellHeight,
+              },
+              loc(formatAxisMm(r)),
+              head,
+            ),
+          ),
+          ...cellRuns(
+            grid.cells.flatMap((row, i) =>
+              row.map((cell, j) => ({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine })),
+            ),
+            nf,
+          ),
+        ]}
       />
     </>
   );
@@ -413,11 +415,11 @@ function Legend({ layout, entries, nf }: { layout: PosterLayout; entries: Legend
         return (
           <View key={e.mark}>
             {/* One layer per line keeps each sample before its words in the PDF's reading order. */}
-            <CellTexts
-              cells={[
-                { view: sampleView(e), box: row.swatch, f: row.swatch.height / CELL.heightEm, pressureLine: false },
-              ]}
-              nf={nf}
+            <TextLayer
+              runs={cellRuns(
+                [{ view: sampleView(e), box: row.swatch, f: row.swatch.height / CELL.heightEm, pressureLine: false }],
+                nf,
+              )}
             />
             <Text
               style={{
@@ -466,7 +468,7 @@ function Qr({
         <Text
           style={{
             fontSize: urlFontPt(printed.length, fonts, layout.qrText.width),
-            fontWeight: 600,
+            fontWeight: 400,
             textAlign: "center",
           }}
         >
@@ -522,7 +524,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           />
         ) : null}
         <View style={{ position: "absolute", left: layout.title.x, top: layout.title.y, width: layout.title.width }}>
-          <Text style={{ fontSize: fonts.lab, fontWeight: 600, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
+          <Text style={{ fontSize: fonts.lab, fontWeight: 400, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
           <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
         </View>
         <View style={at(layout.law)}>
@@ -593,7 +595,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           <Text
             style={{
               fontSize: fonts.edition,
-              fontWeight: edition.status === "approved" ? 600 : 700,
+              fontWeight: edition.status === "approved" ? 400 : 700,
               marginTop: fonts.edition * 0.2,
             }}
           >
