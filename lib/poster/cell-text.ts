@@ -1,10 +1,11 @@
 import type { NumberFormat } from "@/lib/format/numbers";
+import type { Grid } from "@/lib/sizing";
 import { localiseNumbers } from "./labels";
-import { CELL, type Box } from "./layout";
-import { cornerSymbols, type CellView } from "./marks";
+import { cellBox, CELL, type Box, type GridFrame } from "./layout";
+import { cellView, cornerSymbols, formatAxisMm, type CellView } from "./marks";
 
 /** One line of words in a cell or grid heading: where it goes on the page, in which weight and size. */
-export type CellTextRun = {
+export type TextRun = {
   text: string;
   weight: 400 | 700;
   /** Font size, pt. */
@@ -27,7 +28,7 @@ export type WordedCell = { view: CellView; box: Box; f: number; pressureLine: bo
  * diameter small at the top left, the mark symbols small at the top right, the printed balloon
  * large in the middle, and the pressure line under it in grids that can push a balloon.
  */
-export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: NumberFormat = "point"): CellTextRun[] {
+export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: NumberFormat = "point"): TextRun[] {
   const small = f * CELL.smallRatio;
   // Cells stretched to fill the page keep the figure in their middle.
   const lift = Math.max(0, (box.height - f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))) / 2);
@@ -35,7 +36,7 @@ export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: Num
   const pad = f * 0.1 + inset;
   const top = f * 0.05 + inset * 0.6;
   const corner = cornerSymbols(view);
-  const runs: CellTextRun[] = [];
+  const runs: TextRun[] = [];
   if (view.exact)
     runs.push({
       text: localiseNumbers(view.exact, nf),
@@ -78,7 +79,7 @@ export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: Num
 }
 
 /** A row or column heading: bold tabular figures centred in their box, as large as `size`. */
-export function headingRun(box: Box, text: string, size: number): CellTextRun {
+export function headingRun(box: Box, text: string, size: number): TextRun {
   return {
     text,
     weight: 700,
@@ -88,4 +89,38 @@ export function headingRun(box: Box, text: string, size: number): CellTextRun {
     align: { width: box.width, to: "center" },
     tnum: true,
   };
+}
+
+/**
+ * Every single line of one grid, in the PDF's reading order: the column headings, the row
+ * headings, then each cell's words row by row. The poster and the badge card word grids alike.
+ */
+export function gridTextRuns(
+  grid: Grid,
+  g: GridFrame,
+  f: number,
+  headPt: number,
+  nf: NumberFormat = "point",
+): TextRun[] {
+  const loc = (mm: number) => localiseNumbers(formatAxisMm(mm), nf);
+  const pressureLine = grid.rounding === "reach";
+  return [
+    ...grid.colAxis.values.map((c, j) =>
+      headingRun(
+        { x: g.cellsX + j * g.cellWidth, y: g.cellsY - g.colHeadHeight, width: g.cellWidth, height: g.colHeadHeight },
+        loc(c),
+        headPt,
+      ),
+    ),
+    ...grid.rowAxis.values.map((r, i) =>
+      headingRun(
+        { x: g.cellsX - g.rowHeadWidth, y: g.cellsY + i * g.cellHeight, width: g.rowHeadWidth, height: g.cellHeight },
+        loc(r),
+        headPt,
+      ),
+    ),
+    ...grid.cells.flatMap((row, i) =>
+      row.flatMap((cell, j) => cellTextRuns({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine }, nf)),
+    ),
+  ];
 }

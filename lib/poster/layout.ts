@@ -572,6 +572,12 @@ function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
 }
 
 /** Cell box (row r, column c) of a laid-out grid. */
+/** Where a grid's cells go: the poster's GridLayout, or the badge card's smaller frame. */
+export type GridFrame = Pick<
+  GridLayout,
+  "cellsX" | "cellsY" | "cellWidth" | "cellHeight" | "rowHeadWidth" | "colHeadHeight"
+>;
+
 export function cellBox(
   g: Pick<GridLayout, "cellsX" | "cellsY" | "cellWidth" | "cellHeight">,
   r: number,

@@ -1,16 +1,14 @@
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { snapshotGrids } from "@/lib/charts/snapshot";
 import { CARD_HEAD_LINES, cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
-import { headingRun } from "@/lib/poster/cell-text";
-import { cellBox } from "@/lib/poster/layout";
+import { gridTextRuns } from "@/lib/poster/cell-text";
 import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
-import { cellView, formatAxisMm, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
+import { cellView, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
 import { lawName, type Grid } from "@/lib/sizing";
 import {
   at,
   CellGraphicsSvg,
-  cellRuns,
   TextLayer,
   gridCells,
   POSTER_EPOCH,
@@ -89,45 +87,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
           fontWeight: 700,
         }}
       >{`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}</Text>
-      <TextLayer
-        runs={[
-          ...grid.colAxis.values.map((c, j) =>
-            headingRun(
-              {
-                x: g.cellsX + j * g.cellWidth,
-                y: g.cellsY - g.colHeadHeight,
-                width: g.cellWidth,
-                height: g.colHeadHeight,
-              },
-              loc(formatAxisMm(c)),
-              head,
-            ),
-          ),
-          ...grid.rowAxis.values.map((r, i) =>
-            headingRun(
-              {
-                x: g.cellsX - g.rowHeadWidth,
-                y: g.cellsY + i * g.cellHeight,
-                width: g.rowHeadWidth,
-                height: g.cellHeight,
-              },
-              loc(formatAxisMm(r)),
-              head,
-            ),
-          ),
-          ...cellRuns(
-            grid.cells.flatMap((row, i) =>
-              row.map((cell, j) => ({
-                view: cellView(cell),
-                box: cellBox(l.grid, i, j),
-                f,
-                pressureLine: grid.rounding === "reach",
-              })),
-            ),
-            nf,
-          ),
-        ]}
-      />
+      <TextLayer runs={gridTextRuns(grid, l.grid, f, head, nf)} />
       <Svg style={at(l.qr)} width={l.qr.width} height={l.qr.height} viewBox={`0 0 ${n} ${n}`}>
         <Rect x={0} y={0} width={n} height={n} fill="#ffffff" />
         <Path d={qrPath(qr)} fill="#000000" />

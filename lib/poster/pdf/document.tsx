@@ -6,7 +6,7 @@ import { shortFingerprint } from "@/lib/charts/fingerprint";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { NumberFormat } from "@/lib/format/numbers";
-import { cellTextRuns, headingRun, type CellTextRun, type WordedCell } from "@/lib/poster/cell-text";
+import { cellTextRuns, gridTextRuns, type TextRun } from "@/lib/poster/cell-text";
 import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
@@ -27,18 +27,11 @@ import {
   layoutPoster,
   urlFontPt,
   type Box,
+  type GridFrame,
   type GridLayout,
   type PosterLayout,
 } from "@/lib/poster/layout";
-import {
-  cellView,
-  formatAxisMm,
-  MARKS,
-  PALETTE,
-  type CellView,
-  type LegendEntry,
-  type MarkId,
-} from "@/lib/poster/marks";
+import { cellView, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
@@ -153,7 +146,7 @@ type Painter = {
  * which is the PDF's reading order; the font changes only where the weight does, and the font
  * react-pdf has already loaded for that weight is reused, else pdfkit opens the same file.
  */
-export function TextLayer({ runs: all }: { runs: CellTextRun[] }) {
+export function TextLayer({ runs: all }: { runs: TextRun[] }) {
   // Headings grown for a long reading distance can leave a small sheet's grid no room at all; the
   // approval gate names that case, and there is nothing legible to draw.
   const runs = all.filter((r) => r.size > 0 && (!r.align || r.align.width > 0));
@@ -165,7 +158,7 @@ export function TextLayer({ runs: all }: { runs: CellTextRun[] }) {
   const paint = (painter: Painter) => {
     // The Canvas origin is its top left corner; the runs are in page coordinates.
     painter.translate(-x0, -y0).fillColor(PALETTE.ink);
-    let current: CellTextRun["weight"] | null = null;
+    let current: TextRun["weight"] | null = null;
     for (const r of runs) {
       if (r.weight !== current) {
         const loaded: unknown = Font.getFont({ fontFamily: POSTER_FONT, fontWeight: r.weight })?.data;
@@ -182,9 +175,6 @@ export function TextLayer({ runs: all }: { runs: CellTextRun[] }) {
   };
   return <Canvas style={at({ x: x0, y: y0, width, height })} paint={paint} />;
 }
-
-/** The words of the given cells (their backgrounds, rules and borders are CellGraphicsSvg's). */
-export const cellRuns = (cells: WordedCell[], nf: NumberFormat = "point") => cells.flatMap((c) => cellTextRuns(c, nf));
 
 export function CellGraphicsSvg({ cells, rule, hatchWidth }: { cells: DrawnCell[]; rule: number; hatchWidth: number }) {
   const g = cellGraphics(cells);
@@ -225,9 +215,6 @@ export const heading = (box: Box): DrawnCell => ({
   box,
   view: { background: PALETTE.heading, hatch: false, border: 0 },
 });
-
-/** Where a grid's cells go: the poster's GridLayout, or the badge card's smaller frame. */
-type GridFrame = Pick<GridLayout, "cellsX" | "cellsY" | "cellWidth" | "cellHeight" | "rowHeadWidth" | "colHeadHeight">;
 
 /** One grid's corner, column and row headings, and cells, placed by `g`: the poster and the card draw grids alike. */
 export function gridCells(grid: Grid, g: GridFrame): DrawnCell[] {
@@ -294,7 +281,6 @@ function GridTexts({
   const f = layout.figurePt;
   const titles = axisTitles(grid);
   const head = f * CELL.headingRatio;
-  const pressureLine = grid.rounding === "reach";
   const rowAxisPt = Math.min(fonts.axis, g.rowAxis.height / ((titles.rows.length + 2) * 0.6));
   const centre = { x: g.rowAxis.x + g.rowAxis.width / 2, y: g.rowAxis.y + g.rowAxis.height / 2 };
   return (
@@ -355,40 +341,7 @@ function GridTexts({
       >
         {`${VESSEL_SYMBOLS[grid.rowAxis.vessel]} ↓`}
       </Text>
-      <TextLayer
-        runs={[
-          ...grid.colAxis.values.map((c, j) =>
-            headingRun(
-              {
-                x: g.cellsX + j * g.cellWidth,
-                y: g.cellsY - g.colHeadHeight,
-                width: g.cellWidth,
-                height: g.colHeadHeight,
-              },
-              loc(formatAxisMm(c)),
-              head,
-            ),
-          ),
-          ...grid.rowAxis.values.map((r, i) =>
-            headingRun(
-              {
-                x: g.cellsX - g.rowHeadWidth,
-                y: g.cellsY + i * g.cellHeight,
-                width: g.rowHeadWidth,
-                height: g.cellHeight,
-              },
-              loc(formatAxisMm(r)),
-              head,
-            ),
-          ),
-          ...cellRuns(
-            grid.cells.flatMap((row, i) =>
-              row.map((cell, j) => ({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine })),
-            ),
-            nf,
-          ),
-        ]}
-      />
+      <TextLayer runs={gridTextRuns(grid, g, f, head, nf)} />
     </>
   );
 }
@@ -416,8 +369,8 @@ function Legend({ layout, entries, nf }: { layout: PosterLayout; entries: Legend
           <View key={e.mark}>
             {/* One layer per line keeps each sample before its words in the PDF's reading order. */}
             <TextLayer
-              runs={cellRuns(
-                [{ view: sampleView(e), box: row.swatch, f: row.swatch.height / CELL.heightEm, pressureLine: false }],
+              runs={cellTextRuns(
+                { view: sampleView(e), box: row.swatch, f: row.swatch.height / CELL.heightEm, pressureLine: false },
                 nf,
               )}
             />
