@@ -121,6 +121,7 @@ export const posterPdf = labOperation({
             edition: ed.number,
             shortCode,
             shortUrl: edition.codeUrl.replace(/^https?:\/\//, ""),
+            checkUrl: edition.checkUrl,
             band,
           });
         else if (band) pdf = await stampBands(pdf, band);

@@ -246,6 +246,7 @@ async function main() {
     edition: 3,
     shortCode: "K7QM-2XHD",
     shortUrl: "forkwall.example/c/K7QM-2XHD",
+    checkUrl: input.edition.checkUrl,
     band: null,
   };
   const variants: Record<string, () => Promise<unknown>> = {

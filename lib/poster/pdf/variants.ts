@@ -17,6 +17,7 @@ import {
   StandardFonts,
 } from "pdf-lib";
 import { mmToPt } from "../paper";
+import { qrPath, qrSymbol, QR_QUIET_MODULES } from "../qr";
 import { columnLetter, tileCaption, tilePlan, TILE_MARGIN_MM, TILE_OVERLAP_MM, type TileSheet } from "../tiles";
 
 /** The words every page of an edition that is not current carries, exactly. */
@@ -137,8 +138,13 @@ export type TileOptions = {
   /** As printed: K7QM-2XHD. */
   shortCode: string;
   shortUrl: string;
+  /** What the assembly map's QR code opens: the edition's check page, as on the poster. */
+  checkUrl: string;
   band: Band | null;
 };
+
+/** Side of the assembly map's QR code, quiet zone included (about 0.7 mm a module for a check address). */
+export const MAP_QR_MM = 32;
 
 const mm = mmToPt;
 
@@ -156,6 +162,26 @@ function drawMap(
   const w = page.getWidth();
   const h = page.getHeight();
   const m = mm(TILE_MARGIN_MM);
+  // The check QR code at the top right: the poster's own code can fall across two sheets, and
+  // the set can be checked before it is put together.
+  const qrSide = mm(MAP_QR_MM);
+  const qr = qrSymbol(opts.checkUrl);
+  const modules = qr.size + 2 * QR_QUIET_MODULES;
+  const qrX = w - m - qrSide;
+  const qrTop = h - m;
+  page.drawRectangle({ x: qrX, y: qrTop - qrSide, width: qrSide, height: qrSide, color: WHITE });
+  page.drawSvgPath(qrPath(qr), { x: qrX, y: qrTop, scale: qrSide / modules, color: rgb(0, 0, 0) });
+  const scanText = winAnsi(fonts.regular, "Scan to check this edition");
+  const scanSize = fitSize(fonts.regular, scanText, qrSide, 7);
+  label(
+    page,
+    fonts.regular,
+    scanText,
+    qrX + (qrSide - fonts.regular.widthOfTextAtSize(scanText, scanSize)) / 2,
+    qrTop - qrSide - scanSize - 1,
+    scanSize,
+  );
+  const textW = qrX - 8 - m;
   const lines = [
     `Assembly map: ${opts.title}, edition ${opts.edition}`,
     `${plan.tiles.length} sheets at 100 % scale (${plan.cols} across, columns A-${columnLetter(plan.cols - 1)}; ${plan.rows} down, rows 1-${plan.rows}). Print at actual size, not "fit to page".`,
@@ -163,7 +189,7 @@ function drawMap(
     `Code ${opts.shortCode}: ${opts.shortUrl}`,
   ].map((l) => winAnsi(fonts.regular, l));
   let y = h - m - 14;
-  label(page, fonts.bold, lines[0] as string, m, y, fitSize(fonts.bold, lines[0] as string, w - 2 * m, 13));
+  label(page, fonts.bold, lines[0] as string, m, y, fitSize(fonts.bold, lines[0] as string, textW, 13));
   y -= 6;
   for (const line of lines.slice(1)) {
     // Wrap by words into the width.
@@ -172,7 +198,7 @@ function drawMap(
     const size = 8.5;
     for (const word of words) {
       const next = cur ? `${cur} ${word}` : word;
-      if (fonts.regular.widthOfTextAtSize(next, size) > w - 2 * m && cur) {
+      if (fonts.regular.widthOfTextAtSize(next, size) > textW && cur) {
         y -= size * 1.3;
         label(page, fonts.regular, cur, m, y, size);
         cur = word;
@@ -182,7 +208,7 @@ function drawMap(
     label(page, fonts.regular, cur, m, y, size);
   }
   // The poster in miniature with the sheet grid over it.
-  const areaTop = y - 10;
+  const areaTop = Math.min(y, qrTop - qrSide - scanSize - 2) - 10;
   const areaH = areaTop - m - 16;
   const areaW = w - 2 * m;
   const totalW = mm((plan.cols - 1) * (plan.windowWidthMm - TILE_OVERLAP_MM) + plan.windowWidthMm);

@@ -122,6 +122,7 @@ describe("tiled printing on office sheets", () => {
           edition: 3,
           shortCode: "K7QM-2XHD",
           shortUrl: "forkwall.example/c/K7QM-2XHD",
+          checkUrl: input.edition.checkUrl,
           band: null,
         });
         const sizes = pageSizes(pdf);
@@ -176,6 +177,7 @@ describe("tiled printing on office sheets", () => {
       edition: 3,
       shortCode: "K7QM-2XHD",
       shortUrl: "forkwall.example/c/K7QM-2XHD",
+      checkUrl: input.edition.checkUrl,
       band: null,
     });
     const texts = pageTexts(pdf);
@@ -188,6 +190,8 @@ describe("tiled printing on office sheets", () => {
       }
     }
     expect(decoded).toContain(input.edition.checkUrl);
+    // The assembly map carries the check code too: the poster's own can fall across two sheets.
+    expect(zbarDecode(rasterPage(pdf, 1, 150))).toContain(input.edition.checkUrl);
   });
 });
 
