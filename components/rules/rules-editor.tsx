@@ -299,7 +299,9 @@ export function RulesEditor({
           Exceptions for single charts
         </h2>
         <p className="mt-1 text-sm text-ink-soft">
-          An exception lets one chart be approved although it breaks a rule. Give the reason: the poster prints it.
+          An exception lets one chart be approved although it breaks a rule. Give the reason: the poster prints it. A
+          legibility exception excuses the reading distance only: figures too small to read even at arm&apos;s length
+          (40&nbsp;cm) are still refused.
         </p>
         {draft.exceptions.length === 0 ? <p className="mt-2 text-sm">No exceptions recorded.</p> : null}
         <ul className="mt-3 space-y-4">

@@ -5,7 +5,8 @@ import { DEFAULT_ROUNDING_CAPS, LAWS, lawFormula, lawName, type Grid } from "@/l
 import { gridSubtitleParts, lookupTitle, statusBanner } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
 import type { LayoutInput } from "./layout";
-import { posterLegibility, type Legibility } from "./legibility";
+import { CARD_READING_DISTANCE_M } from "./card";
+import { posterLegibility, requiredHeightMm, type Legibility } from "./legibility";
 import { cellView, legendEntries, type CellView, type LegendEntry, type MarkId } from "./marks";
 
 /**
@@ -85,13 +86,27 @@ export function snapshotLegibility(snapshot: Snapshot, edition?: EditionLike): L
 export const LEGIBILITY_RULE = "legibility";
 
 /**
+ * The nearest an exception may bring the reader: arm's length, where the badge card is read. An
+ * exception excuses the stated distance ("read at the table"), not figures nobody can read: on a
+ * small sheet at a long distance the headings can leave the grid no room at all.
+ */
+export const EXCEPTION_FLOOR_M = CARD_READING_DISTANCE_M;
+
+const mm1 = (x: number) => (Math.round(x * 10) / 10).toFixed(1);
+
+/**
  * Why an edition cannot be approved for legibility, or null: its figures, as the approved poster
  * prints them, fall below the 20′ guide at its stated reading distance, and the medical lead
- * recorded no exception to the rule for this chart (snapshot.ruleExceptions).
+ * recorded no exception to the rule for this chart (snapshot.ruleExceptions); or, with an
+ * exception, they fall below the guide even at EXCEPTION_FLOOR_M.
  */
 export function legibilityRefusal(snapshot: Snapshot): string | null {
-  if ((snapshot.ruleExceptions ?? []).some((e) => e.rule === LEGIBILITY_RULE)) return null;
   const l = snapshotLegibility(snapshot, { status: "approved" });
   if (l.ok) return null;
-  return `Lab rule "${LEGIBILITY_RULE}": the figures are too small to read from ${snapshot.readingDistanceM} m. ${l.suggestion ?? ""}`.trim();
+  const rule = `Lab rule "${LEGIBILITY_RULE}"`;
+  if (!(snapshot.ruleExceptions ?? []).some((e) => e.rule === LEGIBILITY_RULE))
+    return `${rule}: the figures are too small to read from ${snapshot.readingDistanceM} m. ${l.suggestion ?? ""}`.trim();
+  const floorMm = requiredHeightMm(EXCEPTION_FLOOR_M);
+  if (l.figureHeightMm >= floorMm) return null;
+  return `${rule}: the exception recorded for this chart excuses the reading distance, but these figures (${mm1(l.figureHeightMm)} mm high) cannot be read even from ${EXCEPTION_FLOOR_M} m, where they need ${mm1(floorMm)} mm. ${l.suggestion ?? ""}`.trim();
 }

@@ -177,6 +177,41 @@ describe("lab rules per lookup kind", () => {
     ]);
   });
 
+  it("an exception to the legibility rule excuses the distance, not figures too small to read even at arm's length", async () => {
+    // A 3 x 3 grid on A4 portrait read from 2.5 m: the headings sized for that distance leave the
+    // grid almost no room (tests/unit/poster/gate.test.ts measures the figures).
+    const { id: chartId } = await chartOps.createChart(
+      as(team.people.educator),
+      { lab: team.lab.slug },
+      chartDefinitionSchema.parse({
+        title: "Three by three on A4",
+        law: { law: "finet", ratio: 0.678 },
+        lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [2.5, 2.75, 3], cols: [2, 2.25, 2.5] }],
+        paper: "A4",
+        orientation: "portrait",
+        readingDistanceM: 2.5,
+      }),
+    );
+    const current = await rulesOps.getLabRules(as(team.people.lead), { lab: team.lab.slug });
+    await rulesOps.setLabRules(
+      as(team.people.lead),
+      { lab: team.lab.slug },
+      {
+        revision: current.revision,
+        exceptions: [...current.exceptions, { chartId, rule: "legibility", reason: "Read at the table only" }],
+      },
+    );
+    const ed = await ops.createEdition(as(team.people.educator), { chartId });
+    const err = await refusal(ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }));
+    expect(err.status).toBe(409);
+    expect(err.message).toMatch(
+      /^Lab rule "legibility": the exception recorded for this chart excuses the reading distance/,
+    );
+    expect(err.message).toMatch(/cannot be read even from 0\.4 m/);
+    expect(err.issues).toEqual([expect.objectContaining({ message: "legibility" })]);
+    expect((await getEdition({ labId: team.lab.id, editionId: ed.id }))!.status).toBe("draft");
+  });
+
   it("charts without exceptions freeze no ruleExceptions field; caps above the lab's are refused by name", async () => {
     const { id: chartId } = await chartOps.createChart(
       as(team.people.educator),
