@@ -9,7 +9,6 @@ import { balloonFamilies, balloons, charts, editions } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import type { CheckJson } from "@/lib/editions/check-json";
-import { env } from "@/lib/env";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
@@ -18,6 +17,7 @@ import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { cardHeadings } from "@/tests/support/card-headings";
 import { labWithTeam } from "./support/fixtures";
+import { call } from "./support/routes";
 import { createChart } from "./support/writes";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
@@ -31,19 +31,6 @@ const as = (who: Who) => {
   session.user = { id: p.id, email: p.email, name: p.name };
 };
 
-type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
-async function call<P>(handler: Handler<P>, params: P, method: string, body?: unknown, query = "") {
-  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
-  if (body !== undefined) headers["content-type"] = "application/json";
-  return handler(
-    new Request(`${env.APP_URL}/api/v1/x${query}`, {
-      method,
-      headers,
-      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
-    }),
-    { params: Promise.resolve(params) },
-  );
-}
 type ErrorBody = { error: { message: string; issues?: { path: (string | number)[]; message: string }[] } };
 
 const patch = (body: unknown) => call(patchChartRoute, { id: String(chartId) }, "PATCH", body);

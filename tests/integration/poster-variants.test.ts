@@ -10,7 +10,6 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, balloons } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
-import { env } from "@/lib/env";
 import { formatDate } from "@/lib/format/dates";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
@@ -19,6 +18,7 @@ import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { withTempDir } from "@/tests/support/pdf-tools";
 import { labWithTeam } from "./support/fixtures";
+import { call } from "./support/routes";
 import { createChart } from "./support/writes";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
@@ -32,19 +32,6 @@ const asRole = (role: Role) => {
   session.user = { id: p.id, email: p.email, name: p.name };
 };
 
-type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
-async function call<P>(handler: Handler<P>, params: P, method: string, body?: unknown, query = "") {
-  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
-  if (body !== undefined) headers["content-type"] = "application/json";
-  return handler(
-    new Request(`${env.APP_URL}/api/v1/x${query}`, {
-      method,
-      headers,
-      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
-    }),
-    { params: Promise.resolve(params) },
-  );
-}
 const json = async (res: Response) =>
   (await res.json()) as { id: number; error: { message: string; issues?: { path: string[]; message: string }[] } };
 
