@@ -8,12 +8,17 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { databaseReachable } from "@/db/health";
 import { env } from "@/lib/env";
-import { checkActionPayload, isActionRequest } from "@/lib/http/action-payload";
+import { checkActionPayload, isActionRequest, sameHostOrigin } from "@/lib/http/action-payload";
 import { outageHtml } from "@/lib/outage-page";
 
 export async function proxy(req: NextRequest) {
   // A server action with a body the framework cannot decode is refused here with 400, not a 500.
   if (isActionRequest(req.method, req.headers)) {
+    if (!sameHostOrigin(req.headers))
+      return NextResponse.json(
+        { error: { code: "cross_site", message: "Forms are accepted only from this site's own pages." } },
+        { status: 403 },
+      );
     const check = await checkActionPayload(
       req.headers.get("content-type"),
       () => req.clone().text(),

@@ -28,6 +28,15 @@ const METHODS = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
 const DIRECT = Symbol.for("forkwall.directReply");
 const SECURITY = Object.fromEntries(securityHeaders(dev).map((h) => [h.key.toLowerCase(), h.value]));
 
+function decodablePath(url) {
+  try {
+    decodeURIComponent(url.split("?")[0]);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 /** Answers the request directly when the app's handler takes it; false when Next should. */
 async function direct(req, res) {
   const reply = globalThis[DIRECT];
@@ -53,6 +62,12 @@ const server = createServer((req, res) => {
   if (!METHODS.includes(req.method ?? "")) {
     res.writeHead(405, { allow: METHODS.join(", "), "content-type": "application/json" });
     res.end(JSON.stringify({ error: { code: "method_not_allowed", message: `${req.method} is not supported.` } }));
+    return;
+  }
+  if (!decodablePath(req.url ?? "/")) {
+    // Next would fail on it with a 500 and without the security headers.
+    res.writeHead(400, { ...SECURITY, "content-type": "application/json" });
+    res.end(JSON.stringify({ error: { code: "invalid_input", message: "The address has broken %-escapes." } }));
     return;
   }
   req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";

@@ -37,6 +37,12 @@ const jsonText = <T>(name: string) =>
     fromDriver: (value) => (typeof value === "string" ? JSON.parse(value) : value) as T,
   })(name);
 
+/** ASCII text compared byte for byte: codes and tokens whose letter case carries entropy. */
+const asciiBin = (name: string, length: number, kind: "char" | "varchar") =>
+  customType<{ data: string; driverData: string }>({
+    dataType: () => `${kind}(${length}) CHARACTER SET ascii COLLATE ascii_bin`,
+  })(name);
+
 const mediumBlob = customType<{ data: Buffer; driverData: Buffer }>({
   dataType: () => "mediumblob",
 });
@@ -330,9 +336,9 @@ export const editions = mysqlTable(
     status: mysqlEnum("status", EDITION_STATUSES).notNull().default("draft"),
     snapshot: jsonText<unknown>("snapshot").notNull(),
     fingerprint: char("fingerprint", { length: 64 }).notNull(),
-    checkToken: varchar("check_token", { length: 64 }).notNull().unique(),
+    checkToken: asciiBin("check_token", 64, "varchar").notNull().unique(),
     /** Typable code printed under the QR (lib/editions/short-code.ts); `/c/<code>` leads to the check page. */
-    shortCode: char("short_code", { length: 8 }).notNull().unique(),
+    shortCode: asciiBin("short_code", 8, "char").notNull().unique(),
     createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     approvedBy: ref("approved_by").references(() => users.id, { onDelete: "set null" }),

@@ -5,6 +5,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { loadLocalEnv } from "./local-env";
 
 loadLocalEnv();
+(await import("@/lib/startup-env")).exitOnInvalidEnvironment();
 const { env } = await import("@/lib/env");
 const local = await import("./local-server");
 const { provision } = await import("./provision");

@@ -32,8 +32,14 @@ const STATUS: Record<ErrorCode, number> = {
 
 export type FieldIssue = { path: (string | number)[]; message: string };
 
+// A registry symbol, so an error made by another loaded copy of this module is still recognised.
+const BRAND = Symbol.for("forkwall.app-error");
+
 export class AppError extends Error {
   readonly status: number;
+  readonly [BRAND] = true;
+  /** Seconds a client should wait, for "rate_limited" answers (sent as Retry-After). */
+  retryAfterSeconds?: number;
   constructor(
     readonly code: ErrorCode,
     message: string,
@@ -43,6 +49,20 @@ export class AppError extends Error {
     this.name = "AppError";
     this.status = STATUS[code];
   }
+}
+
+/** True for an AppError from any loaded copy of this module (class identity is not relied on). */
+export function isAppError(err: unknown): err is AppError {
+  if (typeof err !== "object" || err === null || (err as Record<symbol, unknown>)[BRAND] !== true) return false;
+  const { code, status } = err as { code?: unknown; status?: unknown };
+  return typeof code === "string" && code in STATUS && status === STATUS[code as ErrorCode];
+}
+
+/** A 429 that tells the client when to come back. */
+export function rateLimited(message: string, retryAfterSeconds: number): AppError {
+  const err = new AppError("rate_limited", message);
+  err.retryAfterSeconds = Math.max(1, Math.ceil(retryAfterSeconds));
+  return err;
 }
 
 export const unauthenticated = () => new AppError("unauthenticated", "Sign in to continue.");
@@ -108,7 +128,7 @@ export function isDatabaseUnreachable(err: unknown): boolean {
       fatal?: unknown;
       message?: unknown;
     };
-    if (e instanceof AppError) return e.code === "unavailable";
+    if (isAppError(e)) return e.code === "unavailable";
     if (typeof code === "string" && UNREACHABLE_CODES.has(code)) return true;
     if (typeof errno === "number" && UNREACHABLE_ERRNOS.has(errno)) return true;
     // mysql2 marks errors that broke the connection itself as fatal.
@@ -124,7 +144,7 @@ export function isDatabaseUnreachable(err: unknown): boolean {
 
 /** Any thrown value -> the AppError a person sees: outages become "unavailable", the rest "internal". */
 export function toAppError(err: unknown): AppError {
-  if (err instanceof AppError) return err;
+  if (isAppError(err)) return err;
   if (isDatabaseUnreachable(err)) return new AppError("unavailable", DATABASE_UNAVAILABLE_MESSAGE);
   return new AppError("internal", "Something went wrong on our side. Please try again.");
 }

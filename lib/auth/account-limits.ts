@@ -1,8 +1,9 @@
 import "server-only";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMySQL } from "rate-limiter-flexible";
+import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { rateLimited } from "@/lib/errors";
 import { databaseName } from "./sign-in";
 import { accountKey } from "./throttle";
 
@@ -39,10 +40,10 @@ export async function consumeSignUp(ip: string): Promise<void> {
   try {
     await limiter("signup-ip", SIGN_UPS_PER_ADDRESS_PER_HOUR).consume(ip);
   } catch (err) {
-    if (!(err instanceof RateLimiterRes)) throw err;
-    throw new AppError(
-      "rate_limited",
+    if (!isLimiterRefusal(err)) throw err;
+    throw rateLimited(
       `Too many sign-ups from this network. Try again in ${minutes(err.msBeforeNext)} minutes.`,
+      err.msBeforeNext / 1000,
     );
   }
 }
@@ -57,7 +58,7 @@ export async function mayMail(email: string): Promise<{ ok: true } | { ok: false
     await limiter("account-mail", ACCOUNT_MAILS_PER_HOUR).consume(accountKey(email));
     return { ok: true };
   } catch (err) {
-    if (!(err instanceof RateLimiterRes)) throw err;
+    if (!isLimiterRefusal(err)) throw err;
     return { ok: false, retryMinutes: minutes(err.msBeforeNext) };
   }
 }

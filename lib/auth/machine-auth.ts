@@ -1,9 +1,10 @@
 import "server-only";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMySQL } from "rate-limiter-flexible";
+import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
 import { findActiveToken, touchToken } from "@/db/queries/tokens";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { AppError, rateLimited } from "@/lib/errors";
 import type { Caller } from "@/lib/ops/caller";
 import { bearerToken, hashMachineToken, looksLikeMachineToken } from "./machine-tokens";
 import { databaseName } from "./sign-in";
@@ -17,14 +18,8 @@ export class BearerRefused extends AppError {
 }
 
 /** 429 for a token past TOKEN_RATE_LIMIT_PER_MINUTE, with Retry-After. */
-export class TokenRateLimited extends AppError {
-  constructor(readonly retryAfterSeconds: number) {
-    super(
-      "rate_limited",
-      `Too many requests with this token. Try again in ${retryAfterSeconds} second${retryAfterSeconds === 1 ? "" : "s"}.`,
-    );
-  }
-}
+const tokenRateLimited = (seconds: number) =>
+  rateLimited(`Too many requests with this token. Try again in ${seconds} second${seconds === 1 ? "" : "s"}.`, seconds);
 
 const g = globalThis as unknown as { forkwallTokenLimiter?: RateLimiterMySQL };
 
@@ -60,7 +55,7 @@ export async function tokenCaller(req: Request): Promise<Caller> {
   try {
     await limiter().consume(String(token.id));
   } catch (err) {
-    if (err instanceof RateLimiterRes) throw new TokenRateLimited(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
+    if (isLimiterRefusal(err)) throw tokenRateLimited(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
     throw err;
   }
   await touchToken({ tokenId: token.id });

@@ -1,8 +1,9 @@
 import "server-only";
-import { RateLimiterMemory, RateLimiterMySQL, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
+import { RateLimiterMemory, RateLimiterMySQL, type RateLimiterAbstract } from "rate-limiter-flexible";
+import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { type AppError, isAppError, rateLimited } from "@/lib/errors";
 import { databaseName } from "./sign-in";
 
 // Public endpoints (the solve API, the check page and its API, short-code lookups) answer
@@ -13,14 +14,15 @@ import { databaseName } from "./sign-in";
 // and with N instances an address gets at most N times the limit.
 export type PublicKind = "solve" | "check" | "short-code";
 
-export class RateLimitedError extends AppError {
-  constructor(readonly retryAfterSeconds: number) {
-    super(
-      "rate_limited",
-      `Too many requests from your address. Try again in ${retryAfterSeconds} second${retryAfterSeconds === 1 ? "" : "s"}.`,
-    );
-  }
-}
+/** 429 with Retry-After for one client address. */
+export const publicRateLimited = (seconds: number) =>
+  rateLimited(
+    `Too many requests from your address. Try again in ${seconds} second${seconds === 1 ? "" : "s"}.`,
+    seconds,
+  );
+
+/** True for any of the app's 429s, whichever loaded copy of the module made it. */
+export const isRateLimited = (err: unknown): err is AppError => isAppError(err) && err.code === "rate_limited";
 
 export function createPublicLimiter(opts: { points: number; durationSeconds: number; keyPrefix?: string }) {
   const limiters = new Map<PublicKind, RateLimiterAbstract>();
@@ -48,12 +50,12 @@ export function createPublicLimiter(opts: { points: number; durationSeconds: num
     return l;
   };
   return {
-    /** Counts one request; throws RateLimitedError (429, Retry-After) past the limit. */
+    /** Counts one request; throws a rate_limited AppError (429, Retry-After) past the limit. */
     async take(kind: PublicKind, ip: string): Promise<void> {
       try {
         await limiter(kind).consume(ip);
       } catch (err) {
-        if (err instanceof RateLimiterRes) throw new RateLimitedError(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
+        if (isLimiterRefusal(err)) throw publicRateLimited(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
         throw err;
       }
     },

@@ -1,6 +1,7 @@
 import "server-only";
 import type { Pool as CallbackPool } from "mysql2";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMySQL } from "rate-limiter-flexible";
+import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { hashToken } from "./tokens";
 import { isRefused, signInDelayMs } from "./throttle-policy";
 
@@ -43,7 +44,7 @@ export function createSignInThrottle(opts: ThrottleOptions) {
       // Reaching the limit starts a full window of refusal from this failure on.
       if (isRefused(res.consumedPoints, max)) await rl.block(key, opts.windowSeconds);
     } catch (err) {
-      if (!(err instanceof RateLimiterRes)) throw err;
+      if (!isLimiterRefusal(err)) throw err;
     }
   }
 

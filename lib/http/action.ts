@@ -2,6 +2,7 @@ import "server-only";
 import { AppError, invalidInput } from "@/lib/errors";
 import { sessionCaller, type Caller } from "@/lib/ops/caller";
 import { log } from "@/lib/log";
+import { illFormedText } from "@/lib/validation/well-formed";
 import { payloadTooLarge, type UploadedFile } from "@/lib/upload";
 import { toAppError } from "./respond";
 
@@ -44,6 +45,10 @@ export async function runAction(
   const values = formValues(payload);
   const keep = Object.fromEntries(Object.entries(values).filter(([k]) => !(opts.secret ?? []).includes(k)));
   try {
+    // Checked before any write: a broken character found after a commit would fail the answer.
+    const broken = illFormedText(payload);
+    if (broken)
+      throw invalidInput([{ path: broken, message: "Contains a broken character (a lone UTF-16 surrogate)." }]);
     return await fn(await sessionCaller(), values);
   } catch (err) {
     const known = toAppError(err);

@@ -1,6 +1,6 @@
 import "server-only";
 import { getCheckByToken, getCheckTokenByShortCode, getCheckVersion, type CheckView } from "@/db/queries/check";
-import { limitPublic, RateLimitedError, type PublicKind } from "@/lib/auth/public-limit";
+import { isRateLimited, limitPublic, type PublicKind } from "@/lib/auth/public-limit";
 import { addressOf } from "@/lib/auth/request-address";
 import { actionSentence } from "@/lib/editions/action";
 import { CHECK_HEADLINES } from "@/lib/editions/check";
@@ -69,8 +69,8 @@ async function guarded(headers: Headers, kind: PublicKind, fn: () => Promise<Rep
     await limitPublic(kind, addressOf(headers));
     return await fn();
   } catch (err) {
-    if (err instanceof RateLimitedError)
-      return htmlReply(rateLimitedHtml(err.message), 429, { "retry-after": String(err.retryAfterSeconds) });
+    if (isRateLimited(err))
+      return htmlReply(rateLimitedHtml(err.message), 429, { "retry-after": String(err.retryAfterSeconds ?? 60) });
     if (isDatabaseUnreachable(err)) return htmlReply(outageHtml("check"), 503, { "retry-after": "30" });
     throw err;
   }

@@ -1,11 +1,11 @@
 import "server-only";
-import { AppError, errorBody, toAppError as asAppError } from "@/lib/errors";
+import { type AppError, errorBody, isAppError, toAppError as asAppError } from "@/lib/errors";
 import { log, type Logger } from "@/lib/log";
 
 /** The error as the app's own type (an outage becomes "unavailable"), or null for an unexpected one. */
 export function toAppError(err: unknown): AppError | null {
   const known = asAppError(err);
-  return known.code === "internal" && !(err instanceof AppError) ? null : known;
+  return known.code === "internal" && !isAppError(err) ? null : known;
 }
 
 /** Turns any error into the JSON answer; the one place where failures are logged. */

@@ -6,6 +6,7 @@ import { findLabWithRole } from "@/db/queries/members";
 import { getLabRules } from "@/db/queries/lab-rules";
 import type { SessionUser } from "@/lib/auth/session";
 import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
+import { SLUG_MAX, SLUG_PATTERN } from "@/lib/validation/lab";
 import type { TokenScope } from "@/lib/validation/tokens";
 import { can, type Capability, type Role } from "@/lib/permissions";
 import type { Caller } from "./caller";
@@ -92,6 +93,8 @@ export async function authorizeToken(
  */
 export async function authorize(caller: Caller, ref: LabRef, capability: Capability): Promise<Member> {
   const user = signedIn(caller);
+  // A string no slug can be (a lone surrogate, say) may still compare equal under the collation.
+  if ("lab" in ref && !(ref.lab.length <= SLUG_MAX && SLUG_PATTERN.test(ref.lab))) throw notFound("Lab");
   let lab;
   if ("lab" in ref) lab = await labBySlug(ref.lab, user.id);
   else {

@@ -3,7 +3,7 @@ import * as q from "@/db/queries/accounts";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { mayMail } from "@/lib/auth/account-limits";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
-import { AppError } from "@/lib/errors";
+import { AppError, rateLimited } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/send";
 import { emailTakenMail } from "@/lib/mail/templates/account";
 import { changeEmailSchema, changeNameSchema, changePasswordSchema } from "@/lib/validation/account";
@@ -16,7 +16,7 @@ import { accountWrite, labWrite } from "./write";
 // The account page: a person's own name, address, password and labs. Each needs a confirmed
 // address (an unconfirmed account can only ask for a new link).
 
-async function verifiedAccount(caller: Caller) {
+export async function verifiedAccount(caller: Caller) {
   const user = signedIn(caller);
   const account = await q.findAccount({ userId: user.id });
   if (!account) throw new AppError("unauthenticated", "Sign in to continue.");
@@ -62,9 +62,9 @@ export async function requestEmailChange(caller: Caller, raw: unknown) {
       ]);
     const allowed = await mayMail(account.email);
     if (!allowed.ok)
-      throw new AppError(
-        "rate_limited",
+      throw rateLimited(
         `Several links went out in the last hour. Try again in ${allowed.retryMinutes} minutes.`,
+        allowed.retryMinutes * 60,
       );
     if (await findUserByEmail({ email })) await sendMail({ to: email, ...emailTakenMail() });
     else await mailNewLink(account, email, "change");

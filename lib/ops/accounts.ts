@@ -1,5 +1,6 @@
 import "server-only";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMySQL } from "rate-limiter-flexible";
+import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
 import { acceptInvitation as acceptInvitationRow, findInvitationByTokenHash } from "@/db/queries/invitations";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
@@ -48,7 +49,7 @@ export async function requestPasswordReset({ email }: { email: string }): Promis
     try {
       await resetMailLimiter().consume(accountKey(email));
     } catch (err) {
-      if (err instanceof RateLimiterRes) return "limited";
+      if (isLimiterRefusal(err)) return "limited";
       throw err;
     }
     const { token, hash } = newToken();

@@ -4,7 +4,7 @@ import { isEmailVerified } from "@/db/queries/accounts";
 import { createInvitation } from "@/db/queries/invitations";
 import { createLab as insertLab, slugTaken } from "@/db/queries/lab-create";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
-import { AppError } from "@/lib/errors";
+import { AppError, isAppError } from "@/lib/errors";
 import { createLabSchema, type CreateLabInput } from "@/lib/validation/lab";
 import { emailField } from "@/lib/validation/members";
 import { signedIn } from "./access";
@@ -27,7 +27,7 @@ async function withNewLab<T>(input: CreateLabInput, fn: (tx: Tx) => Promise<T>):
       return fn(tx);
     });
   } catch (err) {
-    if (duplicateKey(err) !== null || (err instanceof AppError && err.code === "conflict" && !err.issues))
+    if (duplicateKey(err) !== null || (isAppError(err) && err.code === "conflict" && !err.issues))
       throw slugConflict(input.slug);
     throw err;
   }

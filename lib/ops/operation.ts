@@ -4,6 +4,7 @@ import { invalidInput, notFound } from "@/lib/errors";
 import { annotateLog, requestLog } from "@/lib/request-log";
 import type { Capability } from "@/lib/permissions";
 import { BAD_ID, idSchema } from "@/lib/validation/id";
+import { illFormedText } from "@/lib/validation/well-formed";
 import type { TokenScope } from "@/lib/validation/tokens";
 import { authorize, authorizeToken, type LabRef, type Member } from "./access";
 import type { Actor, Caller } from "./caller";
@@ -36,6 +37,8 @@ const nounOf = (key: PropertyKey | undefined) =>
 
 /** Parses input with its zod schema: an id that cannot name a row is 404, anything else wrong is 400. */
 export function parseInput<S extends z.ZodType>(schema: S, raw: unknown, what = "That"): z.infer<S> {
+  const broken = illFormedText(raw);
+  if (broken) throw invalidInput([{ path: broken, message: "Contains a broken character (a lone UTF-16 surrogate)." }]);
   const parsed = schema.safeParse(raw);
   if (parsed.success) return parsed.data;
   const badId = parsed.error.issues.find((i) => i.message === BAD_ID);

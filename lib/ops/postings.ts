@@ -2,7 +2,7 @@ import "server-only";
 import { getCheckByToken } from "@/db/queries/check";
 import * as postings from "@/db/queries/postings";
 import * as rooms from "@/db/queries/rooms";
-import { AppError, notFound } from "@/lib/errors";
+import { isAppError, notFound } from "@/lib/errors";
 import { authorize } from "./access";
 import { checkTokenSchema } from "@/lib/validation/check";
 import { postingSchema, roomSchema } from "@/lib/validation/room";
@@ -95,7 +95,7 @@ export async function checkPage(caller: Caller, { token }: { token: string }) {
   const member =
     caller.kind === "user"
       ? await authorize(caller, { labId: view.lab.id }, "lab:read").catch((err: unknown) => {
-          if (err instanceof AppError && err.status === 404) return null;
+          if (isAppError(err) && err.status === 404) return null;
           throw err;
         })
       : null;

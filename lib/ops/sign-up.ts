@@ -11,7 +11,7 @@ import { consumeSignUp, mayMail } from "@/lib/auth/account-limits";
 import { hashPassword } from "@/lib/auth/password";
 import { EMAIL_VERIFICATION_TTL_MS, hashToken, looksLikeToken, newToken } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { AppError, isAppError, rateLimited } from "@/lib/errors";
 import { log } from "@/lib/log";
 import { sendMail } from "@/lib/mail/send";
 import {
@@ -86,7 +86,7 @@ export async function completeSignUp(input: { name: string; email: string; passw
       );
     } catch (err) {
       // Two sign-ups for one new address at once: the second is an existing account.
-      if (err instanceof AppError && err.code === "conflict") {
+      if (isAppError(err) && err.code === "conflict") {
         await mailAlreadyHaveAccount(input.email);
         return "existing" as const;
       }
@@ -121,9 +121,9 @@ export async function resendVerification(caller: Caller) {
       throw new AppError("conflict", "Your address is already confirmed; there is nothing to resend.");
     const allowed = await mayMail(account.email);
     if (!allowed.ok)
-      throw new AppError(
-        "rate_limited",
+      throw rateLimited(
         `Several links went out in the last hour. Use the newest one, or ask again in ${allowed.retryMinutes} minutes.`,
+        allowed.retryMinutes * 60,
       );
     await mailNewLink(account, account.email, "sign-up");
     return { email: account.email };

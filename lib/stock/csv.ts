@@ -182,7 +182,7 @@ function readRow(
   const fail = (column: Column, message: string) => issues.push({ line, column, message: `${column}: ${message}` });
 
   // Our own export writes '=... for a name starting like a formula (lib/stock/export.ts).
-  const family = familyName.safeParse(value("family").replace(/^'(?=[=+\-@\t\r])/, ""));
+  const family = familyName.safeParse(value("family").replace(/^'(?=[=+\-@\t\r;])/, ""));
   if (!family.success) fail("family", value("family") === "" ? "is empty." : firstMessage(family));
 
   const rawCompliance = value("compliance").toLowerCase();

@@ -5,11 +5,11 @@ import { formatMm } from "./format";
 import type { BalloonFamilyView } from "./types";
 
 /**
- * Cells a spreadsheet would run as a formula (OWASP "CSV Injection": a leading =, +, -, @, tab
- * or carriage return) are written with a leading apostrophe, which spreadsheets show as text;
+ * Cells a spreadsheet would run as a formula (OWASP "CSV Injection": a leading =, +, -, @, tab,
+ * carriage return; and ;, a separator in some locales) get a leading apostrophe, shown as text;
  * the import (lib/stock/csv.ts) takes it off again, so the file still round-trips.
  */
-export const FORMULA_START = /^[=+\-@\t\r]/;
+export const FORMULA_START = /^[=+\-@\t\r;]/;
 
 export function balloonStockCsv(families: BalloonFamilyView[]): string {
   const rows = families.flatMap((f) =>

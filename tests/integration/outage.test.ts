@@ -248,3 +248,43 @@ describe("a database killed mid-write leaves nothing half-written, and the app r
     expect(await approvals()).toBe(approvedBefore + 1);
   }, 120_000);
 });
+
+describe("rate limits stay 429s with Retry-After across a database restart", () => {
+  async function exhaust(limiter: { take(kind: "solve", ip: string): Promise<void> }, ip: string) {
+    await limiter.take("solve", ip);
+    await limiter.take("solve", ip);
+    return limiter.take("solve", ip).then(
+      () => expect.fail("the third request a minute was let through"),
+      (err: unknown) => err,
+    );
+  }
+
+  it("the limit answers 429 with Retry-After before the kill and after the restart", async () => {
+    const { createPublicLimiter } = await import("@/lib/auth/public-limit");
+    const limiter = createPublicLimiter({ points: 2, durationSeconds: 60, keyPrefix: "outage" });
+
+    const before = app.errors.errorResponse(await exhaust(limiter, "192.0.2.1"));
+    expect(before.status).toBe(429);
+    expect(Number(before.headers.get("retry-after"))).toBeGreaterThan(0);
+
+    kill();
+    await waitForDeath();
+    await local.start(server);
+    // The pool reconnects on its own; wait (with a deadline) until it serves again.
+    const deadline = Date.now() + 30_000;
+    for (;;) {
+      const ok = await app.db.pool.query("SELECT 1").then(
+        () => true,
+        () => false,
+      );
+      if (ok) break;
+      if (Date.now() > deadline) expect.fail("the pool did not serve again within 30 s");
+      await new Promise((r) => setTimeout(r, 200));
+    }
+
+    const after = app.errors.errorResponse(await exhaust(limiter, "192.0.2.2"));
+    expect(after.status).toBe(429);
+    expect(Number(after.headers.get("retry-after"))).toBeGreaterThan(0);
+    expect(((await after.json()) as { error: { code: string } }).error.code).toBe("rate_limited");
+  }, 120_000);
+});

@@ -3,7 +3,8 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { GET as solve } from "@/app/api/v1/solve/route";
 import { pool } from "@/db";
-import { createPublicLimiter, RateLimitedError } from "@/lib/auth/public-limit";
+import { createPublicLimiter } from "@/lib/auth/public-limit";
+import { type AppError, isAppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { PEER_HEADER } from "@/lib/http/client-address";
 
@@ -21,10 +22,10 @@ describe("public rate limit", () => {
     const a = ip();
     for (let i = 0; i < 3; i++) await limiter.take("solve", a);
     const err = await limiter.take("solve", a).catch((e: unknown) => e);
-    expect(err).toBeInstanceOf(RateLimitedError);
-    expect((err as RateLimitedError).status).toBe(429);
-    expect((err as RateLimitedError).retryAfterSeconds).toBeGreaterThan(0);
-    expect((err as RateLimitedError).retryAfterSeconds).toBeLessThanOrEqual(30);
+    expect(isAppError(err)).toBe(true);
+    expect((err as AppError).status).toBe(429);
+    expect((err as AppError).retryAfterSeconds).toBeGreaterThan(0);
+    expect((err as AppError).retryAfterSeconds).toBeLessThanOrEqual(30);
     await expect(limiter.take("solve", `${a}0`)).resolves.toBeUndefined();
     await expect(limiter.take("check", a)).resolves.toBeUndefined();
   });

@@ -111,7 +111,7 @@ describe("authorization matrix coverage", () => {
       [...listed].filter((k) => !found.includes(k)),
       "matrix rows for server actions that do not exist",
     ).toEqual([]);
-  });
+  }, 30_000);
 
   it("gives every walked row a status for anonymous and every role, and every exempt row a reason", () => {
     for (const row of ROUTES) {

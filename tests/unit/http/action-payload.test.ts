@@ -1,7 +1,5 @@
-// Server-action bodies the framework cannot decode are told apart before they reach it (they
-// used to end in a 500 inside the framework).
 import { describe, expect, it } from "vitest";
-import { checkActionPayload, isActionRequest } from "@/lib/http/action-payload";
+import { checkActionPayload, isActionRequest, sameHostOrigin } from "@/lib/http/action-payload";
 
 const never = async () => {
   throw new Error("not read");
@@ -38,5 +36,19 @@ describe("server-action payloads", () => {
 
   it("leaves other content types to the framework, which refuses them itself", async () => {
     expect(await checkActionPayload("application/x-www-form-urlencoded", never, never)).toEqual({ ok: true });
+  });
+
+  it("refuses JSON that is not a list of arguments, or that points at parts a text body cannot have", async () => {
+    for (const body of ['{"a":1}', "null", "3", '"x"', '["$@9"]', '[{"file":"$K1"}]', '["$Q2"]'])
+      expect((await checkActionPayload("text/plain", async () => body, never)).ok, body).toBe(false);
+    for (const body of ["[]", '["$$dollar", "$undefined", "$D2026-01-01T00:00:00.000Z", "$n12"]', '[{"n":"$-0"}]'])
+      expect((await checkActionPayload("text/plain", async () => body, never)).ok, body).toBe(true);
+  });
+
+  it("tells a cross-origin action apart by its Origin and Host", () => {
+    expect(sameHostOrigin(new Headers({ host: "localhost:3000" }))).toBe(true);
+    expect(sameHostOrigin(new Headers({ host: "localhost:3000", origin: "http://localhost:3000" }))).toBe(true);
+    expect(sameHostOrigin(new Headers({ host: "localhost:3000", origin: "http://evil.example" }))).toBe(false);
+    expect(sameHostOrigin(new Headers({ host: "localhost:3000", origin: "null" }))).toBe(false);
   });
 });

@@ -4,12 +4,13 @@ import { parseBalloonCsv } from "@/lib/stock/csv";
 import { balloonStockCsv } from "@/lib/stock/export";
 import type { BalloonFamilyView } from "@/lib/stock/types";
 
-// Finding 9: stock names that a spreadsheet would run as formulas are exported as text.
+// Names a spreadsheet would run as formulas (OWASP "CSV Injection") are exported as text.
 const NAMES = [
   '=HYPERLINK("http://x.example","y")',
   "+cmd|' /C calc'!A0",
   "-1+1",
   "@SUM(1+1)*cmd|' /C calc'!A0",
+  ";=1+1 split",
   "Plain NC 2",
 ];
 
@@ -31,9 +32,9 @@ describe("stock CSV export and formula injection", () => {
     .data.slice(1)
     .map((r) => r[0]!);
 
-  it("prefixes every cell that starts with =, +, - or @ with an apostrophe, and leaves others alone", () => {
-    expect(cells).toEqual(NAMES.map((n) => (/^[=+\-@]/.test(n) ? `'${n}` : n)));
-    for (const c of cells) expect(c).not.toMatch(/^[=+\-@\t\r]/);
+  it("prefixes every cell that starts with =, +, -, @ or ; with an apostrophe, and leaves others alone", () => {
+    expect(cells).toEqual(NAMES.map((n) => (/^[=+\-@;]/.test(n) ? `'${n}` : n)));
+    for (const c of cells) expect(c).not.toMatch(/^[=+\-@\t\r;]/);
   });
 
   it("reads its own export back to the original names", () => {

@@ -9,6 +9,11 @@ import { errorResponse } from "@/lib/http/respond";
 const guarded =
   (handler: (req: NextRequest) => Promise<Response>) =>
   async (req: NextRequest): Promise<Response> => {
+    if (req.method === "GET" && req.nextUrl.pathname.endsWith("/callback/credentials"))
+      return Response.json(
+        { error: { code: "method_not_allowed", message: "Sign in with the form (POST)." } },
+        { status: 405, headers: { allow: "POST" } },
+      );
     const bad = (await callbackUrlsOf(req)).find((u) => !isSafeCallbackUrl(u, env.APP_URL));
     if (bad !== undefined) {
       const message = "callbackUrl must be a path of this site.";

@@ -3,7 +3,7 @@ import { LiveCheck } from "@/components/check/live-check";
 import { PostingForm } from "@/components/check/posting-form";
 import { buttonClass } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
-import { limitPublic, RateLimitedError } from "@/lib/auth/public-limit";
+import { isRateLimited, limitPublic } from "@/lib/auth/public-limit";
 import { requestAddress } from "@/lib/auth/request-address";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { checkJson } from "@/lib/editions/check-json";
@@ -21,7 +21,7 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
   const { token } = await params;
   const limited = await limitPublic("check", await requestAddress()).then(
     () => null,
-    (e: unknown) => (e instanceof RateLimitedError ? e : Promise.reject(e)),
+    (e: unknown) => (isRateLimited(e) ? e : Promise.reject(e)),
   );
   if (limited)
     return (

@@ -1,0 +1,2 @@
+ALTER TABLE `editions` MODIFY COLUMN `check_token` varchar(64) CHARACTER SET ascii COLLATE ascii_bin NOT NULL;--> statement-breakpoint
+ALTER TABLE `editions` MODIFY COLUMN `short_code` char(8) CHARACTER SET ascii COLLATE ascii_bin NOT NULL;
