@@ -350,6 +350,9 @@ export const editions = mysqlTable(
     supersededAt: when("superseded_at"),
     withdrawnBy: ref("withdrawn_by").references(() => users.id, { onDelete: "set null" }),
     withdrawnAt: when("withdrawn_at"),
+    withdrawalReason: text("withdrawal_reason"),
+    /** The approved edition this one superseded when it was approved; kept with the approval. */
+    replacesId: ref("replaces_id"),
     /** Set at approval from the lab's review period: after it the copy is due for review. */
     reviewBy: when("review_by"),
   },

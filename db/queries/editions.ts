@@ -43,6 +43,37 @@ export async function getEdition({ labId, editionId }: { labId: number; editionI
   };
 }
 
+const againstColumns = {
+  id: editions.id,
+  number: editions.number,
+  status: editions.status,
+  snapshot: editions.snapshot,
+  approvedAt: editions.approvedAt,
+  approvedByName: editions.approvedByName,
+};
+
+/**
+ * What an edition is compared with: the edition it replaced when it was approved (kept with the
+ * approval), or, for one never approved, the chart's approved edition it would replace now.
+ */
+export async function getAgainstEdition({
+  labId,
+  edition,
+}: {
+  labId: number;
+  edition: { id: number; chartId: number; approvedAt: Date | null; replacesId: number | null };
+}) {
+  if (edition.replacesId !== null) {
+    const [row] = await db
+      .select(againstColumns)
+      .from(editions)
+      .where(and(eq(editions.labId, labId), eq(editions.id, edition.replacesId)));
+    return row ? { ...row, snapshot: row.snapshot as Snapshot } : null;
+  }
+  if (edition.approvedAt) return null;
+  return getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+}
+
 /** The chart's approved edition other than this one: what approving this edition would replace. */
 export async function getReplacedEdition({
   labId,
@@ -54,13 +85,7 @@ export async function getReplacedEdition({
   editionId: number;
 }) {
   const [row] = await db
-    .select({
-      id: editions.id,
-      number: editions.number,
-      snapshot: editions.snapshot,
-      approvedAt: editions.approvedAt,
-      approvedByName: editions.approvedByName,
-    })
+    .select(againstColumns)
     .from(editions)
     .where(
       and(
@@ -329,7 +354,17 @@ export async function approveEdition(
   }
   await tx
     .update(editions)
-    .set({ status: "approved", approvedBy: actor.id, approvedByName: actor.name, approvedAt: now, reviewBy })
+    .set({
+      status: "approved",
+      approvedBy: actor.id,
+      approvedByName: actor.name,
+      approvedAt: now,
+      reviewBy,
+      replacesId: previous.reduce<{ id: number; number: number } | null>(
+        (a, p) => (a && a.number > p.number ? a : p),
+        null,
+      )?.id,
+    })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await afterLabChange(tx, {
     labId,
@@ -379,7 +414,7 @@ export async function withdrawEdition(tx: Tx, { labId, editionId, actor, reason 
   const ed = await transition(tx, { labId, editionId, to: "withdrawn" });
   await tx
     .update(editions)
-    .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date() })
+    .set({ status: "withdrawn", withdrawnBy: actor.id, withdrawnAt: new Date(), withdrawalReason: reason })
     .where(and(eq(editions.id, ed.id), eq(editions.labId, labId)));
   await afterLabChange(tx, {
     labId,

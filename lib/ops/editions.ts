@@ -97,7 +97,7 @@ export const editionGrid = labOperation({
   },
 });
 
-/** The printed cells that differ from the edition this one would replace (every cell when none). */
+/** The printed cells that differ from the edition this one replaced, or would replace (every cell when none). */
 export const editionDiff = labOperation({
   name: "edition.diff",
   capability: "lab:read",
@@ -105,7 +105,7 @@ export const editionDiff = labOperation({
   run: async ({ labId, ids }): Promise<EditionDiff> => {
     const edition = await q.getEdition({ labId, editionId: ids.editionId });
     if (!edition) throw notFound("Edition");
-    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    const against = await q.getAgainstEdition({ labId, edition });
     return { against: against?.id ?? null, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
   },
 });
@@ -118,7 +118,7 @@ export const editionReview = labOperation({
   run: async ({ labId, ids }) => {
     const edition = await q.getEdition({ labId, editionId: ids.editionId });
     if (!edition) throw notFound("Edition");
-    const against = await q.getReplacedEdition({ labId, chartId: edition.chartId, editionId: edition.id });
+    const against = await q.getAgainstEdition({ labId, edition });
     return { edition, against, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
   },
 });
