@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { DiffGrid, cellKey, printedWords } from "@/components/signoff/diff-grid";
-import { SignOffForm } from "@/components/signoff/sign-off-form";
+import { DiffGrid, cellKey, printedWords } from "@/components/sign-off/diff-grid";
+import { SignOffForm } from "@/components/sign-off/sign-off-form";
 import { Caution } from "@/components/ui/caution";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { forPage, memberForPage } from "@/lib/auth/page-guard";
