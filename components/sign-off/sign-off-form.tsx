@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { approveEditionAction, rejectEditionAction } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button } from "@/components/ui/button";
@@ -15,12 +16,19 @@ export function SignOffForm({
   editionId,
   number,
   changedCount,
+  changedItems,
+  breaches,
 }: {
   slug: string;
   editionId: number;
   number: number;
   changedCount: number;
+  /** Printed items (besides cells) that differ from the replaced edition. */
+  changedItems: number;
+  /** Lab-rule breaches without an exception: approval is refused while there is one. */
+  breaches: number;
 }) {
+  const router = useRouter();
   const { run, pending, state } = useServerAction(approveEditionAction);
   const [reviewed, setReviewed] = useState(false);
   const [reason, setReason] = useState("");
@@ -36,7 +44,12 @@ export function SignOffForm({
       </div>
     );
 
-  const after = (p: Promise<{ ok?: boolean }>) => void p.then((r) => setDone(r.ok === true));
+  const after = (p: Promise<{ ok?: boolean }>) =>
+    void p.then((r) => {
+      setDone(r.ok === true);
+      // The page then tells the edition's new state from the database, not from this form.
+      if (r.ok) router.refresh();
+    });
 
   return (
     <div className="space-y-6">
@@ -52,6 +65,7 @@ export function SignOffForm({
         aria-labelledby="approve-h"
         onSubmit={(ev) => {
           ev.preventDefault();
+          if (breaches > 0) return;
           after(run({ slug, editionId, reviewed }, approveEditionAction));
         }}
       >
@@ -68,11 +82,18 @@ export function SignOffForm({
             onChange={(ev) => setReviewed(ev.target.checked)}
           />
           <span>
-            I have reviewed every changed cell ({changedCount} {changedCount === 1 ? "cell" : "cells"}), the cautions
-            and the notes of edition {number}.
+            I have reviewed every changed cell ({changedCount} {changedCount === 1 ? "cell" : "cells"}) and everything
+            edition {number} prints as listed on this page ({changedItems} changed{" "}
+            {changedItems === 1 ? "item" : "items"}), including the caution, the notes and the exceptions in force.
           </span>
         </label>
-        <Button type="submit" className="mt-4 w-full sm:w-auto" disabled={pending || !reviewed}>
+        {breaches > 0 ? (
+          <p className="mt-3 text-sm font-medium text-danger" data-testid="approve-blocked">
+            Approve stays off: {breaches} lab-rule {breaches === 1 ? "breach has" : "breaches have"} no exception
+            (listed above).
+          </p>
+        ) : null}
+        <Button type="submit" className="mt-4 w-full sm:w-auto" disabled={pending || !reviewed || breaches > 0}>
           {pending ? "Working…" : `Approve edition ${number}`}
         </Button>
       </form>

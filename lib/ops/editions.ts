@@ -2,7 +2,12 @@ import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/editions";
 import { gridJson } from "@/lib/charts/grid-model";
+import { getLabRules } from "@/db/queries/lab-rules";
+import { listRulesChanges } from "@/db/queries/rules-history";
+import { editionBreaches } from "@/lib/editions/breaches";
 import { diffCells, type EditionDiff } from "@/lib/editions/diff";
+import { editionPrints, exceptionRecorders } from "@/lib/editions/prints";
+import { POSTER_RENDERER_VERSION } from "@/lib/poster/version";
 import { editionUrls } from "@/lib/charts/present";
 import { AppError, notFound } from "@/lib/errors";
 import { legibilityRefusal, LEGIBILITY_RULE } from "@/lib/poster/model";
@@ -110,7 +115,10 @@ export const editionDiff = labOperation({
   },
 });
 
-/** What an approver reviews: the edition, the approved edition it would replace, and the changed cells. */
+/**
+ * What an approver reviews: the edition, the edition it replaces (or replaced), the changed cells,
+ * everything else it prints, and, for a draft, the lab-rule breaches approval would refuse.
+ */
 export const editionReview = labOperation({
   name: "edition.review",
   capability: "lab:read",
@@ -118,8 +126,20 @@ export const editionReview = labOperation({
   run: async ({ labId, ids }) => {
     const edition = await q.getEdition({ labId, editionId: ids.editionId });
     if (!edition) throw notFound("Edition");
-    const against = await q.getAgainstEdition({ labId, edition });
-    return { edition, against, cells: diffCells(against?.snapshot ?? null, edition.snapshot) };
+    const [against, rules, changes] = await Promise.all([
+      q.getAgainstEdition({ labId, edition }),
+      getLabRules({ labId }),
+      listRulesChanges({ labId }),
+    ]);
+    const before = against?.snapshot ?? null;
+    return {
+      edition,
+      against,
+      cells: diffCells(before, edition.snapshot),
+      prints: editionPrints(edition.snapshot, before, exceptionRecorders(changes, edition.chartId)),
+      breaches: edition.status === "draft" ? editionBreaches(edition.chartId, edition.snapshot, rules) : [],
+      rendererVersion: POSTER_RENDERER_VERSION,
+    };
   },
 });
 

@@ -33,6 +33,8 @@ export const pdfVariantSchema = z
     tiles: z.enum(TILE_SHEETS, { error: `tiles must be one of ${TILE_SHEETS.join(", ")}` }).optional(),
     format: z.enum(["poster", "card"], { error: "format must be poster or card" }).optional(),
     copy: z.enum(["archive"], { error: "copy must be archive" }).optional(),
+    // Shown in the browser's own viewer instead of saved; the bytes are the same.
+    view: z.enum(["inline"], { error: "view must be inline" }).optional(),
   })
   .strict()
   .refine((q) => !(q.tiles && q.format === "card"), {
