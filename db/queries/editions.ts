@@ -143,6 +143,27 @@ export async function listEditions({ labId, chartId }: { labId: number; chartId:
     .orderBy(desc(editions.number));
 }
 
+/** A chart's editions, newest first, with what their history needs: snapshot, people, predecessor. */
+export async function listEditionHistory({ labId, chartId }: { labId: number; chartId: number }) {
+  const rows = await db
+    .select({
+      id: editions.id,
+      number: editions.number,
+      status: editions.status,
+      snapshot: editions.snapshot,
+      createdAt: editions.createdAt,
+      createdByName: users.name,
+      approvedAt: editions.approvedAt,
+      approvedByName: editions.approvedByName,
+      replacesId: editions.replacesId,
+    })
+    .from(editions)
+    .leftJoin(users, eq(users.id, editions.createdBy))
+    .where(and(eq(editions.labId, labId), eq(editions.chartId, chartId)))
+    .orderBy(desc(editions.number));
+  return rows.map((r) => ({ ...r, snapshot: r.snapshot as Snapshot }));
+}
+
 /** Freezes what the chart prints today into a new numbered draft. */
 export async function createEdition(
   tx: Tx,

@@ -69,7 +69,6 @@ function familyLines(l: SnapshotLookup): string[] {
   return [
     gridSubtitleParts(l, null, true)[0]!,
     `Nominal pressure ${f.nominalAtm} atm, rated burst pressure (RBP) ${f.rbpAtm} atm, ${growth}`,
-    `Sizes that decide a cell: ${f.diameters.map(formatSizeMm).join(", ")} mm`,
   ];
 }
 

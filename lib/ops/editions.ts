@@ -143,6 +143,39 @@ export const editionReview = labOperation({
   },
 });
 
+/**
+ * A chart's editions, newest first, each with who drafted and approved it, when, and what it
+ * changed against the edition it replaced (or, never approved, would replace): cells and printed items.
+ */
+export const chartEditionHistory = labOperation({
+  name: "chart.edition_history",
+  capability: "lab:read",
+  scope: "chart",
+  run: async ({ labId, ids }) => {
+    const rows = await q.listEditionHistory({ labId, chartId: ids.chartId });
+    const byId = new Map(rows.map((r) => [r.id, r]));
+    const current = rows.find((r) => r.status === "approved") ?? null;
+    return rows.map((r) => {
+      const against = r.replacesId !== null ? (byId.get(r.replacesId) ?? null) : r.approvedAt ? null : current;
+      const before = against?.snapshot ?? null;
+      return {
+        id: r.id,
+        number: r.number,
+        status: r.status,
+        createdAt: r.createdAt,
+        createdByName: r.createdByName,
+        approvedAt: r.approvedAt,
+        approvedByName: r.approvedByName,
+        againstNumber: against?.number ?? null,
+        changedCells: diffCells(before, r.snapshot).length,
+        changedItems: editionPrints(r.snapshot, before)
+          .filter((i) => i.changed)
+          .map((i) => i.label),
+      };
+    });
+  },
+});
+
 /** The approvers' queue: drafts waiting for sign-off, oldest first. */
 export const signOffQueue = labOperation({
   name: "edition.queue",

@@ -11,6 +11,7 @@ import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/ro
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { POST as withdrawRoute } from "@/app/api/v1/editions/[id]/withdraw/route";
 import { GET as diffRoute } from "@/app/api/v1/editions/[id]/diff/route";
+import { chartEditionHistory } from "@/lib/ops/editions";
 import { call } from "./support/routes";
 import { labWithSmallChart } from "./support/writes";
 
@@ -93,6 +94,26 @@ describe("edition history", () => {
       .from(editions)
       .where(and(eq(editions.id, e2), eq(editions.labId, team.lab.id)));
     expect(row).toEqual({ reason: "Printed from a wrong stock list", replaces: e1 });
+  });
+
+  it("the chart's history lists each edition with its people and what it changed against its predecessor", async () => {
+    const p = team.people.operator;
+    const lines = await chartEditionHistory(
+      { kind: "user", user: { id: p.id, email: p.email, name: p.name } },
+      {
+        chartId: String(chartId),
+      },
+    );
+    expect(lines.map((l) => [l.number, l.status, l.againstNumber, l.changedCells])).toEqual([
+      [3, "approved", 2, 2],
+      [2, "withdrawn", 1, 2],
+      [1, "superseded", null, 4],
+    ]);
+    expect(lines[0]).toMatchObject({
+      createdByName: team.people.educator.name,
+      approvedByName: team.people.lead.name,
+      changedItems: ["Rounding: POT balloon (parent) from main branch × side branch"],
+    });
   });
 
   it("the database keeps an approved edition's predecessor with its approval", async () => {

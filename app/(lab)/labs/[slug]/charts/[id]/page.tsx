@@ -3,11 +3,13 @@ import { notFound, redirect } from "next/navigation";
 import { ChartArchive } from "@/components/charts/archive-chart";
 import { ChartDesigner } from "@/components/charts/chart-designer";
 import { EditionsPanel } from "@/components/charts/editions-panel";
+import { EditionHistory } from "@/components/sign-off/edition-history";
 import { LogoField } from "@/components/charts/logo-field";
 import { RuleIssues } from "@/components/rules/rule-issues";
 import { Caution } from "@/components/ui/caution";
 import { forPage } from "@/lib/auth/page-guard";
 import { getChart } from "@/lib/ops/charts";
+import { chartEditionHistory } from "@/lib/ops/editions";
 import { getStock } from "@/lib/ops/stock";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { editionUrls } from "@/lib/charts/present";
@@ -33,11 +35,12 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   if (member === "forbidden") return null;
   // A role with nothing to do in the designer (an operator) reads the approved chart on the wall view.
   if (!(await designerUseful(member.lab.id, member.role))) redirect(`/labs/${slug}/charts/${id}/wall`);
-  const [{ chart, editions: eds }, stock, rules] = await forPage(`/labs/${slug}/charts/${id}`, () =>
+  const [{ chart, editions: eds }, stock, rules, history] = await forPage(`/labs/${slug}/charts/${id}`, () =>
     Promise.all([
       getChart(member.caller, { chartId: id }),
       getStock(member.caller, { lab: slug }),
       getLabRules(member.caller, { lab: slug }),
+      chartEditionHistory(member.caller, { chartId: id }),
     ]),
   );
   // A chart of another lab is not found through this lab's address.
@@ -104,6 +107,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           ...editionUrls(env.APP_URL, e),
         }))}
       />
+      <EditionHistory slug={slug} lines={history} timeZone={member.lab.timeZone} />
       {can(member.role, "chart:archive") ? (
         <ChartArchive slug={slug} chartId={chart.id} title={chart.title} archived={chart.archivedAt !== null} />
       ) : null}
