@@ -199,6 +199,7 @@ export async function signoffFacts({ labId, editionId }: { labId: number; editio
       timeZone: labs.timeZone,
       chartId: charts.id,
       chartTitle: charts.title,
+      editionId: editions.id,
       editionNumber: editions.number,
       authorId: editions.createdBy,
       authorName: users.name,

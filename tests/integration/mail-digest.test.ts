@@ -203,7 +203,8 @@ describe("sign-off mail", () => {
     expect(waiting[0]!.subject).toBe(
       `Forkwall: Edition ${ed.number} of "Sign-off mail chart" is waiting for sign-off in ${team.lab.name}`,
     );
-    expect(waiting[0]!.text).toContain(`/labs/${team.lab.slug}/charts/${chartId}`);
+    // The approver lands on the approval screen of this edition, not the designer.
+    expect(waiting[0]!.text).toContain(`/labs/${team.lab.slug}/sign-off/${ed.id}\n`);
     expect(waiting[0]!.text).toContain(team.people.educator.name);
     // The author is not told about their own submission; managers are not approvers by default.
     expect(await mailTo(educator)).toHaveLength(eduBefore);
@@ -238,5 +239,6 @@ describe("sign-off mail", () => {
     expect(approved).toHaveLength(1);
     expect(approved[0]!.subject).toBe(`Forkwall: Edition ${next.number} of "Sign-off mail chart" was approved`);
     expect(approved[0]!.text).toContain(`due for review by ${ok.reviewBy.slice(0, 10)}`);
+    expect(approved[0]!.text).toContain(`/labs/${team.lab.slug}/sign-off/${next.id}\n`);
   });
 });

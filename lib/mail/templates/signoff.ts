@@ -8,12 +8,14 @@ export type SignoffFacts = {
   timeZone: string;
   chartId: number;
   chartTitle: string;
+  editionId: number;
   editionNumber: number;
   authorName: string | null;
 };
 
 const CLOSING = "Reference aid only; local protocol and licensed practice rule.";
 const chartUrl = (f: SignoffFacts, appUrl: string) => `${appUrl}/labs/${f.labSlug}/charts/${f.chartId}`;
+const reviewUrl = (f: SignoffFacts, appUrl: string) => `${appUrl}/labs/${f.labSlug}/sign-off/${f.editionId}`;
 const what = (f: SignoffFacts) => `Edition ${f.editionNumber} of "${f.chartTitle}"`;
 
 export function waitingForSignoffMail(f: SignoffFacts, appUrl: string): { subject: string; text: string } {
@@ -22,7 +24,7 @@ export function waitingForSignoffMail(f: SignoffFacts, appUrl: string): { subjec
     text: [
       `${what(f)} was submitted${f.authorName ? ` by ${f.authorName}` : ""} and is waiting for sign-off in ${f.labName}.`,
       "",
-      `Review what changed and approve or return it: ${chartUrl(f, appUrl)}`,
+      `Review what it prints and what changed, then approve or return it: ${reviewUrl(f, appUrl)}`,
       "",
       "Nothing is printed for the wall until it is approved. " + CLOSING,
     ].join("\n"),
@@ -38,6 +40,7 @@ export function approvedMail(
     text: [
       `${what(f)} was approved by ${f.approverName} in ${f.labName}.`,
       `It is due for review by ${formatDate(f.reviewBy, f.timeZone)}.`,
+      `What was approved: ${reviewUrl(f, appUrl)}`,
       "",
       `Print it and record where it hangs: ${chartUrl(f, appUrl)}`,
       "",
