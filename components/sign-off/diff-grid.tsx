@@ -18,69 +18,75 @@ const CHANGED: CSSProperties = { outline: `3px dashed ${PALETTE.ink}`, outlineOf
 export function DiffGrid({ grid, changed, side }: { grid: Grid; changed: Set<string>; side: "before" | "after" }) {
   const titles = axisTitles(grid);
   return (
-    <div className="overflow-x-auto" data-testid={`diff-grid-${side}-${grid.kind}`}>
-      <table className="border-collapse text-center tabular-nums" style={{ color: PALETTE.ink }}>
-        <caption className="mb-2 text-left text-sm">
-          <span className="block font-bold">{lookupTitle(grid.kind)}</span>
-          <span className="block text-xs text-ink-soft">
-            Rows: {titles.rows}; columns: {titles.cols}
-          </span>
-        </caption>
-        <thead>
-          <GridHeadRow
-            grid={grid}
-            titles={titles}
-            cornerClassName="border px-1 py-1 text-[0.6rem] font-semibold leading-tight"
-            colClassName="border px-1 py-1 text-xs font-bold"
-          />
-        </thead>
-        <tbody>
-          {grid.cells.map((row, i) => {
-            const r = grid.rowAxis.values[i] as number;
-            return (
-              <tr key={r}>
-                <th
-                  scope="row"
-                  className="border px-1 py-1 text-xs font-bold"
-                  style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
-                >
-                  {formatAxisMm(r)}
-                </th>
-                {row.map((cell, j) => {
-                  const c = grid.colAxis.values[j] as number;
-                  const view = cellView(cell);
-                  const isChanged = changed.has(cellKey(r, c));
-                  const corner = cornerSymbols(view);
-                  return (
-                    <td
-                      key={c}
-                      title={view.description}
-                      data-changed={isChanged ? "true" : undefined}
-                      className="relative min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
-                      style={isChanged ? { ...posterCellStyle(view), ...CHANGED } : posterCellStyle(view)}
-                    >
-                      <span aria-hidden="true">
-                        <span className="flex min-h-4 justify-between gap-1 text-[0.65rem] font-bold leading-4">
-                          <span>{isChanged ? "◆" : ""}</span>
-                          <span>{corner}</span>
+    <div className="min-w-0" data-testid={`diff-grid-${side}-${grid.kind}`}>
+      {/* The title wraps at the screen's width; only the table scrolls sideways. */}
+      <p className="mb-2 break-words text-left text-sm" aria-hidden>
+        <span className="block font-bold">{lookupTitle(grid.kind)}</span>
+        <span className="block text-xs text-ink-soft">
+          Rows: {titles.rows}; columns: {titles.cols}
+        </span>
+      </p>
+      <div className="overflow-x-auto">
+        <table className="border-collapse text-center tabular-nums" style={{ color: PALETTE.ink }}>
+          <caption className="sr-only">
+            {lookupTitle(grid.kind)}. Rows: {titles.rows}; columns: {titles.cols}
+          </caption>
+          <thead>
+            <GridHeadRow
+              grid={grid}
+              titles={titles}
+              cornerClassName="border px-1 py-1 text-[0.6rem] font-semibold leading-tight"
+              colClassName="border px-1 py-1 text-xs font-bold"
+            />
+          </thead>
+          <tbody>
+            {grid.cells.map((row, i) => {
+              const r = grid.rowAxis.values[i] as number;
+              return (
+                <tr key={r}>
+                  <th
+                    scope="row"
+                    className="border px-1 py-1 text-xs font-bold"
+                    style={{ backgroundColor: PALETTE.heading, borderColor: PALETTE.rule }}
+                  >
+                    {formatAxisMm(r)}
+                  </th>
+                  {row.map((cell, j) => {
+                    const c = grid.colAxis.values[j] as number;
+                    const view = cellView(cell);
+                    const isChanged = changed.has(cellKey(r, c));
+                    const corner = cornerSymbols(view);
+                    return (
+                      <td
+                        key={c}
+                        title={view.description}
+                        data-changed={isChanged ? "true" : undefined}
+                        className="relative min-w-14 border px-1 pb-1 pt-0.5 align-bottom"
+                        style={isChanged ? { ...posterCellStyle(view), ...CHANGED } : posterCellStyle(view)}
+                      >
+                        <span aria-hidden="true">
+                          <span className="flex min-h-4 justify-between gap-1 text-[0.65rem] font-bold leading-4">
+                            <span>{isChanged ? "◆" : ""}</span>
+                            <span>{corner}</span>
+                          </span>
+                          <span className="block text-lg font-bold leading-none">{view.primary}</span>
+                          {grid.rounding === "reach" && view.pressure ? (
+                            <span className="block text-[0.6rem] font-semibold">{view.pressure}</span>
+                          ) : null}
                         </span>
-                        <span className="block text-lg font-bold leading-none">{view.primary}</span>
-                        {grid.rounding === "reach" && view.pressure ? (
-                          <span className="block text-[0.6rem] font-semibold">{view.pressure}</span>
-                        ) : null}
-                      </span>
-                      <span className="sr-only">
-                        {isChanged ? "Changed. " : ""}
-                        {view.description}
-                      </span>
-                    </td>
-                  );
-                })}
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+                        <span className="sr-only">
+                          {isChanged ? "Changed. " : ""}
+                          {view.description}
+                        </span>
+                      </td>
+                    );
+                  })}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }

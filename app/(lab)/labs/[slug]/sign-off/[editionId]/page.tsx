@@ -105,6 +105,7 @@ export default async function ReviewEditionPage({ params }: { params: Promise<{ 
         </p>
       </div>
       <EditionState edition={edition} againstNumber={against?.number ?? null} timeZone={tz} />
+      {isDraft ? <RuleBreaches breaches={breaches} slug={slug} /> : null}
       <ChangeSummary review={review} tz={tz} />
       <Grids review={review} />
       {cells.length > 0 ? (
@@ -128,7 +129,6 @@ export default async function ReviewEditionPage({ params }: { params: Promise<{ 
         rendererVersion={review.rendererVersion}
         againstNumber={against?.number ?? null}
       />
-      {isDraft ? <RuleBreaches breaches={breaches} slug={slug} /> : null}
       <Caution demo={member.lab.isDemo} />
       {!isDraft ? null : !mayApprove ? (
         <p className="rounded-card border border-line bg-paper-raised p-4 text-sm">
