@@ -179,16 +179,9 @@ function globalItems(snapshot: Snapshot, recorders: ExceptionRecorders): Omit<Pr
   ];
 }
 
-/**
- * Every item the edition's poster prints besides the cells, in print order, each marked changed
- * when its printed lines differ from `before`'s (the edition it replaces or replaced). Pure.
- */
-export function editionPrints(
-  snapshot: Snapshot,
-  before: Snapshot | null,
-  recorders: ExceptionRecorders = {},
-): PrintItem[] {
-  const items = (s: Snapshot): Omit<PrintItem, "changed">[] => [
+/** Every item a snapshot's poster prints besides the cells, in print order, not yet compared. Pure. */
+export function printItems(s: Snapshot, recorders: ExceptionRecorders = {}): Omit<PrintItem, "changed">[] {
+  return [
     { key: "title", label: "Lab and title", lines: [s.lab.name, s.title], notes: [] },
     {
       key: "law",
@@ -199,8 +192,27 @@ export function editionPrints(
     ...perLookup(s),
     ...globalItems(s, recorders),
   ];
-  const old = before ? new Map(items(before).map((i) => [i.key, i.lines.join("\n")])) : null;
-  return items(snapshot).map((i) => ({ ...i, changed: old !== null && old.get(i.key) !== i.lines.join("\n") }));
+}
+
+/** `items` each marked changed when its printed lines differ from `before`'s (none when there is no before). Pure. */
+export function compareItems(
+  items: Omit<PrintItem, "changed">[],
+  before: Omit<PrintItem, "changed">[] | null,
+): PrintItem[] {
+  const old = before ? new Map(before.map((i) => [i.key, i.lines.join("\n")])) : null;
+  return items.map((i) => ({ ...i, changed: old !== null && old.get(i.key) !== i.lines.join("\n") }));
+}
+
+/**
+ * Every item the edition's poster prints besides the cells, in print order, each marked changed
+ * when its printed lines differ from `before`'s (the edition it replaces or replaced). Pure.
+ */
+export function editionPrints(
+  snapshot: Snapshot,
+  before: Snapshot | null,
+  recorders: ExceptionRecorders = {},
+): PrintItem[] {
+  return compareItems(printItems(snapshot, recorders), before ? printItems(before) : null);
 }
 
 /** One change of the lab rules as the audit log keeps it: who, and the rules before and after. */

@@ -6,7 +6,7 @@ import { getLabRules } from "@/db/queries/lab-rules";
 import { listRulesChanges } from "@/db/queries/rules-history";
 import { editionBreaches } from "@/lib/editions/breaches";
 import { diffCells, type EditionDiff } from "@/lib/editions/diff";
-import { editionPrints, exceptionRecorders } from "@/lib/editions/prints";
+import { compareItems, editionPrints, exceptionRecorders, printItems } from "@/lib/editions/prints";
 import { POSTER_RENDERER_VERSION } from "@/lib/poster/version";
 import { editionUrls } from "@/lib/charts/present";
 import { AppError, notFound } from "@/lib/errors";
@@ -155,6 +155,8 @@ export const chartEditionHistory = labOperation({
     const rows = await q.listEditionHistory({ labId, chartId: ids.chartId });
     const byId = new Map(rows.map((r) => [r.id, r]));
     const current = rows.find((r) => r.status === "approved") ?? null;
+    // Each snapshot's printed items once: an edition is compared as itself and as a predecessor.
+    const items = new Map(rows.map((r) => [r.id, printItems(r.snapshot)]));
     return rows.map((r) => {
       const against = r.replacesId !== null ? (byId.get(r.replacesId) ?? null) : r.approvedAt ? null : current;
       const before = against?.snapshot ?? null;
@@ -168,7 +170,7 @@ export const chartEditionHistory = labOperation({
         approvedByName: r.approvedByName,
         againstNumber: against?.number ?? null,
         changedCells: diffCells(before, r.snapshot).length,
-        changedItems: editionPrints(r.snapshot, before)
+        changedItems: compareItems(items.get(r.id)!, against ? items.get(against.id)! : null)
           .filter((i) => i.changed)
           .map((i) => i.label),
       };
