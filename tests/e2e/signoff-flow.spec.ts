@@ -80,7 +80,9 @@ async function approveFromQueue(page: Page, editionId: number, number: number) {
   await page.getByLabel(/I have reviewed every changed cell/).check();
   await approve.click();
   // The confirmation, or the page as it reads once the approval has refreshed it.
-  await expect(page.getByText(new RegExp(`^Edition ${number} (approved\\.|is approved)`))).toBeVisible();
+  await expect(page.getByText(new RegExp(`^Edition ${number} (approved\\.|is approved)`))).toBeVisible({
+    timeout: 30_000,
+  });
 }
 
 test("educator: creates the first edition of a chart from the designer", async ({ page }) => {
@@ -120,6 +122,8 @@ test("manager: hangs edition 1; after edition 2 is approved the copy reads repla
   page,
   browser,
 }) => {
+  // Three people's sessions and full-page screenshots of the whole approval screen at three widths.
+  test.slow();
   const posted = await manager.post(`/api/v1/editions/${state.ed1}/postings`, { data: { roomId: state.roomId } });
   expect(posted.status()).toBe(201);
   state.posting1 = (await posted.json()).id;
