@@ -2,6 +2,7 @@ import "server-only";
 import { z } from "zod";
 import * as invitations from "@/db/queries/invitations";
 import * as members from "@/db/queries/members";
+import { labLimits } from "@/lib/auth/lab-limits";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";
@@ -64,21 +65,25 @@ export const listInvitations = labOperation({
   run: async ({ labId }) => ({ invitations: await invitations.listOpenInvitations({ labId }) }),
 });
 
-/** Stores the invitation (hash only) with its audit record, then e-mails the link after commit. */
+/**
+ * Stores the invitation (hash only) with its audit record, then e-mails the link after commit;
+ * invitations and resends together at most INVITATION_MAILS_PER_LAB_PER_HOUR per lab (429).
+ */
 export const inviteMember = labOperation({
   name: "invitation.create",
   capability: "members:manage",
   scope: "lab",
   input: inviteSchema,
-  run: async ({ labId, member }, input) => {
-    const { token, hash } = newToken();
-    const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-    const invitation = await labWrite(labId, (tx) =>
-      invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
-    );
-    const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
-    return { invitation, emailSent };
-  },
+  run: ({ labId, member }, input) =>
+    labLimits().invitationMail(labId, async () => {
+      const { token, hash } = newToken();
+      const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+      const invitation = await labWrite(labId, (tx) =>
+        invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
+      );
+      const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
+      return { invitation, emailSent };
+    }),
 });
 
 /** A new token and a new e-mail; the previous link stops working. */
@@ -87,21 +92,22 @@ export const resendInvitation = labOperation({
   capability: "members:manage",
   scope: "lab",
   ids: { invitationId: "That invitation" },
-  run: async ({ labId, member, ids }) => {
-    const { token, hash } = newToken();
-    const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-    const invitation = await labWrite(labId, (tx) =>
-      invitations.renewInvitation(tx, {
-        labId,
-        invitationId: ids.invitationId,
-        actorUserId: member.user.id,
-        tokenHash: hash,
-        expiresAt,
-      }),
-    );
-    const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
-    return { invitation, emailSent };
-  },
+  run: ({ labId, member, ids }) =>
+    labLimits().invitationMail(labId, async () => {
+      const { token, hash } = newToken();
+      const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+      const invitation = await labWrite(labId, (tx) =>
+        invitations.renewInvitation(tx, {
+          labId,
+          invitationId: ids.invitationId,
+          actorUserId: member.user.id,
+          tokenHash: hash,
+          expiresAt,
+        }),
+      );
+      const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
+      return { invitation, emailSent };
+    }),
 });
 
 export const revokeInvitation = labOperation({
