@@ -17,10 +17,6 @@ export const AUDIT_KINDS = {
     label: "Lab settings and machine tokens",
     actions: ["lab.settings_updated", "lab.token_created", "lab.token_revoked", "lab.created"],
   },
-  accounts: {
-    label: "Sign-ins, passwords and accounts",
-    actions: ["signin.", "signout", "password_reset.", "account."],
-  },
 } as const;
 export type AuditKind = keyof typeof AUDIT_KINDS;
 export const AUDIT_KIND_IDS = Object.keys(AUDIT_KINDS) as [AuditKind, ...AuditKind[]];

@@ -1,8 +1,10 @@
 import "server-only";
 import * as q from "@/db/queries/accounts";
+import { listAccountEvents } from "@/db/queries/audit";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { mayMail } from "@/lib/auth/account-limits";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { describeAction } from "@/lib/audit/describe";
 import { AppError, rateLimited } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/send";
 import { emailTakenMail } from "@/lib/mail/templates/account";
@@ -30,13 +32,21 @@ const wrongPassword = () =>
     { path: ["currentPassword"], message: "That is not your current password." },
   ]);
 
+/** Recent account events shown on the account page (they appear in no lab's log). */
+export const ACCOUNT_ACTIVITY_ROWS = 20;
+
 export async function readAccount(caller: Caller) {
   const account = await verifiedAccount(caller);
-  const [labs, pendingEmail] = await Promise.all([
+  const [labs, pendingEmail, events] = await Promise.all([
     listLabsForUser({ userId: account.id }),
     q.findPendingEmail({ userId: account.id }),
+    listAccountEvents({ userId: account.id, limit: ACCOUNT_ACTIVITY_ROWS }),
   ]);
-  return { id: account.id, name: account.name, email: account.email, pendingEmail, labs };
+  const activity = events.map((e) => {
+    const ip = (e.detail as { ip?: unknown } | null)?.ip;
+    return { id: e.id, at: e.createdAt, what: describeAction(e.action), from: typeof ip === "string" ? ip : null };
+  });
+  return { id: account.id, name: account.name, email: account.email, pendingEmail, labs, activity };
 }
 
 export async function changeName(caller: Caller, raw: unknown) {
