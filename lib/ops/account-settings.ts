@@ -82,14 +82,21 @@ export async function requestEmailChange(caller: Caller, raw: unknown) {
   });
 }
 
-/** Needs the current password; every session ends, so the person signs in again with the new one. */
+/**
+ * Needs the current password; every session ends, so the person signs in again with the new one,
+ * and every pending e-mail change link ends.
+ */
 export async function changePassword(caller: Caller, raw: unknown) {
   const account = await verifiedAccount(caller);
   const { currentPassword, password } = parseInput(changePasswordSchema, raw);
   return traced("account.password.change", { userId: account.id }, async () => {
     if (!(await verifyPassword(currentPassword, account.passwordHash))) throw wrongPassword();
     const passwordHash = await hashPassword(password);
-    await accountWrite((tx) => q.updateAccountPassword(tx, { userId: account.id, passwordHash }));
+    await accountWrite(async (tx) => {
+      await q.updateAccountPassword(tx, { userId: account.id, passwordHash });
+      // Whoever held the old password may have asked to move the account: those links end here.
+      await q.revokeEmailChangeLinks(tx, { userId: account.id });
+    });
     return { signedOut: true };
   });
 }

@@ -2,6 +2,7 @@ import "server-only";
 import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
+import { revokeEmailChangeLinks } from "@/db/queries/accounts";
 import { acceptInvitation as acceptInvitationRow, findInvitationByTokenHash } from "@/db/queries/invitations";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { completePasswordReset, createPasswordReset, findPasswordReset } from "@/db/queries/password-resets";
@@ -64,7 +65,12 @@ export async function requestPasswordReset({ email }: { email: string }): Promis
 export async function resetPassword({ token, password }: { token: string; password: string }) {
   return traced("account.reset.complete", {}, async () => {
     const passwordHash = await hashPassword(password);
-    const user = await accountWrite((tx) => completePasswordReset(tx, { tokenHash: hashToken(token), passwordHash }));
+    const user = await accountWrite(async (tx) => {
+      const reset = await completePasswordReset(tx, { tokenHash: hashToken(token), passwordHash });
+      // Whoever held the old password may have asked to move the account: those links end here.
+      await revokeEmailChangeLinks(tx, { userId: reset.id });
+      return reset;
+    });
     await signInThrottle().recordSuccess({ email: user.email });
     return user;
   });
