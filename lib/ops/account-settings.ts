@@ -1,8 +1,10 @@
 import "server-only";
 import * as q from "@/db/queries/accounts";
 import { listAccountEvents } from "@/db/queries/audit";
+import { disableTokensOf } from "@/db/queries/tokens";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { mayMail } from "@/lib/auth/account-limits";
+import { tokenDisableReason } from "@/lib/auth/machine-tokens";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { describeAction } from "@/lib/audit/describe";
 import { AppError, rateLimited } from "@/lib/errors";
@@ -101,10 +103,16 @@ export async function changePassword(caller: Caller, raw: unknown) {
   });
 }
 
-/** The caller leaves a lab; refused (409) for its last manager. */
+/** The caller leaves a lab (their machine tokens there are disabled); refused (409) for its last manager. */
 export const leaveLab = labOperation({
   name: "member.leave",
   capability: "lab:read",
   scope: "lab",
-  run: ({ labId, member }) => labWrite(labId, (tx) => q.leaveLab(tx, { labId, userId: member.user.id })),
+  run: ({ labId, member }) =>
+    labWrite(labId, async (tx) => {
+      const left = await q.leaveLab(tx, { labId, userId: member.user.id });
+      const reason = tokenDisableReason(member.user.name, "left")!;
+      await disableTokensOf(tx, { labId, userId: member.user.id, reason, actorUserId: member.user.id });
+      return left;
+    }),
 });

@@ -2,7 +2,9 @@ import "server-only";
 import { z } from "zod";
 import * as invitations from "@/db/queries/invitations";
 import * as members from "@/db/queries/members";
+import * as tokens from "@/db/queries/tokens";
 import { labLimits } from "@/lib/auth/lab-limits";
+import { tokenDisableReason } from "@/lib/auth/machine-tokens";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";
@@ -128,9 +130,17 @@ export const changeMemberRole = labOperation({
   ids: { membershipId: "That member" },
   input: changeRoleSchema,
   run: ({ labId, actor, ids }, { role }) =>
-    labWrite(labId, (tx) =>
-      members.changeMemberRole(tx, { labId, membershipId: ids.membershipId, role, actorUserId: actor.id }),
-    ),
+    labWrite(labId, async (tx) => {
+      const changed = await members.changeMemberRole(tx, {
+        labId,
+        membershipId: ids.membershipId,
+        role,
+        actorUserId: actor.id,
+      });
+      const reason = changed.changed ? tokenDisableReason(changed.name, { role }) : null;
+      if (reason) await tokens.disableTokensOf(tx, { labId, userId: changed.userId, reason, actorUserId: actor.id });
+      return changed;
+    }),
 });
 
 export const removeMember = labOperation({
@@ -139,7 +149,12 @@ export const removeMember = labOperation({
   scope: "lab",
   ids: { membershipId: "That member" },
   run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => members.removeMember(tx, { labId, membershipId: ids.membershipId, actorUserId: actor.id })),
+    labWrite(labId, async (tx) => {
+      const removed = await members.removeMember(tx, { labId, membershipId: ids.membershipId, actorUserId: actor.id });
+      const reason = tokenDisableReason(removed.name, "removed")!;
+      await tokens.disableTokensOf(tx, { labId, userId: removed.userId, reason, actorUserId: actor.id });
+      return removed;
+    }),
 });
 
 /** A member's own choice: e-mail me when posted copies go stale. Only ever changes the caller's own membership. */
