@@ -3,9 +3,16 @@ import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
 import { revokeEmailChangeLinks } from "@/db/queries/accounts";
-import { acceptInvitation as acceptInvitationRow, findInvitationByTokenHash } from "@/db/queries/invitations";
+import type { Tx } from "@/db/queries/audit";
+import {
+  acceptInvitation as acceptInvitationRow,
+  findAccountForInvitation,
+  findInvitationByTokenHash,
+  lockInvitationByTokenHash,
+} from "@/db/queries/invitations";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { completePasswordReset, createPasswordReset, findPasswordReset } from "@/db/queries/password-resets";
+import { acceptanceRefusal } from "@/lib/auth/invitation-acceptance";
 import { hashPassword } from "@/lib/auth/password";
 import { databaseName, signInThrottle } from "@/lib/auth/sign-in";
 import { accountKey } from "@/lib/auth/throttle";
@@ -76,6 +83,23 @@ export async function resetPassword({ token, password }: { token: string; passwo
   });
 }
 
+type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId: number };
+
+/** Accepts an invitation inside `tx`: the row locked, the decision (pure) made, then the writes. */
+export async function acceptInvitationIn(tx: Tx, input: { tokenHash: string } & Joiner) {
+  const inv = await lockInvitationByTokenHash(tx, { tokenHash: input.tokenHash });
+  const joiner =
+    "newAccount" in input
+      ? {
+          kind: "new-account" as const,
+          addressTaken: inv ? (await findAccountForInvitation(tx, { email: inv.email })) !== null : false,
+        }
+      : { kind: "member" as const, account: await findAccountForInvitation(tx, { userId: input.userId }) };
+  const refusal = acceptanceRefusal({ invitation: inv, joiner });
+  if (refusal) throw refusal;
+  return acceptInvitationRow(tx, { ...input, inv: inv! });
+}
+
 /** The link is the key: anyone holding a valid invitation link may create the invited account. */
 export async function acceptInvitationAsNewAccount({
   token,
@@ -88,7 +112,7 @@ export async function acceptInvitationAsNewAccount({
 }) {
   const passwordHash = await hashPassword(password);
   return traced("invitation.accept", {}, () =>
-    accountWrite((tx) => acceptInvitationRow(tx, { tokenHash: hashToken(token), newAccount: { name, passwordHash } })),
+    accountWrite((tx) => acceptInvitationIn(tx, { tokenHash: hashToken(token), newAccount: { name, passwordHash } })),
   );
 }
 
@@ -96,7 +120,7 @@ export async function acceptInvitationAsNewAccount({
 export async function acceptInvitationAsMember(caller: Caller, { token }: { token: string }) {
   const user = signedIn(caller);
   return traced("invitation.accept", { userId: user.id }, () =>
-    accountWrite((tx) => acceptInvitationRow(tx, { tokenHash: hashToken(token), userId: user.id })),
+    accountWrite((tx) => acceptInvitationIn(tx, { tokenHash: hashToken(token), userId: user.id })),
   );
 }
 
