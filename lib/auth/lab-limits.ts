@@ -2,23 +2,13 @@ import "server-only";
 import { RateLimiterMySQL, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { rateLimited } from "@/lib/errors";
 import { databaseName } from "./sign-in";
 
 // Limits on what a person can make the app do to others: labs created (each can mail invitations)
 // and invitation mail per lab. Counted in MariaDB's rate_limits, so every app instance shares them.
 export const LABS_PER_ACCOUNT_PER_DAY = 5;
 export const INVITATION_MAILS_PER_LAB_PER_HOUR = 30;
-
-/** 429 with Retry-After (the error answer reads `retryAfterSeconds`). */
-export class LimitReached extends AppError {
-  constructor(
-    message: string,
-    readonly retryAfterSeconds: number,
-  ) {
-    super("rate_limited", message);
-  }
-}
 
 const waitWords = (seconds: number) =>
   seconds >= 5400
@@ -63,7 +53,7 @@ export function createLabLimits(opts: { keyPrefix?: string } = {}) {
   };
 
   /**
-   * Counts one use against `key` and runs `fn`; past the limit throws LimitReached and runs
+   * Counts one use against `key` and runs `fn`; past the limit throws a 429 with Retry-After and runs
    * nothing. A use whose `fn` fails (a refused or conflicting write) is given back.
    */
   async function within<T>(kind: Kind, key: number, fn: () => Promise<T>): Promise<T> {
@@ -72,7 +62,7 @@ export function createLabLimits(opts: { keyPrefix?: string } = {}) {
     } catch (err) {
       if (!(err instanceof RateLimiterRes)) throw err;
       const seconds = Math.max(1, Math.ceil(err.msBeforeNext / 1000));
-      throw new LimitReached(`${SPEC[kind].refusal} Try again in ${waitWords(seconds)}.`, seconds);
+      throw rateLimited(`${SPEC[kind].refusal} Try again in ${waitWords(seconds)}.`, seconds);
     }
     try {
       return await fn();

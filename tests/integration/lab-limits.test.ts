@@ -7,12 +7,7 @@ import { invitations, labs } from "@/db/schema";
 import { POST as createLabRoute } from "@/app/api/v1/labs/route";
 import { POST as inviteRoute } from "@/app/api/v1/labs/[slug]/invitations/route";
 import { PATCH as settingsRoute } from "@/app/api/v1/labs/[slug]/settings/route";
-import {
-  createLabLimits,
-  INVITATION_MAILS_PER_LAB_PER_HOUR,
-  LABS_PER_ACCOUNT_PER_DAY,
-  LimitReached,
-} from "@/lib/auth/lab-limits";
+import { createLabLimits, INVITATION_MAILS_PER_LAB_PER_HOUR, LABS_PER_ACCOUNT_PER_DAY } from "@/lib/auth/lab-limits";
 import type { SessionUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { createLab } from "@/lib/ops/lab-create";
@@ -60,7 +55,7 @@ describe("labs created per account", () => {
     const err = await failure(createLab(as(me), { name: `${prefix} over`, slug: unique("over") }));
     expect(err.status).toBe(429);
     expect(err.code).toBe("rate_limited");
-    const retry = (err as LimitReached).retryAfterSeconds;
+    const retry = err.retryAfterSeconds;
     expect(retry).toBeGreaterThan(23 * 3600);
     expect(retry).toBeLessThanOrEqual(24 * 3600);
     expect(err.message).toMatch(/5 labs in the last day.*Try again in 24 hours/);
@@ -125,7 +120,7 @@ describe("invitation mail per lab", () => {
     const late = `${unique("late")}@example.test`;
     const err = await failure(inviteMember(as(manager), ref, { email: late, role: "educator" }));
     expect(err.status).toBe(429);
-    expect((err as LimitReached).retryAfterSeconds).toBeGreaterThan(3000);
+    expect(err.retryAfterSeconds).toBeGreaterThan(3000);
     expect(err.message).toMatch(/30 invitations and resends in the last hour/);
     expect((await failure(resendInvitation(as(manager), { ...ref, invitationId: sent[5]! }))).status).toBe(429);
 
