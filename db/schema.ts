@@ -165,6 +165,9 @@ export const labTokens = mysqlTable(
     lastUsedAt: when("last_used_at"),
     revokedAt: when("revoked_at"),
     revokedBy: ref("revoked_by").references(() => users.id, { onDelete: "set null" }),
+    /** Set when its creator left the lab or stopped being a manager: refused (401) until re-issued. */
+    disabledAt: when("disabled_at"),
+    disabledReason: varchar("disabled_reason", { length: 200 }),
   },
   (t) => [index("lab_tokens_lab_idx").on(t.labId)],
 );
@@ -182,6 +185,8 @@ export const emailVerifications = mysqlTable(
     tokenHash: char("token_hash", { length: 64 }).notNull().unique(),
     expiresAt: when("expires_at").notNull(),
     usedAt: when("used_at"),
+    /** Set when a password change, reset or e-mail change ends the link before it was used. */
+    revokedAt: when("revoked_at"),
     createdAt: createdAt(),
   },
   (t) => [index("email_verifications_user_idx").on(t.userId)],
@@ -201,7 +206,12 @@ export const auditEvents = mysqlTable(
     detail: jsonText<unknown>("detail"),
     createdAt: createdAt(),
   },
-  (t) => [index("audit_events_lab_idx").on(t.labId, t.createdAt), index("audit_events_action_idx").on(t.action)],
+  (t) => [
+    index("audit_events_lab_idx").on(t.labId, t.createdAt),
+    index("audit_events_action_idx").on(t.action),
+    // A person's own account events (the account page).
+    index("audit_events_target_idx").on(t.targetType, t.targetId),
+  ],
 );
 
 // Shape expected by rate-limiter-flexible's MySQL store (created here so migrations own it).

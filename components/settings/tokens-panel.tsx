@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import { createTokenAction, revokeTokenAction } from "@/app/(lab)/labs/[slug]/settings/actions";
+import { createTokenAction, reissueTokenAction, revokeTokenAction } from "@/app/(lab)/labs/[slug]/settings/actions";
 import type { ActionState } from "@/lib/http/action";
 import { formatDateTime } from "@/lib/format/dates";
 import { TOKEN_NAME_MAX, TOKEN_SCOPES, type TokenScope } from "@/lib/validation/tokens";
@@ -18,6 +18,8 @@ export type TokenRow = {
   createdAt: Date;
   createdByName: string | null;
   lastUsedAt: Date | null;
+  disabledAt: Date | null;
+  disabledReason: string | null;
 };
 
 const SCOPE_LABELS: Record<TokenScope, string> = {
@@ -25,11 +27,15 @@ const SCOPE_LABELS: Record<TokenScope, string> = {
   "stock:write": "Change stock (stock:write)",
 };
 
-/** Machine tokens of the lab: create (shown once), list with last use, revoke. Managers only. */
+type Secret = { token: string; name: string };
+
+/** Machine tokens of the lab: create (shown once), list with last use, revoke, re-issue disabled ones. Managers only. */
 export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: TokenRow[]; timeZone: string }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(createTokenAction, {});
   const revoke = useServerAction(revokeTokenAction);
-  const created = state.ok ? (state.data as { token: string; name: string } | undefined) : undefined;
+  const reissued = revoke.state?.ok ? (revoke.state.data as Secret | undefined) : undefined;
+  const created = reissued ?? (state.ok ? (state.data as Secret | undefined) : undefined);
+  const disabled = tokens.filter((t) => t.disabledAt);
   return (
     <div className="space-y-6">
       <form action={action} className="grid gap-4" noValidate aria-busy={pending} aria-label="Create a token">
@@ -92,6 +98,15 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
       ) : null}
 
       <FormStatus ok={revoke.state?.ok} message={revoke.state?.message} />
+      {disabled.length > 0 ? (
+        <p className="rounded-card border border-warn/50 bg-paper-raised p-4 text-sm" data-testid="tokens-disabled">
+          <span aria-hidden>⚠ </span>
+          {disabled.length === 1 ? "One token is" : `${disabled.length} tokens are`} disabled because the person who
+          created {disabled.length === 1 ? "it" : "them"} left the lab or stopped being a manager. Requests with{" "}
+          {disabled.length === 1 ? "it" : "them"} are refused. Re-issue to get a new secret with the same name and
+          scopes, then give it to the system that uses it; or revoke.
+        </p>
+      ) : null}
       {tokens.length === 0 ? (
         <p className="text-sm text-ink-soft">No tokens yet.</p>
       ) : (
@@ -112,18 +127,35 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
                   {t.createdByName ? ` by ${t.createdByName}` : ""} · last used{" "}
                   {t.lastUsedAt ? formatDateTime(t.lastUsedAt, timeZone) : "never"}
                 </p>
+                {t.disabledAt ? (
+                  <p className="mt-1 text-sm font-medium text-danger">
+                    Disabled {formatDateTime(t.disabledAt, timeZone)}. {t.disabledReason}
+                  </p>
+                ) : null}
               </div>
-              <button
-                type="button"
-                disabled={revoke.pending}
-                className={buttonClass("secondary")}
-                onClick={() => {
-                  if (window.confirm(`Revoke the token "${t.name}"? Requests with it will be refused.`))
-                    void revoke.run({ slug, tokenId: t.id });
-                }}
-              >
-                Revoke<span className="sr-only"> {t.name}</span>
-              </button>
+              <div className="flex flex-wrap gap-2">
+                {t.disabledAt ? (
+                  <button
+                    type="button"
+                    disabled={revoke.pending}
+                    className={buttonClass("primary")}
+                    onClick={() => void revoke.run({ slug, tokenId: t.id }, reissueTokenAction)}
+                  >
+                    Re-issue<span className="sr-only"> {t.name}</span>
+                  </button>
+                ) : null}
+                <button
+                  type="button"
+                  disabled={revoke.pending}
+                  className={buttonClass("secondary")}
+                  onClick={() => {
+                    if (window.confirm(`Revoke the token "${t.name}"? Requests with it will be refused.`))
+                      void revoke.run({ slug, tokenId: t.id });
+                  }}
+                >
+                  Revoke<span className="sr-only"> {t.name}</span>
+                </button>
+              </div>
             </li>
           ))}
         </ul>

@@ -40,6 +40,27 @@ export async function createEmailVerification(
   await tx.insert(emailVerifications).values(input);
 }
 
+/**
+ * Ends every open e-mail change link of the account (links to an address other than its current
+ * one); sign-up links are left alone. Returns how many were ended.
+ */
+export async function revokeEmailChangeLinks(tx: Tx, { userId }: { userId: number }): Promise<number> {
+  const [user] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
+  if (!user) return 0;
+  const [res] = await tx
+    .update(emailVerifications)
+    .set({ revokedAt: new Date() })
+    .where(
+      and(
+        eq(emailVerifications.userId, userId),
+        isNull(emailVerifications.usedAt),
+        isNull(emailVerifications.revokedAt),
+        ne(emailVerifications.email, user.email),
+      ),
+    );
+  return res.affectedRows;
+}
+
 export async function findAccount({ userId }: { userId: number }) {
   const [row] = await db
     .select({
@@ -64,6 +85,7 @@ export async function findPendingEmail({ userId }: { userId: number }) {
       and(
         eq(emailVerifications.userId, userId),
         isNull(emailVerifications.usedAt),
+        isNull(emailVerifications.revokedAt),
         ne(emailVerifications.email, users.email),
       ),
     );
@@ -76,6 +98,7 @@ export async function findEmailVerification({ tokenHash }: { tokenHash: string }
       email: emailVerifications.email,
       expiresAt: emailVerifications.expiresAt,
       usedAt: emailVerifications.usedAt,
+      revokedAt: emailVerifications.revokedAt,
       currentEmail: users.email,
     })
     .from(emailVerifications)

@@ -4,7 +4,7 @@ import type { Database } from "../index";
 import { db as defaultDb } from "../index";
 import { AUDIT_KINDS, type AuditKind } from "@/lib/audit/describe";
 import { DEFAULT_TIME_ZONE, nextDay, zonedDayStart } from "@/lib/format/dates";
-import { auditEvents, charts, editions, labs, labTokens, memberships, postings, rooms, users } from "../schema";
+import { auditEvents, charts, editions, labs, labTokens, postings, rooms, users } from "../schema";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -39,9 +39,9 @@ export async function recordAudit({ tx, ...event }: AuditInput & { tx?: Tx | Dat
 }
 
 /**
- * A lab's audit log, newest first: the lab's own events plus account events (sign-ins, password
- * resets) of people who are members of the lab now. Keyset pages: `before` for older, `after`
- * for newer.
+ * A lab's audit log, newest first: only events stored with this lab (a member's account events,
+ * stored with no lab, belong to their own account page). Keyset pages: `before` for older,
+ * `after` for newer.
  */
 export async function listAuditEvents({
   labId,
@@ -58,25 +58,8 @@ export async function listAuditEvents({
   after?: number;
   limit?: number;
 } & AuditFilters) {
-  const members = defaultDb
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(eq(memberships.labId, labId));
-  const memberIds = defaultDb
-    .select({ id: sql<string>`CAST(${memberships.userId} AS CHAR)` })
-    .from(memberships)
-    .where(eq(memberships.labId, labId));
   const inLab = and(
-    or(
-      eq(auditEvents.labId, labId),
-      and(
-        isNull(auditEvents.labId),
-        or(
-          inArray(auditEvents.actorUserId, members),
-          and(eq(auditEvents.targetType, "user"), inArray(auditEvents.targetId, memberIds)),
-        ),
-      ),
-    ),
+    eq(auditEvents.labId, labId),
     filterWhere({ kind, actor, from, to }, from || to ? await labTimeZone(labId) : undefined),
   );
   const size = Math.min(Math.max(limit, 1), 200);
@@ -118,6 +101,32 @@ export async function listAuditEvents({
     olderBefore: hasOlder ? oldest : undefined,
     newerAfter: hasNewer ? newest : undefined,
   };
+}
+
+/**
+ * One person's own account events (sign-ins, sign-outs, passwords, e-mail changes), newest
+ * first: stored with no lab, done by them or about their account.
+ */
+export async function listAccountEvents({ userId, limit = 20 }: { userId: number; limit?: number }) {
+  return defaultDb
+    .select({
+      id: auditEvents.id,
+      action: auditEvents.action,
+      detail: auditEvents.detail,
+      createdAt: auditEvents.createdAt,
+    })
+    .from(auditEvents)
+    .where(
+      and(
+        isNull(auditEvents.labId),
+        or(
+          eq(auditEvents.actorUserId, userId),
+          and(eq(auditEvents.targetType, "user"), eq(auditEvents.targetId, String(userId))),
+        ),
+      ),
+    )
+    .orderBy(desc(auditEvents.id))
+    .limit(Math.min(Math.max(limit, 1), 100));
 }
 
 /** Which events to show: one kind of event, one person's, between two calendar dates (the lab's, inclusive). */

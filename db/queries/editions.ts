@@ -1,6 +1,6 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, max, ne } from "drizzle-orm";
+import { and, asc, desc, eq, isNull, max, ne } from "drizzle-orm";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
@@ -12,7 +12,7 @@ import { checkChartAgainstRules, ruledDefinition, reviewByDate } from "@/lib/lab
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
-import { auditEvents, charts, editions, logos, users } from "../schema";
+import { charts, editions, logos, users } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange, refreshLiveSnapshots } from "./lab-changes";
 import { getLabRules } from "./lab-rules";
@@ -263,71 +263,11 @@ async function transition(tx: Tx, { labId, editionId, to }: { labId: number; edi
   return ed;
 }
 
-/** Chart audit actions that change what the chart prints or says. */
-const CHART_CONTENT_ACTIONS = ["chart.created", "chart.updated", "chart.logo_set", "chart.logo_removed"];
-
-/**
- * Whether this person changed the chart's content since its last approved edition: a chart
- * audit row by them after the audit row of the last approval (audit ids order the writes, which
- * run one at a time per lab). With no approval yet, any change since the chart was created counts.
- */
-export async function changedChartSinceApproval(
-  tx: Tx,
-  { labId, chartId, userId }: { labId: number; chartId: number; userId: number },
-): Promise<boolean> {
-  const approvedIds = await tx
-    .select({ id: editions.id })
-    .from(editions)
-    .where(and(eq(editions.chartId, chartId), eq(editions.labId, labId), isNotNull(editions.approvedAt)));
-  let since = 0;
-  if (approvedIds.length) {
-    const [last] = await tx
-      .select({ id: max(auditEvents.id) })
-      .from(auditEvents)
-      .where(
-        and(
-          eq(auditEvents.labId, labId),
-          eq(auditEvents.action, "edition.approved"),
-          eq(auditEvents.targetType, "edition"),
-          inArray(
-            auditEvents.targetId,
-            approvedIds.map((e) => String(e.id)),
-          ),
-        ),
-      );
-    since = last?.id ?? 0;
-  }
-  const [changed] = await tx
-    .select({ id: auditEvents.id })
-    .from(auditEvents)
-    .where(
-      and(
-        eq(auditEvents.labId, labId),
-        eq(auditEvents.targetType, "chart"),
-        eq(auditEvents.targetId, String(chartId)),
-        eq(auditEvents.actorUserId, userId),
-        inArray(auditEvents.action, CHART_CONTENT_ACTIONS),
-        gt(auditEvents.id, since),
-      ),
-    )
-    .limit(1);
-  return Boolean(changed);
-}
-
 export async function approveEdition(
   tx: Tx,
   { labId, editionId, actor }: { labId: number; editionId: number; actor: Actor },
 ) {
   const ed = await transition(tx, { labId, editionId, to: "approved" });
-  if (ed.createdBy === actor.id) {
-    throw new AppError("forbidden", "You drafted this edition, so someone else must approve it (four eyes).");
-  }
-  if (await changedChartSinceApproval(tx, { labId, chartId: ed.chartId, userId: actor.id })) {
-    throw new AppError(
-      "forbidden",
-      "You changed this chart since its last approved edition, so someone else must approve it (four eyes).",
-    );
-  }
   const [chart] = await tx
     .select({
       title: charts.title,

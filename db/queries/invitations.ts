@@ -180,36 +180,41 @@ export async function findInvitationByTokenHash({ tokenHash }: { tokenHash: stri
   };
 }
 
-const LINK_PROBLEM = {
-  expired: "This invitation has expired. Ask the lab's manager to resend it.",
-  used: "This invitation has already been used. Sign in to open the lab.",
-  revoked: "This invitation was withdrawn by the lab's manager.",
-} as const;
+/** The invitation with this link, locked for its acceptance; null when the link names none. */
+export async function lockInvitationByTokenHash(tx: Tx, { tokenHash }: { tokenHash: string }) {
+  const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, tokenHash)).for("update");
+  return inv ?? null;
+}
+
+export type LockedInvitation = NonNullable<Awaited<ReturnType<typeof lockInvitationByTokenHash>>>;
+
+/** The account that uses `email`, or the account `userId`, read inside the transaction. */
+export async function findAccountForInvitation(tx: Tx, by: { email: string } | { userId: number }) {
+  const [user] = await tx
+    .select({ id: users.id, email: users.email })
+    .from(users)
+    .where("email" in by ? eq(users.email, by.email) : eq(users.id, by.userId));
+  return user ?? null;
+}
 
 type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId: number };
 
-/** Single use: the row is locked, checked and marked accepted in one transaction. */
-export async function acceptInvitation(tx: Tx, input: { tokenHash: string } & Joiner) {
-  const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, input.tokenHash)).for("update");
-  if (!inv) throw new AppError("not_found", "This invitation link is not valid. Check that you copied the whole link.");
-  const state = linkState({ expiresAt: inv.expiresAt, usedAt: inv.acceptedAt, revokedAt: inv.revokedAt });
-  if (state !== "valid") throw new AppError("conflict", LINK_PROBLEM[state]);
-
+/**
+ * Writes an accepted invitation (the caller decided it may be accepted): the new account, or the
+ * existing one confirmed by the link; the membership unless already a member; the row marked
+ * accepted; the audit row.
+ */
+export async function acceptInvitation(tx: Tx, input: { inv: LockedInvitation } & Joiner) {
+  const { inv } = input;
   let userId: number;
   if ("newAccount" in input) {
-    const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email));
-    if (existing)
-      throw new AppError("conflict", `An account already uses ${inv.email}. Sign in with it to accept the invitation.`);
     const [created] = await tx
       .insert(users)
       .values({ email: inv.email, name: input.newAccount.name, passwordHash: input.newAccount.passwordHash })
       .$returningId();
     userId = created!.id;
   } else {
-    const [user] = await tx.select({ id: users.id, email: users.email }).from(users).where(eq(users.id, input.userId));
-    if (!user || user.email !== inv.email)
-      throw new AppError("forbidden", `This invitation is for ${inv.email}. Sign in with that address to accept it.`);
-    userId = user.id;
+    userId = input.userId;
     // The link reached this address: an account still waiting to confirm it is confirmed now.
     await tx
       .update(users)

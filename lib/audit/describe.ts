@@ -15,11 +15,14 @@ export const AUDIT_KINDS = {
   rules: { label: "Lab rules", actions: ["lab.rules_updated"] },
   settings: {
     label: "Lab settings and machine tokens",
-    actions: ["lab.settings_updated", "lab.token_created", "lab.token_revoked", "lab.created"],
-  },
-  accounts: {
-    label: "Sign-ins, passwords and accounts",
-    actions: ["signin.", "signout", "password_reset.", "account."],
+    actions: [
+      "lab.settings_updated",
+      "lab.token_created",
+      "lab.token_revoked",
+      "lab.token_disabled",
+      "lab.token_reissued",
+      "lab.created",
+    ],
   },
 } as const;
 export type AuditKind = keyof typeof AUDIT_KINDS;
@@ -51,6 +54,8 @@ const ACTIONS: Record<string, string> = {
   "lab.settings_updated": "Changed the lab's settings",
   "lab.token_created": "Created a machine token",
   "lab.token_revoked": "Revoked a machine token",
+  "lab.token_disabled": "Disabled a machine token (its creator left or stopped managing)",
+  "lab.token_reissued": "Re-issued a disabled machine token",
   "chart.created": "Created a chart",
   "chart.updated": "Changed a chart",
   "chart.logo_set": "Set a chart's logo",
@@ -95,6 +100,7 @@ const LABELS: Record<string, string> = {
   edition: "Edition",
   room: "Room",
   reason: "Reason",
+  replaces: "Replaces token",
   was: "Was",
   status: "Status",
   superseded: "Replaced editions",

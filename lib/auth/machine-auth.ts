@@ -13,7 +13,10 @@ import { databaseName } from "./sign-in";
 export class BearerRefused extends AppError {
   readonly wwwAuthenticate = 'Bearer realm="forkwall", error="invalid_token"';
   constructor() {
-    super("unauthenticated", "This token is not valid: it is unknown or was revoked.");
+    super(
+      "unauthenticated",
+      "This token is not valid: it is unknown, revoked, or disabled (its creator left the lab or stopped being a manager; a manager can re-issue it).",
+    );
   }
 }
 

@@ -1,4 +1,5 @@
 import { createHash, randomBytes } from "node:crypto";
+import { can, ROLE_LABELS, type Role } from "@/lib/permissions";
 
 // Machine tokens let a lab's inventory system call the stock API without a person. A token is
 // "fwt_" and 43 url-safe characters (32 random bytes, 256 bits); only its SHA-256 is stored, with
@@ -28,4 +29,15 @@ export function bearerToken(header: string | null): string | null {
 /** Only a well-formed token is worth a database lookup. */
 export function looksLikeMachineToken(value: string): boolean {
   return /^fwt_[A-Za-z0-9_-]{43}$/.test(value);
+}
+
+/**
+ * Why a person's tokens in a lab stop working after a change to their membership (removed, left,
+ * or a new role), or null when they may still manage tokens and theirs keep working.
+ */
+export function tokenDisableReason(person: string, change: "removed" | "left" | { role: Role }): string | null {
+  if (change === "removed") return `Its creator, ${person}, was removed from the lab.`;
+  if (change === "left") return `Its creator, ${person}, left the lab.`;
+  if (can(change.role, "tokens:manage")) return null;
+  return `Its creator, ${person}, is no longer a manager (now ${ROLE_LABELS[change.role].toLowerCase()}).`;
 }

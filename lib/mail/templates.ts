@@ -17,11 +17,19 @@ export function formatUtc(date: Date): string {
   return formatInZone(date, "UTC");
 }
 
+/**
+ * A lab's name as mail quotes it: plain text in quotes. Names are chosen by whoever creates a
+ * lab, so a name is never made into a link (the HTML part escapes it outside any <a>).
+ */
+export const quotedLabName = (name: string) => `"${name}"`;
+
+// Only a paragraph that ends with the link on its own line gets an <a>, around the link alone.
 function toHtml(paragraphs: string[], link: { href: string; label: string }): string {
+  const tail = `\n${link.href}`;
+  const anchor = `<a href="${escapeHtml(link.href)}">${escapeHtml(link.href)}</a>`;
   const body = paragraphs
-    .map(
-      (p) =>
-        `<p>${escapeHtml(p).replace(escapeHtml(link.href), `<a href="${escapeHtml(link.href)}">${escapeHtml(link.href)}</a>`)}</p>`,
+    .map((p) =>
+      p.endsWith(tail) ? `<p>${escapeHtml(p.slice(0, -link.href.length))}${anchor}</p>` : `<p>${escapeHtml(p)}</p>`,
     )
     .join("\n");
   return `<!doctype html><html><body style="font-family:sans-serif;line-height:1.5">\n${body}\n</body></html>`;
@@ -37,13 +45,13 @@ export function invitationMail(p: {
   timeZone?: string;
 }): MailContent {
   const paragraphs = [
-    `${p.inviterName} invites you to join ${p.labName} on Forkwall as ${ROLE_LABELS[p.role].toLowerCase()}.`,
+    `${p.inviterName} invites you to join the lab ${quotedLabName(p.labName)} on Forkwall as ${ROLE_LABELS[p.role].toLowerCase()}.`,
     `Accept the invitation here:\n${p.link}`,
     `The link works once and expires at ${formatInZone(p.expiresAt, p.timeZone ?? "UTC")}. If you already have a Forkwall account under this address, sign in with it to accept.`,
     "If you did not expect this invitation, you can ignore this e-mail.",
   ];
   return {
-    subject: `Invitation to join ${p.labName} on Forkwall`,
+    subject: `Invitation to join the lab ${quotedLabName(p.labName)} on Forkwall`,
     text: paragraphs.join("\n\n") + "\n",
     html: toHtml(paragraphs, { href: p.link, label: "Accept" }),
   };

@@ -1,8 +1,12 @@
 import "server-only";
 import * as q from "@/db/queries/accounts";
+import { listAccountEvents } from "@/db/queries/audit";
+import { disableTokensOf } from "@/db/queries/tokens";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { mayMail } from "@/lib/auth/account-limits";
+import { tokenDisableReason } from "@/lib/auth/machine-tokens";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { describeAction } from "@/lib/audit/describe";
 import { AppError, rateLimited } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/send";
 import { emailTakenMail } from "@/lib/mail/templates/account";
@@ -30,13 +34,21 @@ const wrongPassword = () =>
     { path: ["currentPassword"], message: "That is not your current password." },
   ]);
 
+/** Recent account events shown on the account page (they appear in no lab's log). */
+export const ACCOUNT_ACTIVITY_ROWS = 20;
+
 export async function readAccount(caller: Caller) {
   const account = await verifiedAccount(caller);
-  const [labs, pendingEmail] = await Promise.all([
+  const [labs, pendingEmail, events] = await Promise.all([
     listLabsForUser({ userId: account.id }),
     q.findPendingEmail({ userId: account.id }),
+    listAccountEvents({ userId: account.id, limit: ACCOUNT_ACTIVITY_ROWS }),
   ]);
-  return { id: account.id, name: account.name, email: account.email, pendingEmail, labs };
+  const activity = events.map((e) => {
+    const ip = (e.detail as { ip?: unknown } | null)?.ip;
+    return { id: e.id, at: e.createdAt, what: describeAction(e.action), from: typeof ip === "string" ? ip : null };
+  });
+  return { id: account.id, name: account.name, email: account.email, pendingEmail, labs, activity };
 }
 
 export async function changeName(caller: Caller, raw: unknown) {
@@ -72,22 +84,35 @@ export async function requestEmailChange(caller: Caller, raw: unknown) {
   });
 }
 
-/** Needs the current password; every session ends, so the person signs in again with the new one. */
+/**
+ * Needs the current password; every session ends, so the person signs in again with the new one,
+ * and every pending e-mail change link ends.
+ */
 export async function changePassword(caller: Caller, raw: unknown) {
   const account = await verifiedAccount(caller);
   const { currentPassword, password } = parseInput(changePasswordSchema, raw);
   return traced("account.password.change", { userId: account.id }, async () => {
     if (!(await verifyPassword(currentPassword, account.passwordHash))) throw wrongPassword();
     const passwordHash = await hashPassword(password);
-    await accountWrite((tx) => q.updateAccountPassword(tx, { userId: account.id, passwordHash }));
+    await accountWrite(async (tx) => {
+      await q.updateAccountPassword(tx, { userId: account.id, passwordHash });
+      // Whoever held the old password may have asked to move the account: those links end here.
+      await q.revokeEmailChangeLinks(tx, { userId: account.id });
+    });
     return { signedOut: true };
   });
 }
 
-/** The caller leaves a lab; refused (409) for its last manager. */
+/** The caller leaves a lab (their machine tokens there are disabled); refused (409) for its last manager. */
 export const leaveLab = labOperation({
   name: "member.leave",
   capability: "lab:read",
   scope: "lab",
-  run: ({ labId, member }) => labWrite(labId, (tx) => q.leaveLab(tx, { labId, userId: member.user.id })),
+  run: ({ labId, member }) =>
+    labWrite(labId, async (tx) => {
+      const left = await q.leaveLab(tx, { labId, userId: member.user.id });
+      const reason = tokenDisableReason(member.user.name, "left")!;
+      await disableTokensOf(tx, { labId, userId: member.user.id, reason, actorUserId: member.user.id });
+      return left;
+    }),
 });

@@ -2,9 +2,17 @@ import "server-only";
 import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { isLimiterRefusal } from "@/lib/auth/limiter-refusal";
 import { pool } from "@/db";
-import { acceptInvitation as acceptInvitationRow, findInvitationByTokenHash } from "@/db/queries/invitations";
+import { revokeEmailChangeLinks } from "@/db/queries/accounts";
+import type { Tx } from "@/db/queries/audit";
+import {
+  acceptInvitation as acceptInvitationRow,
+  findAccountForInvitation,
+  findInvitationByTokenHash,
+  lockInvitationByTokenHash,
+} from "@/db/queries/invitations";
 import { findUserByEmail, listLabsForUser } from "@/db/queries/members";
 import { completePasswordReset, createPasswordReset, findPasswordReset } from "@/db/queries/password-resets";
+import { acceptanceRefusal } from "@/lib/auth/invitation-acceptance";
 import { hashPassword } from "@/lib/auth/password";
 import { databaseName, signInThrottle } from "@/lib/auth/sign-in";
 import { accountKey } from "@/lib/auth/throttle";
@@ -64,10 +72,32 @@ export async function requestPasswordReset({ email }: { email: string }): Promis
 export async function resetPassword({ token, password }: { token: string; password: string }) {
   return traced("account.reset.complete", {}, async () => {
     const passwordHash = await hashPassword(password);
-    const user = await accountWrite((tx) => completePasswordReset(tx, { tokenHash: hashToken(token), passwordHash }));
+    const user = await accountWrite(async (tx) => {
+      const reset = await completePasswordReset(tx, { tokenHash: hashToken(token), passwordHash });
+      // Whoever held the old password may have asked to move the account: those links end here.
+      await revokeEmailChangeLinks(tx, { userId: reset.id });
+      return reset;
+    });
     await signInThrottle().recordSuccess({ email: user.email });
     return user;
   });
+}
+
+type Joiner = { newAccount: { name: string; passwordHash: string } } | { userId: number };
+
+/** Accepts an invitation inside `tx`: the row locked, the decision (pure) made, then the writes. */
+export async function acceptInvitationIn(tx: Tx, input: { tokenHash: string } & Joiner) {
+  const inv = await lockInvitationByTokenHash(tx, { tokenHash: input.tokenHash });
+  const joiner =
+    "newAccount" in input
+      ? {
+          kind: "new-account" as const,
+          addressTaken: inv ? (await findAccountForInvitation(tx, { email: inv.email })) !== null : false,
+        }
+      : { kind: "member" as const, account: await findAccountForInvitation(tx, { userId: input.userId }) };
+  const refusal = acceptanceRefusal({ invitation: inv, joiner });
+  if (refusal) throw refusal;
+  return acceptInvitationRow(tx, { ...input, inv: inv! });
 }
 
 /** The link is the key: anyone holding a valid invitation link may create the invited account. */
@@ -82,7 +112,7 @@ export async function acceptInvitationAsNewAccount({
 }) {
   const passwordHash = await hashPassword(password);
   return traced("invitation.accept", {}, () =>
-    accountWrite((tx) => acceptInvitationRow(tx, { tokenHash: hashToken(token), newAccount: { name, passwordHash } })),
+    accountWrite((tx) => acceptInvitationIn(tx, { tokenHash: hashToken(token), newAccount: { name, passwordHash } })),
   );
 }
 
@@ -90,7 +120,7 @@ export async function acceptInvitationAsNewAccount({
 export async function acceptInvitationAsMember(caller: Caller, { token }: { token: string }) {
   const user = signedIn(caller);
   return traced("invitation.accept", { userId: user.id }, () =>
-    accountWrite((tx) => acceptInvitationRow(tx, { tokenHash: hashToken(token), userId: user.id })),
+    accountWrite((tx) => acceptInvitationIn(tx, { tokenHash: hashToken(token), userId: user.id })),
   );
 }
 

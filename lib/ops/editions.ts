@@ -1,6 +1,7 @@
 import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/editions";
+import { readFourEyesFacts } from "@/db/queries/four-eyes";
 import { gridJson } from "@/lib/charts/grid-model";
 import { getLabRules } from "@/db/queries/lab-rules";
 import { listRulesChanges } from "@/db/queries/rules-history";
@@ -8,6 +9,7 @@ import { editionBreaches } from "@/lib/editions/breaches";
 import { diffCells, type EditionDiff } from "@/lib/editions/diff";
 import { compareItems, editionPrints, exceptionRecorders, printItems } from "@/lib/editions/prints";
 import { POSTER_RENDERER_VERSION } from "@/lib/poster/version";
+import { fourEyesRefusal } from "@/lib/editions/four-eyes";
 import { editionUrls } from "@/lib/charts/present";
 import { AppError, notFound } from "@/lib/errors";
 import { legibilityRefusal, LEGIBILITY_RULE } from "@/lib/poster/model";
@@ -41,8 +43,9 @@ export const createEdition = labOperation({
 });
 
 /**
- * Approves a draft after the approver states they reviewed it; never by anyone who changed the
- * chart since its last approval (four eyes), and only while it still matches the lab.
+ * Approves a draft after the approver states they reviewed it; never by anyone who changed what
+ * it prints since the chart's last approval, through the chart, the stock or the rules' exceptions
+ * (four eyes, lib/editions/four-eyes.ts), and only while it still matches the lab.
  */
 export const approveEdition = labOperation({
   name: "edition.approve",
@@ -54,7 +57,14 @@ export const approveEdition = labOperation({
     const frozen = await q.getEdition({ labId, editionId: ids.editionId });
     const illegible = frozen && frozen.status === "draft" ? legibilityRefusal(frozen.snapshot) : null;
     if (illegible) throw new AppError("conflict", illegible, [{ path: ["rule"], message: LEGIBILITY_RULE }]);
-    const ed = await labWrite(labId, (tx) => q.approveEdition(tx, { labId, editionId: ids.editionId, actor }));
+    const ed = await labWrite(labId, async (tx) => {
+      const facts = await readFourEyesFacts(tx, { labId, editionId: ids.editionId, userId: actor.id });
+      // Only a draft can be approved: anything else is left to the state check (409).
+      const refusal =
+        facts?.status === "draft" ? fourEyesRefusal({ ...facts, approverId: actor.id, draft: facts }) : null;
+      if (refusal) throw new AppError("forbidden", refusal);
+      return q.approveEdition(tx, { labId, editionId: ids.editionId, actor });
+    });
     await mailSignoff({ kind: "approved", labId, editionId: ed.id, byName: actor.name, reviewBy: ed.reviewBy });
     return {
       id: ed.id,

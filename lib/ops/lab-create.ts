@@ -3,6 +3,7 @@ import { z } from "zod";
 import { isEmailVerified } from "@/db/queries/accounts";
 import { createInvitation } from "@/db/queries/invitations";
 import { createLab as insertLab, slugTaken } from "@/db/queries/lab-create";
+import { labLimits } from "@/lib/auth/lab-limits";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
 import { AppError, isAppError } from "@/lib/errors";
 import { createLabSchema, type CreateLabInput } from "@/lib/validation/lab";
@@ -33,15 +34,18 @@ async function withNewLab<T>(input: CreateLabInput, fn: (tx: Tx) => Promise<T>):
   }
 }
 
-/** A signed-in person with a confirmed address creates a lab and becomes its manager. */
+/**
+ * A signed-in person with a confirmed address creates a lab and becomes its manager; at most
+ * LABS_PER_ACCOUNT_PER_DAY a day (429).
+ */
 export async function createLab(caller: Caller, raw: unknown) {
   const user = signedIn(caller);
   if (!(await isEmailVerified({ userId: user.id })))
     throw new AppError("forbidden", "Confirm your e-mail address before creating a lab: open the link we sent you.");
   const input = parseInput(createLabSchema, raw);
   return traced("lab.create", { userId: user.id }, async () => {
-    const lab = await withNewLab(input, (tx) =>
-      insertLab(tx, { ...input, managerUserId: user.id, actorUserId: user.id, via: "web" }),
+    const lab = await labLimits().labCreation(user.id, () =>
+      withNewLab(input, (tx) => insertLab(tx, { ...input, managerUserId: user.id, actorUserId: user.id, via: "web" })),
     );
     return { lab: { slug: lab.slug, name: lab.name }, role: "manager" as const };
   });

@@ -2,6 +2,9 @@ import "server-only";
 import { z } from "zod";
 import * as invitations from "@/db/queries/invitations";
 import * as members from "@/db/queries/members";
+import * as tokens from "@/db/queries/tokens";
+import { labLimits } from "@/lib/auth/lab-limits";
+import { tokenDisableReason } from "@/lib/auth/machine-tokens";
 import { INVITATION_TTL_MS, newToken } from "@/lib/auth/tokens";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";
@@ -64,21 +67,25 @@ export const listInvitations = labOperation({
   run: async ({ labId }) => ({ invitations: await invitations.listOpenInvitations({ labId }) }),
 });
 
-/** Stores the invitation (hash only) with its audit record, then e-mails the link after commit. */
+/**
+ * Stores the invitation (hash only) with its audit record, then e-mails the link after commit;
+ * invitations and resends together at most INVITATION_MAILS_PER_LAB_PER_HOUR per lab (429).
+ */
 export const inviteMember = labOperation({
   name: "invitation.create",
   capability: "members:manage",
   scope: "lab",
   input: inviteSchema,
-  run: async ({ labId, member }, input) => {
-    const { token, hash } = newToken();
-    const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-    const invitation = await labWrite(labId, (tx) =>
-      invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
-    );
-    const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
-    return { invitation, emailSent };
-  },
+  run: ({ labId, member }, input) =>
+    labLimits().invitationMail(labId, async () => {
+      const { token, hash } = newToken();
+      const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+      const invitation = await labWrite(labId, (tx) =>
+        invitations.createInvitation(tx, { labId, ...input, invitedBy: member.user.id, tokenHash: hash, expiresAt }),
+      );
+      const emailSent = await mailInvitation(sender(member), input.email, input.role, token, expiresAt);
+      return { invitation, emailSent };
+    }),
 });
 
 /** A new token and a new e-mail; the previous link stops working. */
@@ -87,21 +94,22 @@ export const resendInvitation = labOperation({
   capability: "members:manage",
   scope: "lab",
   ids: { invitationId: "That invitation" },
-  run: async ({ labId, member, ids }) => {
-    const { token, hash } = newToken();
-    const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-    const invitation = await labWrite(labId, (tx) =>
-      invitations.renewInvitation(tx, {
-        labId,
-        invitationId: ids.invitationId,
-        actorUserId: member.user.id,
-        tokenHash: hash,
-        expiresAt,
-      }),
-    );
-    const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
-    return { invitation, emailSent };
-  },
+  run: ({ labId, member, ids }) =>
+    labLimits().invitationMail(labId, async () => {
+      const { token, hash } = newToken();
+      const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+      const invitation = await labWrite(labId, (tx) =>
+        invitations.renewInvitation(tx, {
+          labId,
+          invitationId: ids.invitationId,
+          actorUserId: member.user.id,
+          tokenHash: hash,
+          expiresAt,
+        }),
+      );
+      const emailSent = await mailInvitation(sender(member), invitation.email, invitation.role, token, expiresAt);
+      return { invitation, emailSent };
+    }),
 });
 
 export const revokeInvitation = labOperation({
@@ -122,9 +130,17 @@ export const changeMemberRole = labOperation({
   ids: { membershipId: "That member" },
   input: changeRoleSchema,
   run: ({ labId, actor, ids }, { role }) =>
-    labWrite(labId, (tx) =>
-      members.changeMemberRole(tx, { labId, membershipId: ids.membershipId, role, actorUserId: actor.id }),
-    ),
+    labWrite(labId, async (tx) => {
+      const changed = await members.changeMemberRole(tx, {
+        labId,
+        membershipId: ids.membershipId,
+        role,
+        actorUserId: actor.id,
+      });
+      const reason = changed.changed ? tokenDisableReason(changed.name, { role }) : null;
+      if (reason) await tokens.disableTokensOf(tx, { labId, userId: changed.userId, reason, actorUserId: actor.id });
+      return changed;
+    }),
 });
 
 export const removeMember = labOperation({
@@ -133,7 +149,12 @@ export const removeMember = labOperation({
   scope: "lab",
   ids: { membershipId: "That member" },
   run: ({ labId, actor, ids }) =>
-    labWrite(labId, (tx) => members.removeMember(tx, { labId, membershipId: ids.membershipId, actorUserId: actor.id })),
+    labWrite(labId, async (tx) => {
+      const removed = await members.removeMember(tx, { labId, membershipId: ids.membershipId, actorUserId: actor.id });
+      const reason = tokenDisableReason(removed.name, "removed")!;
+      await tokens.disableTokensOf(tx, { labId, userId: removed.userId, reason, actorUserId: actor.id });
+      return removed;
+    }),
 });
 
 /** A member's own choice: e-mail me when posted copies go stale. Only ever changes the caller's own membership. */

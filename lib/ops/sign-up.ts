@@ -1,6 +1,7 @@
 import "server-only";
 import {
   completeEmailVerification,
+  revokeEmailChangeLinks,
   createEmailVerification,
   createUnverifiedAccount,
   findAccount,
@@ -137,7 +138,12 @@ export async function verifyEmail({ token }: { token: string }) {
       throw new AppError("not_found", "This confirmation link is not valid. Check that you copied the whole link.");
     let done;
     try {
-      done = await accountWrite((tx) => completeEmailVerification(tx, { tokenHash: hashToken(token) }));
+      done = await accountWrite(async (tx) => {
+        const verified = await completeEmailVerification(tx, { tokenHash: hashToken(token) });
+        // A change took effect: no other pending change link may move the account again.
+        if (verified.changedFrom) await revokeEmailChangeLinks(tx, { userId: verified.userId });
+        return verified;
+      });
     } catch (err) {
       if (duplicateKey(err) !== null)
         throw new AppError("conflict", "Another account already uses that address, so yours was not changed.");

@@ -1,11 +1,12 @@
 import { z } from "zod";
 import { isTimeZone } from "@/lib/format/dates";
+import { LAB_NAME_MAX, labNameField } from "./lab";
 import { freeText } from "./text";
 
 export const NUMBER_FORMATS = ["point", "comma"] as const;
 export type NumberFormat = (typeof NUMBER_FORMATS)[number];
 
-export const LAB_NAME_MAX = 160;
+export { LAB_NAME_MAX };
 export const CONTACT_LINE_MAX = 200;
 
 /** What a lab's settings read as, for every member. */
@@ -24,7 +25,7 @@ export type LabSettings = {
  */
 const settingsShape = z
   .object({
-    name: freeText({ what: "Lab name", min: 1, max: LAB_NAME_MAX }),
+    name: labNameField,
     timeZone: z
       .string({ error: "Time zone must be text." })
       // Not free text: an exact IANA name from the runtime's time-zone database.

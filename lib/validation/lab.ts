@@ -61,12 +61,40 @@ export const slugField = z
   )
   .refine((s) => !RESERVED_SLUGS.has(s), "That word is reserved; choose another.");
 
+export const LAB_NAME_MAX = 160;
+
+// A lab's name goes into invitation subjects and bodies, where mail programs turn addresses
+// into links: a name must not carry a web or e-mail address. Checked on the NFKC form with the
+// full stops of other scripts read as ".", so look-alike characters do not slip through.
+const LINK_DOTS = /[\u3002\uFF0E\uFF61]/g;
+const EMAIL_LIKE = /[^\s@]@[^\s@]/;
+const URL_LIKE = [
+  /[a-z][a-z0-9+.-]*:\/\//i,
+  /\b(?:mailto|javascript|data):/i,
+  /\bwww\./i,
+  /[a-z0-9]\.[a-z]{2,24}\b/i, // a host name such as evil.example
+];
+const linkForm = (s: string) => s.normalize("NFKC").replace(LINK_DOTS, ".");
+
+/** Why a lab name cannot be used in mail, or null when it can. */
+export function labNameLinkProblem(name: string): string | null {
+  const s = linkForm(name);
+  if (EMAIL_LIKE.test(s)) return "A lab name cannot contain an e-mail address.";
+  if (URL_LIKE.some((re) => re.test(s)))
+    return 'A lab name cannot contain a web address (write abbreviations with a space, as in "St. Anne").';
+  return null;
+}
+
+/** The one lab-name schema (new labs, the operator's command, renaming in settings). */
 export const labNameField = freeText({
   what: "Lab name",
   min: 2,
-  max: 160,
-  requiredMessage: "Enter the lab's name.",
-  minMessage: "Enter the lab's name (at least 2 characters).",
+  max: LAB_NAME_MAX,
+  requiredMessage: "Enter the lab name.",
+  minMessage: "Enter the lab name (at least 2 characters).",
+}).superRefine((name, ctx) => {
+  const problem = labNameLinkProblem(name);
+  if (problem) ctx.addIssue({ code: "custom", message: problem });
 });
 
 export const createLabSchema = z.strictObject({ name: labNameField, slug: slugField });

@@ -729,6 +729,13 @@ export const ROUTES: RouteRow[] = [
     url: `${lab("demo")}/tokens/0`,
     expect: managerBadId(),
   },
+  {
+    kind: "route",
+    method: "POST",
+    route: "/api/v1/labs/[slug]/tokens/[id]/reissue",
+    url: `${lab("demo")}/tokens/0/reissue`,
+    expect: managerBadId(),
+  },
 
   // area signoff: edition diff, chart archive
   {
@@ -933,6 +940,7 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: SETTINGS_ACTIONS, name: "updateLabSettingsAction", allowed: ["manager"] },
   { kind: "action", file: SETTINGS_ACTIONS, name: "createTokenAction", allowed: ["manager"] },
   { kind: "action", file: SETTINGS_ACTIONS, name: "revokeTokenAction", allowed: ["manager"] },
+  { kind: "action", file: SETTINGS_ACTIONS, name: "reissueTokenAction", allowed: ["manager"] },
   {
     kind: "action",
     file: LAB_ACTIONS,

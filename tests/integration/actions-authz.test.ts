@@ -214,6 +214,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
     form({ slug: t.lab.slug, name: "Renamed lab", timeZone: "Europe/Berlin", numberFormat: "comma", contactLine: "" }),
   createTokenAction: (t) => ({ slug: t.lab.slug, name: "New feed", scopes: ["stock:read", "stock:write"] }),
   revokeTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
+  reissueTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
   saveLabRulesAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
   // onboard
   resendVerificationAction: () => form({}),

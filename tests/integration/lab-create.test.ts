@@ -128,7 +128,7 @@ describe("npm run lab:create (createLabByOperator)", () => {
     const [inv] = await db.select().from(invitations).where(eq(invitations.labId, lab.id));
     expect(inv).toMatchObject({ email: manager, role: "manager", invitedBy: null });
     const [mail] = await mailTo(manager);
-    expect(mail?.subject).toBe("Invitation to join Operator Lab (illustrative) on Forkwall");
+    expect(mail?.subject).toBe('Invitation to join the lab "Operator Lab (illustrative)" on Forkwall');
     expect(linkIn(mail!.text, "invite").url).toContain("/invite/");
   });
 

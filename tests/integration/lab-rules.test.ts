@@ -163,12 +163,19 @@ describe("lab rules per lookup kind", () => {
       },
     );
     expect(withException.changed).toEqual(["exceptions"]);
+    // Four eyes: the lead who recorded the exceptions no longer approves this chart's editions.
+    const ownException = await refusal(
+      ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }),
+    );
+    expect(ownException.status).toBe(403);
+    expect(ownException.message).toMatch(/exceptions for this chart \(law: Murray agreed for the teaching room/);
+    await rulesOps.setLabRules(as(team.people.lead), { lab: team.lab.slug }, { managersMayApprove: true });
     // The draft made before the exception no longer matches what the poster would print.
     expect(
-      (await refusal(ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }))).status,
+      (await refusal(ops.approveEdition(as(team.people.manager), { editionId: ed.id }, { reviewed: true }))).status,
     ).toBe(409);
     const next = await ops.createEdition(as(team.people.educator), { chartId });
-    const ok = await ops.approveEdition(as(team.people.lead), { editionId: next.id }, { reviewed: true });
+    const ok = await ops.approveEdition(as(team.people.manager), { editionId: next.id }, { reviewed: true });
     expect(ok.status).toBe("approved");
     const [row] = await db.select().from(editions).where(eq(editions.id, next.id));
     expect((row!.snapshot as { ruleExceptions?: unknown }).ruleExceptions).toEqual([

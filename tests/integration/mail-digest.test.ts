@@ -109,7 +109,7 @@ describe("stale-copy digest", () => {
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 1);
     const digest = mails.at(-1)!;
-    expect(digest.subject).toBe(`Forkwall: 3 wall printouts to replace in ${team.lab.name}`);
+    expect(digest.subject).toBe(`Forkwall: 3 wall printouts to replace in "${team.lab.name}"`);
     expect(digest.text).toContain("Rooms to visit: Procedure room 1, Procedure room 2, Procedure room 3");
     for (const f of families) expect(digest.text).toContain(`"${f.title}", edition 1, is outdated`);
     expect(digest.text).toContain("3.75 mm NC balloon no longer stocked");
@@ -136,7 +136,7 @@ describe("stale-copy digest", () => {
     expect(await deliverDigest({ labId: team.lab.id })).toBe("all-clear");
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 1);
-    expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in ${team.lab.name} is current again`);
+    expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in "${team.lab.name}" is current again`);
     expect(mails.at(-1)!.text).toContain("nothing needs replacing");
   });
 
@@ -166,7 +166,7 @@ describe("a stale copy taken down", () => {
     expect(await deliverDigest({ labId: team.lab.id })).toBe("all-clear");
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 2);
-    expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in ${team.lab.name} is current again`);
+    expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in "${team.lab.name}" is current again`);
     expect(mails.at(-1)!.text).toContain(`was taken down in ${families[0]!.room}`);
     // The stock comes back with nothing hanging in that room: no mail.
     await setStock(0, true);
@@ -201,7 +201,7 @@ describe("sign-off mail", () => {
     const waiting = (await mailTo(lead)).slice(leadBefore);
     expect(waiting).toHaveLength(1);
     expect(waiting[0]!.subject).toBe(
-      `Forkwall: Edition ${ed.number} of "Sign-off mail chart" is waiting for sign-off in ${team.lab.name}`,
+      `Forkwall: Edition ${ed.number} of "Sign-off mail chart" is waiting for sign-off in "${team.lab.name}"`,
     );
     // The approver lands on the approval screen of this edition, not the designer.
     expect(waiting[0]!.text).toContain(`/labs/${team.lab.slug}/sign-off/${ed.id}\n`);

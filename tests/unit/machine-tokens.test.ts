@@ -1,6 +1,12 @@
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { bearerToken, hashMachineToken, looksLikeMachineToken, newMachineToken } from "@/lib/auth/machine-tokens";
+import {
+  bearerToken,
+  hashMachineToken,
+  looksLikeMachineToken,
+  newMachineToken,
+  tokenDisableReason,
+} from "@/lib/auth/machine-tokens";
 import { checkWriteRequest } from "@/lib/http/origin";
 
 describe("machine tokens", () => {
@@ -43,5 +49,15 @@ describe("machine tokens", () => {
     expect(looksLikeMachineToken(newMachineToken().token)).toBe(true);
     expect(looksLikeMachineToken(`fwt_${"A".repeat(42)}`)).toBe(false);
     expect(looksLikeMachineToken(`xyz_${"A".repeat(43)}`)).toBe(false);
+  });
+});
+
+describe("tokenDisableReason", () => {
+  it("disables a creator's tokens when they go or stop managing, not otherwise", () => {
+    expect(tokenDisableReason("Ann", "removed")).toBe("Its creator, Ann, was removed from the lab.");
+    expect(tokenDisableReason("Ann", "left")).toBe("Its creator, Ann, left the lab.");
+    expect(tokenDisableReason("Ann", { role: "manager" })).toBeNull();
+    for (const role of ["lead", "educator", "operator"] as const)
+      expect(tokenDisableReason("Ann", { role }), role).toMatch(/^Its creator, Ann, is no longer a manager \(now /);
   });
 });

@@ -60,12 +60,12 @@ describe("e-mails", () => {
       link: "http://localhost:3000/invite/abc",
       expiresAt: new Date("2026-05-01T10:00:00Z"),
     });
-    expect(mail.subject).toBe("Invitation to join Lab <A> on Forkwall");
+    expect(mail.subject).toBe('Invitation to join the lab "Lab <A>" on Forkwall');
     expect(mail.text).toContain("http://localhost:3000/invite/abc");
     expect(mail.text).toContain("as educator");
     expect(mail.text).toContain("2026-05-01 10:00 UTC");
     expect(mail.html).toContain('<a href="http://localhost:3000/invite/abc">');
-    expect(mail.html).toContain("Lab &lt;A&gt;");
+    expect(mail.html).toContain("&quot;Lab &lt;A&gt;&quot;");
     const reset = passwordResetMail({
       link: "http://localhost:3000/reset-password/xyz",
       expiresAt: new Date("2026-05-01T10:00:00Z"),

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
 import { EmailForm, LeaveLabButton, NameForm, PasswordForm } from "@/components/account/account-forms";
+import { formatDateTime } from "@/lib/format/dates";
 import { readAccount } from "@/lib/ops/account-settings";
 import { sessionCaller } from "@/lib/ops/caller";
 import { needsVerification } from "@/lib/ops/sign-up";
@@ -68,6 +69,30 @@ export default async function AccountPage() {
                   <span className="block text-sm text-ink-faint">{ROLE_LABELS[lab.role]}</span>
                 </div>
                 <LeaveLabButton slug={lab.slug} name={lab.name} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <section aria-labelledby="activity-h" className={section}>
+        <h2 id="activity-h" className="mb-1 text-lg font-semibold">
+          Recent account activity
+        </h2>
+        <p className="mb-3 text-sm text-ink-soft">
+          Sign-ins, password and e-mail changes of this account (newest first, times in UTC). They appear in no
+          lab&apos;s audit log.
+        </p>
+        {account.activity.length === 0 ? (
+          <p className="text-ink-soft">Nothing recorded yet.</p>
+        ) : (
+          <ul className="divide-y divide-line text-sm" data-testid="account-activity">
+            {account.activity.map((e) => (
+              <li key={e.id} className="flex flex-wrap gap-x-3 py-2">
+                <time dateTime={e.at.toISOString()} className="text-ink-faint tabular-nums">
+                  {formatDateTime(e.at, "UTC")}
+                </time>
+                <span>{e.what}</span>
+                {e.from ? <span className="text-ink-faint">from {e.from}</span> : null}
               </li>
             ))}
           </ul>

@@ -1,5 +1,6 @@
 // The sign-off e-mails: approvers hear that a draft waits for them; its author hears that it was
 // approved or returned, and why. Pure: built from the facts of one edition.
+import { quotedLabName } from "../templates";
 import { formatDate } from "@/lib/format/dates";
 
 export type SignoffFacts = {
@@ -20,9 +21,9 @@ const what = (f: SignoffFacts) => `Edition ${f.editionNumber} of "${f.chartTitle
 
 export function waitingForSignoffMail(f: SignoffFacts, appUrl: string): { subject: string; text: string } {
   return {
-    subject: `Forkwall: ${what(f)} is waiting for sign-off in ${f.labName}`,
+    subject: `Forkwall: ${what(f)} is waiting for sign-off in ${quotedLabName(f.labName)}`,
     text: [
-      `${what(f)} was submitted${f.authorName ? ` by ${f.authorName}` : ""} and is waiting for sign-off in ${f.labName}.`,
+      `${what(f)} was submitted${f.authorName ? ` by ${f.authorName}` : ""} and is waiting for sign-off in ${quotedLabName(f.labName)}.`,
       "",
       `Review what it prints and what changed, then approve or return it: ${reviewUrl(f, appUrl)}`,
       "",
@@ -38,7 +39,7 @@ export function approvedMail(
   return {
     subject: `Forkwall: ${what(f)} was approved`,
     text: [
-      `${what(f)} was approved by ${f.approverName} in ${f.labName}.`,
+      `${what(f)} was approved by ${f.approverName} in ${quotedLabName(f.labName)}.`,
       `It is due for review by ${formatDate(f.reviewBy, f.timeZone)}.`,
       `What was approved: ${reviewUrl(f, appUrl)}`,
       "",
@@ -56,7 +57,7 @@ export function returnedMail(
   return {
     subject: `Forkwall: ${what(f)} was returned`,
     text: [
-      `${what(f)} was returned by ${f.returnerName} in ${f.labName}; it will not be approved.`,
+      `${what(f)} was returned by ${f.returnerName} in ${quotedLabName(f.labName)}; it will not be approved.`,
       `Reason: ${f.reason}`,
       "",
       `Change the chart and submit a new edition: ${chartUrl(f, appUrl)}`,

@@ -1,6 +1,7 @@
 // The e-mails a lab's managers (and educators who opted in) get about printed copies on the
 // wall: one digest per quiet period naming the rooms and copies to replace, and an all-clear once
 // every copy is current again. Pure: built from stored notices and the copies' statuses.
+import { quotedLabName } from "../templates";
 import type { StaleItem, StaleNotice } from "@/lib/editions/stale";
 
 export type { StaleItem, StaleNotice };
@@ -36,9 +37,9 @@ export function staleDigestMail(digest: Digest, appUrl: string): { subject: stri
   const rooms = [...new Set(digest.items.map((i) => i.room))].sort((a, b) =>
     a.localeCompare(b, "en", { numeric: true }),
   );
-  const subject = `Forkwall: ${n} wall printout${n > 1 ? "s" : ""} to replace in ${digest.labName}`;
+  const subject = `Forkwall: ${n} wall printout${n > 1 ? "s" : ""} to replace in ${quotedLabName(digest.labName)}`;
   const lines = [
-    `Printed charts on the wall in ${digest.labName} no longer match what is approved and must be replaced.`,
+    `Printed charts on the wall in ${quotedLabName(digest.labName)} no longer match what is approved and must be replaced.`,
     "",
     "What changed:",
     ...causeLines(digest.causes),
@@ -70,9 +71,9 @@ export function staleDigestMail(digest: Digest, appUrl: string): { subject: stri
 /** Every copy on the wall matches its approved edition again. */
 export function allClearMail(digest: Digest, appUrl: string): { subject: string; text: string } {
   return {
-    subject: `Forkwall: every wall printout in ${digest.labName} is current again`,
+    subject: `Forkwall: every wall printout in ${quotedLabName(digest.labName)} is current again`,
     text: [
-      `Every printed chart on the wall in ${digest.labName} matches its approved edition again; nothing needs replacing now.`,
+      `Every printed chart on the wall in ${quotedLabName(digest.labName)} matches its approved edition again; nothing needs replacing now.`,
       "",
       "What changed:",
       ...causeLines(digest.causes),

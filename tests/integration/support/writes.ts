@@ -13,6 +13,7 @@ import * as stock from "@/db/queries/stock";
 import { balloonFamilies, balloons } from "@/db/schema";
 import type { CsvRow } from "@/lib/stock/csv";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { acceptInvitationIn } from "@/lib/ops/accounts";
 import { accountWrite, labWrite } from "@/lib/ops/write";
 import { labWithTeam } from "./fixtures";
 
@@ -62,8 +63,8 @@ export function importBalloons(args: {
 export const revokeInvitation = inLab(invitations.revokeInvitation);
 
 /** Accepting belongs to no lab until the invitation is read: one plain transaction. */
-export function acceptInvitation(args: Parameters<typeof invitations.acceptInvitation>[1]) {
-  return accountWrite((tx) => invitations.acceptInvitation(tx, args));
+export function acceptInvitation(args: Parameters<typeof acceptInvitationIn>[1]) {
+  return accountWrite((tx) => acceptInvitationIn(tx, args));
 }
 
 /**

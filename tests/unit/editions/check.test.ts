@@ -131,7 +131,7 @@ describe("stale notice e-mail", () => {
       },
       "http://localhost:3000",
     );
-    expect(mail.subject).toBe("Forkwall: 2 wall printouts to replace in Test lab");
+    expect(mail.subject).toBe('Forkwall: 2 wall printouts to replace in "Test lab"');
     expect(mail.text).toContain("Rooms to visit: Control room, Room 1");
     expect(mail.text).toContain("Print edition 2: http://localhost:3000/api/v1/editions/42/pdf");
     expect(mail.text).toContain("http://localhost:3000/labs/test/charts/7");

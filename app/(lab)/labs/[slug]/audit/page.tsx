@@ -55,7 +55,8 @@ export default async function AuditPage({
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h1 className="text-xl font-bold">Audit log</h1>
         <p className="text-sm text-ink-faint">
-          Newest first. Includes sign-ins and password resets of the lab&apos;s current members.
+          Newest first. Only this lab&apos;s events: each person&apos;s sign-ins and password changes are on their own
+          account page.
         </p>
       </div>
       <AuditFilters

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { runAction, type ActionPayload, type ActionState } from "@/lib/http/action";
 import { updateLabSettings } from "@/lib/ops/lab-settings";
-import { createToken, revokeToken } from "@/lib/ops/tokens";
+import { createToken, reissueToken, revokeToken } from "@/lib/ops/tokens";
 
 // Every form names its lab in a hidden field `slug`; the operation checks the caller's role there.
 
@@ -43,5 +43,19 @@ export async function revokeTokenAction(_prev: ActionState, payload: ActionPaylo
     const revoked = await revokeToken(caller, { lab: String(slug), tokenId });
     revalidatePath(`/labs/${String(slug)}/settings`);
     return { ok: true, message: `Token "${revoked.name}" revoked: requests with it are refused from now on.` };
+  });
+}
+
+/** Re-issues a disabled token (`slug`, `tokenId`): same name and scopes, a new secret in `data.token`, shown once. */
+export async function reissueTokenAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, tokenId }) => {
+    const issued = await reissueToken(caller, { lab: String(slug), tokenId });
+    revalidatePath(`/labs/${String(slug)}/settings`);
+    return {
+      ok: true,
+      message: `Token "${issued.name}" re-issued. Copy the new secret now: it is shown only this once.`,
+      id: issued.id,
+      data: { token: issued.token, name: issued.name },
+    };
   });
 }
