@@ -38,7 +38,6 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
 
   return (
     <div className="mx-auto max-w-xl">
-      <h1 className="sr-only">Is this printout current?</h1>
       <LiveCheck token={token} initial={checkJson(view)} />
       {role ? (
         <>

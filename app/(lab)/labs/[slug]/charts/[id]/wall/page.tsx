@@ -3,7 +3,7 @@ import { WallGrid } from "@/components/charts/wall-grid";
 import { Caution } from "@/components/ui/caution";
 import { forPage, memberForPage } from "@/lib/auth/page-guard";
 import { snapshotGrids } from "@/lib/charts/snapshot";
-import { askLine } from "@/lib/editions/check-cells";
+import { askWho } from "@/lib/editions/action";
 import { formatDate } from "@/lib/format/dates";
 import { chartWall } from "@/lib/ops/charts";
 import { posterLegend } from "@/lib/poster/model";
@@ -52,11 +52,11 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
           {!current ? (
             <p className="mt-2 font-semibold text-ink">
               The lab&apos;s stock or settings changed since this edition was approved: some cells may no longer hold.
-              Confirm each size before use; {askLine(chart.contactLine).replace(/^No approved replacement yet: /, "")}
+              Confirm each size before use; {askWho(chart.contactLine)}.
             </p>
           ) : reviewDue ? (
             <p className="mt-2 font-semibold text-ink">
-              Its review date has passed: ask the lab&apos;s medical lead to review the chart before relying on it.
+              Its review date has passed: {askWho(chart.contactLine)} to review the chart before relying on it.
             </p>
           ) : null}
         </div>
@@ -67,7 +67,9 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
           data-status="none"
         >
           <p className="text-xl font-bold">No approved edition</p>
-          <p className="mt-1 text-ink">This chart has no approved numbers to show. {askLine(chart.contactLine)}</p>
+          <p className="mt-1 text-ink">
+            This chart has no approved numbers to show. No approved edition yet: {askWho(chart.contactLine)}.
+          </p>
         </div>
       )}
       <Caution className="mt-4" demo={member.lab.isDemo} />
