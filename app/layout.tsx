@@ -31,7 +31,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
           Skip to content
         </a>
         <SiteHeader />
-        <main id="main" className="mx-auto w-full max-w-page px-gutter py-8">
+        <main id="main" className="mx-auto w-full max-w-page px-3 py-3 sm:px-gutter sm:py-8">
           {children}
         </main>
       </body>
