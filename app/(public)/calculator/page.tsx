@@ -11,7 +11,7 @@ export default function CalculatorPage() {
   return (
     <div className="mx-auto max-w-2xl">
       <h1 className="text-2xl font-bold">Bifurcation calculator</h1>
-      <p className="mt-1 text-sm text-ink-soft">
+      <p className="mt-1 text-base text-ink-soft">
         Enter two of the three diameters measured by QCA, IVUS or OCT; the law gives the third.
       </p>
       <Calculator laws={laws} />
