@@ -25,7 +25,7 @@ export default {
         review: { DEFAULT: "#5b3a8c", soft: "#f1ebf8" },
       },
       fontFamily: {
-        sans: ["var(--font-sans)", "system-ui", "sans-serif"],
+        sans: ["Inter", "system-ui", "sans-serif"],
       },
       spacing: { gutter: "1.5rem", section: "3rem" },
       maxWidth: { page: "72rem" },
