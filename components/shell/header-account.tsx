@@ -6,6 +6,7 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
 import { signOutAction } from "@/lib/auth/actions";
 import { ROLE_LABELS, type Role } from "@/lib/permissions";
+import { forgetOfflinePages } from "@/components/offline/service-worker";
 import { useDismiss } from "./use-dismiss";
 
 type HeaderInfo = {
@@ -32,7 +33,11 @@ export function HeaderAccount() {
     let live = true;
     fetch("/api/v1/header", { cache: "no-store" })
       .then((res) => (res.ok ? res.json() : null))
-      .then((body: HeaderInfo | null) => live && setInfo(body ?? { user: null, labs: [], mailLink: false }))
+      .then((body: HeaderInfo | null) => {
+        // Answered, and nobody is signed in: kept lab pages leave the device.
+        if (body && !body.user) forgetOfflinePages();
+        if (live) setInfo(body ?? { user: null, labs: [], mailLink: false });
+      })
       .catch(() => live && setInfo({ user: null, labs: [], mailLink: false }));
     return () => {
       live = false;

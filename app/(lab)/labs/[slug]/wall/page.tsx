@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { OfflineNote } from "@/components/offline/offline-note";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Forbidden } from "@/components/ui/forbidden";
 import { memberForPage } from "@/lib/auth/page-guard";
@@ -16,6 +17,7 @@ export default async function WallChartsPage({ params }: { params: Promise<{ slu
   const tz = member.lab.timeZone;
   return (
     <div>
+      <OfflineNote />
       <h1 className="text-xl font-bold sm:text-2xl">Wall charts</h1>
       {rows.length === 0 ? (
         <div className="mt-4">

@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { WallGrid } from "@/components/charts/wall-grid";
+import { OfflineNote } from "@/components/offline/offline-note";
 import { Caution } from "@/components/ui/caution";
 import { forPage, memberForPage } from "@/lib/auth/page-guard";
 import { snapshotGrids } from "@/lib/charts/snapshot";
@@ -42,6 +43,7 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
 
   return (
     <div className="min-w-0">
+      <OfflineNote />
       <h1 className="text-xl font-bold leading-tight [overflow-wrap:anywhere] sm:text-2xl">{chart.title}</h1>
       {edition ? (
         <p
