@@ -35,15 +35,15 @@ export function CheckStatusView({ check }: { check: CheckJson }) {
         data-testid="check-verdict"
         data-action={check.action}
       >
-        <h1 className="flex items-center gap-3 text-[clamp(1.6rem,8.5vw,3rem)] font-bold leading-tight">
+        <div className="flex items-center gap-3 text-[clamp(1.6rem,8.5vw,3rem)] font-bold leading-tight">
           <span
             aria-hidden
             className="inline-flex h-11 w-11 shrink-0 items-center justify-center rounded-full border-4 border-current text-3xl"
           >
             {look.symbol}
           </span>
-          <span className="min-w-0 [overflow-wrap:anywhere]">{ACTION_HEADINGS[check.action]}</span>
-        </h1>
+          <h1 className="min-w-0 [overflow-wrap:anywhere]">{ACTION_HEADINGS[check.action]}</h1>
+        </div>
         <p className="mt-3 text-lg font-semibold text-ink" data-testid="check-action" data-action={check.action}>
           {actionSentence(check.action, {
             reviewBy: check.reviewBy ? new Date(check.reviewBy) : null,

@@ -30,7 +30,7 @@ export function OfflineNote() {
     <p
       role="status"
       data-testid="offline-note"
-      className="rounded-md border-l-4 border-warn bg-warn-soft px-3 py-1 text-base font-semibold text-ink"
+      className="mb-2 rounded-md border-l-4 border-warn bg-warn-soft px-3 py-1 text-base font-semibold text-ink"
     >
       {note}. The lab may have changed this since; check again when back online.
     </p>

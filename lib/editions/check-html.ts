@@ -57,7 +57,7 @@ main{max-width:40rem;margin:0 auto;padding:1rem 1rem 2rem}
 .review{border-style:dotted;border-color:#5b3a8c;background:#f1ebf8;color:#5b3a8c}
 .word{display:flex;align-items:center;gap:.6rem;margin:0;font-weight:700;line-height:1.1;font-size:clamp(1.6rem,8.5vw,3rem)}
 .sym{display:inline-flex;flex:none;align-items:center;justify-content:center;width:2.6rem;height:2.6rem;border:4px solid currentColor;border-radius:50%;font-size:1.6rem}
-.word span:last-child{min-width:0}
+.word h1{min-width:0;margin:0;font:inherit}
 .act{margin:.75rem 0 0;color:#17212b;font-size:1.15rem;font-weight:600}
 .status{margin:1rem 0 0}
 h2{margin:1.25rem 0 .25rem;font-size:1.05rem}
@@ -128,7 +128,7 @@ export function checkPageHtml(m: CheckPageModel): string {
   const date = m.dateLine ? ` · <span data-testid="check-date">${text(m.dateLine)}</span>` : "";
   const body = `<p class="meta">${escapeHtml(m.labName)} · ${escapeHtml(m.chartTitle)} · edition ${m.editionNumber}</p>
 <div class="box ${look.cls}" data-testid="check-verdict" data-action="${m.action}">
-<h1 class="word"><span class="sym" aria-hidden="true">${look.symbol}</span><span>${escapeHtml(m.heading)}</span></h1>
+<div class="word"><span class="sym" aria-hidden="true">${look.symbol}</span><h1>${escapeHtml(m.heading)}</h1></div>
 <p class="act" data-testid="check-action" data-action="${m.action}">${text(m.sentence)}</p>
 </div>
 <p class="status" data-testid="check-status" data-status="${m.status}">Status: <strong>${escapeHtml(m.statusWord)}</strong>${date}${

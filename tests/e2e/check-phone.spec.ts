@@ -83,7 +83,7 @@ for (const size of SIZES) {
       // The status word is shown whole: its box is not clipping it.
       const clipped = await page
         .getByTestId("check-verdict")
-        .locator("h1 span")
+        .locator("h1")
         .last()
         .evaluate((el) => el.scrollWidth > el.clientWidth + 1);
       expect(clipped, `${name}: status word clipped`).toBe(false);
