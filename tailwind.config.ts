@@ -22,9 +22,10 @@ export default {
         ok: { DEFAULT: "#1d5fa8", soft: "#e5effa" },
         warn: { DEFAULT: "#8a5300", soft: "#fdf1dc" },
         danger: { DEFAULT: "#a3261f", soft: "#fbe9e7" },
+        review: { DEFAULT: "#5b3a8c", soft: "#f1ebf8" },
       },
       fontFamily: {
-        sans: ["var(--font-sans)", "system-ui", "sans-serif"],
+        sans: ["Inter", "system-ui", "sans-serif"],
       },
       spacing: { gutter: "1.5rem", section: "3rem" },
       maxWidth: { page: "72rem" },

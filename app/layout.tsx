@@ -1,6 +1,7 @@
 import type { Metadata, Viewport } from "next";
+import { ServiceWorker } from "@/components/offline/service-worker";
 import { SiteHeader } from "@/components/shell/site-header";
-import { inter } from "./fonts";
+import { preload } from "react-dom";
 import "./globals.css";
 
 export const metadata: Metadata = {
@@ -21,8 +22,10 @@ export const metadata: Metadata = {
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#164f5d" };
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page sets its text in the regular weight; bold and semibold load when a page uses them.
+  preload("/fonts/inter-400.woff2", { as: "font", type: "font/woff2", crossOrigin: "anonymous" });
   return (
-    <html lang="en" className={inter.variable}>
+    <html lang="en">
       <body className="min-h-screen bg-paper font-sans text-ink antialiased">
         <a
           href="#main"
@@ -31,7 +34,8 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
           Skip to content
         </a>
         <SiteHeader />
-        <main id="main" className="mx-auto w-full max-w-page px-gutter py-8">
+        <ServiceWorker />
+        <main id="main" className="mx-auto w-full max-w-page px-3 py-3 sm:px-gutter sm:py-8">
           {children}
         </main>
       </body>

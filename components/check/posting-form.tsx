@@ -58,7 +58,7 @@ export function PostingForm({
               <select
                 value={roomId}
                 onChange={(e) => setRoomId(Number(e.target.value))}
-                className="mt-1 block rounded-md border border-line-strong bg-white px-3 py-2"
+                className="mt-1 block min-h-11 rounded-md border border-line-strong bg-white px-3 py-2"
               >
                 {rooms.map((r) => (
                   <option key={r.id} value={r.id}>

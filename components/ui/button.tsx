@@ -8,7 +8,7 @@ const VARIANTS = {
 } as const;
 
 export function buttonClass(variant: keyof typeof VARIANTS = "primary", extra = ""): string {
-  return `inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed ${VARIANTS[variant]} ${extra}`;
+  return `inline-flex min-h-11 items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed ${VARIANTS[variant]} ${extra}`;
 }
 
 export function Button({

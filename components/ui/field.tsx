@@ -4,7 +4,7 @@ import type { ComponentProps, ReactNode } from "react";
 // controls, ties hint and error to them for screen readers, and names errors in words.
 
 export const inputClass =
-  "mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2 text-ink disabled:bg-paper-sunk aria-[invalid=true]:border-danger";
+  "mt-1 min-h-11 w-full rounded-md border border-line-strong bg-white px-3 py-2 text-ink disabled:bg-paper-sunk aria-[invalid=true]:border-danger";
 
 type Common = { label: ReactNode; error?: string; hint?: ReactNode; className?: string };
 

@@ -1,52 +1,29 @@
 import "server-only";
 import { and, desc, eq, ne, sql } from "drizzle-orm";
-import { sameClinical } from "@/lib/charts/clinical";
 import type { Snapshot } from "@/lib/charts/snapshot";
-import { copyAction, type CopyAction } from "@/lib/editions/action";
-import { checkEdition, type CheckStatus, type Reworded } from "@/lib/editions/check";
-import type { Change } from "@/lib/charts/changes";
+import type { CheckRows } from "@/lib/editions/verdict";
 import { db } from "../index";
 import { charts, editions, labs } from "../schema";
 
-export type CheckView = {
-  status: CheckStatus;
-  action: CopyAction;
-  reviewBy: Date | null;
-  since: Date | null;
-  edition: { id: number; number: number; approvedAt: Date | null; shortCode: string };
-  chart: { id: number; title: string };
-  lab: {
-    id: number;
-    slug: string;
-    name: string;
-    isDemo: boolean;
-    timeZone: string;
-    numberFormat: "point" | "comma";
-    contactLine: string | null;
-  };
-  changes: Change[];
-  currentEdition: { id: number; number: number; approvedAt: Date | null } | null;
-  /** An edition that only rewords this copy (its clinical content is the same), when one exists. */
-  reworded: Reworded | null;
-  /** The snapshots the check page compares cell by cell (lib/editions/check-cells.ts). */
-  snapshots: { printed: Snapshot; current: Snapshot | null; live: Snapshot | null };
-};
+export type { CheckRows };
 
-/**
- * Everything the public check page shows for one QR token: no personal data. Every column this
- * reads is also in getCheckVersion (snapshots through their fingerprints), so a page cached
- * under that version is the page this would build.
- */
-export async function getCheckByToken({
-  token,
-  now = new Date(),
-}: {
-  token: string;
-  now?: Date;
-}): Promise<CheckView | null> {
-  const [row] = await db
+const editionRow = (token: string) =>
+  db
     .select({
-      edition: editions,
+      edition: {
+        id: editions.id,
+        chartId: editions.chartId,
+        number: editions.number,
+        status: editions.status,
+        fingerprint: editions.fingerprint,
+        snapshot: editions.snapshot,
+        shortCode: editions.shortCode,
+        createdAt: editions.createdAt,
+        approvedAt: editions.approvedAt,
+        supersededAt: editions.supersededAt,
+        withdrawnAt: editions.withdrawnAt,
+        reviewBy: editions.reviewBy,
+      },
       chart: {
         id: charts.id,
         title: charts.title,
@@ -69,8 +46,10 @@ export async function getCheckByToken({
     .innerJoin(charts, eq(charts.id, editions.chartId))
     .innerJoin(labs, eq(labs.id, editions.labId))
     .where(eq(editions.checkToken, token));
-  if (!row) return null;
-  const [current] = await db
+
+/** The chart's newest approved edition other than `editionId`. */
+const otherApproved = (chartId: number, editionId: number) =>
+  db
     .select({
       id: editions.id,
       number: editions.number,
@@ -79,71 +58,37 @@ export async function getCheckByToken({
       snapshot: editions.snapshot,
     })
     .from(editions)
-    .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "approved"), ne(editions.id, row.edition.id)))
+    .where(and(eq(editions.chartId, chartId), eq(editions.status, "approved"), ne(editions.id, editionId)))
     .orderBy(desc(editions.number))
     .limit(1);
-  const [draft] = await db
+
+const newestDraft = (chartId: number) =>
+  db
     .select({ number: editions.number, fingerprint: editions.fingerprint, snapshot: editions.snapshot })
     .from(editions)
-    .where(and(eq(editions.chartId, row.chart.id), eq(editions.status, "draft")))
+    .where(and(eq(editions.chartId, chartId), eq(editions.status, "draft")))
     .orderBy(desc(editions.number))
     .limit(1);
-  const liveSnapshot = row.chart.liveSnapshot as Snapshot | null;
-  const result = checkEdition(
-    { ...row.edition, snapshot: row.edition.snapshot as Snapshot },
-    { liveFingerprint: row.chart.liveFingerprint, liveSnapshot, archivedAt: row.chart.archivedAt },
-    current ? { ...current, snapshot: current.snapshot as Snapshot } : null,
-    draft ? { ...draft, snapshot: draft.snapshot as Snapshot } : null,
-  );
-  // An archived chart has nothing to replace its copies with: they come down.
-  const archived = row.chart.archivedAt !== null;
-  const since =
-    result.status === "withdrawn"
-      ? (row.edition.withdrawnAt ?? row.chart.archivedAt)
-      : result.status === "superseded"
-        ? row.edition.supersededAt
-        : result.status === "outdated"
-          ? row.chart.liveChangedAt
-          : result.status === "current"
-            ? row.edition.approvedAt
-            : row.edition.createdAt;
-  const action = copyAction({
-    status: result.status,
-    reviewBy: row.edition.reviewBy,
-    replacement:
-      current && !archived
-        ? {
-            number: current.number,
-            // A replacement that only rewords today's chart still prints today's clinical content.
-            matchesToday:
-              current.fingerprint === row.chart.liveFingerprint ||
-              (liveSnapshot !== null && sameClinical(current.snapshot as Snapshot, liveSnapshot)),
-          }
-        : null,
-    now,
-  });
+
+/**
+ * The rows the public check of one QR token reads (lib/editions/verdict.ts decides from them);
+ * no personal data. Every column this reads is also in getCheckVersion (snapshots through their
+ * fingerprints), so a page cached under that version is the page these rows would build.
+ */
+export async function readCheckRows({ token }: { token: string }): Promise<CheckRows | null> {
+  const [row] = await editionRow(token);
+  if (!row) return null;
+  const [[current], [draft]] = await Promise.all([
+    otherApproved(row.chart.id, row.edition.id),
+    newestDraft(row.chart.id),
+  ]);
+  const snap = (s: unknown) => s as Snapshot;
   return {
-    status: result.status,
-    action,
-    reviewBy: row.edition.reviewBy,
-    since,
-    edition: {
-      id: row.edition.id,
-      number: row.edition.number,
-      approvedAt: row.edition.approvedAt,
-      shortCode: row.edition.shortCode,
-    },
-    chart: { id: row.chart.id, title: row.chart.title },
+    edition: { ...row.edition, snapshot: snap(row.edition.snapshot) },
+    chart: { ...row.chart, liveSnapshot: row.chart.liveSnapshot as Snapshot | null },
     lab: row.lab,
-    changes: result.changes,
-    currentEdition:
-      current && !archived ? { id: current.id, number: current.number, approvedAt: current.approvedAt } : null,
-    reworded: result.reworded ?? null,
-    snapshots: {
-      printed: row.edition.snapshot as Snapshot,
-      current: current && !archived ? (current.snapshot as Snapshot) : null,
-      live: row.chart.liveSnapshot as Snapshot | null,
-    },
+    current: current ? { ...current, snapshot: snap(current.snapshot) } : null,
+    draft: draft ? { ...draft, snapshot: snap(draft.snapshot) } : null,
   };
 }
 
@@ -159,7 +104,7 @@ export async function getCheckTokenByShortCode({ code }: { code: string }): Prom
 
 /**
  * What the check page for this token depends on, in one indexed query without the snapshots
- * (each snapshot is stood for by its SHA-256 fingerprint): the page built by getCheckByToken
+ * (each snapshot is stood for by its SHA-256 fingerprint): the page built from readCheckRows
  * is the same for as long as this string is, except for the review-by date passing
  * (lib/http/check-page.ts keys on that too). Null for an unknown token.
  */

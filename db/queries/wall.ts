@@ -38,14 +38,27 @@ export async function getWallEdition({ labId, chartId }: { labId: number; chartI
   };
 }
 
-/** The lab's charts (not archived) as they resolve against today's stock, for the calculator. */
-export async function listLiveCharts({ labIds }: { labIds: number[] }) {
+/** The labs' charts (not archived) with their approved edition, for the calculator; newest edition first per chart. */
+export async function listApprovedCharts({ labIds }: { labIds: number[] }) {
   if (labIds.length === 0) return [];
   return db
-    .select({ id: charts.id, labId: charts.labId, title: charts.title, liveSnapshot: charts.liveSnapshot })
+    .select({
+      id: charts.id,
+      labId: charts.labId,
+      title: charts.title,
+      liveFingerprint: charts.liveFingerprint,
+      liveSnapshot: charts.liveSnapshot,
+      edition: {
+        number: editions.number,
+        approvedAt: editions.approvedAt,
+        fingerprint: editions.fingerprint,
+        snapshot: editions.snapshot,
+      },
+    })
     .from(charts)
+    .innerJoin(editions, and(eq(editions.chartId, charts.id), eq(editions.status, "approved")))
     .where(and(inArray(charts.labId, labIds), isNull(charts.archivedAt)))
-    .orderBy(asc(charts.title));
+    .orderBy(asc(charts.title), desc(editions.number));
 }
 
 /** The labs a person belongs to, for the calculator's lab picker. */

@@ -33,6 +33,33 @@ export function cellText(cell: PrintedCell): CellText {
   return { text, marks: cell.marks };
 }
 
+const MARK_WORDS: Readonly<Record<GridMark, string>> = {
+  "not-bifurcation": "no size",
+  "below-stock": "below stock",
+  "above-stock": "above stock",
+  "stent-limit": "stent limit",
+  oversize: "above the rounding cap",
+  undersize: "below the rounding cap",
+  "outside-fit": "outside published fit",
+};
+
+/** The cell with its small print (exact diameter, marks) spelled out: for two cells whose large figure is the same. */
+function fullText(cell: PrintedCell, base: CellText): CellText {
+  const extra = [
+    cell.exact && !base.text.includes(`exact ${cell.exact}`) ? `exact ${cell.exact} mm` : null,
+    ...cell.marks.filter((m) => m !== "not-bifurcation").map((m) => MARK_WORDS[m]),
+  ].filter(Boolean);
+  return extra.length ? { text: `${base.text} (${extra.join(", ")})`, marks: base.marks } : base;
+}
+
+/** Both sides in words; the small print is added only where the large print alone reads the same. */
+function sideTexts(after: PrintedCell, before: PrintedCell | null): { printed: CellText; other: CellText | null } {
+  const printed = cellText(after);
+  const other = before ? cellText(before) : null;
+  if (!before || !other || other.text !== printed.text) return { printed, other };
+  return { printed: fullText(after, printed), other: fullText(before, other) };
+}
+
 const VESSEL_WORDS: Readonly<Record<Vessel, string>> = { parent: "Parent", mb: "Main branch", sb: "Side branch" };
 
 /**
@@ -49,6 +76,9 @@ export function diffCells(printed: Snapshot, other: Snapshot | null): CellDiff[]
   return diffPrinted(other, printed).flatMap((d) => {
     const l = lookups.get(d.lookup);
     if (!d.after || !l) return [];
+    const texts = sideTexts(d.after, d.before);
+    // Only what a reader can see differ is listed.
+    if (texts.other && texts.other.text === texts.printed.text) return [];
     return [
       {
         lookupIndex: l.index,
@@ -58,8 +88,7 @@ export function diffCells(printed: Snapshot, other: Snapshot | null): CellDiff[]
         row: d.row,
         col: d.col,
         where: `${VESSEL_WORDS[l.rowVessel]} ${formatAxisMm(d.row)} mm × ${VESSEL_WORDS[l.colVessel].toLowerCase()} ${formatAxisMm(d.col)} mm`,
-        printed: cellText(d.after),
-        other: d.before ? cellText(d.before) : null,
+        ...texts,
       },
     ];
   });

@@ -35,25 +35,50 @@ export function copyAction({ status, reviewBy, replacement, now }: ActionInput):
   return "take-down";
 }
 
-/** The one sentence the check page shows for the action; with `timeZone`, dates read 2026-12-02 in it. */
+/** The check page's first heading: what to do with the copy, in a few words. */
+export const ACTION_HEADINGS: Readonly<Record<CopyAction, string>> = {
+  keep: "Keep this copy",
+  replace: "Replace this copy",
+  "take-down": "Take this copy down",
+  review: "Have this copy reviewed",
+};
+
+/** Whom to ask, from the lab's contact line (settings); the line may already start with "ask". */
+export function askWho(contactLine: string | null): string {
+  const who = contactLine?.trim().replace(/[.\s]+$/, "") || "the lab's manager";
+  return /^ask\b/i.test(who) ? who : `ask ${who}`;
+}
+
+/**
+ * The one sentence under the heading: why, and the one person to ask when someone must act.
+ * With `timeZone`, dates read 2026-12-02 in it.
+ */
 export function actionSentence(
   action: CopyAction,
-  v: { reviewBy: Date | null; replacement: { number: number } | null; timeZone?: string },
+  v: {
+    reviewBy: Date | null;
+    replacement: { number: number; approvedAt?: Date | null } | null;
+    timeZone?: string;
+    contactLine?: string | null;
+  },
 ): string {
   const day = (d: Date) =>
     v.timeZone
       ? formatDate(d, v.timeZone)
       : d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+  const ask = askWho(v.contactLine ?? null);
   switch (action) {
     case "keep":
       return v.reviewBy
-        ? `Keep this printout on the wall: it matches the lab's stock and rules today and is due for review by ${day(v.reviewBy)}.`
-        : "Keep this printout on the wall: it matches the lab's stock and rules today.";
-    case "replace":
-      return `Replace this printout with edition ${v.replacement?.number ?? "the current edition"}, the lab's current approved edition, and discard this copy.`;
+        ? `It matches the lab's stock and rules today; review due by ${day(v.reviewBy)}.`
+        : "It matches the lab's stock and rules today.";
+    case "replace": {
+      const approved = v.replacement?.approvedAt ? ` (approved ${day(v.replacement.approvedAt)})` : "";
+      return `Put up edition ${v.replacement?.number ?? "the current edition"}${approved}, the lab's current approved edition, in its place.`;
+    }
     case "take-down":
-      return "Take this printout down: no approved edition replaces it yet, so ask the lab's medical lead or manager for one.";
+      return `No approved replacement yet: ${ask}.`;
     case "review":
-      return `This printout was due for review by ${v.reviewBy ? day(v.reviewBy) : "an earlier date"}: ask the lab's medical lead to review the chart before relying on it.`;
+      return `Its review date (${v.reviewBy ? day(v.reviewBy) : "an earlier date"}) has passed: ${ask} to review the chart before relying on it.`;
   }
 }

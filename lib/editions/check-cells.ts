@@ -32,9 +32,3 @@ export function checkCells(v: {
     return { kind: "affected", cells: diffCells(v.snapshots.printed, v.snapshots.live) };
   return { kind: "none" };
 }
-
-/** "no approved replacement yet: ask <the lab's contact line>"; the lab's contact may already start with "ask". */
-export function askLine(contactLine: string | null): string {
-  const who = contactLine?.trim() || "the lab's medical lead or manager";
-  return `No approved replacement yet: ${/^ask\b/i.test(who) ? who : `ask ${who}`}.`.replace(/\.\.$/, ".");
-}

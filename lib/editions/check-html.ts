@@ -10,9 +10,15 @@ import type { CheckCells } from "./check-cells";
 export type CheckPageModel = {
   status: CheckStatus;
   action: CopyAction;
-  headline: string;
+  /** The first heading: "Keep this copy", ... (ACTION_HEADINGS). */
+  heading: string;
+  /** The status in a word or two: "Superseded". */
+  statusWord: string;
+  /** Said only for a copy of a withdrawn or never-approved edition. */
+  warning: string | null;
   /** "Approved 2026-12-02", in the lab's time zone; null when there is no date. */
   dateLine: string | null;
+  /** Why, and the one person to ask when someone must act (actionSentence). */
   sentence: string;
   labName: string;
   chartTitle: string;
@@ -21,8 +27,7 @@ export type CheckPageModel = {
   shortCode: string;
   changes: string[];
   cells: CheckCells;
-  /** "No approved replacement yet: ask ..."; null unless the copy must come down. */
-  ask: string | null;
+  /** The chart's current edition, when the sentence has not already named it. */
   currentLine: string | null;
   /** "A reworded edition is available (...)": only wording or layout differs; null when none. */
   reworded: string | null;
@@ -30,44 +35,48 @@ export type CheckPageModel = {
   signInHref: string;
 };
 
-// A symbol and a word for every status: colour is never the only signal.
-const LOOK: Record<CheckStatus, { symbol: string; cls: string }> = {
-  current: { symbol: "✓", cls: "ok" },
-  outdated: { symbol: "!", cls: "warn" },
-  superseded: { symbol: "↻", cls: "warn" },
-  withdrawn: { symbol: "✕", cls: "bad" },
-  draft: { symbol: "✎", cls: "bad" },
+// One colour, symbol and border per action: in greyscale the symbol, the border and the words still tell them apart.
+export const ACTION_LOOK: Readonly<Record<CopyAction, { symbol: string; cls: string }>> = {
+  keep: { symbol: "✓", cls: "keep" },
+  replace: { symbol: "↻", cls: "replace" },
+  "take-down": { symbol: "✕", cls: "down" },
+  review: { symbol: "?", cls: "review" },
 };
 
 const STYLE = `*{box-sizing:border-box}
 html{-webkit-text-size-adjust:100%}
-body{margin:0;background:#f7f8f6;color:#17212b;font-family:system-ui,-apple-system,"Segoe UI",Roboto,sans-serif;line-height:1.5;overflow-wrap:anywhere}
+body{margin:0;background:#f7f8f6;color:#17212b;font-family:system-ui,-apple-system,"Segoe UI",Roboto,sans-serif;font-size:1rem;line-height:1.5;overflow-wrap:anywhere}
 header{border-bottom:1px solid #d5dbdf;background:#fff}
-header a{display:block;max-width:40rem;margin:0 auto;padding:.6rem 1rem;color:#113d48;font-weight:700;font-size:1.1rem;text-decoration:none}
+header a{display:flex;align-items:center;min-height:44px;max-width:40rem;margin:0 auto;padding:0 1rem;color:#113d48;font-weight:700;font-size:1.1rem;text-decoration:none}
 main{max-width:40rem;margin:0 auto;padding:1rem 1rem 2rem}
-.meta{margin:0;color:#3d4b59;font-size:.9rem}
+.meta{margin:0;color:#3d4b59}
 .box{margin-top:.75rem;border:4px solid;border-radius:.75rem;padding:1rem}
-.ok{border-color:#1d5fa8;background:#e5effa;color:#1d5fa8}
-.warn{border-color:#8a5300;background:#fdf1dc;color:#8a5300}
-.bad{border-color:#a3261f;background:#fbe9e7;color:#a3261f}
-.word{display:flex;align-items:center;gap:.6rem;margin:0;font-weight:700;line-height:1.05;font-size:clamp(1.6rem,9vw,3.25rem)}
+.keep{border-style:solid;border-color:#1d5fa8;background:#e5effa;color:#1d5fa8}
+.replace{border-style:dashed;border-color:#8a5300;background:#fdf1dc;color:#8a5300}
+.down{border-style:double;border-width:7px;border-color:#a3261f;background:#fbe9e7;color:#a3261f}
+.review{border-style:dotted;border-color:#5b3a8c;background:#f1ebf8;color:#5b3a8c}
+.word{display:flex;align-items:center;gap:.6rem;margin:0;font-weight:700;line-height:1.1;font-size:clamp(1.6rem,8.5vw,3rem)}
 .sym{display:inline-flex;flex:none;align-items:center;justify-content:center;width:2.6rem;height:2.6rem;border:4px solid currentColor;border-radius:50%;font-size:1.6rem}
-.word span:last-child{min-width:0}
-.date{margin:.6rem 0 0;color:#17212b;font-weight:500}
-.act{margin:1rem 0 0;font-size:1.15rem;font-weight:600}
-h2{margin:1.25rem 0 .25rem;font-size:1rem}
+.word h1{min-width:0;margin:0;font:inherit}
+.act{margin:.75rem 0 0;color:#17212b;font-size:1.15rem;font-weight:600}
+.status{margin:1rem 0 0}
+h2{margin:1.25rem 0 .25rem;font-size:1.05rem}
 ul{margin:.25rem 0 0;padding-left:1.2rem}
 li{margin-top:.35rem}
 .cells{list-style:none;padding:0}
 .cells li{border:1px solid #d5dbdf;border-radius:.5rem;background:#fff;padding:.5rem .75rem}
 .where{display:block;font-weight:600}
 del{color:#a3261f;text-decoration-thickness:2px}
-.ask{margin:1rem 0 0;border-left:4px solid #a3261f;padding:.25rem .75rem;font-weight:600}
-.code{margin:1rem 0 0;color:#3d4b59;font-size:.9rem}
+.code{margin:1rem 0 0;color:#3d4b59}
 .code b{font-family:ui-monospace,monospace;letter-spacing:.05em;color:#17212b}
-.note{margin-top:1.5rem;border:1px solid rgba(138,83,0,.4);border-radius:.4rem;background:#fdf1dc;padding:.75rem 1rem;font-size:.9rem}
-.soft{color:#3d4b59;font-size:.9rem}
+.note{margin-top:1.5rem;border:1px solid rgba(138,83,0,.4);border-radius:.4rem;background:#fdf1dc;padding:.75rem 1rem}
+.soft{color:#3d4b59}
 a{color:#164f5d}
+.btn{display:inline-flex;align-items:center;min-height:44px;min-width:44px;padding:0 .75rem;border:1px solid #a9b4bc;border-radius:.4rem;background:#fff;font-weight:600}
+form{display:flex;flex-wrap:wrap;gap:.5rem;align-items:flex-end;margin-top:1rem}
+label{display:block;width:100%;font-weight:600}
+input{min-height:44px;flex:1 1 10rem;min-width:0;padding:0 .75rem;border:1px solid #66727f;border-radius:.4rem;font:inherit;font-family:ui-monospace,monospace;text-transform:uppercase}
+button{min-height:44px;min-width:44px;padding:0 1rem;border:0;border-radius:.4rem;background:#164f5d;color:#fff;font:inherit;font-weight:600}
 .d{white-space:nowrap}`;
 
 export const escapeHtml = (s: string) =>
@@ -108,39 +117,49 @@ function cellsSection(cells: CheckCells): string {
 <ul class="cells" data-testid="check-cells" data-kind="affected">${cells.cells.map((c) => cellItem(c, "affected")).join("")}</ul></section>`;
 }
 
-/** The check page for one copy. */
+/** The check page for one copy: the action first, then the status and the reasons, each once. */
 export function checkPageHtml(m: CheckPageModel): string {
-  const look = LOOK[m.status];
+  const look = ACTION_LOOK[m.action];
   const changes = m.changes.length
     ? `<section aria-labelledby="changes-h"><h2 id="changes-h">What changed</h2><ul data-testid="check-changes">${m.changes
         .map((c) => `<li>${text(c)}</li>`)
         .join("")}</ul></section>`
     : "";
-  const body = `<h1 style="position:absolute;width:1px;height:1px;overflow:hidden;clip:rect(0 0 0 0)">Is this printout current?</h1>
-<p class="meta">${escapeHtml(m.labName)} · ${escapeHtml(m.chartTitle)} · edition ${m.editionNumber}</p>
-<div class="box ${look.cls}" data-testid="check-status" data-status="${m.status}">
-<p class="word"><span class="sym" aria-hidden="true">${look.symbol}</span><span>${escapeHtml(m.headline)}</span></p>
-${m.dateLine ? `<p class="date" data-testid="check-date">${text(m.dateLine)}</p>` : ""}
-</div>
+  const date = m.dateLine ? ` · <span data-testid="check-date">${text(m.dateLine)}</span>` : "";
+  const body = `<p class="meta">${escapeHtml(m.labName)} · ${escapeHtml(m.chartTitle)} · edition ${m.editionNumber}</p>
+<div class="box ${look.cls}" data-testid="check-verdict" data-action="${m.action}">
+<div class="word"><span class="sym" aria-hidden="true">${look.symbol}</span><h1>${escapeHtml(m.heading)}</h1></div>
 <p class="act" data-testid="check-action" data-action="${m.action}">${text(m.sentence)}</p>
-${m.ask ? `<p class="ask" data-testid="check-ask">${escapeHtml(m.ask)}</p>` : ""}
+</div>
+<p class="status" data-testid="check-status" data-status="${m.status}">Status: <strong>${escapeHtml(m.statusWord)}</strong>${date}${
+    m.warning ? ` <strong data-testid="check-warning">${escapeHtml(m.warning)}</strong>` : ""
+  }</p>
 ${m.reworded ? `<p data-testid="check-reworded">${text(m.reworded)}</p>` : ""}
 ${cellsSection(m.cells)}
 ${changes}
 ${m.currentLine ? `<p class="soft">${text(m.currentLine)}</p>` : ""}
 <p class="code">Code on this copy: <b data-testid="check-code">${escapeHtml(m.shortCode)}</b></p>
-<p class="soft">Lab members can <a href="${escapeHtml(m.signInHref)}">sign in</a> to record where this copy hangs or to print the current edition.</p>
+<p class="soft">Lab members can sign in to record where this copy hangs or to print the current edition.</p>
+<p><a class="btn" href="${escapeHtml(m.signInHref)}">Sign in</a></p>
 ${caution(m.isDemo)}`;
-  return shell("Is this printout current?", body);
+  return shell(`${m.heading} · Is this printout current?`, body);
 }
 
-/** The one answer for a malformed token, an unknown token, a malformed short code and an unknown one. */
-export function unknownCodeHtml(): string {
+/** The form that sends a typed code to /c (app/(public)/c/route.ts). */
+export const codeForm = (typed = "") =>
+  `<form action="/c" method="get" data-testid="code-form"><label for="code">Code under the QR code on the printout</label>
+<input id="code" name="code" value="${escapeHtml(typed.slice(0, 40))}" autocomplete="off" autocapitalize="characters" spellcheck="false" inputmode="text" maxlength="40" required><button type="submit">Check</button></form>`;
+
+/**
+ * The one answer for a malformed or unknown token or short code. A mistyped code is the likely
+ * cause, so it offers the field again rather than calling the printout untrustworthy.
+ */
+export function unknownCodeHtml(typed = ""): string {
   return shell(
-    "Not a Forkwall poster",
-    `<div class="box bad" role="alert" data-testid="check-unknown"><p class="word" style="font-size:clamp(1.4rem,7vw,2.25rem)"><span class="sym" aria-hidden="true">✕</span><span>Unverified</span></p>
-<h1 style="margin:.5rem 0 0;font-size:1.2rem;color:#17212b">This code is not a Forkwall poster</h1>
-<p style="color:#17212b">No chart edition has this code. Do not rely on the printout that carries it: ask your lab for its current approved chart.</p></div>
+    "No printout has this code",
+    `<div data-testid="check-unknown"><h1 style="margin:0;font-size:1.6rem;line-height:1.2">No printout has this code</h1>
+<p>Check the code printed under the QR code (8 letters and digits, like K7QM-2XHD) and type it again.</p>
+${codeForm(typed)}</div>
 <aside class="note" role="note" aria-label="Clinical caution"><strong>Caution: </strong>${escapeHtml(CAUTION_TEXT)}</aside>`,
   );
 }

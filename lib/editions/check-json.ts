@@ -13,7 +13,8 @@ export type CheckJson = {
   edition: { number: number; approvedAt: string | null };
   chart: { title: string };
   /** `timeZone`: the lab's IANA zone, in which pages show these dates (lib/format/dates.ts). */
-  lab: { name: string; timeZone: string };
+  /** `contactLine`: whom the lab's manager says to ask (settings), or null for the default. */
+  lab: { name: string; timeZone: string; contactLine: string | null };
   changes: Change[];
   currentEdition: { number: number; approvedAt: string | null } | null;
   /** True when an edition that only rewords this copy exists (same clinical content); it is named below. */
@@ -28,7 +29,7 @@ export function checkJson(v: {
   since: Date | null;
   edition: { number: number; approvedAt: Date | null };
   chart: { title: string };
-  lab: { name: string; timeZone?: string };
+  lab: { name: string; timeZone?: string; contactLine?: string | null };
   changes: Change[];
   currentEdition: { number: number; approvedAt: Date | null } | null;
   reworded?: Reworded | null;
@@ -40,7 +41,7 @@ export function checkJson(v: {
     since: v.since?.toISOString() ?? null,
     edition: { number: v.edition.number, approvedAt: v.edition.approvedAt?.toISOString() ?? null },
     chart: { title: v.chart.title },
-    lab: { name: v.lab.name, timeZone: v.lab.timeZone ?? DEFAULT_TIME_ZONE },
+    lab: { name: v.lab.name, timeZone: v.lab.timeZone ?? DEFAULT_TIME_ZONE, contactLine: v.lab.contactLine ?? null },
     changes: v.changes.map((c) => ({ kind: c.kind, detail: c.detail })),
     currentEdition: v.currentEdition
       ? { number: v.currentEdition.number, approvedAt: v.currentEdition.approvedAt?.toISOString() ?? null }

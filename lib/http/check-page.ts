@@ -1,11 +1,12 @@
 import "server-only";
-import { getCheckByToken, getCheckTokenByShortCode, getCheckVersion, type CheckView } from "@/db/queries/check";
+import { getCheckTokenByShortCode, getCheckVersion } from "@/db/queries/check";
+import { getCheckByToken, type CheckView } from "@/lib/ops/check";
 import { isRateLimited, limitPublic, type PublicKind } from "@/lib/auth/public-limit";
 import { addressOf } from "@/lib/auth/request-address";
-import { actionSentence } from "@/lib/editions/action";
+import { ACTION_HEADINGS, actionSentence } from "@/lib/editions/action";
 import { CHECK_HEADLINES } from "@/lib/editions/check";
 import { rewordedSentence } from "@/lib/editions/check-json";
-import { askLine, checkCells } from "@/lib/editions/check-cells";
+import { checkCells } from "@/lib/editions/check-cells";
 import { checkPageHtml, rateLimitedHtml, unknownCodeHtml, type CheckPageModel } from "@/lib/editions/check-html";
 import { formatShortCode, parseShortCode } from "@/lib/editions/short-code";
 import { isDatabaseUnreachable } from "@/lib/errors";
@@ -27,19 +28,27 @@ export function checkPageModel(view: CheckView, token: string): CheckPageModel {
   return {
     status: view.status,
     action: view.action,
-    headline: CHECK_HEADLINES[view.status],
+    heading: ACTION_HEADINGS[view.action],
+    statusWord: CHECK_HEADLINES[view.status],
+    warning: view.status === "withdrawn" || view.status === "draft" ? "Do not rely on this printout's numbers." : null,
     dateLine: view.since ? `${label} ${formatDate(view.since, tz)}` : null,
-    sentence: actionSentence(view.action, { reviewBy: view.reviewBy, replacement: current, timeZone: tz }),
+    sentence: actionSentence(view.action, {
+      reviewBy: view.reviewBy,
+      replacement: current,
+      timeZone: tz,
+      contactLine: view.lab.contactLine,
+    }),
     labName: view.lab.name,
     chartTitle: view.chart.title,
     editionNumber: view.edition.number,
     shortCode: formatShortCode(view.edition.shortCode),
     changes: view.changes.map((c) => c.detail),
     cells: checkCells(view),
-    ask: view.action === "take-down" ? askLine(view.lab.contactLine) : null,
-    currentLine: current
-      ? `The current edition of this chart is edition ${current.number}${current.approvedAt ? `, approved ${formatDate(current.approvedAt, tz)}` : ""}.`
-      : null,
+    // The replace sentence already names the current edition.
+    currentLine:
+      current && view.action !== "replace"
+        ? `The current edition of this chart is edition ${current.number}${current.approvedAt ? `, approved ${formatDate(current.approvedAt, tz)}` : ""}.`
+        : null,
     reworded: view.reworded ? rewordedSentence(view.reworded) : null,
     isDemo: view.lab.isDemo,
     signInHref: `/sign-in?callbackUrl=${encodeURIComponent(`/v/${token}/lab`)}`,
@@ -61,7 +70,7 @@ const htmlReply = (body: string, status: number, extra: Record<string, string> =
   body,
 });
 
-const unknown = () => htmlReply(unknownCodeHtml(), 404);
+const unknown = (typed?: string) => htmlReply(unknownCodeHtml(typed), 404);
 
 /** Runs a public lookup under the per-address limit, answering 429 / 503 pages itself. */
 async function guarded(headers: Headers, kind: PublicKind, fn: () => Promise<Reply>): Promise<Reply> {
@@ -146,10 +155,10 @@ export async function checkPageReply(headers: Headers, token: string): Promise<R
 /** GET /c/<code>: the typed short code leads to the same check page as the QR code. */
 export async function shortCodeReply(headers: Headers, input: string): Promise<Reply> {
   const code = parseShortCode(input);
-  if (!code) return unknown();
+  if (!code) return unknown(input);
   return guarded(headers, "short-code", async () => {
     const token = await getCheckTokenByShortCode({ code });
-    if (!token) return unknown();
+    if (!token) return unknown(input);
     return { status: 303, headers: { location: `/v/${token}`, "cache-control": "no-store" }, body: null };
   });
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import * as postings from "@/db/queries/postings";
 import * as rooms from "@/db/queries/rooms";
 import { isAppError, notFound } from "@/lib/errors";

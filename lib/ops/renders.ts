@@ -1,7 +1,7 @@
 import "server-only";
 import { z } from "zod";
 import { recordAudit } from "@/db/queries/audit";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import { getEdition } from "@/db/queries/editions";
 import { findLabPrintSettings, findLogoBytes, findRender, storeRender } from "@/db/queries/renders";
 import { fingerprintOf } from "@/lib/charts/fingerprint";

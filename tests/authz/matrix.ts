@@ -600,6 +600,15 @@ export const ROUTES: RouteRow[] = [
     expect: statuses(["anonymous", ...ALL_ROLES], 404),
     machine: 404,
   },
+  {
+    kind: "route",
+    method: "GET",
+    route: "/c",
+    url: "/c?code=0000-0000",
+    expect: statuses(["anonymous", ...ALL_ROLES], 404),
+    machine: 404,
+    note: "public: the code typed again on the 'No printout has this code' page; a known code redirects like /c/<code>",
+  },
 
   // phone: the calculator's lab data (loaded once) and the header's account part (prerendered pages)
   {

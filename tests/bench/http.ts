@@ -1,8 +1,10 @@
 // `npm run bench` (second part; `npm run bench:http` alone): what a phone scanning a poster costs
 // the server. A production build in its own folder served by server.mjs on a throwaway
 // `forkwall_bench_http` database with the demo data; then
-// - the transfer of an anonymous scan of /v/<token>: the page and everything it links (styles,
-//   scripts, fonts, icon), each fetched as a browser would with `Accept-Encoding: gzip`;
+// - the first-visit transfer of each page an operator opens (/, /sign-in, /calculator, a wall
+//   view and the wall-chart list signed in as the demo operator, the check page), and of an
+//   anonymous scan of /v/<token>: the page and everything it links (styles, scripts, fonts,
+//   icon), each fetched as a browser would with `Accept-Encoding: gzip`;
 // - autocannon, 16 connections, in one run: /icon.svg (a static file), /v/<token>, /calculator;
 //   each with its throughput and its ratio to the static file.
 // It asserts no speed: the figures go into README "Speed".
@@ -20,7 +22,8 @@ Object.assign(process.env, {
   DB_NAME: "forkwall_bench_http",
   PORT: String(port),
   APP_URL: `http://localhost:${port}`,
-  NEXT_DIST_DIR: ".next-bench",
+  // BENCH_REUSE_BUILD=<folder> serves an existing production build instead of building one.
+  NEXT_DIST_DIR: process.env.BENCH_REUSE_BUILD ?? ".next-bench",
   LOG_LEVEL: "warn",
   // Every request comes from one address; the limit must not turn the bench into 429s.
   PUBLIC_RATE_LIMIT_PER_MINUTE: "1000000",
@@ -40,11 +43,19 @@ function run(cmd: string, args: string[]): Promise<number> {
   });
 }
 
+type Got = { status: number; wire: number; encoding: string; body: Buffer; cookies: string[]; location?: string };
+
 /** Bytes on the wire (body as sent, gzip when the server compresses) and the decoded text. */
-function get(path: string): Promise<{ status: number; wire: number; encoding: string; body: Buffer }> {
+function get(path: string, cookie = "", post?: string): Promise<Got> {
   return new Promise((resolve, reject) => {
+    const headers: Record<string, string> = { "accept-encoding": "gzip", host: `localhost:${port}` };
+    if (cookie) headers.cookie = cookie;
+    if (post !== undefined) {
+      headers["content-type"] = "application/x-www-form-urlencoded";
+      headers.origin = `http://localhost:${port}`;
+    }
     const req = request(
-      { host: "127.0.0.1", port, path, headers: { "accept-encoding": "gzip", host: `localhost:${port}` } },
+      { host: "127.0.0.1", port, path, method: post === undefined ? "GET" : "POST", headers },
       (res) => {
         const chunks: Buffer[] = [];
         res.on("data", (c: Buffer) => chunks.push(c));
@@ -57,18 +68,23 @@ function get(path: string): Promise<{ status: number; wire: number; encoding: st
             wire: raw.length,
             encoding,
             body: encoding === "gzip" ? gunzipSync(raw) : raw,
+            cookies: (res.headers["set-cookie"] ?? []).map((c) => c.split(";")[0]!),
+            location: res.headers.location,
           });
         });
       },
     );
     req.on("error", reject);
-    req.end();
+    req.end(post);
   });
 }
 
-/** Every sub-resource a browser would fetch for a page: scripts, styles, preloads, icons, and fonts named in CSS. */
-async function transfer(path: string) {
-  const page = await get(path);
+/**
+ * Every sub-resource a browser would fetch for a page: scripts, styles, preloads, icons, and
+ * every font its CSS names (an upper bound: a browser fetches only the weights the page uses).
+ */
+async function transfer(path: string, cookie = "") {
+  const page = await get(path, cookie);
   const html = page.body.toString("utf8");
   const refs = new Set<string>();
   for (const m of html.matchAll(/<(?:script|link)\b[^>]*?(?:src|href)="([^"]+)"/g)) {
@@ -76,16 +92,30 @@ async function transfer(path: string) {
     if (url.startsWith("/") && !url.startsWith("//")) refs.add(url);
   }
   const items = [{ path, wire: page.wire, encoding: page.encoding }];
+  const seen = new Set<string>();
   for (const ref of refs) {
-    const r = await get(ref);
+    const r = await get(ref, cookie);
     items.push({ path: ref, wire: r.wire, encoding: r.encoding });
     if (ref.endsWith(".css"))
       for (const f of r.body.toString("utf8").matchAll(/url\(([^)]+\.(?:woff2?|ttf|otf))\)/g)) {
-        const font = await get(f[1]!.replace(/["']/g, ""));
+        const font = await get(f[1]!.replace(/["']/g, ""), cookie);
+        if (seen.has(font.wire + f[1]!)) continue;
+        seen.add(font.wire + f[1]!);
         items.push({ path: f[1]!, wire: font.wire, encoding: font.encoding });
       }
   }
   return { status: page.status, items, total: items.reduce((s, i) => s + i.wire, 0) };
+}
+
+/** A demo operator's session cookie, through next-auth's credentials endpoint. */
+async function signIn(email: string, password: string): Promise<string> {
+  const csrf = await get("/api/auth/csrf");
+  const { csrfToken } = JSON.parse(csrf.body.toString("utf8")) as { csrfToken: string };
+  const form = new URLSearchParams({ email, password, csrfToken, callbackUrl: "/dashboard" }).toString();
+  const res = await get("/api/auth/callback/credentials", csrf.cookies.join("; "), form);
+  const session = res.cookies.find((c) => /authjs\.session-token=/.test(c));
+  if (!session) throw new Error(`sign-in failed (${res.status} ${res.location ?? ""})`);
+  return session;
 }
 
 async function load(path: string, rotate: string[] = []) {
@@ -112,11 +142,14 @@ let startedDb = false;
 try {
   say(`provisioning ${env.DB_NAME} (fresh, demo data)`);
   startedDb = (await provision(env, { fresh: true, log: () => undefined })).startedHere;
-  say("building into .next-bench (next build)");
-  const t0 = Date.now();
-  if ((await run(process.execPath, ["node_modules/next/dist/bin/next", "build"])) !== 0)
-    throw new Error("build failed");
-  say(`built in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+  if (process.env.BENCH_REUSE_BUILD) say(`serving the build in ${process.env.BENCH_REUSE_BUILD}`);
+  else {
+    say("building into .next-bench (next build)");
+    const t0 = Date.now();
+    if ((await run(process.execPath, ["node_modules/next/dist/bin/next", "build"])) !== 0)
+      throw new Error("build failed");
+    say(`built in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+  }
 
   server = spawn(process.execPath, ["server.mjs"], {
     stdio: ["ignore", "ignore", "inherit"],
@@ -149,6 +182,40 @@ try {
 
   // Warm each path once so the first-request compile and caches do not count.
   for (const p of ["/icon.svg", ...tokens, "/calculator"]) await get(p);
+
+  // First visits of the pages an operator opens (issue: each at most 200 KB gzip).
+  const [chart] = (await (async () => {
+    const c = await mysql.createConnection({
+      host: env.DB_HOST,
+      port: env.DB_PORT,
+      user: env.DB_USER,
+      password: env.DB_PASSWORD,
+      database: env.DB_NAME,
+    });
+    const [r] = await c.query(
+      "SELECT c.id FROM charts c JOIN labs l ON l.id = c.lab_id JOIN editions e ON e.chart_id = c.id AND e.status = 'approved' WHERE l.slug = 'demo' ORDER BY c.id LIMIT 1",
+    );
+    await c.end();
+    return r;
+  })()) as { id: number }[];
+  const operator = await signIn("operator@forkwall.test", "forkwall-demo-2026");
+  const wall = `/labs/demo/charts/${chart!.id}/wall`;
+  await get(wall, operator);
+  console.log("\noperator page (first visit)          gzip KB   files  limit 200 KB");
+  for (const [name, p, cookie] of [
+    ["/", "/", ""],
+    ["/sign-in", "/sign-in", ""],
+    ["/calculator", "/calculator", ""],
+    ["wall view (signed in)", wall, operator],
+    ["/labs/demo/wall (signed in)", "/labs/demo/wall", operator],
+    ["check page /v/<token>", check, ""],
+  ] as const) {
+    const t = await transfer(p, cookie);
+    const kb = t.total / 1024;
+    console.log(
+      `${name.padEnd(36)} ${kb.toFixed(1).padStart(7)} ${String(t.items.length).padStart(7)}  ${t.status === 200 ? (kb <= 200 ? "ok" : "OVER") : `status ${t.status}`}`,
+    );
+  }
 
   const scan = await transfer(check);
   say(`anonymous scan of /v/<token> (status ${scan.status}): ${(scan.total / 1024).toFixed(1)} KB on the wire`);

@@ -4,7 +4,9 @@ test.describe("calculator", () => {
   test("solves a Finet parent and explains impossible geometry, with the caution shown", async ({ page }) => {
     await page.goto("/calculator");
     await expect(page.getByRole("note", { name: "Clinical caution" })).toContainText("Reference aid only");
-    // Defaults: Finet 0.678, MB 3.5, SB 2.5 -> 4.068 (Finet et al., EuroIntervention 2008).
+    await page.getByLabel("Main branch (Dmb), mm").fill("3.5");
+    await page.getByLabel("Side branch (Dsb), mm").fill("2.5");
+    // Finet 0.678 x (3.5 + 2.5) = 4.068 (Finet et al., EuroIntervention 2008).
     await expect(page.getByTestId("solve-result")).toContainText("4.07");
     // Two decimals, never four.
     await expect(page.getByRole("region", { name: "Result" })).not.toContainText("4.0680");
@@ -42,6 +44,8 @@ test("computes in the browser: no request to the solve API while typing, and it 
     if (new URL(req.url()).pathname.startsWith("/api/v1/solve")) solveCalls.push(req.url());
   });
   await page.goto("/calculator");
+  await page.getByLabel("Main branch (Dmb), mm").fill("3.5");
+  await page.getByLabel("Side branch (Dsb), mm").fill("2.5");
   await expect(page.getByTestId("solve-result")).toContainText("4.07");
   await context.setOffline(true);
   const sb = page.getByLabel("Side branch (Dsb), mm");
@@ -58,18 +62,32 @@ test("computes in the browser: no request to the solve API while typing, and it 
   expect(solveCalls).toEqual([]);
 });
 
-test("on a phone the answer sits at the top, above the inputs", async ({ browser }) => {
-  const context = await browser.newContext({ viewport: { width: 320, height: 640 } });
-  const page = await context.newPage();
-  await page.goto("/calculator");
-  const result = (await page.getByRole("region", { name: "Result" }).boundingBox())!;
-  const firstInput = (await page.getByLabel("Law").boundingBox())!;
-  expect(result.y).toBeLessThan(firstInput.y);
-  expect(result.y + result.height).toBeLessThan(640);
-  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
-  expect(overflow).toBeLessThanOrEqual(0);
-  await context.close();
-});
+for (const size of [
+  { width: 320, height: 640 },
+  { width: 390, height: 844 },
+]) {
+  test(`at ${size.width}x${size.height} the inputs come first and no result shows before two diameters`, async ({
+    browser,
+  }) => {
+    const context = await browser.newContext({ viewport: size });
+    const page = await context.newPage();
+    await page.goto("/calculator");
+    await expect(page.getByTestId("calculator-waiting")).toBeVisible();
+    await expect(page.getByRole("region", { name: "Result" })).toHaveCount(0);
+    await expect(page.getByTestId("solve-result")).toHaveCount(0);
+    await page.getByLabel("Main branch (Dmb), mm").fill("3.5");
+    await expect(page.getByRole("region", { name: "Result" })).toHaveCount(0);
+    await page.getByLabel("Side branch (Dsb), mm").fill("2.5");
+    await expect(page.getByTestId("solve-result")).toContainText("4.07");
+    const result = (await page.getByRole("region", { name: "Result" }).boundingBox())!;
+    const lastInput = (await page.getByLabel("Side branch (Dsb), mm").boundingBox())!;
+    expect(result.y).toBeGreaterThan(lastInput.y);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await page.screenshot({ path: `.data/reports/calculator-${size.width}.png`, fullPage: true });
+    await context.close();
+  });
+}
 
 test("a signed-in member chooses a lab chart and reads its stocked size, as the chart cell prints it", async ({
   page,
@@ -81,8 +99,16 @@ test("a signed-in member chooses a lab chart and reads its stocked size, as the 
   });
   await signInPage(page, demoEmail("operator"));
   await page.goto("/calculator");
-  const picker = page.getByLabel("Size as a chart of my lab");
-  const option = picker.locator("option", { hasText: "POT balloon chart (demo) · POT balloon" }).first();
+  const picker = page.getByLabel("Size as an approved chart of my lab");
+  // Only approved charts, each named with its edition.
+  const labels = await picker.locator("option").allTextContents();
+  expect(
+    labels.slice(1).every((l) => / · edition \d+ · /.test(l)),
+    labels.join("\n"),
+  ).toBe(true);
+  const option = picker
+    .locator("option", { hasText: /POT balloon chart \(demo\) · edition \d+ · POT balloon/ })
+    .first();
   await picker.selectOption((await option.getAttribute("value"))!);
   await page.getByLabel("Main branch (Dmb), mm").fill("3");
   await page.getByLabel("Side branch (Dsb), mm").fill("2.5");

@@ -1,7 +1,8 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { getCheckByToken, getCheckTokenByShortCode } from "@/db/queries/check";
+import { getCheckTokenByShortCode } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import { editions } from "@/db/schema";
 import { shortCodeReply } from "@/lib/http/check-page";
 import { approveEdition, createEdition, labWithSmallChart } from "./support/writes";

@@ -5,7 +5,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import { setChartArchived } from "@/db/queries/charts";
 import { updateLabSettings } from "@/db/queries/lab-settings";
 import { editions } from "@/db/schema";
@@ -50,7 +50,7 @@ describe("the check page's cache", () => {
     await approveEdition({ labId: team.lab.id, editionId: first.id, actor: actor("lead") });
     const kept = await served(t1);
     expect(kept).not.toBe(draftPage);
-    expect(kept.html).toContain("Keep this printout");
+    expect(kept.html).toContain("Keep this copy");
     // Nothing changed: the same built page.
     expect(await checkPageFor(t1)).toBe(kept);
 
@@ -81,7 +81,7 @@ describe("the check page's cache", () => {
     expect(superseded.html).toContain("Superseded");
     const t3 = await tokenOf(third.id);
     const current = await served(t3);
-    expect(current.html).toContain("Keep this printout");
+    expect(current.html).toContain("Keep this copy");
 
     // The review-by date passes with nothing written: keep becomes review.
     const [row] = await db.select({ reviewBy: editions.reviewBy }).from(editions).where(eq(editions.id, third.id));
@@ -89,16 +89,16 @@ describe("the check page's cache", () => {
     vi.useFakeTimers({ toFake: ["Date"] });
     vi.setSystemTime(new Date(row!.reviewBy!.getTime() + 60_000));
     const due = await served(t3);
-    expect(due.html).toContain("due for review");
+    expect(due.html).toContain("Have this copy reviewed");
     vi.useRealTimers();
-    expect((await served(t3)).html).toContain("Keep this printout");
+    expect((await served(t3)).html).toContain("Keep this copy");
 
     // Archiving the chart: every copy comes down.
     await labWrite(team.lab.id, (tx) =>
       setChartArchived(tx, { labId: team.lab.id, chartId, actor: actor("lead"), archive: true }),
     );
     const archived = await served(t3);
-    expect(archived.html).toContain("Take this printout down");
+    expect(archived.html).toContain("Take this copy down");
   });
 
   it("an unknown token has no page", async () => {

@@ -6,7 +6,7 @@ import { deliverDigest } from "@/lib/ops/notices";
 import { and, desc, eq, like, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import { listAuditEvents } from "@/db/queries/audit";
 import { auditEvents, balloonFamilies, balloons, labs, labTokens } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";

@@ -11,7 +11,7 @@ import * as rulesOps from "@/lib/ops/lab-rules";
 import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;

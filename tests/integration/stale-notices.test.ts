@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { getCheckByToken } from "@/db/queries/check";
+import { getCheckByToken } from "@/lib/ops/check";
 import { getEdition } from "@/db/queries/editions";
 import { roomBoard } from "@/db/queries/rooms";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting, updateBalloon } from "./support/writes";

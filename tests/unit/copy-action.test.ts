@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { actionSentence, copyAction, type CopyAction } from "@/lib/editions/action";
+import { ACTION_HEADINGS, actionSentence, askWho, copyAction, type CopyAction } from "@/lib/editions/action";
 import type { CheckStatus } from "@/lib/editions/check";
 
 const now = new Date("2026-06-15T12:00:00Z");
@@ -60,18 +60,41 @@ describe("what a status means for the copy on the wall", () => {
           ).toBe(action);
         });
 
-  it("says one sentence per action, naming the replacement and the review date", () => {
+  it("heads the page with the action in a few words", () => {
+    expect(ACTION_HEADINGS).toEqual({
+      keep: "Keep this copy",
+      replace: "Replace this copy",
+      "take-down": "Take this copy down",
+      review: "Have this copy reviewed",
+    });
+  });
+
+  it("says one sentence per action, naming the replacement, the review date and one person to ask", () => {
     expect(actionSentence("replace", { reviewBy: null, replacement: { number: 7 } })).toMatch(/edition 7/);
-    expect(actionSentence("take-down", { reviewBy: null, replacement: null })).toMatch(/^Take this printout down/);
-    expect(actionSentence("review", { reviewBy: REVIEW.past, replacement: null })).toMatch(/14 June 2026/);
+    expect(actionSentence("take-down", { reviewBy: null, replacement: null })).toBe(
+      "No approved replacement yet: ask the lab's manager.",
+    );
+    expect(actionSentence("review", { reviewBy: REVIEW.past, replacement: null })).toMatch(
+      /14 June 2026.*ask the lab's manager to review/,
+    );
     expect(actionSentence("keep", { reviewBy: REVIEW.future, replacement: null })).toMatch(/16 June 2026/);
-    expect(actionSentence("keep", { reviewBy: null, replacement: null })).toMatch(/^Keep this printout/);
     for (const s of [
       actionSentence("keep", { reviewBy: REVIEW.future, replacement: null }),
-      actionSentence("replace", { reviewBy: null, replacement: { number: 2 } }),
+      actionSentence("replace", { reviewBy: null, replacement: { number: 2, approvedAt: REVIEW.past } }),
       actionSentence("take-down", { reviewBy: null, replacement: null }),
       actionSentence("review", { reviewBy: REVIEW.past, replacement: null }),
     ])
       expect(s.match(/[.!?](\s|$)/g)?.length, s).toBe(1);
+  });
+
+  it("asks the person the lab's settings name, whether or not the line starts with ask", () => {
+    const v = { reviewBy: REVIEW.past, replacement: null };
+    expect(actionSentence("take-down", { ...v, contactLine: "the charge nurse." })).toBe(
+      "No approved replacement yet: ask the charge nurse.",
+    );
+    expect(actionSentence("review", { ...v, contactLine: "Ask the charge nurse in room 2" })).toMatch(
+      /: Ask the charge nurse in room 2 to review/,
+    );
+    expect(askWho("   ")).toBe("ask the lab's manager");
   });
 });

@@ -35,7 +35,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       {user ? (
         <p className="mt-4 rounded-md border border-line bg-paper-sunk px-3 py-2 text-sm">
           You are signed in as <strong>{user.email}</strong>.{" "}
-          <Link href="/dashboard" className="text-brand-700 underline">
+          <Link href="/dashboard" className="inline-flex min-h-11 items-center text-brand-700 underline">
             Go to your labs
           </Link>{" "}
           or sign in below as someone else.
@@ -44,15 +44,15 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       {n ? <FormStatus ok={n.ok} message={n.message} className="mt-4" /> : null}
       <SignInForm callbackUrl={safe} email={q.email} />
       <p className="mt-6 text-sm">
-        <Link href="/forgot-password" className="text-brand-700 underline">
+        <Link href="/forgot-password" className="inline-flex min-h-11 items-center text-brand-700 underline">
           Forgot your password?
         </Link>
       </p>
-      <p className="mt-2 text-xs text-ink-faint">
+      <p className="mt-2 text-sm text-ink-soft">
         {env.SIGNUP === "open" ? (
           <>
             No account? Joining a lab: open the invitation its manager sent you. Setting up a new lab:{" "}
-            <Link href="/sign-up" className="text-brand-700 underline">
+            <Link href="/sign-up" className="inline-flex min-h-11 items-center text-brand-700 underline">
               create an account
             </Link>
             .

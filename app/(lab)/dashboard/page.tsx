@@ -16,6 +16,9 @@ export default async function DashboardPage() {
   // An account whose address is not confirmed yet can only wait for (or ask again for) its link.
   if (await needsVerification(caller)) redirect("/check-email");
   const labs = await listMyLabs(caller);
+  // An operator's first need after signing in is the lab's approved wall charts.
+  const only = labs.length === 1 ? labs[0] : undefined;
+  if (only?.role === "operator") redirect(`/labs/${only.slug}/wall`);
   return (
     <div>
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -39,7 +42,7 @@ export default async function DashboardPage() {
           {labs.map((lab) => (
             <li key={lab.slug}>
               <Link
-                href={`/labs/${lab.slug}`}
+                href={lab.role === "operator" ? `/labs/${lab.slug}/wall` : `/labs/${lab.slug}`}
                 className="block rounded-card border border-line bg-paper-raised p-5 hover:border-brand-500"
               >
                 <span className="block text-lg font-semibold">{lab.name}</span>

@@ -38,6 +38,13 @@ const definition = chartDefinitionSchema.parse({
 });
 const snap = (out: number[] = []) =>
   buildSnapshot({ labName: "Test lab", definition, stock: stock(out), logoSha256: null });
+const withRatio = (ratio: number) =>
+  buildSnapshot({
+    labName: "Test lab",
+    definition: { ...definition, law: { law: "finet", ratio } },
+    stock: stock(),
+    logoSha256: null,
+  });
 
 describe("diffCells", () => {
   it("finds no difference between a snapshot and itself", () => {
@@ -64,5 +71,18 @@ describe("diffCells", () => {
     const diff = diffCells(s, null);
     expect(diff).toHaveLength(cells);
     expect(diff.every((d) => d.other === null)).toBe(true);
+  });
+
+  it("lists only cells a reader can see differ: where the balloon is the same, the small print says what changed", () => {
+    const diff = diffCells(withRatio(0.678), withRatio(0.69));
+    expect(diff.length).toBeGreaterThan(0);
+    for (const d of diff) expect(d.printed.text, d.where).not.toBe(d.other?.text);
+    // A slightly larger ratio moves exact diameters without always moving the balloon.
+    const sameBalloon = diff.filter((d) => d.printed.text.split(" (")[0] === d.other?.text.split(" (")[0]);
+    expect(sameBalloon.length).toBeGreaterThan(0);
+    for (const d of sameBalloon) {
+      expect(d.printed.text).toMatch(/\(.*exact \d\.\d\d mm/);
+      expect(d.other?.text).toMatch(/\(.*exact \d\.\d\d mm/);
+    }
   });
 });

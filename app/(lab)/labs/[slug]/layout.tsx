@@ -15,12 +15,12 @@ export default async function LabLayout({
   if (member === "forbidden") return children;
   return (
     <div>
-      <div className="mb-4">
-        <p className="text-sm text-ink-faint">Your role: {ROLE_LABELS[member.role]}</p>
-        <p className="text-xl font-bold">{member.lab.name}</p>
-      </div>
+      <p className="mb-2 text-base">
+        <span className="font-bold">{member.lab.name}</span>{" "}
+        <span className="text-ink-faint">· Your role: {ROLE_LABELS[member.role]}</span>
+      </p>
       <LabNav slug={slug} role={member.role} canApprove={await labCan(member.lab.id, member.role, "edition:approve")} />
-      <div className="pt-6">{children}</div>
+      <div className="pt-3 sm:pt-6">{children}</div>
     </div>
   );
 }

@@ -38,7 +38,6 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
 
   return (
     <div className="mx-auto max-w-xl">
-      <h1 className="sr-only">Is this printout current?</h1>
       <LiveCheck token={token} initial={checkJson(view)} />
       {role ? (
         <>
@@ -64,9 +63,12 @@ export default async function CheckPage({ params }: { params: Promise<{ token: s
           />
         </>
       ) : (
-        <p className="mt-6 text-sm text-ink-soft">
+        <p className="mt-6 text-base text-ink-soft">
           Lab members can{" "}
-          <Link href={`/sign-in?callbackUrl=/v/${token}/lab`} className="text-brand-700 underline">
+          <Link
+            href={`/sign-in?callbackUrl=/v/${token}/lab`}
+            className="inline-flex min-h-11 items-center text-brand-700 underline"
+          >
             sign in
           </Link>{" "}
           to record where this copy hangs or to print the current edition.

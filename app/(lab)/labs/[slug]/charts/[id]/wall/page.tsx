@@ -1,9 +1,10 @@
 import Link from "next/link";
 import { WallGrid } from "@/components/charts/wall-grid";
+import { OfflineNote } from "@/components/offline/offline-note";
 import { Caution } from "@/components/ui/caution";
 import { forPage, memberForPage } from "@/lib/auth/page-guard";
 import { snapshotGrids } from "@/lib/charts/snapshot";
-import { askLine } from "@/lib/editions/check-cells";
+import { askWho } from "@/lib/editions/action";
 import { formatDate } from "@/lib/format/dates";
 import { chartWall } from "@/lib/ops/charts";
 import { posterLegend } from "@/lib/poster/model";
@@ -11,6 +12,13 @@ import { MARKS, PALETTE } from "@/lib/poster/marks";
 import { can } from "@/lib/permissions";
 
 export const metadata = { title: "Wall view" };
+
+// A symbol and a word with each colour, so the status reads in greyscale too.
+const LOOK = {
+  current: { symbol: "✓", word: "Current", cls: "border-ok bg-ok-soft text-ok" },
+  review: { symbol: "?", word: "Due for review", cls: "border-review bg-review-soft text-review" },
+  outdated: { symbol: "!", word: "Outdated: confirm each size", cls: "border-warn bg-warn-soft text-warn" },
+} as const;
 
 /** The chart's current approved edition, read-only, large, for every member of the lab. */
 export default async function WallPage({ params }: { params: Promise<{ slug: string; id: string }> }) {
@@ -25,41 +33,27 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
   const current = edition ? edition.fingerprint === chart.liveFingerprint : false;
   const reviewDue = edition?.reviewBy ? edition.reviewBy.getTime() <= now.getTime() : false;
 
+  const state = current ? (reviewDue ? "review" : "current") : "outdated";
+  const dates = edition
+    ? [
+        edition.approvedAt ? `Approved ${formatDate(edition.approvedAt, tz)}` : null,
+        edition.reviewBy ? `review by ${formatDate(edition.reviewBy, tz)}` : null,
+      ].filter(Boolean)
+    : [];
+
   return (
     <div className="min-w-0">
-      <h1 className="text-2xl font-bold [overflow-wrap:anywhere]">{chart.title}</h1>
+      <OfflineNote />
+      <h1 className="text-xl font-bold leading-tight [overflow-wrap:anywhere] sm:text-2xl">{chart.title}</h1>
       {edition ? (
-        <div
-          className={`mt-3 rounded-card border-4 px-4 py-3 ${current && !reviewDue ? "border-ok bg-ok-soft" : "border-warn bg-warn-soft"}`}
+        <p
+          className={`mt-1 rounded-md border-l-4 px-2 py-1 text-base font-bold ${LOOK[state].cls}`}
           data-testid="wall-status"
-          data-status={current ? (reviewDue ? "review" : "current") : "outdated"}
+          data-status={state}
         >
-          <p className="text-xl font-bold">
-            Edition {edition.number} · {current ? (reviewDue ? "Due for review" : "Current") : "Outdated"}
-          </p>
-          <p className="mt-1 text-sm text-ink">
-            Approved{" "}
-            {edition.approvedAt ? (
-              <span className="whitespace-nowrap">{formatDate(edition.approvedAt, tz)}</span>
-            ) : null}
-            {edition.reviewBy ? (
-              <>
-                {" "}
-                · review by <span className="whitespace-nowrap">{formatDate(edition.reviewBy, tz)}</span>
-              </>
-            ) : null}
-          </p>
-          {!current ? (
-            <p className="mt-2 font-semibold text-ink">
-              The lab&apos;s stock or settings changed since this edition was approved: some cells may no longer hold.
-              Confirm each size before use; {askLine(chart.contactLine).replace(/^No approved replacement yet: /, "")}
-            </p>
-          ) : reviewDue ? (
-            <p className="mt-2 font-semibold text-ink">
-              Its review date has passed: ask the lab&apos;s medical lead to review the chart before relying on it.
-            </p>
-          ) : null}
-        </div>
+          <span aria-hidden>{LOOK[state].symbol} </span>
+          Edition {edition.number} · {LOOK[state].word}
+        </p>
       ) : (
         <div
           className="mt-3 rounded-card border-4 border-danger bg-danger-soft px-4 py-3"
@@ -67,12 +61,13 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
           data-status="none"
         >
           <p className="text-xl font-bold">No approved edition</p>
-          <p className="mt-1 text-ink">This chart has no approved numbers to show. {askLine(chart.contactLine)}</p>
+          <p className="mt-1 text-ink">
+            This chart has no approved numbers to show. No approved edition yet: {askWho(chart.contactLine)}.
+          </p>
         </div>
       )}
-      <Caution className="mt-4" demo={member.lab.isDemo} />
       {edition ? (
-        <div className="mt-6 space-y-8">
+        <div className="mt-2 space-y-6">
           {snapshotGrids(edition.snapshot).map((grid, i) => (
             <WallGrid
               key={i}
@@ -81,6 +76,20 @@ export default async function WallPage({ params }: { params: Promise<{ slug: str
               stentName={edition.snapshot.stent?.name ?? null}
             />
           ))}
+          <div className="space-y-2" data-testid="wall-after-grid">
+            <Caution demo={member.lab.isDemo} />
+            {state === "outdated" ? (
+              <p className="font-semibold text-ink">
+                The lab&apos;s stock or settings changed since this edition was approved: some cells may no longer hold.
+                Confirm each size before use; {askWho(chart.contactLine)}.
+              </p>
+            ) : state === "review" ? (
+              <p className="font-semibold text-ink">
+                Its review date has passed: {askWho(chart.contactLine)} to review the chart before relying on it.
+              </p>
+            ) : null}
+            <p className="text-base text-ink-soft">{dates.join(" · ")}</p>
+          </div>
           <section aria-labelledby="legend-h">
             <h2 id="legend-h" className="text-lg font-bold">
               How to read a cell
