@@ -6,16 +6,15 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, postings, rooms } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import type { Caller } from "@/lib/ops/caller";
 import { createRoom, recordPosting } from "@/lib/ops/postings";
 import { conflictFor, duplicateKey } from "@/lib/ops/write";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam, unique } from "./support/fixtures";
 import { approveEdition, createChart, createEdition } from "./support/writes";
+import { as } from "../support/roles";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let editionId = 0;
-const as = (p: { id: number; email: string; name: string }): Caller => ({ kind: "user", user: p });
 
 beforeAll(async () => {
   team = await labWithTeam();
