@@ -7,27 +7,18 @@ import { emailVerifications, invitations, labs, rateLimits, users } from "@/db/s
 import { hashToken, newToken } from "@/lib/auth/tokens";
 import { acceptInvitationAsMember } from "@/lib/ops/accounts";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
 import { createLab } from "@/lib/ops/lab-create";
 import { admitSignUp, completeSignUp, resendVerification, signUp, verifyEmail } from "@/lib/ops/sign-up";
 import { createLab as createFixtureLab, createUser, unique } from "./support/fixtures";
 import { as } from "../support/roles";
 import { linkIn, mailTo } from "../support/mail";
+import { refusal } from "../support/refusal";
 
 afterAll(() => pool.end());
 
 const email = (prefix = "signup") => `${unique(prefix)}@example.test`;
 const ip = () => `203.0.113.${randomBytes(1)[0]}-${unique("ip")}`;
 const PASSWORD = "a long enough phrase";
-
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
 
 const userRow = async (address: string) => (await db.select().from(users).where(eq(users.email, address)))[0];
 const userCount = async () => Number((await db.select({ n: count() }).from(users))[0]!.n);
