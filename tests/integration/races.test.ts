@@ -1,6 +1,6 @@
-// Races that used to answer 500 or leave repeats: concurrent writes through the operations
-// layer end in one row and a 409 that names the field (or the existing row, for postings), and
-// the database itself refuses a second hanging copy of an edition in one room.
+// Concurrent writes through the operations layer end in one row and a 409 that names the field
+// (or the existing row, for postings), never a 500 or a repeat, and the database itself refuses
+// a second hanging copy of an edition in one room.
 import { and, count, eq, isNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
