@@ -14,15 +14,19 @@ import { DEMO_CHARTS as CHARTS } from "./demo-charts";
 
 const ROOMS = ["Procedure room 1", "Procedure room 2", "Control room"];
 
-export async function seedDemoCharts(db: Database): Promise<void> {
-  const [lab] = await db.select({ id: labs.id }).from(labs).where(eq(labs.slug, "demo"));
+/** `slug` and `email` let a test seed the same charts into a lab and people of its own. */
+export async function seedDemoCharts(
+  db: Database,
+  { slug = "demo", email = (role: string) => `${role}@forkwall.test` } = {},
+): Promise<void> {
+  const [lab] = await db.select({ id: labs.id }).from(labs).where(eq(labs.slug, slug));
   if (!lab) return;
   const person = async (email: string) => {
     const [u] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, email));
     return u!;
   };
   const [educator, lead, manager, operator] = await Promise.all(
-    ["educator", "lead", "manager", "operator"].map((r) => person(`${r}@forkwall.test`)),
+    ["educator", "lead", "manager", "operator"].map((r) => person(email(r))),
   );
   const familyId = async (name: string) =>
     (

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { isLoopbackUrl } from "./http/client-address";
+import { isLoopbackUrl } from "./net/loopback";
 
 const port = z.coerce.number().int().min(1).max(65535);
 

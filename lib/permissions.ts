@@ -23,6 +23,7 @@ export const CAPABILITIES = {
   // The medical lead always; a manager only where the lab's rules grant it (lib/ops/access.ts).
   "edition:approve": ["lead"],
   "edition:withdraw": ["manager"],
+  "edition:archive-copy": ["manager"],
   "chart:archive": ["manager", "lead"],
   "rules:manage": ["lead"],
   "posting:record": ["manager", "lead", "educator", "operator"],

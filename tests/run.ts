@@ -75,7 +75,7 @@ try {
   await check("lint (eslint)", bin("eslint"), [".", "--max-warnings=0"]);
   await check("typecheck (tsc --noEmit)", bin("tsc"), ["--noEmit"]);
 
-  await check("format (prettier --check)", bin("prettier"), ["--check", ".", "--log-level=warn"]);
+  await check("format (npm run format:check)", "npm", ["run", "--silent", "format:check"]);
 
   // One run per vitest project, each tallied on its own line.
   const projects = [

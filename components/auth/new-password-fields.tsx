@@ -1,5 +1,5 @@
 import { TextField } from "@/components/ui/field";
-import { PASSWORD_MIN } from "@/lib/auth/password-rules";
+import { PASSWORD_MIN } from "@/lib/validation/password-rules";
 
 export function NewPasswordFields({ errors }: { errors?: Record<string, string> }) {
   return (

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import { signUpAction } from "@/lib/auth/sign-up-actions";
-import { PASSWORD_MIN } from "@/lib/auth/password-rules";
+import { PASSWORD_MIN } from "@/lib/validation/password-rules";
 import type { ActionState } from "@/lib/http/action";
 import { TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";

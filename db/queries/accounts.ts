@@ -1,6 +1,6 @@
 import "server-only";
 import { and, count, eq, isNull, ne } from "drizzle-orm";
-import { linkState } from "@/lib/auth/tokens";
+import { linkState } from "@/lib/link-state";
 import { AppError } from "@/lib/errors";
 import { db } from "../index";
 import { emailVerifications, labs, memberships, users } from "../schema";

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
-import { linkState } from "@/lib/auth/tokens";
+import { linkState } from "@/lib/link-state";
 import { AppError, notFound } from "@/lib/errors";
 import type { Role } from "@/lib/permissions";
 import { db } from "../index";

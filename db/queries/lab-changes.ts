@@ -7,7 +7,7 @@ import { parseStoredDefinition } from "@/lib/validation/chart";
 import { charts, logos } from "../schema";
 import type { Tx } from "./audit";
 import { reconcilePostings } from "./notices";
-import { getLabRules } from "./lab-rules";
+import { getLabRules } from "./lab-rules-read";
 import { lockLab } from "./lab-lock";
 import { readStock } from "./stock-read";
 

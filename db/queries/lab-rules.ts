@@ -1,36 +1,14 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
-import {
-  changedRules,
-  labRulesSchema,
-  mergeLabRules,
-  readLabRules,
-  type LabRules,
-  type LabRulesPatch,
-} from "@/lib/labs/rules";
-import type { Database } from "../index";
-import { db as defaultDb } from "../index";
+import { changedRules, labRulesSchema, mergeLabRules, type LabRules, type LabRulesPatch } from "@/lib/labs/rules";
 import { charts, labRules } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
 
-/** The lab's rules: its stored row over the defaults (a lab without a row has the defaults). */
-export async function getLabRules({ labId }: { labId: number }, tx: Tx | Database = defaultDb): Promise<LabRules> {
-  return (await getLabRulesWithRevision({ labId }, tx)).rules;
-}
+import { getLabRulesWithRevision } from "./lab-rules-read";
 
-/** The rules and the revision a change must name (0 for a lab that never changed them). */
-export async function getLabRulesWithRevision(
-  { labId }: { labId: number },
-  tx: Tx | Database = defaultDb,
-): Promise<{ rules: LabRules; revision: number }> {
-  const [row] = await tx
-    .select({ rules: labRules.rules, revision: labRules.revision })
-    .from(labRules)
-    .where(eq(labRules.labId, labId));
-  return { rules: readLabRules(row?.rules), revision: row?.revision ?? 0 };
-}
+export { getLabRules, getLabRulesWithRevision } from "./lab-rules-read";
 
 /**
  * Changes some of the lab's rules; the caller holds the lab lock (labWrite). Audited with only

@@ -6,7 +6,7 @@ import type { StaleItem, StaleNotice } from "@/lib/editions/stale";
 import { db } from "../index";
 import { charts, editions, labs, memberships, postings, staleNotices, users } from "../schema";
 import type { Tx } from "./audit";
-import { readPostings } from "./postings";
+import { readPostings } from "./postings-read";
 
 /**
  * Inside the transaction of a change, after the lab's live snapshots were refreshed: works out

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
-import { linkState } from "@/lib/auth/tokens";
+import { linkState } from "@/lib/link-state";
 import { AppError } from "@/lib/errors";
 import { db } from "../index";
 import { passwordResets, users } from "../schema";

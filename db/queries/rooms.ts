@@ -5,7 +5,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
 import { postings, rooms } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
-import { readPostings } from "./postings";
+import { readPostings } from "./postings-read";
 
 export async function listRooms({ labId }: { labId: number }) {
   return db

@@ -1,7 +1,7 @@
 // Whether an invitation link may be accepted, and by whom. Pure: the operation reads the locked
 // invitation and the account (db/queries/invitations.ts) and writes only when this says yes.
 import { AppError } from "@/lib/errors";
-import { linkState } from "./tokens";
+import { linkState } from "@/lib/link-state";
 
 const LINK_PROBLEM = {
   expired: "This invitation has expired. Ask the lab's manager to resend it.",

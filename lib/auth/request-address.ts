@@ -1,7 +1,8 @@
 import "server-only";
 import { headers } from "next/headers";
 import { env } from "@/lib/env";
-import { clientAddress, isLoopback, socketAddress } from "@/lib/http/client-address";
+import { clientAddress, socketAddress } from "@/lib/http/client-address";
+import { isLoopback } from "@/lib/net/loopback";
 
 /** The client's address for throttles and audit rows (the socket's, unless TRUST_PROXY names hops). */
 export function addressOf(h: Headers): string {

@@ -19,15 +19,3 @@ export function newToken(): { token: string; hash: string } {
 export function looksLikeToken(value: string): boolean {
   return /^[A-Za-z0-9_-]{43}$/.test(value);
 }
-
-export type LinkState = "valid" | "expired" | "used" | "revoked";
-
-export function linkState(
-  row: { expiresAt: Date; usedAt?: Date | null; revokedAt?: Date | null },
-  now = new Date(),
-): LinkState {
-  if (row.usedAt) return "used";
-  if (row.revokedAt) return "revoked";
-  if (row.expiresAt.getTime() <= now.getTime()) return "expired";
-  return "valid";
-}

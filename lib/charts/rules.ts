@@ -1,7 +1,7 @@
 // Which rounding rule and balloon family each lookup may use (common practice): a POT balloon is
 // non-compliant and rounds up, to the nearest size or reaches by pressure; side- and main-branch
-// balloons round down or to the nearest size; reach-by-pressure needs recorded growth. A medical
-// lead's recorded exception belongs to the lab rules, which do not exist yet.
+// balloons round down or to the nearest size; reach-by-pressure needs recorded growth. These are
+// the guardrails: a lab's own rules and its lead's exceptions (lib/labs/rules.ts) choose within them.
 import { AppError, type FieldIssue } from "@/lib/errors";
 import { hasGrowthData, type LookupKind, type RoundingRule } from "@/lib/sizing";
 import type { ChartDefinition } from "@/lib/validation/chart";

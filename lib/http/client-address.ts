@@ -3,13 +3,9 @@
 // X-Forwarded-For entries are believed only for the number of proxy hops TRUST_PROXY names:
 // each trusted proxy appends the address it saw, so with n hops the client is the n-th entry
 // from the right of [...X-Forwarded-For, socket address].
-export const PEER_HEADER = "x-forkwall-peer";
+import { normaliseAddress as normalise } from "@/lib/net/loopback";
 
-const normalise = (ip: string) =>
-  ip
-    .trim()
-    .replace(/^::ffff:/, "")
-    .slice(0, 64);
+export const PEER_HEADER = "x-forkwall-peer";
 
 /** The TCP peer's address as server.mjs recorded it; null when the request did not come through it. */
 export function socketAddress(headers: Headers): string | null {
@@ -29,23 +25,4 @@ export function clientAddress(headers: Headers, trustProxyHops: number): string 
     peer,
   ];
   return normalise(chain[Math.max(0, chain.length - 1 - trustProxyHops)]!);
-}
-
-/** 127.0.0.0/8, ::1 and the IPv4-mapped forms. */
-export function isLoopback(ip: string | null): boolean {
-  if (!ip) return false;
-  const a = normalise(ip);
-  return a === "::1" || /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(a);
-}
-
-/** Whether a URL's host is a loopback name or address (localhost, 127.x, [::1]). */
-export function isLoopbackUrl(url: string): boolean {
-  let host: string;
-  try {
-    host = new URL(url).hostname.toLowerCase();
-  } catch {
-    return false;
-  }
-  if (host === "localhost" || host.endsWith(".localhost")) return true;
-  return isLoopback(host.replace(/^\[|\]$/g, ""));
 }

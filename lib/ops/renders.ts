@@ -10,6 +10,7 @@ import { formatShortCode } from "@/lib/editions/short-code";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
 import { formatDate } from "@/lib/format/dates";
+import { can } from "@/lib/permissions";
 import { renderCardPdf, renderPosterPdf } from "@/lib/poster/pdf/render";
 import { stampBands, tilePoster, type Band } from "@/lib/poster/pdf/variants";
 import { shortCodeUrl } from "@/lib/poster/labels";
@@ -65,7 +66,7 @@ export const posterPdf = labOperation({
   input: pdfVariantSchema,
   run: async ({ labId, actor, ids, member }, variant) => {
     const archive = variant.copy === "archive";
-    if (archive && member.role !== "manager")
+    if (archive && !can(member.role, "edition:archive-copy"))
       throw new AppError("forbidden", "Only a manager may download the archive copy of an edition.");
     const ed = await getEdition({ labId, editionId: ids.editionId });
     if (!ed) throw notFound("Edition");

@@ -1,5 +1,5 @@
 import { formatDecimal } from "./format";
-import type { LawSpec } from "./laws";
+import type { LawSpec } from "./law-spec";
 
 /**
  * Published fit ranges, by the side-to-main-branch diameter ratio Dsb/Dmb, as reported in

@@ -1,14 +1,10 @@
 import { formatDecimal } from "./format";
 import { lawFit } from "./fit";
+import type { LawSpec } from "./law-spec";
 
 export type LawId = "finet" | "murray" | "huo-kassab" | "square" | "power";
 
-export type LawSpec =
-  | { law: "finet"; ratio: number }
-  | { law: "murray" }
-  | { law: "huo-kassab" }
-  | { law: "square" }
-  | { law: "power"; n: number };
+export type { LawSpec } from "./law-spec";
 
 export type Vessel = "parent" | "mb" | "sb";
 

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { PASSWORD_MAX } from "@/lib/auth/password-rules";
+import { PASSWORD_MAX } from "@/lib/validation/password-rules";
 import { newPasswordField, tokenField } from "./auth";
 import { emailField } from "./members";
 import { freeText } from "./text";

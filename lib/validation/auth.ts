@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { freeText } from "./text";
-import { PASSWORD_MIN } from "@/lib/auth/password-rules";
+import { PASSWORD_MIN } from "@/lib/validation/password-rules";
 import { emailField } from "./members";
 
 // bcrypt reads at most 72 bytes: count bytes, not characters.

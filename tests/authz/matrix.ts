@@ -2,9 +2,10 @@
 // with the status the server must answer. Requests for allowed roles carry an invalid body
 // where the route changes data, so walking the table proves the gate without changing data
 // (the guard runs before validation: 401 -> 404 -> 403 -> 400).
-import type { Role } from "@/lib/permissions";
+import { ALL_ROLES, type Who } from "../support/roles";
 
-export type Actor = "anonymous" | Role;
+export { ALL_ROLES };
+export type Actor = Exclude<Who, "outsider">;
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
 /** Ids of seeded demo rows that concrete URLs may need, looked up once by the walker. */
@@ -36,8 +37,6 @@ export type ActionRow = {
   allowed: readonly (Actor | "any-signed-in")[];
   note?: string;
 };
-
-export const ALL_ROLES: readonly Role[] = ["manager", "lead", "educator", "operator"];
 
 /**
  * What a machine token of the demo lab (stock:read and stock:write) gets (tokens area): the

@@ -1,7 +1,7 @@
 import { expect, test, type Page } from "@playwright/test";
 import { demoEmail, signInApi, signInPage } from "./support/auth";
 import { closeDb, createPerson, uniqueEmail } from "./support/db";
-import { linkIn, mailTo, waitForMail } from "./support/mail";
+import { linkIn, mailTo, waitForMail } from "../support/mail";
 
 test.afterAll(closeDb);
 
@@ -27,7 +27,7 @@ test("a manager invites an operator by e-mail; the invitee joins and sees only w
 
   const [mail] = await waitForMail(invitee);
   expect(mail!.subject).toContain("Demo Heart Centre Cath Lab");
-  const link = linkIn(mail!, "invite");
+  const link = linkIn(mail!, "invite").url;
   expect(new URL(link).pathname).toMatch(/^\/invite\/[A-Za-z0-9_-]{43}$/);
 
   const ctx = await browser.newContext();
@@ -99,7 +99,7 @@ test("an address that already has an account signs in and accepts, joining with 
   expect(await res.json()).toMatchObject({ invitation: { email: person.email, role: "educator" }, emailSent: true });
   await manager.dispose();
 
-  const link = linkIn((await waitForMail(person.email))[0]!, "invite");
+  const link = linkIn((await waitForMail(person.email))[0]!, "invite").url;
   const ctx = await browser.newContext();
   const guest = await ctx.newPage();
   await guest.goto(link);
@@ -118,12 +118,12 @@ test("resend sends a fresh link and kills the old one; revoke kills the link", a
   const invitee = uniqueEmail("resent");
   await signInPage(page, demoEmail("manager"));
   await inviteThroughPage(page, invitee, "Medical lead");
-  const first = linkIn((await waitForMail(invitee, 1))[0]!, "invite");
+  const first = linkIn((await waitForMail(invitee, 1))[0]!, "invite").url;
 
   const row = page.getByTestId(`invitation-${invitee}`);
   await row.getByRole("button", { name: /^Resend/ }).click();
   await expect(page.getByRole("status").filter({ hasText: `A new link was sent to ${invitee}` })).toBeVisible();
-  const second = linkIn((await waitForMail(invitee, 2))[1]!, "invite");
+  const second = linkIn((await waitForMail(invitee, 2))[1]!, "invite").url;
   expect(second).not.toBe(first);
 
   const ctx = await browser.newContext();

@@ -7,7 +7,7 @@ import { expect, test, type Browser, type Page } from "@playwright/test";
 import { pdfInfo, pdfText } from "../support/pdf-tools";
 import { demoEmail, signInPage } from "./support/auth";
 import { closeDb, createPerson, query, uniqueEmail } from "./support/db";
-import { linkIn, mailTo, waitForMail } from "./support/mail";
+import { linkIn, mailTo, waitForMail } from "../support/mail";
 
 test.afterAll(closeDb);
 
@@ -21,7 +21,7 @@ async function signIn(page: Page, email: string, password = PASSWORD) {
 
 /** An invited person opens their link, creates the account, signs in and lands in the lab. */
 async function acceptInvitation(browser: Browser, email: string, name: string, slug: string) {
-  const link = linkIn((await waitForMail(email))[0]!, "invite");
+  const link = linkIn((await waitForMail(email))[0]!, "invite").url;
   const ctx = await browser.newContext();
   const page = await ctx.newPage();
   await page.goto(link);
@@ -76,9 +76,9 @@ test("a new person signs up, confirms, creates a lab, stocks it, invites a team 
   // Confirm through the newest link in the local mail fake (the first one no longer works).
   const mails = await waitForMail(email, 2);
   expect(mails.every((m) => m.subject === "Confirm your e-mail address for Forkwall")).toBe(true);
-  await page.goto(linkIn(mails[0]!, "verify-email"));
+  await page.goto(linkIn(mails[0]!, "verify-email").url);
   await expect(page.getByText("already been used (or a newer one was sent)")).toBeVisible();
-  await page.goto(linkIn(mails[1]!, "verify-email"));
+  await page.goto(linkIn(mails[1]!, "verify-email").url);
   await page.getByRole("button", { name: "Confirm my address" }).click();
 
   // Create the lab: the slug is suggested from the name and checked by the same rules as the API.
@@ -261,7 +261,7 @@ test("the account page: name, password (current one required), e-mail through a 
   await emailForm.getByRole("button", { name: "Send the link" }).click();
   await expect(emailForm.getByRole("status")).toContainText(`A link is on its way to ${next}`);
   await expect(page.getByTestId("pending-email")).toContainText(next);
-  await page.goto(linkIn((await waitForMail(next))[0]!, "verify-email"));
+  await page.goto(linkIn((await waitForMail(next))[0]!, "verify-email").url);
   await page.getByRole("button", { name: "Use this address from now on" }).click();
   await expect(page).toHaveURL(/\/account$/);
   await expect(emailForm.getByText(next)).toBeVisible();

@@ -2,7 +2,7 @@
 // reports no violation, no script error, on any of them.
 import { expect, test, type Page } from "@playwright/test";
 import { demoEmail, signInPage } from "./support/auth";
-import { waitForMail } from "./support/mail";
+import { waitForMail } from "../support/mail";
 
 function watch(page: Page) {
   const problems: string[] = [];

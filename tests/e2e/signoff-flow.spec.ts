@@ -6,7 +6,8 @@
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { apiAs, demoEmail, signInPage } from "./support/auth";
 import { demoIds, query } from "./support/db";
-import { mailTo } from "./support/mail";
+import { mailTo } from "../support/mail";
+import type { Role } from "../support/roles";
 
 test.describe.configure({ mode: "serial" });
 
@@ -15,7 +16,7 @@ const state = { chartId: 0, roomId: 0, ed1: 0, ed2: 0, ed3: 0, posting1: 0, post
 const roomName = `Sign-off room ${Date.now()}`;
 
 /** Waits for an e-mail to `role` whose subject (and text, when given) match, through the local SMTP fake. */
-async function expectMail(role: "manager" | "lead" | "educator", subject: RegExp, text?: string) {
+async function expectMail(role: Role, subject: RegExp, text?: string) {
   await expect
     .poll(
       async () =>

@@ -15,14 +15,14 @@ test.afterAll(async () => {
   for (const c of clients.values()) await c.dispose();
 });
 
-const as = (actor: Actor) => clients.get(actor)!;
+const client = (actor: Actor) => clients.get(actor)!;
 const stockOf = async (slug: string) => {
-  const res = await as("manager").get(`/api/v1/labs/${slug}/stock`);
+  const res = await client("manager").get(`/api/v1/labs/${slug}/stock`);
   expect(res.status()).toBe(200);
   return res.json();
 };
 const upload = (actor: Actor, query: string, name: string, buffer: Buffer, mimeType = "text/csv") =>
-  as(actor).post(`/api/v1/labs/demo/stock/import${query}`, { multipart: { file: { name, mimeType, buffer } } });
+  client(actor).post(`/api/v1/labs/demo/stock/import${query}`, { multipart: { file: { name, mimeType, buffer } } });
 
 test("every stock route answers each role as the authorization matrix says", async () => {
   expect(STOCK_ROWS.length).toBe(14);
@@ -31,7 +31,7 @@ test("every stock route answers each role as the authorization matrix says", asy
   for (const row of STOCK_ROWS) {
     const url = typeof row.url === "string" ? row.url : row.url({});
     for (const actor of ACTORS) {
-      const res = await as(actor).fetch(url, {
+      const res = await client(actor).fetch(url, {
         method: row.method,
         ...(row.body === undefined ? {} : { data: row.body }),
       });
@@ -44,7 +44,7 @@ test("every stock route answers each role as the authorization matrix says", asy
 });
 
 test("GET returns the documented shape with numbers as numbers and balloons by diameter", async () => {
-  const res = await as("operator").get("/api/v1/labs/demo/stock");
+  const res = await client("operator").get("/api/v1/labs/demo/stock");
   expect(res.status()).toBe(200);
   const body = await res.json();
   const famA = body.balloonFamilies.find((f: { name: string }) => f.name === "NC family A (illustrative)");
@@ -64,24 +64,26 @@ test("lead, educator and operator are refused valid writes (403) and nothing cha
   for (const actor of ["lead", "educator", "operator"] as const) {
     expect(
       (
-        await as(actor).patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: !balloon.inStock } })
+        await client(actor).patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, {
+          data: { inStock: !balloon.inStock },
+        })
       ).status(),
     ).toBe(403);
     expect(
       (
-        await as(actor).post("/api/v1/labs/demo/stock/families", {
+        await client(actor).post("/api/v1/labs/demo/stock/families", {
           data: { name: "Sneaky (illustrative)", compliance: "nc", nominalAtm: 10, rbpAtm: 16 },
         })
       ).status(),
     ).toBe(403);
-    expect((await as(actor).delete(`/api/v1/labs/demo/stock/families/${before.balloonFamilies[0].id}`)).status()).toBe(
-      403,
-    );
+    expect(
+      (await client(actor).delete(`/api/v1/labs/demo/stock/families/${before.balloonFamilies[0].id}`)).status(),
+    ).toBe(403);
     expect((await upload(actor, "", "stock.csv", csv)).status()).toBe(403);
   }
   expect(
     (
-      await as("anonymous").patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: false } })
+      await client("anonymous").patch(`/api/v1/labs/demo/stock/balloons/${balloon.id}`, { data: { inStock: false } })
     ).status(),
   ).toBe(401);
   expect(await stockOf("demo")).toEqual(before);
@@ -89,12 +91,12 @@ test("lead, educator and operator are refused valid writes (403) and nothing cha
 
 test("another lab's member gets 404, and so does an id from another lab", async () => {
   // The operator belongs to demo only.
-  expect((await as("operator").get("/api/v1/labs/demo-north/stock")).status()).toBe(404);
-  expect((await as("operator").get("/api/v1/labs/no-such-lab/stock")).status()).toBe(404);
+  expect((await client("operator").get("/api/v1/labs/demo-north/stock")).status()).toBe(404);
+  expect((await client("operator").get("/api/v1/labs/no-such-lab/stock")).status()).toBe(404);
   const north = await stockOf("demo-north");
   const demo = await stockOf("demo");
   const northBalloon = north.balloonFamilies[0].balloons[0];
-  const manager = as("manager");
+  const manager = client("manager");
   const tries = [
     manager.patch(`/api/v1/labs/demo/stock/balloons/${northBalloon.id}`, { data: { inStock: false } }),
     manager.delete(`/api/v1/labs/demo/stock/balloons/${northBalloon.id}`),
@@ -116,7 +118,7 @@ test("a manager's change: 200, one revision, duplicates 409, bad input 400 with 
   const before = await stockOf("demo");
   const fam = before.balloonFamilies.find((f: { name: string }) => f.name === "SC family B (illustrative)");
   const b = fam.balloons[0];
-  const manager = as("manager");
+  const manager = client("manager");
   const off = await manager.patch(`/api/v1/labs/demo/stock/balloons/${b.id}`, { data: { inStock: !b.inStock } });
   expect(off.status()).toBe(200);
   expect(await off.json()).toMatchObject({ revision: before.revision + 1, balloon: { id: b.id, inStock: !b.inStock } });
@@ -236,7 +238,7 @@ test.describe("import refusals change nothing", () => {
   });
 
   test("no file, or a preview made on an older revision: refused", async () => {
-    expect((await as("manager").post("/api/v1/labs/demo/stock/import")).status()).toBe(400);
+    expect((await client("manager").post("/api/v1/labs/demo/stock/import")).status()).toBe(400);
     const csv = Buffer.from("family,compliance,diameter_mm,in_stock\nSC family B (illustrative),sc,1.50,no\n");
     const res = await upload("manager", `?revision=${(before as { revision: number }).revision - 1}`, "old.csv", csv);
     expect(res.status()).toBe(409);

@@ -5,7 +5,8 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { demoEmail, signInApi } from "./support/auth";
 import { demoIds, query } from "./support/db";
-import { mailTo, settleStaleMail } from "./support/mail";
+import { mailTo } from "../support/mail";
+import { settleStaleMail } from "./support/mail";
 
 const PORT_B = Number(process.env.PORT ?? 3100) + 5;
 const B = `http://localhost:${PORT_B}`;
@@ -74,7 +75,7 @@ test("what one instance changes, the other reports; racing changes through both 
 
   // Two changes racing through both instances: both land, in turn, and the copies they make
   // stale are announced once.
-  await settleStaleMail();
+  await settleStaleMail(demoEmail("manager"));
   const mails = (await mailTo(demoEmail("manager"))).length;
   const rev = await revision();
   const [r1, r2] = await Promise.all([

@@ -2,14 +2,12 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { charts } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import { labWithSmallChart } from "./support/writes";
-import { sessionUser } from "./support/fixtures";
+import { as } from "../support/roles";
 
 // Who is calling is the one thing stood in for; revalidatePath is the framework's cache, which
 // here throws on a path it cannot encode as the real one does.
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 vi.mock("next/cache", () => ({
   revalidatePath: (p: string) => void encodeURI(p),
   revalidateTag: () => {},
@@ -26,7 +24,7 @@ const state = async () =>
 
 beforeAll(async () => {
   fixture = await labWithSmallChart({ name: "Input first" });
-  session.user = await sessionUser(fixture.team.people.educator.id);
+  as(fixture.team.people.educator);
 });
 afterAll(() => pool.end());
 
@@ -44,7 +42,7 @@ describe("a server action validates its whole input before it writes", () => {
   });
 
   it("restoreChartAction with a lone surrogate in slug changes nothing", async () => {
-    session.user = await sessionUser(fixture.team.people.manager.id);
+    as(fixture.team.people.manager);
     expect((await archiveChartAction({}, { slug: fixture.team.lab.slug, chartId: fixture.chartId })).ok).toBe(true);
     const before = await state();
     expect(before.a).not.toBeNull();

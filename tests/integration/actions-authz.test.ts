@@ -26,14 +26,15 @@ import {
 } from "@/db/schema";
 import type { ActionPayload, ActionState } from "@/lib/http/action";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import type { SessionUser } from "@/lib/auth/session";
 import { newToken } from "@/lib/auth/tokens";
 import { ACTIONS, type Actor } from "../authz/matrix";
-import { labWithTeam, mailTo, unique } from "./support/fixtures";
+import type { Role, Who } from "../support/roles";
+import { labWithTeam, unique } from "./support/fixtures";
+import { mailTo } from "../support/mail";
+import { as } from "../support/roles";
 
 // The session is the one thing stood in for: who is calling. Everything else is real.
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 vi.mock("next/cache", () => ({ revalidatePath: () => {}, revalidateTag: () => {} }));
 
 type ActionFn = (prev: ActionState, payload: ActionPayload) => Promise<ActionState>;
@@ -141,7 +142,7 @@ function chartDefinition(title = "Fixture POT chart") {
 }
 afterAll(() => pool.end());
 beforeEach(() => {
-  session.user = null;
+  as(null);
 });
 
 const form = (fields: Record<string, string | number | Blob>) => {
@@ -280,7 +281,7 @@ async function snapshot(labId: number) {
   };
 }
 
-const actorsRefused = (allowed: readonly string[]): (Actor | "outsider")[] => {
+const actorsRefused = (allowed: readonly string[]): Who[] => {
   const all: Actor[] = ["anonymous", "manager", "lead", "educator", "operator"];
   const refused = all.filter((a) => !allowed.includes(a) && !(allowed.includes("any-signed-in") && a !== "anonymous"));
   // A manager of another lab is refused every lab-scoped action of this one.
@@ -318,8 +319,7 @@ describe("server actions refuse disallowed callers and change nothing", () => {
     for (const actor of actorsRefused(row.allowed)) {
       it(`${row.name} as ${actor}`, async () => {
         const mod = (await MODULES[row.file]!()) as Record<string, ActionFn>;
-        session.user =
-          actor === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[actor]);
+        as(actor === "anonymous" ? null : team.people[actor]);
         const before = await snapshot(team.lab.id);
         const result = await mod[row.name]!({}, INPUTS[row.name]!(team));
         expect(result.ok).not.toBe(true);
@@ -333,7 +333,7 @@ describe("server actions refuse disallowed callers and change nothing", () => {
 
   it("the same input does change things for a manager (so the checks above can fail)", async () => {
     const mod = (await MODULES["app/(lab)/labs/[slug]/members/actions.ts"]!()) as Record<string, ActionFn>;
-    session.user = (({ id, email, name }) => ({ id, email, name }))(team.people.manager);
+    as(team.people.manager);
     const before = await snapshot(team.lab.id);
     const result = await mod.changeMemberRoleAction!({}, INPUTS.changeMemberRoleAction!(team));
     expect(result).toMatchObject({ ok: true });
@@ -348,29 +348,29 @@ describe("server actions refuse disallowed callers and change nothing", () => {
 
   it("chart, room, posting and stock actions do change things for an allowed member", async () => {
     // Not the educator: the test above made them an operator.
-    const call = async (file: string, name: string, as: "manager" | "lead" | "operator") => {
+    const runAction = async (file: string, name: string, who: Role) => {
       const mod = (await MODULES[file]!()) as Record<string, ActionFn>;
-      session.user = (({ id, email, name }) => ({ id, email, name }))(team.people[as]);
+      as(team.people[who]);
       return mod[name]!({}, INPUTS[name]!(team));
     };
     const before = await snapshot(team.lab.id);
-    expect(await call("app/(lab)/labs/[slug]/rooms/actions.ts", "createRoomAction", "manager")).toMatchObject({
+    expect(await runAction("app/(lab)/labs/[slug]/rooms/actions.ts", "createRoomAction", "manager")).toMatchObject({
       ok: true,
     });
-    expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "approveEditionAction", "lead")).toMatchObject({
+    expect(await runAction("app/(lab)/labs/[slug]/charts/actions.ts", "approveEditionAction", "lead")).toMatchObject({
       ok: true,
     });
-    expect(await call("app/(public)/v/[token]/actions.ts", "takeDownPostingAction", "operator")).toMatchObject({
+    expect(await runAction("app/(public)/v/[token]/actions.ts", "takeDownPostingAction", "operator")).toMatchObject({
       ok: true,
     });
     const STOCK = "app/(lab)/labs/[slug]/stock/actions.ts";
-    expect(await call(STOCK, "saveBalloonAction", "manager")).toMatchObject({ ok: true });
-    expect(await call(STOCK, "saveSizeAction", "manager")).toMatchObject({ ok: true });
-    expect(await call(STOCK, "importStockAction", "manager")).toMatchObject({ ok: true, data: { applied: true } });
-    expect(await call("app/(lab)/labs/[slug]/charts/actions.ts", "setChartLogoAction", "manager")).toMatchObject({
+    expect(await runAction(STOCK, "saveBalloonAction", "manager")).toMatchObject({ ok: true });
+    expect(await runAction(STOCK, "saveSizeAction", "manager")).toMatchObject({ ok: true });
+    expect(await runAction(STOCK, "importStockAction", "manager")).toMatchObject({ ok: true, data: { applied: true } });
+    expect(await runAction("app/(lab)/labs/[slug]/charts/actions.ts", "setChartLogoAction", "manager")).toMatchObject({
       ok: true,
     });
-    expect(await call("app/(lab)/labs/[slug]/rules/actions.ts", "saveLabRulesAction", "lead")).toMatchObject({
+    expect(await runAction("app/(lab)/labs/[slug]/rules/actions.ts", "saveLabRulesAction", "lead")).toMatchObject({
       ok: true,
       data: { revision: 1 },
     });

@@ -11,14 +11,12 @@ import { formatDate } from "@/lib/format/dates";
 import { listAudit } from "@/lib/ops/audit";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
-import type { Caller } from "@/lib/ops/caller";
 import { posterPdf } from "@/lib/ops/renders";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
+import { as } from "../support/roles";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
-type Person = { id: number; email: string; name: string };
-const as = (p: Person): Caller => ({ kind: "user", user: { id: p.id, email: p.email, name: p.name } });
 const ids = { chart: 0, edition: 0, family: 0 };
 const definition = (readingDistanceM: number) =>
   chartDefinitionSchema.parse({

@@ -6,30 +6,23 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, balloons, charts, editions } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import type { CheckJson } from "@/lib/editions/check-json";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
-import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
-import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { cardHeadings } from "@/tests/support/card-headings";
 import { labWithTeam } from "./support/fixtures";
-import { call } from "./support/routes";
+import { call } from "../support/routes";
 import { createChart } from "./support/writes";
+import { as } from "../support/roles";
+import { signOffSteps } from "./support/sign-off";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let chartId = 0;
-type Who = "manager" | "lead" | "educator" | "operator";
-const as = (who: Who) => {
-  const p = team.people[who];
-  session.user = { id: p.id, email: p.email, name: p.name };
-};
 
 type ErrorBody = { error: { message: string; issues?: { path: (string | number)[]; message: string }[] } };
 
@@ -39,17 +32,13 @@ const storedDefinition = async () =>
     string,
     unknown
   >;
-async function approvedEdition() {
-  as("educator");
-  const created = (await (await call(createEditionRoute, { id: String(chartId) }, "POST")).json()) as { id: number };
-  as("lead");
-  const approved = await call(approveRoute, { id: String(created.id) }, "POST", { reviewed: true });
-  expect(approved.status, JSON.stringify(await approved.clone().json())).toBe(200);
-  return created.id;
-}
+const { approvedEdition } = signOffSteps(
+  () => team.people,
+  () => chartId,
+);
 const editionRow = async (id: number) => (await db.select().from(editions).where(eq(editions.id, id)))[0]!;
 async function check(id: number) {
-  session.user = null;
+  as(null);
   const res = await call(checkRoute, { token: (await editionRow(id)).checkToken }, "GET");
   expect(res.status).toBe(200);
   return (await res.json()) as CheckJson;
@@ -98,7 +87,7 @@ afterAll(() => pool.end());
 describe("the badge card's sides through PATCH /api/v1/charts/:id", () => {
   it("refuses a missing lookup, a backwards range and values off the axis with 400 naming the field; nothing is stored", async () => {
     const before = await storedDefinition();
-    as("educator");
+    as(team.people.educator);
     for (const [card, path, words] of [
       [{ sides: [{ lookup: 0 }, { lookup: 2 }] }, "card.sides.1.lookup", "the chart has no lookup 3"],
       [{ sides: [{ lookup: 1, rows: [4, 3.5] }, { lookup: 0 }] }, "card.sides.0.rows", '"from" must not be above "to"'],
@@ -119,7 +108,7 @@ describe("the badge card's sides through PATCH /api/v1/charts/:id", () => {
 
   it("is the chart designers' to change: an operator gets 403 and nothing changes", async () => {
     const before = await storedDefinition();
-    as("operator");
+    as(team.people.operator);
     expect((await patch({ card: { sides: [{ lookup: 1 }, { lookup: 0 }] } })).status).toBe(403);
     expect(await storedDefinition()).toEqual(before);
   });
@@ -128,7 +117,7 @@ describe("the badge card's sides through PATCH /api/v1/charts/:id", () => {
     const first = await approvedEdition();
     expect(await check(first)).toMatchObject({ status: "current", reworded: false });
 
-    as("educator");
+    as(team.people.educator);
     const card = {
       sides: [
         { lookup: 0, rows: [3, 3.5] },
@@ -150,7 +139,7 @@ describe("the badge card's sides through PATCH /api/v1/charts/:id", () => {
     const snapshot = (await editionRow(second)).snapshot as Snapshot;
     expect(snapshot.card).toEqual(card);
 
-    as("operator");
+    as(team.people.operator);
     const pdf = await call(pdfRoute, { id: String(second) }, "GET", undefined, "?format=card");
     expect(pdf.status).toBe(200);
     const [front, back] = cardHeadings(Buffer.from(await pdf.arrayBuffer()), snapshot);
@@ -158,7 +147,7 @@ describe("the badge card's sides through PATCH /api/v1/charts/:id", () => {
     expect(back).toEqual({ rows: ["3.5", "3.75", "4.0"], cols: ["3.0", "3.5"] });
 
     // null clears the choice: back to lookup 1 then 2, and still only wording.
-    as("educator");
+    as(team.people.educator);
     expect((await patch({ card: null })).status).toBe(200);
     expect(await check(first)).toMatchObject({ status: "current", action: "keep" });
   });

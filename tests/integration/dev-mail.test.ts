@@ -3,11 +3,13 @@ import { pool } from "@/db";
 import { requestPasswordReset } from "@/lib/ops/accounts";
 import { readOwnMail } from "@/lib/ops/dev-mail";
 import { inviteMember } from "@/lib/ops/members";
-import { addMember, createLab, createUser, mailTo, sessionUser, unique } from "./support/fixtures";
+import { addMember, createLab, createUser, sessionUser, unique } from "./support/fixtures";
+import { mailTo } from "../support/mail";
+import { as } from "../support/roles";
 
 afterAll(() => pool.end());
 
-const asUser = async (id: number) => ({ kind: "user" as const, user: await sessionUser(id) });
+const asUser = async (id: number) => as(await sessionUser(id));
 
 describe("the local mail page shows a person only their own mail", () => {
   it("two labs' managers: neither reads the other's reset or the other lab's invitations", async () => {

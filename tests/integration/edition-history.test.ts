@@ -12,7 +12,7 @@ import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { POST as withdrawRoute } from "@/app/api/v1/editions/[id]/withdraw/route";
 import { GET as diffRoute } from "@/app/api/v1/editions/[id]/diff/route";
 import { chartEditionHistory } from "@/lib/ops/editions";
-import { call } from "./support/routes";
+import { call } from "../support/routes";
 import { labWithSmallChart } from "./support/writes";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));

@@ -9,7 +9,7 @@ import { approveEdition, createChart, createEdition, rejectEdition, withdrawEdit
 import { balloonFamilies, balloons, charts, editions, labs, users } from "@/db/schema";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { AppError } from "@/lib/errors";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { smallPotChart } from "../support/chart-fixtures";
 
 // An invented lab of its own, so these tests never depend on the demo seed.
 const tag = randomUUID().slice(0, 8);
@@ -45,23 +45,7 @@ beforeAll(async () => {
 
 afterAll(() => pool.end());
 
-const definition = () =>
-  chartDefinitionSchema.parse({
-    title: "POT test chart",
-    law: { law: "finet", ratio: 0.678 },
-    lookups: [
-      {
-        kind: "proximal",
-        rows: { from: 2.5, to: 3.5, step: 0.25 },
-        cols: { from: 2, to: 3, step: 0.25 },
-        rounding: "up",
-        familyId,
-      },
-    ],
-    paper: "A2",
-    orientation: "portrait",
-    readingDistanceM: 1.5,
-  });
+const definition = () => smallPotChart(familyId, "POT test chart");
 
 async function expectAppError(p: Promise<unknown>, status: number, text?: RegExp) {
   const err = await p.then(

@@ -9,7 +9,8 @@ import { AppError } from "@/lib/errors";
 import { changePassword, readAccount, requestEmailChange } from "@/lib/ops/account-settings";
 import { requestPasswordReset, resetPassword } from "@/lib/ops/accounts";
 import { readVerificationLink, verifyEmail } from "@/lib/ops/sign-up";
-import { createUser, FIXTURE_PASSWORD, linkIn, mailTo, unique } from "./support/fixtures";
+import { createUser, FIXTURE_PASSWORD, unique } from "./support/fixtures";
+import { linkIn, mailTo } from "../support/mail";
 
 afterAll(() => pool.end());
 

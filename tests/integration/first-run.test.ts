@@ -4,7 +4,6 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, balloons, labs } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import { SIZE_LADDER } from "@/lib/labs/first-run";
 import { createLadderFamily, firstRun } from "@/lib/ops/first-run";
 import { inviteMember } from "@/lib/ops/members";
@@ -13,28 +12,17 @@ import { createChart } from "@/lib/ops/charts";
 import { createLab } from "@/lib/ops/lab-create";
 import { getStock } from "@/lib/ops/stock";
 import { addMember, createUser, labWithTeam, unique } from "./support/fixtures";
+import { as } from "../support/roles";
+import { refusal } from "../support/refusal";
 
 afterAll(() => pool.end());
 
 type Team = Awaited<ReturnType<typeof labWithTeam>>;
 let team: Team;
-const as = (p: { id: number; email: string; name: string }) => ({
-  kind: "user" as const,
-  user: { id: p.id, email: p.email, name: p.name },
-});
 
 beforeAll(async () => {
   team = await labWithTeam();
 });
-
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
 
 const stockState = async (labId: number) => ({
   revision: (await db.select({ r: labs.stockRevision }).from(labs).where(eq(labs.id, labId)))[0]!.r,
@@ -45,7 +33,7 @@ const stockState = async (labId: number) => ({
 describe("the generic size ladder", () => {
   it("refuses a family without pressures (400 naming them) and changes nothing", async () => {
     const before = await stockState(team.lab.id);
-    const err = await failure(
+    const err = await refusal(
       createLadderFamily(
         as(team.people.manager),
         { lab: team.lab.slug },
@@ -59,7 +47,7 @@ describe("the generic size ladder", () => {
 
   it("only managers may use it", async () => {
     for (const role of ["lead", "educator", "operator"] as const) {
-      const err = await failure(
+      const err = await refusal(
         createLadderFamily(
           as(team.people[role]),
           { lab: team.lab.slug },
@@ -101,7 +89,7 @@ describe("the generic size ladder", () => {
     });
 
     // The same name again: 409 naming the field, nothing added.
-    const again = await failure(
+    const again = await refusal(
       createLadderFamily(
         as(team.people.manager),
         { lab: team.lab.slug },

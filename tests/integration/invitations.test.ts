@@ -7,7 +7,8 @@ import type { Member } from "@/lib/ops/access";
 import { inviteMember as inviteOp, resendInvitation as resendOp } from "@/lib/ops/members";
 import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
-import { createUser, labWithTeam, linkIn, mailTo, unique } from "./support/fixtures";
+import { createUser, labWithTeam, unique } from "./support/fixtures";
+import { linkIn, mailTo } from "../support/mail";
 import { acceptInvitation as acceptRow, revokeInvitation as revokeRow } from "./support/writes";
 
 const asCaller = (m: Member) => ({ kind: "user" as const, user: m.user });

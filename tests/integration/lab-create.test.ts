@@ -5,24 +5,17 @@ import { afterAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, invitations, labs, memberships, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import { AppError } from "@/lib/errors";
 import { changeName, changePassword, leaveLab, requestEmailChange } from "@/lib/ops/account-settings";
 import { createLab, createLabByOperator } from "@/lib/ops/lab-create";
 import { verifyEmail } from "@/lib/ops/sign-up";
 import { RESERVED_SLUGS, suggestSlug } from "@/lib/validation/lab";
-import { addMember, createUser, FIXTURE_PASSWORD, linkIn, mailTo, unique } from "./support/fixtures";
+import { addMember, createUser, FIXTURE_PASSWORD, unique } from "./support/fixtures";
+import { linkIn, mailTo } from "../support/mail";
+import { as } from "../support/roles";
+import { refusal } from "../support/refusal";
 
 afterAll(() => pool.end());
 
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
-const as = (u: { id: number; email: string; name: string }) => ({ kind: "user" as const, user: u });
 const labCount = async () => Number((await db.select({ n: count() }).from(labs))[0]!.n);
 const labBySlug = async (slug: string) => (await db.select().from(labs).where(eq(labs.slug, slug)))[0];
 
@@ -68,13 +61,13 @@ describe("creating a lab", () => {
       "lab/../x",
     ];
     for (const slug of bad) {
-      const err = await failure(createLab(as(me), { name: "Any name", slug }));
+      const err = await refusal(createLab(as(me), { name: "Any name", slug }));
       expect(err.status, slug).toBe(400);
       expect(err.issues?.map((i) => i.path.join("."))).toContain("slug");
     }
-    const both = await failure(createLab(as(me), { name: "", slug: "x" }));
+    const both = await refusal(createLab(as(me), { name: "", slug: "x" }));
     expect(both.issues?.map((i) => i.path[0]).sort()).toEqual(["name", "slug"]);
-    expect((await failure(createLab(as(me), { name: "Lab", slug: unique("ok"), extra: 1 }))).status).toBe(400);
+    expect((await refusal(createLab(as(me), { name: "Lab", slug: unique("ok"), extra: 1 }))).status).toBe(400);
     expect(await labCount()).toBe(before);
     // Edges of the length rule are allowed.
     const three = `z${unique("").slice(-2)}`.slice(0, 3);
@@ -89,7 +82,7 @@ describe("creating a lab", () => {
     const slug = unique("taken");
     await createLab(as(me), { name: "First (illustrative)", slug });
     const before = await labCount();
-    const err = await failure(createLab(as(other), { name: "Second (illustrative)", slug }));
+    const err = await refusal(createLab(as(other), { name: "Second (illustrative)", slug }));
     expect(err.status).toBe(409);
     expect(err.issues).toEqual([{ path: ["slug"], message: "Already taken: choose another." }]);
     expect(await labCount()).toBe(before);
@@ -100,7 +93,7 @@ describe("creating a lab", () => {
   });
 
   it("anonymous callers get 401", async () => {
-    expect((await failure(createLab({ kind: "anonymous" }, { name: "Nobody", slug: unique("anon") }))).status).toBe(
+    expect((await refusal(createLab({ kind: "anonymous" }, { name: "Nobody", slug: unique("anon") }))).status).toBe(
       401,
     );
   });
@@ -134,13 +127,13 @@ describe("npm run lab:create (createLabByOperator)", () => {
 
   it("refuses a bad e-mail (400) or a taken slug (409) and creates nothing", async () => {
     const before = await labCount();
-    const bad = await failure(createLabByOperator({ name: "X Lab", slug: unique("cli-bad"), manager: "nobody" }));
+    const bad = await refusal(createLabByOperator({ name: "X Lab", slug: unique("cli-bad"), manager: "nobody" }));
     expect(bad.status).toBe(400);
     expect(bad.issues?.[0]?.path).toEqual(["manager"]);
     const slug = unique("cli-taken");
     await createLabByOperator({ name: "Taken Lab", slug, manager: `${unique("m")}@example.test` });
     const again = `${unique("m2")}@example.test`;
-    expect((await failure(createLabByOperator({ name: "Again", slug, manager: again }))).status).toBe(409);
+    expect((await refusal(createLabByOperator({ name: "Again", slug, manager: again }))).status).toBe(409);
     expect(await labCount()).toBe(before + 1);
     expect(await db.select().from(invitations).where(eq(invitations.email, again))).toEqual([]);
     expect(await mailTo(again)).toEqual([]);
@@ -155,7 +148,7 @@ describe("the account page's operations", () => {
     await createLab(as(manager), { name: "Leave Lab (illustrative)", slug });
     const lab = (await labBySlug(slug))!;
     await addMember(lab.id, educator.id, "educator");
-    const err = await failure(leaveLab(as(manager), { lab: slug }));
+    const err = await refusal(leaveLab(as(manager), { lab: slug }));
     expect(err.status).toBe(409);
     expect(err.message).toMatch(/only manager of Leave Lab \(illustrative\).*Make another member a manager/);
     expect(await db.select().from(memberships).where(eq(memberships.labId, lab.id))).toHaveLength(2);
@@ -163,12 +156,12 @@ describe("the account page's operations", () => {
     const left = await db.select({ userId: memberships.userId }).from(memberships).where(eq(memberships.labId, lab.id));
     expect(left).toEqual([{ userId: manager.id }]);
     // Not a member any more: the lab is "not found" for them.
-    expect((await failure(leaveLab(as(educator), { lab: slug }))).status).toBe(404);
+    expect((await refusal(leaveLab(as(educator), { lab: slug }))).status).toBe(404);
   });
 
   it("name: 400 naming the field, else saved", async () => {
     const me = await createUser("namer");
-    expect((await failure(changeName(as(me), { name: "" }))).issues?.[0]?.path).toEqual(["name"]);
+    expect((await refusal(changeName(as(me), { name: "" }))).issues?.[0]?.path).toEqual(["name"]);
     expect(await changeName(as(me), { name: "Dr New Name" })).toEqual({ changed: true });
     expect((await db.select().from(users).where(eq(users.id, me.id)))[0]!.name).toBe("Dr New Name");
   });
@@ -176,7 +169,7 @@ describe("the account page's operations", () => {
   it("password: needs the current one (400 naming currentPassword, nothing changed); a change ends sessions", async () => {
     const me = await createUser("pw");
     const [before] = await db.select().from(users).where(eq(users.id, me.id));
-    const wrong = await failure(
+    const wrong = await refusal(
       changePassword(as(me), {
         currentPassword: "wrong password",
         password: "brand new phrase",
@@ -212,7 +205,7 @@ describe("the account page's operations", () => {
     const notes = await mailTo(other.email);
     expect(notes.map((m) => m.subject)).toEqual(["This address already has a Forkwall account"]);
     expect((await db.select().from(users).where(eq(users.id, me.id)))[0]!.email).toBe(target);
-    const wrong = await failure(
+    const wrong = await refusal(
       requestEmailChange(as(me), { email: `${unique("x")}@example.test`, currentPassword: "nope" }),
     );
     expect(wrong.issues?.[0]?.path).toEqual(["currentPassword"]);

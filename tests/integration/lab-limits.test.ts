@@ -12,8 +12,9 @@ import type { SessionUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { createLab } from "@/lib/ops/lab-create";
 import { inviteMember, resendInvitation } from "@/lib/ops/members";
-import { call } from "./support/routes";
-import { addMember, createLab as fixtureLab, createUser, mailTo, unique } from "./support/fixtures";
+import { call } from "../support/routes";
+import { addMember, createLab as fixtureLab, createUser, unique } from "./support/fixtures";
+import { mailTo } from "../support/mail";
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));

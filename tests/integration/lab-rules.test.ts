@@ -6,19 +6,17 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { getEdition } from "@/db/queries/editions";
 import { auditEvents, balloonFamilies, balloons, editions, labRules } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
-import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
+import { as } from "../support/roles";
+import { refusal } from "../support/refusal";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let other: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;
-type Person = { id: number; email: string; name: string };
-const as = (p: Person): Caller => ({ kind: "user", user: { id: p.id, email: p.email, name: p.name } });
 
 const definition = (title: string, law: object = { law: "murray" }) =>
   chartDefinitionSchema.parse({
@@ -29,15 +27,6 @@ const definition = (title: string, law: object = { law: "murray" }) =>
     orientation: "portrait",
     readingDistanceM: 1,
   });
-
-async function refusal(p: Promise<unknown>) {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
 
 async function footprint() {
   const [a] = await db.select({ n: count() }).from(auditEvents).where(eq(auditEvents.labId, team.lab.id));

@@ -4,45 +4,29 @@ import { and, desc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, labs } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { GET, PATCH } from "@/app/api/v1/labs/[slug]/settings/route";
 import { POST as inviteRoute } from "@/app/api/v1/labs/[slug]/invitations/route";
 import { formatDateTime } from "@/lib/format/dates";
-import { labWithTeam, mailTo, unique } from "./support/fixtures";
+import { labWithTeam, unique } from "./support/fixtures";
+import { mailTo } from "../support/mail";
+import { auditCount } from "../support/audit";
+import { as } from "../support/roles";
+import { send, type Answer } from "../support/routes";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
-type Who = "manager" | "lead" | "educator" | "operator" | "outsider" | "anonymous";
-const as = (who: Who) => {
-  session.user = who === "anonymous" ? null : (({ id, email, name }) => ({ id, email, name }))(team.people[who]);
-};
 
-async function call(method: "GET" | "PATCH", body?: unknown, slug = team.lab.slug) {
-  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
-  if (body !== undefined) headers["content-type"] = "application/json";
-  const handler = method === "GET" ? GET : PATCH;
-  const res = await handler(
-    new Request(`${env.APP_URL}/api/v1/labs/${slug}/settings`, {
-      method,
-      headers,
-      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
-    }),
-    { params: Promise.resolve({ slug }) },
+type SettingsAnswer = Answer & { changed: string[]; settings: Record<string, unknown> } & Record<string, unknown>;
+const settings = (method: "GET" | "PATCH", body?: unknown, slug = team.lab.slug) =>
+  send<SettingsAnswer>(
+    method === "GET" ? GET : PATCH,
+    { slug },
+    { method, body, path: `/api/v1/labs/${slug}/settings` },
   );
-  type Answer = {
-    changed: string[];
-    settings: Record<string, unknown>;
-    error: { issues: { path: string[]; message: string }[] };
-  } & Record<string, unknown>;
-  return { status: res.status, json: (await res.json()) as Answer };
-}
 
 const labRow = async () => (await db.select().from(labs).where(eq(labs.id, team.lab.id)))[0]!;
-const auditCount = async () =>
-  (await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.labId, team.lab.id))).length;
 
 beforeAll(async () => {
   team = await labWithTeam();
@@ -54,8 +38,8 @@ afterAll(async () => {
 describe("GET /api/v1/labs/:slug/settings", () => {
   it("every member reads the settings, with the defaults of a new lab", async () => {
     for (const who of ["manager", "lead", "educator", "operator"] as const) {
-      as(who);
-      const res = await call("GET");
+      as(team.people[who]);
+      const res = await settings("GET");
       expect(res.status).toBe(200);
       expect(res.json).toEqual({
         name: team.lab.name,
@@ -68,27 +52,27 @@ describe("GET /api/v1/labs/:slug/settings", () => {
   });
 
   it("is 401 for nobody and 404 for a manager of another lab", async () => {
-    as("anonymous");
-    expect((await call("GET")).status).toBe(401);
-    as("outsider");
-    expect((await call("GET")).status).toBe(404);
+    as(null);
+    expect((await settings("GET")).status).toBe(401);
+    as(team.people.outsider);
+    expect((await settings("GET")).status).toBe(404);
   });
 });
 
 describe("PATCH /api/v1/labs/:slug/settings", () => {
   it("refuses every role but the manager (403) and changes nothing", async () => {
     const before = await labRow();
-    const audits = await auditCount();
+    const audits = await auditCount(team.lab.id);
     for (const who of ["lead", "educator", "operator"] as const) {
-      as(who);
-      expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(403);
+      as(team.people[who]);
+      expect((await settings("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(403);
     }
-    as("outsider");
-    expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(404);
-    as("anonymous");
-    expect((await call("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(401);
+    as(team.people.outsider);
+    expect((await settings("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(404);
+    as(null);
+    expect((await settings("PATCH", { timeZone: "Europe/Berlin" })).status).toBe(401);
     expect(await labRow()).toEqual(before);
-    expect(await auditCount()).toBe(audits);
+    expect(await auditCount(team.lab.id)).toBe(audits);
   });
 
   it.each([
@@ -103,20 +87,23 @@ describe("PATCH /api/v1/labs/:slug/settings", () => {
     [{ isDemo: false }, "isDemo", /seed/],
     [{ timezone: "UTC" }, "timezone", /Unknown setting/],
   ])("refuses %j with 400 naming %s, changing nothing", async (body, field, message) => {
-    as("manager");
+    as(team.people.manager);
     const before = await labRow();
-    const audits = await auditCount();
+    const audits = await auditCount(team.lab.id);
     // A good field beside the bad one is not applied either.
-    const res = await call("PATCH", { ...body, contactLine: (body as { contactLine?: unknown }).contactLine ?? "ok" });
+    const res = await settings("PATCH", {
+      ...body,
+      contactLine: (body as { contactLine?: unknown }).contactLine ?? "ok",
+    });
     expect(res.status).toBe(400);
     const issue = res.json.error.issues.find((i) => i.path[0] === field);
     expect(issue?.message).toMatch(message);
     expect(await labRow()).toEqual(before);
-    expect(await auditCount()).toBe(audits);
+    expect(await auditCount(team.lab.id)).toBe(audits);
   });
 
   it("refuses a body that is not JSON (415) or not an object (400)", async () => {
-    as("manager");
+    as(team.people.manager);
     const res = await PATCH(
       new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/settings`, {
         method: "PATCH",
@@ -126,12 +113,12 @@ describe("PATCH /api/v1/labs/:slug/settings", () => {
       { params: Promise.resolve({ slug: team.lab.slug }) },
     );
     expect(res.status).toBe(415);
-    expect((await call("PATCH", ["timeZone"])).status).toBe(400);
+    expect((await settings("PATCH", ["timeZone"])).status).toBe(400);
   });
 
   it("a manager changes some settings; the audit row holds only the changed fields", async () => {
-    as("manager");
-    const res = await call("PATCH", {
+    as(team.people.manager);
+    const res = await settings("PATCH", {
       timeZone: "America/Sao_Paulo",
       numberFormat: "comma",
       contactLine: "  ask the charge nurse in the control room ",
@@ -164,12 +151,12 @@ describe("PATCH /api/v1/labs/:slug/settings", () => {
   });
 
   it("the same values again change nothing and write no audit row; an empty contact line clears it", async () => {
-    as("manager");
-    const audits = await auditCount();
-    const same = await call("PATCH", { timeZone: "America/Sao_Paulo" });
+    as(team.people.manager);
+    const audits = await auditCount(team.lab.id);
+    const same = await settings("PATCH", { timeZone: "America/Sao_Paulo" });
     expect(same.json.changed).toEqual([]);
-    expect(await auditCount()).toBe(audits);
-    const cleared = await call("PATCH", { contactLine: "" });
+    expect(await auditCount(team.lab.id)).toBe(audits);
+    const cleared = await settings("PATCH", { contactLine: "" });
     expect(cleared.json.settings.contactLine).toBeNull();
     expect((await labRow()).contactLine).toBeNull();
   });
@@ -177,8 +164,8 @@ describe("PATCH /api/v1/labs/:slug/settings", () => {
 
 describe("dates in the lab's time zone", () => {
   it("an invitation e-mail shows its expiry in the zone the manager chose, in the one format", async () => {
-    as("manager");
-    expect((await call("PATCH", { timeZone: "Pacific/Auckland" })).status).toBe(200);
+    as(team.people.manager);
+    expect((await settings("PATCH", { timeZone: "Pacific/Auckland" })).status).toBe(200);
     const email = `${unique("tz")}@example.test`;
     const res = await inviteRoute(
       new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/invitations`, {

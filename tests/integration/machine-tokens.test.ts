@@ -9,9 +9,7 @@ import { db, pool } from "@/db";
 import { getCheckByToken } from "@/lib/ops/check";
 import { listAuditEvents } from "@/db/queries/audit";
 import { auditEvents, balloonFamilies, balloons, labs, labTokens } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { GET as stockRoute } from "@/app/api/v1/labs/[slug]/stock/route";
 import { PATCH as balloonRoute } from "@/app/api/v1/labs/[slug]/stock/balloons/[id]/route";
 import { POST as importRoute } from "@/app/api/v1/labs/[slug]/stock/import/route";
@@ -22,57 +20,39 @@ import { GET as chartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import { PUT as rulesRoute } from "@/app/api/v1/labs/[slug]/rules/route";
 import { PATCH as settingsRoute } from "@/app/api/v1/labs/[slug]/settings/route";
 import { GET as solveRoute } from "@/app/api/v1/solve/route";
-import { labWithTeam, mailTo } from "./support/fixtures";
+import { labWithTeam } from "./support/fixtures";
+import { mailTo } from "../support/mail";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting } from "./support/writes";
+import { auditCount } from "../support/audit";
+import { as } from "../support/roles";
+import { send } from "../support/routes";
+import { smallPotChart } from "../support/chart-fixtures";
 
 // A low limit so the test can reach it; set before lib/env is first read.
 const LIMIT = vi.hoisted(() => {
   process.env.TOKEN_RATE_LIMIT_PER_MINUTE = "25";
   return 25;
 });
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 type Team = Awaited<ReturnType<typeof labWithTeam>>;
 let team: Team;
 const ids = { family: 0, checkToken: "", otherBalloon: 0 };
-type Person = "manager" | "lead" | "educator" | "operator" | "outsider";
-const as = (who: Person | null) => {
-  session.user = who ? (({ id, email, name }) => ({ id, email, name }))(team.people[who]) : null;
-};
 
-type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
-type Answer = Record<string, unknown> & {
+type TokenAnswer = Record<string, unknown> & {
   token: string;
   id: number;
   tokens: { id: number; name: string; lastUsedAt: string | null }[];
   error: { code: string; message: string; issues?: { path: (string | number)[]; message: string }[] };
 };
 
-/** A request as a browser session sends it (Origin set) or, with `bearer`, as a machine does (no Origin). */
-async function call<P>(
-  handler: Handler<P>,
-  params: P,
-  opts: { method?: string; body?: unknown; bearer?: string; contentType?: string; path?: string } = {},
-) {
-  const headers: Record<string, string> = opts.bearer
-    ? { authorization: `Bearer ${opts.bearer}` }
-    : { origin: new URL(env.APP_URL).origin };
-  if (opts.body !== undefined) headers["content-type"] = opts.contentType ?? "application/json";
-  const res = await handler(
-    new Request(`${env.APP_URL}${opts.path ?? "/api/v1/x"}`, {
-      method: opts.method ?? "GET",
-      headers,
-      ...(opts.body === undefined ? {} : { body: JSON.stringify(opts.body) }),
-    }),
-    { params: Promise.resolve(params) },
-  );
-  return { status: res.status, headers: res.headers, json: (await res.json()) as Answer };
-}
-
 async function newToken(name: string, scopes: string[]) {
-  as("manager");
-  const res = await call(createTokenRoute, { slug: team.lab.slug }, { method: "POST", body: { name, scopes } });
+  as(team.people.manager);
+  const res = await send<TokenAnswer>(
+    createTokenRoute,
+    { slug: team.lab.slug },
+    { method: "POST", body: { name, scopes } },
+  );
   expect(res.status).toBe(201);
   return res.json;
 }
@@ -86,8 +66,6 @@ const balloonAt = async (labId: number, d: number) =>
   )[0]!;
 const revision = async (labId: number) =>
   (await db.select({ r: labs.stockRevision }).from(labs).where(eq(labs.id, labId)))[0]!.r;
-const auditCount = async (labId: number) =>
-  (await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.labId, labId))).length;
 
 beforeAll(async () => {
   team = await labWithTeam();
@@ -110,22 +88,7 @@ beforeAll(async () => {
     .$returningId();
   ids.otherBalloon = ob!.id;
 
-  const definition = chartDefinitionSchema.parse({
-    title: "Token POT chart",
-    law: { law: "finet", ratio: 0.678 },
-    lookups: [
-      {
-        kind: "proximal",
-        rows: { from: 2.5, to: 3.5, step: 0.25 },
-        cols: { from: 2, to: 3, step: 0.25 },
-        rounding: "up",
-        familyId: ids.family,
-      },
-    ],
-    paper: "A2",
-    orientation: "portrait",
-    readingDistanceM: 1.5,
-  });
+  const definition = smallPotChart(ids.family, "Token POT chart");
   const labId = team.lab.id;
   const chart = await createChart({ labId, userId: team.people.educator.id, definition });
   const ed = await createEdition({ labId, chartId: chart.id, actor: team.people.educator });
@@ -147,7 +110,7 @@ describe("managing tokens", () => {
     expect(row!.tokenHash).toBe(createHash("sha256").update(created.token).digest("hex"));
     expect(JSON.stringify(row)).not.toContain(created.token.slice(4));
     // Listing never shows the token again.
-    const list = await call(listTokensRoute, { slug: team.lab.slug });
+    const list = await send<TokenAnswer>(listTokensRoute, { slug: team.lab.slug });
     expect(list.status).toBe(200);
     expect(JSON.stringify(list.json)).not.toContain(created.token.slice(4));
     expect(list.json.tokens.map((t) => t.name)).toContain("Inventory system");
@@ -155,19 +118,19 @@ describe("managing tokens", () => {
 
   it("only managers manage tokens (403 for other roles, 404 outside the lab, 401 signed out)", async () => {
     for (const who of ["lead", "educator", "operator"] as const) {
-      as(who);
-      expect((await call(listTokensRoute, { slug: team.lab.slug })).status).toBe(403);
-      const post = await call(
+      as(team.people[who]);
+      expect((await send<TokenAnswer>(listTokensRoute, { slug: team.lab.slug })).status).toBe(403);
+      const post = await send<TokenAnswer>(
         createTokenRoute,
         { slug: team.lab.slug },
         { method: "POST", body: { name: "x", scopes: ["stock:read"] } },
       );
       expect(post.status).toBe(403);
     }
-    as("outsider");
-    expect((await call(listTokensRoute, { slug: team.lab.slug })).status).toBe(404);
+    as(team.people.outsider);
+    expect((await send<TokenAnswer>(listTokensRoute, { slug: team.lab.slug })).status).toBe(404);
     as(null);
-    expect((await call(listTokensRoute, { slug: team.lab.slug })).status).toBe(401);
+    expect((await send<TokenAnswer>(listTokensRoute, { slug: team.lab.slug })).status).toBe(401);
   });
 
   it.each([
@@ -177,9 +140,9 @@ describe("managing tokens", () => {
     [{ name: "ok", scopes: "stock:read" }, "scopes"],
     [{ name: "ok", scopes: ["stock:read"], lab: "other" }, ""],
   ])("refuses %j with 400 naming %s", async (body, field) => {
-    as("manager");
+    as(team.people.manager);
     const before = await db.select({ id: labTokens.id }).from(labTokens).where(eq(labTokens.labId, team.lab.id));
-    const res = await call(createTokenRoute, { slug: team.lab.slug }, { method: "POST", body });
+    const res = await send<TokenAnswer>(createTokenRoute, { slug: team.lab.slug }, { method: "POST", body });
     expect(res.status).toBe(400);
     if (field) expect(res.json.error.issues?.some((i) => i.path[0] === field)).toBe(true);
     else expect(res.json.error.message).toMatch(/lab/);
@@ -188,8 +151,8 @@ describe("managing tokens", () => {
   });
 
   it("refuses a second active token of the same name (409)", async () => {
-    as("manager");
-    const res = await call(
+    as(team.people.manager);
+    const res = await send<TokenAnswer>(
       createTokenRoute,
       { slug: team.lab.slug },
       { method: "POST", body: { name: "Inventory system", scopes: ["stock:read"] } },
@@ -199,14 +162,14 @@ describe("managing tokens", () => {
 });
 
 describe("a token at work", () => {
-  let rw: Answer;
+  let rw: TokenAnswer;
   beforeAll(async () => {
     rw = await newToken("Pharmacy feed", ["stock:read", "stock:write"]);
     as(null);
   });
 
   it("reads its lab's stock with stock:read", async () => {
-    const res = await call(stockRoute, { slug: team.lab.slug }, { bearer: rw.token });
+    const res = await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: rw.token });
     expect(res.status).toBe(200);
     expect(JSON.stringify(res.json)).toContain("NC token family");
   });
@@ -214,7 +177,7 @@ describe("a token at work", () => {
   it("pushes a stock change: posted copies turn outdated, managers are mailed, audited as the token", async () => {
     expect((await getCheckByToken({ token: ids.checkToken }))!.status).toBe("current");
     const b = await balloonAt(team.lab.id, 3.25);
-    const res = await call(
+    const res = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.lab.slug, id: String(b.id) },
       { method: "PATCH", body: { inStock: false }, bearer: rw.token },
@@ -288,15 +251,15 @@ describe("a token at work", () => {
 
   it("is refused on another lab with 404, and nothing changes there", async () => {
     const before = { rev: await revision(team.other.id), audits: await auditCount(team.other.id) };
-    expect((await call(stockRoute, { slug: team.other.slug }, { bearer: rw.token })).status).toBe(404);
-    const res = await call(
+    expect((await send<TokenAnswer>(stockRoute, { slug: team.other.slug }, { bearer: rw.token })).status).toBe(404);
+    const res = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.other.slug, id: String(ids.otherBalloon) },
       { method: "PATCH", body: { inStock: false }, bearer: rw.token },
     );
     expect(res.status).toBe(404);
     // Its own lab's slug with the other lab's balloon id: that balloon is not found either.
-    const cross = await call(
+    const cross = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.lab.slug, id: String(ids.otherBalloon) },
       { method: "PATCH", body: { inStock: false }, bearer: rw.token },
@@ -311,17 +274,21 @@ describe("a token at work", () => {
     const before = { rev: await revision(team.lab.id), audits: await auditCount(team.lab.id) };
     const slug = { slug: team.lab.slug };
     const tries = [
-      await call(membersRoute, slug, { bearer: rw.token }),
-      await call(chartsRoute, slug, { bearer: rw.token }),
-      await call(rulesRoute, slug, { method: "PUT", body: { reviewPeriodMonths: 6 }, bearer: rw.token }),
-      await call(settingsRoute, slug, { method: "PATCH", body: { timeZone: "Asia/Tokyo" }, bearer: rw.token }),
-      await call(createTokenRoute, slug, {
+      await send<TokenAnswer>(membersRoute, slug, { bearer: rw.token }),
+      await send<TokenAnswer>(chartsRoute, slug, { bearer: rw.token }),
+      await send<TokenAnswer>(rulesRoute, slug, { method: "PUT", body: { reviewPeriodMonths: 6 }, bearer: rw.token }),
+      await send<TokenAnswer>(settingsRoute, slug, {
+        method: "PATCH",
+        body: { timeZone: "Asia/Tokyo" },
+        bearer: rw.token,
+      }),
+      await send<TokenAnswer>(createTokenRoute, slug, {
         method: "POST",
         body: { name: "child", scopes: ["stock:read"] },
         bearer: rw.token,
       }),
-      await call(listTokensRoute, slug, { bearer: rw.token }),
-      await call(solveRoute, {}, { bearer: rw.token, path: "/api/v1/solve?law=murray&d1=3&d2=2.5" }),
+      await send<TokenAnswer>(listTokensRoute, slug, { bearer: rw.token }),
+      await send<TokenAnswer>(solveRoute, {}, { bearer: rw.token, path: "/api/v1/solve?law=murray&d1=3&d2=2.5" }),
     ];
     expect(tries.map((t) => t.status)).toEqual(tries.map(() => 403));
     expect(tries[0]!.json.error.message).toMatch(/stock routes/);
@@ -333,7 +300,7 @@ describe("a token at work", () => {
 
   it("needs the exact JSON content type (415) but no Origin", async () => {
     const b = await balloonAt(team.lab.id, 2.5);
-    const res = await call(
+    const res = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.lab.slug, id: String(b.id) },
       { method: "PATCH", body: { inStock: false }, bearer: rw.token, contentType: "text/plain" },
@@ -345,10 +312,10 @@ describe("a token at work", () => {
   it("without stock:write a token reads but cannot change (403), and nothing changes", async () => {
     const ro = await newToken("Read-only dashboard", ["stock:read"]);
     as(null);
-    expect((await call(stockRoute, { slug: team.lab.slug }, { bearer: ro.token })).status).toBe(200);
+    expect((await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: ro.token })).status).toBe(200);
     const before = await revision(team.lab.id);
     const b = await balloonAt(team.lab.id, 2.75);
-    const res = await call(
+    const res = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.lab.slug, id: String(b.id) },
       { method: "PATCH", body: { inStock: false }, bearer: ro.token },
@@ -359,30 +326,36 @@ describe("a token at work", () => {
     // And a write-only token cannot read.
     const wo = await newToken("Write-only feed", ["stock:write"]);
     as(null);
-    expect((await call(stockRoute, { slug: team.lab.slug }, { bearer: wo.token })).status).toBe(403);
+    expect((await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: wo.token })).status).toBe(403);
   });
 
   it("unknown, malformed and revoked tokens answer 401 with a Bearer challenge", async () => {
-    const unknown = await call(stockRoute, { slug: team.lab.slug }, { bearer: `fwt_${"A".repeat(43)}` });
+    const unknown = await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: `fwt_${"A".repeat(43)}` });
     expect(unknown.status).toBe(401);
     expect(unknown.headers.get("www-authenticate")).toMatch(/^Bearer/);
-    expect((await call(stockRoute, { slug: team.lab.slug }, { bearer: "not-a-token" })).status).toBe(401);
+    expect((await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: "not-a-token" })).status).toBe(401);
 
     const doomed = await newToken("Old feed", ["stock:read", "stock:write"]);
-    as("operator");
+    as(team.people.operator);
     expect(
-      (await call(revokeTokenRoute, { slug: team.lab.slug, id: String(doomed.id) }, { method: "DELETE" })).status,
+      (await send<TokenAnswer>(revokeTokenRoute, { slug: team.lab.slug, id: String(doomed.id) }, { method: "DELETE" }))
+        .status,
     ).toBe(403);
-    as("manager");
-    const revoked = await call(revokeTokenRoute, { slug: team.lab.slug, id: String(doomed.id) }, { method: "DELETE" });
+    as(team.people.manager);
+    const revoked = await send<TokenAnswer>(
+      revokeTokenRoute,
+      { slug: team.lab.slug, id: String(doomed.id) },
+      { method: "DELETE" },
+    );
     expect(revoked.status).toBe(200);
     expect(
-      (await call(revokeTokenRoute, { slug: team.lab.slug, id: String(doomed.id) }, { method: "DELETE" })).status,
+      (await send<TokenAnswer>(revokeTokenRoute, { slug: team.lab.slug, id: String(doomed.id) }, { method: "DELETE" }))
+        .status,
     ).toBe(404);
     as(null);
     const before = await revision(team.lab.id);
     const b = await balloonAt(team.lab.id, 3);
-    const res = await call(
+    const res = await send<TokenAnswer>(
       balloonRoute,
       { slug: team.lab.slug, id: String(b.id) },
       { method: "PATCH", body: { inStock: false }, bearer: doomed.token },
@@ -391,8 +364,8 @@ describe("a token at work", () => {
     expect(res.headers.get("www-authenticate")).toMatch(/^Bearer/);
     expect(await revision(team.lab.id)).toBe(before);
     // Gone from the list; the audit log keeps its name.
-    as("manager");
-    const list = await call(listTokensRoute, { slug: team.lab.slug });
+    as(team.people.manager);
+    const list = await send<TokenAnswer>(listTokensRoute, { slug: team.lab.slug });
     expect(list.json.tokens.map((t) => t.id)).not.toContain(doomed.id);
     const page = await listAuditEvents({ labId: team.lab.id });
     expect(page.events.find((e) => e.action === "lab.token_revoked")?.detail).toEqual({ name: "Old feed" });
@@ -404,13 +377,13 @@ describe("a token at work", () => {
     const statuses: number[] = [];
     let retryAfter: string | null = null;
     for (let i = 0; i < LIMIT + 2; i++) {
-      const res = await call(stockRoute, { slug: team.lab.slug }, { bearer: busy.token });
+      const res = await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: busy.token });
       statuses.push(res.status);
       if (res.status === 429) retryAfter = res.headers.get("retry-after");
     }
     expect(statuses.slice(0, LIMIT)).toEqual(Array(LIMIT).fill(200));
     expect(statuses.slice(LIMIT)).toEqual([429, 429]);
     expect(Number(retryAfter)).toBeGreaterThan(0);
-    expect((await call(stockRoute, { slug: team.lab.slug }, { bearer: rw.token })).status).toBe(200);
+    expect((await send<TokenAnswer>(stockRoute, { slug: team.lab.slug }, { bearer: rw.token })).status).toBe(200);
   });
 });

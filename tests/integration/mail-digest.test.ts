@@ -9,17 +9,16 @@ import { balloonFamilies, balloons, postings, rooms, staleNotices } from "@/db/s
 import { env } from "@/lib/env";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
-import type { Caller } from "@/lib/ops/caller";
 import { deliverDigest, deliverDueDigests } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam, mailTo } from "./support/fixtures";
+import { labWithTeam } from "./support/fixtures";
+import { mailTo } from "../support/mail";
 import { createRoom, recordPosting, takeDownPosting, updateBalloon } from "./support/writes";
+import { as } from "../support/roles";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
-type Person = { id: number; email: string; name: string };
-const as = (p: Person): Caller => ({ kind: "user", user: { id: p.id, email: p.email, name: p.name } });
-const QUIET = 1;
-const quiet = () => new Promise((r) => setTimeout(r, QUIET * 1000 + 150));
+// What the timer does once the lab has been quiet, without waiting the quiet period out.
+const afterQuiet = () => deliverDigest({ labId: team.lab.id, quietSeconds: 0 });
 const families: { id: number; title: string; room: string; balloon375: number }[] = [];
 
 beforeAll(async () => {
@@ -87,7 +86,7 @@ const setStock = (i: number, inStock: boolean) =>
   });
 
 describe("stale-copy digest", () => {
-  it("runs with a quiet period under test", () => expect(env.STALE_MAIL_QUIET_SECONDS).toBe(QUIET));
+  it("runs with a quiet period under test", () => expect(env.STALE_MAIL_QUIET_SECONDS).toBeGreaterThanOrEqual(1));
 
   it("three quick changes: nothing during the quiet period, then ONE digest naming every room and copy, sent once by racing deliverers", async () => {
     const before = (await mailTo(team.people.manager.email)).length;
@@ -98,13 +97,8 @@ describe("stale-copy digest", () => {
     expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
     expect(await mailTo(team.people.manager.email)).toHaveLength(before);
 
-    await quiet();
     // Two instances' timers and a write's delivery race for the same digest.
-    const outcomes = await Promise.all([
-      deliverDigest({ labId: team.lab.id }),
-      deliverDigest({ labId: team.lab.id }),
-      deliverDueDigests(),
-    ]);
+    const outcomes = await Promise.all([afterQuiet(), afterQuiet(), deliverDueDigests({ quietSeconds: 0 })]);
     expect(outcomes.filter((o) => o === "digest")).toHaveLength(1);
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 1);
@@ -118,8 +112,7 @@ describe("stale-copy digest", () => {
     const rows = await db.select().from(staleNotices).where(eq(staleNotices.labId, team.lab.id));
     expect(rows.every((r) => r.sentAt !== null)).toBe(true);
     // Nothing more after another quiet period.
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
+    expect(await afterQuiet()).toBeNull();
     expect(await mailTo(team.people.manager.email)).toHaveLength(before + 1);
   });
 
@@ -127,13 +120,11 @@ describe("stale-copy digest", () => {
     const before = (await mailTo(team.people.manager.email)).length;
     await setStock(0, true);
     await setStock(1, true);
-    await quiet();
     // Copy 3 is still stale: the digest says so (no all-clear yet) only if a notice is waiting; none is.
-    expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
+    expect(await afterQuiet()).toBeNull();
     await setStock(2, true);
     expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBe("all-clear");
+    expect(await afterQuiet()).toBe("all-clear");
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 1);
     expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in "${team.lab.name}" is current again`);
@@ -144,8 +135,7 @@ describe("stale-copy digest", () => {
     const before = (await mailTo(team.people.manager.email)).length;
     await setStock(1, false);
     await setStock(1, true);
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBe("quiet");
+    expect(await afterQuiet()).toBe("quiet");
     expect(await mailTo(team.people.manager.email)).toHaveLength(before);
   });
 });
@@ -154,24 +144,21 @@ describe("a stale copy taken down", () => {
   it("when it was the last stale copy, an all-clear follows that names what came down", async () => {
     const before = (await mailTo(team.people.manager.email)).length;
     await setStock(0, false);
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBe("digest");
+    expect(await afterQuiet()).toBe("digest");
     const [hanging] = await db
       .select({ id: postings.id })
       .from(postings)
       .innerJoin(rooms, eq(rooms.id, postings.roomId))
       .where(and(eq(rooms.labId, team.lab.id), eq(rooms.name, families[0]!.room), isNull(postings.removedAt)));
     await takeDownPosting({ labId: team.lab.id, postingId: hanging!.id, actor: team.people.operator });
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBe("all-clear");
+    expect(await afterQuiet()).toBe("all-clear");
     const mails = await mailTo(team.people.manager.email);
     expect(mails).toHaveLength(before + 2);
     expect(mails.at(-1)!.subject).toBe(`Forkwall: every wall printout in "${team.lab.name}" is current again`);
     expect(mails.at(-1)!.text).toContain(`was taken down in ${families[0]!.room}`);
     // The stock comes back with nothing hanging in that room: no mail.
     await setStock(0, true);
-    await quiet();
-    expect(await deliverDigest({ labId: team.lab.id })).toBeNull();
+    expect(await afterQuiet()).toBeNull();
     expect(await mailTo(team.people.manager.email)).toHaveLength(before + 2);
   });
 });

@@ -4,20 +4,14 @@ import { db, pool } from "@/db";
 import { listMembers } from "@/db/queries/members";
 import { changeMemberRole, removeMember } from "./support/writes";
 import { auditEvents, memberships } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import { addMember, createLab, createUser, labWithTeam } from "./support/fixtures";
+import { refusal } from "../support/refusal";
+import { auditCount } from "../support/audit";
 
 afterAll(() => pool.end());
 
 const roleOf = async (id: number) =>
   (await db.select({ role: memberships.role }).from(memberships).where(eq(memberships.id, id)))[0]?.role;
-const auditCount = async (labId: number) =>
-  (await db.select().from(auditEvents).where(eq(auditEvents.labId, labId))).length;
-const failure = (p: Promise<unknown>) =>
-  p.then(
-    () => null,
-    (e: unknown) => e as AppError,
-  );
 
 describe("members: roles and removal", () => {
   let team: Awaited<ReturnType<typeof labWithTeam>>;
@@ -28,7 +22,7 @@ describe("members: roles and removal", () => {
   it("the last manager can be neither demoted nor removed, and nothing is recorded", async () => {
     const { lab, people } = team;
     const before = await auditCount(lab.id);
-    const demote = await failure(
+    const demote = await refusal(
       changeMemberRole({
         labId: lab.id,
         membershipId: people.manager.membershipId,
@@ -38,7 +32,7 @@ describe("members: roles and removal", () => {
     );
     expect(demote?.status).toBe(409);
     expect(demote?.message).toMatch(/only manager/);
-    const remove = await failure(
+    const remove = await refusal(
       removeMember({ labId: lab.id, membershipId: people.manager.membershipId, actorUserId: people.manager.id }),
     );
     expect(remove?.status).toBe(409);
@@ -88,7 +82,7 @@ describe("members: roles and removal", () => {
       role: "educator",
       actorUserId: people.manager.id,
     });
-    const last = await failure(
+    const last = await refusal(
       removeMember({ labId: lab.id, membershipId: people.lead.membershipId, actorUserId: people.lead.id }),
     );
     expect(last?.status).toBe(409);
@@ -117,7 +111,7 @@ describe("members: roles and removal", () => {
 
   it("a membership of another lab is not found through this lab", async () => {
     const { lab, other, people } = team;
-    const err = await failure(
+    const err = await refusal(
       changeMemberRole({
         labId: lab.id,
         membershipId: people.outsider.membershipId,

@@ -13,6 +13,8 @@ import path from "node:path";
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import * as local from "@/db/local-server";
+import { until } from "../support/poll";
+import { smallPotChart } from "../support/chart-fixtures";
 
 async function freePort(): Promise<number> {
   return new Promise((resolve) => {
@@ -98,13 +100,13 @@ afterAll(async () => {
 
 const kill = () => process.kill(Number(readFileSync(server.pidFile, "utf8").trim()), "SIGKILL");
 
-async function waitForDeath() {
-  for (let i = 0; i < 100; i++) {
-    if (!(await local.isRunning(server))) return;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error("mariadbd did not die");
-}
+const waitForDeath = () =>
+  until(
+    "mariadbd to die",
+    () => local.isRunning(server),
+    (running) => !running,
+    { timeoutMs: 10_000 },
+  );
 
 /** Runs `op` while a gap lock holds its audit insert, kills the server there, and restarts it. */
 async function killDuring(op: () => Promise<unknown>): Promise<unknown> {
@@ -194,22 +196,7 @@ describe("a database killed mid-write leaves nothing half-written, and the app r
     const { db } = app.db;
     const { editions, auditEvents } = app.schema;
     const { eq, and } = app.drizzle;
-    const definition = app.validation.chartDefinitionSchema.parse({
-      title: "Outage chart",
-      law: { law: "finet", ratio: 0.678 },
-      lookups: [
-        {
-          kind: "proximal",
-          rows: { from: 2.5, to: 3.5, step: 0.25 },
-          cols: { from: 2, to: 3, step: 0.25 },
-          rounding: "up",
-          familyId: ids.familyId,
-        },
-      ],
-      paper: "A2",
-      orientation: "portrait",
-      readingDistanceM: 1.5,
-    });
+    const definition = smallPotChart(ids.familyId, "Outage chart");
     const { id: chartId } = await app.charts.createChart({ labId: ids.labId, userId: ids.educator, definition });
     const author = { id: ids.educator, name: "Outage educator" };
     const lead = { id: ids.lead, name: "Outage lead" };

@@ -6,7 +6,8 @@ import { verifyPassword } from "@/lib/auth/password";
 import { requestPasswordReset, resetPassword } from "@/lib/ops/accounts";
 import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
-import { createUser, FIXTURE_PASSWORD, linkIn, mailTo, unique } from "./support/fixtures";
+import { createUser, FIXTURE_PASSWORD, unique } from "./support/fixtures";
+import { linkIn, mailTo } from "../support/mail";
 
 afterAll(() => pool.end());
 

@@ -9,7 +9,6 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, balloons } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import { formatDate } from "@/lib/format/dates";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
@@ -18,19 +17,15 @@ import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { withTempDir } from "@/tests/support/pdf-tools";
 import { labWithTeam } from "./support/fixtures";
-import { call } from "./support/routes";
+import { call } from "../support/routes";
 import { createChart } from "./support/writes";
+import { as } from "../support/roles";
+import { signOffSteps } from "./support/sign-off";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;
-type Role = "manager" | "lead" | "educator" | "operator";
-const asRole = (role: Role) => {
-  const p = team.people[role];
-  session.user = { id: p.id, email: p.email, name: p.name };
-};
 
 const json = async (res: Response) =>
   (await res.json()) as { id: number; error: { message: string; issues?: { path: string[]; message: string }[] } };
@@ -54,14 +49,10 @@ function pdfPages(bytes: Buffer): { texts: string[]; sizes: { w: number; h: numb
   });
 }
 
-async function approvedEdition(chartId: number) {
-  asRole("educator");
-  const created = await json(await call(createEditionRoute, { id: String(chartId) }, "POST"));
-  asRole("lead");
-  const approved = await call(approveRoute, { id: String(created.id) }, "POST", { reviewed: true });
-  expect(approved.status).toBe(200);
-  return created.id;
-}
+const { approvedEdition } = signOffSteps(
+  () => team.people,
+  () => 0,
+);
 
 const definition = (over: Record<string, unknown> = {}) =>
   chartDefinitionSchema.parse({
@@ -95,7 +86,7 @@ afterAll(() => pool.end());
 
 describe("GET /api/v1/editions/:id/pdf variants", () => {
   it("answers 400 naming the parameter for values it does not list, and renders nothing", async () => {
-    asRole("operator");
+    as(team.people.operator);
     for (const [query, name] of [
       ["?tiles=B5", "tiles"],
       ["?tiles=a4", "tiles"],
@@ -114,7 +105,7 @@ describe("GET /api/v1/editions/:id/pdf variants", () => {
   });
 
   it("the current edition prints no band; each variant is cached under its own key", async () => {
-    asRole("operator");
+    as(team.people.operator);
     const a = await pdf(first);
     expect(a.res.status).toBe(200);
     expect(a.res.headers.get("x-poster-band")).toBeNull();
@@ -137,13 +128,13 @@ describe("GET /api/v1/editions/:id/pdf variants", () => {
   });
 
   it("a superseded edition carries NOT CURRENT - DO NOT POST with today's date on every page, in every variant", async () => {
-    asRole("manager");
+    as(team.people.manager);
     // A clinical change (the law): a notes-only edition would leave the first copy current.
     expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", { law: { law: "square" } })).status).toBe(
       200,
     );
     await approvedEdition(chartId);
-    asRole("operator");
+    as(team.people.operator);
     const today = formatDate(new Date(), "UTC");
     for (const query of ["", "?tiles=A3", "?format=card"]) {
       const { res, bytes } = await pdf(first, query);
@@ -156,10 +147,10 @@ describe("GET /api/v1/editions/:id/pdf variants", () => {
 
   it("the archive copy is for managers only, stamped ARCHIVE COPY, and audited", async () => {
     for (const role of ["operator", "educator", "lead"] as const) {
-      asRole(role);
+      as(team.people[role]);
       expect((await pdf(first, "?copy=archive")).res.status, role).toBe(403);
     }
-    asRole("manager");
+    as(team.people.manager);
     const { res, bytes } = await pdf(first, "?copy=archive");
     expect(res.status).toBe(200);
     expect(res.headers.get("content-disposition")).toContain("ARCHIVE-COPY");
@@ -198,9 +189,9 @@ describe("the legibility gate on approval", () => {
         }),
       })
     ).id;
-    asRole("educator");
+    as(team.people.educator);
     const created = await json(await call(createEditionRoute, { id: String(small) }, "POST"));
-    asRole("lead");
+    as(team.people.lead);
     const res = await call(approveRoute, { id: String(created.id) }, "POST", { reviewed: true });
     expect(res.status).toBe(409);
     const body = await json(res);

@@ -1,21 +1,20 @@
-// Races that used to answer 500 or leave repeats: concurrent writes through the operations
-// layer end in one row and a 409 that names the field (or the existing row, for postings), and
-// the database itself refuses a second hanging copy of an edition in one room.
+// Concurrent writes through the operations layer end in one row and a 409 that names the field
+// (or the existing row, for postings), never a 500 or a repeat, and the database itself refuses
+// a second hanging copy of an edition in one room.
 import { and, count, eq, isNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, postings, rooms } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import type { Caller } from "@/lib/ops/caller";
 import { createRoom, recordPosting } from "@/lib/ops/postings";
 import { conflictFor, duplicateKey } from "@/lib/ops/write";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam, unique } from "./support/fixtures";
 import { approveEdition, createChart, createEdition } from "./support/writes";
+import { as } from "../support/roles";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let editionId = 0;
-const as = (p: { id: number; email: string; name: string }): Caller => ({ kind: "user", user: p });
 
 beforeAll(async () => {
   team = await labWithTeam();

@@ -7,10 +7,12 @@ import { emailVerifications, invitations, labs, rateLimits, users } from "@/db/s
 import { hashToken, newToken } from "@/lib/auth/tokens";
 import { acceptInvitationAsMember } from "@/lib/ops/accounts";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
 import { createLab } from "@/lib/ops/lab-create";
 import { admitSignUp, completeSignUp, resendVerification, signUp, verifyEmail } from "@/lib/ops/sign-up";
-import { createLab as createFixtureLab, createUser, mailTo, unique } from "./support/fixtures";
+import { createLab as createFixtureLab, createUser, unique } from "./support/fixtures";
+import { as } from "../support/roles";
+import { linkIn, mailTo } from "../support/mail";
+import { refusal } from "../support/refusal";
 
 afterAll(() => pool.end());
 
@@ -18,25 +20,8 @@ const email = (prefix = "signup") => `${unique(prefix)}@example.test`;
 const ip = () => `203.0.113.${randomBytes(1)[0]}-${unique("ip")}`;
 const PASSWORD = "a long enough phrase";
 
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
-
 const userRow = async (address: string) => (await db.select().from(users).where(eq(users.email, address)))[0];
 const userCount = async () => Number((await db.select({ n: count() }).from(users))[0]!.n);
-
-function linkIn(text: string) {
-  const m = text.match(/https?:\/\/\S+\/verify-email\/([A-Za-z0-9_-]{43})/);
-  if (!m) throw new Error(`no confirmation link in: ${text}`);
-  return m[1]!;
-}
-
-const caller = (u: { id: number; email: string; name: string }) => ({ kind: "user" as const, user: u });
 
 describe("sign-up", () => {
   it("creates an unverified account and mails a single-use link stored only as its hash", async () => {
@@ -51,7 +36,7 @@ describe("sign-up", () => {
 
     const [mail] = await mailTo(address);
     expect(mail?.subject).toBe("Confirm your e-mail address for Forkwall");
-    const token = linkIn(mail!.text);
+    const token = linkIn(mail!.text, "verify-email").token;
     const [link] = await db.select().from(emailVerifications).where(eq(emailVerifications.userId, user!.id));
     expect(link!.tokenHash).toBe(hashToken(token));
     expect(JSON.stringify(link)).not.toContain(token);
@@ -60,7 +45,7 @@ describe("sign-up", () => {
     expect(ttl).toBeLessThanOrEqual(24 * 3600_000);
 
     // Unverified: no lab can be created.
-    const refused = await failure(createLab(caller(user!), { name: "Too early lab", slug: unique("early") }));
+    const refused = await refusal(createLab(as(user!), { name: "Too early lab", slug: unique("early") }));
     expect(refused.status).toBe(403);
     expect(refused.message).toMatch(/Confirm your e-mail/);
 
@@ -69,10 +54,10 @@ describe("sign-up", () => {
     expect((await userRow(address))!.emailVerifiedAt).toBeInstanceOf(Date);
 
     // Single use.
-    expect((await failure(verifyEmail({ token }))).status).toBe(409);
+    expect((await refusal(verifyEmail({ token }))).status).toBe(409);
     // Now a lab can be created.
     const slug = unique("verified");
-    expect(await createLab(caller(user!), { name: "Verified lab (illustrative)", slug })).toMatchObject({
+    expect(await createLab(as(user!), { name: "Verified lab (illustrative)", slug })).toMatchObject({
       lab: { slug },
       role: "manager",
     });
@@ -103,10 +88,10 @@ describe("sign-up", () => {
 
   it("refuses bad fields with 400 naming each, and stores nothing", async () => {
     const usersBefore = await userCount();
-    const err = await failure(signUp({ name: "", email: "not an address", password: "short" }, { ip: ip() }));
+    const err = await refusal(signUp({ name: "", email: "not an address", password: "short" }, { ip: ip() }));
     expect(err.status).toBe(400);
     expect(err.issues!.map((i) => i.path[0]).sort()).toEqual(["email", "name", "password"]);
-    const extra = await failure(
+    const extra = await refusal(
       signUp({ name: "Ok Name", email: email(), password: PASSWORD, admin: true }, { ip: ip() }),
     );
     expect(extra.status).toBe(400);
@@ -118,7 +103,7 @@ describe("sign-up", () => {
     const was = env.SIGNUP;
     env.SIGNUP = "invite-only";
     try {
-      const err = await failure(signUp({ name: "Closed Door", email: address, password: PASSWORD }, { ip: ip() }));
+      const err = await refusal(signUp({ name: "Closed Door", email: address, password: PASSWORD }, { ip: ip() }));
       expect(err.status).toBe(403);
       expect(err.message).toMatch(/invitation-only/);
     } finally {
@@ -133,7 +118,7 @@ describe("sign-up", () => {
     for (let i = 0; i < 10; i++)
       await admitSignUp({ name: "Flood Test", email: email("flood"), password: PASSWORD }, { ip: from });
     const address = email("flood-last");
-    const err = await failure(signUp({ name: "Flood Test", email: address, password: PASSWORD }, { ip: from }));
+    const err = await refusal(signUp({ name: "Flood Test", email: address, password: PASSWORD }, { ip: from }));
     expect(err.status).toBe(429);
     expect(await userRow(address)).toBeUndefined();
     const [row] = await db
@@ -149,18 +134,18 @@ describe("sign-up", () => {
     const address = email("resend");
     await signUp({ name: "Resend Person", email: address, password: PASSWORD }, { ip: ip() });
     const user = (await userRow(address))!;
-    const first = linkIn((await mailTo(address))[0]!.text);
-    const me = caller({ id: user.id, email: user.email, name: user.name });
+    const first = linkIn((await mailTo(address))[0]!.text, "verify-email").token;
+    const me = as({ id: user.id, email: user.email, name: user.name });
     for (let i = 0; i < 4; i++) expect(await resendVerification(me)).toEqual({ email: address });
     const mails = await mailTo(address);
     expect(mails).toHaveLength(5);
-    const err = await failure(resendVerification(me));
+    const err = await refusal(resendVerification(me));
     expect(err.status).toBe(429);
     expect(await mailTo(address)).toHaveLength(5);
-    expect((await failure(verifyEmail({ token: first }))).status).toBe(409);
-    await verifyEmail({ token: linkIn(mails[4]!.text) });
-    expect((await failure(resendVerification(me))).status).toBe(409);
-    expect((await failure(resendVerification({ kind: "anonymous" }))).status).toBe(401);
+    expect((await refusal(verifyEmail({ token: first }))).status).toBe(409);
+    await verifyEmail({ token: linkIn(mails[4]!.text, "verify-email").token });
+    expect((await refusal(resendVerification(me))).status).toBe(409);
+    expect((await refusal(resendVerification({ kind: "anonymous" }))).status).toBe(401);
   });
 
   it("an unconfirmed account that accepts an invitation to its address is confirmed by it", async () => {
@@ -178,13 +163,13 @@ describe("sign-up", () => {
       expiresAt: new Date(Date.now() + 3600_000),
       lastSentAt: new Date(),
     });
-    await acceptInvitationAsMember(caller({ id: user.id, email: address, name: user.name }), { token });
+    await acceptInvitationAsMember(as({ id: user.id, email: address, name: user.name }), { token });
     expect((await userRow(address))!.emailVerifiedAt).toBeInstanceOf(Date);
   });
 
   it("treats a mangled or unknown link as not found", async () => {
-    expect((await failure(verifyEmail({ token: "nope" }))).status).toBe(404);
-    expect((await failure(verifyEmail({ token: "A".repeat(43) }))).status).toBe(404);
+    expect((await refusal(verifyEmail({ token: "nope" }))).status).toBe(404);
+    expect((await refusal(verifyEmail({ token: "A".repeat(43) }))).status).toBe(404);
   });
 
   it("counts existing and invited accounts as verified (migration default)", async () => {

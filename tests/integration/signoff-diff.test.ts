@@ -4,61 +4,27 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, editions, labRules } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
-import { env } from "@/lib/env";
 import type { EditionDiff } from "@/lib/editions/diff";
-import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
-import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
-import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as diffRoute } from "@/app/api/v1/editions/[id]/diff/route";
 import { PUT as putRules } from "@/app/api/v1/labs/[slug]/rules/route";
 import { signOffQueue } from "@/lib/ops/editions";
-import type { Caller } from "@/lib/ops/caller";
 import { labWithSmallChart } from "./support/writes";
+import { as, type Member } from "../support/roles";
+import { callJson } from "../support/routes";
+import { signOffSteps } from "./support/sign-off";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 let team: Awaited<ReturnType<typeof labWithSmallChart>>["team"];
 let chartId = 0;
-type Who = "manager" | "lead" | "educator" | "operator" | "outsider";
-const as = (who: Who) => {
-  const p = team.people[who];
-  session.user = { id: p.id, email: p.email, name: p.name };
-};
 
-type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
-async function call<P, T = Record<string, unknown>>(handler: Handler<P>, params: P, method: string, body?: unknown) {
-  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
-  if (body !== undefined) headers["content-type"] = "application/json";
-  const res = await handler(
-    new Request(`${env.APP_URL}/api/v1/x`, {
-      method,
-      headers,
-      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
-    }),
-    { params: Promise.resolve(params) },
-  );
-  return { status: res.status, json: (await res.json()) as T };
-}
-
-const newEdition = async () => {
-  as("educator");
-  const r = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(chartId) }, "POST");
-  expect([200, 201]).toContain(r.status);
-  return r.json.id;
-};
-const approve = async (id: number) => {
-  as("lead");
-  expect((await call(approveRoute, { id: String(id) }, "POST", { reviewed: true })).status).toBe(200);
-};
-const diff = async (id: number, who: Who = "lead") => {
-  as(who);
-  return call<{ id: string }, EditionDiff>(diffRoute, { id: String(id) }, "GET");
-};
-const patch = async (body: unknown) => {
-  as("educator");
-  expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", body)).status).toBe(200);
+const { newEdition, approve, patch } = signOffSteps(
+  () => team.people,
+  () => chartId,
+);
+const diff = async (id: number, who: Member = "lead") => {
+  as(team.people[who]);
+  return callJson<{ id: string }, EditionDiff>(diffRoute, { id: String(id) }, "GET");
 };
 
 beforeAll(async () => {
@@ -127,13 +93,8 @@ describe("GET /api/v1/editions/:id/diff", () => {
 });
 
 describe("the approvers' queue", () => {
-  const caller = (who: Who): Caller => {
-    const p = team.people[who];
-    return { kind: "user", user: { id: p.id, email: p.email, name: p.name } };
-  };
-
   it("lists waiting drafts oldest first, for the lead; managers only once the rules grant approval", async () => {
-    const queue = await signOffQueue(caller("lead"), { lab: team.lab.slug });
+    const queue = await signOffQueue(as(team.people.lead), { lab: team.lab.slug });
     const drafts = await db.select().from(editions).where(eq(editions.labId, team.lab.id));
     const waiting = drafts
       .filter((e) => e.status === "draft")
@@ -143,12 +104,12 @@ describe("the approvers' queue", () => {
     expect(queue[0]).toMatchObject({ chartTitle: "Diff chart", createdByName: team.people.educator.name });
 
     for (const who of ["manager", "educator", "operator"] as const)
-      await expect(signOffQueue(caller(who), { lab: team.lab.slug })).rejects.toMatchObject({ status: 403 });
-    await expect(signOffQueue(caller("outsider"), { lab: team.lab.slug })).rejects.toMatchObject({ status: 404 });
+      await expect(signOffQueue(as(team.people[who]), { lab: team.lab.slug })).rejects.toMatchObject({ status: 403 });
+    await expect(signOffQueue(as(team.people.outsider), { lab: team.lab.slug })).rejects.toMatchObject({ status: 404 });
 
-    as("lead");
-    expect((await call(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true })).status).toBe(200);
-    expect((await signOffQueue(caller("manager"), { lab: team.lab.slug })).map((d) => d.id)).toEqual(
+    as(team.people.lead);
+    expect((await callJson(putRules, { slug: team.lab.slug }, "PUT", { managersMayApprove: true })).status).toBe(200);
+    expect((await signOffQueue(as(team.people.manager), { lab: team.lab.slug })).map((d) => d.id)).toEqual(
       queue.map((d) => d.id),
     );
     await db.delete(labRules).where(eq(labRules.labId, team.lab.id));

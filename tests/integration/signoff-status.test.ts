@@ -4,12 +4,9 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, balloons, charts, editions, postings, staleNotices } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/route";
-import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
 import { POST as restoreRoute } from "@/app/api/v1/charts/[id]/restore/route";
@@ -17,47 +14,19 @@ import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import type { CheckJson } from "@/lib/editions/check-json";
 import { labWithTeam } from "./support/fixtures";
 import { createChart, createRoom, recordPosting } from "./support/writes";
+import { as } from "../support/roles";
+import { callJson } from "../support/routes";
+import { signOffSteps } from "./support/sign-off";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let chartId = 0;
-type Who = "manager" | "lead" | "educator" | "operator" | "outsider";
-const as = (who: Who) => {
-  const p = team.people[who];
-  session.user = { id: p.id, email: p.email, name: p.name };
-};
 
-type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
-async function call<P, T = Record<string, unknown>>(handler: Handler<P>, params: P, method: string, body?: unknown) {
-  const headers: Record<string, string> = { origin: new URL(env.APP_URL).origin };
-  if (body !== undefined) headers["content-type"] = "application/json";
-  const res = await handler(
-    new Request(`${env.APP_URL}/api/v1/x`, {
-      method,
-      headers,
-      ...(body === undefined ? {} : { body: JSON.stringify(body) }),
-    }),
-    { params: Promise.resolve(params) },
-  );
-  return { status: res.status, json: (await res.json()) as T };
-}
-
-const newEdition = async () => {
-  as("educator");
-  const r = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(chartId) }, "POST");
-  expect([200, 201]).toContain(r.status);
-  return r.json.id;
-};
-const approve = async (id: number) => {
-  as("lead");
-  expect((await call(approveRoute, { id: String(id) }, "POST", { reviewed: true })).status).toBe(200);
-};
-const patch = async (body: unknown) => {
-  as("educator");
-  expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", body)).status).toBe(200);
-};
+const { newEdition, approve, patch } = signOffSteps(
+  () => team.people,
+  () => chartId,
+);
 
 let familyId = 0;
 
@@ -89,8 +58,8 @@ afterAll(() => pool.end());
 const tokenOf = async (id: number) =>
   (await db.select({ t: editions.checkToken }).from(editions).where(eq(editions.id, id)))[0]!.t;
 const check = async (id: number) => {
-  session.user = null;
-  const r = await call<{ token: string }, CheckJson>(checkRoute, { token: await tokenOf(id) }, "GET");
+  as(null);
+  const r = await callJson<{ token: string }, CheckJson>(checkRoute, { token: await tokenOf(id) }, "GET");
   expect(r.status).toBe(200);
   return r.json;
 };
@@ -159,8 +128,12 @@ describe("archiving a chart", () => {
       readingDistanceM: 1,
     });
     const archivedChart = (await createChart({ labId: team.lab.id, userId: team.people.educator.id, definition })).id;
-    as("educator");
-    const made = await call<{ id: string }, { id: number }>(createEditionRoute, { id: String(archivedChart) }, "POST");
+    as(team.people.educator);
+    const made = await callJson<{ id: string }, { id: number }>(
+      createEditionRoute,
+      { id: String(archivedChart) },
+      "POST",
+    );
     await approve(made.json.id);
     const room = await createRoom({
       labId: team.lab.id,
@@ -176,13 +149,13 @@ describe("archiving a chart", () => {
     expect(await check(made.json.id)).toMatchObject({ status: "current", action: "keep" });
 
     for (const who of ["educator", "operator"] as const) {
-      as(who);
-      expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
+      as(team.people[who]);
+      expect((await callJson(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
     }
-    as("outsider");
-    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
-    as("lead");
-    const bad = await call<{ id: string }, { error: { issues: { path: string[] }[] } }>(
+    as(team.people.outsider);
+    expect((await callJson(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
+    as(team.people.lead);
+    const bad = await callJson<{ id: string }, { error: { issues: { path: string[] }[] } }>(
       archiveRoute,
       { id: String(archivedChart) },
       "POST",
@@ -192,18 +165,22 @@ describe("archiving a chart", () => {
     const [still] = await db.select().from(charts).where(eq(charts.id, archivedChart));
     expect(still!.archivedAt).toBeNull();
 
-    const ok = await call<{ id: string }, { archivedAt: string }>(archiveRoute, { id: String(archivedChart) }, "POST");
+    const ok = await callJson<{ id: string }, { archivedAt: string }>(
+      archiveRoute,
+      { id: String(archivedChart) },
+      "POST",
+    );
     expect(ok.status).toBe(200);
     expect(typeof ok.json.archivedAt).toBe("string");
-    as("manager");
-    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+    as(team.people.manager);
+    expect((await callJson(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
 
     expect(await check(made.json.id)).toMatchObject({ status: "withdrawn", action: "take-down", currentEdition: null });
     const [posting] = await db.select().from(postings).where(eq(postings.editionId, made.json.id));
     expect(posting!.lastStatus).toBe("withdrawn");
 
-    as("operator");
-    const listed = await call<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
+    as(team.people.operator);
+    const listed = await callJson<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
     expect(listed.json.map((c) => c.id)).not.toContain(archivedChart);
     expect(listed.json.map((c) => c.id)).toContain(chartId);
     const res = await listChartsRoute(new Request(`${env.APP_URL}/api/v1/labs/${team.lab.slug}/charts?archived=1`), {
@@ -214,36 +191,40 @@ describe("archiving a chart", () => {
     expect(archivedList[0]!.archivedAt).toBe(ok.json.archivedAt);
     expect(await db.select().from(editions).where(eq(editions.chartId, archivedChart))).toHaveLength(1);
 
-    as("educator");
-    expect((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+    as(team.people.educator);
+    expect((await callJson(createEditionRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
 
     // Restoring undoes it: the same roles, the copy reads keep again, the chart is listed, it gets editions.
     for (const who of ["educator", "operator"] as const) {
-      as(who);
-      expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
+      as(team.people[who]);
+      expect((await callJson(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(403);
     }
-    as("outsider");
-    expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
-    as("manager");
-    const restored = await call<{ id: string }, { archivedAt: string | null }>(
+    as(team.people.outsider);
+    expect((await callJson(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(404);
+    as(team.people.manager);
+    const restored = await callJson<{ id: string }, { archivedAt: string | null }>(
       restoreRoute,
       { id: String(archivedChart) },
       "POST",
     );
     expect(restored.status).toBe(200);
     expect(restored.json.archivedAt).toBeNull();
-    expect((await call(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
+    expect((await callJson(restoreRoute, { id: String(archivedChart) }, "POST")).status).toBe(409);
     expect(await check(made.json.id)).toMatchObject({ status: "current", action: "keep" });
     const [back] = await db.select().from(postings).where(eq(postings.editionId, made.json.id));
     expect(back!.lastStatus).toBe("current");
-    as("operator");
-    const relisted = await call<{ slug: string }, { id: number }[]>(listChartsRoute, { slug: team.lab.slug }, "GET");
+    as(team.people.operator);
+    const relisted = await callJson<{ slug: string }, { id: number }[]>(
+      listChartsRoute,
+      { slug: team.lab.slug },
+      "GET",
+    );
     expect(relisted.json.map((c) => c.id)).toContain(archivedChart);
-    as("educator");
-    expect([200, 201]).toContain((await call(createEditionRoute, { id: String(archivedChart) }, "POST")).status);
+    as(team.people.educator);
+    expect([200, 201]).toContain((await callJson(createEditionRoute, { id: String(archivedChart) }, "POST")).status);
     // Archived again: a change of its own, so its copies go stale again and a notice is recorded.
-    as("lead");
-    expect((await call(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(200);
+    as(team.people.lead);
+    expect((await callJson(archiveRoute, { id: String(archivedChart) }, "POST")).status).toBe(200);
     expect(await check(made.json.id)).toMatchObject({ status: "withdrawn", action: "take-down" });
     const archivedNotices = (await notices()).filter((n) => n.changeKey.startsWith(`chart:${archivedChart}:archived:`));
     expect(archivedNotices).toHaveLength(2);

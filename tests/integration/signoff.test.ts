@@ -4,19 +4,17 @@ import { count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { auditEvents, balloonFamilies, balloons, editions, labRules } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
-import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { labWithTeam } from "./support/fixtures";
 import { getCheckByToken } from "@/lib/ops/check";
+import { as } from "../support/roles";
+import { refusal } from "../support/refusal";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;
-type Person = { id: number; email: string; name: string };
-const as = (p: Person): Caller => ({ kind: "user", user: { id: p.id, email: p.email, name: p.name } });
 
 const definition = (title: string, notes = "") =>
   chartDefinitionSchema.parse({
@@ -28,15 +26,6 @@ const definition = (title: string, notes = "") =>
     readingDistanceM: 1,
     ...(notes ? { notes } : {}),
   });
-
-async function refusal(p: Promise<unknown>) {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
 
 async function footprint() {
   const [a] = await db.select({ n: count() }).from(auditEvents).where(eq(auditEvents.labId, team.lab.id));

@@ -9,7 +9,8 @@ import { approveEdition, createChart, createEdition, createRoom, recordPosting, 
 import { balloonFamilies, balloons, labs, memberships, postings, staleNotices, users } from "@/db/schema";
 import { env } from "@/lib/env";
 import { deliverDigest } from "@/lib/ops/notices";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { mailTo } from "../support/mail";
+import { smallPotChart } from "../support/chart-fixtures";
 
 // An invented lab of its own; mail goes over SMTP to the fake that `npm test` runs.
 const tag = randomUUID().slice(0, 8);
@@ -26,14 +27,6 @@ const people = {
   lead: { id: 0, name: "Test lead" },
   operator: { id: 0, name: "Test operator" },
 };
-
-type FakeMessage = { subject: string; text: string; envelopeTo: string[] };
-async function mailTo(address: string): Promise<FakeMessage[]> {
-  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`, {
-    headers: { authorization: `Bearer ${env.MAIL_FAKE_SECRET}` },
-  });
-  return (await res.json()) as FakeMessage[];
-}
 
 const balloonId = async (d: number) =>
   (
@@ -77,22 +70,7 @@ beforeAll(async () => {
       inStock: true,
     })),
   );
-  const definition = chartDefinitionSchema.parse({
-    title: "POT chart",
-    law: { law: "finet", ratio: 0.678 },
-    lookups: [
-      {
-        kind: "proximal",
-        rows: { from: 2.5, to: 3.5, step: 0.25 },
-        cols: { from: 2, to: 3, step: 0.25 },
-        rounding: "up",
-        familyId: ids.family,
-      },
-    ],
-    paper: "A2",
-    orientation: "portrait",
-    readingDistanceM: 1.5,
-  });
+  const definition = smallPotChart(ids.family, "POT chart");
   ids.chart = (await createChart({ labId: ids.lab, userId: people.educator.id, definition })).id;
   const ed = await createEdition({ labId: ids.lab, chartId: ids.chart, actor: people.educator });
   await approveEdition({ labId: ids.lab, editionId: ed.id, actor: people.lead });
@@ -106,11 +84,8 @@ beforeAll(async () => {
 
 afterAll(() => pool.end());
 
-// What the timer does once the lab has been quiet (STALE_MAIL_QUIET_SECONDS, 1 s under npm test).
-async function afterQuietPeriod() {
-  await new Promise((r) => setTimeout(r, env.STALE_MAIL_QUIET_SECONDS * 1000 + 100));
-  return deliverDigest({ labId: ids.lab });
-}
+// What the timer does once the lab has been quiet, without waiting the quiet period out.
+const afterQuietPeriod = () => deliverDigest({ labId: ids.lab, quietSeconds: 0 });
 
 describe("stale copies", () => {
   it("a posted current edition starts current, on the check page and the room board", async () => {

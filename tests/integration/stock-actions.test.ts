@@ -5,13 +5,12 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, labs } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session";
 import type { ImportResult } from "@/lib/stock/import-plan";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 import { labWithTeam } from "./support/fixtures";
+import { as } from "../support/roles";
 
-const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
+vi.mock("@/lib/auth/session", () => import("../support/session"));
 vi.mock("next/cache", () => ({ revalidatePath: () => {}, revalidateTag: () => {} }));
 
 const actions = await import("@/app/(lab)/labs/[slug]/stock/actions");
@@ -19,8 +18,7 @@ let team: Awaited<ReturnType<typeof labWithTeam>>;
 
 beforeAll(async () => {
   team = await labWithTeam();
-  const { id, email, name } = team.people.manager;
-  session.user = { id, email, name };
+  as(team.people.manager);
 });
 afterAll(() => pool.end());
 

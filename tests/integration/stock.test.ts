@@ -1,5 +1,5 @@
 // Stock queries on the real MariaDB test database, in labs of their own so nothing else is disturbed.
-import { and, count, eq, like } from "drizzle-orm";
+import { eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { afterStockChange, getStock, listStockHistory } from "@/db/queries/stock";
@@ -18,10 +18,11 @@ import {
   updateStentPlatform,
   updateStentSize,
 } from "./support/writes";
-import { auditEvents, labs, users } from "@/db/schema";
-import { AppError } from "@/lib/errors";
+import { labs, users } from "@/db/schema";
 import { parseBalloonCsv } from "@/lib/stock/csv";
 import { balloonFamilyInput, balloonInput, stentSizeInput } from "@/lib/validation/stock";
+import { refusal } from "../support/refusal";
+import { auditCount } from "../support/audit";
 
 const run = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
 let labId = 0;
@@ -55,30 +56,13 @@ beforeAll(async () => {
 const actor = () => ({ labId, actorUserId });
 const family = (name: string, extra: Record<string, unknown> = {}) =>
   balloonFamilyInput.parse({ name, compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2, ...extra });
-const auditCount = async (lab = labId) =>
-  (
-    await db
-      .select({ n: count() })
-      .from(auditEvents)
-      .where(and(eq(auditEvents.labId, lab), like(auditEvents.action, "stock.%")))
-  )[0]!.n;
 const lastAudit = async () => (await listStockHistory({ labId, limit: 1 }))[0]!;
-
-async function refusal(promise: Promise<unknown>): Promise<AppError> {
-  try {
-    await promise;
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
-}
 
 /** Everything a refused change must leave untouched: the whole stock, the revision and the audit trail. */
 async function unchanged<T>(fn: () => Promise<T>, lab = labId): Promise<T> {
-  const before = { stock: await getStock({ labId: lab }), audits: await auditCount(lab) };
+  const before = { stock: await getStock({ labId: lab }), audits: await auditCount(lab, "stock.") };
   const result = await fn();
-  expect({ stock: await getStock({ labId: lab }), audits: await auditCount(lab) }).toEqual(before);
+  expect({ stock: await getStock({ labId: lab }), audits: await auditCount(lab, "stock.") }).toEqual(before);
   return result;
 }
 
@@ -366,7 +350,7 @@ describe("CSV import", () => {
 
   it("applying is one transaction: one revision bump and one audit event with before and after", async () => {
     const before = await getStock({ labId });
-    const audits = await auditCount();
+    const audits = await auditCount(labId, "stock.");
     const stale = await unchanged(() =>
       refusal(importBalloons({ ...actor(), rows: rowsOf(FILE), dryRun: false, expectRevision: before.revision - 1 })),
     );
@@ -382,7 +366,7 @@ describe("CSV import", () => {
     expect(result).toMatchObject({ applied: true, revision: before.revision + 1 });
     const after = await getStock({ labId });
     expect(after.revision).toBe(before.revision + 1);
-    expect(await auditCount()).toBe(audits + 1);
+    expect(await auditCount(labId, "stock.")).toBe(audits + 1);
 
     const nc = after.balloonFamilies.find((f) => f.name === "NC test family (illustrative)")!;
     expect(nc.balloons.map((b) => [b.diameterMm, b.inStock])).toEqual([

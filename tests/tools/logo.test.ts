@@ -6,9 +6,9 @@ import path from "node:path";
 import PDFDocument from "pdfkit";
 import { PNG } from "pngjs";
 import { describe, expect, it } from "vitest";
-import { AppError } from "@/lib/errors";
 import { checkLogo, jpegSize, LOGO_MAX_BYTES, LOGO_MAX_INFLATED_BYTES, readPngHeader } from "@/lib/logo";
 import { craftPng, declaredBytes } from "../support/image-bombs";
+import { refusal } from "../support/refusal";
 
 function png(width: number, height: number): Buffer {
   const img = new PNG({ width, height });
@@ -35,14 +35,7 @@ async function jpeg(): Promise<Buffer> {
   }
 }
 
-async function refusal(bytes: Uint8Array): Promise<AppError> {
-  const err = await checkLogo(bytes).then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
+const refused = (bytes: Uint8Array) => refusal(checkLogo(bytes));
 
 describe("checkLogo", () => {
   it("accepts a PNG, reading its type and size from the bytes", async () => {
@@ -63,7 +56,7 @@ describe("checkLogo", () => {
   });
 
   it("refuses a text file named .png (the name is never trusted)", async () => {
-    const err = await refusal(new TextEncoder().encode("this is not a PNG at all\n".repeat(20)));
+    const err = await refused(new TextEncoder().encode("this is not a PNG at all\n".repeat(20)));
     expect(err.status).toBe(400);
     expect(err.message).toMatch(/PNG or JPEG.*not an image/);
     expect(err.issues?.[0]?.path).toEqual(["file"]);
@@ -71,18 +64,18 @@ describe("checkLogo", () => {
 
   it("refuses a PNG signature followed by garbage, and other image types", async () => {
     const fake = Buffer.concat([png(4, 4).subarray(0, 33), Buffer.from("garbage".repeat(30))]);
-    expect((await refusal(fake)).message).toMatch(/damaged/);
+    expect((await refused(fake)).message).toMatch(/damaged/);
     const gif = Buffer.concat([Buffer.from("GIF89a"), Buffer.alloc(64, 1)]);
-    expect((await refusal(gif)).message).toMatch(/is GIF/);
+    expect((await refused(gif)).message).toMatch(/is GIF/);
   });
 
   it("refuses more than 1 MB with 413", async () => {
     const big = Buffer.concat([png(4, 4), Buffer.alloc(1024 * 1024)]);
-    expect((await refusal(big)).status).toBe(413);
+    expect((await refused(big)).status).toBe(413);
   });
 
   it("refuses an image larger than 4000 pixels a side", async () => {
-    expect((await refusal(png(4100, 1))).message).toMatch(/4000 pixels/);
+    expect((await refused(png(4100, 1))).message).toMatch(/4000 pixels/);
   });
 });
 
@@ -91,7 +84,7 @@ describe("checkLogo against image bombs (the header is read before anything is i
     // Only the first rows are really there: a decoder would still allocate for the whole picture.
     const bomb = await craftPng({ width: 8000, height: 8000 }, 64 * 1024);
     expect(bomb.length).toBeLessThan(10 * 1024);
-    const err = await refusal(bomb);
+    const err = await refused(bomb);
     expect(err.status).toBe(400);
     expect(err.message).toMatch(/8000 × 8000 pixels; keep it within 4000 pixels a side/);
   });
@@ -99,11 +92,11 @@ describe("checkLogo against image bombs (the header is read before anything is i
   it("refuses a 4000 × 4000 16-bit RGBA picture (128 MB of pixels) by its area", async () => {
     const bomb = await craftPng({ width: 4000, height: 4000, bitDepth: 16 });
     expect(bomb.length).toBeLessThan(LOGO_MAX_BYTES);
-    expect((await refusal(bomb)).message).toMatch(/16\.0 megapixels\); keep it within 4 megapixels/);
+    expect((await refused(bomb)).message).toMatch(/16\.0 megapixels\); keep it within 4 megapixels/);
   });
 
   it("refuses a header whose pixels inflate past the cap although the area is allowed", async () => {
-    const err = await refusal(await craftPng({ width: 2000, height: 1900, bitDepth: 16, interlaced: true }, 1024));
+    const err = await refused(await craftPng({ width: 2000, height: 1900, bitDepth: 16, interlaced: true }, 1024));
     expect(err.message).toMatch(/MB uncompressed.*keep it within 24 MB/);
     expect(declaredBytes({ width: 2000, height: 1900, bitDepth: 16, interlaced: true })).toBeGreaterThan(
       LOGO_MAX_INFLATED_BYTES,
@@ -114,16 +107,16 @@ describe("checkLogo against image bombs (the header is read before anything is i
     // 1000 × 1000 declared (about 4 MB of pixels), 96 MB in the stream: inflation stops at the declared size.
     const bomb = await craftPng({ width: 1000, height: 1000, interlaced: true }, 96 * 1024 * 1024);
     expect(bomb.length).toBeLessThan(LOGO_MAX_BYTES);
-    expect((await refusal(bomb)).message).toMatch(/damaged/);
+    expect((await refused(bomb)).message).toMatch(/damaged/);
   });
 
   it("refuses pixel data shorter than the header declares, and a bad chunk checksum", async () => {
     const short = await craftPng({ width: 100, height: 100 }, 1000);
-    expect((await refusal(short)).message).toMatch(/damaged/);
+    expect((await refused(short)).message).toMatch(/damaged/);
     const good = png(10, 10);
     const flipped = Buffer.from(good);
     flipped[good.length - 20] = flipped[good.length - 20]! ^ 0xff;
-    expect((await refusal(flipped)).message).toMatch(/damaged/);
+    expect((await refused(flipped)).message).toMatch(/damaged/);
   });
 
   it("accepts honest interlaced and deep-colour PNGs within the limits, reading their header", async () => {
@@ -146,6 +139,6 @@ describe("checkLogo against image bombs (the header is read before anything is i
       }
     }
     expect(jpegSize(bytes)).toEqual({ width: 3000, height: 3000 });
-    expect((await refusal(bytes)).message).toMatch(/9\.0 megapixels/);
+    expect((await refused(bytes)).message).toMatch(/9\.0 megapixels/);
   });
 });

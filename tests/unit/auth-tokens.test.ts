@@ -1,13 +1,7 @@
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import {
-  hashToken,
-  INVITATION_TTL_MS,
-  linkState,
-  looksLikeToken,
-  newToken,
-  PASSWORD_RESET_TTL_MS,
-} from "@/lib/auth/tokens";
+import { hashToken, INVITATION_TTL_MS, looksLikeToken, newToken, PASSWORD_RESET_TTL_MS } from "@/lib/auth/tokens";
+import { linkState } from "@/lib/link-state";
 
 describe("e-mailed link tokens", () => {
   it("hashes with SHA-256 (known vector) and never returns the token itself", () => {

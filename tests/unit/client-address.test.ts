@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { parseEnv } from "@/lib/env";
-import { clientAddress, isLoopback, isLoopbackUrl, PEER_HEADER, socketAddress } from "@/lib/http/client-address";
+import { clientAddress, PEER_HEADER, socketAddress } from "@/lib/http/client-address";
+import { isLoopback, isLoopbackUrl } from "@/lib/net/loopback";
 
 const h = (o: Record<string, string>) => new Headers(o);
 

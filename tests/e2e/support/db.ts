@@ -36,23 +36,28 @@ export async function closeDb() {
 /**
  * Seeded ids: memberships keyed "<lab slug>:<role>" (e.g. "demo-north:lead"), and the demo lab's
  * POT chart ("chart:pot"), its approved edition ("edition:pot", check token "token:pot"), the
- * draft edition ("edition:draft") and "room:1" (Procedure room 1).
+ * draft edition ("edition:draft") and "room:1" (Procedure room 1). Another `slug` (with the
+ * e-mail pattern of its people) reads the same rows of a lab seeded like the demo lab.
  */
-export async function demoIds(): Promise<Record<string, number | string>> {
+export async function demoIds(slug = "demo", emailLike = "%@forkwall.test"): Promise<Record<string, number | string>> {
   const rows = await query<{ slug: string; role: string; id: number }>(
-    "SELECT l.slug, m.role, m.id FROM memberships m JOIN labs l ON l.id = m.lab_id JOIN users u ON u.id = m.user_id WHERE u.email LIKE '%@forkwall.test' AND l.slug IN ('demo', 'demo-north')",
+    "SELECT l.slug, m.role, m.id FROM memberships m JOIN labs l ON l.id = m.lab_id JOIN users u ON u.id = m.user_id WHERE (l.slug = ? AND u.email LIKE ?) OR (l.slug = 'demo-north' AND u.email LIKE '%@forkwall.test')",
+    [slug, emailLike],
   );
   const ids: Record<string, number | string> = Object.fromEntries(
     rows.map((r) => [`${r.slug}:${r.role}`, Number(r.id)]),
   );
   const [pot] = await query<{ chart: number; edition: number; token: string; code: string }>(
-    "SELECT c.id AS chart, e.id AS edition, e.check_token AS token, e.short_code AS code FROM charts c JOIN labs l ON l.id = c.lab_id JOIN editions e ON e.chart_id = c.id WHERE l.slug = 'demo' AND c.title = 'POT balloon chart (demo)' AND e.status = 'approved'",
+    "SELECT c.id AS chart, e.id AS edition, e.check_token AS token, e.short_code AS code FROM charts c JOIN labs l ON l.id = c.lab_id JOIN editions e ON e.chart_id = c.id WHERE l.slug = ? AND c.title = 'POT balloon chart (demo)' AND e.status = 'approved'",
+    [slug],
   );
   const [draft] = await query<{ id: number }>(
-    "SELECT e.id FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = 'demo' AND e.status = 'draft' ORDER BY e.id LIMIT 1",
+    "SELECT e.id FROM editions e JOIN labs l ON l.id = e.lab_id WHERE l.slug = ? AND e.status = 'draft' ORDER BY e.id LIMIT 1",
+    [slug],
   );
   const [room] = await query<{ id: number }>(
-    "SELECT r.id FROM rooms r JOIN labs l ON l.id = r.lab_id WHERE l.slug = 'demo' AND r.name = 'Procedure room 1'",
+    "SELECT r.id FROM rooms r JOIN labs l ON l.id = r.lab_id WHERE l.slug = ? AND r.name = 'Procedure room 1'",
+    [slug],
   );
   if (pot)
     Object.assign(ids, {

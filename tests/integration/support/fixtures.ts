@@ -5,7 +5,6 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { labs, memberships, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { env } from "@/lib/env";
 import type { Role } from "@/lib/permissions";
 
 export const FIXTURE_PASSWORD = "fixture-password-2026";
@@ -59,20 +58,3 @@ export async function sessionUser(id: number) {
     .where(eq(users.id, id));
   return u!;
 }
-
-type FakeMessage = { id: number; envelopeTo: string[]; subject: string; text: string };
-
-/** What the SMTP fake received for one address, read over the fake's own HTTP interface. */
-export async function mailTo(address: string): Promise<FakeMessage[]> {
-  if (!env.MAIL_FAKE_URL) throw new Error("MAIL_FAKE_URL is not set: run through npm test");
-  const res = await fetch(`${env.MAIL_FAKE_URL}/messages?to=${encodeURIComponent(address)}`, {
-    headers: { authorization: `Bearer ${env.MAIL_FAKE_SECRET}` },
-  });
-  return (await res.json()) as FakeMessage[];
-}
-
-export const linkIn = (text: string, kind: "invite" | "reset-password") => {
-  const m = text.match(new RegExp(`https?://\\S+/${kind}/([A-Za-z0-9_-]{43})`));
-  if (!m) throw new Error(`no ${kind} link in: ${text}`);
-  return { url: m[0], token: m[1]! };
-};

@@ -1,41 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { diffCells } from "@/lib/charts/cell-diff";
-import { buildSnapshot, type LabStock } from "@/lib/charts/snapshot";
-import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { buildSnapshot } from "@/lib/charts/snapshot";
+import { smallPotChart } from "../../support/chart-fixtures";
+import { ncStock } from "../../support/chart-fixtures";
 
-// Invented, illustrative stock for the tests only.
-const steps = (from: number, to: number, step = 0.25) =>
-  Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);
-const stock = (outOfStock: number[] = []): LabStock => ({
-  balloonFamilies: [
-    {
-      id: 1,
-      name: "NC test family",
-      compliance: "nc",
-      nominalAtm: 12,
-      rbpAtm: 20,
-      growthAtRbpMm: 0.2,
-      balloons: steps(2, 5).map((d) => ({ diameterMm: d, inStock: !outOfStock.includes(d) })),
-    },
-  ],
-  stentPlatforms: [],
-});
-const definition = chartDefinitionSchema.parse({
-  title: "POT test chart",
-  law: { law: "finet", ratio: 0.678 },
-  lookups: [
-    {
-      kind: "proximal",
-      rows: { from: 2.5, to: 3.5, step: 0.25 },
-      cols: { from: 2, to: 3, step: 0.25 },
-      rounding: "up",
-      familyId: 1,
-    },
-  ],
-  paper: "A2",
-  orientation: "portrait",
-  readingDistanceM: 1.5,
-});
+const stock = (out: number[] = []) => ncStock(out);
+const definition = smallPotChart(1, "POT test chart");
 const snap = (out: number[] = []) =>
   buildSnapshot({ labName: "Test lab", definition, stock: stock(out), logoSha256: null });
 const withRatio = (ratio: number) =>

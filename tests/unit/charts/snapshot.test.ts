@@ -2,54 +2,25 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
-import { buildSnapshot, relevantDiameters, snapshotGrids, type LabStock } from "@/lib/charts/snapshot";
+import { buildSnapshot, relevantDiameters, snapshotGrids } from "@/lib/charts/snapshot";
 import { buildGrid, pickBalloon, type BalloonFamilyStock } from "@/lib/sizing";
-import { chartDefinitionSchema, type ChartDefinition } from "@/lib/validation/chart";
+import { type ChartDefinition } from "@/lib/validation/chart";
+import { ncStock, smallPotChart, steps } from "../../support/chart-fixtures";
 
-// Invented, illustrative stock for the tests only.
-const steps = (from: number, to: number, step = 0.25) =>
-  Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);
-const stock = (outOfStock: number[] = []): LabStock => ({
-  balloonFamilies: [
-    {
-      id: 1,
-      name: "NC test family",
-      compliance: "nc",
-      nominalAtm: 12,
-      rbpAtm: 20,
-      growthAtRbpMm: 0.2,
-      balloons: steps(2, 5).map((d) => ({ diameterMm: d, inStock: !outOfStock.includes(d) })),
-    },
-  ],
-  stentPlatforms: [
-    {
-      id: 7,
-      name: "Test DES",
-      sizes: [
-        { nominalMm: 3, maxPostDilatationMm: 4.5 },
-        { nominalMm: 2.5, maxPostDilatationMm: 3.5 },
-      ],
-    },
-  ],
-});
-
-const definition: ChartDefinition = chartDefinitionSchema.parse({
-  title: "POT test chart",
-  law: { law: "finet", ratio: 0.678 },
-  lookups: [
-    {
-      kind: "proximal",
-      rows: { from: 2.5, to: 3.5, step: 0.25 },
-      cols: { from: 2, to: 3, step: 0.25 },
-      rounding: "up",
-      familyId: 1,
-    },
-  ],
-  stentPlatformId: 7,
-  paper: "A2",
-  orientation: "portrait",
-  readingDistanceM: 1.5,
-});
+const stock = (outOfStock: number[] = []) =>
+  ncStock(outOfStock, {
+    stentPlatforms: [
+      {
+        id: 7,
+        name: "Test DES",
+        sizes: [
+          { nominalMm: 3, maxPostDilatationMm: 4.5 },
+          { nominalMm: 2.5, maxPostDilatationMm: 3.5 },
+        ],
+      },
+    ],
+  });
+const definition: ChartDefinition = { ...smallPotChart(1), stentPlatformId: 7 };
 
 const snap = (outOfStock: number[] = [], def = definition) =>
   buildSnapshot({ labName: "Test lab", definition: def, stock: stock(outOfStock), logoSha256: null });

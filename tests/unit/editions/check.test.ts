@@ -1,26 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { buildSnapshot, type LabStock } from "@/lib/charts/snapshot";
+import { buildSnapshot } from "@/lib/charts/snapshot";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { checkEdition, type CheckEdition } from "@/lib/editions/check";
 import { canTransition } from "@/lib/editions/states";
 import { staleNoticeMail } from "@/lib/mail/templates/stale-notice";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { ncStock } from "../../support/chart-fixtures";
 
-// Invented, illustrative stock for the tests only.
-const stock = (out: number[] = []): LabStock => ({
-  balloonFamilies: [
-    {
-      id: 1,
-      name: "NC test family",
-      compliance: "nc",
-      nominalAtm: 12,
-      rbpAtm: 20,
-      growthAtRbpMm: null,
-      balloons: [2, 2.5, 3, 3.25, 3.5, 3.75, 4, 4.5].map((d) => ({ diameterMm: d, inStock: !out.includes(d) })),
-    },
-  ],
-  stentPlatforms: [],
-});
+const stock = (out: number[] = []) =>
+  ncStock(out, { diameters: [2, 2.5, 3, 3.25, 3.5, 3.75, 4, 4.5], growthAtRbpMm: null });
 const definition = chartDefinitionSchema.parse({
   title: "Kissing chart",
   law: { law: "square" },

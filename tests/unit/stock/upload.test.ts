@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { AppError } from "@/lib/errors";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 import { readUploadedFile } from "@/lib/upload";
+import { refusal } from "../../support/refusal";
 
 const multipart = (file: Blob, name = "file") => {
   const form = new FormData();
@@ -9,15 +9,7 @@ const multipart = (file: Blob, name = "file") => {
   return new Request("http://localhost/x", { method: "POST", body: form });
 };
 
-async function refusal(req: Request): Promise<AppError> {
-  try {
-    await readUploadedFile(req);
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
-}
+const refused = (req: Request) => refusal(readUploadedFile(req));
 
 describe("readUploadedFile", () => {
   it("returns the file's name and bytes", async () => {
@@ -32,14 +24,14 @@ describe("readUploadedFile", () => {
       body: "{}",
       headers: { "content-type": "application/json" },
     });
-    expect((await refusal(json)).message).toBe('Send the file as multipart/form-data in the field "file".');
-    expect((await refusal(multipart(new Blob(["x"]), "other"))).message).toBe(
+    expect((await refused(json)).message).toBe('Send the file as multipart/form-data in the field "file".');
+    expect((await refused(multipart(new Blob(["x"]), "other"))).message).toBe(
       'Choose a file to send in the field "file".',
     );
   });
 
   it("refuses a file over 1 MB with 413", async () => {
-    const err = await refusal(multipart(new Blob([new Uint8Array(MAX_IMPORT_BYTES + 1)])));
+    const err = await refused(multipart(new Blob([new Uint8Array(MAX_IMPORT_BYTES + 1)])));
     expect(err.status).toBe(413);
   });
 
@@ -58,7 +50,7 @@ describe("readUploadedFile", () => {
       headers: { "content-type": "multipart/form-data; boundary=x" },
       duplex: "half",
     } as RequestInit);
-    expect((await refusal(req)).status).toBe(413);
+    expect((await refused(req)).status).toBe(413);
     expect(pulled).toBeLessThan(10);
   });
 });

@@ -89,7 +89,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
           approve: await labCan(member.lab.id, member.role, "edition:approve"),
           withdraw: can(member.role, "edition:withdraw"),
           // The archive copy is a managers-only download (lib/ops/renders.ts refuses anyone else).
-          archive: member.role === "manager",
+          archive: can(member.role, "edition:archive-copy"),
         }}
         editions={eds.map((e) => ({
           id: e.id,

@@ -1,12 +1,14 @@
 // Property-based fuzzing of every JSON route (fast-check): generated bodies and query strings,
 // sent as anonymous and as each demo role along the rows of tests/authz/matrix.ts. No answer
 // may be a 5xx, and a refused request (4xx) must change nothing in the database.
-// The file name sorts last on purpose: a generated body is sometimes valid (an empty object
-// withdraws an edition, a short name creates a room), so the demo data may change here.
+// A generated body is sometimes valid (an empty object withdraws an edition), so the fuzz runs
+// in a lab of its own with people of its own (support/fuzz-lab.ts): any order of files works.
+import { execFileSync } from "node:child_process";
 import { expect, test } from "@playwright/test";
 import fc from "fast-check";
 import { ALL_ROLES, ROUTES, type Actor, type RouteRow } from "../authz/matrix";
-import { DEMO_PASSWORD, demoEmail, signInApi } from "./support/auth";
+import { DEMO_PASSWORD, signInApi } from "./support/auth";
+import { until } from "../support/poll";
 import { closeDb, demoIds, query } from "./support/db";
 
 const ACTORS: Actor[] = ["anonymous", ...ALL_ROLES];
@@ -15,12 +17,24 @@ const RUNS_PER_ROW = 8;
 const VOLATILE = new Set(["rate_limits"]);
 
 let ids: Record<string, number | string>;
+let lab: { slug: string; emails: Record<string, string> };
+/** The matrix's demo-lab URLs, pointed at the fuzz's own lab. */
+const inFuzzLab = (url: string) => url.replace(/\/labs\/demo(?=[/?]|$)/, `/labs/${lab.slug}`);
 let tables: string[];
 let total = 0;
 const statusCount = new Map<number, number>();
 
 test.beforeAll(async () => {
-  ids = await demoIds();
+  lab = JSON.parse(
+    execFileSync(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/e2e/support/fuzz-lab.ts"], {
+      encoding: "utf8",
+    })
+      .trim()
+      .split("\n")
+      .at(-1)!,
+  ) as typeof lab;
+  ids = await demoIds(lab.slug, lab.emails.manager!.replace("manager", "%"));
+  for (const role of ALL_ROLES) ids[`demo:${role}`] = ids[`${lab.slug}:${role}`]!;
   tables = (
     await query<{ t: string }>(
       "SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY 1",
@@ -41,6 +55,14 @@ async function fingerprint(): Promise<string> {
     `CHECKSUM TABLE ${tables.map((t) => `\`${t}\``).join(", ")}`,
   );
   return rows.map((r) => `${r.Table}:${r.Checksum}`).join("|");
+}
+
+/** The fingerprint once two reads in a row agree (work an accepted request finishes after answering). */
+async function settled(): Promise<string> {
+  let last = await fingerprint();
+  return until("the database to settle", fingerprint, (now) => now === last || ((last = now), false), {
+    everyMs: 100,
+  });
 }
 
 // Text that has broken or hidden things before: lone surrogates, NUL, bidi overrides, huge numbers.
@@ -121,7 +143,7 @@ for (const actor of ACTORS) {
   }) => {
     test.setTimeout(300_000);
     const request = await playwright.request.newContext({ baseURL });
-    if (actor !== "anonymous") await signInApi(request, demoEmail(actor), DEMO_PASSWORD);
+    if (actor !== "anonymous") await signInApi(request, lab.emails[actor]!, DEMO_PASSWORD);
     let before = await fingerprint();
     const problems: string[] = [];
     const ip = () => `198.18.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250) + 1}`;
@@ -133,7 +155,7 @@ for (const actor of ACTORS) {
         fc.boolean(),
         queryString,
         async (row, json, raw, sendRaw, q) => {
-          const base = typeof row.url === "function" ? row.url(ids) : row.url;
+          const base = inFuzzLab(typeof row.url === "function" ? row.url(ids) : row.url);
           const qs = new URLSearchParams(q).toString();
           const url = qs ? `${base}${base.includes("?") ? "&" : "?"}${qs}` : base;
           const write = row.method !== "GET";
@@ -158,8 +180,7 @@ for (const actor of ACTORS) {
           } else {
             // Accepted requests may write (a PDF download is audited; writes finish
             // work after answering, like stale-notice e-mail): let it settle, then re-baseline.
-            await new Promise((r) => setTimeout(r, 200));
-            before = await fingerprint();
+            before = await settled();
           }
         },
       ),
