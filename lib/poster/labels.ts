@@ -166,7 +166,17 @@ export function statusBanner(status: EditionStatus): string | null {
   }
 }
 
-export const DRAFT_WATERMARK = "DRAFT - not for clinical use";
+/** States whose every printed page carries a diagonal stamp: all but a current approved edition. */
+export type StampState = "draft" | "returned" | "withdrawn" | "superseded" | "outdated";
+
+/** The stamp's words, exactly (plain ASCII: the stamp is set in the PDF standard Helvetica). */
+export const STAMP_WORDS: Readonly<Record<StampState, string>> = {
+  draft: "DRAFT - NOT FOR CLINICAL USE",
+  returned: "RETURNED - NOT FOR CLINICAL USE",
+  withdrawn: "WITHDRAWN - DO NOT POST",
+  superseded: "NOT CURRENT - DO NOT POST",
+  outdated: "NOT CURRENT - DO NOT POST",
+};
 
 /** The check URL without its scheme, for printing beside the QR code. */
 export function shortUrl(url: string): string {

@@ -11,7 +11,6 @@ import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
   axisTitles,
-  DRAFT_WATERMARK,
   formulaRuns,
   gridSubtitleParts,
   localiseNumbers,
@@ -447,9 +446,6 @@ export function PosterDocument({ input }: { input: PosterInput }) {
   const review = edition.status === "approved" ? reviewText(edition.reviewBy, tz) : null;
   const banner = statusBanner(edition.status);
   const created = edition.approvedAt ?? POSTER_EPOCH;
-  const diagonal = Math.hypot(page.width, page.height);
-  const watermarkPt = (diagonal * 0.7) / 13.6;
-  const angle = (Math.atan2(page.height, page.width) * 180) / Math.PI;
   const rule = Math.max(0.5, 0.6 * scale);
 
   return (
@@ -573,32 +569,6 @@ export function PosterDocument({ input }: { input: PosterInput }) {
         </View>
 
         <Qr layout={layout} url={edition.codeUrl ?? edition.checkUrl} code={edition.shortCode ?? null} qr={qr} />
-
-        {edition.status === "draft" ? (
-          <View
-            style={{
-              position: "absolute",
-              left: page.width / 2 - diagonal / 2,
-              top: page.height / 2 - watermarkPt * 0.7,
-              width: diagonal,
-              height: watermarkPt * 1.4,
-              transform: `rotate(-${angle}deg)`,
-              justifyContent: "center",
-            }}
-          >
-            <Text
-              style={{
-                fontSize: watermarkPt,
-                fontWeight: 700,
-                color: PALETTE.watermark,
-                opacity: 0.16,
-                textAlign: "center",
-              }}
-            >
-              {DRAFT_WATERMARK}
-            </Text>
-          </View>
-        ) : null}
       </Page>
     </Document>
   );

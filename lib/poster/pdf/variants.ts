@@ -16,17 +16,46 @@ import {
   rgb,
   StandardFonts,
 } from "pdf-lib";
+import { STAMP_WORDS } from "../labels";
 import { mmToPt } from "../paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "../qr";
 import { columnLetter, tileCaption, tilePlan, TILE_MARGIN_MM, TILE_OVERLAP_MM, type TileSheet } from "../tiles";
 
 /** The words every page of an edition that is not current carries, exactly. */
-export const NOT_CURRENT_BAND = "NOT CURRENT - DO NOT POST";
+export const NOT_CURRENT_BAND = STAMP_WORDS.outdated;
 export const ARCHIVE_STAMP = "ARCHIVE COPY";
 
 export type Band =
-  | { kind: "not-current"; /** ISO date, lab time zone */ date: string; reason: string }
+  | {
+      kind: "not-current";
+      /** ISO date, lab time zone */ date: string;
+      reason: string;
+      /** Which words the stamp uses; outdated (NOT CURRENT) when absent. */
+      state?: "withdrawn" | "superseded" | "outdated";
+    }
+  | { kind: "unapproved"; state: "draft" | "returned" }
   | { kind: "archive"; date: string };
+
+const UNAPPROVED_REASON = {
+  draft: "a draft, not approved: do not use it for patient care",
+  returned: "sent back by the approver and never approved: do not use it for patient care",
+} as const;
+
+/** The stamp's words and the bands' lines for a band: top (short) and bottom (with the reason). */
+export function bandWords(band: Band): { stamp: string; top: string; bottom: string } {
+  if (band.kind === "archive")
+    return {
+      stamp: ARCHIVE_STAMP,
+      top: `${ARCHIVE_STAMP} ${band.date}`,
+      bottom: `${ARCHIVE_STAMP} ${band.date}: kept for the record, not for posting`,
+    };
+  if (band.kind === "unapproved") {
+    const stamp = STAMP_WORDS[band.state];
+    return { stamp, top: stamp, bottom: `${stamp}: ${UNAPPROVED_REASON[band.state]}` };
+  }
+  const stamp = STAMP_WORDS[band.state ?? "outdated"];
+  return { stamp, top: `${stamp} ${band.date}`, bottom: `${stamp} ${band.date}: ${band.reason}` };
+}
 
 /** Metadata dates stay fixed so that the same inputs give the same bytes. */
 const FIXED_DATE = new Date(Date.UTC(2000, 0, 1));
@@ -91,13 +120,8 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
   const h = page.getHeight();
   const short = Math.min(w, h);
   const bh = Math.min(60, Math.max(12, short * 0.032));
-  const colour = band.kind === "not-current" ? RED : ARCHIVE_GREY;
-  const head = band.kind === "not-current" ? NOT_CURRENT_BAND : ARCHIVE_STAMP;
-  const top = `${head} ${band.date}`;
-  const bottom =
-    band.kind === "not-current"
-      ? `${head} ${band.date}: ${band.reason}`
-      : `${head} ${band.date}: kept for the record, not for posting`;
+  const colour = band.kind === "archive" ? ARCHIVE_GREY : RED;
+  const { stamp: head, top, bottom } = bandWords(band);
   page.drawRectangle({ x: 0, y: h - bh, width: w, height: bh, color: colour });
   centred(page, fonts.bold, top, h - bh * 0.72, bh * 0.58);
   if (withBottom) {
@@ -106,7 +130,7 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
   }
 
   // Diagonal band through the centre, translucent so the figures beneath stay inspectable (a
-  // copy kept for the record must still be readable).
+  // copy kept for the record must still be readable); an unapproved edition's is stronger.
   const angle = Math.atan2(h, w);
   const diag = Math.hypot(w, h);
   const dh = Math.min(short * 0.09, 160);
@@ -117,8 +141,9 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
     pushGraphicsState(),
     concatTransformationMatrix(Math.cos(angle), Math.sin(angle), -Math.sin(angle), Math.cos(angle), w / 2, h / 2),
   );
-  page.drawRectangle({ x: -diag / 2, y: -dh / 2, width: diag, height: dh, color: colour, opacity: 0.12 });
-  page.drawText(head, { x: -textW / 2, y: -size * 0.36, size, font: fonts.bold, color: colour, opacity: 0.8 });
+  const fill = band.kind === "unapproved" ? 0.2 : 0.12;
+  page.drawRectangle({ x: -diag / 2, y: -dh / 2, width: diag, height: dh, color: colour, opacity: fill });
+  page.drawText(head, { x: -textW / 2, y: -size * 0.36, size, font: fonts.bold, color: colour, opacity: 0.85 });
   page.pushOperators(popGraphicsState());
 }
 
