@@ -1,7 +1,8 @@
 // One printed PDF of an edition, as it is downloaded: the poster, its tiled set or the badge
 // card, with the stamp its state calls for. lib/ops/renders.ts caches what this returns.
+import { posterKeepWhole } from "../seams";
 import type { TileSheet } from "../tiles";
-import type { PosterInput } from "./document";
+import { posterModel, type PosterInput } from "./document";
 import { renderCardPdf, renderPosterPdf } from "./render";
 import { stampBands, tilePoster, type Band, type TileOptions } from "./variants";
 
@@ -19,7 +20,11 @@ export async function printEdition(input: PosterInput, opts: PrintOptions): Prom
     return opts.band ? stampBands(card, opts.band) : card;
   }
   const poster = await renderPosterPdf(input);
-  if (opts.tiles) return tilePoster(poster, { ...opts.sheetLabels, sheet: opts.tiles, band: opts.band });
+  if (opts.tiles) {
+    const { layout, grids } = posterModel(input);
+    const keepWhole = posterKeepWhole(layout, grids);
+    return tilePoster(poster, { ...opts.sheetLabels, sheet: opts.tiles, band: opts.band, keepWhole });
+  }
   return opts.band ? stampBands(poster, opts.band) : poster;
 }
 
