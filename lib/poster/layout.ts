@@ -460,7 +460,8 @@ function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
   const titleW = innerW - lawW - gap - (titleX - margin);
   const leftH = fonts.lab * LINE + fonts.title * 1.15 * linesFor(texts.title, fonts.title * 1.1, titleW);
   const rightH =
-    fonts.law * 1.25 * linesFor(texts.law, fonts.law, lawW) +
+    // The law's name and its formula on lines of their own: one more than the words alone need.
+    fonts.law * 1.25 * (linesFor(texts.law, fonts.law, lawW) + 1) +
     fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) +
     2 * scale;
   const header: Box = {
