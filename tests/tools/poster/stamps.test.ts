@@ -80,7 +80,7 @@ describe("the stamp of an edition that must not be posted", () => {
     expect(pdfjs.length).toBeGreaterThan(4);
     // Top band and diagonal: the bottom margin keeps the sheet's label.
     for (const t of pdfjs) expect(count(t, STAMP_WORDS.draft)).toBe(2);
-    for (const t of pageTexts(pdf)) expect(t).toContain(STAMP_WORDS.draft);
+    for (const t of pageTexts(pdf, "raw")) expect(t).toContain(STAMP_WORDS.draft);
   });
 
   it("an approved, current edition carries none", { timeout: 60_000 }, async () => {
