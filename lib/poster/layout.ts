@@ -460,8 +460,7 @@ function layoutWith(input: LayoutInput, fonts: Fonts): PosterLayout {
   const titleW = innerW - lawW - gap - (titleX - margin);
   const leftH = fonts.lab * LINE + fonts.title * 1.15 * linesFor(texts.title, fonts.title * 1.1, titleW);
   const rightH =
-    // The law's name and its formula on lines of their own: one more than the words alone need.
-    fonts.law * 1.25 * (linesFor(texts.law, fonts.law, lawW) + 1) +
+    fonts.law * 1.25 * linesFor(texts.law, fonts.law, lawW) +
     fonts.source * LINE * linesFor(texts.source, fonts.source, lawW) +
     2 * scale;
   const header: Box = {

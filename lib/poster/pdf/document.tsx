@@ -442,7 +442,10 @@ function Header({ input, layout }: { input: PosterInput; layout: PosterLayout })
   const { snapshot, logo } = input;
   const { fonts, scale } = layout;
   const loc = (t: string) => localiseNumbers(t, input.lab?.numberFormat ?? "point");
-  const formula = formulaLines(loc(lawFormula(snapshot.law)), fonts.law, layout.law.width);
+  const name = `Law: ${loc(lawName(snapshot.law))}`;
+  const text = loc(lawFormula(snapshot.law));
+  const whole = formulaLines(`${name}: ${text}`, fonts.law, layout.law.width).lines.length === 1;
+  const formula = whole ? { lines: [text], size: fonts.law } : formulaLines(text, fonts.law, layout.law.width);
   return (
     <>
       {logo && layout.logo ? (
@@ -457,12 +460,14 @@ function Header({ input, layout }: { input: PosterInput; layout: PosterLayout })
         <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
       </View>
       <View style={at(layout.law)}>
-        <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>
-          {`Law: ${loc(lawName(snapshot.law))}`}
-        </Text>
-        {/* Each line of the formula is one unit: it fits its line, and breaks only after "=". */}
+        {/* One line when name and formula fit it; else each piece of the formula on its own line,
+            sized to fit it, so it breaks only after "=". */}
+        {whole ? null : (
+          <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>{name}</Text>
+        )}
         {formula.lines.map((line, j) => (
           <Text key={j} style={{ fontSize: formula.size, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>
+            {whole ? `${name}: ` : ""}
             {formulaRuns(line).map((r, i) =>
               r.sup ? (
                 <Text key={i} style={{ verticalAlign: "super", fontSize: formula.size * 0.62 }}>
