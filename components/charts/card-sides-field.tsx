@@ -54,7 +54,9 @@ export function CardSidesField({
           Back to the default sides
         </Button>
       ) : (
-        <p className="mt-2 text-xs text-ink-soft">Default: lookup 1 on side 1, lookup 2 (or 1 again) on side 2.</p>
+        <p className="mt-2 text-xs text-ink-soft">
+          Default: lookup 1 on side 1; lookup 2 on side 2, or with one lookup the key (legend, caution, dates, QR code).
+        </p>
       )}
       {general.map((i) => (
         <FieldError key={i.path + i.message} id="card-err" error={i.message} />

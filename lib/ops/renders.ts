@@ -11,8 +11,8 @@ import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
 import { formatDate } from "@/lib/format/dates";
 import { can } from "@/lib/permissions";
-import { renderCardPdf, renderPosterPdf } from "@/lib/poster/pdf/render";
-import { stampBands, tilePoster, type Band } from "@/lib/poster/pdf/variants";
+import { bandFor, printEdition } from "@/lib/poster/pdf/print";
+import type { Band } from "@/lib/poster/pdf/variants";
 import { shortCodeUrl } from "@/lib/poster/labels";
 import { TILE_SHEETS } from "@/lib/poster/tiles";
 import { POSTER_RENDERER_VERSION } from "@/lib/poster/version";
@@ -44,16 +44,10 @@ export const pdfVariantSchema = z
   });
 export type PdfVariant = z.infer<typeof pdfVariantSchema>;
 
-const NOT_CURRENT_REASON = {
-  outdated: "the lab's stock or rules changed since this edition was approved",
-  superseded: "a newer edition replaces this one",
-  withdrawn: "this edition was withdrawn",
-} as const;
-
 /**
  * The poster PDF of an edition, or one of its variants (tiled on office sheets, badge card).
- * An edition that is not current (superseded, withdrawn, or approved but outdated) gets the
- * NOT CURRENT band on every page; a manager may ask for the archive copy instead, which keeps
+ * An edition that is not current (draft, returned, superseded, withdrawn, or approved but
+ * outdated) gets its state's stamp on every page (lib/poster/pdf/print.ts); a manager may ask for the archive copy instead, which keeps
  * the poster as approved and is stamped ARCHIVE COPY. Renders are cached in the database by
  * everything that decides the bytes (snapshot fingerprint, state, approval, check URL, lab print
  * settings, variant, band and its date, renderer version), so a second download, on any app
@@ -87,11 +81,11 @@ export const posterPdf = labOperation({
     let band: Band | null = null;
     let checkStatus: string = ed.status;
     if (archive) band = { kind: "archive", date: today };
-    else if (ed.status !== "draft" && ed.status !== "returned") {
+    else if (ed.status === "draft" || ed.status === "returned") band = bandFor(ed.status, today);
+    else {
       const check = await getCheckByToken({ token: ed.checkToken });
       checkStatus = check?.status ?? ed.status;
-      if (checkStatus === "outdated" || checkStatus === "superseded" || checkStatus === "withdrawn")
-        band = { kind: "not-current", date: today, reason: NOT_CURRENT_REASON[checkStatus] };
+      band = bandFor(check?.status ?? ed.status, today);
     }
     const format = variant.format ?? "poster";
     const renderKey = fingerprintOf({
@@ -112,23 +106,18 @@ export const posterPdf = labOperation({
       // The archive copy is the poster as approved: its own state's banner is not re-printed.
       const printed = archive && ed.approvedAt ? { ...edition, status: "approved" as const } : edition;
       const input = { snapshot: ed.snapshot, edition: printed, logo, lab };
-      if (format === "card") {
-        pdf = await renderCardPdf(input);
-        if (band) pdf = await stampBands(pdf, band);
-      } else {
-        pdf = await renderPosterPdf(input);
-        if (variant.tiles)
-          pdf = await tilePoster(pdf, {
-            sheet: variant.tiles,
-            title: ed.snapshot.title,
-            edition: ed.number,
-            shortCode,
-            shortUrl: edition.codeUrl.replace(/^https?:\/\//, ""),
-            checkUrl: edition.checkUrl,
-            band,
-          });
-        else if (band) pdf = await stampBands(pdf, band);
-      }
+      pdf = await printEdition(input, {
+        format,
+        tiles: variant.tiles ?? null,
+        band,
+        sheetLabels: {
+          title: ed.snapshot.title,
+          edition: ed.number,
+          shortCode,
+          shortUrl: edition.codeUrl.replace(/^https?:\/\//, ""),
+          checkUrl: edition.checkUrl,
+        },
+      });
       await storeRender({ editionId: ed.id, renderKey, pdf });
     }
     await recordAudit({
@@ -148,7 +137,7 @@ export const posterPdf = labOperation({
     });
     const suffix =
       (ed.status === "draft" || ed.status === "returned" ? "-DRAFT" : "") +
-      (archive ? "-ARCHIVE-COPY" : band ? "-NOT-CURRENT" : "") +
+      (archive ? "-ARCHIVE-COPY" : band?.kind === "not-current" ? "-NOT-CURRENT" : "") +
       (format === "card" ? "-card" : "") +
       (variant.tiles ? `-tiles-${variant.tiles}` : "");
     const fileName = `${slugify(ed.chartTitle)}-edition-${ed.number}${suffix}.pdf`;

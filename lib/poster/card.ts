@@ -3,9 +3,10 @@
 // 20′ guide at CARD_READING_DISTANCE_M; a lookup wider or taller than fits is narrowed to a
 // range of rows and columns (the chart's card choice, or the middle of its axes).
 import type { Snapshot } from "@/lib/charts/snapshot";
-import type { Grid } from "@/lib/sizing";
+import type { Grid, Vessel } from "@/lib/sizing";
 import type { CardSide } from "@/lib/validation/chart";
 import { CELL, fontPtForArcmin, type Box } from "./layout";
+import { formatAxisMm } from "./marks";
 import { mmToPt } from "./paper";
 
 export const CARD_WIDTH_MM = 85.6;
@@ -34,6 +35,8 @@ export type CardLayout = {
     colHeadHeight: number;
   };
   figurePt: number;
+  /** Whether the exact diameters (small print in a cell) are legible at the card's distance. */
+  exact: boolean;
   qr: Box;
   code: Box;
   key: Box;
@@ -61,6 +64,42 @@ export function defaultCardSides(lookupCount: number): [CardSide, CardSide] {
 /** Which lookup and range each side prints: the chart's choice, else the default. */
 export function cardSides(snapshot: Snapshot): [CardSide, CardSide] {
   return snapshot.card?.sides ?? defaultCardSides(snapshot.lookups.length);
+}
+
+/** What each face prints: a lookup, or ("key") the legend, caution, dates and QR code. */
+export type CardFace = CardSide | "key";
+
+/**
+ * The card's two faces: the chart's choice; else a one-lookup chart prints its grid on the
+ * front and the key on the back (the same table twice would say nothing more), two lookups one each.
+ */
+export function cardFaces(snapshot: Snapshot): [CardFace, CardFace] {
+  if (snapshot.card) return snapshot.card.sides;
+  return snapshot.lookups.length > 1 ? defaultCardSides(snapshot.lookups.length) : [{ lookup: 0 }, "key"];
+}
+
+const SHORT_VESSEL: Readonly<Record<Vessel, string>> = { parent: "parent", mb: "main", sb: "side" };
+
+const range = (values: readonly number[]) =>
+  values.length === 0
+    ? "none"
+    : values.length === 1
+      ? formatAxisMm(values[0] as number)
+      : `${formatAxisMm(values[0] as number)}-${formatAxisMm(values[values.length - 1] as number)}`;
+
+/**
+ * "main 2.5-3.75 mm, side 2.0-3.25 mm of this chart (all of it: main 2.5-4.0, side 2.0-3.5 mm)":
+ * the rows and columns a side prints, and the chart's whole axes when the card leaves some out.
+ */
+export function cardCoverage(full: Grid, shown: Grid): string {
+  const part = (g: Grid, unit: string) =>
+    `${SHORT_VESSEL[g.rowAxis.vessel]} ${range(g.rowAxis.values)}${unit}, ${SHORT_VESSEL[g.colAxis.vessel]} ${range(g.colAxis.values)}${unit}`;
+  const whole =
+    full.rowAxis.values.length === shown.rowAxis.values.length &&
+    full.colAxis.values.length === shown.colAxis.values.length;
+  return whole
+    ? `all of this chart: ${part(shown, " mm")}`
+    : `${part(shown, " mm")} of this chart (all of it: ${part(full, "")} mm)`;
 }
 
 function box(x: number, y: number, width: number, height: number): Box {
@@ -149,9 +188,35 @@ export function layoutCard(grid: Grid): CardLayout {
       colHeadHeight,
     },
     figurePt: f,
+    exact: f * CELL.smallRatio >= CARD_MIN_FIGURE_PT,
     qr: frame.qr,
     code: frame.code,
     key: frame.key,
+    caution: frame.caution,
+  };
+}
+
+export type CardKeyLayout = {
+  page: { width: number; height: number };
+  head: Box;
+  body: Box;
+  qr: Box;
+  code: Box;
+  caution: Box;
+};
+
+/** The key face: title at the top, legend and dates at the left, a larger QR code at the right, the caution below. */
+export function layoutCardKey(): CardKeyLayout {
+  const frame = cardFrame();
+  const qrSide = mmToPt(21);
+  const top = frame.head.y + frame.head.height + 1;
+  const qr = box(CARD_PAGE.width - MARGIN - qrSide, top, qrSide, qrSide);
+  return {
+    page: CARD_PAGE,
+    head: frame.head,
+    body: box(MARGIN, top, qr.x - 3 - MARGIN, frame.caution.y - 1.5 - top),
+    qr,
+    code: box(qr.x - 2, qr.y + qrSide, qrSide + 4, frame.caution.y - qr.y - qrSide - 1),
     caution: frame.caution,
   };
 }

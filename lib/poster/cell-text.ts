@@ -20,15 +20,21 @@ export type TextRun = {
   tnum: boolean;
 };
 
-/** A cell to be worded: its marks, its box on the page, and the figure size of its grid. */
-export type WordedCell = { view: CellView; box: Box; f: number; pressureLine: boolean };
+/**
+ * A cell to be worded: its marks, its box on the page, and the figure size of its grid; `exact`
+ * false leaves the exact diameter out (the badge card, where it would be too small to read).
+ */
+export type WordedCell = { view: CellView; box: Box; f: number; pressureLine: boolean; exact?: boolean };
 
 /**
  * The words of one cell (its background, hatching, rule and border are drawn apart): the exact
  * diameter small at the top left, the mark symbols small at the top right, the printed balloon
  * large in the middle, and the pressure line under it in grids that can push a balloon.
  */
-export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: NumberFormat = "point"): TextRun[] {
+export function cellTextRuns(
+  { view, box, f, pressureLine, exact = true }: WordedCell,
+  nf: NumberFormat = "point",
+): TextRun[] {
   const small = f * CELL.smallRatio;
   // Cells stretched to fill the page keep the figure in their middle.
   const lift = Math.max(0, (box.height - f * (CELL.heightEm + (pressureLine ? CELL.pressureLineEm : 0))) / 2);
@@ -37,7 +43,7 @@ export function cellTextRuns({ view, box, f, pressureLine }: WordedCell, nf: Num
   const top = f * 0.05 + inset * 0.6;
   const corner = cornerSymbols(view);
   const runs: TextRun[] = [];
-  if (view.exact)
+  if (view.exact && exact)
     runs.push({
       text: localiseNumbers(view.exact, nf),
       weight: 400,
@@ -101,6 +107,7 @@ export function gridTextRuns(
   f: number,
   headPt: number,
   nf: NumberFormat = "point",
+  exact = true,
 ): TextRun[] {
   const loc = (mm: number) => localiseNumbers(formatAxisMm(mm), nf);
   const pressureLine = grid.rounding === "reach";
@@ -120,7 +127,9 @@ export function gridTextRuns(
       ),
     ),
     ...grid.cells.flatMap((row, i) =>
-      row.flatMap((cell, j) => cellTextRuns({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine }, nf)),
+      row.flatMap((cell, j) =>
+        cellTextRuns({ view: cellView(cell), box: cellBox(g, i, j), f, pressureLine, exact }, nf),
+      ),
     ),
   ];
 }

@@ -150,6 +150,22 @@ export function formulaRuns(formula: string): FormulaRun[] {
   return runs;
 }
 
+/** Widest an Inter Bold character runs, in em, for a formula (figures, capitals, ×): an overestimate on purpose. */
+const FORMULA_EM = 0.66;
+
+/**
+ * A formula set so that it never breaks inside an expression: whole on one line when it fits
+ * `widthPt` at `sizePt`, else broken only after its "=", and shrunk until its longest line fits.
+ */
+export function formulaLines(formula: string, sizePt: number, widthPt: number): { lines: string[]; size: number } {
+  const width = (t: string) => t.length * FORMULA_EM;
+  if (width(formula) * sizePt <= widthPt) return { lines: [formula], size: sizePt };
+  const at = formula.indexOf("=");
+  const lines = at > 0 ? [formula.slice(0, at + 1).trimEnd(), formula.slice(at + 1).trimStart()] : [formula];
+  const widest = Math.max(...lines.map(width));
+  return { lines, size: Math.min(sizePt, widthPt / widest) };
+}
+
 /** The banner across a poster that must not be used as current, or null for approved ones. */
 export function statusBanner(status: EditionStatus): string | null {
   switch (status) {
@@ -166,7 +182,17 @@ export function statusBanner(status: EditionStatus): string | null {
   }
 }
 
-export const DRAFT_WATERMARK = "DRAFT - not for clinical use";
+/** States whose every printed page carries a diagonal stamp: all but a current approved edition. */
+export type StampState = "draft" | "returned" | "withdrawn" | "superseded" | "outdated";
+
+/** The stamp's words, exactly (plain ASCII: the stamp is set in the PDF standard Helvetica). */
+export const STAMP_WORDS: Readonly<Record<StampState, string>> = {
+  draft: "DRAFT - NOT FOR CLINICAL USE",
+  returned: "RETURNED - NOT FOR CLINICAL USE",
+  withdrawn: "WITHDRAWN - DO NOT POST",
+  superseded: "NOT CURRENT - DO NOT POST",
+  outdated: "NOT CURRENT - DO NOT POST",
+};
 
 /** The check URL without its scheme, for printing beside the QR code. */
 export function shortUrl(url: string): string {

@@ -257,7 +257,10 @@ export function cornerSymbols(view: CellView): string {
 export type LegendEntry = {
   mark: MarkId | "sized";
   label: string;
+  /** What the poster prints: short enough for three lines on A1 (tests/tools/poster/text-units.test.ts). */
   text: string;
+  /** The full explanation, where the printed text leaves some out: for the chart's check page. */
+  detail?: string;
   /** A real cell of the chart that shows the mark, printed as the legend's sample. */
   sample?: CellView;
 };
@@ -272,12 +275,16 @@ export type LegendContext = {
 };
 
 /** Legend lines for a poster: how to read a cell, then each mark made specific to its law and stent. */
+/** The stent-limit check in full, for the check page. */
+const hazardDetail = (stentName: string) =>
+  `The POT balloon at rated burst pressure (by its growth; at nominal where none is recorded) is above the maximum post-dilatation diameter of any ${stentName} stent an operator might size to the main branch (the nearest nominal at or below it up to the nearest at or above it), or no stent of it covers the main branch.`;
+
 export function legendEntries(ctx: LegendContext): LegendEntry[] {
   const text = (m: MarkId): string => {
     if (m === "hazard") {
       if (!ctx.hasProximal) return "Checked on POT grids only; this chart has none.";
       if (!ctx.stentName) return "Not checked: no stent platform was chosen for this chart.";
-      return `POT balloon at rated burst pressure (by its growth; at nominal where none is recorded) above the maximum post-dilatation diameter of any ${ctx.stentName} stent an operator might size to the main branch (the nearest nominal at or below it up to the nearest at or above it), or no stent of it covers the main branch; orange, heavy border.`;
+      return `POT balloon at rated burst pressure wider than the ${ctx.stentName} sizes for this main branch can be post-dilated to, or no size covers it; orange, heavy border.`;
     }
     if (m === "oversize" || m === "undersize") {
       const caps = ctx.caps ?? { upMm: 0.25, downMm: 0.5 };
@@ -305,9 +312,21 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
     label: "Stocked balloon",
     text:
       "Large: the stocked balloon, mm. Small, in brackets: the exact diameter from the law, mm." +
-      (ctx.hasReach
-        ? " “@ N atm”: this balloon reaches the target at N atm, never above its rated burst pressure (the device's own compliance chart rules)."
-        : ""),
+      (ctx.hasReach ? " “@ N atm”: reaches the target at N atm, never above rated burst pressure." : ""),
+    ...(ctx.hasReach
+      ? {
+          detail:
+            "“@ N atm”: this balloon reaches the target at N atm by linear compliance, never above its rated burst pressure; the device's own compliance chart rules.",
+        }
+      : {}),
   };
-  return [sized, ...MARK_ORDER.map((m) => ({ mark: m, label: `${MARKS[m].symbol} ${MARKS[m].label}`, text: text(m) }))];
+  return [
+    sized,
+    ...MARK_ORDER.map((m) => ({
+      mark: m,
+      label: `${MARKS[m].symbol} ${MARKS[m].label}`,
+      text: text(m),
+      ...(m === "hazard" && ctx.hasProximal && ctx.stentName ? { detail: hazardDetail(ctx.stentName) } : {}),
+    })),
+  ];
 }

@@ -31,11 +31,47 @@ export type TilePlan = {
   /** Printed width and height of poster on each sheet (the sheet less its margins). */
   windowWidthMm: number;
   windowHeightMm: number;
-  /** Where the poster's origin sits in the tiled area: the spare length is split evenly. */
+  /** Where the poster's origin sits in the tiled area (the first sheet starts this far before it). */
   offsetXMm: number;
   offsetYMm: number;
+  /** The tiled area: from the first sheet's edge to the last sheet's. */
+  totalWidthMm: number;
+  totalHeightMm: number;
   tiles: Tile[];
 };
+
+/** A stretch of the poster (mm, from its top or left edge) that no seam may cut: a cell, a heading, the QR code. */
+export type Span = readonly [number, number];
+/** What must stay whole: spans across the poster (cut by vertical seams) and down it (horizontal seams). */
+export type KeepWhole = { x: readonly Span[]; y: readonly Span[] };
+
+const EPS = 1e-6;
+
+/**
+ * Where each sheet starts along one direction. A sheet reaches `window` from its start and the next
+ * sheet's cut edge (the seam) lies at least `overlap` before its end; the seam goes as far along
+ * as it can without falling inside a kept span, so it lands on a cell rule rather than through a
+ * figure. Only if that would shorten the step below half a window is a span cut.
+ */
+export function sheetStarts(start: number, length: number, window: number, overlap: number, keep: readonly Span[]) {
+  const starts = [start];
+  for (let at = start; at + window < length - EPS;) {
+    const limit = at + window - overlap;
+    let seam = limit;
+    for (let moved = true; moved;) {
+      moved = false;
+      for (const [a, b] of keep)
+        if (a + EPS < seam && seam < b - EPS) {
+          seam = a;
+          moved = true;
+        }
+    }
+    if (seam < at + window / 2) seam = limit;
+    starts.push(seam);
+    at = seam;
+  }
+  return starts;
+}
 
 /** Spreadsheet-style column letters: A..Z, AA.. */
 export function columnLetter(i: number): string {
@@ -49,50 +85,54 @@ export function columnLetter(i: number): string {
   return s;
 }
 
-function planFor(posterW: number, posterH: number, sheet: TileSheet, orientation: Orientation): TilePlan {
+function planFor(
+  posterW: number,
+  posterH: number,
+  sheet: TileSheet,
+  orientation: Orientation,
+  keep: KeepWhole,
+): TilePlan {
   const p = PAPERS[sheet];
   const sheetW = orientation === "portrait" ? p.widthMm : p.heightMm;
   const sheetH = orientation === "portrait" ? p.heightMm : p.widthMm;
   const winW = sheetW - 2 * TILE_MARGIN_MM;
   const winH = sheetH - 2 * TILE_MARGIN_MM;
-  const stepX = winW - TILE_OVERLAP_MM;
-  const stepY = winH - TILE_OVERLAP_MM;
-  // cols sheets cover (cols - 1) * step + window; never fewer than one.
-  const cols = Math.max(1, Math.ceil((posterW - winW) / stepX - 1e-9) + 1);
-  const rows = Math.max(1, Math.ceil((posterH - winH) / stepY - 1e-9) + 1);
-  const offsetX = ((cols - 1) * stepX + winW - posterW) / 2;
-  const offsetY = ((rows - 1) * stepY + winH - posterH) / 2;
-  const tiles: Tile[] = [];
-  for (let r = 0; r < rows; r++)
-    for (let c = 0; c < cols; c++)
-      tiles.push({
-        label: `${columnLetter(c)}${r + 1}`,
-        col: c,
-        row: r,
-        x: c * stepX - offsetX,
-        y: r * stepY - offsetY,
-        width: winW,
-        height: winH,
-      });
+  // The spare length of an even plan is split before and after the poster.
+  const even = (length: number, win: number) => {
+    const n = Math.max(1, Math.ceil((length - win) / (win - TILE_OVERLAP_MM) - 1e-9) + 1);
+    return ((n - 1) * (win - TILE_OVERLAP_MM) + win - length) / 2;
+  };
+  const xs = sheetStarts(-even(posterW, winW), posterW, winW, TILE_OVERLAP_MM, keep.x);
+  const ys = sheetStarts(-even(posterH, winH), posterH, winH, TILE_OVERLAP_MM, keep.y);
+  const tiles: Tile[] = ys.flatMap((y, r) =>
+    xs.map((x, c) => ({ label: `${columnLetter(c)}${r + 1}`, col: c, row: r, x, y, width: winW, height: winH })),
+  );
   return {
     sheet,
     orientation,
     sheetWidthMm: sheetW,
     sheetHeightMm: sheetH,
-    cols,
-    rows,
+    cols: xs.length,
+    rows: ys.length,
     windowWidthMm: winW,
     windowHeightMm: winH,
-    offsetXMm: offsetX,
-    offsetYMm: offsetY,
+    offsetXMm: -(xs[0] as number),
+    offsetYMm: -(ys[0] as number),
+    totalWidthMm: (xs[xs.length - 1] as number) + winW - (xs[0] as number),
+    totalHeightMm: (ys[ys.length - 1] as number) + winH - (ys[0] as number),
     tiles,
   };
 }
 
-/** The plan with fewer sheets, portrait or landscape (portrait on a tie). */
-export function tilePlan(posterWidthMm: number, posterHeightMm: number, sheet: TileSheet): TilePlan {
-  const portrait = planFor(posterWidthMm, posterHeightMm, sheet, "portrait");
-  const landscape = planFor(posterWidthMm, posterHeightMm, sheet, "landscape");
+/** The plan with fewer sheets, portrait or landscape (portrait on a tie), seams clear of `keep`. */
+export function tilePlan(
+  posterWidthMm: number,
+  posterHeightMm: number,
+  sheet: TileSheet,
+  keep: KeepWhole = { x: [], y: [] },
+): TilePlan {
+  const portrait = planFor(posterWidthMm, posterHeightMm, sheet, "portrait", keep);
+  const landscape = planFor(posterWidthMm, posterHeightMm, sheet, "landscape", keep);
   return landscape.tiles.length < portrait.tiles.length ? landscape : portrait;
 }
 

@@ -165,6 +165,20 @@ describe("GET /api/v1/editions/:id/pdf variants", () => {
       .where(and(eq(auditEvents.labId, team.lab.id), eq(auditEvents.targetId, String(first))));
     expect(rows.map((r) => r.action)).toContain("edition.archive_copy");
   });
+
+  it("a draft carries DRAFT - NOT FOR CLINICAL USE on every page, in every variant", async () => {
+    as(team.people.educator);
+    expect((await call(patchChartRoute, { id: String(chartId) }, "PATCH", { notes: "Draft stamp" })).status).toBe(200);
+    const created = await json(await call(createEditionRoute, { id: String(chartId) }, "POST"));
+    as(team.people.operator);
+    for (const query of ["", "?tiles=A4", "?format=card"]) {
+      const { res, bytes } = await pdf(created.id, query);
+      expect(res.status, query).toBe(200);
+      expect(res.headers.get("x-poster-band"), query).toBe("unapproved");
+      expect(res.headers.get("content-disposition"), query).toContain("-DRAFT");
+      for (const text of pdfPages(bytes).texts) expect(text, query).toContain("DRAFT - NOT FOR CLINICAL USE");
+    }
+  });
 });
 
 describe("the legibility gate on approval", () => {

@@ -1,15 +1,17 @@
 // The row and column headings a badge card prints, read back from the PDF by position: the words
 // whose centres fall in the row-heading column and the column-heading row of each side's grid.
-import { cardGrid, cardSides, layoutCard } from "@/lib/poster/card";
+import { cardFaces, cardGrid, layoutCard } from "@/lib/poster/card";
 import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
 import { pdfWords, type PdfWord } from "./pdf-tools";
 
 export type CardHeadings = { rows: string[]; cols: string[] };
 
-export function cardHeadings(pdf: Buffer, snapshot: Snapshot): CardHeadings[] {
+/** Each face's headings; null for the key face (no grid). */
+export function cardHeadings(pdf: Buffer, snapshot: Snapshot): (CardHeadings | null)[] {
   const grids = snapshotGrids(snapshot);
   const pages = pdfWords(pdf);
-  return cardSides(snapshot).map((side, i) => {
+  return cardFaces(snapshot).map((side, i) => {
+    if (side === "key") return null;
     const l = layoutCard(cardGrid(grids[side.lookup]!, side));
     const g = l.grid;
     const words = pages[i] ?? [];

@@ -119,3 +119,13 @@ export function pdfWords(pdf: Buffer): PdfWord[][] {
       ),
     );
 }
+
+/** Each page's text as pdf.js reads it (pdf-parse): a line of text drawn at any angle stays one run. */
+export async function pdfjsPageTexts(pdf: Buffer): Promise<string[]> {
+  const parser = new PDFParse({ data: new Uint8Array(pdf) });
+  try {
+    return (await parser.getText()).pages.map((p) => p.text);
+  } finally {
+    await parser.destroy();
+  }
+}

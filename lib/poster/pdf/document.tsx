@@ -11,7 +11,7 @@ import { cellGraphics, type DrawnCell } from "@/lib/poster/draw";
 import {
   approvalText,
   axisTitles,
-  DRAFT_WATERMARK,
+  formulaLines,
   formulaRuns,
   gridSubtitleParts,
   localiseNumbers,
@@ -437,19 +437,122 @@ function Qr({
   );
 }
 
+/** Logo, lab name and chart title at the left; the law, its formula and its source at the right. */
+function Header({ input, layout }: { input: PosterInput; layout: PosterLayout }) {
+  const { snapshot, logo } = input;
+  const { fonts, scale } = layout;
+  const loc = (t: string) => localiseNumbers(t, input.lab?.numberFormat ?? "point");
+  const name = `Law: ${loc(lawName(snapshot.law))}`;
+  const text = loc(lawFormula(snapshot.law));
+  const whole = formulaLines(`${name}: ${text}`, fonts.law, layout.law.width).lines.length === 1;
+  const formula = whole ? { lines: [text], size: fonts.law } : formulaLines(text, fonts.law, layout.law.width);
+  return (
+    <>
+      {logo && layout.logo ? (
+        // eslint-disable-next-line jsx-a11y/alt-text -- react-pdf's Image has no alt; the lab name is printed beside it
+        <Image
+          src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }}
+          style={{ ...at(layout.logo), objectFit: "contain" }}
+        />
+      ) : null}
+      <View style={{ position: "absolute", left: layout.title.x, top: layout.title.y, width: layout.title.width }}>
+        <Text style={{ fontSize: fonts.lab, fontWeight: 400, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
+        <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
+      </View>
+      <View style={at(layout.law)}>
+        {/* One line when name and formula fit it; else each piece of the formula on its own line,
+            sized to fit it, so it breaks only after "=". */}
+        {whole ? null : (
+          <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>{name}</Text>
+        )}
+        {formula.lines.map((line, j) => (
+          <Text key={j} style={{ fontSize: formula.size, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>
+            {whole ? `${name}: ` : ""}
+            {formulaRuns(line).map((r, i) =>
+              r.sup ? (
+                <Text key={i} style={{ verticalAlign: "super", fontSize: formula.size * 0.62 }}>
+                  {r.text}
+                </Text>
+              ) : (
+                r.text
+              ),
+            )}
+          </Text>
+        ))}
+        <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
+          {LAWS[snapshot.law.law].source}
+        </Text>
+      </View>
+    </>
+  );
+}
+
+function Caution({ layout, caution }: { layout: PosterLayout; caution: string }) {
+  const { fonts, scale } = layout;
+  return (
+    <View
+      style={{
+        ...at(layout.caution),
+        backgroundColor: PALETTE.caution,
+        borderWidth: 1.5 * scale,
+        borderColor: PALETTE.cautionBorder,
+        padding: 4.5 * scale,
+      }}
+    >
+      <Text style={{ fontSize: fonts.caution, lineHeight: 1.3 }}>
+        <Text style={{ fontWeight: 700 }}>CAUTION. </Text>
+        {caution}
+      </Text>
+    </View>
+  );
+}
+
+/** Edition number, approval and review-by dates, print settings, rule exceptions and notes. */
+function EditionBlock({ input, layout }: { input: PosterInput; layout: PosterLayout }) {
+  const { snapshot, edition } = input;
+  const { fonts } = layout;
+  const tz = input.lab?.timeZone ?? "UTC";
+  const loc = (t: string) => localiseNumbers(t, input.lab?.numberFormat ?? "point");
+  const review = edition.status === "approved" ? reviewText(edition.reviewBy, tz) : null;
+  return (
+    <View style={at(layout.edition)}>
+      <Text style={{ fontSize: fonts.edition * 1.6, fontWeight: 700 }}>{`Edition ${edition.number}`}</Text>
+      <Text
+        style={{
+          fontSize: fonts.edition,
+          fontWeight: edition.status === "approved" ? 400 : 700,
+          marginTop: fonts.edition * 0.2,
+        }}
+      >
+        {approvalText(edition, tz)}
+      </Text>
+      {review ? <Text style={{ fontSize: fonts.edition, fontWeight: 700 }}>{review}</Text> : null}
+      <Text style={{ fontSize: fonts.small, color: PALETTE.inkSoft, marginTop: fonts.small * 0.4 }}>
+        {`Dates in ${tz} time. Printed on ${PAPERS[snapshot.paper].label} ${snapshot.orientation}, to be read from ${loc(snapshot.readingDistanceM.toFixed(1))} m.`}
+      </Text>
+      {(snapshot.ruleExceptions ?? []).map((e, i) => (
+        <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
+          <Text style={{ fontWeight: 700 }}>{`Exception to the lab rule “${e.rule}”: `}</Text>
+          {e.reason}
+        </Text>
+      ))}
+      {snapshot.notes ? (
+        <Text style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.4 }}>
+          <Text style={{ fontWeight: 700 }}>Notes: </Text>
+          {snapshot.notes}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
 export function PosterDocument({ input }: { input: PosterInput }) {
-  const { snapshot, edition, logo } = input;
+  const { snapshot, edition } = input;
   const { grids, layout, legend, qr } = posterModel(input);
   const { fonts, page, scale } = layout;
-  const tz = input.lab?.timeZone ?? "UTC";
   const nf = input.lab?.numberFormat ?? "point";
-  const loc = (t: string) => localiseNumbers(t, nf);
-  const review = edition.status === "approved" ? reviewText(edition.reviewBy, tz) : null;
   const banner = statusBanner(edition.status);
   const created = edition.approvedAt ?? POSTER_EPOCH;
-  const diagonal = Math.hypot(page.width, page.height);
-  const watermarkPt = (diagonal * 0.7) / 13.6;
-  const angle = (Math.atan2(page.height, page.width) * 180) / Math.PI;
   const rule = Math.max(0.5, 0.6 * scale);
 
   return (
@@ -469,35 +572,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
         size={[page.width, page.height]}
         style={{ fontFamily: POSTER_FONT, color: PALETTE.ink, backgroundColor: PALETTE.cell, minHeight: page.height }}
       >
-        {logo && layout.logo ? (
-          // eslint-disable-next-line jsx-a11y/alt-text -- react-pdf's Image has no alt; the lab name is printed beside it
-          <Image
-            src={{ data: logo.bytes, format: logo.mime === "image/png" ? "png" : "jpg" }}
-            style={{ ...at(layout.logo), objectFit: "contain" }}
-          />
-        ) : null}
-        <View style={{ position: "absolute", left: layout.title.x, top: layout.title.y, width: layout.title.width }}>
-          <Text style={{ fontSize: fonts.lab, fontWeight: 400, color: PALETTE.inkSoft }}>{snapshot.lab.name}</Text>
-          <Text style={{ fontSize: fonts.title, fontWeight: 700, lineHeight: 1.15 }}>{snapshot.title}</Text>
-        </View>
-        <View style={at(layout.law)}>
-          <Text style={{ fontSize: fonts.law, fontWeight: 700, textAlign: "right", lineHeight: 1.25 }}>
-            {`Law: ${loc(lawName(snapshot.law))}: `}
-            {formulaRuns(loc(lawFormula(snapshot.law))).map((r, i) =>
-              r.sup ? (
-                <Text key={i} style={{ verticalAlign: "super", fontSize: fonts.law * 0.62 }}>
-                  {r.text}
-                </Text>
-              ) : (
-                r.text
-              ),
-            )}
-          </Text>
-          <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
-            {LAWS[snapshot.law.law].source}
-          </Text>
-        </View>
-
+        <Header input={input} layout={layout} />
         {banner && layout.banner ? (
           <View style={{ ...at(layout.banner), backgroundColor: PALETTE.banner, justifyContent: "center" }}>
             <Text style={{ fontSize: fonts.banner, fontWeight: 700, color: PALETTE.bannerText, textAlign: "center" }}>
@@ -526,79 +601,13 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           />
         ))}
 
-        <View
-          style={{
-            ...at(layout.caution),
-            backgroundColor: PALETTE.caution,
-            borderWidth: 1.5 * scale,
-            borderColor: PALETTE.cautionBorder,
-            padding: 4.5 * scale,
-          }}
-        >
-          <Text style={{ fontSize: fonts.caution, lineHeight: 1.3 }}>
-            <Text style={{ fontWeight: 700 }}>CAUTION. </Text>
-            {snapshot.caution}
-          </Text>
-        </View>
+        <Caution layout={layout} caution={snapshot.caution} />
 
         <Legend layout={layout} entries={legend} nf={nf} />
 
-        <View style={at(layout.edition)}>
-          <Text style={{ fontSize: fonts.edition * 1.6, fontWeight: 700 }}>{`Edition ${edition.number}`}</Text>
-          <Text
-            style={{
-              fontSize: fonts.edition,
-              fontWeight: edition.status === "approved" ? 400 : 700,
-              marginTop: fonts.edition * 0.2,
-            }}
-          >
-            {approvalText(edition, tz)}
-          </Text>
-          {review ? <Text style={{ fontSize: fonts.edition, fontWeight: 700 }}>{review}</Text> : null}
-          <Text style={{ fontSize: fonts.small, color: PALETTE.inkSoft, marginTop: fonts.small * 0.4 }}>
-            {`Dates in ${tz} time. Printed on ${PAPERS[snapshot.paper].label} ${snapshot.orientation}, to be read from ${loc(snapshot.readingDistanceM.toFixed(1))} m.`}
-          </Text>
-          {(snapshot.ruleExceptions ?? []).map((e, i) => (
-            <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
-              <Text style={{ fontWeight: 700 }}>{`Exception to the lab rule “${e.rule}”: `}</Text>
-              {e.reason}
-            </Text>
-          ))}
-          {snapshot.notes ? (
-            <Text style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.4 }}>
-              <Text style={{ fontWeight: 700 }}>Notes: </Text>
-              {snapshot.notes}
-            </Text>
-          ) : null}
-        </View>
+        <EditionBlock input={input} layout={layout} />
 
         <Qr layout={layout} url={edition.codeUrl ?? edition.checkUrl} code={edition.shortCode ?? null} qr={qr} />
-
-        {edition.status === "draft" ? (
-          <View
-            style={{
-              position: "absolute",
-              left: page.width / 2 - diagonal / 2,
-              top: page.height / 2 - watermarkPt * 0.7,
-              width: diagonal,
-              height: watermarkPt * 1.4,
-              transform: `rotate(-${angle}deg)`,
-              justifyContent: "center",
-            }}
-          >
-            <Text
-              style={{
-                fontSize: watermarkPt,
-                fontWeight: 700,
-                color: PALETTE.watermark,
-                opacity: 0.16,
-                textAlign: "center",
-              }}
-            >
-              {DRAFT_WATERMARK}
-            </Text>
-          </View>
-        ) : null}
       </Page>
     </Document>
   );

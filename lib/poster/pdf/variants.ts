@@ -16,17 +16,54 @@ import {
   rgb,
   StandardFonts,
 } from "pdf-lib";
+import { STAMP_WORDS } from "../labels";
 import { mmToPt } from "../paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "../qr";
-import { columnLetter, tileCaption, tilePlan, TILE_MARGIN_MM, TILE_OVERLAP_MM, type TileSheet } from "../tiles";
+import {
+  columnLetter,
+  tileCaption,
+  tilePlan,
+  TILE_MARGIN_MM,
+  TILE_OVERLAP_MM,
+  type KeepWhole,
+  type TileSheet,
+} from "../tiles";
 
 /** The words every page of an edition that is not current carries, exactly. */
-export const NOT_CURRENT_BAND = "NOT CURRENT - DO NOT POST";
+export const NOT_CURRENT_BAND = STAMP_WORDS.outdated;
 export const ARCHIVE_STAMP = "ARCHIVE COPY";
 
 export type Band =
-  | { kind: "not-current"; /** ISO date, lab time zone */ date: string; reason: string }
+  | {
+      kind: "not-current";
+      /** ISO date, lab time zone */ date: string;
+      reason: string;
+      /** Which words the stamp uses; outdated (NOT CURRENT) when absent. */
+      state?: "withdrawn" | "superseded" | "outdated";
+    }
+  | { kind: "unapproved"; state: "draft" | "returned" }
   | { kind: "archive"; date: string };
+
+const UNAPPROVED_REASON = {
+  draft: "a draft, not approved: do not use it for patient care",
+  returned: "sent back by the approver and never approved: do not use it for patient care",
+} as const;
+
+/** The stamp's words and the bands' lines for a band: top (short) and bottom (with the reason). */
+export function bandWords(band: Band): { stamp: string; top: string; bottom: string } {
+  if (band.kind === "archive")
+    return {
+      stamp: ARCHIVE_STAMP,
+      top: `${ARCHIVE_STAMP} ${band.date}`,
+      bottom: `${ARCHIVE_STAMP} ${band.date}: kept for the record, not for posting`,
+    };
+  if (band.kind === "unapproved") {
+    const stamp = STAMP_WORDS[band.state];
+    return { stamp, top: stamp, bottom: `${stamp}: ${UNAPPROVED_REASON[band.state]}` };
+  }
+  const stamp = STAMP_WORDS[band.state ?? "outdated"];
+  return { stamp, top: `${stamp} ${band.date}`, bottom: `${stamp} ${band.date}: ${band.reason}` };
+}
 
 /** Metadata dates stay fixed so that the same inputs give the same bytes. */
 const FIXED_DATE = new Date(Date.UTC(2000, 0, 1));
@@ -91,13 +128,8 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
   const h = page.getHeight();
   const short = Math.min(w, h);
   const bh = Math.min(60, Math.max(12, short * 0.032));
-  const colour = band.kind === "not-current" ? RED : ARCHIVE_GREY;
-  const head = band.kind === "not-current" ? NOT_CURRENT_BAND : ARCHIVE_STAMP;
-  const top = `${head} ${band.date}`;
-  const bottom =
-    band.kind === "not-current"
-      ? `${head} ${band.date}: ${band.reason}`
-      : `${head} ${band.date}: kept for the record, not for posting`;
+  const colour = band.kind === "archive" ? ARCHIVE_GREY : RED;
+  const { stamp: head, top, bottom } = bandWords(band);
   page.drawRectangle({ x: 0, y: h - bh, width: w, height: bh, color: colour });
   centred(page, fonts.bold, top, h - bh * 0.72, bh * 0.58);
   if (withBottom) {
@@ -106,7 +138,7 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
   }
 
   // Diagonal band through the centre, translucent so the figures beneath stay inspectable (a
-  // copy kept for the record must still be readable).
+  // copy kept for the record must still be readable); an unapproved edition's is stronger.
   const angle = Math.atan2(h, w);
   const diag = Math.hypot(w, h);
   const dh = Math.min(short * 0.09, 160);
@@ -117,8 +149,9 @@ function drawBand(page: PDFPage, fonts: { regular: PDFFont; bold: PDFFont }, ban
     pushGraphicsState(),
     concatTransformationMatrix(Math.cos(angle), Math.sin(angle), -Math.sin(angle), Math.cos(angle), w / 2, h / 2),
   );
-  page.drawRectangle({ x: -diag / 2, y: -dh / 2, width: diag, height: dh, color: colour, opacity: 0.12 });
-  page.drawText(head, { x: -textW / 2, y: -size * 0.36, size, font: fonts.bold, color: colour, opacity: 0.8 });
+  const fill = band.kind === "unapproved" ? 0.2 : 0.12;
+  page.drawRectangle({ x: -diag / 2, y: -dh / 2, width: diag, height: dh, color: colour, opacity: fill });
+  page.drawText(head, { x: -textW / 2, y: -size * 0.36, size, font: fonts.bold, color: colour, opacity: 0.85 });
   page.pushOperators(popGraphicsState());
 }
 
@@ -141,6 +174,8 @@ export type TileOptions = {
   /** What the assembly map's QR code opens: the edition's check page, as on the poster. */
   checkUrl: string;
   band: Band | null;
+  /** What the seams must not cut (lib/poster/seams.ts); none when absent. */
+  keepWhole?: KeepWhole;
 };
 
 /** Side of the assembly map's QR code, quiet zone included (about 0.7 mm a module for a check address). */
@@ -185,7 +220,7 @@ function drawMap(
   const lines = [
     `Assembly map: ${opts.title}, edition ${opts.edition}`,
     `${plan.tiles.length} sheets at 100 % scale (${plan.cols} across, columns A-${columnLetter(plan.cols - 1)}; ${plan.rows} down, rows 1-${plan.rows}). Print at actual size, not "fit to page".`,
-    `Each sheet overlaps its neighbours by ${TILE_OVERLAP_MM} mm: trim the left and top margins of every sheet except column A and row 1 along the corner marks, lay it over its neighbour up to the dashed line, and tape it from behind.`,
+    `Each sheet overlaps its neighbours by at least ${TILE_OVERLAP_MM} mm (seams run between cells, never through a figure): trim the left and top margins of every sheet except column A and row 1 along the corner marks, lay it over its neighbour up to the dashed line, and tape it from behind.`,
     `Code ${opts.shortCode}: ${opts.shortUrl}`,
   ].map((l) => winAnsi(fonts.regular, l));
   let y = h - m - 14;
@@ -211,8 +246,8 @@ function drawMap(
   const areaTop = Math.min(y, qrTop - qrSide - scanSize - 2) - 10;
   const areaH = areaTop - m - 16;
   const areaW = w - 2 * m;
-  const totalW = mm((plan.cols - 1) * (plan.windowWidthMm - TILE_OVERLAP_MM) + plan.windowWidthMm);
-  const totalH = mm((plan.rows - 1) * (plan.windowHeightMm - TILE_OVERLAP_MM) + plan.windowHeightMm);
+  const totalW = mm(plan.totalWidthMm);
+  const totalH = mm(plan.totalHeightMm);
   const k = Math.min(areaW / totalW, areaH / totalH);
   const ox = m + (areaW - totalW * k) / 2;
   const oyTop = areaTop - (areaH - totalH * k) / 2;
@@ -251,7 +286,7 @@ export async function tilePoster(pdf: Uint8Array, opts: TileOptions): Promise<Bu
   const posterWpt = srcPage.getWidth();
   const posterHpt = srcPage.getHeight();
   const toMm = (pt: number) => (pt * 25.4) / 72;
-  const plan = tilePlan(toMm(posterWpt), toMm(posterHpt), opts.sheet);
+  const plan = tilePlan(toMm(posterWpt), toMm(posterHpt), opts.sheet, opts.keepWhole);
   const out = await PDFDocument.create({ updateMetadata: false });
   const fonts = await fontsFor(out);
   const [poster] = await out.embedPdf(src, [0]);
@@ -259,7 +294,6 @@ export async function tilePoster(pdf: Uint8Array, opts: TileOptions): Promise<Bu
   const sw = mm(plan.sheetWidthMm);
   const sh = mm(plan.sheetHeightMm);
   const m = mm(TILE_MARGIN_MM);
-  const ov = mm(TILE_OVERLAP_MM);
   const winW = mm(plan.windowWidthMm);
   const winH = mm(plan.windowHeightMm);
 
@@ -288,13 +322,15 @@ export async function tilePoster(pdf: Uint8Array, opts: TileOptions): Promise<Bu
     }
     // Where the next sheet's cut edge lies: dashed lines across the overlap, with arrows in the margin.
     const dash = { thickness: 0.5, color: RED, dashArray: [3, 3] };
-    if (t.col < plan.cols - 1) {
-      const x = m + winW - ov;
+    const right = plan.tiles.find((n) => n.row === t.row && n.col === t.col + 1);
+    const below = plan.tiles.find((n) => n.col === t.col && n.row === t.row + 1);
+    if (right) {
+      const x = m + mm(right.x - t.x);
       page.drawLine({ start: { x, y: m }, end: { x, y: m + winH }, ...dash });
       label(page, fonts.bold, `${columnLetter(t.col + 1)}${t.row + 1}`, x + 1, m + winH + 2, 6, RED);
     }
-    if (t.row < plan.rows - 1) {
-      const y = m + ov;
+    if (below) {
+      const y = sh - m - mm(below.y - t.y);
       page.drawLine({ start: { x: m, y }, end: { x: m + winW, y }, ...dash });
       label(page, fonts.bold, `${columnLetter(t.col)}${t.row + 2}`, m + winW + 2, y - 2, 6, RED);
     }

@@ -2,7 +2,6 @@ import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { renderPosterPdf } from "@/lib/poster/pdf/render";
-import { DRAFT_WATERMARK } from "@/lib/poster/labels";
 import { pdfText } from "@/tests/support/pdf-tools";
 import { posterInput, potDefinition, snapshotOf } from "@/tests/support/poster-fixtures";
 
@@ -25,32 +24,31 @@ describe("byte-identical renders", () => {
     expect(id(a)).toBe(id(b));
   });
 
-  it("changes with the status, and only drafts carry the watermark", { timeout: 60_000 }, async () => {
+  // The diagonal stamp is drawn over the render (lib/poster/pdf/print.ts, tests/tools/poster/stamps.test.ts).
+  it("changes with the status, and only drafts say they are not approved", { timeout: 60_000 }, async () => {
     const approved = await renderPosterPdf(posterInput(snapshot));
     const drafted = await renderPosterPdf(posterInput(snapshot, draft));
     expect(sha(drafted)).not.toBe(sha(approved));
     expect(sha(await renderPosterPdf(posterInput(snapshot, draft)))).toBe(sha(drafted));
     const draftText = (await pdfText(drafted)).text;
     const approvedText = (await pdfText(approved)).text;
-    expect(draftText).toContain(DRAFT_WATERMARK);
     expect(draftText).toContain("DRAFT — not approved, not for clinical use");
     expect(draftText).toContain("DRAFT — not approved");
-    expect(approvedText).not.toContain(DRAFT_WATERMARK);
     expect(approvedText).not.toContain("DRAFT");
     // A draft's metadata dates are the fixed epoch, never the clock.
     expect((await pdfText(drafted)).info.CreationDate).toBe("D:20000101000000Z");
   });
 
   it(
-    "prints a banner on superseded and withdrawn editions, without the draft watermark",
+    "prints a banner on superseded and withdrawn editions, without the draft's words",
     { timeout: 60_000 },
     async () => {
       const superseded = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "superseded" })))).text;
       const withdrawn = (await pdfText(await renderPosterPdf(posterInput(snapshot, { status: "withdrawn" })))).text;
       expect(superseded.replace(/\s+/g, " ")).toContain("SUPERSEDED — a newer edition replaces this poster");
       expect(withdrawn.replace(/\s+/g, " ")).toContain("WITHDRAWN — do not use");
-      expect(superseded).not.toContain(DRAFT_WATERMARK);
-      expect(withdrawn).not.toContain(DRAFT_WATERMARK);
+      expect(superseded).not.toContain("DRAFT");
+      expect(withdrawn).not.toContain("DRAFT");
     },
   );
 });

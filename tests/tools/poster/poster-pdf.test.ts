@@ -109,7 +109,8 @@ describe("the POT poster read back (Finet, A2 portrait)", () => {
     for (const s of [
       "Illustrative Cath Lab (demo)",
       "POT balloon chart (illustrative)",
-      "Law: Finet (ratio 0.678): Dp = 0.678 × (Dmb + Dsb)",
+      // Too long for one line here: the law's name on its line, the formula whole on the next.
+      "Law: Finet (ratio 0.678) Dp = 0.678 × (Dmb + Dsb)",
       "EuroIntervention (2008)",
       "Edition 3",
       "Approved 2026-03-02 by Dr A. Example (illustrative)",

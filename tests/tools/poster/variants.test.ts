@@ -210,12 +210,33 @@ describe("the badge card", () => {
     }
   });
 
-  it("carries the short code, the lookup title and the caution on each side", () => {
-    for (const t of pageTexts(card)) {
+  it("carries the short code, the dates and the caution on each side; the lookup on the front only", () => {
+    const texts = pageTexts(card);
+    for (const t of texts) {
       expect(t).toContain("K7QM-2XHD");
-      expect(t).toContain("POT balloon (parent)");
       expect(t).toContain("CAUTION.");
+      expect(t).toContain("Edition 3");
+      expect(t).toContain("Approved 2026-03-02");
+      expect(t).toContain("Review by 2027-03-02");
     }
+    expect(texts[0]).toContain("POT balloon (parent)");
+    // One lookup: the back is the key, not the same table again.
+    expect(texts[1]).not.toContain("POT balloon (parent) from");
+    expect(texts[1]).toContain("Stent limit.");
+  });
+
+  it("says which rows and columns it prints, of how many", () => {
+    const [front, back] = pageTexts(card).map((t) => t.replace(/\s+/g, " "));
+    const covers = "main 2.5-3.75 mm, side 2.0-3.25 mm of this chart (all of it: main 2.5-4.0, side 2.0-3.5 mm)";
+    expect(front).toContain(`Shows ${covers}`);
+    expect(back).toContain(`The other side shows ${covers}`);
+  });
+
+  it("leaves out exact diameters, too small to read at 40 cm", () => {
+    const [front] = pageTexts(card);
+    expect(front).toMatch(/\b3\.75\b/);
+    expect(front).not.toMatch(/\(\d\.\d\d\)/);
+    expect(front).toContain("exact diameters on the poster");
   });
 
   it("narrows the grid to what stays legible at 40 cm", () => {
@@ -226,8 +247,9 @@ describe("the badge card", () => {
     expect(CARD_MIN_FIGURE_PT).toBeCloseTo(((2 * 400 * Math.tan(((20 / 60) * Math.PI) / 360)) / (1490 / 2048)) * MM, 3);
   });
 
-  it("has a QR code that decodes to the check page", () => {
+  it("has a QR code on each side that decodes to the check page", () => {
     expect(zbarDecode(rasterPage(card, 1, 600))).toContain(input.edition.checkUrl);
+    expect(zbarDecode(rasterPage(card, 2, 300))).toContain(input.edition.checkUrl);
   });
 
   it("gets the NOT CURRENT band on both sides when stamped", async () => {
@@ -280,10 +302,19 @@ describe("a badge card whose sides the designer chose", () => {
     });
   });
 
-  it("without a choice, a one-lookup chart prints lookup 1 on both sides", async () => {
+  it("without a choice, a one-lookup chart prints lookup 1 on the front and the key on the back", async () => {
     const plain = snapshotOf(potDefinition);
     const [front, back] = cardHeadings(await renderCardPdf(posterInput(plain)), plain);
-    expect(back).toEqual(front);
+    expect(back).toBeNull();
     expect(front!.cols).toEqual(["2.0", "2.25", "2.5", "2.75", "3.0", "3.25"]);
   }, 60_000);
+
+  it("a two-lookup card says on each side what it covers, with the dates", () => {
+    const texts = pageTexts(card).map((t) => t.replace(/\s+/g, " "));
+    expect(texts[1]).toContain(
+      "Shows parent 3.25-3.75 mm, main 2.75-3.25 mm of this chart (all of it: parent 3.0-4.5, main 2.5-4.0 mm)",
+    );
+    for (const t of texts) expect(t).toContain("Review by 2027-03-02");
+    expect(zbarDecode(rasterPage(card, 2, 600))).toContain(posterInput(chosen).edition.checkUrl);
+  });
 });

@@ -149,8 +149,11 @@ describe("labels", () => {
     expect(finet.find((e) => e.mark === "undersize")!.text).toContain("more than 0.5 mm below");
     // A fixed example pressure could exceed a family's RBP, so the legend names none.
     expect(finet[0]!.text).toContain("“@ N atm”");
-    expect(finet[0]!.text).toContain("never above its rated burst pressure");
+    expect(finet[0]!.text).toContain("never above rated burst pressure");
+    expect(finet[0]!.detail).toContain("the device's own compliance chart rules");
     expect(finet.find((e) => e.mark === "hazard")!.text).toContain("Test DES");
+    // The poster prints the short line; the check page gets the whole rule.
+    expect(finet.find((e) => e.mark === "hazard")!.detail).toContain("the nearest nominal at or below it");
     expect(finet.find((e) => e.mark === "outsideFit")!.text).toContain("Dsb/Dmb ≥ 0.75");
     const hk = legendEntries({ law: { law: "huo-kassab" }, stentName: null, hasProximal: true, hasReach: false });
     expect(hk.find((e) => e.mark === "hazard")!.text).toContain("Not checked");
