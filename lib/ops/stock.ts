@@ -1,7 +1,8 @@
 import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/stock";
-import { csvIssuesError, parseBalloonCsv } from "@/lib/stock/csv";
+import * as imports from "@/db/queries/stock-import";
+import { csvIssuesError, parseStockCsv } from "@/lib/stock/csv";
 import { CSV_TOO_LARGE_HINT, decodeImportFile } from "@/lib/stock/file";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 import { fileInput, payloadTooLarge, readFileInput } from "@/lib/upload";
@@ -153,7 +154,7 @@ export const deleteStentSize = labOperation({
   run: ({ labId, by, ids }) => labWrite(labId, (tx) => q.deleteStentSize(tx, { labId, ...by, sizeId: ids.sizeId })),
 });
 
-/** A balloon CSV: `dryRun` previews; otherwise applies, refusing (409) when `revision` is no longer current. */
+/** A stock CSV (balloons and stents): `dryRun` previews; otherwise applies, refusing (409) when `revision` is no longer current. */
 export const importBalloonCsv = labOperation({
   name: "stock.import",
   capability: "stock:edit",
@@ -164,14 +165,16 @@ export const importBalloonCsv = labOperation({
     const file = await readFileInput(upload);
     if (file.bytes.byteLength > MAX_IMPORT_BYTES)
       throw payloadTooLarge(file.bytes.byteLength, MAX_IMPORT_BYTES, CSV_TOO_LARGE_HINT);
-    const parsed = parseBalloonCsv(await decodeImportFile(file.bytes));
+    const parsed = parseStockCsv(await decodeImportFile(file.bytes));
     if (parsed.issues.length) throw csvIssuesError(parsed.issues);
-    if (query.dryRun) return q.previewBalloonImport({ labId, rows: parsed.rows });
+    const { rows, stentRows } = parsed;
+    if (query.dryRun) return imports.previewStockImport({ labId, rows, stentRows });
     return labWrite(labId, (tx) =>
-      q.importBalloons(tx, {
+      imports.importStock(tx, {
         labId,
         ...by,
-        rows: parsed.rows,
+        rows,
+        stentRows,
         expectRevision: query.revision,
         fileName: file.name,
       }),
