@@ -1,8 +1,6 @@
 import "server-only";
-import { and, desc, eq, inArray, like, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, like, lt, ne, sql } from "drizzle-orm";
 import { AppError, invalidInput, notFound } from "@/lib/errors";
-import { csvIssuesError, type CsvRow } from "@/lib/stock/csv";
-import { isEmptyPlan, planBalloonImport, summarisePlan, type ImportResult } from "@/lib/stock/import-plan";
 import { formatMm } from "@/lib/stock/format";
 import type { BalloonFamilyView, FamilyValues, StentPlatformView, StockView } from "@/lib/stock/types";
 import {
