@@ -17,6 +17,8 @@ import {
   stentSizeInput,
   stentSizePatch,
 } from "@/lib/validation/stock";
+import { stockImpactInput } from "@/lib/validation/stock-impact";
+import { whatIfLabWrite } from "./impact";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
@@ -179,6 +181,38 @@ export const importBalloonCsv = labOperation({
         fileName: file.name,
       }),
     );
+  },
+});
+
+/** Reads a stock CSV's text into checked rows, or throws the 400 naming each bad line. */
+function checkedCsv(text: string) {
+  const parsed = parseStockCsv(text);
+  if (parsed.issues.length) throw csvIssuesError(parsed.issues);
+  return { rows: parsed.rows, stentRows: parsed.stentRows };
+}
+
+/**
+ * Which posted copies a stock change would make outdated, writing nothing: the change (rows by
+ * id, or a CSV) runs as the stock routes run it, inside a transaction that is rolled back.
+ */
+export const stockImpact = labOperation({
+  name: "stock.impact",
+  capability: "stock:edit",
+  scope: "lab",
+  machine: "stock:write",
+  input: stockImpactInput,
+  run: async ({ labId, by }, input) => {
+    const outdates = await whatIfLabWrite(labId, async (tx) => {
+      if (input.csv !== undefined) return imports.importStock(tx, { labId, ...by, ...checkedCsv(input.csv) });
+      for (const { id, patch } of input.families ?? [])
+        await q.updateBalloonFamily(tx, { labId, ...by, familyId: id, patch });
+      for (const { id, patch } of input.balloons ?? [])
+        await q.updateBalloon(tx, { labId, ...by, balloonId: id, patch });
+      for (const { id, patch } of input.platforms ?? [])
+        await q.updateStentPlatform(tx, { labId, ...by, platformId: id, input: patch });
+      for (const { id, patch } of input.sizes ?? []) await q.updateStentSize(tx, { labId, ...by, sizeId: id, patch });
+    });
+    return { outdates };
   },
 });
 
