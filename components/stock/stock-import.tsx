@@ -2,14 +2,16 @@
 
 import { useRouter } from "next/navigation";
 import { useId, useRef, useState, type DragEvent } from "react";
-import { importStockAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { importStockAction, stockImpactAction } from "@/app/(lab)/labs/[slug]/stock/actions";
 import { Button } from "@/components/ui/button";
 import { UNREACHABLE } from "@/components/ui/use-server-action";
 import type { ActionState } from "@/lib/http/action";
 import { balloonStockCsv } from "@/lib/stock/export";
+import { askImpact, ImpactNotice } from "@/components/stock/impact-gate";
 import { ImportPreview } from "@/components/stock/import-preview";
 import { formatMm } from "@/lib/stock/format";
 import type { ImportResult } from "@/lib/stock/import-plan";
+import type { Outdate } from "@/lib/stock/impact";
 import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS } from "@/lib/stock/limits";
 import type { BalloonFamilyView } from "@/lib/stock/types";
 import { megabytes } from "@/lib/upload-limits";
@@ -18,7 +20,7 @@ import { DIAMETER_MAX_MM, DIAMETER_MIN_MM, DIAMETER_STEP_MM } from "@/lib/valida
 type Phase =
   | { step: "idle" }
   | { step: "sending"; file: File; verb: "Checking" | "Applying" }
-  | { step: "preview"; file: File; result: ImportResult }
+  | { step: "preview"; file: File; result: ImportResult; outdates: Outdate[] | null }
   | { step: "failed"; file?: File; message: string; issues: string[] }
   | { step: "applied"; file: File; result: ImportResult };
 
@@ -59,7 +61,10 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
     }
     setPhase({ step: "sending", file, verb: "Checking" });
     const res = await send(slug, file);
-    setPhase(res.ok ? { step: "preview", file, result: res.data as ImportResult } : failed(res, file));
+    if (!res.ok) return setPhase(failed(res, file));
+    // What applying would do to the wall, shown in the preview before the manager applies.
+    const outdates = await askImpact(stockImpactAction, { slug, csv: await file.text() });
+    setPhase({ step: "preview", file, result: res.data as ImportResult, outdates });
   };
 
   const apply = async (file: File, preview: ImportResult) => {
@@ -243,6 +248,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             fileName={phase.file.name}
             onApply={() => apply(phase.file, phase.result)}
             onCancel={reset}
+            impact={phase.outdates ? <ImpactNotice outdates={phase.outdates} /> : null}
           />
         ) : null}
 
