@@ -124,12 +124,12 @@ export function RulesEditor({
     const outdates = await askImpact(rulesImpactAction, payload);
     if (
       outdates?.length &&
-      !(await ask({
+      (await ask({
         title: "Posted copies will go out of date",
         body: <ImpactNotice outdates={outdates} />,
         confirm: "Save the rules",
         danger: true,
-      }))
+      })) === false
     )
       return;
     const res = await run(payload);

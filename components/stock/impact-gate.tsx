@@ -52,12 +52,13 @@ export function useImpactGate(slug: string): [(change: object, verb: string) => 
     async (change: object, verb: string) => {
       const outdates = await askImpact(stockImpactAction, { slug, ...change });
       if (!outdates?.length) return true;
-      return ask({
+      const answer = await ask({
         title: "Posted copies will go out of date",
         body: <ImpactNotice outdates={outdates} />,
         confirm: verb,
         danger: true,
       });
+      return answer !== false;
     },
     [ask, slug],
   );

@@ -45,28 +45,62 @@ export type ConfirmRequest = {
   /** The confirming button's words, e.g. "Take down"; the other button is "Cancel". */
   confirm: string;
   danger?: boolean;
+  /** Asks for a reason in a text field (required before confirming), handed back on confirm. */
+  reason?: string;
 };
 
+/** false when cancelled; on confirm the reason typed (empty when none was asked). */
+export type ConfirmAnswer = false | { reason: string };
+
 /**
- * An in-app confirmation in place of the browser's own pop-up: `await ask({...})` resolves true
- * when confirmed, false when cancelled or closed; render `dialog` once in the component.
+ * An in-app confirmation in place of the browser's own pop-up: `await ask({...})` resolves to the
+ * answer when confirmed, false when cancelled or closed; render `dialog` once in the component.
  */
-export function useConfirm(): [(request: ConfirmRequest) => Promise<boolean>, ReactNode] {
-  const [request, setRequest] = useState<(ConfirmRequest & { resolve: (ok: boolean) => void }) | null>(null);
-  const ask = useCallback((r: ConfirmRequest) => new Promise<boolean>((resolve) => setRequest({ ...r, resolve })), []);
+export function useConfirm(): [(request: ConfirmRequest) => Promise<ConfirmAnswer>, ReactNode] {
+  const [request, setRequest] = useState<(ConfirmRequest & { resolve: (a: ConfirmAnswer) => void }) | null>(null);
+  const [reason, setReason] = useState("");
+  const reasonId = useId();
+  const ask = useCallback(
+    (r: ConfirmRequest) =>
+      new Promise<ConfirmAnswer>((resolve) => {
+        setReason("");
+        setRequest({ ...r, resolve });
+      }),
+    [],
+  );
   const settle = (ok: boolean) => {
-    request?.resolve(ok);
+    request?.resolve(ok ? { reason: reason.trim() } : false);
     setRequest(null);
   };
+  const missingReason = request?.reason !== undefined && reason.trim() === "";
   const dialog = (
     <Dialog open={request !== null} title={request?.title ?? ""} onClose={() => settle(false)}>
       <div className="space-y-4">
         <div>{request?.body}</div>
+        {request?.reason !== undefined ? (
+          <div>
+            <label htmlFor={reasonId} className="block text-sm font-medium">
+              {request.reason}
+            </label>
+            <textarea
+              id={reasonId}
+              rows={3}
+              value={reason}
+              onChange={(e) => setReason(e.target.value)}
+              className="mt-1 w-full rounded-md border border-line-strong bg-white px-3 py-2"
+            />
+          </div>
+        ) : null}
         <div className="flex flex-wrap justify-end gap-2">
           <Button type="button" variant="secondary" onClick={() => settle(false)} autoFocus>
             Cancel
           </Button>
-          <Button type="button" variant={request?.danger ? "danger" : "primary"} onClick={() => settle(true)}>
+          <Button
+            type="button"
+            variant={request?.danger ? "danger" : "primary"}
+            onClick={() => settle(true)}
+            disabled={missingReason}
+          >
             {request?.confirm}
           </Button>
         </div>

@@ -867,6 +867,7 @@ export const ACTIONS: ActionRow[] = [
   { kind: "action", file: ROOM_ACTIONS, name: "renameRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "archiveRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "takeDownAction", allowed: ALL_ROLES },
+  { kind: "action", file: ROOM_ACTIONS, name: "restorePostingAction", allowed: ALL_ROLES },
   {
     kind: "action",
     file: CHECK_ACTIONS,
