@@ -5,6 +5,7 @@ import { formatAtm, formatMm } from "@/lib/stock/format";
 import { FIELD_LABELS, formatStockValue } from "@/lib/stock/history";
 import { isEmptyPlan, type ImportResult } from "@/lib/stock/import-plan";
 import type { ReactNode } from "react";
+import { count } from "@/lib/format/plural";
 
 export function ImportPreview({
   result,
@@ -28,8 +29,9 @@ export function ImportPreview({
       <div>
         <h3 className="text-lg font-semibold">Preview of {fileName}</h3>
         <p className="text-sm text-ink-soft">
-          {plan.rowsInFile} lines, {plan.familiesInFile} {plan.familiesInFile === 1 ? "family" : "families"},{" "}
-          {plan.platformsInFile} stent {plan.platformsInFile === 1 ? "platform" : "platforms"}. Compared with stock
+          {count(plan.rowsInFile, { one: "line", other: "lines" })},{" "}
+          {count(plan.familiesInFile, { one: "family", other: "families" })},{" "}
+          {count(plan.platformsInFile, { one: "stent platform", other: "stent platforms" })}. Compared with stock
           revision {result.revision}. Nothing has been saved yet.
         </p>
         <p className="mt-1 font-medium">
@@ -84,7 +86,9 @@ export function ImportPreview({
       />
       <StentPreview plan={plan} />
       {plan.unchangedBalloons ? (
-        <p className="text-sm text-ink-soft">{plan.unchangedBalloons} sizes of the listed families stay as they are.</p>
+        <p className="text-sm text-ink-soft">
+          {count(plan.unchangedBalloons, { one: "size", other: "sizes" })} of the listed families stay as they are.
+        </p>
       ) : null}
       {empty ? null : impact}
       <div className="flex flex-wrap justify-end gap-2">
@@ -135,7 +139,8 @@ function StentPreview({ plan }: { plan: ImportResult["plan"] }) {
       />
       {plan.unchangedStentSizes ? (
         <p className="text-sm text-ink-soft">
-          {plan.unchangedStentSizes} listed stent sizes stay as they are; stent sizes the file leaves out are kept.
+          {count(plan.unchangedStentSizes, { one: "listed stent size", other: "listed stent sizes" })} stay as they are;
+          stent sizes the file leaves out are kept.
         </p>
       ) : null}
     </>

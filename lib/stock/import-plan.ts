@@ -5,6 +5,7 @@ import type { CsvRow, LineIssue, StentCsvRow } from "./csv";
 import { formatAtm, formatMm, hundredths, nameKey } from "./format";
 import { emptyStentPlan, planStentImport, type StentPlan } from "./stent-plan";
 import type { BalloonFamilyView, FamilyValues, StentPlatformView } from "./types";
+import { count } from "@/lib/format/plural";
 
 export type FamilyAdd = FamilyValues & { line: number; sizes: number };
 export type FamilyChange = {
@@ -74,7 +75,7 @@ export function summarisePlan(plan: ImportPlan): string {
     [plan.stentSizesToChange.length, "stent size changed", "stent sizes changed"],
     [plan.stentSizesToRemove.length, "stent size removed", "stent sizes removed"],
   ] as const;
-  const said = parts.filter(([n]) => n > 0).map(([n, one, many]) => `${n} ${n === 1 ? one : many}`);
+  const said = parts.filter(([n]) => n > 0).map(([n, one, other]) => count(n, { one, other }));
   return said.length ? said.join(", ") : "no changes";
 }
 
