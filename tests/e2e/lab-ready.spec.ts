@@ -155,5 +155,22 @@ test("a manager goes from sign-up to a posted copy with the CSV import, in few c
   );
   expect(m.n.clicks + l.n.clicks).toBeLessThan(25);
   expect(m.n.fields + l.n.fields).toBeLessThan(20);
+
+  // A stock change that would outdate the copy asks first and names the room; cancelling keeps it.
+  await page.goto(`/labs/${slug}/stock`);
+  const toggle = page.getByRole("switch", { name: "Illustrative NC balloon (invented) 3.00 mm in stock" });
+  await toggle.click();
+  const ask = page.getByRole("dialog", { name: "Posted copies will go out of date" });
+  await expect(ask.getByTestId("impact")).toContainText(
+    "This change makes 1 posted copy of 1 chart outdated, in Room 1.",
+  );
+  await ask.getByRole("button", { name: "Cancel" }).click();
+  await expect(toggle).toHaveAttribute("aria-checked", "true");
+  await toggle.click();
+  await ask.getByRole("button", { name: "Mark out of stock" }).click();
+  await expect(toggle).toHaveAttribute("aria-checked", "false");
+  // The chart page says so at the top.
+  await page.goto(chartUrl);
+  await expect(page.getByTestId("approval-outdated")).toContainText("approved edition 1 no longer matches");
   await ctx.close();
 });
