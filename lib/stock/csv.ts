@@ -238,7 +238,7 @@ function readRow(
 function readStentRow({ line, value, fail, issues }: Read): StentCsvRow | null {
   const before = issues.length;
   for (const c of BALLOON_ONLY) if (value(c) !== "") fail(c, "is for balloon lines; leave it empty on a stent line.");
-  const name = platformName.safeParse(value("platform").replace(/^'(?=[=+\-@\t\r])/, ""));
+  const name = platformName.safeParse(value("platform").replace(/^'(?=[=+\-@\t\r;])/, ""));
   if (!name.success) fail("platform", value("platform") === "" ? "is empty." : firstMessage(name));
   const nominal = number(value("diameter_mm"), "diameter_mm", true, (n) => diameter.safeParse(n), fail);
   const maxPost = number(
