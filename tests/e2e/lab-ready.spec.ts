@@ -64,6 +64,9 @@ test("a manager goes from sign-up to a posted copy with the CSV import, in few c
   await expect(page).toHaveURL(/\/check-email/);
   await page.goto(linkIn((await waitForMail(email))[0]!, "verify-email"));
   await page.getByRole("button", { name: "Confirm my address" }).click();
+  await expect(page).toHaveURL(/\/sign-in\?notice=verified/);
+  await page.getByLabel("Password", { exact: true }).fill(PASSWORD);
+  await page.getByRole("button", { name: "Sign in", exact: true }).click();
   await expect(page).toHaveURL(/\/labs\/new$/);
 
   const m = counter();
