@@ -90,7 +90,7 @@ test("a manager goes from sign-up to a posted copy with the CSV import, in few c
   await expect(preview.getByTestId("impact")).toHaveText("This change makes no posted copy outdated.");
   await sweep(page, seen);
   await m.click(preview.getByRole("button", { name: "Apply import" }));
-  await expect(page.getByText(/Imported stock\.csv/)).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: /^✓ Imported stock\.csv/ })).toBeVisible();
 
   // Invite the medical lead from the overview's step: the form opens with the role chosen.
   await m.click(page.getByRole("navigation", { name: "Lab" }).getByRole("link", { name: "Overview" }));
