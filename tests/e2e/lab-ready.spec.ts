@@ -144,7 +144,7 @@ test("a manager goes from sign-up to a posted copy with the CSV import, in few c
   m.n.clicks += 1; // back to the chart
   await m.click(page.getByTestId("edition-1").getByRole("link", { name: "Check page" }));
   await m.click(page.getByRole("button", { name: "Record" }));
-  await expect(page.getByRole("status").filter({ hasText: /Room 1/ })).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: "Recorded: this copy hangs there." })).toBeVisible();
   await sweep(page, seen);
 
   const [posted] = await query<{ n: number }>(
