@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { LandingSignUp } from "@/components/public/landing-sign-up";
 import { buttonClass } from "@/components/ui/button";
 
 // Prerendered: nothing here depends on the visitor (the header's account part loads separately).
@@ -17,6 +18,7 @@ export default function LandingPage() {
         still matches your stock and rules.
       </p>
       <div className="mt-8 flex flex-wrap gap-3">
+        <LandingSignUp />
         <Link href="/sign-in" className={buttonClass("primary")}>
           Sign in to your lab
         </Link>

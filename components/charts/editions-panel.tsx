@@ -9,6 +9,7 @@ import {
 } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 import { StatusBadge } from "@/components/ui/status-badge";
+import { useConfirm } from "@/components/ui/dialog";
 import { useServerAction, type Action } from "@/components/ui/use-server-action";
 import type { EditionStatus } from "@/lib/editions/states";
 import { formatDate, formatDateTime } from "@/lib/format/dates";
@@ -51,6 +52,7 @@ export function EditionsPanel({
   const [reason, setReason] = useState("");
   // The approver states the review before the approve button works (sent as reviewed: true).
   const [reviewed, setReviewed] = useState<number | null>(null);
+  const [ask, confirmDialog] = useConfirm();
 
   const run = (action: Action, payload: Record<string, unknown>) =>
     void runAction({ slug, ...payload }, action).then((res) => {
@@ -61,6 +63,7 @@ export function EditionsPanel({
 
   return (
     <section aria-labelledby="editions-h" className="mt-10">
+      {confirmDialog}
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h2 id="editions-h" className="text-xl font-semibold">
           Editions
@@ -200,11 +203,20 @@ export function EditionsPanel({
                     variant="ghost"
                     className="py-1.5 text-danger"
                     disabled={pending}
-                    onClick={() => {
-                      const why = window.prompt(
-                        `Withdraw edition ${e.number}? Its check page will tell anyone who scans it to take it down. Say why:`,
-                      );
-                      if (why !== null) run(withdrawEditionAction, { editionId: e.id, reason: why });
+                    onClick={async () => {
+                      const answer = await ask({
+                        title: `Withdraw edition ${e.number}?`,
+                        body: (
+                          <p>
+                            Its check page will tell anyone who scans a posted copy to take it down, and it can no
+                            longer be printed as current. This cannot be undone.
+                          </p>
+                        ),
+                        reason: "Why is it withdrawn? (shown on the check page and in the audit log)",
+                        confirm: "Withdraw edition",
+                        danger: true,
+                      });
+                      if (answer) run(withdrawEditionAction, { editionId: e.id, reason: answer.reason });
                     }}
                   >
                     Withdraw

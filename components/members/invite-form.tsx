@@ -3,7 +3,7 @@
 import { useActionState } from "react";
 import { inviteMemberAction } from "@/app/(lab)/labs/[slug]/members/actions";
 import type { ActionState } from "@/lib/http/action";
-import { ROLE_LABELS, ROLES } from "@/lib/permissions";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/permissions";
 import { SelectField, TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
@@ -15,9 +15,10 @@ const ROLE_HINTS: Record<string, string> = {
   operator: "Reads charts, uses the calculator, records where a copy hangs.",
 };
 
-export function InviteForm({ slug }: { slug: string }) {
+/** `initialRole`: the role a link asked for (a first-run step names the person to invite). */
+export function InviteForm({ slug, initialRole = "operator" }: { slug: string; initialRole?: Role }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(inviteMemberAction, {});
-  const role = String(state.ok ? "operator" : (state.values?.role ?? "operator"));
+  const role = String(state.ok ? initialRole : (state.values?.role ?? initialRole));
   return (
     <form
       action={action}

@@ -5,9 +5,11 @@ import {
   archiveRoomAction,
   createRoomAction,
   renameRoomAction,
+  restorePostingAction,
   takeDownAction,
 } from "@/app/(lab)/labs/[slug]/rooms/actions";
 import { Button } from "@/components/ui/button";
+import { useConfirm } from "@/components/ui/dialog";
 import { useServerAction } from "@/components/ui/use-server-action";
 import type { ActionState } from "@/lib/http/action";
 
@@ -58,6 +60,7 @@ export function RoomMenu({
 }) {
   const rename = useServerAction(renameRoomAction);
   const archive = useServerAction(archiveRoomAction);
+  const [ask, dialog] = useConfirm();
   const [editing, setEditing] = useState(false);
   const [value, setValue] = useState(name);
   const pending = rename.pending || archive.pending;
@@ -92,31 +95,74 @@ export function RoomMenu({
         className="py-1 text-sm"
         disabled={pending || !empty}
         title={empty ? undefined : "Take the printouts down first"}
-        onClick={() => {
-          if (window.confirm(`Remove the room "${name}"?`)) {
-            rename.reset();
-            void archive.run({ slug, roomId });
-          }
+        onClick={async () => {
+          const ok = await ask({
+            title: `Remove the room "${name}"?`,
+            body: <p>The room leaves the room board and can no longer take printouts. Its history stays.</p>,
+            confirm: "Remove room",
+            danger: true,
+          });
+          if (!ok) return;
+          rename.reset();
+          void archive.run({ slug, roomId });
         }}
       >
         Remove
       </Button>
       <Notice state={rename.state ?? archive.state} />
+      {dialog}
     </div>
   );
 }
 
+/** Records that a copy came off the wall, after an in-app confirmation; undone on the board for a day. */
 export function TakeDownButton({ slug, postingId, label }: { slug: string; postingId: number; label: string }) {
   const { run, pending } = useServerAction(takeDownAction);
+  const [ask, dialog] = useConfirm();
   return (
-    <Button
-      variant="secondary"
-      className="py-1 text-sm"
-      disabled={pending}
-      aria-label={`Taken down: ${label}`}
-      onClick={() => void run({ slug, postingId })}
-    >
-      Taken down
-    </Button>
+    <>
+      <Button
+        variant="secondary"
+        className="py-1 text-sm"
+        disabled={pending}
+        aria-label={`Record as taken down: ${label}`}
+        onClick={async () => {
+          const ok = await ask({
+            title: "Record this copy as taken down?",
+            body: (
+              <p>
+                {label} leaves this room&apos;s list of posted copies. Do this once the printout is off the wall. You
+                can put it back on the list for a day.
+              </p>
+            ),
+            confirm: "Record as taken down",
+            danger: true,
+          });
+          if (ok) void run({ slug, postingId });
+        }}
+      >
+        Record as taken down
+      </Button>
+      {dialog}
+    </>
+  );
+}
+
+/** Puts a copy taken down by mistake back on its room's list (within a day). */
+export function RestoreButton({ slug, postingId, label }: { slug: string; postingId: number; label: string }) {
+  const { run, pending, state } = useServerAction(restorePostingAction);
+  return (
+    <span className="flex items-center gap-2">
+      <Button
+        variant="secondary"
+        className="py-1 text-sm"
+        disabled={pending}
+        aria-label={`Put back: ${label}`}
+        onClick={() => void run({ slug, postingId })}
+      >
+        Put back
+      </Button>
+      {state && !state.ok ? <Notice state={state} /> : null}
+    </span>
   );
 }

@@ -1,7 +1,9 @@
 "use client";
 
 import { useState } from "react";
-import { saveLabRulesAction } from "@/app/(lab)/labs/[slug]/rules/actions";
+import { rulesImpactAction, saveLabRulesAction } from "@/app/(lab)/labs/[slug]/rules/actions";
+import { askImpact, ImpactNotice } from "@/components/stock/impact-gate";
+import { useConfirm } from "@/components/ui/dialog";
 import { Button } from "@/components/ui/button";
 import { FieldError, inputClass, describedBy } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";
@@ -107,6 +109,7 @@ export function RulesEditor({
   const [draft, setDraft] = useState<Draft>(() => toDraft(rules));
   const [revision, setRevision] = useState(rules.revision);
   const { run, pending, state } = useServerAction(saveLabRulesAction);
+  const [ask, confirmDialog] = useConfirm();
   const errors = state?.ok === false ? (state.fieldErrors ?? {}) : {};
   const err = (path: string) => errors[path];
   const chartTitle = (id: number | string) => charts.find((c) => String(c.id) === String(id))?.title ?? `Chart ${id}`;
@@ -117,7 +120,19 @@ export function RulesEditor({
     setDraft((d) => ({ ...d, lookups: { ...d.lookups, [k]: { ...d.lookups[k], ...patch } } }));
 
   const save = async () => {
-    const res = await run({ slug, revision, ...toPayload(draft) });
+    const payload = { slug, revision, ...toPayload(draft) };
+    const outdates = await askImpact(rulesImpactAction, payload);
+    if (
+      outdates?.length &&
+      (await ask({
+        title: "Posted copies will go out of date",
+        body: <ImpactNotice outdates={outdates} />,
+        confirm: "Save the rules",
+        danger: true,
+      })) === false
+    )
+      return;
+    const res = await run(payload);
     const next = (res.data as { revision?: number } | undefined)?.revision;
     if (res.ok && next !== undefined) setRevision(next);
   };
@@ -397,6 +412,7 @@ export function RulesEditor({
         )}
       </section>
 
+      {confirmDialog}
       <div id="rules-status" className="flex flex-wrap items-center gap-3">
         <Button type="submit" disabled={pending}>
           {pending ? "Saving…" : "Save the rules"}

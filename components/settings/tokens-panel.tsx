@@ -9,6 +9,7 @@ import { CheckboxField, TextField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/form-status";
 import { buttonClass } from "@/components/ui/button";
 import { useServerAction } from "@/components/ui/use-server-action";
+import { useConfirm } from "@/components/ui/dialog";
 
 export type TokenRow = {
   id: number;
@@ -33,11 +34,13 @@ type Secret = { token: string; name: string };
 export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: TokenRow[]; timeZone: string }) {
   const [state, action, pending] = useActionState<ActionState, FormData>(createTokenAction, {});
   const revoke = useServerAction(revokeTokenAction);
+  const [ask, dialog] = useConfirm();
   const reissued = revoke.state?.ok ? (revoke.state.data as Secret | undefined) : undefined;
   const created = reissued ?? (state.ok ? (state.data as Secret | undefined) : undefined);
   const disabled = tokens.filter((t) => t.disabledAt);
   return (
     <div className="space-y-6">
+      {dialog}
       <form action={action} className="grid gap-4" noValidate aria-busy={pending} aria-label="Create a token">
         <input type="hidden" name="slug" value={slug} />
         <TextField
@@ -59,7 +62,7 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
                 label={SCOPE_LABELS[s]}
                 name="scopes"
                 value={s}
-                defaultChecked
+                defaultChecked={s === "stock:read"}
               />
             ))}
           </div>
@@ -148,9 +151,18 @@ export function TokensPanel({ slug, tokens, timeZone }: { slug: string; tokens: 
                   type="button"
                   disabled={revoke.pending}
                   className={buttonClass("secondary")}
-                  onClick={() => {
-                    if (window.confirm(`Revoke the token "${t.name}"? Requests with it will be refused.`))
-                      void revoke.run({ slug, tokenId: t.id });
+                  onClick={async () => {
+                    const ok = await ask({
+                      title: `Revoke the token "${t.name}"?`,
+                      body: (
+                        <p>
+                          Every request with it is refused from now on ({t.scopes.join(", ")}). This cannot be undone.
+                        </p>
+                      ),
+                      confirm: "Revoke token",
+                      danger: true,
+                    });
+                    if (ok) void revoke.run({ slug, tokenId: t.id });
                   }}
                 >
                   Revoke<span className="sr-only"> {t.name}</span>

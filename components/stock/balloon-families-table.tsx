@@ -17,6 +17,7 @@ import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
 import { StockDialog } from "./stock-dialog";
 import { StockTable } from "./stock-table";
+import { count } from "@/lib/format/plural";
 
 type Dialog =
   | { kind: "family"; family?: BalloonFamilyView }
@@ -143,7 +144,11 @@ export function BalloonFamiliesTable({
             action={deleteFamilyAction}
             payload={{ slug, familyId: dialog.family.id }}
             what={dialog.family.name}
-            consequence={`Its ${dialog.family.balloons.length} sizes are deleted with it.`}
+            consequence={
+              dialog.family.balloons.length
+                ? `Its ${count(dialog.family.balloons.length, { one: "size is", other: "sizes are" })} deleted with it.`
+                : "It has no sizes."
+            }
             onDone={done}
             onCancel={() => setDialog(null)}
           />

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { saveBalloonAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { useImpactGate } from "@/components/stock/impact-gate";
 import { useServerAction } from "@/components/ui/use-server-action";
 import { formatMm } from "@/lib/stock/format";
 import type { BalloonView } from "@/lib/stock/types";
@@ -24,6 +25,7 @@ export function InStockToggle({
 }) {
   const [shown, setShown] = useState(balloon.inStock);
   const { run, pending } = useServerAction(saveBalloonAction, { refresh: false });
+  const [gate, impactDialog] = useImpactGate(slug);
   const label = (on: boolean) => (
     <>
       <span aria-hidden className="inline-block w-4 text-center font-bold">
@@ -39,6 +41,8 @@ export function InStockToggle({
 
   const toggle = async () => {
     const next = !shown;
+    if (!(await gate({ balloons: [{ id: balloon.id, inStock: next }] }, next ? "Mark in stock" : "Mark out of stock")))
+      return;
     setShown(next);
     const res = await run({ slug, balloonId: balloon.id, inStock: next });
     if (res.ok) onSaved(`${family} ${formatMm(balloon.diameterMm)} mm marked ${next ? "in stock" : "out of stock"}.`);
@@ -48,18 +52,21 @@ export function InStockToggle({
     }
   };
   return (
-    <button
-      type="button"
-      role="switch"
-      aria-checked={shown}
-      aria-label={`${family} ${formatMm(balloon.diameterMm)} mm in stock`}
-      onClick={toggle}
-      disabled={pending}
-      className={`inline-flex min-w-32 items-center gap-1 rounded-full border px-3 py-1 text-sm font-medium ${
-        shown ? "border-ok/50 bg-ok-soft text-ok" : "border-line-strong bg-paper-sunk text-ink-soft"
-      } disabled:opacity-60`}
-    >
-      {label(shown)}
-    </button>
+    <>
+      {impactDialog}
+      <button
+        type="button"
+        role="switch"
+        aria-checked={shown}
+        aria-label={`${family} ${formatMm(balloon.diameterMm)} mm in stock`}
+        onClick={toggle}
+        disabled={pending}
+        className={`inline-flex min-w-32 items-center gap-1 rounded-full border px-3 py-1 text-sm font-medium ${
+          shown ? "border-ok/50 bg-ok-soft text-ok" : "border-line-strong bg-paper-sunk text-ink-soft"
+        } disabled:opacity-60`}
+      >
+        {label(shown)}
+      </button>
+    </>
   );
 }

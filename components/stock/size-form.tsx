@@ -18,6 +18,7 @@ import {
   type StentSizeInput,
 } from "@/lib/validation/stock";
 import { FormActions } from "./family-form";
+import { useImpactGate } from "./impact-gate";
 
 export const DIAMETER_HINT = `${formatMm(DIAMETER_MIN_MM)} to ${formatMm(DIAMETER_MAX_MM)} mm in steps of ${formatMm(DIAMETER_STEP_MM)} mm`;
 
@@ -37,6 +38,7 @@ export function SizeForm({
   onCancel: () => void;
 }) {
   const { run } = useServerAction(saveSizeAction, { refresh: false });
+  const [gate, impactDialog] = useImpactGate(slug);
   const {
     register,
     handleSubmit,
@@ -48,6 +50,7 @@ export function SizeForm({
   });
 
   const onSubmit = handleSubmit(async (data) => {
+    if (size && !(await gate({ sizes: [{ id: size.id, ...data }] }, "Save size"))) return;
     const res = await run(size ? { slug, sizeId: size.id, ...data } : { slug, platformId, ...data });
     if (res.ok) onDone(`${size ? "Saved" : "Added"} ${platformName} ${formatMm(data.nominalMm)} mm.`);
     else showActionErrors(res, setError, ["nominalMm", "maxPostDilatationMm"]);
@@ -56,6 +59,7 @@ export function SizeForm({
   const id = `size-${size?.id ?? `new-${platformId}`}`;
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
+      {impactDialog}
       <TextField
         id={`${id}-nominal`}
         label="Nominal diameter (mm)"

@@ -15,6 +15,7 @@ import { actionsColumn, RowActions, useStockTable } from "./row-actions";
 import { StatusLine, type Status } from "./status-line";
 import { StockDialog } from "./stock-dialog";
 import { StockTable } from "./stock-table";
+import { count } from "@/lib/format/plural";
 
 type Dialog =
   | { kind: "platform"; platform?: StentPlatformView }
@@ -119,7 +120,11 @@ export function StentPlatformsTable({
             action={deletePlatformAction}
             payload={{ slug, platformId: dialog.platform.id }}
             what={dialog.platform.name}
-            consequence={`Its ${dialog.platform.sizes.length} sizes are deleted with it.`}
+            consequence={
+              dialog.platform.sizes.length
+                ? `Its ${count(dialog.platform.sizes.length, { one: "size is", other: "sizes are" })} deleted with it.`
+                : "It has no sizes."
+            }
             onDone={done}
             onCancel={() => setDialog(null)}
           />

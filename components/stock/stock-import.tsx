@@ -2,14 +2,16 @@
 
 import { useRouter } from "next/navigation";
 import { useId, useRef, useState, type DragEvent } from "react";
-import { importStockAction } from "@/app/(lab)/labs/[slug]/stock/actions";
+import { importStockAction, stockImpactAction } from "@/app/(lab)/labs/[slug]/stock/actions";
 import { Button } from "@/components/ui/button";
 import { UNREACHABLE } from "@/components/ui/use-server-action";
 import type { ActionState } from "@/lib/http/action";
 import { balloonStockCsv } from "@/lib/stock/export";
-import { formatAtm, formatMm } from "@/lib/stock/format";
-import { FIELD_LABELS, formatStockValue } from "@/lib/stock/history";
+import { askImpact, ImpactNotice } from "@/components/stock/impact-gate";
+import { ImportPreview } from "@/components/stock/import-preview";
+import { formatMm } from "@/lib/stock/format";
 import type { ImportResult } from "@/lib/stock/import-plan";
+import type { Outdate } from "@/lib/stock/impact";
 import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS } from "@/lib/stock/limits";
 import type { BalloonFamilyView } from "@/lib/stock/types";
 import { megabytes } from "@/lib/upload-limits";
@@ -18,7 +20,7 @@ import { DIAMETER_MAX_MM, DIAMETER_MIN_MM, DIAMETER_STEP_MM } from "@/lib/valida
 type Phase =
   | { step: "idle" }
   | { step: "sending"; file: File; verb: "Checking" | "Applying" }
-  | { step: "preview"; file: File; result: ImportResult }
+  | { step: "preview"; file: File; result: ImportResult; outdates: Outdate[] | null }
   | { step: "failed"; file?: File; message: string; issues: string[] }
   | { step: "applied"; file: File; result: ImportResult };
 
@@ -38,6 +40,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
   const input = useRef<HTMLInputElement>(null);
   const [phase, setPhase] = useState<Phase>({ step: "idle" });
   const [dragging, setDragging] = useState(false);
+  const [pasted, setPasted] = useState("");
 
   const failed = (res: ActionState, file: File): Phase => ({
     step: "failed",
@@ -58,7 +61,10 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
     }
     setPhase({ step: "sending", file, verb: "Checking" });
     const res = await send(slug, file);
-    setPhase(res.ok ? { step: "preview", file, result: res.data as ImportResult } : failed(res, file));
+    if (!res.ok) return setPhase(failed(res, file));
+    // What applying would do to the wall, shown in the preview before the manager applies.
+    const outdates = await askImpact(stockImpactAction, { slug, csv: await file.text() });
+    setPhase({ step: "preview", file, result: res.data as ImportResult, outdates });
   };
 
   const apply = async (file: File, preview: ImportResult) => {
@@ -92,18 +98,25 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
     setTimeout(() => URL.revokeObjectURL(url), 1000);
   };
 
+  const checkPasted = () => {
+    if (pasted.trim()) void check(new File([pasted], "pasted table.csv", { type: "text/csv" }));
+  };
+
   const busy = phase.step === "sending";
   return (
     <section aria-labelledby="stock-import-heading" className="space-y-3">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div>
           <h2 id="stock-import-heading" className="text-xl font-semibold">
-            Import balloons from a CSV file
+            Import balloons and stents from a CSV file
           </h2>
           <p className="max-w-prose text-sm text-ink-soft">
             Check the file first: you see every change before anything is saved. A file lists each of its families&apos;
-            whole range; sizes of those families that the file leaves out are marked out of stock. Families the file
-            does not mention stay as they are.
+            whole range; sizes of those families that the file leaves out are marked out of stock. Families and
+            platforms the file does not mention stay as they are.{" "}
+            <a href="/examples/stock-example.csv" download className="text-brand-700 underline">
+              Example file (invented data)
+            </a>
           </p>
         </div>
         <Button type="button" variant="secondary" onClick={download} disabled={families.length === 0}>
@@ -140,6 +153,23 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
         </p>
       </div>
 
+      <div className="space-y-2">
+        <label htmlFor={`${inputId}-paste`} className="block font-medium">
+          Or paste a table (from a spreadsheet, with its header row)
+        </label>
+        <textarea
+          id={`${inputId}-paste`}
+          rows={4}
+          value={pasted}
+          disabled={busy}
+          onChange={(e) => setPasted(e.target.value)}
+          className="w-full rounded-md border border-line-strong bg-white px-3 py-2 font-mono text-xs"
+        />
+        <Button type="button" variant="secondary" onClick={checkPasted} disabled={busy || !pasted.trim()}>
+          Check pasted table
+        </Button>
+      </div>
+
       <details className="rounded-md border border-line bg-paper-raised px-4 py-2 text-sm">
         <summary className="cursor-pointer font-medium">What the file looks like</summary>
         <div className="mt-2 space-y-2 text-ink-soft [overflow-wrap:anywhere]">
@@ -159,6 +189,11 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             </li>
             <li>
               <code>in_stock</code>: yes, no, y, n, true, false, 1 or 0 (any letter case).
+            </li>
+            <li>
+              Stent sizes: a line naming a <code>platform</code> (leave <code>family</code> empty) with the nominal{" "}
+              <code>diameter_mm</code> and <code>max_post_dilatation_mm</code>; <code>in_stock</code> no removes that
+              size, and sizes the file leaves out stay.
             </li>
             <li>
               A new family needs its nominal and rated burst pressures (atm) on at least one of its lines; existing
@@ -213,6 +248,7 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
             fileName={phase.file.name}
             onApply={() => apply(phase.file, phase.result)}
             onCancel={reset}
+            impact={phase.outdates ? <ImpactNotice outdates={phase.outdates} /> : null}
           />
         ) : null}
 
@@ -231,134 +267,5 @@ export function StockImport({ slug, families }: { slug: string; families: Balloo
         ) : null}
       </div>
     </section>
-  );
-}
-
-function ImportPreview({
-  result,
-  fileName,
-  onApply,
-  onCancel,
-}: {
-  result: ImportResult;
-  fileName: string;
-  onApply: () => void;
-  onCancel: () => void;
-}) {
-  const { plan } = result;
-  const empty =
-    plan.familiesToAdd.length +
-      plan.familiesToChange.length +
-      plan.balloonsToAdd.length +
-      plan.balloonsToChange.length +
-      plan.balloonsToMarkOutOfStock.length ===
-    0;
-  const stock = (v: boolean) => (v ? "in stock" : "out of stock");
-  return (
-    <div className="space-y-4 rounded-card border border-brand-200 bg-paper-raised p-4" data-testid="import-preview">
-      <div>
-        <h3 className="text-lg font-semibold">Preview of {fileName}</h3>
-        <p className="text-sm text-ink-soft">
-          {plan.rowsInFile} lines, {plan.familiesInFile} {plan.familiesInFile === 1 ? "family" : "families"}. Compared
-          with stock revision {result.revision}. Nothing has been saved yet.
-        </p>
-        <p className="mt-1 font-medium">
-          {empty
-            ? "The file matches the current stock: nothing would change."
-            : `This import would make: ${result.summary}.`}
-        </p>
-      </div>
-      <PreviewTable
-        title="Families to add"
-        head={["Family", "Compliance", "Nominal / rated burst (atm)", "Growth at RBP (mm)", "Sizes"]}
-        rows={plan.familiesToAdd.map((f) => [
-          f.name,
-          f.compliance,
-          `${formatAtm(f.nominalAtm)} / ${formatAtm(f.rbpAtm)}`,
-          f.growthAtRbpMm === null ? "not recorded" : formatMm(f.growthAtRbpMm),
-          String(f.sizes),
-        ])}
-      />
-      <PreviewTable
-        title="Families to change"
-        head={["Family", "Field", "Now", "After import"]}
-        rows={plan.familiesToChange.flatMap((c) =>
-          c.fields.map((f) => [
-            c.name,
-            FIELD_LABELS[f] ?? f,
-            formatStockValue(f, c.before[f]),
-            formatStockValue(f, c.after[f]),
-          ]),
-        )}
-      />
-      <PreviewTable
-        title="Sizes to add"
-        head={["Family", "Diameter (mm)", "In stock", "Line"]}
-        rows={plan.balloonsToAdd.map((b) => [b.family, formatMm(b.diameterMm), stock(b.inStock), String(b.line)])}
-      />
-      <PreviewTable
-        title="Sizes to change"
-        head={["Family", "Diameter (mm)", "Now", "After import", "Line"]}
-        rows={plan.balloonsToChange.map((b) => [
-          b.family,
-          formatMm(b.diameterMm),
-          stock(b.before.inStock),
-          stock(b.after.inStock),
-          String(b.line),
-        ])}
-      />
-      <PreviewTable
-        title="Sizes to mark out of stock (not in the file)"
-        head={["Family", "Diameter (mm)"]}
-        rows={plan.balloonsToMarkOutOfStock.map((b) => [b.family, formatMm(b.diameterMm)])}
-      />
-      {plan.unchangedBalloons ? (
-        <p className="text-sm text-ink-soft">{plan.unchangedBalloons} sizes of the listed families stay as they are.</p>
-      ) : null}
-      <div className="flex flex-wrap justify-end gap-2">
-        <Button type="button" variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="button" onClick={onApply} disabled={empty}>
-          Apply import
-        </Button>
-      </div>
-    </div>
-  );
-}
-
-function PreviewTable({ title, head, rows }: { title: string; head: string[]; rows: string[][] }) {
-  if (rows.length === 0) return null;
-  return (
-    <div>
-      <h4 className="font-semibold">
-        {title} ({rows.length})
-      </h4>
-      <div className="relative mt-1 max-h-64 overflow-auto rounded-md border border-line">
-        <table className="w-full text-sm">
-          <caption className="sr-only">{title}</caption>
-          <thead className="sticky top-0 bg-paper-sunk text-left">
-            <tr>
-              {head.map((h) => (
-                <th key={h} scope="col" className="px-3 py-1.5 font-semibold text-ink-soft">
-                  {h}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r, i) => (
-              <tr key={i} className="border-t border-line">
-                {r.map((cell, j) => (
-                  <td key={j} className="px-3 py-1.5">
-                    {cell}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-    </div>
   );
 }

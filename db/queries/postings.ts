@@ -1,8 +1,10 @@
 import "server-only";
-import { and, eq, isNull } from "drizzle-orm";
-import { STALE } from "@/lib/editions/check";
+import { and, desc, eq, gt, isNotNull, isNull } from "drizzle-orm";
+import type { Snapshot } from "@/lib/charts/snapshot";
+import { checkEdition, STALE, type CheckStatus } from "@/lib/editions/check";
 import { AppError, notFound } from "@/lib/errors";
-import { charts, editions, postings, rooms } from "../schema";
+import { db, type Database } from "../index";
+import { charts, editions, postings, rooms, users } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { initialPostingStatus, reconcilePostings } from "./notices";
 
@@ -102,4 +104,66 @@ export async function takeDownPosting(
       cleared: true,
     });
   }
+}
+
+/** How long a copy recorded as taken down can be put back on the list. */
+export const RESTORE_WINDOW_MS = 24 * 60 * 60 * 1000;
+
+/** Copies taken down within the restore window, newest first, with where and what they were. */
+export async function listRecentlyTakenDown({ labId, now = new Date() }: { labId: number; now?: Date }) {
+  return db
+    .select({
+      postingId: postings.id,
+      removedAt: postings.removedAt,
+      room: rooms.name,
+      chartTitle: charts.title,
+      editionNumber: editions.number,
+    })
+    .from(postings)
+    .innerJoin(rooms, eq(rooms.id, postings.roomId))
+    .innerJoin(editions, eq(editions.id, postings.editionId))
+    .innerJoin(charts, eq(charts.id, editions.chartId))
+    .where(
+      and(
+        eq(postings.labId, labId),
+        isNull(rooms.archivedAt),
+        gt(postings.removedAt, new Date(now.getTime() - RESTORE_WINDOW_MS)),
+      ),
+    )
+    .orderBy(desc(postings.removedAt));
+}
+
+/**
+ * Undoes a take-down within a day: the copy hangs again with the status it has now (no mail,
+ * as when it is first recorded). A copy of the same edition hanging there since is a 409.
+ */
+export async function restorePosting(
+  tx: Tx,
+  { labId, postingId, actor, now = new Date() }: { labId: number; postingId: number; actor: Actor; now?: Date },
+) {
+  const [p] = await tx
+    .select({ posting: postings, roomArchived: rooms.archivedAt })
+    .from(postings)
+    .innerJoin(rooms, eq(rooms.id, postings.roomId))
+    .where(and(eq(postings.id, postingId), eq(postings.labId, labId), isNotNull(postings.removedAt)));
+  if (!p) throw notFound("Posting");
+  if (p.roomArchived || p.posting.removedAt!.getTime() < now.getTime() - RESTORE_WINDOW_MS)
+    throw new AppError(
+      "conflict",
+      "A copy can be put back for a day after it was taken down; record it again instead.",
+    );
+  const lastStatus = await initialPostingStatus(tx, { labId, editionId: p.posting.editionId });
+  await tx
+    .update(postings)
+    .set({ removedAt: null, removedBy: null, lastStatus })
+    .where(and(eq(postings.id, postingId), eq(postings.labId, labId)));
+  await recordAudit({
+    tx,
+    labId,
+    actorUserId: actor.id,
+    action: "posting.restored",
+    targetType: "posting",
+    targetId: postingId,
+    detail: { editionId: p.posting.editionId, roomId: p.posting.roomId },
+  });
 }

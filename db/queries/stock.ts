@@ -1,8 +1,6 @@
 import "server-only";
-import { and, desc, eq, inArray, like, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, like, lt, ne, sql } from "drizzle-orm";
 import { AppError, invalidInput, notFound } from "@/lib/errors";
-import { csvIssuesError, type CsvRow } from "@/lib/stock/csv";
-import { isEmptyPlan, planBalloonImport, summarisePlan, type ImportResult } from "@/lib/stock/import-plan";
 import { formatMm } from "@/lib/stock/format";
 import type { BalloonFamilyView, FamilyValues, StentPlatformView, StockView } from "@/lib/stock/types";
 import {
@@ -23,7 +21,7 @@ import { afterLabChange } from "./lab-changes";
 import { readFamilies, readPlatforms } from "./stock-read";
 
 /** Who a stock write is audited under: a person, or the lab's machine token (lib/auth/machine-tokens.ts). */
-type Actor = { labId: number; actorUserId: number | null; actorTokenId?: number | null };
+export type Actor = { labId: number; actorUserId: number | null; actorTokenId?: number | null };
 
 export type StockChange = { labId: number; actorUserId: number | null; summary: string };
 
@@ -95,7 +93,7 @@ type Committed = {
   after: unknown;
 };
 
-async function commit(tx: Tx, actor: Actor, change: Committed): Promise<number> {
+export async function commit(tx: Tx, actor: Actor, change: Committed): Promise<number> {
   const revision = await afterStockChange(tx, {
     labId: actor.labId,
     actorUserId: actor.actorUserId,
@@ -114,13 +112,13 @@ async function commit(tx: Tx, actor: Actor, change: Committed): Promise<number> 
   return revision;
 }
 
-async function currentRevision(tx: Tx, labId: number): Promise<number> {
+export async function currentRevision(tx: Tx, labId: number): Promise<number> {
   const [row] = await tx.select({ revision: labs.stockRevision }).from(labs).where(eq(labs.id, labId));
   return row!.revision;
 }
 
 const mm = (v: number) => `${formatMm(v)} mm`;
-const familyValues = (f: FamilyValues): FamilyValues => ({
+export const familyValues = (f: FamilyValues): FamilyValues => ({
   name: f.name,
   compliance: f.compliance,
   nominalAtm: f.nominalAtm,
@@ -572,123 +570,4 @@ export async function deleteStentSize(
     },
   );
   return { revision, deleted: { id: sizeId } };
-}
-
-// ---------- CSV import ----------
-
-const CHUNK = 1000;
-
-/** Plans a checked balloon CSV against the current stock, changing nothing (the import preview). */
-export async function previewBalloonImport({ labId, rows }: { labId: number; rows: CsvRow[] }): Promise<ImportResult> {
-  const stock = await getStock({ labId });
-  const { plan, issues } = planBalloonImport(stock.balloonFamilies, rows);
-  if (issues.length) throw csvIssuesError(issues);
-  return { dryRun: true, applied: false, revision: stock.revision, summary: summarisePlan(plan), plan };
-}
-
-/**
- * Applies a checked balloon CSV as one change (one audit event, one revision bump). Any bad line
- * refuses the whole file.
- */
-export async function importBalloons(
-  tx: Tx,
-  {
-    labId,
-    actorUserId,
-    actorTokenId,
-    rows,
-    expectRevision,
-    fileName,
-  }: Actor & { rows: CsvRow[]; expectRevision?: number; fileName?: string },
-): Promise<ImportResult> {
-  const revisionNow = await currentRevision(tx, labId);
-  if (expectRevision !== undefined && expectRevision !== revisionNow) {
-    throw new AppError(
-      "conflict",
-      `The stock changed since this file was previewed (revision ${expectRevision}, now ${revisionNow}). Preview the file again before applying it.`,
-    );
-  }
-  const current = await readFamilies(tx, labId);
-  const { plan, issues } = planBalloonImport(current, rows);
-  if (issues.length) throw csvIssuesError(issues);
-  const summary = summarisePlan(plan);
-  if (isEmptyPlan(plan)) return { dryRun: false, applied: false, revision: revisionNow, summary, plan };
-
-  const newIds = new Map<string, number>();
-  for (const fam of plan.familiesToAdd) {
-    const [row] = await tx
-      .insert(balloonFamilies)
-      .values({
-        labId,
-        name: fam.name,
-        compliance: fam.compliance,
-        nominalAtm: fam.nominalAtm,
-        rbpAtm: fam.rbpAtm,
-        growthAtRbpMm: fam.growthAtRbpMm,
-      })
-      .$returningId();
-    newIds.set(fam.name, row!.id);
-  }
-  for (const change of plan.familiesToChange) {
-    const { compliance, nominalAtm, rbpAtm, growthAtRbpMm } = change.after;
-    await tx
-      .update(balloonFamilies)
-      .set({ compliance, nominalAtm, rbpAtm, growthAtRbpMm })
-      .where(and(eq(balloonFamilies.labId, labId), eq(balloonFamilies.id, change.id)));
-  }
-  const inserts = plan.balloonsToAdd.map((b) => ({
-    labId,
-    familyId: b.familyId ?? newIds.get(b.family)!,
-    diameterMm: b.diameterMm,
-    inStock: b.inStock,
-  }));
-  for (let i = 0; i < inserts.length; i += CHUNK) await tx.insert(balloons).values(inserts.slice(i, i + CHUNK));
-  const setStock = async (ids: number[], inStock: boolean) => {
-    for (let i = 0; i < ids.length; i += CHUNK) {
-      await tx
-        .update(balloons)
-        .set({ inStock })
-        .where(and(eq(balloons.labId, labId), inArray(balloons.id, ids.slice(i, i + CHUNK))));
-    }
-  };
-  await setStock(
-    plan.balloonsToChange.filter((b) => b.after.inStock).map((b) => b.id),
-    true,
-  );
-  await setStock(
-    [
-      ...plan.balloonsToChange.filter((b) => !b.after.inStock).map((b) => b.id),
-      ...plan.balloonsToMarkOutOfStock.map((b) => b.id),
-    ],
-    false,
-  );
-
-  const touched = new Set<number>([
-    ...newIds.values(),
-    ...plan.familiesToChange.map((c) => c.id),
-    ...plan.balloonsToAdd.flatMap((b) => (b.familyId ? [b.familyId] : [])),
-    ...plan.balloonsToChange.map((b) => b.familyId),
-    ...plan.balloonsToMarkOutOfStock.map((b) => b.familyId),
-  ]);
-  const snapshot = (fams: BalloonFamilyView[]) =>
-    fams
-      .filter((f) => touched.has(f.id))
-      .map((f) => ({
-        ...familyValues(f),
-        balloons: f.balloons.map(({ diameterMm, inStock }) => ({ diameterMm, inStock })),
-      }));
-  const after = await readFamilies(tx, labId, [...touched]);
-  const revision = await commit(
-    tx,
-    { labId, actorUserId, actorTokenId },
-    {
-      action: "stock.import",
-      targetType: "lab",
-      targetId: labId,
-      summary: `Imported ${fileName ? `${fileName}: ` : ""}${summary}`,
-      before: { families: snapshot(current) },
-      after: { families: snapshot(after) },
-    },
-  );
-  return { dryRun: false, applied: true, revision, summary, plan };
 }

@@ -71,6 +71,7 @@ const ACTIONS: Record<string, string> = {
   "edition.archive_copy": "Downloaded an archive copy of an edition",
   "posting.created": "Recorded a copy on the wall",
   "posting.removed": "Took a copy off the wall",
+  "posting.restored": "Put back a copy taken down by mistake",
   "room.created": "Added a room",
   "room.renamed": "Renamed a room",
   "room.archived": "Archived a room",

@@ -84,7 +84,18 @@ export async function acceptInvitationAction(_prev: ActionState, payload: Action
   return runAction(
     payload,
     async (_caller, values) => {
-      const joined = await acceptInvitationAsNewAccount(parseInput(acceptNewAccountSchema, values));
+      const input = parseInput(acceptNewAccountSchema, values);
+      const joined = await acceptInvitationAsNewAccount(input);
+      // The person just chose this password: sign them in rather than ask for it again.
+      try {
+        await signIn("credentials", {
+          email: joined.email,
+          password: input.password,
+          redirectTo: `/labs/${joined.lab.slug}`,
+        });
+      } catch (err) {
+        if (!(err instanceof AuthError)) throw err;
+      }
       const query = new URLSearchParams({
         notice: "joined",
         email: joined.email,

@@ -6,6 +6,7 @@ import { machineRefused } from "@/lib/ops/access";
 import { annotateLog, requestLog, withLogContext } from "@/lib/request-log";
 import { checkWriteRequest, mediaType } from "./origin";
 import { errorResponse } from "./respond";
+import { isBrowserNavigation, signInRedirectFor } from "./sign-in-redirect";
 import { ANONYMOUS, sessionCaller, type Caller } from "@/lib/ops/caller";
 import { hasBearer, tokenCaller } from "@/lib/auth/machine-auth";
 
@@ -81,6 +82,8 @@ export function api<P = Record<string, string>>(
       } catch (err) {
         res = errorResponse(err, {}, requestLog());
       }
+      if (res.status === 401 && req.method === "GET" && isBrowserNavigation(req.headers))
+        res = new Response(null, { status: 303, headers: { location: signInRedirectFor(req.url) } });
       requestLog({ durationMs: Math.round(performance.now() - started) }).info({ status: res.status }, "request");
       return res;
     });

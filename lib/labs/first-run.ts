@@ -1,5 +1,6 @@
 // The first-run path of a new lab: what its overview asks the manager to do next, in order.
 // Pure: built from counts the database reports (db/queries/first-run.ts).
+import { count, withArticle, type Forms } from "@/lib/format/plural";
 
 /** 1.50 to 5.00 mm in 0.25 mm steps: diameters only; pressures are the manager's to enter. */
 export const LADDER_FROM_MM = 1.5;
@@ -28,21 +29,26 @@ export type FirstRunStep = {
   links: { href: string; label: string }[];
 };
 
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+const plural = (n: number, one: string, other = `${one}s`) => count(n, { one, other });
 
 export function firstRunSteps(slug: string, s: FirstRunStatus): FirstRunStep[] {
   const lab = `/labs/${slug}`;
-  const person = (role: "lead" | "educator", label: string, why: string): FirstRunStep => ({
+  const person = (role: "lead" | "educator", noun: Forms, why: string): FirstRunStep => ({
     key: role,
-    title: `Invite ${label}`,
+    title: `Invite ${withArticle(noun.one)}`,
     done: s.members[role] > 0,
     state:
       s.members[role] > 0
-        ? `${plural(s.members[role], label)} in the lab.`
+        ? `${count(s.members[role], noun)} in the lab.`
         : s.invited[role] > 0
           ? `Invited, waiting for them to accept (${why}).`
-          : `No ${label} yet: ${why}.`,
-    links: [{ href: `${lab}/members`, label: s.invited[role] > 0 ? "See the invitation" : `Invite ${label}` }],
+          : `No ${noun.one} yet: ${why}.`,
+    // The invitation form opens with the role the step names.
+    links: [
+      s.invited[role] > 0
+        ? { href: `${lab}/members`, label: "See the invitation" }
+        : { href: `${lab}/members?role=${role}#invite-heading`, label: `Invite ${withArticle(noun.one)}` },
+    ],
   });
   return [
     {
@@ -58,8 +64,12 @@ export function firstRunSteps(slug: string, s: FirstRunStatus): FirstRunStep[] {
         { href: `${lab}/stock/ladder`, label: "Start from a generic size ladder (1.50-5.00 mm)" },
       ],
     },
-    person("lead", "a medical lead", "the medical lead approves every chart before it is printed"),
-    person("educator", "an educator", "educators design the charts"),
+    person(
+      "lead",
+      { one: "medical lead", other: "medical leads" },
+      "the medical lead approves every chart before it is printed",
+    ),
+    person("educator", { one: "educator", other: "educators" }, "educators design the charts"),
     {
       key: "chart",
       title: "Design a first chart from a template",

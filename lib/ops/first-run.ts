@@ -1,6 +1,6 @@
 import "server-only";
 import { balloonFamilyExists, readFirstRunStatus } from "@/db/queries/first-run";
-import { importBalloons } from "@/db/queries/stock";
+import { importStock } from "@/db/queries/stock-import";
 import { AppError } from "@/lib/errors";
 import { firstRunSteps } from "@/lib/labs/first-run";
 import { ladderFamilySchema } from "@/lib/validation/ladder";
@@ -41,6 +41,6 @@ export const createLadderFamily = labOperation({
         rbpAtm: input.rbpAtm,
         ...(input.growthAtRbpMm === null ? {} : { growthAtRbpMm: input.growthAtRbpMm }),
       }));
-      return importBalloons(tx, { labId, actorUserId: actor.id, rows, fileName: "generic size ladder" });
+      return importStock(tx, { labId, actorUserId: actor.id, rows, fileName: "generic size ladder" });
     }),
 });

@@ -1,4 +1,5 @@
 import "server-only";
+import { env } from "@/lib/env";
 import { mailFakeConfigured } from "@/lib/mail/send";
 import { listMyLabs } from "./accounts";
 import type { Caller } from "./caller";
@@ -10,11 +11,13 @@ import { machineRefused } from "./access";
  */
 export async function headerInfo(caller: Caller) {
   if (caller.kind === "token") throw machineRefused();
-  if (caller.kind !== "user") return { user: null, labs: [], mailLink: false };
+  // signUp: whether a visitor may create an account here (the landing page offers it then).
+  if (caller.kind !== "user") return { user: null, labs: [], mailLink: false, signUp: env.SIGNUP === "open" };
   const labs = await listMyLabs(caller);
   return {
     user: { name: caller.user.name },
     labs: labs.map((l) => ({ slug: l.slug, name: l.name, role: l.role })),
     mailLink: mailFakeConfigured(),
+    signUp: false,
   };
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import * as q from "@/db/queries/lab-rules";
 import { labRulesPatchSchema } from "@/lib/labs/rules";
+import { whatIfLabWrite } from "./impact";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
@@ -28,4 +29,15 @@ export const setLabRules = labOperation({
     const { rules, revision, changed } = await labWrite(labId, (tx) => q.setLabRules(tx, { labId, changes, actor }));
     return { rules, revision, changed };
   },
+});
+
+/** The posted copies a change to the rules would make outdated; writes nothing. */
+export const labRulesImpact = labOperation({
+  name: "lab.rules.impact",
+  capability: "rules:manage",
+  scope: "lab",
+  input: labRulesPatchSchema,
+  run: async ({ labId, actor }, changes) => ({
+    outdates: await whatIfLabWrite(labId, (tx) => q.setLabRules(tx, { labId, changes, actor })),
+  }),
 });

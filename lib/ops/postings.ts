@@ -78,6 +78,26 @@ export const takeDownPosting = labOperation({
   },
 });
 
+/** Puts back a copy recorded as taken down by mistake, within a day. */
+export const restorePosting = labOperation({
+  name: "posting.restore",
+  capability: "posting:record",
+  scope: "lab",
+  ids: { postingId: "Posting" },
+  run: async ({ labId, actor, ids }) => {
+    await labWrite(labId, (tx) => postings.restorePosting(tx, { labId, postingId: ids.postingId, actor }));
+    return null;
+  },
+});
+
+/** Copies taken down in the last day, which can still be put back. */
+export const recentlyTakenDown = labOperation({
+  name: "posting.recently_removed",
+  capability: "lab:read",
+  scope: "lab",
+  run: ({ labId }) => postings.listRecentlyTakenDown({ labId }),
+});
+
 /** The public check: anyone with the poster's QR code may read it; a malformed token reads as unknown. */
 export async function checkByToken(_caller: Caller, { token }: { token: string }) {
   if (!checkTokenSchema.safeParse(token).success) throw notFound("Check");

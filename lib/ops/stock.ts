@@ -1,7 +1,8 @@
 import "server-only";
 import { z } from "zod";
 import * as q from "@/db/queries/stock";
-import { csvIssuesError, parseBalloonCsv } from "@/lib/stock/csv";
+import * as imports from "@/db/queries/stock-import";
+import { csvIssuesError, parseStockCsv } from "@/lib/stock/csv";
 import { CSV_TOO_LARGE_HINT, decodeImportFile } from "@/lib/stock/file";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 import { fileInput, payloadTooLarge, readFileInput } from "@/lib/upload";
@@ -16,6 +17,8 @@ import {
   stentSizeInput,
   stentSizePatch,
 } from "@/lib/validation/stock";
+import { stockImpactInput } from "@/lib/validation/stock-impact";
+import { whatIfLabWrite } from "./impact";
 import { labOperation } from "./operation";
 import { labWrite } from "./write";
 
@@ -153,7 +156,7 @@ export const deleteStentSize = labOperation({
   run: ({ labId, by, ids }) => labWrite(labId, (tx) => q.deleteStentSize(tx, { labId, ...by, sizeId: ids.sizeId })),
 });
 
-/** A balloon CSV: `dryRun` previews; otherwise applies, refusing (409) when `revision` is no longer current. */
+/** A stock CSV (balloons and stents): `dryRun` previews; otherwise applies, refusing (409) when `revision` is no longer current. */
 export const importBalloonCsv = labOperation({
   name: "stock.import",
   capability: "stock:edit",
@@ -164,18 +167,52 @@ export const importBalloonCsv = labOperation({
     const file = await readFileInput(upload);
     if (file.bytes.byteLength > MAX_IMPORT_BYTES)
       throw payloadTooLarge(file.bytes.byteLength, MAX_IMPORT_BYTES, CSV_TOO_LARGE_HINT);
-    const parsed = parseBalloonCsv(await decodeImportFile(file.bytes));
+    const parsed = parseStockCsv(await decodeImportFile(file.bytes));
     if (parsed.issues.length) throw csvIssuesError(parsed.issues);
-    if (query.dryRun) return q.previewBalloonImport({ labId, rows: parsed.rows });
+    const { rows, stentRows } = parsed;
+    if (query.dryRun) return imports.previewStockImport({ labId, rows, stentRows });
     return labWrite(labId, (tx) =>
-      q.importBalloons(tx, {
+      imports.importStock(tx, {
         labId,
         ...by,
-        rows: parsed.rows,
+        rows,
+        stentRows,
         expectRevision: query.revision,
         fileName: file.name,
       }),
     );
+  },
+});
+
+/** Reads a stock CSV's text into checked rows, or throws the 400 naming each bad line. */
+function checkedCsv(text: string) {
+  const parsed = parseStockCsv(text);
+  if (parsed.issues.length) throw csvIssuesError(parsed.issues);
+  return { rows: parsed.rows, stentRows: parsed.stentRows };
+}
+
+/**
+ * Which posted copies a stock change would make outdated, writing nothing: the change (rows by
+ * id, or a CSV) runs as the stock routes run it, inside a transaction that is rolled back.
+ */
+export const stockImpact = labOperation({
+  name: "stock.impact",
+  capability: "stock:edit",
+  scope: "lab",
+  machine: "stock:write",
+  input: stockImpactInput,
+  run: async ({ labId, by }, input) => {
+    const outdates = await whatIfLabWrite(labId, async (tx) => {
+      if (input.csv !== undefined) return imports.importStock(tx, { labId, ...by, ...checkedCsv(input.csv) });
+      for (const { id, patch } of input.families ?? [])
+        await q.updateBalloonFamily(tx, { labId, ...by, familyId: id, patch });
+      for (const { id, patch } of input.balloons ?? [])
+        await q.updateBalloon(tx, { labId, ...by, balloonId: id, patch });
+      for (const { id, patch } of input.platforms ?? [])
+        await q.updateStentPlatform(tx, { labId, ...by, platformId: id, input: patch });
+      for (const { id, patch } of input.sizes ?? []) await q.updateStentSize(tx, { labId, ...by, sizeId: id, patch });
+    });
+    return { outdates };
   },
 });
 

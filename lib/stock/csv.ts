@@ -1,16 +1,28 @@
-// Reads a balloon stock CSV (RFC 4180, comma or semicolon, decimal point or comma) into checked
-// rows, naming every bad line by its line number in the file (the header is line 1).
+// Reads a stock CSV (RFC 4180, comma, semicolon or tab, decimal point or comma) into checked
+// balloon and stent rows, naming every bad line by its line number in the file (the header is line 1).
+// A line naming a platform is a stent size; a line naming a family is a balloon size.
 import Papa from "papaparse";
-import type { z } from "zod";
+import { z } from "zod";
 import { AppError } from "@/lib/errors";
-import { compliance, diameterMm, growthMm, pressureAtm, stockName, type Compliance } from "@/lib/validation/stock";
+import {
+  compliance,
+  diameterMm,
+  growthMm,
+  pressureAtm,
+  stentSizeInput,
+  stockName,
+  type Compliance,
+} from "@/lib/validation/stock";
 import { MAX_IMPORT_ROWS } from "./limits";
 import { parseDecimalText } from "./format";
 
 export const REQUIRED_COLUMNS = ["family", "compliance", "diameter_mm", "in_stock"] as const;
 export const OPTIONAL_COLUMNS = ["nominal_atm", "rbp_atm", "growth_at_rbp_mm"] as const;
-export type Column = (typeof REQUIRED_COLUMNS)[number] | (typeof OPTIONAL_COLUMNS)[number];
-const ALL_COLUMNS: readonly string[] = [...REQUIRED_COLUMNS, ...OPTIONAL_COLUMNS];
+export const STENT_COLUMNS = ["platform", "diameter_mm", "max_post_dilatation_mm"] as const;
+export type Column =
+  (typeof REQUIRED_COLUMNS)[number] | (typeof OPTIONAL_COLUMNS)[number] | (typeof STENT_COLUMNS)[number];
+const ALL_COLUMNS: readonly string[] = [...new Set([...REQUIRED_COLUMNS, ...OPTIONAL_COLUMNS, ...STENT_COLUMNS])];
+const BALLOON_ONLY: readonly Column[] = ["family", "compliance", "nominal_atm", "rbp_atm", "growth_at_rbp_mm"];
 
 /** What in_stock accepts, in any letter case. */
 export const IN_STOCK_WORDS: Record<string, boolean> = {
@@ -35,37 +47,53 @@ export type CsvRow = {
   growthAtRbpMm?: number;
 };
 
+/** A stent size line: `in_stock` no removes the size (stent sizes have no stock flag). */
+export type StentCsvRow = {
+  line: number;
+  platform: string;
+  nominalMm: number;
+  maxPostDilatationMm: number;
+  inStock: boolean;
+};
+
 export type LineIssue = { line: number; column?: Column; message: string };
 
 export type ParsedCsv = {
-  delimiter: "," | ";";
+  delimiter: "," | ";" | "\t";
   columns: Column[];
   rows: CsvRow[];
+  stentRows: StentCsvRow[];
   issues: LineIssue[];
 };
 
 // Built once: zod schemas are costly to construct and are reused for every line.
 const familyName = stockName("Family");
+const platformName = stockName("Platform");
+const anyNumber = z.number();
 const diameter = diameterMm();
 const nominalPressure = pressureAtm("Nominal pressure");
 const burstPressure = pressureAtm("Rated burst pressure");
 
-const COLUMN_LIST = `${REQUIRED_COLUMNS.join(", ")} and optionally ${OPTIONAL_COLUMNS.join(", ")}`;
+const COLUMN_LIST = `${REQUIRED_COLUMNS.join(", ")} and optionally ${OPTIONAL_COLUMNS.join(", ")} for balloons; ${STENT_COLUMNS.join(", ")} for stents`;
 
-/** A header with a semicolon means a semicolon file (as spreadsheets write where the decimal mark is a comma). */
-function detectDelimiter(text: string): "," | ";" {
+/**
+ * A header with a tab is a table pasted from a spreadsheet; one with a semicolon a semicolon
+ * file (as spreadsheets write where the decimal mark is a comma).
+ */
+function detectDelimiter(text: string): "," | ";" | "\t" {
   const firstLine = text.slice(0, text.indexOf("\n") === -1 ? undefined : text.indexOf("\n"));
-  return firstLine.includes(";") ? ";" : ",";
+  return firstLine.includes("\t") ? "\t" : firstLine.includes(";") ? ";" : ",";
 }
 
 const firstMessage = (result: z.ZodSafeParseResult<unknown>) =>
   result.success ? "" : (result.error.issues[0]?.message ?? "is not valid.");
 
-export function parseBalloonCsv(input: string): ParsedCsv {
+export function parseStockCsv(input: string): ParsedCsv {
   const text = input.replace(/^\uFEFF/, "").replace(/\r\n?/g, "\n");
   const delimiter = detectDelimiter(text);
   const issues: LineIssue[] = [];
   const rows: CsvRow[] = [];
+  const stentRows: StentCsvRow[] = [];
   let columns: Column[] | null = null;
   let headerBroken = false;
   let dataRows = 0;
@@ -116,7 +144,8 @@ export function parseBalloonCsv(input: string): ParsedCsv {
         return;
       }
       const row = readRow(fields, columns, delimiter, start, issues);
-      if (row) rows.push(row);
+      if (row && "platform" in row) stentRows.push(row);
+      else if (row) rows.push(row);
     },
   });
 
@@ -131,9 +160,12 @@ export function parseBalloonCsv(input: string): ParsedCsv {
       message: `The file has no header line. The first line must name the columns: ${COLUMN_LIST}.`,
     });
   else if (!headerBroken && dataRows === 0)
-    issues.push({ line: 2, message: "The file has a header but no balloon lines." });
-  return { delimiter, columns: columns ?? [], rows, issues };
+    issues.push({ line: 2, message: "The file has a header but no stock lines." });
+  return { delimiter, columns: columns ?? [], rows, stentRows, issues };
 }
+
+/** The balloon-only reader the first import shipped with: same parser, any stent lines included. */
+export const parseBalloonCsv = parseStockCsv;
 
 function readHeader(fields: string[], line: number, issues: LineIssue[]): Column[] | null {
   const names = fields.map((f) => f.trim().toLowerCase());
@@ -144,7 +176,12 @@ function readHeader(fields: string[], line: number, issues: LineIssue[]): Column
       issues.push({ line, message: `Unknown column "${fields[i]!.trim()}". The columns are ${COLUMN_LIST}.` });
     else if (names.indexOf(name) !== i) issues.push({ line, message: `The column "${name}" appears twice.` });
   });
-  const missing = REQUIRED_COLUMNS.filter((c) => !names.includes(c));
+  // A file with stent columns may hold stents only; balloon lines then need the balloon columns.
+  const stents = names.includes("platform") || names.includes("max_post_dilatation_mm");
+  const required: readonly Column[] = stents
+    ? [...STENT_COLUMNS, ...(names.includes("family") ? REQUIRED_COLUMNS : [])]
+    : REQUIRED_COLUMNS;
+  const missing = [...new Set(required)].filter((c) => !names.includes(c));
   if (missing.length)
     issues.push({
       line,
@@ -153,16 +190,24 @@ function readHeader(fields: string[], line: number, issues: LineIssue[]): Column
   return issues.length > before ? null : (names.filter((n) => n !== "") as Column[]);
 }
 
+type Read = {
+  line: number;
+  value: (c: Column) => string;
+  fail: (column: Column, message: string) => void;
+  issues: LineIssue[];
+};
+
 function readRow(
   fields: string[],
   columns: Column[],
   delimiter: string,
   line: number,
   issues: LineIssue[],
-): CsvRow | null {
+): CsvRow | StentCsvRow | null {
   const extra = fields.slice(columns.length);
+  const needed: readonly string[] = [...REQUIRED_COLUMNS, ...STENT_COLUMNS];
   // Missing trailing optional fields read as empty; a missing required one or extra content is an error.
-  const missingRequired = columns.slice(fields.length).some((c) => (REQUIRED_COLUMNS as readonly string[]).includes(c));
+  const missingRequired = columns.slice(fields.length).some((c) => needed.includes(c));
   if (missingRequired || extra.some((f) => f.trim() !== "")) {
     const hint =
       delimiter === "," && fields.length > columns.length
@@ -178,8 +223,47 @@ function readRow(
     const i = columns.indexOf(c);
     return i === -1 ? "" : (fields[i] ?? "").trim();
   };
-  const before = issues.length;
   const fail = (column: Column, message: string) => issues.push({ line, column, message: `${column}: ${message}` });
+  const read: Read = { line, value, fail, issues };
+  if (!columns.includes("platform")) return readBalloonRow(read);
+  const [platform, family] = [value("platform"), value("family")];
+  if (platform && family) {
+    issues.push({ line, message: "A line names a family (a balloon size) or a platform (a stent size), not both." });
+    return null;
+  }
+  if (platform || !columns.includes("family")) return readStentRow(read);
+  return readBalloonRow(read);
+}
+
+function readStentRow({ line, value, fail, issues }: Read): StentCsvRow | null {
+  const before = issues.length;
+  for (const c of BALLOON_ONLY) if (value(c) !== "") fail(c, "is for balloon lines; leave it empty on a stent line.");
+  const name = platformName.safeParse(value("platform").replace(/^'(?=[=+\-@\t\r;])/, ""));
+  if (!name.success) fail("platform", value("platform") === "" ? "is empty." : firstMessage(name));
+  const nominal = number(value("diameter_mm"), "diameter_mm", true, (n) => diameter.safeParse(n), fail);
+  const maxPost = number(
+    value("max_post_dilatation_mm"),
+    "max_post_dilatation_mm",
+    true,
+    (n) => anyNumber.safeParse(n),
+    fail,
+  );
+  const rawStock = value("in_stock").toLowerCase();
+  const stock = rawStock === "" ? true : IN_STOCK_WORDS[rawStock];
+  if (stock === undefined) fail("in_stock", `"${value("in_stock")}" is not one of yes, no, y, n, true, false, 1, 0.`);
+  if (nominal !== undefined && maxPost !== undefined) {
+    const size = stentSizeInput.safeParse({ nominalMm: nominal, maxPostDilatationMm: maxPost });
+    if (!size.success) fail("max_post_dilatation_mm", firstMessage(size));
+    else if (issues.length === before && name.success && stock !== undefined)
+      return { line, platform: name.data, ...size.data, inStock: stock };
+  }
+  return null;
+}
+
+function readBalloonRow({ line, value, fail, issues }: Read): CsvRow | null {
+  const before = issues.length;
+  if (value("max_post_dilatation_mm") !== "")
+    fail("max_post_dilatation_mm", "is for stent lines; leave it empty on a balloon line.");
 
   // Our own export writes '=... for a name starting like a formula (lib/stock/export.ts).
   const family = familyName.safeParse(value("family").replace(/^'(?=[=+\-@\t\r;])/, ""));

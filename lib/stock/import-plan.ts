@@ -1,9 +1,11 @@
-// What a checked balloon CSV would change in the lab's stock. A file lists each of its families'
+// What a checked stock CSV would change in the lab's stock (stent lines: ./stent-plan.ts). A file lists each of its families'
 // whole range: sizes of a listed family that the file leaves out are marked out of stock (never
 // deleted); families the file does not mention are left alone.
-import type { CsvRow, LineIssue } from "./csv";
+import type { CsvRow, LineIssue, StentCsvRow } from "./csv";
 import { formatAtm, formatMm, hundredths, nameKey } from "./format";
-import type { BalloonFamilyView, FamilyValues } from "./types";
+import { emptyStentPlan, planStentImport, type StentPlan } from "./stent-plan";
+import type { BalloonFamilyView, FamilyValues, StentPlatformView } from "./types";
+import { count } from "@/lib/format/plural";
 
 export type FamilyAdd = FamilyValues & { line: number; sizes: number };
 export type FamilyChange = {
@@ -31,7 +33,7 @@ export type BalloonChange = {
 };
 export type BalloonMarkOut = { id: number; family: string; familyId: number; diameterMm: number };
 
-export type ImportPlan = {
+export type ImportPlan = StentPlan & {
   familiesToAdd: FamilyAdd[];
   familiesToChange: FamilyChange[];
   balloonsToAdd: BalloonAdd[];
@@ -52,7 +54,11 @@ export function isEmptyPlan(plan: ImportPlan): boolean {
       plan.familiesToChange.length +
       plan.balloonsToAdd.length +
       plan.balloonsToChange.length +
-      plan.balloonsToMarkOutOfStock.length ===
+      plan.balloonsToMarkOutOfStock.length +
+      plan.platformsToAdd.length +
+      plan.stentSizesToAdd.length +
+      plan.stentSizesToChange.length +
+      plan.stentSizesToRemove.length ===
     0
   );
 }
@@ -64,8 +70,12 @@ export function summarisePlan(plan: ImportPlan): string {
     [plan.balloonsToAdd.length, "size added", "sizes added"],
     [plan.balloonsToChange.length, "size changed", "sizes changed"],
     [plan.balloonsToMarkOutOfStock.length, "size marked out of stock", "sizes marked out of stock"],
+    [plan.platformsToAdd.length, "stent platform added", "stent platforms added"],
+    [plan.stentSizesToAdd.length, "stent size added", "stent sizes added"],
+    [plan.stentSizesToChange.length, "stent size changed", "stent sizes changed"],
+    [plan.stentSizesToRemove.length, "stent size removed", "stent sizes removed"],
   ] as const;
-  const said = parts.filter(([n]) => n > 0).map(([n, one, many]) => `${n} ${n === 1 ? one : many}`);
+  const said = parts.filter(([n]) => n > 0).map(([n, one, other]) => count(n, { one, other }));
   return said.length ? said.join(", ") : "no changes";
 }
 
@@ -83,14 +93,10 @@ type FileFamily = {
 const PRESSURE_COLUMNS = { nominalAtm: "nominal_atm", rbpAtm: "rbp_atm", growthAtRbpMm: "growth_at_rbp_mm" } as const;
 const FAMILY_FIELDS: (keyof FamilyValues)[] = ["compliance", "nominalAtm", "rbpAtm", "growthAtRbpMm"];
 
-/** Groups rows by family, checks them against each other and the current stock, and lists the changes. */
-export function planBalloonImport(
-  current: BalloonFamilyView[],
-  rows: CsvRow[],
-): { plan: ImportPlan; issues: LineIssue[] } {
-  const issues: LineIssue[] = [];
-  const families = new Map<string, FileFamily>();
+type Counted = Pick<ImportPlan, "familiesInFile" | "rowsInFile">;
 
+function groupFamilies(rows: CsvRow[], issues: LineIssue[]): Map<string, FileFamily> {
+  const families = new Map<string, FileFamily>();
   for (const row of rows) {
     const key = nameKey(row.family);
     let fam = families.get(key);
@@ -126,8 +132,81 @@ export function planBalloonImport(
       });
     else fam.rows.push(row);
   }
+  return families;
+}
 
+function planNewFamily(fam: FileFamily, plan: ImportPlan, issues: LineIssue[]) {
+  const missing = (["nominalAtm", "rbpAtm"] as const).filter((f) => !fam[f]).map((f) => PRESSURE_COLUMNS[f]);
+  if (missing.length) {
+    issues.push({
+      line: fam.line,
+      message: `${fam.name} is a new family: give its ${missing.join(" and ")} (on at least one of its lines).`,
+    });
+    return;
+  }
+  const values: FamilyValues = {
+    name: fam.name,
+    compliance: fam.compliance.value,
+    nominalAtm: fam.nominalAtm!.value,
+    rbpAtm: fam.rbpAtm!.value,
+    growthAtRbpMm: fam.growthAtRbpMm?.value ?? null,
+  };
+  if (!pressuresInOrder(fam, values, issues)) return;
+  plan.familiesToAdd.push({ ...values, line: fam.line, sizes: fam.rows.length });
+  for (const row of fam.rows)
+    plan.balloonsToAdd.push({
+      family: fam.name,
+      familyId: null,
+      diameterMm: row.diameterMm,
+      inStock: row.inStock,
+      line: row.line,
+    });
+}
+
+function planExistingFamily(fam: FileFamily, existing: BalloonFamilyView, plan: ImportPlan, issues: LineIssue[]) {
+  const before: FamilyValues = pick(existing);
+  const after: FamilyValues = {
+    ...before,
+    compliance: fam.compliance.value,
+    nominalAtm: fam.nominalAtm?.value ?? before.nominalAtm,
+    rbpAtm: fam.rbpAtm?.value ?? before.rbpAtm,
+    growthAtRbpMm: fam.growthAtRbpMm?.value ?? before.growthAtRbpMm,
+  };
+  if (!pressuresInOrder(fam, after, issues)) return;
+  const fields = FAMILY_FIELDS.filter((f) => before[f] !== after[f]);
+  if (fields.length) plan.familiesToChange.push({ id: existing.id, name: existing.name, before, after, fields });
+
+  const named = { family: existing.name, familyId: existing.id };
+  const listed = new Map(fam.rows.map((r) => [hundredths(r.diameterMm), r]));
+  for (const balloon of existing.balloons) {
+    const row = listed.get(hundredths(balloon.diameterMm));
+    listed.delete(hundredths(balloon.diameterMm));
+    if (row && row.inStock !== balloon.inStock) {
+      plan.balloonsToChange.push({
+        id: balloon.id,
+        ...named,
+        diameterMm: balloon.diameterMm,
+        before: { inStock: balloon.inStock },
+        after: { inStock: row.inStock },
+        line: row.line,
+      });
+    } else if (!row && balloon.inStock) {
+      plan.balloonsToMarkOutOfStock.push({ id: balloon.id, ...named, diameterMm: balloon.diameterMm });
+    } else plan.unchangedBalloons += 1;
+  }
+  for (const row of listed.values())
+    plan.balloonsToAdd.push({ ...named, diameterMm: row.diameterMm, inStock: row.inStock, line: row.line });
+}
+
+/** Groups rows by family, checks them against each other and the current stock, and lists the changes. */
+export function planBalloonImport(
+  current: BalloonFamilyView[],
+  rows: CsvRow[],
+): { plan: ImportPlan; issues: LineIssue[] } {
+  const issues: LineIssue[] = [];
+  const families = groupFamilies(rows, issues);
   const byName = new Map(current.map((f) => [nameKey(f.name), f]));
+  const counted: Counted = { familiesInFile: families.size, rowsInFile: rows.length };
   const plan: ImportPlan = {
     familiesToAdd: [],
     familiesToChange: [],
@@ -135,91 +214,35 @@ export function planBalloonImport(
     balloonsToChange: [],
     balloonsToMarkOutOfStock: [],
     unchangedBalloons: 0,
-    familiesInFile: families.size,
-    rowsInFile: rows.length,
+    ...emptyStentPlan(),
+    ...counted,
   };
-
   for (const fam of families.values()) {
     const existing = byName.get(nameKey(fam.name));
-    if (!existing) {
-      const missing = (["nominalAtm", "rbpAtm"] as const).filter((f) => !fam[f]).map((f) => PRESSURE_COLUMNS[f]);
-      if (missing.length) {
-        issues.push({
-          line: fam.line,
-          message: `${fam.name} is a new family: give its ${missing.join(" and ")} (on at least one of its lines).`,
-        });
-        continue;
-      }
-      const values: FamilyValues = {
-        name: fam.name,
-        compliance: fam.compliance.value,
-        nominalAtm: fam.nominalAtm!.value,
-        rbpAtm: fam.rbpAtm!.value,
-        growthAtRbpMm: fam.growthAtRbpMm?.value ?? null,
-      };
-      if (!pressuresInOrder(fam, values, issues)) continue;
-      plan.familiesToAdd.push({ ...values, line: fam.line, sizes: fam.rows.length });
-      for (const row of fam.rows)
-        plan.balloonsToAdd.push({
-          family: fam.name,
-          familyId: null,
-          diameterMm: row.diameterMm,
-          inStock: row.inStock,
-          line: row.line,
-        });
-      continue;
-    }
-
-    const before: FamilyValues = pick(existing);
-    const after: FamilyValues = {
-      ...before,
-      compliance: fam.compliance.value,
-      nominalAtm: fam.nominalAtm?.value ?? before.nominalAtm,
-      rbpAtm: fam.rbpAtm?.value ?? before.rbpAtm,
-      growthAtRbpMm: fam.growthAtRbpMm?.value ?? before.growthAtRbpMm,
-    };
-    if (!pressuresInOrder(fam, after, issues)) continue;
-    const fields = FAMILY_FIELDS.filter((f) => before[f] !== after[f]);
-    if (fields.length) plan.familiesToChange.push({ id: existing.id, name: existing.name, before, after, fields });
-
-    const listed = new Map(fam.rows.map((r) => [hundredths(r.diameterMm), r]));
-    for (const balloon of existing.balloons) {
-      const row = listed.get(hundredths(balloon.diameterMm));
-      listed.delete(hundredths(balloon.diameterMm));
-      if (row && row.inStock !== balloon.inStock) {
-        plan.balloonsToChange.push({
-          id: balloon.id,
-          family: existing.name,
-          familyId: existing.id,
-          diameterMm: balloon.diameterMm,
-          before: { inStock: balloon.inStock },
-          after: { inStock: row.inStock },
-          line: row.line,
-        });
-      } else if (!row && balloon.inStock) {
-        plan.balloonsToMarkOutOfStock.push({
-          id: balloon.id,
-          family: existing.name,
-          familyId: existing.id,
-          diameterMm: balloon.diameterMm,
-        });
-      } else plan.unchangedBalloons += 1;
-    }
-    for (const row of listed.values())
-      plan.balloonsToAdd.push({
-        family: existing.name,
-        familyId: existing.id,
-        diameterMm: row.diameterMm,
-        inStock: row.inStock,
-        line: row.line,
-      });
+    if (existing) planExistingFamily(fam, existing, plan, issues);
+    else planNewFamily(fam, plan, issues);
   }
-
+  const order = (a: { family: string; diameterMm: number }, b: { family: string; diameterMm: number }) =>
+    a.family.localeCompare(b.family) || a.diameterMm - b.diameterMm;
   issues.sort((a, b) => a.line - b.line);
-  plan.balloonsToAdd.sort((a, b) => a.family.localeCompare(b.family) || a.diameterMm - b.diameterMm);
-  plan.balloonsToChange.sort((a, b) => a.family.localeCompare(b.family) || a.diameterMm - b.diameterMm);
-  plan.balloonsToMarkOutOfStock.sort((a, b) => a.family.localeCompare(b.family) || a.diameterMm - b.diameterMm);
+  plan.balloonsToAdd.sort(order);
+  plan.balloonsToChange.sort(order);
+  plan.balloonsToMarkOutOfStock.sort(order);
   return { plan, issues };
+}
+
+/** Balloon and stent lines of one file planned together: one plan, every issue by line. */
+export function planStockImport(
+  current: { balloonFamilies: BalloonFamilyView[]; stentPlatforms: StentPlatformView[] },
+  parsed: { rows: CsvRow[]; stentRows: StentCsvRow[] },
+): { plan: ImportPlan; issues: LineIssue[] } {
+  const balloons = planBalloonImport(current.balloonFamilies, parsed.rows);
+  const stents = planStentImport(current.stentPlatforms, parsed.stentRows);
+  const issues = [...balloons.issues, ...stents.issues].sort((a, b) => a.line - b.line);
+  return {
+    plan: { ...balloons.plan, ...stents.plan, rowsInFile: parsed.rows.length + parsed.stentRows.length },
+    issues,
+  };
 }
 
 function pick(f: BalloonFamilyView): FamilyValues {

@@ -652,6 +652,7 @@ export const ROUTES: RouteRow[] = [
   stockWrite("PATCH", "/sizes/[id]", "/sizes/0", {}),
   stockWrite("DELETE", "/sizes/[id]", "/sizes/0"),
   { ...stockWrite("POST", "/import", "/import?dryRun=1"), note: "no multipart body: 400 for managers" },
+  { ...stockWrite("POST", "/impact", "/impact", {}), note: "names no change: 400 for managers; never writes" },
 
   // onboard: sign-up and new labs
   {
@@ -875,11 +876,13 @@ export const ACTIONS: ActionRow[] = [
     "deletePlatformAction",
     "deleteSizeAction",
     "importStockAction",
+    "stockImpactAction",
   ].map((name): ActionRow => ({ kind: "action", file: STOCK_ACTIONS, name, allowed: ["manager"] })),
   { kind: "action", file: ROOM_ACTIONS, name: "createRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "renameRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "archiveRoomAction", allowed: ["manager"] },
   { kind: "action", file: ROOM_ACTIONS, name: "takeDownAction", allowed: ALL_ROLES },
+  { kind: "action", file: ROOM_ACTIONS, name: "restorePostingAction", allowed: ALL_ROLES },
   {
     kind: "action",
     file: CHECK_ACTIONS,
@@ -963,5 +966,12 @@ export const ACTIONS: ActionRow[] = [
     name: "saveLabRulesAction",
     allowed: ["lead"],
     note: "the medical lead only; audited",
+  },
+  {
+    kind: "action",
+    file: "app/(lab)/labs/[slug]/rules/actions.ts",
+    name: "rulesImpactAction",
+    allowed: ["lead"],
+    note: "the medical lead only; writes nothing",
   },
 ];

@@ -18,7 +18,7 @@ await local.ensureDatabase(server, { database, user: env.DB_USER, password: env.
 
 const { db, pool } = await import("../../db/index");
 const { runMigrations } = await import("../../db/migrate");
-const { importBalloons, previewBalloonImport } = await import("../../db/queries/stock");
+const { importStock, previewStockImport } = await import("../../db/queries/stock-import");
 const { labWrite } = await import("../../lib/ops/write");
 const { labs, users } = await import("../../db/schema");
 const { parseBalloonCsv } = await import("../../lib/stock/csv");
@@ -51,10 +51,10 @@ try {
     const { rows, issues } = parseBalloonCsv(file(run));
     if (issues.length) throw new Error(`bench file refused: ${issues[0]!.message}`);
     const t1 = performance.now();
-    const preview = await previewBalloonImport({ labId: actor.labId, rows });
+    const preview = await previewStockImport({ labId: actor.labId, rows });
     const t2 = performance.now();
     const result = await labWrite(actor.labId, (tx) =>
-      importBalloons(tx, { ...actor, rows, expectRevision: preview.revision }),
+      importStock(tx, { ...actor, rows, expectRevision: preview.revision }),
     );
     const t3 = performance.now();
     if (result.plan.balloonsToAdd.length !== 5000) throw new Error("bench import did not add 5,000 sizes");

@@ -47,13 +47,7 @@ test("a manager invites an operator by e-mail; the invitee joins and sees only w
   await guest.getByLabel("New password").fill("a long enough phrase");
   await guest.getByLabel("Repeat the password").fill("a long enough phrase");
   await guest.getByRole("button", { name: "Create account and join" }).click();
-  await expect(guest).toHaveURL(/\/sign-in\?/);
-  await expect(
-    guest.getByRole("status").filter({ hasText: "Your account is ready and you have joined the lab" }),
-  ).toBeVisible();
-  await expect(guest.getByLabel("E-mail")).toHaveValue(invitee);
-  await guest.getByLabel("Password", { exact: true }).fill("a long enough phrase");
-  await guest.getByRole("button", { name: "Sign in", exact: true }).click();
+  // Signed in at once: the password just chosen is not asked for again.
   await expect(guest).toHaveURL(/\/labs\/demo$/);
 
   await expect(guest.getByText("Your role: Operator")).toBeVisible();

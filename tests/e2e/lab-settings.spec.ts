@@ -42,7 +42,9 @@ test("a manager creates a token, sees it once, a machine uses it, and the manage
   await page.goto("/labs/demo/settings");
   const form = page.getByRole("form", { name: "Create a token" });
   await form.getByLabel("Token name").fill(name);
-  await form.getByLabel("Change stock (stock:write)").uncheck();
+  // Read-only by default: the write scope starts unticked.
+  await expect(form.getByLabel("Change stock (stock:write)")).not.toBeChecked();
+  await expect(form.getByLabel("Read stock (stock:read)")).toBeChecked();
   await form.getByRole("button", { name: "Create token" }).click();
   const shown = page.getByTestId("new-token").getByRole("textbox");
   await expect(shown).toHaveValue(/^fwt_[A-Za-z0-9_-]{43}$/);
@@ -66,11 +68,13 @@ test("a manager creates a token, sees it once, a machine uses it, and the manage
   expect(await page.content()).not.toContain(token.slice(4));
   await expect(page.getByTestId(`token-${name}`)).not.toContainText("last used never");
 
-  page.once("dialog", (d) => void d.accept());
   await page
     .getByTestId(`token-${name}`)
     .getByRole("button", { name: /Revoke/ })
     .click();
+  const ask = page.getByRole("dialog", { name: `Revoke the token "${name}"?` });
+  await expect(ask).toContainText("Every request with it is refused");
+  await ask.getByRole("button", { name: "Revoke token" }).click();
   await expect(page.getByRole("status").filter({ hasText: `Token "${name}" revoked` })).toBeVisible();
   await expect(page.getByTestId(`token-${name}`)).toHaveCount(0);
   const refused = await machine.get("/api/v1/labs/demo/stock");

@@ -209,8 +209,11 @@ test("a notes-only change leaves the posted copy current and names the reworded 
 test("manager: withdrawing the current edition turns every copy of the chart to take-down", async ({ page }) => {
   await signInPage(page, demoEmail("manager"));
   await page.goto(`/labs/demo/charts/${state.chartId}`);
-  page.once("dialog", (d) => void d.accept("Wrong rows for this room"));
   await page.getByTestId("edition-2").getByRole("button", { name: "Withdraw" }).click();
+  const ask = page.getByRole("dialog", { name: "Withdraw edition 2?" });
+  await expect(ask.getByRole("button", { name: "Withdraw edition" })).toBeDisabled();
+  await ask.getByLabel(/Why is it withdrawn/).fill("Wrong rows for this room");
+  await ask.getByRole("button", { name: "Withdraw edition" }).click();
   await expect(page.getByText("Edition 2 withdrawn.")).toBeVisible();
   await expectCheck(page, state.ed2, "withdrawn", "take-down");
   await expectCheck(page, state.ed1, "superseded", "take-down");

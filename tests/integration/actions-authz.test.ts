@@ -191,6 +191,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   renameRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId, name: "Renamed room" }),
   archiveRoomAction: (t) => ({ slug: t.lab.slug, roomId: wall.roomId }),
   takeDownAction: (t) => ({ slug: t.lab.slug, postingId: wall.postingId }),
+  restorePostingAction: (t) => ({ slug: t.lab.slug, postingId: wall.postingId }),
   recordPostingAction: () => ({ token: wall.token, roomId: wall.roomId }),
   takeDownPostingAction: () => ({ token: wall.token, postingId: wall.postingId }),
   setStaleMailAction: (t) => ({ slug: t.lab.slug, on: true }),
@@ -210,6 +211,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   deletePlatformAction: (t) => ({ slug: t.lab.slug, platformId: stent.platformId }),
   deleteSizeAction: (t) => ({ slug: t.lab.slug, sizeId: stent.sizeId }),
   importStockAction: (t) => form({ slug: t.lab.slug, file: csv() }),
+  stockImpactAction: (t) => ({ slug: t.lab.slug, balloons: [{ id: wall.balloonId, inStock: false }] }),
   // tokens area
   updateLabSettingsAction: (t) =>
     form({ slug: t.lab.slug, name: "Renamed lab", timeZone: "Europe/Berlin", numberFormat: "comma", contactLine: "" }),
@@ -217,6 +219,7 @@ const INPUTS: Record<string, (t: Team) => ActionPayload> = {
   revokeTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
   reissueTokenAction: (t) => ({ slug: t.lab.slug, tokenId: machineTokenId }),
   saveLabRulesAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
+  rulesImpactAction: (t) => ({ slug: t.lab.slug, reviewPeriodMonths: 6, managersMayApprove: true }),
   // onboard
   resendVerificationAction: () => form({}),
   createLabAction: () => form({ name: "Refused lab (illustrative)", slug: unique("refused") }),

@@ -10,6 +10,7 @@ import * as members from "@/db/queries/members";
 import * as postings from "@/db/queries/postings";
 import * as rooms from "@/db/queries/rooms";
 import * as stock from "@/db/queries/stock";
+import * as stockImport from "@/db/queries/stock-import";
 import { balloonFamilies, balloons } from "@/db/schema";
 import type { CsvRow } from "@/lib/stock/csv";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
@@ -56,8 +57,8 @@ export function importBalloons(args: {
   expectRevision?: number;
   fileName?: string;
 }) {
-  if (args.dryRun) return stock.previewBalloonImport(args);
-  return labWrite(args.labId, (tx) => stock.importBalloons(tx, args));
+  if (args.dryRun) return stockImport.previewStockImport(args);
+  return labWrite(args.labId, (tx) => stockImport.importStock(tx, args));
 }
 
 export const revokeInvitation = inLab(invitations.revokeInvitation);

@@ -240,7 +240,7 @@ describe("parseBalloonCsv: header", () => {
       {
         line: 1,
         message:
-          "Missing columns compliance, in_stock. The columns are family, compliance, diameter_mm, in_stock and optionally nominal_atm, rbp_atm, growth_at_rbp_mm.",
+          "Missing columns compliance, in_stock. The columns are family, compliance, diameter_mm, in_stock and optionally nominal_atm, rbp_atm, growth_at_rbp_mm for balloons; platform, diameter_mm, max_post_dilatation_mm for stents.",
       },
     ]);
   });
@@ -257,7 +257,7 @@ describe("parseBalloonCsv: header", () => {
 
   it("says so when there are no lines after the header, or nothing at all", () => {
     expect(parseBalloonCsv(`${HEADER}\n`).issues).toEqual([
-      { line: 2, message: "The file has a header but no balloon lines." },
+      { line: 2, message: "The file has a header but no stock lines." },
     ]);
     expect(parseBalloonCsv("\n\n").issues[0]).toMatchObject({
       line: 1,

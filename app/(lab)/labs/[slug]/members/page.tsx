@@ -1,5 +1,7 @@
 import { InvitationsTable } from "@/components/members/invitations-table";
 import { InviteForm } from "@/components/members/invite-form";
+import { count } from "@/lib/format/plural";
+import { ROLES } from "@/lib/permissions";
 import { MembersTable } from "@/components/members/members-table";
 import { Forbidden } from "@/components/ui/forbidden";
 import { listInvitations, listMembers } from "@/lib/ops/members";
@@ -7,8 +9,16 @@ import { memberForPage } from "@/lib/auth/page-guard";
 
 export const metadata = { title: "Members" };
 
-export default async function MembersPage({ params }: { params: Promise<{ slug: string }> }) {
+export default async function MembersPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<{ role?: string }>;
+}) {
   const { slug } = await params;
+  const asked = (await searchParams).role;
+  const role = ROLES.find((r) => r === asked);
   const member = await memberForPage(slug, "members:manage", `/labs/${slug}/members`);
   if (member === "forbidden") return <Forbidden what="manage the lab's members" slug={slug} />;
   const [members, { invitations }] = await Promise.all([
@@ -23,7 +33,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
             Members
           </h1>
           <p className="text-sm text-ink-faint">
-            {members.length} {members.length === 1 ? "person" : "people"}; a lab always keeps at least one manager.
+            {count(members.length, { one: "person", other: "people" })}; a lab always keeps at least one manager.
           </p>
         </div>
         <MembersTable slug={slug} members={members} meUserId={member.user.id} timeZone={member.lab.timeZone} />
@@ -36,7 +46,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
         <p className="mb-4 text-sm text-ink-soft">
           They receive an e-mail with a link that works once and expires after 72 hours.
         </p>
-        <InviteForm slug={slug} />
+        <InviteForm slug={slug} initialRole={role} />
       </section>
 
       <section aria-labelledby="invitations-heading">

@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { runAction, type ActionPayload, type ActionState } from "@/lib/http/action";
-import { archiveRoom, createRoom, renameRoom, takeDownPosting } from "@/lib/ops/postings";
+import { archiveRoom, createRoom, renameRoom, restorePosting, takeDownPosting } from "@/lib/ops/postings";
 
 // Every payload names its lab (`slug`) and, for a room or posting, its id.
 const refresh = (slug: unknown) => revalidatePath(`/labs/${String(slug)}/rooms`);
@@ -36,5 +36,13 @@ export async function takeDownAction(_prev: ActionState, payload: ActionPayload)
     await takeDownPosting(caller, { lab: String(slug), postingId });
     refresh(slug);
     return { ok: true, message: "Recorded as taken down." };
+  });
+}
+
+export async function restorePostingAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, postingId }) => {
+    await restorePosting(caller, { lab: String(slug), postingId });
+    refresh(slug);
+    return { ok: true, message: "Put back on the room's list." };
   });
 }

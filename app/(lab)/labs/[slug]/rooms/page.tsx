@@ -1,8 +1,10 @@
-import { AddRoomForm, RoomMenu, TakeDownButton } from "@/components/rooms/room-controls";
+import { AddRoomForm, RestoreButton, RoomMenu, TakeDownButton } from "@/components/rooms/room-controls";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { roomBoard } from "@/lib/ops/postings";
+import { recentlyTakenDown, roomBoard } from "@/lib/ops/postings";
+import { count } from "@/lib/format/plural";
+import { formatDateTime } from "@/lib/format/dates";
 import { memberForPage } from "@/lib/auth/page-guard";
 import { pdfUrlFor } from "@/lib/charts/present";
 import { STALE } from "@/lib/editions/check";
@@ -16,7 +18,10 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
   const { slug } = await params;
   const member = await memberForPage(slug, "lab:read", `/labs/${slug}/rooms`);
   if (member === "forbidden") return null;
-  const board = await roomBoard(member.caller, { lab: slug });
+  const [board, removed] = await Promise.all([
+    roomBoard(member.caller, { lab: slug }),
+    recentlyTakenDown(member.caller, { lab: slug }),
+  ]);
   const manager = can(member.role, "rooms:manage");
   const staleCount = board.reduce((n, r) => n + r.stale, 0);
   return (
@@ -24,7 +29,7 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
       <h1 className="text-2xl font-bold">Rooms and what hangs there</h1>
       <p className="mt-1 text-ink-soft">
         {staleCount
-          ? `${staleCount} printout${staleCount > 1 ? "s" : ""} to replace; stale ones are listed first.`
+          ? `${count(staleCount, { one: "printout", other: "printouts" })} to replace; stale ones are listed first.`
           : "Every recorded printout is current."}{" "}
         Record a copy from its check page (scan the QR code while signed in).
       </p>
@@ -94,6 +99,28 @@ export default async function RoomsPage({ params }: { params: Promise<{ slug: st
           ))}
         </ul>
       )}
+      {removed.length ? (
+        <section aria-labelledby="removed-h" className="mt-8">
+          <h2 id="removed-h" className="text-lg font-semibold">
+            Taken down in the last day
+          </h2>
+          <p className="text-sm text-ink-soft">Recorded by mistake? Put a copy back on its room&apos;s list.</p>
+          <ul className="mt-2 divide-y divide-line rounded-md border border-line">
+            {removed.map((r) => (
+              <li key={r.postingId} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
+                <span>
+                  {r.chartTitle}, edition {r.editionNumber}, in {r.room}
+                  <span className="text-sm text-ink-faint">
+                    {" "}
+                    · taken down {r.removedAt ? formatDateTime(r.removedAt, member.lab.timeZone) : ""}
+                  </span>
+                </span>
+                <RestoreButton slug={slug} postingId={r.postingId} label={`${r.chartTitle} in ${r.room}`} />
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
     </div>
   );
 }

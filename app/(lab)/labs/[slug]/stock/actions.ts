@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { runAction, uploadedFile, type ActionPayload, type ActionState } from "@/lib/http/action";
 import * as ops from "@/lib/ops/stock";
+import { impactSentence } from "@/lib/stock/impact";
 import { CSV_TOO_LARGE_HINT } from "@/lib/stock/file";
 import { MAX_IMPORT_BYTES } from "@/lib/stock/limits";
 
@@ -92,7 +93,7 @@ export async function deleteSizeAction(_prev: ActionState, payload: ActionPayloa
   });
 }
 
-/** A balloon CSV in `file`: `dryRun` previews (the plan in `data`); otherwise applies unless `revision` is stale. */
+/** A stock CSV in `file`: `dryRun` previews (the plan in `data`); otherwise applies unless `revision` is stale. */
 export async function importStockAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
   return runAction(payload, async (caller, { slug, dryRun, revision }) => {
     // Read only after the operation has checked the role.
@@ -100,5 +101,13 @@ export async function importStockAction(_prev: ActionState, payload: ActionPaylo
     const result = await ops.importBalloonCsv(caller, { lab: String(slug) }, { dryRun, revision, file });
     if (!result.dryRun) refresh(slug);
     return { ok: true, message: result.summary, data: result };
+  });
+}
+
+/** The posted copies a stock change (rows by id, or `csv`) would make outdated; writes nothing. */
+export async function stockImpactAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
+  return runAction(payload, async (caller, { slug, ...change }) => {
+    const { outdates } = await ops.stockImpact(caller, { lab: String(slug) }, change);
+    return { ok: true, message: impactSentence(outdates), data: { outdates } };
   });
 }

@@ -46,6 +46,8 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
   // A chart of another lab is not found through this lab's address.
   if (chart.labId !== member.lab.id) notFound();
   const ruled = checkChartAgainstRules(chart.id, ruledDefinition(chart.definition), rules);
+  // Said at the top, not only in the editions list far below the designer.
+  const outdatedApproval = eds.find((e) => e.status === "approved" && e.fingerprint !== chart.liveFingerprint);
   return (
     <div>
       <h1 className="text-2xl font-bold">{chart.title}</h1>
@@ -56,6 +58,16 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         >
           ▣ Archived on {formatDate(chart.archivedAt, member.lab.timeZone)}: this chart gets no new editions, and its
           posted copies read &quot;take down&quot;.
+        </p>
+      ) : null}
+      {outdatedApproval ? (
+        <p
+          role="status"
+          data-testid="approval-outdated"
+          className="mt-2 rounded-md border border-warn/50 bg-warn-soft px-3 py-2 text-sm font-semibold"
+        >
+          <span aria-hidden>⚠ </span>The approved edition {outdatedApproval.number} no longer matches this chart (stock
+          or settings changed since): create a new edition and have it approved, then replace the posted copies.
         </p>
       ) : null}
       <p className="mt-1">
