@@ -26,7 +26,8 @@ export type ServerAction = (prev: ActionState, payload: ActionPayload) => Promis
 export type ActionPayload = FormData | Record<string, unknown>;
 
 export function formValues(payload: ActionPayload): Record<string, unknown> {
-  if (!(payload instanceof FormData)) return payload;
+  if (!(payload instanceof FormData))
+    return typeof payload === "object" && payload !== null && !Array.isArray(payload) ? payload : {};
   const out: Record<string, unknown> = {};
   for (const [key, value] of payload.entries()) if (typeof value === "string") out[key] = value;
   return out;
@@ -42,6 +43,9 @@ export async function runAction(
   fn: (caller: Caller, values: Record<string, unknown>) => Promise<ActionState>,
   opts: { secret?: string[] } = {},
 ): Promise<ActionState> {
+  // A hand-made request may send any JSON in place of the form: not a form, nothing to run.
+  if (!(payload instanceof FormData) && (typeof payload !== "object" || payload === null || Array.isArray(payload)))
+    return { ok: false, message: "The form data could not be read. Reload the page and try again." };
   const values = formValues(payload);
   const keep = Object.fromEntries(Object.entries(values).filter(([k]) => !(opts.secret ?? []).includes(k)));
   try {

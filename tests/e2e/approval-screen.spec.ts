@@ -140,12 +140,17 @@ test("medical lead: the breach is listed and Approve is off before any click; se
   );
 });
 
-test("medical lead: with the exception recorded, edition 2 shows it with its recorder and is approved", async ({
+test("medical lead: with the exception recorded, edition 2 shows it with its recorder; the lead who recorded it may not approve it, a manager does", async ({
   page,
+  browser,
 }) => {
   const { revision, exceptions } = await (await lead.get("/api/v1/labs/demo/rules")).json();
   const put = await lead.put("/api/v1/labs/demo/rules", {
-    data: { exceptions: [...exceptions, { chartId: state.chartId, rule: "law", reason: EXCEPTION }], revision },
+    data: {
+      exceptions: [...exceptions, { chartId: state.chartId, rule: "law", reason: EXCEPTION }],
+      managersMayApprove: true,
+      revision,
+    },
   });
   expect(put.status()).toBe(200);
   await newEdition(2);
@@ -157,9 +162,19 @@ test("medical lead: with the exception recorded, edition 2 shows it with its rec
   await expectPrintedItems(page);
   await page.getByLabel(/I have reviewed every changed cell/).check();
   await page.getByRole("button", { name: "Approve edition 2" }).click();
-  await expect(page.getByTestId("edition-state")).toContainText(
+  // Four eyes: the exception the lead recorded is a change to what this edition prints.
+  await expect(page.getByRole("alert").filter({ hasText: "four eyes" })).toContainText("exceptions for this chart");
+
+  const ctx = await browser.newContext();
+  const mp = await ctx.newPage();
+  await signInPage(mp, demoEmail("manager"));
+  await mp.goto(`/labs/demo/sign-off/${state.ed[2]}`);
+  await mp.getByLabel(/I have reviewed every changed cell/).check();
+  await mp.getByRole("button", { name: "Approve edition 2" }).click();
+  await expect(mp.getByTestId("edition-state")).toContainText(
     /Edition 2 is approved by .+ It replaced no earlier edition\./,
   );
+  await ctx.close();
   expect(await diffAgainst(lead, 2)).toBeNull();
 });
 

@@ -13,7 +13,15 @@ const SWITCH = "NC family A (illustrative) 3.75 mm in stock";
 async function setInStock(page: Page, inStock: boolean) {
   await page.goto("/labs/demo/stock");
   const toggle = page.getByRole("switch", { name: SWITCH });
-  if ((await toggle.getAttribute("aria-checked")) !== String(inStock)) await toggle.click();
+  if ((await toggle.getAttribute("aria-checked")) !== String(inStock)) {
+    await toggle.click();
+    if (!inStock) {
+      // The size is printed on a posted copy: the manager is told which room before it is saved.
+      const dialog = page.getByRole("dialog");
+      await expect(dialog).toContainText("Posted copies will go out of date");
+      await dialog.getByRole("button", { name: "Mark out of stock" }).click();
+    }
+  }
   await expect(toggle).toHaveAttribute("aria-checked", String(inStock));
   await expect(page.getByText(`3.75 mm marked ${inStock ? "in stock" : "out of stock"}`)).toBeVisible();
 }

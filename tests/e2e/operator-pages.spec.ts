@@ -71,7 +71,9 @@ for (const size of SIZES) {
     for (const { who, path } of list) {
       const page = who === anon ? anonPage : op;
       await page.goto(path);
-      await page.waitForLoadState("networkidle");
+      // Not "networkidle": the service worker may keep filling its cache in the background.
+      await page.waitForLoadState("load");
+      await expect(page.locator("main h1, main h2").first()).toBeVisible();
       // The phone menu's items count too.
       expect(await smallTargets(page), `${path} at ${size.width}`).toEqual([]);
       expect(await seriousViolations(page), `${path} at ${size.width}`).toEqual([]);

@@ -24,7 +24,8 @@ export async function updateLabSettingsAction(_prev: ActionState, payload: Actio
 /** A new machine token (`slug`, `name`, `scopes` one or more): the token comes back once, in `data.token`. */
 export async function createTokenAction(_prev: ActionState, payload: ActionPayload): Promise<ActionState> {
   // A form sends one `scopes` field per ticked box.
-  const scopes = payload instanceof FormData ? payload.getAll("scopes") : payload.scopes;
+  const scopes =
+    payload instanceof FormData ? payload.getAll("scopes") : (payload as { scopes?: unknown } | null)?.scopes;
   return runAction(payload, async (caller, { slug, name }) => {
     const created = await createToken(caller, { lab: String(slug) }, { name, scopes });
     revalidatePath(`/labs/${String(slug)}/settings`);
