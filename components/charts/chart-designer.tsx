@@ -13,6 +13,7 @@ import { FieldError } from "@/components/ui/field";
 import { cardAfterRemovingLookup } from "@/lib/charts/card-choice";
 import { defaultLookup } from "@/lib/charts/defaults";
 import type { LabStock } from "@/lib/charts/snapshot";
+import type { LabRules } from "@/lib/labs/rules";
 import { ORIENTATIONS, PAPER_IDS, PAPERS } from "@/lib/poster/paper";
 import {
   FINET_DEFAULT_RATIO,
@@ -65,6 +66,7 @@ export function ChartDesigner({
   labName,
   logoSha256 = null,
   canEdit,
+  labRules,
 }: {
   slug: string;
   chartId: number | null;
@@ -73,6 +75,7 @@ export function ChartDesigner({
   labName: string;
   logoSha256?: string | null;
   canEdit: boolean;
+  labRules?: LabRules;
 }) {
   const router = useRouter();
   const { run: save, pending } = useServerAction(saveChartAction, { refresh: false });
@@ -390,7 +393,7 @@ export function ChartDesigner({
       <section aria-label="Live preview" className="min-w-0">
         <h2 className="text-lg font-semibold">Live preview</h2>
         {preview.success ? (
-          <ChartPreview definition={preview.data} stock={stock} labName={labName} logoSha256={logoSha256} />
+          <ChartPreview {...{ stock, labName, logoSha256, labRules, chartId }} definition={preview.data} />
         ) : (
           <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">
             Correct the highlighted fields to see the preview.

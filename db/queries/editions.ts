@@ -148,6 +148,7 @@ export async function createEdition(
     stock,
     logoSha256: chart.logoSha256 ?? null,
     ruleExceptions: checkChartAgainstRules(chartId, ruledDefinition(definition), rules).applied,
+    labLimits: rules.lookups,
   });
   const problems = snapshotProblems(snapshot, definition);
   if (problems.length) throw new AppError("unprocessable", problems.join(" "));

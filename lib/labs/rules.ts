@@ -84,6 +84,12 @@ export const ruleExceptionSchema = z
       minMessage: "Give the reason for the exception",
       maxMessage: "Keep the reason under 300 characters",
     }),
+    // Stamped by the server when the exception is recorded (lib/labs/rules.ts stampExceptions); sent values are ignored.
+    recordedBy: z.string().max(200).optional(),
+    recordedOn: z
+      .string()
+      .regex(/^\d{4}-\d{2}-\d{2}$/)
+      .optional(),
   })
   .strict();
 
@@ -240,27 +246,46 @@ export type RuledChart = {
   caps: RoundingCaps;
 };
 
-export type RuleIssue = { rule: RuleId; path: (string | number)[]; message: string };
+export type RuleIssue = {
+  rule: RuleId;
+  path: (string | number)[];
+  message: string;
+  /** What an exception to this breach relaxes, in the poster's words. */
+  relaxes?: string;
+};
+
+/** An exception in force, as the poster, the card and the designer print it. */
+export type AppliedException = {
+  rule: string;
+  reason: string;
+  /** The rule or cap it relaxes, in words ("up to 0.5 mm above target; the lab's cap is 0.25 mm"). */
+  relaxes?: string;
+  recordedBy?: string;
+  recordedOn?: string;
+};
 
 const lawName = (id: LawId) => LAWS[id].name;
+const mm2 = (x: number) => x.toFixed(2);
 
 /** Every lab rule the chart breaks, waived or not. */
 export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
   const issues: RuleIssue[] = [];
   chart.lookups.forEach((l, i) => {
     const r = rules.lookups[l.kind];
-    const kind = KIND_LABELS[l.kind].toLowerCase();
+    const kind = KIND_LABELS[l.kind].replace(/^(Side|Main)/, (m) => m.toLowerCase());
     if (!r.laws.includes(chart.law.law))
       issues.push({
         rule: "law",
         path: ["law"],
         message: `Lab rule "laws allowed": the medical lead allows ${r.laws.map(lawName).join(", ")} for a ${kind}, not ${lawName(chart.law.law)}`,
+        relaxes: `${lawName(chart.law.law)} for a ${kind}; the lab allows ${r.laws.map(lawName).join(", ")}`,
       });
     if (!r.rounding.includes(l.rounding))
       issues.push({
         rule: "rounding",
         path: ["lookups", i, "rounding"],
         message: `Lab rule "rounding rules allowed": a ${kind} rounds ${r.rounding.join(" or ")} in this lab, not ${l.rounding}`,
+        relaxes: `a ${kind} rounds ${l.rounding}; the lab allows ${r.rounding.join(" or ")}`,
       });
     for (const side of ["upMm", "downMm"] as const)
       if (chart.caps[side] > r.caps[side] + 1e-9)
@@ -268,6 +293,7 @@ export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
           rule: "caps",
           path: ["roundingCaps", side],
           message: `Lab rule "rounding caps": a ${kind} may be at most ${r.caps[side]} mm ${side === "upMm" ? "above" : "below"} its target in this lab; the chart allows ${chart.caps[side]} mm`,
+          relaxes: `up to ${mm2(chart.caps[side])} mm ${side === "upMm" ? "above" : "below"} target (the lab's cap for a ${kind}: ${mm2(r.caps[side])} mm; cells beyond it keep their mark)`,
         });
   });
   // One issue per rule and field is enough to act on.
@@ -287,7 +313,7 @@ export function checkChartAgainstRules(
   chartId: number,
   chart: RuledChart,
   rules: LabRules,
-): { issues: RuleIssue[]; applied: { rule: string; reason: string }[] } {
+): { issues: RuleIssue[]; applied: AppliedException[] } {
   const own = rules.exceptions.filter((e) => e.chartId === chartId);
   const all = labRuleIssues(chart, rules);
   const waived = new Set(own.map((e) => e.rule));
@@ -296,8 +322,39 @@ export function checkChartAgainstRules(
     issues: all.filter((i) => !waived.has(i.rule)),
     applied: own
       .filter((e) => e.rule === "legibility" || broken.has(e.rule))
-      .map((e) => ({ rule: e.rule, reason: e.reason })),
+      .map((e) => ({
+        rule: e.rule,
+        reason: e.reason,
+        relaxes: relaxedWords(e.rule, all),
+        ...(e.recordedBy ? { recordedBy: e.recordedBy } : {}),
+        ...(e.recordedOn ? { recordedOn: e.recordedOn } : {}),
+      })),
   };
+}
+
+/** What an exception relaxes, from the breaches it excuses. */
+function relaxedWords(rule: RuleId, issues: readonly RuleIssue[]): string {
+  if (rule === "legibility") return "figures sized for a reader nearer than the stated reading distance";
+  return issues
+    .filter((i) => i.rule === rule)
+    .map((i) => i.relaxes ?? i.message)
+    .join("; ");
+}
+
+/**
+ * Exceptions as stored: one already recorded (same chart, rule and reason) keeps who recorded it
+ * and when; a new or changed one is stamped with `by` and `on`. Sent stamps are never trusted.
+ */
+export function stampExceptions(
+  before: readonly RuleException[],
+  after: readonly RuleException[],
+  by: string,
+  on: string,
+): RuleException[] {
+  return after.map(({ chartId, rule, reason }) => {
+    const old = before.find((b) => b.chartId === chartId && b.rule === rule && b.reason === reason);
+    return { chartId, rule, reason, recordedBy: old?.recordedBy ?? by, recordedOn: old?.recordedOn ?? on };
+  });
 }
 
 /** A chart definition as the rules see it. */

@@ -267,9 +267,19 @@ export type LegendContext = {
   stentName: string | null;
   hasProximal: boolean;
   hasReach: boolean;
-  /** The chart's rounding caps; the defaults when absent. */
+  /** The caps the marks were drawn against; the defaults when absent. */
   caps?: RoundingCaps;
+  /** When lookups differ in caps (the lab's caps are per lookup kind): each lookup's, named. */
+  capsByLookup?: readonly { name: string; caps: RoundingCaps }[];
 };
+
+/** "0.25 mm", or "0.25 mm (POT), 0.5 mm (side branch)" when the lookups differ. */
+function capWords(ctx: LegendContext, side: keyof RoundingCaps): string {
+  const each = ctx.capsByLookup ?? [];
+  const values = new Set(each.map((c) => c.caps[side]));
+  if (values.size > 1) return each.map((c) => `${formatSizeMm(c.caps[side])} mm (${c.name})`).join(", ");
+  return `${formatSizeMm((ctx.caps ?? { upMm: 0.25, downMm: 0.5 })[side])} mm`;
+}
 
 /** Legend lines for a poster: how to read a cell, then each mark made specific to its law and stent. */
 export function legendEntries(ctx: LegendContext): LegendEntry[] {
@@ -280,10 +290,9 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
       return `POT balloon at rated burst pressure (by its growth; at nominal where none is recorded) above the maximum post-dilatation diameter of any ${ctx.stentName} stent an operator might size to the main branch (the nearest nominal at or below it up to the nearest at or above it), or no stent of it covers the main branch; orange, heavy border.`;
     }
     if (m === "oversize" || m === "undersize") {
-      const caps = ctx.caps ?? { upMm: 0.25, downMm: 0.5 };
       return m === "oversize"
-        ? `The printed balloon is more than ${formatSizeMm(caps.upMm)} mm above the exact diameter (the lab's cap; a gap in stock): choose with care.`
-        : `The printed balloon is more than ${formatSizeMm(caps.downMm)} mm below the exact diameter (the lab's cap; a gap in stock): choose with care.`;
+        ? `The printed balloon is more than ${capWords(ctx, "upMm")} above the exact diameter (the lab's cap; a gap in stock): choose with care.`
+        : `The printed balloon is more than ${capWords(ctx, "downMm")} below the exact diameter (the lab's cap; a gap in stock): choose with care.`;
     }
     if (m === "outsideFit") {
       switch (ctx.law.law) {

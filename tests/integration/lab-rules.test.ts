@@ -172,8 +172,14 @@ describe("lab rules per lookup kind", () => {
     expect(ok.status).toBe("approved");
     const [row] = await db.select().from(editions).where(eq(editions.id, next.id));
     expect((row!.snapshot as { ruleExceptions?: unknown }).ruleExceptions).toEqual([
-      { rule: "law", reason: "Murray agreed for the teaching room" },
-      { rule: "legibility", reason: "Hangs beside the table" },
+      expect.objectContaining({
+        rule: "law",
+        reason: "Murray agreed for the teaching room",
+        relaxes: "Murray for a POT (proximal) lookup; the lab allows Finet, Huo-Kassab",
+        recordedBy: team.people.lead.name,
+        recordedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/),
+      }),
+      expect.objectContaining({ rule: "legibility", reason: "Hangs beside the table" }),
     ]);
   });
 

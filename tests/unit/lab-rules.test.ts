@@ -8,6 +8,7 @@ import {
   mergeLabRules,
   readLabRules,
   reviewByDate,
+  stampExceptions,
   type LabRules,
   type RuledChart,
 } from "@/lib/labs/rules";
@@ -113,8 +114,16 @@ describe("lab rules", () => {
     const after = checkChartAgainstRules(7, potChart, excepted);
     expect(after.issues.map((i) => i.rule)).toEqual(["caps"]);
     expect(after.applied).toEqual([
-      { rule: "law", reason: "Murray agreed for the teaching chart" },
-      { rule: "legibility", reason: "Hung at the table" },
+      {
+        rule: "law",
+        reason: "Murray agreed for the teaching chart",
+        relaxes: "Murray for a POT (proximal) lookup; the lab allows Finet, Huo-Kassab",
+      },
+      {
+        rule: "legibility",
+        reason: "Hung at the table",
+        relaxes: "figures sized for a reader nearer than the stated reading distance",
+      },
     ]);
     expect(
       checkChartAgainstRules(
@@ -123,6 +132,23 @@ describe("lab rules", () => {
         strict,
       ).issues.map((i) => i.rule),
     ).toContain("rounding");
+  });
+
+  it("an exception keeps who recorded it and when; a new or changed one is stamped, sent stamps ignored", () => {
+    const before = [{ chartId: 1, rule: "caps" as const, reason: "Gap", recordedBy: "Ann", recordedOn: "2026-01-02" }];
+    const after = stampExceptions(
+      before,
+      [
+        { chartId: 1, rule: "caps", reason: "Gap", recordedBy: "Forged", recordedOn: "1999-01-01" },
+        { chartId: 2, rule: "law", reason: "New", recordedBy: "Forged" },
+      ],
+      "Bea",
+      "2026-12-05",
+    );
+    expect(after).toEqual([
+      { chartId: 1, rule: "caps", reason: "Gap", recordedBy: "Ann", recordedOn: "2026-01-02" },
+      { chartId: 2, rule: "law", reason: "New", recordedBy: "Bea", recordedOn: "2026-12-05" },
+    ]);
   });
 
   it("new charts start from the lab's default law, an allowed rounding and its caps", () => {

@@ -1,6 +1,7 @@
 import { Document, Page, Path, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { snapshotGrids } from "@/lib/charts/snapshot";
-import { CARD_HEAD_LINES, cardGrid, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
+import { CARD_HEAD_LINES, cardGrid, cardKeyLines, cardSides, layoutCard, type CardLayout } from "@/lib/poster/card";
+import { cardExceptionLine } from "@/lib/poster/exceptions";
 import { gridTextRuns } from "@/lib/poster/cell-text";
 import { localiseNumbers, lookupTitle, statusBanner, VESSEL_SYMBOLS } from "@/lib/poster/labels";
 import { cellView, MARKS, MARK_ORDER, PALETTE, type MarkId } from "@/lib/poster/marks";
@@ -100,6 +101,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
         {loc(
           ["Large: balloon, mm; small: exact", ...used.map((m) => `${MARKS[m].symbol} ${KEY_WORDS[m]}`)].join(" · "),
         )}
+        {(snapshot.ruleExceptions ?? []).map((e) => `\n${cardExceptionLine(e)}`).join("")}
       </Text>
       <View
         style={{
@@ -123,6 +125,7 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
 export function CardDocument({ input }: { input: PosterInput }) {
   const { snapshot, edition } = input;
   const grids = snapshotGrids(snapshot);
+  const keyLines = cardKeyLines(snapshot);
   const created = edition.approvedAt ?? POSTER_EPOCH;
   return (
     <Document
@@ -138,8 +141,8 @@ export function CardDocument({ input }: { input: PosterInput }) {
     >
       {cardSides(snapshot).map((side, i) => {
         const full = grids[side.lookup] ?? (grids[0] as Grid);
-        const grid = cardGrid(full, side);
-        return <Side key={i} input={input} grid={grid} l={layoutCard(grid)} />;
+        const grid = cardGrid(full, side, keyLines);
+        return <Side key={i} input={input} grid={grid} l={layoutCard(grid, keyLines)} />;
       })}
     </Document>
   );

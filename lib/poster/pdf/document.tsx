@@ -32,6 +32,7 @@ import {
   type PosterLayout,
 } from "@/lib/poster/layout";
 import { cellView, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
+import { exceptionLine } from "@/lib/poster/exceptions";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
@@ -560,8 +561,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
           </Text>
           {(snapshot.ruleExceptions ?? []).map((e, i) => (
             <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
-              <Text style={{ fontWeight: 700 }}>{`Exception to the lab rule “${e.rule}”: `}</Text>
-              {e.reason}
+              {exceptionLine(e)}
             </Text>
           ))}
           {snapshot.notes ? (
