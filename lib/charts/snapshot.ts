@@ -2,6 +2,7 @@ import { cautionFor } from "@/lib/cautions";
 import type { Orientation, PaperId } from "@/lib/poster/paper";
 import {
   buildGrid,
+  DEFAULT_RBP_HEADROOM_ATM,
   DEFAULT_ROUNDING_CAPS,
   STOCK_TOLERANCE_MM,
   type RoundingCaps,
@@ -39,10 +40,12 @@ export type SnapshotLookup = {
   family: BalloonFamilyStock | null;
   /** The caps marks are drawn against when the lab's are stricter than the chart's; absent: the snapshot's caps. */
   caps?: RoundingCaps;
+  /** Reach lookups: the lab's headroom below rated burst pressure, atm (absent: DEFAULT_RBP_HEADROOM_ATM). */
+  headroomAtm?: number;
 };
 
 /** What the lab's rules hold for one lookup kind that decides marks (LabRules["lookups"] fits). */
-export type LookupLimits = { caps: RoundingCaps };
+export type LookupLimits = { caps: RoundingCaps; rbpHeadroomAtm?: number };
 
 /** The stricter of the chart's caps and the lab's: an exception excuses a wider cap, it never hides the mark. */
 export function markingCaps(chart: RoundingCaps, lab: RoundingCaps | undefined): RoundingCaps {
@@ -163,6 +166,9 @@ export function buildSnapshot(input: {
       family,
       // Only when stricter than the chart's, so charts within the lab's caps keep their fingerprints.
       ...(caps.upMm !== chartCaps.upMm || caps.downMm !== chartCaps.downMm ? { caps } : {}),
+      ...(l.rounding === "reach"
+        ? { headroomAtm: input.labLimits?.[l.kind].rbpHeadroomAtm ?? DEFAULT_RBP_HEADROOM_ATM }
+        : {}),
     };
   });
   const platform = def.stentPlatformId ? stock.stentPlatforms.find((p) => p.id === def.stentPlatformId) : undefined;
@@ -217,6 +223,7 @@ export function lookupGrid(snapshot: Snapshot, l: Snapshot["lookups"][number], f
     family,
     stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
     caps: lookupCaps(snapshot, l),
+    headroomAtm: l.headroomAtm ?? DEFAULT_RBP_HEADROOM_ATM,
   });
 }
 

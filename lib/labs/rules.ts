@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ALLOWED_ROUNDING } from "@/lib/charts/rules";
 import {
+  DEFAULT_RBP_HEADROOM_ATM,
   DEFAULT_ROUNDING,
   DEFAULT_ROUNDING_CAPS,
   FINET_DEFAULT_RATIO,
@@ -65,6 +66,10 @@ const lookupRulesSchema = z
     caps: z
       .object({ upMm: capSchema("above"), downMm: capSchema("below") }, { error: "Caps must be { upMm, downMm }" })
       .strict(),
+    rbpHeadroomAtm: z
+      .number({ error: "The headroom below rated burst pressure must be a number of atm" })
+      .min(0, { error: "The headroom below rated burst pressure must be 0 atm or more" })
+      .max(5, { error: "The headroom below rated burst pressure must be at most 5 atm" }),
   })
   .strict();
 
@@ -193,6 +198,7 @@ const defaultLookupRules = (kind: LookupKind): LookupRules => ({
   defaultLaw: { law: "finet", ratio: FINET_DEFAULT_RATIO },
   rounding: [...ALLOWED_ROUNDING[kind]],
   caps: { ...DEFAULT_ROUNDING_CAPS },
+  rbpHeadroomAtm: DEFAULT_RBP_HEADROOM_ATM,
 });
 
 // The defaults allow everything the clinical guardrails allow, so a lab without rules behaves as before.

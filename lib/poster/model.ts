@@ -31,6 +31,7 @@ export function posterLegend(snapshot: Snapshot, grids: readonly Grid[] = snapsh
     hasProximal: snapshot.lookups.some((l) => l.kind === "proximal"),
     hasReach: snapshot.lookups.some((l) => l.rounding === "reach"),
     caps: snapshot.lookups[0] ? lookupCaps(snapshot, snapshot.lookups[0]) : snapshot.caps,
+    headroomAtm: grids.find((g) => g.rounding === "reach")?.headroomAtm,
     capsByLookup: snapshot.lookups.map((l) => ({ name: CAP_NAMES[l.kind], caps: lookupCaps(snapshot, l) })),
   });
   return all.flatMap((e) => {

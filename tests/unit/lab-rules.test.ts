@@ -28,6 +28,7 @@ const strict: LabRules = {
       defaultLaw: { law: "huo-kassab" },
       rounding: ["up"],
       caps: { upMm: 0.25, downMm: 0.25 },
+      rbpHeadroomAtm: 1,
     },
   },
 };

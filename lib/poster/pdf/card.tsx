@@ -25,6 +25,7 @@ const KEY_WORDS: Record<MarkId, string> = {
   oversize: "above cap",
   undersize: "below cap",
   outsideFit: "outside fit",
+  nearRbp: "near RBP",
 };
 
 function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayout }) {

@@ -31,7 +31,15 @@ import {
   type GridLayout,
   type PosterLayout,
 } from "@/lib/poster/layout";
-import { cellView, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
+import {
+  cellView,
+  CORNER_MARKS,
+  MARKS,
+  PALETTE,
+  type CellView,
+  type LegendEntry,
+  type MarkId,
+} from "@/lib/poster/marks";
 import { exceptionLine } from "@/lib/poster/exceptions";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
@@ -116,8 +124,7 @@ function swatchView(mark: MarkId | "sized"): CellView {
   const def = mark === "sized" ? null : MARKS[mark];
   return {
     primary: mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5",
-    primaryIsSize:
-      mark === "sized" || mark === "hazard" || mark === "oversize" || mark === "undersize" || mark === "outsideFit",
+    primaryIsSize: mark === "sized" || CORNER_MARKS.includes(mark),
     pressure: null,
     exact: mark === "noSize" ? null : "(3.42)",
     marks: def ? [def.id] : [],
