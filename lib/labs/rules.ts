@@ -7,6 +7,9 @@ import {
   FINET_DEFAULT_RATIO,
   LAW_IDS,
   LAWS,
+  POWER_N_MAX,
+  POWER_N_MIN,
+  formatConstant,
   type LawId,
   type LawSpec,
   type LookupKind,
@@ -24,13 +27,14 @@ import { freeText } from "@/lib/validation/text";
  */
 
 /** The rules a chart can break, and so the rules an exception can name ("legibility" is the poster's size gate). */
-export const RULE_IDS = ["law", "rounding", "caps", "legibility"] as const;
+export const RULE_IDS = ["law", "rounding", "caps", "exponent", "legibility"] as const;
 export type RuleId = (typeof RULE_IDS)[number];
 
 export const RULE_LABELS: Readonly<Record<RuleId, string>> = {
   law: "Laws allowed",
   rounding: "Rounding rules allowed",
   caps: "Rounding caps",
+  exponent: "Power-law exponent range",
   legibility: "Legibility at reading distance",
 };
 
@@ -45,6 +49,15 @@ const capSchema = (what: string) =>
     .number({ error: `The cap ${what} must be a number of millimetres` })
     .min(0, { error: `The cap ${what} must be 0 mm or more` })
     .max(ROUNDING_CAP_MAX_MM, { error: `The cap ${what} must be at most ${ROUNDING_CAP_MAX_MM} mm` });
+
+const exponentSchema = (what: string) =>
+  z
+    .number({ error: `The ${what} power-law exponent must be a number` })
+    .min(POWER_N_MIN, { error: `The ${what} power-law exponent must be at least ${POWER_N_MIN}` })
+    .max(POWER_N_MAX, { error: `The ${what} power-law exponent must be at most ${POWER_N_MAX}` });
+
+/** Between the square law (n = 2) and Murray's law (n = 3): the span of the published power-form laws. */
+export const DEFAULT_POWER_RANGE = { min: 2, max: 3 } as const;
 
 const lookupRulesSchema = z
   .object({
@@ -66,6 +79,16 @@ const lookupRulesSchema = z
     caps: z
       .object({ upMm: capSchema("above"), downMm: capSchema("below") }, { error: "Caps must be { upMm, downMm }" })
       .strict(),
+    powerRange: z
+      .object(
+        {
+          min: exponentSchema("lowest"),
+          max: exponentSchema("highest"),
+        },
+        { error: "The exponent range must be { min, max }" },
+      )
+      .strict()
+      .refine((r) => r.min <= r.max, { error: "The lowest exponent must not exceed the highest", path: ["max"] }),
     rbpHeadroomAtm: z
       .number({ error: "The headroom below rated burst pressure must be a number of atm" })
       .min(0, { error: "The headroom below rated burst pressure must be 0 atm or more" })
@@ -134,6 +157,13 @@ function checkConsistency(
         path: ["lookups", kind, "defaultLaw"],
         message: `The default law (${LAWS[r.defaultLaw.law].name}) must be one of the laws allowed`,
       });
+    const d = r.defaultLaw;
+    if (d?.law === "power" && r.powerRange && (d.n < r.powerRange.min || d.n > r.powerRange.max))
+      ctx.addIssue({
+        code: "custom",
+        path: ["lookups", kind, "defaultLaw"],
+        message: `The default exponent (${formatConstant(d.n)}) must lie within the exponent range`,
+      });
     r.rounding?.forEach((rule, i) => {
       if (!ALLOWED_ROUNDING[kind].includes(rule))
         ctx.addIssue({
@@ -198,6 +228,7 @@ const defaultLookupRules = (kind: LookupKind): LookupRules => ({
   defaultLaw: { law: "finet", ratio: FINET_DEFAULT_RATIO },
   rounding: [...ALLOWED_ROUNDING[kind]],
   caps: { ...DEFAULT_ROUNDING_CAPS },
+  powerRange: { ...DEFAULT_POWER_RANGE },
   rbpHeadroomAtm: DEFAULT_RBP_HEADROOM_ATM,
 });
 
@@ -292,6 +323,14 @@ export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
         path: ["lookups", i, "rounding"],
         message: `Lab rule "rounding rules allowed": a ${kind} rounds ${r.rounding.join(" or ")} in this lab, not ${l.rounding}`,
         relaxes: `a ${kind} rounds ${l.rounding}; the lab allows ${r.rounding.join(" or ")}`,
+      });
+    const n = chart.law.law === "power" ? chart.law.n : null;
+    if (n !== null && (n < r.powerRange.min - 1e-9 || n > r.powerRange.max + 1e-9))
+      issues.push({
+        rule: "exponent",
+        path: ["law", "n"],
+        message: `Lab rule "power-law exponent range": a ${kind} uses an exponent from ${formatConstant(r.powerRange.min)} to ${formatConstant(r.powerRange.max)} in this lab; the chart uses ${formatConstant(n)}`,
+        relaxes: `power-law exponent n = ${formatConstant(n)} (the lab's range for a ${kind}: ${formatConstant(r.powerRange.min)} to ${formatConstant(r.powerRange.max)})`,
       });
     for (const side of ["upMm", "downMm"] as const)
       if (chart.caps[side] > r.caps[side] + 1e-9)

@@ -6,6 +6,7 @@ const EXCEPTION_HEADS: Readonly<Record<string, string>> = {
   law: "Law exception",
   rounding: "Rounding exception",
   caps: "Caps exception",
+  exponent: "Exponent exception",
   legibility: "Legibility exception",
 };
 

@@ -1,7 +1,7 @@
 // From a frozen snapshot to what the layout and the legend need: used by the poster, and by the
 // designer page to show legibility before anything is rendered.
 import { lookupCaps, snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
-import { LAWS, lawFormula, lawName, type Grid } from "@/lib/sizing";
+import { lawCitation, lawFormula, lawName, type Grid } from "@/lib/sizing";
 import { gridSubtitleParts, lookupTitle, statusBanner } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
 import { exceptionLine } from "./exceptions";
@@ -70,7 +70,7 @@ export function layoutInputFor(
     texts: {
       title: snapshot.title.length,
       law: lawHeading(snapshot).length,
-      source: LAWS[snapshot.law.law].source.length,
+      source: lawCitation(snapshot.law).length,
       notes: snapshot.notes.length,
       exceptions: (snapshot.ruleExceptions ?? []).map((e) => exceptionLine(e).length),
       caution: snapshot.caution.length,

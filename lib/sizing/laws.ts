@@ -92,6 +92,25 @@ export const LAWS: Readonly<Record<LawId, LawInfo>> = {
   },
 };
 
+/** The exponents Taylor DJ et al. (Front Physiol 2022, doi 10.3389/fphys.2022.871912) fitted in human coronaries. */
+export const POWER_FITTED_N_MIN = 2.15;
+export const POWER_FITTED_N_MAX = 2.38;
+
+/**
+ * The citation printed under a chart: the law's source; for the power law, the exponent used and
+ * whether it lies within the cited study's fitted range, in plain words.
+ */
+export function lawCitation(spec: LawSpec): string {
+  if (spec.law !== "power") return LAWS[spec.law].source;
+  const n = formatConstant(spec.n);
+  const inside = spec.n >= POWER_FITTED_N_MIN - 1e-9 && spec.n <= POWER_FITTED_N_MAX + 1e-9;
+  return `Power law with n = ${n}, chosen by the lab; ${
+    inside ? "within" : "OUTSIDE"
+  } the range n = ${POWER_FITTED_N_MIN} to ${POWER_FITTED_N_MAX} fitted in human coronaries by Taylor DJ et al., Front Physiol 2022, doi 10.3389/fphys.2022.871912${
+    inside ? "" : ": that study does not support this exponent"
+  }`;
+}
+
 /** Short decimal text without floating-point noise (0.678, 2.3, 7/3 -> 2.33333333333). */
 export function formatConstant(x: number): string {
   return String(Number(x.toPrecision(12)));

@@ -74,6 +74,8 @@ describe("lab rules per lookup kind", () => {
       defaultLaw: { law: "finet", ratio: 0.678 },
       rounding: ["up", "nearest", "reach"],
       caps: { upMm: 0.25, downMm: 0.5 },
+      // Between the square law and Murray's law (Huo et al., EuroIntervention 2012 compare both).
+      powerRange: { min: 2, max: 3 },
       // Common practice, no published source: a reach pressure within 1 atm of rated burst pressure is marked.
       rbpHeadroomAtm: 1,
     });

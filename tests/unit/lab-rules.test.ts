@@ -28,6 +28,7 @@ const strict: LabRules = {
       defaultLaw: { law: "huo-kassab" },
       rounding: ["up"],
       caps: { upMm: 0.25, downMm: 0.25 },
+      powerRange: { min: 2, max: 3 },
       rbpHeadroomAtm: 1,
     },
   },
@@ -150,6 +151,27 @@ describe("lab rules", () => {
       { chartId: 1, rule: "caps", reason: "Gap", recordedBy: "Ann", recordedOn: "2026-01-02" },
       { chartId: 2, rule: "law", reason: "New", recordedBy: "Bea", recordedOn: "2026-12-05" },
     ]);
+  });
+
+  it("a power-law exponent outside the lab's range (default 2 to 3, square to Murray) is a breach an exception excuses", () => {
+    const power = (n: number): RuledChart => ({ ...potChart, law: { law: "power", n } });
+    expect(DEFAULT_LAB_RULES.lookups.proximal.powerRange).toEqual({ min: 2, max: 3 });
+    for (const n of [2, 2.3, 3]) expect(checkChartAgainstRules(1, power(n), DEFAULT_LAB_RULES).issues).toEqual([]);
+    const res = checkChartAgainstRules(1, power(1.6), DEFAULT_LAB_RULES);
+    expect(res.issues.map((i) => [i.rule, i.path.join(".")])).toEqual([["exponent", "law.n"]]);
+    expect(res.issues[0]!.message).toContain("from 2 to 3 in this lab; the chart uses 1.6");
+    const waived = checkChartAgainstRules(1, power(3.2), {
+      ...DEFAULT_LAB_RULES,
+      exceptions: [{ chartId: 1, rule: "exponent", reason: "Teaching chart" }],
+    });
+    expect(waived.issues).toEqual([]);
+    expect(waived.applied[0]!.relaxes).toBe(
+      "power-law exponent n = 3.2 (the lab's range for a POT (proximal) lookup: 2 to 3)",
+    );
+    const bad = labRulesPatchSchema.safeParse({ lookups: { proximal: { powerRange: { min: 2.5, max: 2.2 } } } });
+    expect(bad.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.max");
+    const wide = labRulesPatchSchema.safeParse({ lookups: { proximal: { powerRange: { min: 1, max: 3 } } } });
+    expect(wide.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.min");
   });
 
   it("new charts start from the lab's default law, an allowed rounding and its caps", () => {

@@ -44,7 +44,7 @@ import { exceptionLine } from "@/lib/poster/exceptions";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
-import { lawFormula, lawName, LAWS, type Grid } from "@/lib/sizing";
+import { lawCitation, lawFormula, lawName, type Grid } from "@/lib/sizing";
 
 export type PosterInput = {
   snapshot: Snapshot;
@@ -502,7 +502,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
             )}
           </Text>
           <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
-            {LAWS[snapshot.law.law].source}
+            {lawCitation(snapshot.law)}
           </Text>
         </View>
 
