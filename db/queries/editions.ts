@@ -5,10 +5,9 @@ import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
-import { DEFAULT_ROUNDING_CAPS } from "@/lib/sizing";
 import { newShortCode } from "@/lib/editions/short-code";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
-import { checkChartAgainstRules, ruledDefinition, reviewByDate } from "@/lib/labs/rules";
+import { checkChartAgainstRules, ruledDefinition, ruledSnapshot, reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
@@ -303,11 +302,7 @@ export async function approveEdition(
   // A chart outside the lab's rules (and not excepted by the medical lead) is never approved.
   const rules = await getLabRules({ labId }, tx);
   const snap = ed.snapshot as Snapshot;
-  const { issues } = checkChartAgainstRules(
-    ed.chartId,
-    { law: snap.law, lookups: snap.lookups, caps: snap.caps ?? DEFAULT_ROUNDING_CAPS },
-    rules,
-  );
+  const { issues } = checkChartAgainstRules(ed.chartId, ruledSnapshot(snap), rules);
   if (issues.length)
     throw new AppError(
       "unprocessable",

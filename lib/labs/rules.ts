@@ -27,7 +27,7 @@ import { freeText } from "@/lib/validation/text";
  */
 
 /** The rules a chart can break, and so the rules an exception can name ("legibility" is the poster's size gate). */
-export const RULE_IDS = ["law", "rounding", "caps", "exponent", "legibility"] as const;
+export const RULE_IDS = ["law", "rounding", "caps", "exponent", "no-stent-check", "legibility"] as const;
 export type RuleId = (typeof RULE_IDS)[number];
 
 export const RULE_LABELS: Readonly<Record<RuleId, string>> = {
@@ -35,6 +35,7 @@ export const RULE_LABELS: Readonly<Record<RuleId, string>> = {
   rounding: "Rounding rules allowed",
   caps: "Rounding caps",
   exponent: "Power-law exponent range",
+  "no-stent-check": "POT checked against a stent platform",
   legibility: "Legibility at reading distance",
 };
 
@@ -276,11 +277,12 @@ export function changedRules(before: LabRules, after: LabRules): (keyof LabRules
   );
 }
 
-/** What a chart or a frozen snapshot says about the rules: its law, its lookups and its caps. */
+/** What a chart or a frozen snapshot says about the rules: its law, its lookups, its caps and whether it names a stent platform. */
 export type RuledChart = {
   law: LawSpec;
   lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
   caps: RoundingCaps;
+  stentPlatform: boolean;
 };
 
 export type RuleIssue = {
@@ -341,6 +343,14 @@ export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
           relaxes: `up to ${mm2(chart.caps[side])} mm ${side === "upMm" ? "above" : "below"} target (the lab's cap for a ${kind}: ${mm2(r.caps[side])} mm; cells beyond it keep their mark)`,
         });
   });
+  const pot = chart.lookups.findIndex((l) => l.kind === "proximal");
+  if (pot >= 0 && !chart.stentPlatform)
+    issues.push({
+      rule: "no-stent-check",
+      path: ["stentPlatformId"],
+      message: `Lab rule "POT checked against a stent platform": a POT lookup needs a stent platform to check its balloons against, unless the medical lead records a no-stent-check exception`,
+      relaxes: "POT balloons are not checked against any stent's maximum post-dilatation diameter",
+    });
   // One issue per rule and field is enough to act on.
   const seen = new Set<string>();
   return issues.filter((i) => {
@@ -407,8 +417,29 @@ export function ruledDefinition(def: {
   law: LawSpec;
   lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
   roundingCaps?: RoundingCaps;
+  stentPlatformId?: number | null;
 }): RuledChart {
-  return { law: def.law, lookups: def.lookups, caps: def.roundingCaps ?? DEFAULT_ROUNDING_CAPS };
+  return {
+    law: def.law,
+    lookups: def.lookups,
+    caps: def.roundingCaps ?? DEFAULT_ROUNDING_CAPS,
+    stentPlatform: Boolean(def.stentPlatformId),
+  };
+}
+
+/** A frozen snapshot as the rules see it (approval checks what the edition froze). */
+export function ruledSnapshot(snap: {
+  law: LawSpec;
+  lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
+  caps?: RoundingCaps;
+  stent: unknown;
+}): RuledChart {
+  return {
+    law: snap.law,
+    lookups: snap.lookups,
+    caps: snap.caps ?? DEFAULT_ROUNDING_CAPS,
+    stentPlatform: snap.stent !== null && snap.stent !== undefined,
+  };
 }
 
 /** Where a new chart starts: the lab's default law, rounding and caps for its first lookup. */

@@ -7,6 +7,7 @@ const EXCEPTION_HEADS: Readonly<Record<string, string>> = {
   rounding: "Rounding exception",
   caps: "Caps exception",
   exponent: "Exponent exception",
+  "no-stent-check": "No-stent-check exception",
   legibility: "Legibility exception",
 };
 

@@ -8,6 +8,8 @@ import {
   mergeLabRules,
   readLabRules,
   reviewByDate,
+  ruledDefinition,
+  ruledSnapshot,
   stampExceptions,
   type LabRules,
   type RuledChart,
@@ -17,6 +19,7 @@ const potChart: RuledChart = {
   law: { law: "murray" },
   lookups: [{ kind: "proximal", rounding: "up" }],
   caps: { upMm: 0.25, downMm: 0.5 },
+  stentPlatform: true,
 };
 
 const strict: LabRules = {
@@ -172,6 +175,29 @@ describe("lab rules", () => {
     expect(bad.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.max");
     const wide = labRulesPatchSchema.safeParse({ lookups: { proximal: { powerRange: { min: 1, max: 3 } } } });
     expect(wide.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.min");
+  });
+
+  it("a POT lookup without a stent platform breaks the rule unless a no-stent-check exception is recorded", () => {
+    const bare: RuledChart = { ...potChart, stentPlatform: false };
+    const res = checkChartAgainstRules(3, bare, DEFAULT_LAB_RULES);
+    expect(res.issues.map((i) => [i.rule, i.path.join(".")])).toEqual([["no-stent-check", "stentPlatformId"]]);
+    // Side and main lookups check no stent.
+    const side: RuledChart = { ...bare, lookups: [{ kind: "side", rounding: "down" }] };
+    expect(checkChartAgainstRules(3, side, DEFAULT_LAB_RULES).issues).toEqual([]);
+    const excused = checkChartAgainstRules(3, bare, {
+      ...DEFAULT_LAB_RULES,
+      exceptions: [{ chartId: 3, rule: "no-stent-check", reason: "No DES used in this room (illustrative)" }],
+    });
+    expect(excused.issues).toEqual([]);
+    expect(excused.applied).toEqual([
+      {
+        rule: "no-stent-check",
+        reason: "No DES used in this room (illustrative)",
+        relaxes: "POT balloons are not checked against any stent's maximum post-dilatation diameter",
+      },
+    ]);
+    expect(ruledDefinition({ ...bare, stentPlatformId: 4 }).stentPlatform).toBe(true);
+    expect(ruledSnapshot({ ...bare, stent: null }).stentPlatform).toBe(false);
   });
 
   it("new charts start from the lab's default law, an allowed rounding and its caps", () => {
