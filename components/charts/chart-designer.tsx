@@ -8,6 +8,7 @@ import { saveChartAction } from "@/app/(lab)/labs/[slug]/charts/actions";
 import { useServerAction } from "@/components/ui/use-server-action";
 import { CardSidesField, type CardIssue } from "@/components/charts/card-sides-field";
 import { ChartPreview } from "@/components/charts/chart-preview";
+import { RuleBreaches } from "@/components/charts/rule-breaches";
 import { Button } from "@/components/ui/button";
 import { FieldError } from "@/components/ui/field";
 import { cardAfterRemovingLookup } from "@/lib/charts/card-choice";
@@ -392,6 +393,7 @@ export function ChartDesigner({
 
       <section aria-label="Live preview" className="min-w-0">
         <h2 className="text-lg font-semibold">Live preview</h2>
+        {preview.success && labRules ? <RuleBreaches {...{ chartId, labRules }} definition={preview.data} /> : null}
         {preview.success ? (
           <ChartPreview {...{ stock, labName, logoSha256, labRules, chartId }} definition={preview.data} />
         ) : (

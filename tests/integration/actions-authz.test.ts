@@ -29,7 +29,10 @@ import { chartDefinitionSchema } from "@/lib/validation/chart";
 import type { SessionUser } from "@/lib/auth/session";
 import { newToken } from "@/lib/auth/tokens";
 import { ACTIONS, type Actor } from "../authz/matrix";
-import { labWithTeam, mailTo, unique } from "./support/fixtures";
+import { labWithTeam, mailTo, unique, stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // The session is the one thing stood in for: who is calling. Everything else is real.
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
@@ -77,6 +80,7 @@ beforeAll(async () => {
   invitationId = row!.id;
 
   const { manager, lead, educator } = team.people;
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({
@@ -134,6 +138,7 @@ function chartDefinition(title = "Fixture POT chart") {
         familyId: wall.familyId,
       },
     ],
+    stentPlatformId: stentId,
     paper: "A3",
     orientation: "landscape",
     readingDistanceM: 1,

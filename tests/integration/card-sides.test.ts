@@ -16,9 +16,12 @@ import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { cardHeadings } from "@/tests/support/card-headings";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { call } from "./support/routes";
 import { createChart } from "./support/writes";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
@@ -57,6 +60,7 @@ async function check(id: number) {
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [nc] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC card", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -86,6 +90,7 @@ beforeAll(async () => {
         cols: [2.5, 3, 3.5, 4],
       },
     ],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1,

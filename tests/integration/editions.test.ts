@@ -10,6 +10,10 @@ import { balloonFamilies, balloons, charts, editions, labs, users } from "@/db/s
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { AppError } from "@/lib/errors";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // An invented lab of its own, so these tests never depend on the demo seed.
 const tag = randomUUID().slice(0, 8);
@@ -34,6 +38,7 @@ beforeAll(async () => {
       .$returningId();
     people[key].id = u!.id;
   }
+  stentId = await stentPlatformFor(labId);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId, name: "NC test family", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2 })
@@ -58,6 +63,7 @@ const definition = () =>
         familyId,
       },
     ],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,

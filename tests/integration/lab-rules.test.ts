@@ -12,7 +12,10 @@ import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
 import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let other: Awaited<ReturnType<typeof labWithTeam>>;
@@ -25,6 +28,7 @@ const definition = (title: string, law: object = { law: "murray" }) =>
     title,
     law,
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,
@@ -53,6 +57,7 @@ const rulesAudit = async () =>
 beforeAll(async () => {
   team = await labWithTeam();
   other = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC rules", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -197,6 +202,7 @@ describe("lab rules per lookup kind", () => {
         title: "Three by three on A4",
         law: { law: "finet", ratio: 0.678 },
         lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [2.5, 2.75, 3], cols: [2, 2.25, 2.5] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 2.5,
@@ -222,22 +228,40 @@ describe("lab rules per lookup kind", () => {
     expect((await getEdition({ labId: team.lab.id, editionId: ed.id }))!.status).toBe("draft");
   });
 
-  it("charts without exceptions freeze no ruleExceptions field; caps above the lab's are refused by name", async () => {
+  it("charts without exceptions freeze no ruleExceptions field; caps above the lab's are refused by name, at creation and at approval", async () => {
+    const wide = {
+      ...definition("Wide caps", { law: "finet", ratio: 0.678 }),
+      roundingCaps: { upMm: 0.5, downMm: 0.5 },
+    };
+    const created = await refusal(chartOps.createChart(as(team.people.educator), { lab: team.lab.slug }, wide));
+    expect(created.status).toBe(400);
+    expect(created.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
+    // Within the rules when created; the lead then lowers the lab's cap, and approval refuses.
     const { id: chartId } = await chartOps.createChart(
       as(team.people.educator),
       { lab: team.lab.slug },
       {
-        ...definition("Wide caps", { law: "finet", ratio: 0.678 }),
-        roundingCaps: { upMm: 0.5, downMm: 0.5 },
+        ...wide,
+        roundingCaps: { upMm: 0.2, downMm: 0.5 },
       },
     );
     const ed = await ops.createEdition(as(team.people.educator), { chartId });
     const [row] = await db.select().from(editions).where(eq(editions.id, ed.id));
     expect(row!.snapshot).not.toHaveProperty("ruleExceptions");
+    await rulesOps.setLabRules(
+      as(team.people.lead),
+      { lab: team.lab.slug },
+      {
+        lookups: { proximal: { caps: { upMm: 0.1, downMm: 0.5 } } },
+      },
+    );
     const err = await refusal(ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }));
-    expect(err.status).toBe(422);
-    expect(err.message).toMatch(/rounding caps/);
-    expect(err.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
+    expect(err.status).toBe(409);
+    const next = await ops.createEdition(as(team.people.educator), { chartId });
+    const refused = await refusal(ops.approveEdition(as(team.people.lead), { editionId: next.id }, { reviewed: true }));
+    expect(refused.status).toBe(422);
+    expect(refused.message).toMatch(/rounding caps/);
+    expect(refused.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
   });
 
   it("only the lead changes them; others are refused and nothing changes", async () => {

@@ -22,8 +22,11 @@ import { GET as chartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import { PUT as rulesRoute } from "@/app/api/v1/labs/[slug]/rules/route";
 import { PATCH as settingsRoute } from "@/app/api/v1/labs/[slug]/settings/route";
 import { GET as solveRoute } from "@/app/api/v1/solve/route";
-import { labWithTeam, mailTo } from "./support/fixtures";
+import { labWithTeam, mailTo, stentPlatformFor } from "./support/fixtures";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting } from "./support/writes";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // A low limit so the test can reach it; set before lib/env is first read.
 const LIMIT = vi.hoisted(() => {
@@ -91,6 +94,7 @@ const auditCount = async (labId: number) =>
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC token family", compliance: "nc", nominalAtm: 12, rbpAtm: 20 })
@@ -122,6 +126,7 @@ beforeAll(async () => {
         familyId: ids.family,
       },
     ],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,

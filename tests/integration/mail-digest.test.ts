@@ -12,8 +12,11 @@ import * as ops from "@/lib/ops/editions";
 import type { Caller } from "@/lib/ops/caller";
 import { deliverDigest, deliverDueDigests } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam, mailTo } from "./support/fixtures";
+import { labWithTeam, mailTo, stentPlatformFor } from "./support/fixtures";
 import { createRoom, recordPosting, takeDownPosting, updateBalloon } from "./support/writes";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 type Person = { id: number; email: string; name: string };
@@ -26,6 +29,7 @@ beforeAll(async () => {
   team = await labWithTeam();
   // Three charts, each on its own family, each hanging in its own room.
   for (const n of [1, 2, 3]) {
+    stentId = await stentPlatformFor(team.lab.id);
     const [fam] = await db
       .insert(balloonFamilies)
       .values({
@@ -58,6 +62,7 @@ beforeAll(async () => {
             cols: { from: 2, to: 3, step: 0.25 },
           },
         ],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,
@@ -186,6 +191,7 @@ describe("sign-off mail", () => {
         title: "Sign-off mail chart",
         law: { law: "murray" },
         lookups: [{ kind: "proximal", familyId: f.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,
@@ -226,6 +232,7 @@ describe("sign-off mail", () => {
         title: "Sign-off mail chart",
         law: { law: "murray" },
         lookups: [{ kind: "proximal", familyId: f.id, rounding: "up", rows: [3, 3.5, 4], cols: [2.5, 3] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,

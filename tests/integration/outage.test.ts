@@ -14,6 +14,9 @@ import mysql from "mysql2/promise";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import * as local from "@/db/local-server";
 
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
+
 async function freePort(): Promise<number> {
   return new Promise((resolve) => {
     const srv = createServer().listen(0, "127.0.0.1", () => {
@@ -78,6 +81,21 @@ beforeAll(async () => {
       .$returningId();
     ids[who] = u!.id;
   }
+  const [platform] = await db
+    .insert(app.schema.stentPlatforms)
+    .values({ labId: ids.labId, name: "DES (illustrative)" })
+    .$returningId();
+  stentId = platform!.id;
+  await db
+    .insert(app.schema.stentSizes)
+    .values(
+      [2, 2.5, 3, 3.5, 4].map((nominalMm) => ({
+        labId: ids.labId,
+        platformId: stentId,
+        nominalMm,
+        maxPostDilatationMm: 6,
+      })),
+    );
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: ids.labId, name: "NC family (illustrative)", compliance: "nc", nominalAtm: 12, rbpAtm: 20 })
@@ -206,6 +224,7 @@ describe("a database killed mid-write leaves nothing half-written, and the app r
           familyId: ids.familyId,
         },
       ],
+      stentPlatformId: stentId,
       paper: "A2",
       orientation: "portrait",
       readingDistanceM: 1.5,

@@ -15,8 +15,11 @@ import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
 import { POST as restoreRoute } from "@/app/api/v1/charts/[id]/restore/route";
 import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import type { CheckJson } from "@/lib/editions/check-json";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { createChart, createRoom, recordPosting } from "./support/writes";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 const session = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", () => ({ currentUser: async () => session.user }));
@@ -63,6 +66,7 @@ let familyId = 0;
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC status", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -77,6 +81,7 @@ beforeAll(async () => {
     title: "Status chart",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,
@@ -154,6 +159,7 @@ describe("archiving a chart", () => {
       title: "Chart to archive",
       law: { law: "murray" },
       lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+      stentPlatformId: stentId,
       paper: "A4",
       orientation: "portrait",
       readingDistanceM: 1,

@@ -10,6 +10,10 @@ import { balloonFamilies, balloons, labs, memberships, postings, staleNotices, u
 import { env } from "@/lib/env";
 import { deliverDigest } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
+import { stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // An invented lab of its own; mail goes over SMTP to the fake that `npm test` runs.
 const tag = randomUUID().slice(0, 8);
@@ -57,6 +61,7 @@ beforeAll(async () => {
     people[role].id = u!.id;
     await db.insert(memberships).values({ labId: ids.lab, userId: u!.id, role, notifyStale: role === "educator" });
   }
+  stentId = await stentPlatformFor(ids.lab);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({
@@ -89,6 +94,7 @@ beforeAll(async () => {
         familyId: ids.family,
       },
     ],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,
