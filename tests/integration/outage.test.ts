@@ -86,16 +86,14 @@ beforeAll(async () => {
     .values({ labId: ids.labId, name: "DES (illustrative)" })
     .$returningId();
   stentId = platform!.id;
-  await db
-    .insert(app.schema.stentSizes)
-    .values(
-      [2, 2.5, 3, 3.5, 4].map((nominalMm) => ({
-        labId: ids.labId,
-        platformId: stentId,
-        nominalMm,
-        maxPostDilatationMm: 6,
-      })),
-    );
+  await db.insert(app.schema.stentSizes).values(
+    [2, 2.5, 3, 3.5, 4].map((nominalMm) => ({
+      labId: ids.labId,
+      platformId: stentId,
+      nominalMm,
+      maxPostDilatationMm: 6,
+    })),
+  );
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: ids.labId, name: "NC family (illustrative)", compliance: "nc", nominalAtm: 12, rbpAtm: 20 })
