@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  figureAgainst,
   lawCitation,
   FINET_DEFAULT_RATIO,
   FINET_RATIO_MAX,
@@ -237,5 +238,17 @@ describe("the citation under a power-law chart", () => {
     expect(lawCitation({ law: "power", n: 2.38 })).toContain("within");
     expect(lawCitation({ law: "power", n: 2.4 })).toContain("OUTSIDE");
     expect(lawCitation({ law: "murray" })).toContain("Murray CD");
+  });
+});
+
+describe("refusals show the figure that explains them", () => {
+  it("parent=3.0499, mb=3: 0.0499 mm, not 0.050 mm, below the 0.05 mm step (common practice)", () => {
+    const r = solve({ law: "murray" }, { parent: 3.0499, mb: 3 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.reason).toContain("(here 0.0499 mm)");
+    expect(figureAgainst(0.0499, 0.05)).toBe("0.0499");
+    expect(figureAgainst(0.04999, 0.05)).toBe("0.04999");
+    expect(figureAgainst(0.043, 0.05)).toBe("0.043");
+    expect(figureAgainst(10.0004, 10)).toBe("10.0004");
   });
 });
