@@ -65,7 +65,9 @@ function Side({ input, grid, l }: { input: PosterInput; grid: Grid; l: CardLayou
       <View style={at(l.head)}>
         <Text style={{ ...CARD_HEAD_LINES.title, fontWeight: 700 }}>{lookupTitle(grid.kind)}</Text>
         <Text style={CARD_HEAD_LINES.detail}>
-          {loc(`${lawName(snapshot.law)} · ${snapshot.title} · edition ${edition.number}`)}
+          {localiseNumbers(`${lawName(snapshot.law)} · ${snapshot.title} · edition ${edition.number}`, nf, [
+            snapshot.title,
+          ])}
         </Text>
       </View>
       <CellGraphicsSvg cells={gridCells(grid, l.grid)} rule={0.4} hatchWidth={0.4} />

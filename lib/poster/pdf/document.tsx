@@ -277,15 +277,18 @@ function GridTexts({
   layout,
   sub,
   nf,
+  typed,
 }: {
   grid: Grid;
   g: GridLayout;
   layout: PosterLayout;
   sub: string[];
   nf: NumberFormat;
+  /** Names the lab typed (family, stent platform): their separators are never changed. */
+  typed: readonly string[];
 }) {
   const { fonts } = layout;
-  const loc = (t: string) => localiseNumbers(t, nf);
+  const loc = (t: string) => localiseNumbers(t, nf, typed);
   const f = layout.figurePt;
   const titles = axisTitles(grid);
   const head = f * CELL.headingRatio;
@@ -531,6 +534,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
               true,
             )}
             nf={nf}
+            typed={[snapshot.lookups[i]?.family?.name ?? "", snapshot.stent?.name ?? ""]}
           />
         ))}
 
