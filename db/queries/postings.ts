@@ -1,10 +1,9 @@
 import "server-only";
 import { and, desc, eq, gt, isNotNull, isNull } from "drizzle-orm";
-import type { Snapshot } from "@/lib/charts/snapshot";
-import { checkEdition, STALE, type CheckStatus } from "@/lib/editions/check";
+import { STALE } from "@/lib/editions/check";
 import { AppError, notFound } from "@/lib/errors";
-import { db, type Database } from "../index";
-import { charts, editions, postings, rooms, users } from "../schema";
+import { db } from "../index";
+import { charts, editions, postings, rooms } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { initialPostingStatus, reconcilePostings } from "./notices";
 
