@@ -189,7 +189,9 @@ function GridFace({ input, full, grid, l }: { input: PosterInput; full: Grid; gr
       </View>
       <Text style={{ ...at(l.key), fontSize: 4.4, lineHeight: 1.1 }}>
         {loc([key, ...used.map((m) => `${MARKS[m].symbol} ${KEY_WORDS[m]}`)].join(" · "))}
-        {(input.snapshot.ruleExceptions ?? []).map((e) => `\n${cardExceptionLine(e)}`).join("")}
+        {(input.snapshot.ruleExceptions ?? [])
+          .map((e) => `\n${localiseNumbers(cardExceptionLine(e), nf, [e.reason])}`)
+          .join("")}
       </Text>
     </CardPage>
   );
@@ -222,7 +224,7 @@ function KeyFace({ input, front }: { input: PosterInput; front: { full: Grid; gr
         ) : null}
         {(snapshot.ruleExceptions ?? []).map((e, i) => (
           <Text key={`x${i}`} style={{ fontSize: 4.2, lineHeight: 1.15, marginTop: 0.8 }}>
-            {cardExceptionLine(e)}
+            {localiseNumbers(cardExceptionLine(e), nf, [e.reason])}
           </Text>
         ))}
       </View>

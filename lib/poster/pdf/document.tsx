@@ -543,7 +543,7 @@ function EditionBlock({ input, layout }: { input: PosterInput; layout: PosterLay
       </Text>
       {(snapshot.ruleExceptions ?? []).map((e, i) => (
         <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
-          {exceptionLine(e)}
+          {localiseNumbers(exceptionLine(e), input.lab?.numberFormat ?? "point", [e.reason, e.recordedBy ?? ""])}
         </Text>
       ))}
       {snapshot.notes ? (
