@@ -3,19 +3,19 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { balloonFamilies, balloons } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
-import type { Caller } from "@/lib/ops/caller";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam, stentPlatformFor } from "./support/fixtures";
+import { addMember, createUser, labWithTeam, stentPlatformFor } from "./support/fixtures";
+import { as, type Person } from "../support/roles";
+import { refusal } from "../support/refusal";
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
+// Four eyes: whoever records an exception for a chart does not approve its next edition.
+let secondLead: Person;
 let familyId = 0;
 let stentId = 0;
-type Person = { id: number; email: string; name: string };
-const as = (p: Person): Caller => ({ kind: "user", user: { id: p.id, email: p.email, name: p.name } });
 
 const definition = (over: object = {}) =>
   chartDefinitionSchema.parse({
@@ -29,15 +29,6 @@ const definition = (over: object = {}) =>
     ...over,
   });
 
-async function refusal(p: Promise<unknown>) {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  expect(err).toBeInstanceOf(AppError);
-  return err as AppError;
-}
-
 beforeAll(async () => {
   team = await labWithTeam();
   const [fam] = await db
@@ -49,6 +40,8 @@ beforeAll(async () => {
     .insert(balloons)
     .values([2.5, 2.75, 3, 3.25, 3.5, 3.75, 4, 4.25].map((d) => ({ labId: team.lab.id, familyId, diameterMm: d })));
   stentId = await stentPlatformFor(team.lab.id);
+  secondLead = await createUser("lead-two");
+  await addMember(team.lab.id, secondLead.id, "lead");
 });
 
 afterAll(() => pool.end());
@@ -102,7 +95,7 @@ describe("rules bind at every step", () => {
     );
     expect(power.message).toContain("power-law exponent range");
     const ed = await ops.createEdition(as(team.people.educator), { chartId });
-    const approved = await ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true });
+    const approved = await ops.approveEdition(as(secondLead), { editionId: ed.id }, { reviewed: true });
     expect(approved.status).toBe("approved");
   });
 
@@ -123,7 +116,7 @@ describe("rules bind at every step", () => {
     });
     await chartOps.saveChart(as(team.people.educator), { chartId }, bare);
     const ed = await ops.createEdition(as(team.people.educator), { chartId });
-    expect((await ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true })).status).toBe(
+    expect((await ops.approveEdition(as(secondLead), { editionId: ed.id }, { reviewed: true })).status).toBe(
       "approved",
     );
   });
