@@ -14,12 +14,14 @@ import { LookupFieldset } from "@/components/charts/designer/lookup-fieldset";
 import { PrintFields, StentField } from "@/components/charts/designer/print-fields";
 import { SaveNotice } from "@/components/charts/designer/save-notice";
 import { fieldClass, labelClass } from "@/components/charts/designer/styles";
+import { RuleBreaches } from "@/components/charts/rule-breaches";
 import { Button } from "@/components/ui/button";
 import { FieldError } from "@/components/ui/field";
 import { cardAfterRemovingLookup } from "@/lib/charts/card-choice";
 import { defaultLookup } from "@/lib/charts/defaults";
 import { errorAt, mergeCardIssues, nextLookupKind } from "@/lib/charts/designer-form";
 import type { LabStock } from "@/lib/charts/snapshot";
+import type { LabRules } from "@/lib/labs/rules";
 import { chartDefinitionSchema, type ChartDefinition } from "@/lib/validation/chart";
 
 export function ChartDesigner({
@@ -30,6 +32,7 @@ export function ChartDesigner({
   labName,
   logoSha256 = null,
   canEdit,
+  labRules,
 }: {
   slug: string;
   chartId: number | null;
@@ -38,6 +41,7 @@ export function ChartDesigner({
   labName: string;
   logoSha256?: string | null;
   canEdit: boolean;
+  labRules?: LabRules;
 }) {
   const router = useRouter();
   const { run: save, pending } = useServerAction(saveChartAction, { refresh: false });
@@ -144,9 +148,10 @@ export function ChartDesigner({
 
       <section aria-label="Live preview" className="min-w-0">
         <h2 className="text-lg font-semibold">Live preview</h2>
+        {preview.success && labRules ? <RuleBreaches {...{ chartId, labRules }} definition={preview.data} /> : null}
         {preview.success ? <HazardShareWarning definition={preview.data} stock={stock} /> : null}
         {preview.success ? (
-          <ChartPreview definition={preview.data} stock={stock} labName={labName} logoSha256={logoSha256} />
+          <ChartPreview {...{ stock, labName, logoSha256, labRules, chartId }} definition={preview.data} />
         ) : (
           <p className="mt-2 rounded-md border border-line bg-paper-sunk p-4 text-ink-soft">
             Correct the highlighted fields to see the preview.

@@ -4,6 +4,7 @@ import { GridPreview } from "@/components/poster/grid-preview";
 import { fitAdvice } from "@/lib/charts/grid-model";
 import { chartRuleIssues } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotGrids, type LabStock } from "@/lib/charts/snapshot";
+import { checkChartAgainstRules, ruledDefinition, type LabRules } from "@/lib/labs/rules";
 import { stockGaps } from "@/lib/charts/stock-gaps";
 import { snapshotLegibility } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
@@ -19,13 +20,29 @@ export function ChartPreview({
   stock,
   labName,
   logoSha256,
+  labRules,
+  chartId = null,
 }: {
   definition: ChartDefinition;
   stock: LabStock;
   labName: string;
   logoSha256: string | null;
+  /** The lab's rules: marks are drawn against its caps, as the poster draws them. */
+  labRules?: LabRules;
+  chartId?: number | null;
 }) {
-  const snapshot = buildSnapshot({ labName, definition, stock, logoSha256 });
+  const snapshot = buildSnapshot({
+    labName,
+    definition,
+    stock,
+    logoSha256,
+    ...(labRules
+      ? {
+          labLimits: labRules.lookups,
+          ruleExceptions: checkChartAgainstRules(chartId ?? 0, ruledDefinition(definition), labRules).applied,
+        }
+      : {}),
+  });
   const grids = snapshotGrids(snapshot);
   const legibility = snapshotLegibility(snapshot);
   const rules = chartRuleIssues(definition, stock);

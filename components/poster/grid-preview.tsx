@@ -2,13 +2,21 @@ import { GridHeadRow, posterCellStyle } from "@/components/poster/grid-head";
 import { Caution } from "@/components/ui/caution";
 import type { BalloonFamilyStock, Grid } from "@/lib/sizing";
 import { axisTitles, gridSubtitle, lookupTitle } from "@/lib/poster/labels";
-import { cellView, cornerSymbols, formatAxisMm, legendEntries, MARKS, PALETTE, type MarkId } from "@/lib/poster/marks";
+import {
+  cellView,
+  CORNER_MARKS,
+  cornerSymbols,
+  formatAxisMm,
+  legendEntries,
+  MARKS,
+  PALETTE,
+  type MarkId,
+} from "@/lib/poster/marks";
 
 function Swatch({ mark }: { mark: MarkId | "sized" }) {
   const def = mark === "sized" ? null : MARKS[mark];
   const primary = mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5";
-  const corner =
-    mark === "hazard" || mark === "oversize" || mark === "undersize" || mark === "outsideFit" ? MARKS[mark].symbol : "";
+  const corner = mark !== "sized" && CORNER_MARKS.includes(mark) ? MARKS[mark].symbol : "";
   return (
     <span
       aria-hidden="true"
@@ -52,6 +60,7 @@ export function GridPreview({ grid, family, stentName, legend = true, caution = 
     hasProximal: grid.kind === "proximal",
     hasReach: pressureLine,
     caps: grid.caps,
+    headroomAtm: grid.headroomAtm,
   });
   return (
     <figure className="space-y-4">

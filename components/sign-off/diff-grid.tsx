@@ -100,6 +100,7 @@ const MARK_WORDS: Readonly<Record<GridMark, string>> = {
   oversize: "above the rounding cap",
   undersize: "below the rounding cap",
   "outside-fit": "outside the law's published fit",
+  "near-rbp": "near rated burst pressure",
 };
 
 /** A changed cell's print in a few words: the figure, its pressure and its marks. */

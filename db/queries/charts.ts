@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
 import { assertChartRules } from "@/lib/charts/rules";
+import { checkChartAgainstRules, ruledDefinition } from "@/lib/labs/rules";
 import type { Snapshot } from "@/lib/charts/snapshot";
 import { AppError, notFound } from "@/lib/errors";
 import { parseStoredDefinition, type ChartDefinition } from "@/lib/validation/chart";
@@ -8,6 +9,7 @@ import { db } from "../index";
 import { balloonFamilies, charts, editions, logos, stentPlatforms, users } from "../schema";
 import { recordAudit, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
+import { getLabRules } from "./lab-rules";
 import { readStock } from "./stock-read";
 
 export async function createChart(
@@ -25,6 +27,7 @@ export async function createChart(
   },
 ) {
   await assertStockRefs(tx, labId, definition);
+  await assertLabRules(tx, labId, null, definition);
   const [row] = await tx
     .insert(charts)
     .values({ labId, title: definition.title, definition, logoId, createdBy: userId, updatedAt: new Date() })
@@ -68,6 +71,7 @@ export async function updateChart(
     .where(and(eq(charts.id, chartId), eq(charts.labId, labId)));
   if (!before) throw notFound("Chart");
   await assertStockRefs(tx, labId, definition);
+  await assertLabRules(tx, labId, chartId, definition);
   await tx
     .update(charts)
     .set({ title: definition.title, definition, updatedAt: new Date(), ...(logoId !== undefined ? { logoId } : {}) })
@@ -114,6 +118,21 @@ async function assertStockRefs(tx: Tx, labId: number, def: ChartDefinition) {
       ]);
   }
   assertChartRules(def, await readStock(tx, labId));
+}
+
+/**
+ * The lab's rules bind when a chart is created or changed, not only at approval: a breach the
+ * medical lead has not excepted for this chart is refused (400) naming the rule and field.
+ */
+async function assertLabRules(tx: Tx, labId: number, chartId: number | null, def: ChartDefinition) {
+  const { issues } = checkChartAgainstRules(chartId ?? 0, ruledDefinition(def), await getLabRules({ labId }, tx));
+  if (!issues.length) return;
+  const first = issues[0]!;
+  throw new AppError(
+    "invalid_input",
+    `${first.path.join(".")}: ${first.message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}. Change the chart, or the medical lead records an exception for it on the rules page.`,
+    issues.map((i) => ({ path: i.path, message: i.message })),
+  );
 }
 
 export async function getChart({ labId, chartId }: { labId: number; chartId: number }) {

@@ -5,10 +5,9 @@ import { describeChanges } from "@/lib/charts/changes";
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { assertChartRules } from "@/lib/charts/rules";
 import { buildSnapshot, snapshotProblems, type Snapshot } from "@/lib/charts/snapshot";
-import { ruledSnapshot } from "@/lib/editions/breaches";
 import { newShortCode } from "@/lib/editions/short-code";
 import { canTransition, type EditionStatus } from "@/lib/editions/states";
-import { checkChartAgainstRules, ruledDefinition, reviewByDate } from "@/lib/labs/rules";
+import { checkChartAgainstRules, ruledDefinition, ruledSnapshot, reviewByDate } from "@/lib/labs/rules";
 import { parseStoredDefinition } from "@/lib/validation/chart";
 import { AppError, notFound } from "@/lib/errors";
 import { db } from "../index";
@@ -194,6 +193,7 @@ export async function createEdition(
     stock,
     logoSha256: chart.logoSha256 ?? null,
     ruleExceptions: checkChartAgainstRules(chartId, ruledDefinition(definition), rules).applied,
+    labLimits: rules.lookups,
   });
   const problems = snapshotProblems(snapshot, definition);
   if (problems.length) throw new AppError("unprocessable", problems.join(" "));

@@ -42,6 +42,7 @@ export async function refreshLiveSnapshots(tx: Tx, labId: number): Promise<LiveC
       stock,
       logoSha256: row.logoSha256 ?? null,
       ruleExceptions: checkChartAgainstRules(row.id, ruledDefinition(definition), rules).applied,
+      labLimits: rules.lookups,
     });
     const fingerprint = fingerprintOf(snapshot);
     if (fingerprint === row.liveFingerprint) continue;

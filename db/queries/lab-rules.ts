@@ -1,7 +1,14 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
-import { changedRules, labRulesSchema, mergeLabRules, type LabRules, type LabRulesPatch } from "@/lib/labs/rules";
+import {
+  changedRules,
+  labRulesSchema,
+  mergeLabRules,
+  stampExceptions,
+  type LabRules,
+  type LabRulesPatch,
+} from "@/lib/labs/rules";
 import { charts, labRules } from "../schema";
 import { recordAudit, type Actor, type Tx } from "./audit";
 import { afterLabChange } from "./lab-changes";
@@ -33,7 +40,11 @@ export async function setLabRules(
     const issues = parsed.error.issues.map((i) => ({ path: i.path as (string | number)[], message: i.message }));
     throw new AppError("invalid_input", `${issues[0]!.path.join(".")}: ${issues[0]!.message}`, issues);
   }
-  const after = parsed.data;
+  const now = new Date();
+  const after = {
+    ...parsed.data,
+    exceptions: stampExceptions(before.exceptions, parsed.data.exceptions, actor.name, now.toISOString().slice(0, 10)),
+  };
   const chartIds = [...new Set(after.exceptions.map((e) => e.chartId))];
   if (chartIds.length) {
     const found = await tx
@@ -48,7 +59,6 @@ export async function setLabRules(
   }
   const changed = changedRules(before, after);
   if (!changed.length) return { rules: before, revision, changed };
-  const now = new Date();
   const next = revision + 1;
   await tx
     .insert(labRules)

@@ -41,6 +41,7 @@ const MARK_WORDS: Readonly<Record<GridMark, string>> = {
   oversize: "above the rounding cap",
   undersize: "below the rounding cap",
   "outside-fit": "outside published fit",
+  "near-rbp": "near rated burst pressure",
 };
 
 /** The cell with its small print (exact diameter, marks) spelled out: for two cells whose large figure is the same. */

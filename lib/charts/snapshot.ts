@@ -2,6 +2,7 @@ import { cautionFor } from "@/lib/cautions";
 import type { Orientation, PaperId } from "@/lib/poster/paper";
 import {
   buildGrid,
+  DEFAULT_RBP_HEADROOM_ATM,
   DEFAULT_ROUNDING_CAPS,
   STOCK_TOLERANCE_MM,
   type RoundingCaps,
@@ -13,6 +14,7 @@ import {
   type StentSize,
 } from "@/lib/sizing";
 import type { CardSide, ChartDefinition } from "@/lib/validation/chart";
+import type { AppliedException } from "@/lib/labs/rules";
 
 /** The lab's stock as the stock API returns it. */
 export type StockFamily = {
@@ -36,7 +38,20 @@ export type SnapshotLookup = {
   familyId?: number;
   /** Only the in-stock sizes that can decide a cell of this grid; null when the family is gone. */
   family: BalloonFamilyStock | null;
+  /** The caps marks are drawn against when the lab's are stricter than the chart's; absent: the snapshot's caps. */
+  caps?: RoundingCaps;
+  /** Reach lookups: the lab's headroom below rated burst pressure, atm (absent: DEFAULT_RBP_HEADROOM_ATM). */
+  headroomAtm?: number;
 };
+
+/** What the lab's rules hold for one lookup kind that decides marks (LabRules["lookups"] fits). */
+export type LookupLimits = { caps: RoundingCaps; rbpHeadroomAtm?: number };
+
+/** The stricter of the chart's caps and the lab's: an exception excuses a wider cap, it never hides the mark. */
+export function markingCaps(chart: RoundingCaps, lab: RoundingCaps | undefined): RoundingCaps {
+  if (!lab) return { ...chart };
+  return { upMm: Math.min(chart.upMm, lab.upMm), downMm: Math.min(chart.downMm, lab.downMm) };
+}
 
 /** Everything that decides a poster's printed numbers and texts, frozen into an edition. */
 export type Snapshot = {
@@ -55,7 +70,7 @@ export type Snapshot = {
   /** Rounding caps; editions frozen before caps existed print with DEFAULT_ROUNDING_CAPS. */
   caps?: RoundingCaps;
   /** Exceptions to the lab's rules the medical lead recorded for this chart; the poster prints them. Absent when none. */
-  ruleExceptions?: { rule: string; reason: string }[];
+  ruleExceptions?: AppliedException[];
   /** The badge card's sides as the designer chose them (lib/poster/card.ts). Absent when not chosen. */
   card?: { sides: [CardSide, CardSide] };
 };
@@ -111,9 +126,12 @@ export function buildSnapshot(input: {
   /** Demo labs carry the "invented and illustrative" clause in their caution; real labs never do. */
   labIsDemo?: boolean;
   /** The exceptions that apply to this chart (lib/labs/rules.ts checkChartAgainstRules). */
-  ruleExceptions?: { rule: string; reason: string }[];
+  ruleExceptions?: AppliedException[];
+  /** The lab's rules per lookup kind: marks are drawn against the lab's caps whatever the chart allows. */
+  labLimits?: Readonly<Record<LookupKind, LookupLimits>>;
 }): Snapshot {
   const { definition: def, stock } = input;
+  const chartCaps = def.roundingCaps ?? DEFAULT_ROUNDING_CAPS;
   const lookups = def.lookups.map((l): SnapshotLookup => {
     const grid = buildGrid({
       kind: l.kind,
@@ -138,6 +156,7 @@ export function buildSnapshot(input: {
           ),
         }
       : null;
+    const caps = markingCaps(chartCaps, input.labLimits?.[l.kind].caps);
     return {
       kind: l.kind,
       rows: grid.rowAxis.values,
@@ -145,6 +164,11 @@ export function buildSnapshot(input: {
       rounding: l.rounding,
       familyId: l.familyId,
       family,
+      // Only when stricter than the chart's, so charts within the lab's caps keep their fingerprints.
+      ...(caps.upMm !== chartCaps.upMm || caps.downMm !== chartCaps.downMm ? { caps } : {}),
+      ...(l.rounding === "reach"
+        ? { headroomAtm: input.labLimits?.[l.kind].rbpHeadroomAtm ?? DEFAULT_RBP_HEADROOM_ATM }
+        : {}),
     };
   });
   const platform = def.stentPlatformId ? stock.stentPlatforms.find((p) => p.id === def.stentPlatformId) : undefined;
@@ -198,9 +222,14 @@ export function lookupGrid(snapshot: Snapshot, l: Snapshot["lookups"][number], f
     rounding: l.rounding,
     family,
     stent: l.kind === "proximal" && snapshot.stent ? snapshot.stent.sizes : null,
-    caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
+    caps: lookupCaps(snapshot, l),
+    headroomAtm: l.headroomAtm ?? DEFAULT_RBP_HEADROOM_ATM,
   });
 }
+
+/** The caps a lookup's marks are drawn against. */
+export const lookupCaps = (snapshot: Snapshot, l: SnapshotLookup): RoundingCaps =>
+  l.caps ?? snapshot.caps ?? DEFAULT_ROUNDING_CAPS;
 
 /** The grids a snapshot prints: the one grid model, never recomputed elsewhere. */
 export function snapshotGrids(snapshot: Snapshot): Grid[] {

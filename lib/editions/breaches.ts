@@ -1,16 +1,8 @@
 // The lab rules a frozen edition breaks, as approval checks them: the same pure rule check and
 // legibility gate the approve operation runs, so the approval screen lists them before the click.
 import type { Snapshot } from "@/lib/charts/snapshot";
-import { checkChartAgainstRules, type LabRules, type RuledChart } from "@/lib/labs/rules";
+import { checkChartAgainstRules, ruledSnapshot, type LabRules } from "@/lib/labs/rules";
 import { legibilityRefusal, LEGIBILITY_RULE } from "@/lib/poster/model";
-import { DEFAULT_ROUNDING_CAPS } from "@/lib/sizing";
-
-/** A frozen snapshot as the lab rules see it. */
-export const ruledSnapshot = (s: Snapshot): RuledChart => ({
-  law: s.law,
-  lookups: s.lookups,
-  caps: s.caps ?? DEFAULT_ROUNDING_CAPS,
-});
 
 export type Breach = { rule: string; message: string };
 

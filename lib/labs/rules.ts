@@ -1,11 +1,15 @@
 import { z } from "zod";
 import { ALLOWED_ROUNDING } from "@/lib/charts/rules";
 import {
+  DEFAULT_RBP_HEADROOM_ATM,
   DEFAULT_ROUNDING,
   DEFAULT_ROUNDING_CAPS,
   FINET_DEFAULT_RATIO,
   LAW_IDS,
   LAWS,
+  POWER_N_MAX,
+  POWER_N_MIN,
+  formatConstant,
   type LawId,
   type LawSpec,
   type LookupKind,
@@ -23,13 +27,15 @@ import { freeText } from "@/lib/validation/text";
  */
 
 /** The rules a chart can break, and so the rules an exception can name ("legibility" is the poster's size gate). */
-export const RULE_IDS = ["law", "rounding", "caps", "legibility"] as const;
+export const RULE_IDS = ["law", "rounding", "caps", "exponent", "no-stent-check", "legibility"] as const;
 export type RuleId = (typeof RULE_IDS)[number];
 
 export const RULE_LABELS: Readonly<Record<RuleId, string>> = {
   law: "Laws allowed",
   rounding: "Rounding rules allowed",
   caps: "Rounding caps",
+  exponent: "Power-law exponent range",
+  "no-stent-check": "POT checked against a stent platform",
   legibility: "Legibility at reading distance",
 };
 
@@ -44,6 +50,15 @@ const capSchema = (what: string) =>
     .number({ error: `The cap ${what} must be a number of millimetres` })
     .min(0, { error: `The cap ${what} must be 0 mm or more` })
     .max(ROUNDING_CAP_MAX_MM, { error: `The cap ${what} must be at most ${ROUNDING_CAP_MAX_MM} mm` });
+
+const exponentSchema = (what: string) =>
+  z
+    .number({ error: `The ${what} power-law exponent must be a number` })
+    .min(POWER_N_MIN, { error: `The ${what} power-law exponent must be at least ${POWER_N_MIN}` })
+    .max(POWER_N_MAX, { error: `The ${what} power-law exponent must be at most ${POWER_N_MAX}` });
+
+/** Between the square law (n = 2) and Murray's law (n = 3): the span of the published power-form laws. */
+export const DEFAULT_POWER_RANGE = { min: 2, max: 3 } as const;
 
 const lookupRulesSchema = z
   .object({
@@ -65,6 +80,20 @@ const lookupRulesSchema = z
     caps: z
       .object({ upMm: capSchema("above"), downMm: capSchema("below") }, { error: "Caps must be { upMm, downMm }" })
       .strict(),
+    powerRange: z
+      .object(
+        {
+          min: exponentSchema("lowest"),
+          max: exponentSchema("highest"),
+        },
+        { error: "The exponent range must be { min, max }" },
+      )
+      .strict()
+      .refine((r) => r.min <= r.max, { error: "The lowest exponent must not exceed the highest", path: ["max"] }),
+    rbpHeadroomAtm: z
+      .number({ error: "The headroom below rated burst pressure must be a number of atm" })
+      .min(0, { error: "The headroom below rated burst pressure must be 0 atm or more" })
+      .max(5, { error: "The headroom below rated burst pressure must be at most 5 atm" }),
   })
   .strict();
 
@@ -84,6 +113,12 @@ export const ruleExceptionSchema = z
       minMessage: "Give the reason for the exception",
       maxMessage: "Keep the reason under 300 characters",
     }),
+    // Stamped by the server when the exception is recorded (lib/labs/rules.ts stampExceptions); sent values are ignored.
+    recordedBy: z.string().max(200).optional(),
+    recordedOn: z
+      .string()
+      .regex(/^\d{4}-\d{2}-\d{2}$/)
+      .optional(),
   })
   .strict();
 
@@ -122,6 +157,13 @@ function checkConsistency(
         code: "custom",
         path: ["lookups", kind, "defaultLaw"],
         message: `The default law (${LAWS[r.defaultLaw.law].name}) must be one of the laws allowed`,
+      });
+    const d = r.defaultLaw;
+    if (d?.law === "power" && r.powerRange && (d.n < r.powerRange.min || d.n > r.powerRange.max))
+      ctx.addIssue({
+        code: "custom",
+        path: ["lookups", kind, "defaultLaw"],
+        message: `The default exponent (${formatConstant(d.n)}) must lie within the exponent range`,
       });
     r.rounding?.forEach((rule, i) => {
       if (!ALLOWED_ROUNDING[kind].includes(rule))
@@ -187,6 +229,8 @@ const defaultLookupRules = (kind: LookupKind): LookupRules => ({
   defaultLaw: { law: "finet", ratio: FINET_DEFAULT_RATIO },
   rounding: [...ALLOWED_ROUNDING[kind]],
   caps: { ...DEFAULT_ROUNDING_CAPS },
+  powerRange: { ...DEFAULT_POWER_RANGE },
+  rbpHeadroomAtm: DEFAULT_RBP_HEADROOM_ATM,
 });
 
 // The defaults allow everything the clinical guardrails allow, so a lab without rules behaves as before.
@@ -233,34 +277,62 @@ export function changedRules(before: LabRules, after: LabRules): (keyof LabRules
   );
 }
 
-/** What a chart or a frozen snapshot says about the rules: its law, its lookups and its caps. */
+/** What a chart or a frozen snapshot says about the rules: its law, its lookups, its caps and whether it names a stent platform. */
 export type RuledChart = {
   law: LawSpec;
   lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
   caps: RoundingCaps;
+  stentPlatform: boolean;
 };
 
-export type RuleIssue = { rule: RuleId; path: (string | number)[]; message: string };
+export type RuleIssue = {
+  rule: RuleId;
+  path: (string | number)[];
+  message: string;
+  /** What an exception to this breach relaxes, in the poster's words. */
+  relaxes?: string;
+};
+
+/** An exception in force, as the poster, the card and the designer print it. */
+export type AppliedException = {
+  rule: string;
+  reason: string;
+  /** The rule or cap it relaxes, in words ("up to 0.5 mm above target; the lab's cap is 0.25 mm"). */
+  relaxes?: string;
+  recordedBy?: string;
+  recordedOn?: string;
+};
 
 const lawName = (id: LawId) => LAWS[id].name;
+const mm2 = (x: number) => x.toFixed(2);
 
 /** Every lab rule the chart breaks, waived or not. */
 export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
   const issues: RuleIssue[] = [];
   chart.lookups.forEach((l, i) => {
     const r = rules.lookups[l.kind];
-    const kind = KIND_LABELS[l.kind].toLowerCase();
+    const kind = KIND_LABELS[l.kind].replace(/^(Side|Main)/, (m) => m.toLowerCase());
     if (!r.laws.includes(chart.law.law))
       issues.push({
         rule: "law",
         path: ["law"],
         message: `Lab rule "laws allowed": the medical lead allows ${r.laws.map(lawName).join(", ")} for a ${kind}, not ${lawName(chart.law.law)}`,
+        relaxes: `${lawName(chart.law.law)} for a ${kind}; the lab allows ${r.laws.map(lawName).join(", ")}`,
       });
     if (!r.rounding.includes(l.rounding))
       issues.push({
         rule: "rounding",
         path: ["lookups", i, "rounding"],
         message: `Lab rule "rounding rules allowed": a ${kind} rounds ${r.rounding.join(" or ")} in this lab, not ${l.rounding}`,
+        relaxes: `a ${kind} rounds ${l.rounding}; the lab allows ${r.rounding.join(" or ")}`,
+      });
+    const n = chart.law.law === "power" ? chart.law.n : null;
+    if (n !== null && (n < r.powerRange.min - 1e-9 || n > r.powerRange.max + 1e-9))
+      issues.push({
+        rule: "exponent",
+        path: ["law", "n"],
+        message: `Lab rule "power-law exponent range": a ${kind} uses an exponent from ${formatConstant(r.powerRange.min)} to ${formatConstant(r.powerRange.max)} in this lab; the chart uses ${formatConstant(n)}`,
+        relaxes: `power-law exponent n = ${formatConstant(n)} (the lab's range for a ${kind}: ${formatConstant(r.powerRange.min)} to ${formatConstant(r.powerRange.max)})`,
       });
     for (const side of ["upMm", "downMm"] as const)
       if (chart.caps[side] > r.caps[side] + 1e-9)
@@ -268,8 +340,17 @@ export function labRuleIssues(chart: RuledChart, rules: LabRules): RuleIssue[] {
           rule: "caps",
           path: ["roundingCaps", side],
           message: `Lab rule "rounding caps": a ${kind} may be at most ${r.caps[side]} mm ${side === "upMm" ? "above" : "below"} its target in this lab; the chart allows ${chart.caps[side]} mm`,
+          relaxes: `up to ${mm2(chart.caps[side])} mm ${side === "upMm" ? "above" : "below"} target (the lab's cap for a ${kind}: ${mm2(r.caps[side])} mm; cells beyond it keep their mark)`,
         });
   });
+  const pot = chart.lookups.findIndex((l) => l.kind === "proximal");
+  if (pot >= 0 && !chart.stentPlatform)
+    issues.push({
+      rule: "no-stent-check",
+      path: ["stentPlatformId"],
+      message: `Lab rule "POT checked against a stent platform": a POT lookup needs a stent platform to check its balloons against, unless the medical lead records a no-stent-check exception`,
+      relaxes: "POT balloons are not checked against any stent's maximum post-dilatation diameter",
+    });
   // One issue per rule and field is enough to act on.
   const seen = new Set<string>();
   return issues.filter((i) => {
@@ -287,7 +368,7 @@ export function checkChartAgainstRules(
   chartId: number,
   chart: RuledChart,
   rules: LabRules,
-): { issues: RuleIssue[]; applied: { rule: string; reason: string }[] } {
+): { issues: RuleIssue[]; applied: AppliedException[] } {
   const own = rules.exceptions.filter((e) => e.chartId === chartId);
   const all = labRuleIssues(chart, rules);
   const waived = new Set(own.map((e) => e.rule));
@@ -296,8 +377,39 @@ export function checkChartAgainstRules(
     issues: all.filter((i) => !waived.has(i.rule)),
     applied: own
       .filter((e) => e.rule === "legibility" || broken.has(e.rule))
-      .map((e) => ({ rule: e.rule, reason: e.reason })),
+      .map((e) => ({
+        rule: e.rule,
+        reason: e.reason,
+        relaxes: relaxedWords(e.rule, all),
+        ...(e.recordedBy ? { recordedBy: e.recordedBy } : {}),
+        ...(e.recordedOn ? { recordedOn: e.recordedOn } : {}),
+      })),
   };
+}
+
+/** What an exception relaxes, from the breaches it excuses. */
+function relaxedWords(rule: RuleId, issues: readonly RuleIssue[]): string {
+  if (rule === "legibility") return "figures sized for a reader nearer than the stated reading distance";
+  return issues
+    .filter((i) => i.rule === rule)
+    .map((i) => i.relaxes ?? i.message)
+    .join("; ");
+}
+
+/**
+ * Exceptions as stored: one already recorded (same chart, rule and reason) keeps who recorded it
+ * and when; a new or changed one is stamped with `by` and `on`. Sent stamps are never trusted.
+ */
+export function stampExceptions(
+  before: readonly RuleException[],
+  after: readonly RuleException[],
+  by: string,
+  on: string,
+): RuleException[] {
+  return after.map(({ chartId, rule, reason }) => {
+    const old = before.find((b) => b.chartId === chartId && b.rule === rule && b.reason === reason);
+    return { chartId, rule, reason, recordedBy: old?.recordedBy ?? by, recordedOn: old?.recordedOn ?? on };
+  });
 }
 
 /** A chart definition as the rules see it. */
@@ -305,8 +417,29 @@ export function ruledDefinition(def: {
   law: LawSpec;
   lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
   roundingCaps?: RoundingCaps;
+  stentPlatformId?: number | null;
 }): RuledChart {
-  return { law: def.law, lookups: def.lookups, caps: def.roundingCaps ?? DEFAULT_ROUNDING_CAPS };
+  return {
+    law: def.law,
+    lookups: def.lookups,
+    caps: def.roundingCaps ?? DEFAULT_ROUNDING_CAPS,
+    stentPlatform: Boolean(def.stentPlatformId),
+  };
+}
+
+/** A frozen snapshot as the rules see it (approval checks what the edition froze). */
+export function ruledSnapshot(snap: {
+  law: LawSpec;
+  lookups: readonly { kind: LookupKind; rounding: RoundingRule }[];
+  caps?: RoundingCaps;
+  stent: unknown;
+}): RuledChart {
+  return {
+    law: snap.law,
+    lookups: snap.lookups,
+    caps: snap.caps ?? DEFAULT_ROUNDING_CAPS,
+    stentPlatform: snap.stent !== null && snap.stent !== undefined,
+  };
 }
 
 /** Where a new chart starts: the lab's default law, rounding and caps for its first lookup. */

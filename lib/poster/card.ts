@@ -7,6 +7,7 @@ import type { Grid, Vessel } from "@/lib/sizing";
 import type { CardSide } from "@/lib/validation/chart";
 import { CELL, fontPtForArcmin, type Box } from "./layout";
 import { formatAxisMm } from "./marks";
+import { cardExceptionLine } from "./exceptions";
 import { mmToPt } from "./paper";
 
 export const CARD_WIDTH_MM = 85.6;
@@ -107,8 +108,8 @@ function box(x: number, y: number, width: number, height: number): Box {
 }
 
 /** Rows and columns that fit at the minimum figure size. */
-export function cardCapacity(pressureLine: boolean): { rows: number; cols: number } {
-  const l = cardFrame();
+export function cardCapacity(pressureLine: boolean, keyLines = 1): { rows: number; cols: number } {
+  const l = cardFrame(keyLines);
   const f = CARD_MIN_FIGURE_PT;
   const cols = Math.floor((l.gridArea.width - f * CELL.rowHeadWidthEm) / (f * CELL.widthEm));
   const rows = Math.floor(
@@ -117,12 +118,25 @@ export function cardCapacity(pressureLine: boolean): { rows: number; cols: numbe
   return { rows, cols };
 }
 
-function cardFrame() {
+/** One line of the key's 4.4 pt text, and the share of the card's width a character takes at that size. */
+const KEY_LINE_PT = 4.8;
+const KEY_CHAR_PT = 2.3;
+
+/** Lines the key needs: the mark words, then each exception in force (lib/poster/exceptions.ts). */
+export function cardKeyLines(snapshot: Pick<Snapshot, "ruleExceptions">): number {
+  const width = CARD_PAGE.width - 2 * MARGIN;
+  return (snapshot.ruleExceptions ?? []).reduce(
+    (n, e) => n + Math.ceil((cardExceptionLine(e).length * KEY_CHAR_PT) / width),
+    1,
+  );
+}
+
+function cardFrame(keyLines = 1) {
   const { width: W, height: H } = CARD_PAGE;
   const headH = CARD_HEAD_HEIGHT;
   // Four lines of the 3.9 pt caution (4.5 pt each) and its padding: the demo lab's caution, the longest, needs all four.
   const cautionH = 20;
-  const keyH = 6;
+  const keyH = 6 + (keyLines - 1) * KEY_LINE_PT;
   const top = BAND + 1;
   const head = box(MARGIN, top, W - 2 * MARGIN, headH);
   const caution = box(MARGIN, H - MARGIN - cautionH, W - 2 * MARGIN, cautionH);
@@ -144,8 +158,8 @@ export function narrowAxis(values: readonly number[], max: number, range?: [numb
 }
 
 /** The grid cut down to the side's rows and columns. */
-export function cardGrid(grid: Grid, side: CardSide): Grid {
-  const cap = cardCapacity(grid.rounding === "reach");
+export function cardGrid(grid: Grid, side: CardSide, keyLines = 1): Grid {
+  const cap = cardCapacity(grid.rounding === "reach", keyLines);
   const rows = narrowAxis(grid.rowAxis.values, cap.rows, side.rows);
   const cols = narrowAxis(grid.colAxis.values, cap.cols, side.cols);
   const ri = rows.map((v) => grid.rowAxis.values.indexOf(v));
@@ -158,8 +172,8 @@ export function cardGrid(grid: Grid, side: CardSide): Grid {
   };
 }
 
-export function layoutCard(grid: Grid): CardLayout {
-  const frame = cardFrame();
+export function layoutCard(grid: Grid, keyLines = 1): CardLayout {
+  const frame = cardFrame(keyLines);
   const rows = grid.rowAxis.values.length;
   const cols = grid.colAxis.values.length;
   const hEm = CELL.heightEm + (grid.rounding === "reach" ? CELL.pressureLineEm : 0);

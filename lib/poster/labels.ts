@@ -116,8 +116,17 @@ export function reviewText(reviewBy: Date | null | undefined, timeZone = "UTC"):
 }
 
 /** Decimal points between digits become the lab's separator (3.25 -> 3,25 where the lab chose the comma). */
-export function localiseNumbers(text: string, format: NumberFormat = "point"): string {
-  return format === "comma" ? text.replace(/(\d)\.(\d)/g, "$1,$2") : text;
+export function localiseNumbers(text: string, format: NumberFormat = "point", typed: readonly string[] = []): string {
+  if (format !== "comma") return text;
+  const local = (t: string) => t.replace(/(\d)\.(\d)/g, "$1,$2");
+  const names = [...new Set(typed.filter((n) => n.length > 0))].sort((a, b) => b.length - a.length);
+  if (!names.length) return local(text);
+  // Names the lab typed keep their own separators: only the numbers the product formats change.
+  const escaped = names.map((n) => n.replace(/[.*+?^${}()|[\]\\]/g, "\\$&"));
+  return text
+    .split(new RegExp(`(${escaped.join("|")})`))
+    .map((part, i) => (i % 2 === 1 ? part : local(part)))
+    .join("");
 }
 
 /** The address printed under the QR code: the app's /c/ route and the edition's short code. */

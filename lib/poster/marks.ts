@@ -34,7 +34,7 @@ export const PALETTE = {
   watermark: "#a3261f",
 } as const;
 
-export type MarkId = "noSize" | "noStock" | "hazard" | "oversize" | "undersize" | "outsideFit";
+export type MarkId = "noSize" | "noStock" | "hazard" | "oversize" | "undersize" | "outsideFit" | "nearRbp";
 
 export type MarkDef = {
   id: MarkId;
@@ -105,6 +105,16 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
     hatch: false,
     border: 0,
   },
+  nearRbp: {
+    id: "nearRbp",
+    symbol: "!",
+    label: "Near rated burst pressure",
+    explanation:
+      "The printed pressure is within the lab's headroom below the balloon's rated burst pressure; check the device's own compliance chart.",
+    background: null,
+    hatch: false,
+    border: 0,
+  },
   outsideFit: {
     id: "outsideFit",
     symbol: "◇",
@@ -116,7 +126,18 @@ export const MARKS: Readonly<Record<MarkId, MarkDef>> = {
   },
 };
 
-export const MARK_ORDER: readonly MarkId[] = ["noSize", "noStock", "hazard", "oversize", "undersize", "outsideFit"];
+export const MARK_ORDER: readonly MarkId[] = [
+  "noSize",
+  "noStock",
+  "hazard",
+  "oversize",
+  "undersize",
+  "nearRbp",
+  "outsideFit",
+];
+
+/** Marks drawn as a symbol in the cell's corner (the others change the cell's primary text or background). */
+export const CORNER_MARKS: readonly MarkId[] = ["hazard", "oversize", "undersize", "nearRbp", "outsideFit"];
 
 /** Backgrounds a cell can take, for the palette tests. */
 export const CELL_BACKGROUNDS: Readonly<Record<"sized" | "noSize" | "noStock" | "hazard", string>> = {
@@ -224,6 +245,10 @@ export function cellView(cell: Cell): CellView {
     marks.push("undersize");
     words.push(`Below the rounding cap: ${cell.capDetail ?? "further below the exact diameter than the cap"}`);
   }
+  if (cell.flags.nearRbp) {
+    marks.push("nearRbp");
+    words.push(`Near rated burst pressure: ${cell.rbpDetail ?? "within the lab's headroom"}`);
+  }
   if (cell.flags.outsideFit) {
     marks.push("outsideFit");
     words.push(`Outside published fit: ${cell.fitNote ?? "read with care"}`);
@@ -249,7 +274,7 @@ export function cellView(cell: Cell): CellView {
 /** Symbols shown in a cell's corner: every mark except the one already printed as the primary. */
 export function cornerSymbols(view: CellView): string {
   return view.marks
-    .filter((m) => m === "hazard" || m === "oversize" || m === "undersize" || m === "outsideFit")
+    .filter((m) => CORNER_MARKS.includes(m))
     .map((m) => MARKS[m].symbol)
     .join("");
 }
@@ -270,9 +295,21 @@ export type LegendContext = {
   stentName: string | null;
   hasProximal: boolean;
   hasReach: boolean;
-  /** The chart's rounding caps; the defaults when absent. */
+  /** The caps the marks were drawn against; the defaults when absent. */
   caps?: RoundingCaps;
+  /** The headroom below rated burst pressure that reach cells are marked within, atm. */
+  headroomAtm?: number;
+  /** When lookups differ in caps (the lab's caps are per lookup kind): each lookup's, named. */
+  capsByLookup?: readonly { name: string; caps: RoundingCaps }[];
 };
+
+/** "0.25 mm", or "0.25 mm (POT), 0.5 mm (side branch)" when the lookups differ. */
+function capWords(ctx: LegendContext, side: keyof RoundingCaps): string {
+  const each = ctx.capsByLookup ?? [];
+  const values = new Set(each.map((c) => c.caps[side]));
+  if (values.size > 1) return each.map((c) => `${formatSizeMm(c.caps[side])} mm (${c.name})`).join(", ");
+  return `${formatSizeMm((ctx.caps ?? { upMm: 0.25, downMm: 0.5 })[side])} mm`;
+}
 
 /** Legend lines for a poster: how to read a cell, then each mark made specific to its law and stent. */
 /** The stent-limit check in full, for the check page. */
@@ -287,11 +324,12 @@ export function legendEntries(ctx: LegendContext): LegendEntry[] {
       return `POT balloon at rated burst pressure wider than the ${ctx.stentName} sizes for this main branch can be post-dilated to, or no size covers it; orange, heavy border.`;
     }
     if (m === "oversize" || m === "undersize") {
-      const caps = ctx.caps ?? { upMm: 0.25, downMm: 0.5 };
       return m === "oversize"
-        ? `The printed balloon is more than ${formatSizeMm(caps.upMm)} mm above the exact diameter (the lab's cap; a gap in stock): choose with care.`
-        : `The printed balloon is more than ${formatSizeMm(caps.downMm)} mm below the exact diameter (the lab's cap; a gap in stock): choose with care.`;
+        ? `The printed balloon is more than ${capWords(ctx, "upMm")} above the exact diameter (the lab's cap; a gap in stock): choose with care.`
+        : `The printed balloon is more than ${capWords(ctx, "downMm")} below the exact diameter (the lab's cap; a gap in stock): choose with care.`;
     }
+    if (m === "nearRbp")
+      return `The printed pressure is within ${formatSizeMm(ctx.headroomAtm ?? 1)} atm of the balloon's rated burst pressure (the lab's headroom): check the device's own compliance chart.`;
     if (m === "outsideFit") {
       switch (ctx.law.law) {
         case "finet":

@@ -1,9 +1,10 @@
 // From a frozen snapshot to what the layout and the legend need: used by the poster, and by the
 // designer page to show legibility before anything is rendered.
-import { snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
-import { DEFAULT_ROUNDING_CAPS, LAWS, lawFormula, lawName, type Grid } from "@/lib/sizing";
+import { lookupCaps, snapshotGrids, type Snapshot } from "@/lib/charts/snapshot";
+import { lawCitation, lawFormula, lawName, type Grid } from "@/lib/sizing";
 import { gridSubtitleParts, lookupTitle, statusBanner } from "./labels";
 import type { EditionStatus } from "@/lib/editions/states";
+import { exceptionLine } from "./exceptions";
 import type { LayoutInput } from "./layout";
 import { CARD_READING_DISTANCE_M } from "./card";
 import { posterLegibility, requiredHeightMm, type Legibility } from "./legibility";
@@ -20,6 +21,8 @@ function sampleCell(grids: readonly Grid[], mark: MarkId | "sized"): CellView | 
   return sized.find((v) => v.marks.length === 0) ?? sized[0];
 }
 
+const CAP_NAMES = { proximal: "POT", side: "side branch", main: "main branch" } as const;
+
 /** Legend lines for the marks this chart's grids use, each with a real cell of the chart as its sample. */
 export function posterLegend(snapshot: Snapshot, grids: readonly Grid[] = snapshotGrids(snapshot)): LegendEntry[] {
   const all = legendEntries({
@@ -27,7 +30,9 @@ export function posterLegend(snapshot: Snapshot, grids: readonly Grid[] = snapsh
     stentName: snapshot.stent?.name ?? null,
     hasProximal: snapshot.lookups.some((l) => l.kind === "proximal"),
     hasReach: snapshot.lookups.some((l) => l.rounding === "reach"),
-    caps: snapshot.caps ?? DEFAULT_ROUNDING_CAPS,
+    caps: snapshot.lookups[0] ? lookupCaps(snapshot, snapshot.lookups[0]) : snapshot.caps,
+    headroomAtm: grids.find((g) => g.rounding === "reach")?.headroomAtm,
+    capsByLookup: snapshot.lookups.map((l) => ({ name: CAP_NAMES[l.kind], caps: lookupCaps(snapshot, l) })),
   });
   return all.flatMap((e) => {
     const sample = sampleCell(grids, e.mark);
@@ -65,9 +70,9 @@ export function layoutInputFor(
     texts: {
       title: snapshot.title.length,
       law: lawHeading(snapshot).length,
-      source: LAWS[snapshot.law.law].source.length,
+      source: lawCitation(snapshot.law).length,
       notes: snapshot.notes.length,
-      exceptions: (snapshot.ruleExceptions ?? []).map((e) => e.rule.length + e.reason.length + 30),
+      exceptions: (snapshot.ruleExceptions ?? []).map((e) => exceptionLine(e).length),
       caution: snapshot.caution.length,
       legend: posterLegend(snapshot, grids).map((e) => e.label.length + e.text.length + 2),
       url: url ? url.replace(/^https?:\/\//, "").length : TYPICAL_URL_CHARS,

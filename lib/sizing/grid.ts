@@ -24,7 +24,12 @@ export type GridInput = {
   stent?: readonly StentSize[] | null;
   /** How far a printed size may differ from its exact target; DEFAULT_ROUNDING_CAPS when absent. */
   caps?: RoundingCaps;
+  /** A reach pressure this close below rated burst pressure is marked; DEFAULT_RBP_HEADROOM_ATM when absent. */
+  headroomAtm?: number;
 };
+
+/** Reach pressures within this many atm below rated burst pressure are marked (common practice; no published source). */
+export const DEFAULT_RBP_HEADROOM_ATM = 1;
 
 export type RoundingCaps = { upMm: number; downMm: number };
 
@@ -48,8 +53,10 @@ export type Cell = {
   exact: CellExact;
   /** null when the cell has no exact size or the chart has no balloon family. */
   balloon: BalloonPick | null;
-  flags: { hazard: boolean; outsideFit: boolean; oversize: boolean; undersize: boolean };
+  flags: { hazard: boolean; outsideFit: boolean; oversize: boolean; undersize: boolean; nearRbp?: boolean };
   hazardDetail?: string;
+  /** The reach pressure and how close it is to rated burst pressure, when marked. */
+  rbpDetail?: string;
   /** Printed size minus exact target, mm, when the cap is exceeded. */
   capDetail?: string;
   fitNote?: string;
@@ -63,6 +70,7 @@ export type Grid = {
   law: LawSpec;
   rounding: RoundingRule;
   caps: RoundingCaps;
+  headroomAtm: number;
   /** Proximal grids with a platform: the balloon diameter the stent limit was checked at. */
   stentCheck: "rbp" | "nominal" | null;
   cells: Cell[][];
@@ -99,6 +107,7 @@ export function buildGrid(input: GridInput): Grid {
 
   const platform = input.kind === "proximal" && input.stent && input.stent.length > 0 ? input.stent : null;
   const caps = input.caps ?? DEFAULT_ROUNDING_CAPS;
+  const headroomAtm = input.headroomAtm ?? DEFAULT_RBP_HEADROOM_ATM;
   const family = input.family;
   const growth = family !== null && hasGrowthData(family);
 
@@ -138,6 +147,14 @@ export function buildGrid(input: GridInput): Grid {
           cell.flags.undersize = true;
           cell.capDetail = `${formatExactMm(delivered)} mm is ${formatExactMm(-off)} mm below the exact ${formatExactMm(exact)} mm (cap ${caps.downMm} mm)`;
         }
+        if (
+          family &&
+          balloon.pressureAtm !== null &&
+          family.rbpAtm - balloon.pressureAtm <= headroomAtm + CAP_SLACK_MM
+        ) {
+          cell.flags.nearRbp = true;
+          cell.rbpDetail = `${balloon.pressureAtm} atm is within ${headroomAtm} atm of the rated burst pressure (${family.rbpAtm} atm)`;
+        }
       }
       if (platform) {
         // Checked at the highest pressure the cell allows: rated burst pressure, by the family's
@@ -166,6 +183,7 @@ export function buildGrid(input: GridInput): Grid {
     law: { ...input.law },
     rounding: input.rounding,
     caps: { ...caps },
+    headroomAtm,
     stentCheck: platform ? (growth ? "rbp" : "nominal") : null,
     cells,
   };
@@ -181,6 +199,7 @@ export type GridSummary = {
   outsideFit: number;
   oversize: number;
   undersize: number;
+  nearRbp: number;
 };
 
 /** Counts for legends. */
@@ -194,6 +213,7 @@ export function gridSummary(grid: Grid): GridSummary {
     outsideFit: 0,
     oversize: 0,
     undersize: 0,
+    nearRbp: 0,
   };
   for (const cell of grid.cells.flat()) {
     s.cells++;
@@ -204,6 +224,7 @@ export function gridSummary(grid: Grid): GridSummary {
     if (cell.flags.outsideFit) s.outsideFit++;
     if (cell.flags.oversize) s.oversize++;
     if (cell.flags.undersize) s.undersize++;
+    if (cell.flags.nearRbp) s.nearRbp++;
   }
   return s;
 }
@@ -217,6 +238,7 @@ export const GRID_MARKS = [
   "oversize",
   "undersize",
   "outside-fit",
+  "near-rbp",
 ] as const;
 export type GridMark = (typeof GRID_MARKS)[number];
 
@@ -236,5 +258,6 @@ export function cellMarks(cell: Cell): GridMark[] {
   if (cell.flags.oversize) marks.push("oversize");
   if (cell.flags.undersize) marks.push("undersize");
   if (cell.flags.outsideFit) marks.push("outside-fit");
+  if (cell.flags.nearRbp) marks.push("near-rbp");
   return marks;
 }

@@ -88,6 +88,25 @@ export const LAWS: Readonly<Record<LawId, LawInfo>> = {
   },
 };
 
+/** The exponents Taylor DJ et al. (Front Physiol 2022, doi 10.3389/fphys.2022.871912) fitted in human coronaries. */
+export const POWER_FITTED_N_MIN = 2.15;
+export const POWER_FITTED_N_MAX = 2.38;
+
+/**
+ * The citation printed under a chart: the law's source; for the power law, the exponent used and
+ * whether it lies within the cited study's fitted range, in plain words.
+ */
+export function lawCitation(spec: LawSpec): string {
+  if (spec.law !== "power") return LAWS[spec.law].source;
+  const n = formatConstant(spec.n);
+  const inside = spec.n >= POWER_FITTED_N_MIN - 1e-9 && spec.n <= POWER_FITTED_N_MAX + 1e-9;
+  return `Power law with n = ${n}, chosen by the lab; ${
+    inside ? "within" : "OUTSIDE"
+  } the range n = ${POWER_FITTED_N_MIN} to ${POWER_FITTED_N_MAX} fitted in human coronaries by Taylor DJ et al., Front Physiol 2022, doi 10.3389/fphys.2022.871912${
+    inside ? "" : ": that study does not support this exponent"
+  }`;
+}
+
 /** Short decimal text without floating-point noise (0.678, 2.3, 7/3 -> 2.33333333333). */
 export function formatConstant(x: number): string {
   return String(Number(x.toPrecision(12)));
@@ -157,6 +176,18 @@ const fail = (reason: string): SolveFail => ({ ok: false, code: "no_solution", r
 const fmt3 = (x: number): string => formatDecimal(x, 3);
 
 /**
+ * A figure in a refusal, printed so it explains the refusal: three decimals, or as many more (up
+ * to six) as it takes to show the value on its side of `limit` (0.0499 mm, not 0.050 mm, below 0.05).
+ */
+export function figureAgainst(value: number, limit: number): string {
+  for (let d = 3; d < 6; d++) {
+    const shown = Number(formatDecimal(value, d));
+    if (Math.sign(shown - limit) === Math.sign(value - limit)) return formatDecimal(value, d, 3);
+  }
+  return formatDecimal(value, 6, 3);
+}
+
+/**
  * Solves the one unknown diameter (mm) from the two given. Throws RangeError when the spec is
  * out of bounds or not exactly two diameters are given (caller errors, caught by validation);
  * impossible geometry is never a number but a `no_solution` with a plain-words reason.
@@ -188,13 +219,13 @@ export function solve(spec: LawSpec, known: KnownDiameters): SolveResult {
   if (triple.parent - triple.mb < MIN_PARENT_STEP_MM - GEOMETRY_EPS_MM) {
     return fail(
       `Not a bifurcation: the parent is less than ${MIN_PARENT_STEP_MM} mm above the main branch ` +
-        `(here ${fmt3(triple.parent - triple.mb)} mm)`,
+        `(here ${figureAgainst(triple.parent - triple.mb, MIN_PARENT_STEP_MM)} mm)`,
     );
   }
   if (result.value < MIN_DIAMETER_MM - GEOMETRY_EPS_MM || result.value > MAX_DIAMETER_MM + GEOMETRY_EPS_MM) {
     return fail(
       `The ${result.solved === "mb" ? "main branch" : result.solved === "sb" ? "side branch" : "parent"} ` +
-        `would be ${fmt3(result.value)} mm, outside the meaningful ${MIN_DIAMETER_MM}-${MAX_DIAMETER_MM} mm`,
+        `would be ${figureAgainst(result.value, result.value < MIN_DIAMETER_MM ? MIN_DIAMETER_MM : MAX_DIAMETER_MM)} mm, outside the meaningful ${MIN_DIAMETER_MM}-${MAX_DIAMETER_MM} mm`,
     );
   }
   const fit = lawFit(spec, triple.mb, triple.sb);
@@ -215,7 +246,7 @@ function solveParent(spec: LawSpec, mb: number, sb: number): { solved: Vessel; v
       const threshold = (1 - spec.ratio) / spec.ratio;
       return fail(
         `${lawName(spec)} gives a parent no larger than the main branch when the side branch is ` +
-          `${fmt3(threshold)} of the main branch or less (here ${fmt3(sb / mb)})`,
+          `${fmt3(threshold)} of the main branch or less (here ${figureAgainst(sb / mb, threshold)})`,
       );
     }
   } else {
@@ -246,7 +277,7 @@ function solveSide(spec: LawSpec, parent: number, mb: number): { solved: Vessel;
   if (sb - mb > GEOMETRY_EPS_MM) {
     return fail(
       `${lawName(spec)} gives a side branch larger than the main branch when the parent is more than ` +
-        `${fmt3(limit)} times the main branch (here ${fmt3(parent / mb)})`,
+        `${fmt3(limit)} times the main branch (here ${figureAgainst(parent / mb, limit)})`,
     );
   }
   if (!(sb > GEOMETRY_EPS_MM)) return fail("No side branch of positive size fits this law");
@@ -264,13 +295,13 @@ function solveMain(spec: LawSpec, parent: number, sb: number): { solved: Vessel;
       const threshold = (1 - spec.ratio) / spec.ratio;
       return fail(
         `${lawName(spec)} gives a main branch at or above the parent when the side branch is ` +
-          `${fmt3(threshold)} of the parent or less (here ${fmt3(sb / parent)})`,
+          `${fmt3(threshold)} of the parent or less (here ${figureAgainst(sb / parent, threshold)})`,
       );
     }
     if (sb - mb > GEOMETRY_EPS_MM) {
       return fail(
         `${lawName(spec)} gives a main branch smaller than the side branch when the side branch is ` +
-          `more than ${fmt3(1 / (2 * spec.ratio))} of the parent (here ${fmt3(sb / parent)})`,
+          `more than ${fmt3(1 / (2 * spec.ratio))} of the parent (here ${figureAgainst(sb / parent, 1 / (2 * spec.ratio))})`,
       );
     }
   } else {
@@ -279,7 +310,7 @@ function solveMain(spec: LawSpec, parent: number, sb: number): { solved: Vessel;
     if (sb - mb > GEOMETRY_EPS_MM) {
       return fail(
         `${lawName(spec)} gives a main branch smaller than the side branch when the parent is under ` +
-          `${fmt3(Math.pow(2, 1 / n))} times the side branch (here ${fmt3(parent / sb)})`,
+          `${fmt3(Math.pow(2, 1 / n))} times the side branch (here ${figureAgainst(parent / sb, Math.pow(2, 1 / n))})`,
       );
     }
     if (mb - parent >= -GEOMETRY_EPS_MM) {

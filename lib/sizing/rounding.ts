@@ -71,9 +71,10 @@ export function balloonDiameterAt(family: BalloonFamilyStock, nominalMm: number,
  *   does not cover that vessel, so the chart says so rather than jump to a distant size.
  * - up: smallest stocked above the target; down: largest stocked below it.
  * - nearest: closest stocked size; an exact tie goes to the smaller (the conservative side).
- * - reach: the smallest stocked size whose diameter, linear from nominal pressure to rated
- *   burst pressure, reaches the target, with the pressure rounded up to a whole atm (a size at
- *   or above the target reaches it at nominal). Without growth data, reach is up.
+ * - reach: of the stocked sizes whose diameter, linear from nominal pressure to rated burst
+ *   pressure, reaches the target, the one that needs the lowest pressure: the largest size below
+ *   the target, with the pressure rounded up to a whole atm and never above rated burst pressure.
+ *   When it cannot reach, the next size up at nominal. Without growth data, reach is up.
  */
 export function pickBalloon(targetMm: number, family: BalloonFamilyStock, rule: RoundingRule): BalloonPick {
   if (!Number.isFinite(targetMm) || targetMm <= 0) {
@@ -133,21 +134,22 @@ export function pickBalloon(targetMm: number, family: BalloonFamilyStock, rule: 
         ? atNominal(above as number)
         : atNominal(below as number);
     case "reach": {
-      const growth = family.growthAtRbpMm as number;
-      const span = family.rbpAtm - family.nominalAtm;
-      for (const d of sizes) {
-        if (d > targetMm) return atNominal(d);
-        const atm = Math.ceil(family.nominalAtm + (span * (targetMm - d)) / growth - SLACK);
-        if (atm <= family.rbpAtm + SLACK) {
+      // The largest size below the target needs the lowest pressure; if even it cannot reach the
+      // target by rated burst pressure, no smaller one can, and the next size up is used at nominal.
+      if (below !== undefined) {
+        const growth = family.growthAtRbpMm as number;
+        const span = family.rbpAtm - family.nominalAtm;
+        const atm = Math.ceil(family.nominalAtm + (span * (targetMm - below)) / growth - SLACK);
+        if (atm <= family.rbpAtm + SLACK)
           return {
             ok: true,
-            diameterMm: d,
+            diameterMm: below,
             pressureAtm: atm,
             rule: applied,
-            expectedMm: balloonDiameterAt(family, d, atm),
+            expectedMm: balloonDiameterAt(family, below, atm),
           };
-        }
       }
+      if (above !== undefined) return atNominal(above);
       return aboveStock(`No stocked size at or above ${mm(targetMm)} mm, and none reaches it by rated burst pressure`);
     }
   }

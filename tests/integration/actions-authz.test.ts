@@ -29,9 +29,12 @@ import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { newToken } from "@/lib/auth/tokens";
 import { ACTIONS, type Actor } from "../authz/matrix";
 import type { Role, Who } from "../support/roles";
-import { labWithTeam, unique } from "./support/fixtures";
+import { labWithTeam, unique, stentPlatformFor } from "./support/fixtures";
 import { mailTo } from "../support/mail";
 import { as } from "../support/roles";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // The session is the one thing stood in for: who is calling. Everything else is real.
 vi.mock("@/lib/auth/session", () => import("../support/session"));
@@ -78,6 +81,7 @@ beforeAll(async () => {
   invitationId = row!.id;
 
   const { manager, lead, educator } = team.people;
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({
@@ -135,6 +139,7 @@ function chartDefinition(title = "Fixture POT chart") {
         familyId: wall.familyId,
       },
     ],
+    stentPlatformId: stentId,
     paper: "A3",
     orientation: "landscape",
     readingDistanceM: 1,

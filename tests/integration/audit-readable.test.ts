@@ -13,8 +13,11 @@ import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import { posterPdf } from "@/lib/ops/renders";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { as } from "../support/roles";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 const ids = { chart: 0, edition: 0, family: 0 };
@@ -23,6 +26,7 @@ const definition = (readingDistanceM: number) =>
     title: "Audit POT chart",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId: ids.family, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM,
@@ -30,6 +34,7 @@ const definition = (readingDistanceM: number) =>
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC audit", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })

@@ -13,13 +13,16 @@ import { PATCH as patchChartRoute } from "@/app/api/v1/charts/[id]/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { GET as checkRoute } from "@/app/api/v1/check/[token]/route";
 import { cardHeadings } from "@/tests/support/card-headings";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { call } from "../support/routes";
 import { createChart } from "./support/writes";
 import { as } from "../support/roles";
 import { signOffSteps } from "./support/sign-off";
 
 vi.mock("@/lib/auth/session", () => import("../support/session"));
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let chartId = 0;
@@ -46,6 +49,7 @@ async function check(id: number) {
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [nc] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC card", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -75,6 +79,7 @@ beforeAll(async () => {
         cols: [2.5, 3, 3.5, 4],
       },
     ],
+    stentPlatformId: stentId,
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1,

@@ -10,6 +10,10 @@ import { balloonFamilies, balloons, charts, editions, labs, users } from "@/db/s
 import { fingerprintOf } from "@/lib/charts/fingerprint";
 import { AppError } from "@/lib/errors";
 import { smallPotChart } from "../support/chart-fixtures";
+import { stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // An invented lab of its own, so these tests never depend on the demo seed.
 const tag = randomUUID().slice(0, 8);
@@ -34,6 +38,7 @@ beforeAll(async () => {
       .$returningId();
     people[key].id = u!.id;
   }
+  stentId = await stentPlatformFor(labId);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId, name: "NC test family", compliance: "nc", nominalAtm: 12, rbpAtm: 20, growthAtRbpMm: 0.2 })
@@ -45,7 +50,7 @@ beforeAll(async () => {
 
 afterAll(() => pool.end());
 
-const definition = () => smallPotChart(familyId, "POT test chart");
+const definition = () => smallPotChart(familyId, "POT test chart", stentId);
 
 async function expectAppError(p: Promise<unknown>, status: number, text?: RegExp) {
   const err = await p.then(

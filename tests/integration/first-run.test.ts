@@ -11,7 +11,7 @@ import { templateDefinition } from "@/lib/charts/templates";
 import { createChart } from "@/lib/ops/charts";
 import { createLab } from "@/lib/ops/lab-create";
 import { getStock } from "@/lib/ops/stock";
-import { addMember, createUser, labWithTeam, unique } from "./support/fixtures";
+import { addMember, createUser, labWithTeam, unique, stentPlatformFor } from "./support/fixtures";
 import { as } from "../support/roles";
 import { refusal } from "../support/refusal";
 
@@ -104,6 +104,8 @@ describe("the generic size ladder", () => {
 
 describe("chart templates on ladder stock", () => {
   it("both templates make charts the lab's rules accept, with axes inside the stocked range", async () => {
+    // A POT chart needs a stent platform to check against (lab rule), so the lab stocks one first.
+    await stentPlatformFor(team.lab.id);
     const stock = await getStock(as(team.people.manager), { lab: team.lab.slug });
     const [family] = stock.balloonFamilies;
     const stocked = family!.balloons.filter((b) => b.inStock).map((b) => b.diameterMm);

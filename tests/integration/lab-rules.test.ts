@@ -10,9 +10,12 @@ import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { as } from "../support/roles";
 import { refusal } from "../support/refusal";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let other: Awaited<ReturnType<typeof labWithTeam>>;
@@ -23,6 +26,7 @@ const definition = (title: string, law: object = { law: "murray" }) =>
     title,
     law,
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,
@@ -42,6 +46,7 @@ const rulesAudit = async () =>
 beforeAll(async () => {
   team = await labWithTeam();
   other = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC rules", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -63,6 +68,10 @@ describe("lab rules per lookup kind", () => {
       defaultLaw: { law: "finet", ratio: 0.678 },
       rounding: ["up", "nearest", "reach"],
       caps: { upMm: 0.25, downMm: 0.5 },
+      // Between the square law and Murray's law (Huo et al., EuroIntervention 2012 compare both).
+      powerRange: { min: 2, max: 3 },
+      // Common practice, no published source: a reach pressure within 1 atm of rated burst pressure is marked.
+      rbpHeadroomAtm: 1,
     });
     expect(rules.exceptions).toEqual([]);
   });
@@ -168,8 +177,14 @@ describe("lab rules per lookup kind", () => {
     expect(ok.status).toBe("approved");
     const [row] = await db.select().from(editions).where(eq(editions.id, next.id));
     expect((row!.snapshot as { ruleExceptions?: unknown }).ruleExceptions).toEqual([
-      { rule: "law", reason: "Murray agreed for the teaching room" },
-      { rule: "legibility", reason: "Hangs beside the table" },
+      expect.objectContaining({
+        rule: "law",
+        reason: "Murray agreed for the teaching room",
+        relaxes: "Murray for a POT (proximal) lookup; the lab allows Finet, Huo-Kassab",
+        recordedBy: team.people.lead.name,
+        recordedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/),
+      }),
+      expect.objectContaining({ rule: "legibility", reason: "Hangs beside the table" }),
     ]);
   });
 
@@ -183,6 +198,7 @@ describe("lab rules per lookup kind", () => {
         title: "Three by three on A4",
         law: { law: "finet", ratio: 0.678 },
         lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [2.5, 2.75, 3], cols: [2, 2.25, 2.5] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 2.5,
@@ -208,22 +224,40 @@ describe("lab rules per lookup kind", () => {
     expect((await getEdition({ labId: team.lab.id, editionId: ed.id }))!.status).toBe("draft");
   });
 
-  it("charts without exceptions freeze no ruleExceptions field; caps above the lab's are refused by name", async () => {
+  it("charts without exceptions freeze no ruleExceptions field; caps above the lab's are refused by name, at creation and at approval", async () => {
+    const wide = {
+      ...definition("Wide caps", { law: "finet", ratio: 0.678 }),
+      roundingCaps: { upMm: 0.5, downMm: 0.5 },
+    };
+    const created = await refusal(chartOps.createChart(as(team.people.educator), { lab: team.lab.slug }, wide));
+    expect(created.status).toBe(400);
+    expect(created.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
+    // Within the rules when created; the lead then lowers the lab's cap, and approval refuses.
     const { id: chartId } = await chartOps.createChart(
       as(team.people.educator),
       { lab: team.lab.slug },
       {
-        ...definition("Wide caps", { law: "finet", ratio: 0.678 }),
-        roundingCaps: { upMm: 0.5, downMm: 0.5 },
+        ...wide,
+        roundingCaps: { upMm: 0.2, downMm: 0.5 },
       },
     );
     const ed = await ops.createEdition(as(team.people.educator), { chartId });
     const [row] = await db.select().from(editions).where(eq(editions.id, ed.id));
     expect(row!.snapshot).not.toHaveProperty("ruleExceptions");
+    await rulesOps.setLabRules(
+      as(team.people.lead),
+      { lab: team.lab.slug },
+      {
+        lookups: { proximal: { caps: { upMm: 0.1, downMm: 0.5 } } },
+      },
+    );
     const err = await refusal(ops.approveEdition(as(team.people.lead), { editionId: ed.id }, { reviewed: true }));
-    expect(err.status).toBe(422);
-    expect(err.message).toMatch(/rounding caps/);
-    expect(err.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
+    expect(err.status).toBe(409);
+    const next = await ops.createEdition(as(team.people.educator), { chartId });
+    const refused = await refusal(ops.approveEdition(as(team.people.lead), { editionId: next.id }, { reviewed: true }));
+    expect(refused.status).toBe(422);
+    expect(refused.message).toMatch(/rounding caps/);
+    expect(refused.issues).toEqual([expect.objectContaining({ path: ["roundingCaps", "upMm"] })]);
   });
 
   it("only the lead changes them; others are refused and nothing changes", async () => {

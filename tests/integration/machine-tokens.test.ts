@@ -20,13 +20,16 @@ import { GET as chartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import { PUT as rulesRoute } from "@/app/api/v1/labs/[slug]/rules/route";
 import { PATCH as settingsRoute } from "@/app/api/v1/labs/[slug]/settings/route";
 import { GET as solveRoute } from "@/app/api/v1/solve/route";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { mailTo } from "../support/mail";
 import { approveEdition, createChart, createEdition, createRoom, recordPosting } from "./support/writes";
 import { auditCount } from "../support/audit";
 import { as } from "../support/roles";
 import { send } from "../support/routes";
 import { smallPotChart } from "../support/chart-fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // A low limit so the test can reach it; set before lib/env is first read.
 const LIMIT = vi.hoisted(() => {
@@ -69,6 +72,7 @@ const revision = async (labId: number) =>
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC token family", compliance: "nc", nominalAtm: 12, rbpAtm: 20 })
@@ -88,7 +92,7 @@ beforeAll(async () => {
     .$returningId();
   ids.otherBalloon = ob!.id;
 
-  const definition = smallPotChart(ids.family, "Token POT chart");
+  const definition = smallPotChart(ids.family, "Token POT chart", stentId);
   const labId = team.lab.id;
   const chart = await createChart({ labId, userId: team.people.educator.id, definition });
   const ed = await createEdition({ labId, chartId: chart.id, actor: team.people.educator });

@@ -11,10 +11,13 @@ import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import { deliverDigest, deliverDueDigests } from "@/lib/ops/notices";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { mailTo } from "../support/mail";
 import { createRoom, recordPosting, takeDownPosting, updateBalloon } from "./support/writes";
 import { as } from "../support/roles";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 // What the timer does once the lab has been quiet, without waiting the quiet period out.
@@ -25,6 +28,7 @@ beforeAll(async () => {
   team = await labWithTeam();
   // Three charts, each on its own family, each hanging in its own room.
   for (const n of [1, 2, 3]) {
+    stentId = await stentPlatformFor(team.lab.id);
     const [fam] = await db
       .insert(balloonFamilies)
       .values({
@@ -57,6 +61,7 @@ beforeAll(async () => {
             cols: { from: 2, to: 3, step: 0.25 },
           },
         ],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,
@@ -173,6 +178,7 @@ describe("sign-off mail", () => {
         title: "Sign-off mail chart",
         law: { law: "murray" },
         lookups: [{ kind: "proximal", familyId: f.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,
@@ -214,6 +220,7 @@ describe("sign-off mail", () => {
         title: "Sign-off mail chart",
         law: { law: "murray" },
         lookups: [{ kind: "proximal", familyId: f.id, rounding: "up", rows: [3, 3.5, 4], cols: [2.5, 3] }],
+        stentPlatformId: stentId,
         paper: "A4",
         orientation: "portrait",
         readingDistanceM: 1,

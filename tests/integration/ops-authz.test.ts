@@ -21,8 +21,11 @@ import * as tokensOps from "@/lib/ops/tokens";
 import type { Caller } from "@/lib/ops/caller";
 import { can, ROLES, type Capability } from "@/lib/permissions";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { createChart, createEdition } from "./support/writes";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 type Op = ((caller: Caller, ref: Record<string, unknown>, input?: unknown) => Promise<unknown>) & {
   operation: string;
@@ -74,6 +77,7 @@ function refFor(op: Op) {
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC ops", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: null })
@@ -82,6 +86,7 @@ beforeAll(async () => {
     title: "Ops refusals",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2, 2.5] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,

@@ -16,6 +16,9 @@ import * as local from "@/db/local-server";
 import { until } from "../support/poll";
 import { smallPotChart } from "../support/chart-fixtures";
 
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
+
 async function freePort(): Promise<number> {
   return new Promise((resolve) => {
     const srv = createServer().listen(0, "127.0.0.1", () => {
@@ -80,6 +83,19 @@ beforeAll(async () => {
       .$returningId();
     ids[who] = u!.id;
   }
+  const [platform] = await db
+    .insert(app.schema.stentPlatforms)
+    .values({ labId: ids.labId, name: "DES (illustrative)" })
+    .$returningId();
+  stentId = platform!.id;
+  await db.insert(app.schema.stentSizes).values(
+    [2, 2.5, 3, 3.5, 4].map((nominalMm) => ({
+      labId: ids.labId,
+      platformId: stentId,
+      nominalMm,
+      maxPostDilatationMm: 6,
+    })),
+  );
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: ids.labId, name: "NC family (illustrative)", compliance: "nc", nominalAtm: 12, rbpAtm: 20 })
@@ -196,7 +212,7 @@ describe("a database killed mid-write leaves nothing half-written, and the app r
     const { db } = app.db;
     const { editions, auditEvents } = app.schema;
     const { eq, and } = app.drizzle;
-    const definition = smallPotChart(ids.familyId, "Outage chart");
+    const definition = smallPotChart(ids.familyId, "Outage chart", stentId);
     const { id: chartId } = await app.charts.createChart({ labId: ids.labId, userId: ids.educator, definition });
     const author = { id: ids.educator, name: "Outage educator" };
     const lead = { id: ids.lead, name: "Outage lead" };

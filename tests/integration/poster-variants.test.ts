@@ -16,13 +16,16 @@ import { POST as createEditionRoute } from "@/app/api/v1/charts/[id]/editions/ro
 import { POST as approveRoute } from "@/app/api/v1/editions/[id]/approve/route";
 import { GET as pdfRoute } from "@/app/api/v1/editions/[id]/pdf/route";
 import { withTempDir } from "@/tests/support/pdf-tools";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { call } from "../support/routes";
 import { createChart } from "./support/writes";
 import { as } from "../support/roles";
 import { signOffSteps } from "./support/sign-off";
 
 vi.mock("@/lib/auth/session", () => import("../support/session"));
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;
@@ -59,9 +62,10 @@ const definition = (over: Record<string, unknown> = {}) =>
     title: "Variant chart",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A3",
     orientation: "portrait",
-    readingDistanceM: 2,
+    readingDistanceM: 1.8, // with the stent platform's words the A3 square-law poster is legible to 1.9 m
     ...over,
   });
 
@@ -70,6 +74,7 @@ let first = 0;
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC variants", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })

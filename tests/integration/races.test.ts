@@ -9,15 +9,19 @@ import { AppError } from "@/lib/errors";
 import { createRoom, recordPosting } from "@/lib/ops/postings";
 import { conflictFor, duplicateKey } from "@/lib/ops/write";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam, unique } from "./support/fixtures";
+import { labWithTeam, unique, stentPlatformFor } from "./support/fixtures";
 import { approveEdition, createChart, createEdition } from "./support/writes";
 import { as } from "../support/roles";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let editionId = 0;
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC race", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: null })
@@ -26,6 +30,7 @@ beforeAll(async () => {
     title: "Races",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2, 2.5] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,

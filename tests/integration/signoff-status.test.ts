@@ -12,13 +12,16 @@ import { POST as archiveRoute } from "@/app/api/v1/charts/[id]/archive/route";
 import { POST as restoreRoute } from "@/app/api/v1/charts/[id]/restore/route";
 import { GET as listChartsRoute } from "@/app/api/v1/labs/[slug]/charts/route";
 import type { CheckJson } from "@/lib/editions/check-json";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { createChart, createRoom, recordPosting } from "./support/writes";
 import { as } from "../support/roles";
 import { callJson } from "../support/routes";
 import { signOffSteps } from "./support/sign-off";
 
 vi.mock("@/lib/auth/session", () => import("../support/session"));
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let chartId = 0;
@@ -32,6 +35,7 @@ let familyId = 0;
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC status", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })
@@ -46,6 +50,7 @@ beforeAll(async () => {
     title: "Status chart",
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,
@@ -123,6 +128,7 @@ describe("archiving a chart", () => {
       title: "Chart to archive",
       law: { law: "murray" },
       lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+      stentPlatformId: stentId,
       paper: "A4",
       orientation: "portrait",
       readingDistanceM: 1,

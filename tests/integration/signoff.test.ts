@@ -8,10 +8,13 @@ import * as chartOps from "@/lib/ops/charts";
 import * as ops from "@/lib/ops/editions";
 import * as rulesOps from "@/lib/ops/lab-rules";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
-import { labWithTeam } from "./support/fixtures";
+import { labWithTeam, stentPlatformFor } from "./support/fixtures";
 import { getCheckByToken } from "@/lib/ops/check";
 import { as } from "../support/roles";
 import { refusal } from "../support/refusal";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 let team: Awaited<ReturnType<typeof labWithTeam>>;
 let familyId = 0;
@@ -21,6 +24,7 @@ const definition = (title: string, notes = "") =>
     title,
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: stentId,
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,
@@ -39,6 +43,7 @@ async function footprint() {
 
 beforeAll(async () => {
   team = await labWithTeam();
+  stentId = await stentPlatformFor(team.lab.id);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({ labId: team.lab.id, name: "NC sign-off", compliance: "nc", nominalAtm: 10, rbpAtm: 18, growthAtRbpMm: 0 })

@@ -11,6 +11,10 @@ import { env } from "@/lib/env";
 import { deliverDigest } from "@/lib/ops/notices";
 import { mailTo } from "../support/mail";
 import { smallPotChart } from "../support/chart-fixtures";
+import { stentPlatformFor } from "./support/fixtures";
+
+// POT charts need a stent platform (lab rule "POT checked against a stent platform").
+let stentId = 0;
 
 // An invented lab of its own; mail goes over SMTP to the fake that `npm test` runs.
 const tag = randomUUID().slice(0, 8);
@@ -50,6 +54,7 @@ beforeAll(async () => {
     people[role].id = u!.id;
     await db.insert(memberships).values({ labId: ids.lab, userId: u!.id, role, notifyStale: role === "educator" });
   }
+  stentId = await stentPlatformFor(ids.lab);
   const [fam] = await db
     .insert(balloonFamilies)
     .values({
@@ -70,7 +75,7 @@ beforeAll(async () => {
       inStock: true,
     })),
   );
-  const definition = smallPotChart(ids.family, "POT chart");
+  const definition = smallPotChart(ids.family, "POT chart", stentId);
   ids.chart = (await createChart({ labId: ids.lab, userId: people.educator.id, definition })).id;
   const ed = await createEdition({ labId: ids.lab, chartId: ids.chart, actor: people.educator });
   await approveEdition({ labId: ids.lab, editionId: ed.id, actor: people.lead });

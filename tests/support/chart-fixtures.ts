@@ -6,8 +6,11 @@ import { chartDefinitionSchema } from "@/lib/validation/chart";
 export const steps = (from: number, to: number, step = 0.25) =>
   Array.from({ length: Math.round((to - from) / step) + 1 }, (_, i) => Math.round((from + i * step) * 100) / 100);
 
-/** A small POT chart (Finet 0.678, A2 portrait, MB 2.5-3.5 x SB 2.0-3.0 mm) on one balloon family. */
-export const smallPotChart = (familyId: number, title = "POT test chart") =>
+/**
+ * A small POT chart (Finet 0.678, A2 portrait, MB 2.5-3.5 x SB 2.0-3.0 mm) on one balloon family,
+ * checked against `stentPlatformId` when given (the lab rule asks for one unless excepted).
+ */
+export const smallPotChart = (familyId: number, title = "POT test chart", stentPlatformId?: number) =>
   chartDefinitionSchema.parse({
     title,
     law: { law: "finet", ratio: 0.678 },
@@ -20,6 +23,7 @@ export const smallPotChart = (familyId: number, title = "POT test chart") =>
         familyId,
       },
     ],
+    ...(stentPlatformId === undefined ? {} : { stentPlatformId }),
     paper: "A2",
     orientation: "portrait",
     readingDistanceM: 1.5,

@@ -8,6 +8,9 @@ import {
   mergeLabRules,
   readLabRules,
   reviewByDate,
+  ruledDefinition,
+  ruledSnapshot,
+  stampExceptions,
   type LabRules,
   type RuledChart,
 } from "@/lib/labs/rules";
@@ -16,6 +19,7 @@ const potChart: RuledChart = {
   law: { law: "murray" },
   lookups: [{ kind: "proximal", rounding: "up" }],
   caps: { upMm: 0.25, downMm: 0.5 },
+  stentPlatform: true,
 };
 
 const strict: LabRules = {
@@ -27,6 +31,8 @@ const strict: LabRules = {
       defaultLaw: { law: "huo-kassab" },
       rounding: ["up"],
       caps: { upMm: 0.25, downMm: 0.25 },
+      powerRange: { min: 2, max: 3 },
+      rbpHeadroomAtm: 1,
     },
   },
 };
@@ -113,8 +119,16 @@ describe("lab rules", () => {
     const after = checkChartAgainstRules(7, potChart, excepted);
     expect(after.issues.map((i) => i.rule)).toEqual(["caps"]);
     expect(after.applied).toEqual([
-      { rule: "law", reason: "Murray agreed for the teaching chart" },
-      { rule: "legibility", reason: "Hung at the table" },
+      {
+        rule: "law",
+        reason: "Murray agreed for the teaching chart",
+        relaxes: "Murray for a POT (proximal) lookup; the lab allows Finet, Huo-Kassab",
+      },
+      {
+        rule: "legibility",
+        reason: "Hung at the table",
+        relaxes: "figures sized for a reader nearer than the stated reading distance",
+      },
     ]);
     expect(
       checkChartAgainstRules(
@@ -123,6 +137,67 @@ describe("lab rules", () => {
         strict,
       ).issues.map((i) => i.rule),
     ).toContain("rounding");
+  });
+
+  it("an exception keeps who recorded it and when; a new or changed one is stamped, sent stamps ignored", () => {
+    const before = [{ chartId: 1, rule: "caps" as const, reason: "Gap", recordedBy: "Ann", recordedOn: "2026-01-02" }];
+    const after = stampExceptions(
+      before,
+      [
+        { chartId: 1, rule: "caps", reason: "Gap", recordedBy: "Forged", recordedOn: "1999-01-01" },
+        { chartId: 2, rule: "law", reason: "New", recordedBy: "Forged" },
+      ],
+      "Bea",
+      "2026-12-05",
+    );
+    expect(after).toEqual([
+      { chartId: 1, rule: "caps", reason: "Gap", recordedBy: "Ann", recordedOn: "2026-01-02" },
+      { chartId: 2, rule: "law", reason: "New", recordedBy: "Bea", recordedOn: "2026-12-05" },
+    ]);
+  });
+
+  it("a power-law exponent outside the lab's range (default 2 to 3, square to Murray) is a breach an exception excuses", () => {
+    const power = (n: number): RuledChart => ({ ...potChart, law: { law: "power", n } });
+    expect(DEFAULT_LAB_RULES.lookups.proximal.powerRange).toEqual({ min: 2, max: 3 });
+    for (const n of [2, 2.3, 3]) expect(checkChartAgainstRules(1, power(n), DEFAULT_LAB_RULES).issues).toEqual([]);
+    const res = checkChartAgainstRules(1, power(1.6), DEFAULT_LAB_RULES);
+    expect(res.issues.map((i) => [i.rule, i.path.join(".")])).toEqual([["exponent", "law.n"]]);
+    expect(res.issues[0]!.message).toContain("from 2 to 3 in this lab; the chart uses 1.6");
+    const waived = checkChartAgainstRules(1, power(3.2), {
+      ...DEFAULT_LAB_RULES,
+      exceptions: [{ chartId: 1, rule: "exponent", reason: "Teaching chart" }],
+    });
+    expect(waived.issues).toEqual([]);
+    expect(waived.applied[0]!.relaxes).toBe(
+      "power-law exponent n = 3.2 (the lab's range for a POT (proximal) lookup: 2 to 3)",
+    );
+    const bad = labRulesPatchSchema.safeParse({ lookups: { proximal: { powerRange: { min: 2.5, max: 2.2 } } } });
+    expect(bad.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.max");
+    const wide = labRulesPatchSchema.safeParse({ lookups: { proximal: { powerRange: { min: 1, max: 3 } } } });
+    expect(wide.error!.issues.map((i) => i.path.join("."))).toContain("lookups.proximal.powerRange.min");
+  });
+
+  it("a POT lookup without a stent platform breaks the rule unless a no-stent-check exception is recorded", () => {
+    const bare: RuledChart = { ...potChart, stentPlatform: false };
+    const res = checkChartAgainstRules(3, bare, DEFAULT_LAB_RULES);
+    expect(res.issues.map((i) => [i.rule, i.path.join(".")])).toEqual([["no-stent-check", "stentPlatformId"]]);
+    // Side and main lookups check no stent.
+    const side: RuledChart = { ...bare, lookups: [{ kind: "side", rounding: "down" }] };
+    expect(checkChartAgainstRules(3, side, DEFAULT_LAB_RULES).issues).toEqual([]);
+    const excused = checkChartAgainstRules(3, bare, {
+      ...DEFAULT_LAB_RULES,
+      exceptions: [{ chartId: 3, rule: "no-stent-check", reason: "No DES used in this room (illustrative)" }],
+    });
+    expect(excused.issues).toEqual([]);
+    expect(excused.applied).toEqual([
+      {
+        rule: "no-stent-check",
+        reason: "No DES used in this room (illustrative)",
+        relaxes: "POT balloons are not checked against any stent's maximum post-dilatation diameter",
+      },
+    ]);
+    expect(ruledDefinition({ ...bare, stentPlatformId: 4 }).stentPlatform).toBe(true);
+    expect(ruledSnapshot({ ...bare, stent: null }).stentPlatform).toBe(false);
   });
 
   it("new charts start from the lab's default law, an allowed rounding and its caps", () => {

@@ -6,6 +6,7 @@ import {
   cardCoverage,
   cardFaces,
   cardGrid,
+  cardKeyLines,
   layoutCard,
   layoutCardKey,
   CARD_PAGE,
@@ -14,6 +15,7 @@ import {
 } from "@/lib/poster/card";
 import type { Box } from "@/lib/poster/layout";
 import { posterLegend } from "@/lib/poster/model";
+import { cardExceptionLine } from "@/lib/poster/exceptions";
 import { gridTextRuns } from "@/lib/poster/cell-text";
 import {
   approvalText,
@@ -46,6 +48,7 @@ const KEY_SENTENCES: Record<MarkId, string> = {
   oversize: "Further above the exact diameter than the lab's cap: choose with care.",
   undersize: "Further below the exact diameter than the lab's cap: choose with care.",
   outsideFit: "The law was fitted mainly to other bifurcation shapes: read with care.",
+  nearRbp: "! The pressure is within the lab's headroom below rated burst pressure: check the balloon's own chart.",
 };
 
 const KEY_WORDS: Record<MarkId, string> = {
@@ -55,6 +58,7 @@ const KEY_WORDS: Record<MarkId, string> = {
   oversize: "above cap",
   undersize: "below cap",
   outsideFit: "outside fit",
+  nearRbp: "near RBP",
 };
 
 /** The edition's lines: its number, the approval (or that it is a draft) and the review-by date. */
@@ -185,6 +189,9 @@ function GridFace({ input, full, grid, l }: { input: PosterInput; full: Grid; gr
       </View>
       <Text style={{ ...at(l.key), fontSize: 4.4, lineHeight: 1.1 }}>
         {loc([key, ...used.map((m) => `${MARKS[m].symbol} ${KEY_WORDS[m]}`)].join(" · "))}
+        {(input.snapshot.ruleExceptions ?? [])
+          .map((e) => `\n${localiseNumbers(cardExceptionLine(e), nf, [e.reason])}`)
+          .join("")}
       </Text>
     </CardPage>
   );
@@ -215,6 +222,11 @@ function KeyFace({ input, front }: { input: PosterInput; front: { full: Grid; gr
             {loc(`The other side shows ${cardCoverage(front.full, front.grid)}.`)}
           </Text>
         ) : null}
+        {(snapshot.ruleExceptions ?? []).map((e, i) => (
+          <Text key={`x${i}`} style={{ fontSize: 4.2, lineHeight: 1.15, marginTop: 0.8 }}>
+            {localiseNumbers(cardExceptionLine(e), nf, [e.reason])}
+          </Text>
+        ))}
       </View>
       <QrCode box={l.qr} url={edition.checkUrl} />
       <View style={{ ...at(l.code), alignItems: "center" }}>
@@ -234,12 +246,13 @@ function KeyFace({ input, front }: { input: PosterInput; front: { full: Grid; gr
 export function CardDocument({ input }: { input: PosterInput }) {
   const { snapshot, edition } = input;
   const grids = snapshotGrids(snapshot);
+  const keyLines = cardKeyLines(snapshot);
   const created = edition.approvedAt ?? POSTER_EPOCH;
   const faces = cardFaces(snapshot);
   const gridOf = (face: CardFace) => {
     if (face === "key") return null;
     const full = grids[face.lookup] ?? (grids[0] as Grid);
-    return { full, grid: cardGrid(full, face) };
+    return { full, grid: cardGrid(full, face, keyLines) };
   };
   return (
     <Document
@@ -256,7 +269,7 @@ export function CardDocument({ input }: { input: PosterInput }) {
       {faces.map((face, i) => {
         if (face === "key") return <KeyFace key={i} input={input} front={gridOf(faces[0])} />;
         const { full, grid } = gridOf(face) as { full: Grid; grid: Grid };
-        return <GridFace key={i} input={input} full={full} grid={grid} l={layoutCard(grid)} />;
+        return <GridFace key={i} input={input} full={full} grid={grid} l={layoutCard(grid, keyLines)} />;
       })}
     </Document>
   );

@@ -31,11 +31,20 @@ import {
   type GridLayout,
   type PosterLayout,
 } from "@/lib/poster/layout";
-import { cellView, MARKS, PALETTE, type CellView, type LegendEntry, type MarkId } from "@/lib/poster/marks";
+import {
+  cellView,
+  CORNER_MARKS,
+  MARKS,
+  PALETTE,
+  type CellView,
+  type LegendEntry,
+  type MarkId,
+} from "@/lib/poster/marks";
+import { exceptionLine } from "@/lib/poster/exceptions";
 import { layoutInputFor, posterLegend } from "@/lib/poster/model";
 import { PAPERS } from "@/lib/poster/paper";
 import { qrPath, qrSymbol, QR_QUIET_MODULES } from "@/lib/poster/qr";
-import { lawFormula, lawName, LAWS, type Grid } from "@/lib/sizing";
+import { lawCitation, lawFormula, lawName, type Grid } from "@/lib/sizing";
 
 export type PosterInput = {
   snapshot: Snapshot;
@@ -115,8 +124,7 @@ function swatchView(mark: MarkId | "sized"): CellView {
   const def = mark === "sized" ? null : MARKS[mark];
   return {
     primary: mark === "sized" ? "3.0" : mark === "noStock" ? "▲" : mark === "noSize" ? "—" : "3.5",
-    primaryIsSize:
-      mark === "sized" || mark === "hazard" || mark === "oversize" || mark === "undersize" || mark === "outsideFit",
+    primaryIsSize: mark === "sized" || CORNER_MARKS.includes(mark),
     pressure: null,
     exact: mark === "noSize" ? null : "(3.42)",
     marks: def ? [def.id] : [],
@@ -269,15 +277,18 @@ function GridTexts({
   layout,
   sub,
   nf,
+  typed,
 }: {
   grid: Grid;
   g: GridLayout;
   layout: PosterLayout;
   sub: string[];
   nf: NumberFormat;
+  /** Names the lab typed (family, stent platform): their separators are never changed. */
+  typed: readonly string[];
 }) {
   const { fonts } = layout;
-  const loc = (t: string) => localiseNumbers(t, nf);
+  const loc = (t: string) => localiseNumbers(t, nf, typed);
   const f = layout.figurePt;
   const titles = axisTitles(grid);
   const head = f * CELL.headingRatio;
@@ -480,7 +491,7 @@ function Header({ input, layout }: { input: PosterInput; layout: PosterLayout })
           </Text>
         ))}
         <Text style={{ fontSize: fonts.source, textAlign: "right", color: PALETTE.inkSoft, marginTop: 2 * scale }}>
-          {LAWS[snapshot.law.law].source}
+          {lawCitation(snapshot.law)}
         </Text>
       </View>
     </>
@@ -532,8 +543,7 @@ function EditionBlock({ input, layout }: { input: PosterInput; layout: PosterLay
       </Text>
       {(snapshot.ruleExceptions ?? []).map((e, i) => (
         <Text key={`x${i}`} style={{ fontSize: fonts.small, lineHeight: 1.3, marginTop: fonts.small * 0.3 }}>
-          <Text style={{ fontWeight: 700 }}>{`Exception to the lab rule “${e.rule}”: `}</Text>
-          {e.reason}
+          {localiseNumbers(exceptionLine(e), input.lab?.numberFormat ?? "point", [e.reason, e.recordedBy ?? ""])}
         </Text>
       ))}
       {snapshot.notes ? (
@@ -598,6 +608,7 @@ export function PosterDocument({ input }: { input: PosterInput }) {
               true,
             )}
             nf={nf}
+            typed={[snapshot.lookups[i]?.family?.name ?? "", snapshot.stent?.name ?? ""]}
           />
         ))}
 

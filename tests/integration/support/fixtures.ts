@@ -3,7 +3,7 @@
 import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { labs, memberships, users } from "@/db/schema";
+import { labs, memberships, stentPlatforms, stentSizes, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import type { Role } from "@/lib/permissions";
 
@@ -57,4 +57,24 @@ export async function sessionUser(id: number) {
     .from(users)
     .where(eq(users.id, id));
   return u!;
+}
+
+/**
+ * An invented stent platform (illustrative) whose limits no fixture POT balloon reaches: POT
+ * charts need one (the lab rule "POT checked against a stent platform") unless excepted.
+ */
+export async function stentPlatformFor(labId: number): Promise<number> {
+  const [p] = await db
+    .insert(stentPlatforms)
+    .values({ labId, name: `DES fixture ${Math.random().toString(36).slice(2, 8)}` })
+    .$returningId();
+  await db.insert(stentSizes).values(
+    [2, 2.25, 2.5, 2.75, 3, 3.5, 4, 4.5, 5].map((nominalMm) => ({
+      labId,
+      platformId: p!.id,
+      nominalMm,
+      maxPostDilatationMm: 6,
+    })),
+  );
+  return p!.id;
 }

@@ -16,7 +16,7 @@ import type { CsvRow } from "@/lib/stock/csv";
 import { chartDefinitionSchema } from "@/lib/validation/chart";
 import { acceptInvitationIn } from "@/lib/ops/accounts";
 import { accountWrite, labWrite } from "@/lib/ops/write";
-import { labWithTeam } from "./fixtures";
+import { labWithTeam, stentPlatformFor } from "./fixtures";
 
 type Write<A> = (tx: Tx, args: A) => Promise<unknown>;
 function inLab<A extends { labId: number }, R>(fn: (tx: Tx, args: A) => Promise<R>) {
@@ -94,6 +94,7 @@ export async function labWithSmallChart({
     title: `${name} chart`,
     law: { law: "murray" },
     lookups: [{ kind: "proximal", familyId: fam!.id, rounding: "up", rows: [3, 3.5], cols: [2.5, 3] }],
+    stentPlatformId: await stentPlatformFor(team.lab.id),
     paper: "A4",
     orientation: "portrait",
     readingDistanceM: 1,

@@ -262,7 +262,15 @@ describe("the lab's print settings and rule exceptions", () => {
     async () => {
       const snapshot = {
         ...snapshotOf(potDefinition),
-        ruleExceptions: [{ rule: "legibility", reason: "Hangs beside the table, read from 1 m (illustrative)" }],
+        ruleExceptions: [
+          {
+            rule: "legibility",
+            reason: "Hangs beside the table, read from 1 m (illustrative)",
+            relaxes: "read from 1.5 m",
+            recordedBy: "Dr B. Example (illustrative)",
+            recordedOn: "2026-02-27",
+          },
+        ],
       };
       const input = {
         ...posterInput(snapshot, { approvedAt: new Date(Date.UTC(2026, 2, 2, 20, 0)) }),
@@ -275,8 +283,9 @@ describe("the lab's print settings and rule exceptions", () => {
       expect(flat).toContain("Dp = 0,678 × (Dmb + Dsb)");
       expect(flat).toMatch(/\(3,05\) 3,25/);
       expect(flat).not.toMatch(/\(3\.05\)/);
+      // The exception names what it relaxes and who recorded it, with the lab's decimal comma.
       expect(flat).toContain(
-        "Exception to the lab rule “legibility”: Hangs beside the table, read from 1 m (illustrative)",
+        "Legibility exception: read from 1,5 m, recorded by Dr B. Example (illustrative) on 2026-02-27. Reason: Hangs beside the table, read from 1 m (illustrative)",
       );
     },
   );

@@ -143,6 +143,7 @@ describe("labels", () => {
       "hazard",
       "oversize",
       "undersize",
+      "nearRbp",
       "outsideFit",
     ]);
     expect(finet.find((e) => e.mark === "oversize")!.text).toContain("more than 0.25 mm above");

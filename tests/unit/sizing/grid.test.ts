@@ -122,6 +122,7 @@ describe("proximal lookup (POT from MB x SB), Finet 0.678, round up", () => {
       // Beyond the default 0.25 mm cap above (stock in 0.5 mm steps): 4.0 for 3.729 (twice), 4.5 for 4.068 (twice).
       oversize: 4,
       undersize: 0,
+      nearRbp: 0,
     });
   });
 });

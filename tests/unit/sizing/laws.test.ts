@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import {
+  figureAgainst,
+  lawCitation,
   FINET_DEFAULT_RATIO,
   FINET_RATIO_MAX,
   FINET_RATIO_MIN,
@@ -220,5 +222,33 @@ describe("warnings", () => {
     expect(r.ok && r.warnings).toEqual([expect.stringContaining("very asymmetric")]);
     const h = solve(huo, { mb: 3, sb: 3 });
     expect(h.ok && h.warnings).toEqual([]);
+  });
+});
+
+describe("the citation under a power-law chart", () => {
+  // Taylor DJ et al., Front Physiol 2022, doi 10.3389/fphys.2022.871912: n of 2.15 to 2.38 fitted in human coronaries.
+  it("states the exponent used and says plainly when it lies outside the cited study's fitted range", () => {
+    expect(lawCitation({ law: "power", n: 1.6 })).toMatch(
+      /^Power law with n = 1\.6, .*OUTSIDE the range n = 2\.15 to 2\.38/,
+    );
+    expect(lawCitation({ law: "power", n: 1.6 })).toContain("does not support this exponent");
+    expect(lawCitation({ law: "power", n: 2.3 })).toContain(
+      "n = 2.3, chosen by the lab; within the range n = 2.15 to 2.38",
+    );
+    expect(lawCitation({ law: "power", n: 2.38 })).toContain("within");
+    expect(lawCitation({ law: "power", n: 2.4 })).toContain("OUTSIDE");
+    expect(lawCitation({ law: "murray" })).toContain("Murray CD");
+  });
+});
+
+describe("refusals show the figure that explains them", () => {
+  it("parent=3.0499, mb=3: 0.0499 mm, not 0.050 mm, below the 0.05 mm step (common practice)", () => {
+    const r = solve({ law: "murray" }, { parent: 3.0499, mb: 3 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.reason).toContain("(here 0.0499 mm)");
+    expect(figureAgainst(0.0499, 0.05)).toBe("0.0499");
+    expect(figureAgainst(0.04999, 0.05)).toBe("0.04999");
+    expect(figureAgainst(0.043, 0.05)).toBe("0.043");
+    expect(figureAgainst(10.0004, 10)).toBe("10.0004");
   });
 });

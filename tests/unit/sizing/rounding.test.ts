@@ -136,10 +136,10 @@ describe("reach by pressure (illustrative compliance: 12 atm nominal, 20 atm RBP
     expect(pickBalloon(1.5, nc, "reach")).toMatchObject({ ok: false, code: "below_stock" });
   });
 
-  it("takes the smallest stocked size that reaches, even when a larger one also would", () => {
-    // Growth 0.5 mm: 3.0 reaches 3.4 at 12 + 8 x 0.4/0.5 = 18.4 -> 19 atm; 3.25 would need less.
+  it("takes the size that needs the lowest pressure, not the smallest that reaches (common practice)", () => {
+    // Growth 0.5 mm: 3.0 would reach 3.4 only at 12 + 8 x 0.4/0.5 = 18.4 -> 19 atm; 3.25 needs 12 + 8 x 0.15/0.5 = 14.4 -> 15 atm.
     const wide = { ...nc, growthAtRbpMm: 0.5, diameters: [3.0, 3.25, 3.5] };
-    expect(pickBalloon(3.4, wide, "reach")).toMatchObject({ diameterMm: 3.0, pressureAtm: 19, rule: "reach" });
+    expect(pickBalloon(3.4, wide, "reach")).toMatchObject({ diameterMm: 3.25, pressureAtm: 15, rule: "reach" });
   });
 
   it("skips gaps: 2.5 cannot reach 2.9 (+0.25 at most), so 3.0 at nominal", () => {

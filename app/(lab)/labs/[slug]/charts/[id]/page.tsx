@@ -84,6 +84,7 @@ export default async function ChartPage({ params }: { params: Promise<{ slug: st
         labName={member.lab.name}
         logoSha256={chart.logoSha256}
         canEdit={can(member.role, "chart:design")}
+        labRules={rules}
       />
       <LogoField
         slug={slug}

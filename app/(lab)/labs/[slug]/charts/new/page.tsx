@@ -33,7 +33,15 @@ export default async function NewChartPage({
         Axes start at this lab&apos;s stocked range in 0.25 mm steps; change anything and watch the preview.
       </p>
       <Caution className="my-4" demo={member.lab.isDemo} />
-      <ChartDesigner slug={slug} chartId={null} initial={initial} stock={stock} labName={member.lab.name} canEdit />
+      <ChartDesigner
+        slug={slug}
+        chartId={null}
+        initial={initial}
+        stock={stock}
+        labName={member.lab.name}
+        canEdit
+        labRules={rules}
+      />
     </div>
   );
 }
