@@ -2,6 +2,7 @@
 // approver attests to. Derived from the frozen snapshot with the poster's text helpers, never
 // re-worded here, so the approval screen and the PDF cannot drift apart.
 import type { Snapshot, SnapshotLookup } from "@/lib/charts/snapshot";
+import { DEFAULT_RBP_HEADROOM_ATM } from "@/lib/sizing";
 import { gridSubtitleParts, lookupTitle } from "@/lib/poster/labels";
 import { legendEntries } from "@/lib/poster/marks";
 import { lawHeading, posterLegend, snapshotLegibility } from "@/lib/poster/model";
@@ -96,7 +97,7 @@ function perLookup(snapshot: Snapshot): Omit<PrintItem, "changed">[] {
         label: `Reach headroom: ${lookupLabel(l)}`,
         lines: [
           l.family && hasGrowthData(l.family)
-            ? `Pressures are printed up to the RBP (${l.family.rbpAtm} atm); no cell is marked for a pressure close below it`
+            ? `Pressures are printed up to the RBP (${l.family.rbpAtm} atm), never above it; a cell whose pressure is within ${l.headroomAtm ?? DEFAULT_RBP_HEADROOM_ATM} atm below it carries the near-RBP mark`
             : "No pressure is printed (no growth at RBP recorded), so there is no headroom to keep",
         ],
         notes: [],

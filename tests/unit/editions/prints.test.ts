@@ -74,7 +74,9 @@ describe("editionPrints", () => {
   it("gives a reach lookup its headroom line", () => {
     const reach = { ...potDefinition, lookups: [{ ...potDefinition.lookups[0], rounding: "reach" }] };
     const items = editionPrints(snap(reach), null);
-    expect(text(items, "headroom:proximal")).toMatch(/^Pressures are printed up to the RBP \(\d+ atm\)/);
+    expect(text(items, "headroom:proximal")).toMatch(
+      /^Pressures are printed up to the RBP \(\d+ atm\), never above it; a cell whose pressure is within 1 atm below it carries the near-RBP mark/,
+    );
   });
 
   it("prints the exceptions in force with who recorded them; the recorder is not compared", () => {
