@@ -25,7 +25,7 @@ const upload = (actor: Actor, query: string, name: string, buffer: Buffer, mimeT
   client(actor).post(`/api/v1/labs/demo/stock/import${query}`, { multipart: { file: { name, mimeType, buffer } } });
 
 test("every stock route answers each role as the authorization matrix says", async () => {
-  expect(STOCK_ROWS.length).toBe(14);
+  expect(STOCK_ROWS.length).toBe(15);
   const before = await stockOf("demo");
   const seen: string[] = [];
   for (const row of STOCK_ROWS) {

@@ -1,5 +1,5 @@
 // The stock page in Chromium: a manager imports a file and edits inline; an operator only reads.
-import { expect, test } from "@playwright/test";
+import { expect, test, type Page } from "@playwright/test";
 import { demoEmail, signInPage } from "./support/auth";
 
 test("a manager imports a CSV through the page: preview, apply, new sizes in the table, history", async ({ page }) => {
@@ -76,6 +76,17 @@ test("a bad file shows each bad line and saves nothing", async ({ page }) => {
   await expect(page.getByTestId("stock-revision")).toHaveText(revision!);
 });
 
+/** A change that outdates a posted copy asks first; the manager confirms from the keyboard. */
+async function confirmIfAsked(page: Page) {
+  const dialog = page.getByRole("dialog", { name: "Posted copies will go out of date" });
+  const done = page.getByRole("status").filter({ hasText: "3.25 mm marked" });
+  await expect(dialog.or(done).first()).toBeVisible();
+  if (await dialog.isVisible()) {
+    await dialog.getByRole("button", { name: /^Mark (out of|in) stock$/ }).focus();
+    await page.keyboard.press("Enter");
+  }
+}
+
 test("a manager toggles a size from the keyboard and the change persists", async ({ page }) => {
   await signInPage(page, demoEmail("manager"));
   await page.goto("/labs/demo/stock");
@@ -84,6 +95,7 @@ test("a manager toggles a size from the keyboard and the change persists", async
   const now = was === "true" ? "false" : "true";
   await toggle.focus();
   await page.keyboard.press("Space");
+  await confirmIfAsked(page);
   await expect(page.getByRole("status").filter({ hasText: "3.25 mm marked" })).toBeVisible();
   await page.reload();
   await expect(page.getByRole("switch", { name: "NC family A (illustrative) 3.25 mm in stock" })).toHaveAttribute(
@@ -91,6 +103,7 @@ test("a manager toggles a size from the keyboard and the change persists", async
     now,
   );
   await page.getByRole("switch", { name: "NC family A (illustrative) 3.25 mm in stock" }).press("Enter");
+  await confirmIfAsked(page);
   await expect(page.getByRole("status").filter({ hasText: "3.25 mm marked" })).toBeVisible();
   await page.reload();
   await expect(page.getByRole("switch", { name: "NC family A (illustrative) 3.25 mm in stock" })).toHaveAttribute(
