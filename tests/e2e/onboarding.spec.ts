@@ -144,6 +144,25 @@ test("a new person signs up, confirms, creates a lab, stocks it, invites a team 
   await expect(page.getByTestId("first-run-lead")).toHaveAttribute("data-done", "true");
   await expect(page.getByTestId("first-run-educator")).toHaveAttribute("data-done", "true");
 
+  // A POT chart is checked against a stent platform (a lab rule): the manager records one first.
+  const platform = await page.request.post(`/api/v1/labs/${slug}/stock/platforms`, {
+    data: { name: "DES platform (e2e, illustrative)" },
+  });
+  expect(platform.status()).toBe(201);
+  const platformId = ((await platform.json()) as { platform: { id: number } }).platform.id;
+  for (const [nominalMm, maxPostDilatationMm] of [
+    [2.5, 3.5],
+    [3, 4.5],
+    [3.5, 5],
+  ])
+    expect(
+      (
+        await page.request.post(`/api/v1/labs/${slug}/stock/platforms/${platformId}/sizes`, {
+          data: { nominalMm, maxPostDilatationMm },
+        })
+      ).status(),
+    ).toBe(201);
+
   // A first chart from the POT template; its axes start at the stocked range.
   await page.getByRole("link", { name: "POT chart", exact: true }).click();
   await expect(page).toHaveURL(new RegExp(`/labs/${slug}/charts/new\\?template=pot$`));
