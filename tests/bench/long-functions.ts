@@ -1,5 +1,5 @@
 // Lists functions longer than a limit (default 120 lines), longest first:
-// `npx tsx scripts/long-functions.ts [limit]`. Reads app, components, lib and db.
+// `npx tsx tests/bench/long-functions.ts [limit]`. Reads app, components, lib and db.
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import ts from "typescript";
