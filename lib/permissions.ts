@@ -8,7 +8,7 @@ export const ROLE_LABELS: Record<Role, string> = {
   operator: "Operator",
 };
 
-// What each role may do inside one lab (README.md, "What is where"; the lab rules may widen
+// What each role may do inside one lab (lib/README.md, "What is where"; the lab rules may widen
 // edition:approve to managers, lib/ops/access.ts labCan).
 export const CAPABILITIES = {
   "lab:read": ["manager", "lead", "educator", "operator"],
